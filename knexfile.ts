@@ -1,0 +1,30 @@
+// Knex settings for migrations and seeds. Migrations run as the schema-owning account;
+// the app itself connects with the row-only account (src/lib/server/db.ts).
+import type { Knex } from 'knex';
+
+function required(name: string): string {
+	const value = process.env[name];
+	if (!value) throw new Error(`${name} is not set: run through npm start / npm test, or source scripts/env.sh`);
+	return value;
+}
+
+export function knexConfig(database = process.env.FC_DB_NAME ?? 'furrowcast'): Knex.Config {
+	return {
+		client: 'mysql2',
+		connection: {
+			host: process.env.FC_DB_HOST ?? '127.0.0.1',
+			port: Number(process.env.FC_DB_PORT ?? 3307),
+			user: required('FC_DB_MIGRATE_USER'),
+			password: required('FC_DB_MIGRATE_PASSWORD'),
+			database,
+			timezone: 'Z',
+			dateStrings: ['DATE'],
+			multipleStatements: false
+		},
+		pool: { min: 0, max: 4 },
+		migrations: { directory: './db/migrations', extension: 'ts', loadExtensions: ['.ts'] },
+		seeds: { directory: './db/seeds', extension: 'ts', loadExtensions: ['.ts'] }
+	};
+}
+
+export default knexConfig();

@@ -1,0 +1,14 @@
+#!/usr/bin/env bash
+# Start the local fake SMTP server (loopback only) unless ours already runs.
+set -euo pipefail
+source "$(dirname "$0")/env.sh"
+mkdir -p "$FC_PID_DIR" "$FC_MAIL_DIR"
+pidfile="$FC_PID_DIR/mail-fake-$FC_SMTP_PORT.pid"
+if pid_alive "$pidfile"; then say "mail fake already running on $FC_SMTP_HOST:$FC_SMTP_PORT"; exit 0; fi
+port_busy "$FC_SMTP_PORT" && die "port $FC_SMTP_PORT is taken by another program; set FC_SMTP_PORT to a free port"
+cd "$FC_ROOT"
+setsid node --import tsx scripts/mail-fake.ts </dev/null >"$FC_DATA_DIR/mail-fake-$FC_SMTP_PORT.log" 2>&1 &
+echo $! >"$pidfile"
+for _ in $(seq 1 40); do port_busy "$FC_SMTP_PORT" && break; sleep 0.25; done
+port_busy "$FC_SMTP_PORT" || die "mail fake did not start; see $FC_DATA_DIR/mail-fake-$FC_SMTP_PORT.log"
+say "mail fake on $FC_SMTP_HOST:$FC_SMTP_PORT, messages kept in $FC_MAIL_DIR"
