@@ -18,7 +18,8 @@ export function knexConfig(database = process.env.FC_DB_NAME ?? 'furrowcast'): K
 			password: required('FC_DB_MIGRATE_PASSWORD'),
 			database,
 			timezone: 'Z',
-			dateStrings: ['DATE'],
+			// mysql2 takes a list of column types here; knex's typing only knows the boolean form.
+			dateStrings: ['DATE'] as unknown as boolean,
 			multipleStatements: false
 		},
 		pool: { min: 0, max: 4 },

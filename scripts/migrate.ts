@@ -1,6 +1,6 @@
 // Runs the Knex migrations: `tsx scripts/migrate.ts [latest|rollback-all|fresh] [database]`.
 import knex from 'knex';
-import { knexConfig } from '../knexfile.ts';
+import { knexConfig } from '../knexfile';
 
 const [command = 'latest', database = process.env.FC_DB_NAME ?? 'furrowcast'] = process.argv.slice(2);
 const conn = knex(knexConfig(database));

@@ -20,7 +20,8 @@ function connect(): Knex {
 			database: setting('FC_DB_NAME'),
 			timezone: 'Z',
 			// Calendar dates stay 'YYYY-MM-DD' strings end to end: no time-zone drift.
-			dateStrings: ['DATE'],
+			// mysql2 takes a list of column types here; knex's typing only knows the boolean form.
+			dateStrings: ['DATE'] as unknown as boolean,
 			decimalNumbers: true
 		},
 		pool: { min: 0, max: Number(env.FC_DB_POOL_MAX ?? 10) }

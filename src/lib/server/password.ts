@@ -12,3 +12,11 @@ export function hashPassword(password: string): Promise<string> {
 export function verifyPassword(passwordHash: string, password: string): Promise<boolean> {
 	return verify(passwordHash, password, options).catch(() => false);
 }
+
+let dummy: Promise<string> | undefined;
+/** Spends the same work as a real check, so a missing account is not told apart by timing. */
+export async function verifyDummy(password: string): Promise<false> {
+	dummy ??= hashPassword('furrowcast-no-such-account');
+	await verifyPassword(await dummy, password);
+	return false;
+}

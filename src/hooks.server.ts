@@ -1,0 +1,38 @@
+// Resolves the session and the farm once per request; routes read them from locals.
+import type { Handle } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { lucia, cookieIsSecure, clearSessionCookie } from '$lib/server/auth';
+import { resolveMembership } from '$lib/server/members';
+
+const session: Handle = async ({ event, resolve }) => {
+	event.locals.user = null;
+	event.locals.sessionId = null;
+	event.locals.farm = null;
+	const sessionId = event.cookies.get(lucia().sessionCookieName);
+	if (!sessionId) return resolve(event);
+
+	const { session, user } = await lucia().validateSession(sessionId);
+	if (!session || !user) {
+		clearSessionCookie(event.cookies, event.url);
+		return resolve(event);
+	}
+	if (session.fresh) {
+		const cookie = lucia().createSessionCookie(session.id);
+		event.cookies.set(cookie.name, cookie.value, { ...cookie.attributes, path: '/', httpOnly: true, secure: cookieIsSecure(event.url) });
+	}
+	event.locals.user = { id: user.id, email: user.email, name: user.name };
+	event.locals.sessionId = session.id;
+	const membership = await resolveMembership(user.id, session.farmId);
+	if (membership) event.locals.farm = { id: membership.farmId, name: membership.farmName, role: membership.role };
+	return resolve(event);
+};
+
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	response.headers.set('X-Content-Type-Options', 'nosniff');
+	response.headers.set('Referrer-Policy', 'same-origin');
+	response.headers.set('X-Frame-Options', 'DENY');
+	return response;
+};
+
+export const handle = sequence(session, securityHeaders);

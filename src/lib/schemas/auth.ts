@@ -1,0 +1,28 @@
+import { z } from 'zod';
+import { email, isoDate, numberField, password, plainText } from './common';
+import { roles } from '$lib/roles';
+
+export const signInSchema = z.object({ email, password: z.string().min(1, 'Password is required.').max(200, 'Password must be at most 200 characters.') });
+
+export const signUpSchema = z.object({
+	name: plainText('Your name', 120),
+	email,
+	password,
+	farmName: plainText('Farm name', 120),
+	latitude: numberField('Latitude', -66, 66),
+	lastSpringFrost: isoDate('Last spring frost'),
+	firstFallFrost: isoDate('First fall frost')
+});
+
+export const inviteSchema = z.object({
+	email,
+	role: z.enum(roles, { error: 'Choose a role: owner, crew lead or share manager.' })
+});
+
+export const acceptInviteSchema = z.object({ name: plainText('Your name', 120), password });
+
+export const forgotSchema = z.object({ email });
+
+export const resetSchema = z
+	.object({ password, confirm: z.string().max(200, 'Password must be at most 200 characters.') })
+	.refine((v) => v.password === v.confirm, { message: 'The two passwords differ.', path: ['confirm'] });

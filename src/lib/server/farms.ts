@@ -1,0 +1,49 @@
+// The farm's own settings (tenant row).
+import { db } from './db';
+
+export interface Farm {
+	id: number;
+	name: string;
+	timeZone: string;
+	latitude: number;
+	unitSystem: 'imperial' | 'metric';
+	lastSpringFrost: string;
+	firstFallFrost: string;
+	bedFootIncrement: number;
+	turnaroundDays: number;
+}
+
+export async function get(farmId: number): Promise<Farm> {
+	const r = await db()('farms').where({ id: farmId }).first();
+	if (!r) throw new Error(`farm ${farmId} not found`);
+	return {
+		id: r.id,
+		name: r.name,
+		timeZone: r.time_zone,
+		latitude: Number(r.latitude),
+		unitSystem: r.unit_system,
+		lastSpringFrost: r.last_spring_frost,
+		firstFallFrost: r.first_fall_frost,
+		bedFootIncrement: r.bed_foot_increment,
+		turnaroundDays: r.turnaround_days
+	};
+}
+
+export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<void> {
+	await db()('farms').where({ id: farmId }).update({
+		name: input.name,
+		time_zone: input.timeZone,
+		latitude: input.latitude,
+		unit_system: input.unitSystem,
+		last_spring_frost: input.lastSpringFrost,
+		first_fall_frost: input.firstFallFrost,
+		bed_foot_increment: input.bedFootIncrement,
+		turnaround_days: input.turnaroundDays
+	});
+}
+
+/** Normal weekly mean temperatures keyed by ISO week number (1-53). */
+export async function weeklyTemps(farmId: number): Promise<Record<number, number>> {
+	const rows: { week_number: number; mean_temp_f: number }[] = await db()('farm_weekly_temps').where({ farm_id: farmId }).select('week_number', 'mean_temp_f');
+	return Object.fromEntries(rows.map((r) => [r.week_number, Number(r.mean_temp_f)]));
+}

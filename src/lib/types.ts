@@ -1,0 +1,48 @@
+// Shapes shared by the server and the browser (no server code here).
+
+/** A planting with its variety, crop and bed joined in, as pages and the API show it. */
+export interface PlantingView {
+	id: number;
+	seasonId: number;
+	varietyId: number;
+	variety: string;
+	crop: string;
+	family: string;
+	harvestUnit: string;
+	bedId: number | null;
+	bed: string | null;
+	block: string | null;
+	blockPosition: number | null;
+	bedPosition: number | null;
+	startFt: number;
+	lengthFt: number;
+	rows: number;
+	inRowSpacingIn: number;
+	seedsPerSpot: number;
+	method: 'direct' | 'transplant';
+	traySowDate: string | null;
+	fieldDate: string;
+	firstHarvest: string;
+	lastHarvest: string;
+	expectedYield: number;
+	seedsNeeded: number;
+	status: string;
+	notes: string | null;
+	version: number;
+}
+
+export interface Block {
+	id: number;
+	name: string;
+	position: number;
+}
+
+export interface Bed {
+	id: number;
+	blockId: number;
+	blockName: string;
+	name: string;
+	lengthFt: number;
+	widthIn: number;
+	position: number;
+}

@@ -1,0 +1,32 @@
+import { error } from '@sveltejs/kit';
+import type { PageServerLoad } from './$types';
+import { requireUser } from '$lib/server/guards';
+import * as farms from '$lib/server/farms';
+import { tasksForWeek } from '$lib/server/plantings';
+import { addDays, addWeeks, isoWeek, weekStart } from '$lib/planning/iso-week';
+import { todayIn } from '$lib/today';
+
+export const load = (async (event) => {
+	const { farm } = requireUser(event);
+	const settings = await farms.get(farm.id);
+	const today = todayIn(settings.timeZone);
+	const requested = event.url.searchParams.get('week');
+	if (requested !== null && !/^\d{4}-W\d{2}$/.test(requested)) error(400, 'week must be an ISO week like 2027-W19.');
+	const week = requested ?? isoWeek(today);
+	let monday: string;
+	try {
+		monday = weekStart(week);
+	} catch (e) {
+		error(400, (e as Error).message);
+	}
+	const sunday = addDays(monday, 6);
+	return {
+		week,
+		monday,
+		sunday,
+		today,
+		previousWeek: addWeeks(week, -1),
+		nextWeek: addWeeks(week, 1),
+		tasks: await tasksForWeek(farm.id, monday, sunday)
+	};
+}) satisfies PageServerLoad;

@@ -1,0 +1,50 @@
+// Real headless Chromium from Debian, driven by playwright-core. Never a downloaded browser.
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { baseUrl } from './env';
+
+export const chromiumFlags = [
+	'--headless',
+	'--no-sandbox',
+	'--disable-gpu',
+	'--disable-background-networking',
+	'--disable-component-update',
+	'--disable-sync',
+	'--no-first-run',
+	'--disable-quic'
+];
+
+export interface BrowserSession {
+	context: BrowserContext;
+	close(): Promise<void>;
+}
+
+/** A fresh Chromium with its own empty user-data folder, removed again on close. */
+export async function launch(options: { viewport?: { width: number; height: number } } = {}): Promise<BrowserSession> {
+	const userDataDir = mkdtempSync(join(tmpdir(), 'fc-chromium-'));
+	const context = await chromium.launchPersistentContext(userDataDir, {
+		executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium',
+		headless: true,
+		args: chromiumFlags,
+		baseURL: baseUrl(),
+		viewport: options.viewport ?? { width: 1280, height: 900 }
+	});
+	return {
+		context,
+		async close() {
+			await context.close();
+			rmSync(userDataDir, { recursive: true, force: true });
+		}
+	};
+}
+
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+	await page.goto('/signin');
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin')), page.getByRole('button', { name: 'Sign in' }).click()]);
+}
+
+export type { Browser, BrowserContext, Page };
