@@ -31,14 +31,17 @@ export class Client {
 		return res;
 	}
 
+	/** GET like a browser would: HTML for pages, JSON for the API. */
 	get(path: string, init: RequestInit = {}): Promise<Response> {
-		return this.request(path, init);
+		const headers = new Headers(init.headers);
+		if (!headers.has('accept')) headers.set('accept', path.startsWith('/api/') ? 'application/json' : 'text/html');
+		return this.request(path, { ...init, headers });
 	}
 
 	/** POST a form to a page action ('/signin' or '/settings?/farm'). */
 	postForm(path: string, fields: Record<string, string | number>): Promise<Response> {
 		const body = new URLSearchParams(Object.entries(fields).map(([k, v]) => [k, String(v)]));
-		return this.request(path, { method: 'POST', body, headers: { origin: baseUrl(), 'content-type': 'application/x-www-form-urlencoded' } });
+		return this.request(path, { method: 'POST', body, headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
 	}
 
 	json(path: string, method: string, payload?: unknown): Promise<Response> {
@@ -56,4 +59,9 @@ export async function signedIn(email: string, password: string): Promise<Client>
 	const res = await client.postForm('/signin', { email, password });
 	if (res.status !== 303) throw new Error(`sign-in as ${email} answered ${res.status}`);
 	return client;
+}
+
+/** A page's HTML with the character references decoded, to compare against plain messages. */
+export async function html(res: Response): Promise<string> {
+	return (await res.text()).replace(/&(lt|gt|amp|quot|#39|#x27);/g, (_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'", '#x27': "'" })[e] ?? '');
 }

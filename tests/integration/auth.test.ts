@@ -1,7 +1,7 @@
 // Sign-up, sign-in, sign-out, rate limits, password reset and cookies, against the running
 // test server and the real MariaDB.
 import { afterAll, describe, expect, it } from 'vitest';
-import { Client, signedIn } from '../helpers/http';
+import { Client, signedIn, html } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { firstLink, waitForMail } from '../helpers/mail';
 import { demo } from '../helpers/env';
@@ -44,7 +44,7 @@ describe('sign-up', () => {
 		['empty name', { name: '' }, 'name', 'Your name is required.'],
 		['too long farm name', { farmName: 'x'.repeat(121) }, 'farmName', 'Farm name must be at most 120 characters.'],
 		['latitude not a number', { latitude: 'north' }, 'latitude', 'Latitude must be a number.'],
-		['script tag in the name', { name: '<script>alert(1)</script>' }, 'name', 'Your name may not contain &lt; or &gt;.'],
+		['script tag in the name', { name: '<script>alert(1)</script>' }, 'name', 'Your name may not contain < or >.'],
 		['bad e-mail', { email: 'not-an-email' }, 'email', 'Enter a valid e-mail address'],
 		['short password', { password: 'short' }, 'password', 'Password must be at least 10 characters.'],
 		['impossible date', { lastSpringFrost: '2027-02-30' }, 'lastSpringFrost', 'Last spring frost is not a real calendar date.']
@@ -55,9 +55,9 @@ describe('sign-up', () => {
 			const before = await count('farms');
 			const res = await new Client().postForm('/signup', { ...signUpFields(email), ...change });
 			expect(res.status).toBe(400);
-			const html = await res.text();
-			expect(html).toContain(`id="field-${field}-error"`);
-			expect(html).toContain(message);
+			const page = await html(res);
+			expect(page).toContain(`id="field-${field}-error"`);
+			expect(page).toContain(message);
 			expect(await count('farms')).toBe(before);
 			expect(await count('users', { email: (change.email ?? email).toLowerCase() })).toBe(0);
 		});
@@ -67,7 +67,7 @@ describe('sign-up', () => {
 		const before = await count('farms');
 		const res = await new Client().postForm('/signup', signUpFields(demo.owner));
 		expect(res.status).toBe(400);
-		expect(await res.text()).toContain('An account with this e-mail already exists.');
+		expect(await html(res)).toContain('An account with this e-mail already exists.');
 		expect(await count('farms')).toBe(before);
 	});
 });
@@ -84,7 +84,7 @@ describe('sign-in and sign-out', () => {
 	it('says plainly when e-mail and password do not match', async () => {
 		const res = await new Client().postForm('/signin', { email: demo.crew, password: 'wrong-password' });
 		expect(res.status).toBe(400);
-		expect(await res.text()).toContain('That e-mail and password do not match an account.');
+		expect(await html(res)).toContain('That e-mail and password do not match an account.');
 	});
 
 	it('rate-limits failed attempts per account with a clear message, even for the right password', async () => {
@@ -93,7 +93,7 @@ describe('sign-in and sign-out', () => {
 		for (let i = 0; i < 5; i++) await new Client().postForm('/signin', { email, password: 'wrong-password' });
 		const res = await new Client().postForm('/signin', { email, password: 'long-enough-pass' });
 		expect(res.status).toBe(429);
-		expect(await res.text()).toMatch(/Too many sign-in attempts\. Try again in \d+ minutes?/);
+		expect(await html(res)).toMatch(/Too many sign-in attempts\. Try again in \d+ minutes?/);
 	});
 });
 

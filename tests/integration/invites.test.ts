@@ -1,7 +1,7 @@
 // The owner invites people by e-mail with a role; the link signs them up in that role, once,
 // and expires.
 import { afterAll, describe, expect, it } from 'vitest';
-import { Client, signedIn } from '../helpers/http';
+import { Client, signedIn, html } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { firstLink, waitForMail } from '../helpers/mail';
 import { demo } from '../helpers/env';
@@ -20,7 +20,7 @@ describe('invites', () => {
 
 		const invitee = new Client();
 		const page = await invitee.get(link.pathname);
-		expect(await page.text()).toContain('Share manager');
+		expect(await html(page)).toContain('Share manager');
 		const joined = await invitee.postForm(link.pathname, { name: 'New Share Manager', password: 'invited-pass-1' });
 		expect(joined.status).toBe(303);
 		const me = await (await invitee.get('/api/me')).json();
@@ -29,7 +29,7 @@ describe('invites', () => {
 
 		// Used once: the same link is refused now.
 		const again = await new Client().get(link.pathname);
-		expect(await again.text()).toContain('This invite has already been used.');
+		expect(await html(again)).toContain('This invite has already been used.');
 	});
 
 	it('refuses an expired link', async () => {
@@ -40,7 +40,7 @@ describe('invites', () => {
 		await testDb()('invites').where({ email }).update({ expires_at: new Date(Date.now() - 60_000) });
 		const res = await new Client().postForm(link.pathname, { name: 'Too Late', password: 'invited-pass-1' });
 		expect(res.status).toBe(400);
-		expect(await res.text()).toContain('This invite link has expired.');
+		expect(await html(res)).toContain('This invite link has expired.');
 		expect(await count('users', { email })).toBe(0);
 	});
 
@@ -49,12 +49,12 @@ describe('invites', () => {
 		const before = await count('invites');
 		const badEmail = await owner.postForm('/team?/invite', { email: 'nope', role: 'crew_lead' });
 		expect(badEmail.status).toBe(400);
-		expect(await badEmail.text()).toContain('Enter a valid e-mail address');
+		expect(await html(badEmail)).toContain('Enter a valid e-mail address');
 		const badRole = await owner.postForm('/team?/invite', { email: uniqueEmail('role'), role: 'admin' });
 		expect(badRole.status).toBe(400);
-		expect(await badRole.text()).toContain('Choose a role: owner, crew lead or share manager.');
+		expect(await html(badRole)).toContain('Choose a role: owner, crew lead or share manager.');
 		const member = await owner.postForm('/team?/invite', { email: demo.crew, role: 'crew_lead' });
-		expect(await member.text()).toContain('is already on this farm&#39;s team.');
+		expect(await html(member)).toContain("is already on this farm's team.");
 		expect(await count('invites')).toBe(before);
 	});
 

@@ -1,7 +1,7 @@
 // Roles and tenancy are enforced on the server: no session gets 401 (API) or a redirect
 // to sign-in (pages); a wrong role gets 403; another farm's rows stay out of reach.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, signedIn } from '../helpers/http';
+import { Client, signedIn, html } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
 
@@ -42,7 +42,7 @@ describe('owner-only pages and actions', () => {
 			it(`${who} gets 403 on ${path}`, async () => {
 				const res = await (await signedIn(who, demo.password)).get(path);
 				expect(res.status).toBe(403);
-				expect(await res.text()).toContain('Only the farm&#39;s owner may do this');
+				expect(await html(res)).toContain("Only the farm's owner may do this");
 			});
 		}
 		it(`${who} cannot post the farm settings form`, async () => {
@@ -68,10 +68,10 @@ describe('tenancy', () => {
 		expect(res.status).toBe(303);
 		expect((await other.get(`/api/seasons/${demoSeasonId}/plantings`)).status).toBe(404);
 		expect((await other.get(`/seasons/${demoSeasonId}`)).status).toBe(404);
-		const crops = await (await other.get('/crops')).text();
+		const crops = await html(await other.get('/crops'));
 		const demoCrop = await testDb()('crops as c').join('seasons as s', 's.farm_id', 'c.farm_id').where('s.id', demoSeasonId).first('c.name');
 		expect(crops).not.toContain(`<strong>${demoCrop.name}</strong>`);
-		const overview = await (await other.get('/?week=2027-W30')).text();
+		const overview = await html(await other.get('/?week=2027-W30'));
 		expect(overview).toContain('Nothing to harvest this week.');
 
 		// The demo owner does see them.
@@ -89,7 +89,7 @@ describe('tenancy', () => {
 		expect(del.status).toBe(404);
 		const edit = await other.postForm('/settings?/saveBed', { id: demoBed.id, name: 'Taken', blockId: demoBed.block_id, lengthFt: 10, widthIn: 30, position: 0 });
 		expect(edit.status).toBe(400);
-		expect(await edit.text()).toContain('Choose one of this farm&#39;s blocks.');
+		expect(await html(edit)).toContain("Choose one of this farm's blocks.");
 		expect((await testDb()('beds').where({ id: demoBed.id }).first('name')).name).toBe(demoBed.name);
 	});
 });

@@ -1,6 +1,6 @@
 // The owner edits the farm and its beds; every bad field is named and nothing is written.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client } from '../helpers/http';
+import { Client, html } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 
 afterAll(closeTestDb);
@@ -40,9 +40,9 @@ describe('farm settings', () => {
 			const before = await testDb()('farms').where({ id: farmId }).first();
 			const res = await owner.postForm('/settings?/farm', { ...farmFields, ...change });
 			expect(res.status).toBe(400);
-			const html = await res.text();
-			expect(html).toContain(`id="field-${field}-error"`);
-			expect(html).toContain(message);
+			const page = await html(res);
+			expect(page).toContain(`id="field-${field}-error"`);
+			expect(page).toContain(message);
 			expect(await testDb()('farms').where({ id: farmId }).first()).toEqual(before);
 		});
 	}
@@ -63,10 +63,10 @@ describe('blocks and beds', () => {
 
 		const dup = await owner.postForm('/settings?/saveBed', { name: 'E1', blockId: block.id, lengthFt: '50', widthIn: '30', position: '2' });
 		expect(dup.status).toBe(400);
-		expect(await dup.text()).toContain('A bed named &quot;E1&quot; already exists on this farm.');
+		expect(await html(dup)).toContain('A bed named "E1" already exists on this farm.');
 		const badLength = await owner.postForm('/settings?/saveBed', { name: 'E2', blockId: block.id, lengthFt: 'long', widthIn: '30', position: '2' });
 		expect(badLength.status).toBe(400);
-		expect(await badLength.text()).toContain('Length (ft) must be a number.');
+		expect(await html(badLength)).toContain('Length (ft) must be a number.');
 		expect(await count('beds', { farm_id: farmId })).toBe(1);
 
 		expect((await owner.postForm('/settings?/deleteBed', { id: bed.id })).status).toBe(303);

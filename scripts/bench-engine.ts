@@ -1,0 +1,140 @@
+/**
+ * Planning-engine benchmark: plan a season (successions for every variety
+ * against 30 weekly targets) and place it into beds, at base size (60
+ * varieties, 200 beds of 100 ft) and at 10× (600 varieties, 2,000 beds).
+ * Inputs are invented and generated deterministically. Prints the median of
+ * several timed runs after warm-up, in one process.
+ *
+ *   npx tsx scripts/bench-engine.ts
+ */
+import { pathToFileURL } from 'node:url';
+import {
+	type Bed,
+	type Farm,
+	type PlacementRequest,
+	type Variety,
+	addWeeks,
+	placePlantings,
+	planSuccessions,
+	weeksBetween
+} from '../src/lib/planning/index';
+
+/** mulberry32: a small deterministic PRNG, so every run plans the same season. */
+function prng(seed: number): () => number {
+	let a = seed >>> 0;
+	return () => {
+		a = (a + 0x6d2b79f5) >>> 0;
+		let t = a;
+		t = Math.imul(t ^ (t >>> 15), t | 1);
+		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+	};
+}
+
+const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Alliaceae', 'Fabaceae', 'Solanaceae', 'Cucurbitaceae'];
+
+interface Season {
+	varieties: { variety: Variety; targets: { week: string; quantity: number }[] }[];
+	beds: Bed[];
+	farm: Farm;
+	previousFamilyByBed: Record<string, string[]>;
+}
+
+export function makeSeason(varietyCount: number, bedCount: number, seed = 42): Season {
+	const rnd = prng(seed);
+	const pick = <T>(xs: T[]): T => xs[Math.floor(rnd() * xs.length)];
+	const int = (lo: number, hi: number): number => lo + Math.floor(rnd() * (hi - lo + 1));
+	const weeklyMeanTempF: Record<string, number> = {};
+	for (const w of weeksBetween('2025-W40', '2026-W52')) {
+		const n = Number(w.slice(6));
+		// an invented 42° N normal: cold in January, about 72 °F in late July
+		weeklyMeanTempF[w] = 47 - 25 * Math.cos(((n - 3) / 52) * 2 * Math.PI);
+	}
+	const farm: Farm = { lastSpringFrost: '2026-05-10', firstFallFrost: '2026-10-05', latitude: 42, weeklyMeanTempF };
+	const varieties = Array.from({ length: varietyCount }, (_, i) => {
+		const transplant = rnd() < 0.4;
+		const useGdd = rnd() < 0.25;
+		const variety: Variety = {
+			id: `v${i}`,
+			crop: `crop${i % Math.max(1, Math.floor(varietyCount / 2))}`,
+			family: pick(FAMILIES),
+			method: transplant ? 'transplant' : 'direct',
+			daysToMaturity: int(25, 100),
+			daysInTray: transplant ? int(21, 42) : undefined,
+			cellsPerTray: transplant ? pick([72, 128, 200]) : undefined,
+			harvestWindowDays: pick([7, 10, 14, 21, 28, 35]),
+			yieldPerBedFoot: 0.5 + rnd() * 2,
+			rows: pick([1, 2, 3, 4]),
+			inRowSpacingIn: pick([1, 2, 4, 6, 12, 18]),
+			seedsPerSpot: pick([1, 1, 2, 3]),
+			germinationRate: 0.6 + rnd() * 0.35,
+			seedsPerGram: pick([30, 250, 700, 900]),
+			frostTender: rnd() < 0.3,
+			heatLimitF: rnd() < 0.3 ? 70 : undefined,
+			baseTempF: useGdd ? 40 : undefined,
+			gddToMaturity: useGdd ? int(600, 1400) : undefined,
+			seedPriceCentsPerGram: int(5, 80)
+		};
+		const first = addWeeks('2026-W18', int(0, 4));
+		const targets = Array.from({ length: 30 }, (_, k) => ({ week: addWeeks(first, k), quantity: int(5, 30) }));
+		return { variety, targets };
+	});
+	const beds: Bed[] = Array.from({ length: bedCount }, (_, i) => ({ id: `bed${i}`, lengthFt: 100 }));
+	const previousFamilyByBed: Record<string, string[]> = {};
+	for (const b of beds) previousFamilyByBed[b.id] = [pick(FAMILIES)];
+	return { varieties, beds, farm, previousFamilyByBed };
+}
+
+export function planSeason(season: Season): { successions: number; placed: number; unplaced: number } {
+	const requests: PlacementRequest[] = [];
+	for (const { variety, targets } of season.varieties) {
+		const plan = planSuccessions({ variety, targets, farm: season.farm, options: { bedFootIncrement: 5, margin: 0.1 } });
+		for (const s of plan.successions) {
+			requests.push({ key: s.key, bedFeet: s.bedFeet, fieldDate: s.fieldDate, lastHarvest: s.lastHarvest, family: s.family });
+		}
+	}
+	const placement = placePlantings(requests, season.beds, { turnaroundDays: 7, previousFamilyByBed: season.previousFamilyByBed });
+	return { successions: requests.length, placed: placement.placed.length, unplaced: placement.unplaced.length };
+}
+
+function median(xs: number[]): number {
+	const s = [...xs].sort((a, b) => a - b);
+	const m = s.length >> 1;
+	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+}
+
+function timeMedian(season: Season, warmups: number, runs: number): number {
+	for (let i = 0; i < warmups; i++) planSeason(season);
+	const times: number[] = [];
+	for (let i = 0; i < runs; i++) {
+		const t0 = performance.now();
+		planSeason(season);
+		times.push(performance.now() - t0);
+	}
+	return median(times);
+}
+
+export async function runEngineBench(): Promise<Record<string, number>> {
+	const round = (x: number): number => Math.round(x * 100) / 100;
+	// Build the 10× season only after timing the base one, so its heap does not slow the base runs' GC.
+	const baseMs = timeMedian(makeSeason(60, 200), 20, 31);
+	const x10Ms = timeMedian(makeSeason(600, 2000), 3, 9);
+	return {
+		'engine.plan.base_ms': round(baseMs),
+		'engine.plan.x10_ms': round(x10Ms),
+		'engine.plan.scale_ratio': round(x10Ms / baseMs)
+	};
+}
+
+const isMain = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
+if (isMain) {
+	if (process.env.BENCH_ENGINE_VERBOSE) {
+		for (const [v, b] of [[60, 200], [600, 2000]]) {
+			const s = planSeason(makeSeason(v, b));
+			console.error(`# ${v} varieties, ${b} beds: ${s.successions} successions, ${s.placed} placed pieces, ${s.unplaced} unplaced`);
+		}
+	}
+	void runEngineBench().then((results) => {
+		for (const [k, v] of Object.entries(results)) console.log(`${k}: ${v}`);
+	});
+}

@@ -1,0 +1,100 @@
+import { dayLengthHours, dayOfYearOfDay } from './day-length';
+import { type DayNumber, fromDayNumber, weekdayOf } from './day-number';
+import { ceilSafe } from './numbers';
+import { meanDegreeDays } from './degree-days';
+import type { TempLookup } from './weekly-temps';
+import type { PlanningWarning, Variety } from './types';
+
+export type DtmSource = 'variety' | 'short_day' | 'gdd';
+
+export interface EffectiveDtm {
+	days: number;
+	source: DtmSource;
+	varietyDays: number;
+	/** Day length at the farm's latitude on the first-harvest date, hours. */
+	dayLengthHours: number;
+	thresholdHours: number;
+	allowanceDays: number;
+	gdd?: { required: number; accumulated: number; baseF: number; days: number };
+	warnings: PlanningWarning[];
+}
+
+export interface DtmContext {
+	latitude: number;
+	shortDayAllowanceDays: number;
+	shortDayThresholdHours: number;
+	gddWalkLimitDays: number;
+	temps?: TempLookup;
+}
+
+/**
+ * Effective days to maturity for a first harvest on `firstHarvest` (DESIGN step 3).
+ * With weekly temperatures and a GDD requirement, walk back day by day from the
+ * day before first harvest, adding max(0, weekly mean − base), until the
+ * requirement is met; the degree-day figure then replaces the calendar rule
+ * (temperature already slows an autumn crop). Otherwise: the variety's figure,
+ * plus the short-day allowance when day length at first harvest is under the
+ * threshold (common practice: about two weeks longer in autumn's short days).
+ */
+export function effectiveDaysToMaturity(variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
+	const dl = dayLengthHours(ctx.latitude, dayOfYearOfDay(firstHarvest));
+	const warnings: PlanningWarning[] = [];
+	const out: EffectiveDtm = {
+		days: variety.daysToMaturity,
+		source: 'variety',
+		varietyDays: variety.daysToMaturity,
+		dayLengthHours: dl,
+		thresholdHours: ctx.shortDayThresholdHours,
+		allowanceDays: 0,
+		warnings
+	};
+	if (ctx.temps && variety.gddToMaturity !== undefined && variety.baseTempF !== undefined) {
+		const required = variety.gddToMaturity;
+		const baseF = variety.baseTempF;
+		let acc = 0;
+		let walked = 0;
+		let missing: string | undefined;
+		// Walk back a week at a time: within a week every day adds the same max(0, mean − base),
+		// so the day that meets the requirement is found by division, not by stepping.
+		let day = firstHarvest - 1;
+		while (walked < ctx.gddWalkLimitDays) {
+			const monday = day - weekdayOf(day) + 1;
+			const chunk = Math.min(day - monday + 1, ctx.gddWalkLimitDays - walked);
+			const mean = ctx.temps(day);
+			if (mean === undefined) {
+				missing = fromDayNumber(day);
+				break;
+			}
+			const perDay = meanDegreeDays(mean, baseF);
+			if (perDay > 0 && acc + perDay * chunk >= required - 1e-9) {
+				const k = Math.max(1, ceilSafe((required - acc) / perDay));
+				const days = walked + k;
+				acc += perDay * k;
+				out.days = days;
+				out.source = 'gdd';
+				out.gdd = { required, accumulated: acc, baseF, days };
+				return out;
+			}
+			acc += perDay * chunk;
+			walked += chunk;
+			day = monday - 1;
+		}
+		warnings.push(
+			missing
+				? {
+						code: 'gdd_data_missing',
+						message: `No weekly mean temperature for the week of ${missing}; used the calendar days to maturity instead of degree days.`
+					}
+				: {
+						code: 'gdd_not_met',
+						message: `Only ${acc.toFixed(0)} of ${required} degree days (base ${baseF} °F) accumulate in the ${ctx.gddWalkLimitDays} days before first harvest; used the calendar days to maturity instead.`
+					}
+		);
+	}
+	if (dl < ctx.shortDayThresholdHours) {
+		out.days = variety.daysToMaturity + ctx.shortDayAllowanceDays;
+		out.source = 'short_day';
+		out.allowanceDays = ctx.shortDayAllowanceDays;
+	}
+	return out;
+}

@@ -1,0 +1,130 @@
+import { PlanningInputError, requireNonNegative } from './errors';
+import { type DayNumber, toDayNumber, weekdayOf } from './day-number';
+import { isoWeekOfDay, weekStartDay } from './iso-week';
+import type { CropWeekQuantity, ExplainStep } from './types';
+
+/**
+ * A planting as the forecast sees it. Give either bedFeet × yieldPerBedFoot
+ * (spread evenly over the harvest window) or weeklyYield (per full week).
+ * lastHarvest defaults to firstHarvest + harvestWindowDays − 1.
+ */
+export interface ForecastPlanting {
+	key?: string;
+	crop: string;
+	firstHarvest: string;
+	lastHarvest?: string;
+	harvestWindowDays?: number;
+	bedFeet?: number;
+	yieldPerBedFoot?: number;
+	weeklyYield?: number;
+}
+
+export interface ForecastRow {
+	crop: string;
+	week: string;
+	supply: number;
+	demand: number;
+	shortfall: number;
+	surplus: number;
+}
+
+interface Window {
+	a: DayNumber;
+	b: DayNumber;
+	perDay: number;
+}
+
+/**
+ * Flat harvest curve: a planting yields the same amount every day of its
+ * window, so a week gets (days of the window inside it) × daily yield. A week
+ * half inside the window gets the pro-rata share of its days, not a whole
+ * week's worth; total supply over all weeks equals the planting's total yield.
+ */
+export function harvestWindow(p: ForecastPlanting, field = 'planting'): Window {
+	const a = toDayNumber(p.firstHarvest, `${field}.firstHarvest`);
+	let b: DayNumber;
+	if (p.lastHarvest !== undefined) b = toDayNumber(p.lastHarvest, `${field}.lastHarvest`);
+	else if (p.harvestWindowDays !== undefined) b = a + p.harvestWindowDays - 1;
+	else throw new PlanningInputError(`${field}.lastHarvest`, 'or harvestWindowDays is required');
+	if (b < a) throw new PlanningInputError(`${field}.lastHarvest`, 'is before firstHarvest');
+	let perDay: number;
+	if (p.bedFeet !== undefined && p.yieldPerBedFoot !== undefined) {
+		requireNonNegative(`${field}.bedFeet`, p.bedFeet);
+		requireNonNegative(`${field}.yieldPerBedFoot`, p.yieldPerBedFoot);
+		perDay = (p.bedFeet * p.yieldPerBedFoot) / (b - a + 1);
+	} else if (p.weeklyYield !== undefined) {
+		perDay = requireNonNegative(`${field}.weeklyYield`, p.weeklyYield) / 7;
+	} else {
+		throw new PlanningInputError(`${field}.weeklyYield`, 'or bedFeet with yieldPerBedFoot is required');
+	}
+	return { a, b, perDay };
+}
+
+function addTo(map: Map<string, Map<DayNumber, number>>, crop: string, monday: DayNumber, q: number): void {
+	let m = map.get(crop);
+	if (!m) map.set(crop, (m = new Map()));
+	m.set(monday, (m.get(monday) ?? 0) + q);
+}
+
+/**
+ * Weekly projected harvest per crop against weekly targets (DESIGN step 7).
+ * One row per crop and ISO week that has supply or demand, sorted by crop
+ * then week. Accumulates into per-crop maps keyed by each week's Monday.
+ */
+export function forecast(plantings: ForecastPlanting[], targets: CropWeekQuantity[]): ForecastRow[] {
+	const supply = new Map<string, Map<DayNumber, number>>();
+	const demand = new Map<string, Map<DayNumber, number>>();
+	plantings.forEach((p, i) => {
+		if (typeof p.crop !== 'string') throw new PlanningInputError(`plantings[${i}].crop`, 'is required');
+		const w = harvestWindow(p, `plantings[${i}]`);
+		for (let monday = w.a - weekdayOf(w.a) + 1; monday <= w.b; monday += 7) {
+			const days = Math.min(w.b, monday + 6) - Math.max(w.a, monday) + 1;
+			addTo(supply, p.crop, monday, days * w.perDay);
+		}
+	});
+	targets.forEach((t, i) => {
+		const q = requireNonNegative(`targets[${i}].quantity`, t.quantity);
+		addTo(demand, t.crop, weekStartDay(t.week, `targets[${i}].week`), q);
+	});
+	const weekName = new Map<DayNumber, string>();
+	const nameOf = (m: DayNumber): string => {
+		let s = weekName.get(m);
+		if (s === undefined) weekName.set(m, (s = isoWeekOfDay(m)));
+		return s;
+	};
+	const crops = [...new Set([...supply.keys(), ...demand.keys()])].sort();
+	const rows: ForecastRow[] = [];
+	for (const crop of crops) {
+		const sm = supply.get(crop);
+		const dm = demand.get(crop);
+		const mondays = [...new Set([...(sm?.keys() ?? []), ...(dm?.keys() ?? [])])].sort((x, y) => x - y);
+		for (const m of mondays) {
+			const s = sm?.get(m) ?? 0;
+			const d = dm?.get(m) ?? 0;
+			rows.push({ crop, week: nameOf(m), supply: s, demand: d, shortfall: Math.max(0, d - s), surplus: Math.max(0, s - d) });
+		}
+	}
+	return rows;
+}
+
+/** How one crop's supply in one week was reached: each planting's share of days. */
+export function explainSupply(plantings: ForecastPlanting[], crop: string, week: string): ExplainStep[] {
+	const monday = weekStartDay(week);
+	const steps: ExplainStep[] = [];
+	let total = 0;
+	plantings.forEach((p, i) => {
+		if (p.crop !== crop) return;
+		const w = harvestWindow(p, `plantings[${i}]`);
+		const days = Math.min(w.b, monday + 6) - Math.max(w.a, monday) + 1;
+		if (days <= 0) return;
+		const q = days * w.perDay;
+		total += q;
+		steps.push({
+			label: `${p.key ?? `planting ${i + 1}`}: ${days} of 7 days in ${week}`,
+			value: q,
+			formula: `${days} d × ${w.perDay.toFixed(3)} per day (flat harvest curve)`
+		});
+	});
+	steps.push({ label: `${crop} supply in ${week}`, value: total, formula: 'Σ plantings harvesting that week' });
+	return steps;
+}

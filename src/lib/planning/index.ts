@@ -1,0 +1,67 @@
+/**
+ * Furrowcast planning engine: pure TypeScript, plain data in and out, no I/O.
+ * Runs on the server (authoritative) and in the browser (instant recalculation).
+ */
+export { PlanningInputError } from './errors';
+export type {
+	CropWeekQuantity,
+	ExplainStep,
+	PlanningWarning,
+	SowingMethod,
+	Variety,
+	WarningCode,
+	WeeklyTarget
+} from './types';
+
+export {
+	addDays,
+	addWeeks,
+	daysBetween,
+	formatWeekDate,
+	isoWeek,
+	isoWeekday,
+	parseIsoWeek,
+	weekStart,
+	weeksBetween,
+	weeksInIsoYear,
+	type IsoWeek
+} from './iso-week';
+export { growingDegreeDays, meanDegreeDays } from './degree-days';
+export { dayLengthHours, dayOfYear } from './day-length';
+export { seedNeed, spotsPerRow, type SeedNeed, type SeedNeedInput } from './seed';
+export { validateVariety } from './variety';
+export type { WeeklyMeanTempF } from './weekly-temps';
+export type { DtmSource, EffectiveDtm } from './effective-dtm';
+export {
+	planSuccessions,
+	type Farm,
+	type PlanInput,
+	type PlanOptions,
+	type PlanResult,
+	type Succession,
+	type SuccessionBasis
+} from './successions';
+export type { Bed, BedPlanting } from './bed-types';
+export {
+	placePlantings,
+	type PlacedRange,
+	type PlacementNote,
+	type PlacementOptions,
+	type PlacementRequest,
+	type PlacementResult
+} from './placement';
+export { checkBedConflicts, type BedConflict } from './bed-conflicts';
+export { freeSpace, type BedFreeSpace, type FreeRange } from './free-space';
+export { explainSupply, forecast, type ForecastPlanting, type ForecastRow } from './forecast';
+export { checkBoxes, type BoxCheck } from './box-check';
+export {
+	deriveTargets,
+	deriveTargetsWithNotes,
+	explainTargets,
+	type BoxItem,
+	type ShareSize,
+	type TargetInput,
+	type TargetNote
+} from './targets';
+export { explainBedFeet, explainDates, explainPlanting, explainSeed } from './explain';
+export * from './units';

@@ -1,0 +1,48 @@
+import { type DayNumber, fromDayNumber, weekdayOf } from './day-number';
+import { formatWeekDate, isoWeekOfDay } from './iso-week';
+import type { TempLookup } from './weekly-temps';
+import type { PlanningWarning, Variety } from './types';
+
+export interface SeasonFacts {
+	lastSpringFrost: DayNumber;
+	firstFallFrost: DayNumber;
+	temps?: TempLookup;
+}
+
+/** Frost and heat warnings for one succession (DESIGN step 4). */
+export function successionWarnings(
+	variety: Variety,
+	fieldDay: DayNumber,
+	firstHarvest: DayNumber,
+	lastHarvest: DayNumber,
+	season: SeasonFacts
+): PlanningWarning[] {
+	const out: PlanningWarning[] = [];
+	if (variety.frostTender && fieldDay < season.lastSpringFrost) {
+		out.push({
+			code: 'frost_before_last_spring',
+			message: `Frost-tender crop goes into the field on ${formatWeekDate(fromDayNumber(fieldDay))}, before the last spring frost (${formatWeekDate(fromDayNumber(season.lastSpringFrost))}).`
+		});
+	}
+	if (variety.frostTender && lastHarvest > season.firstFallFrost) {
+		out.push({
+			code: 'frost_after_first_fall',
+			message: `Frost-tender crop is still harvesting on ${formatWeekDate(fromDayNumber(lastHarvest))}, after the first fall frost (${formatWeekDate(fromDayNumber(season.firstFallFrost))}).`
+		});
+	}
+	if (variety.heatLimitF !== undefined && season.temps) {
+		const hot: string[] = [];
+		for (let monday = firstHarvest - weekdayOf(firstHarvest) + 1; monday <= lastHarvest; monday += 7) {
+			const mean = season.temps(monday);
+			if (mean !== undefined && mean > variety.heatLimitF) hot.push(isoWeekOfDay(monday));
+		}
+		if (hot.length > 0) {
+			out.push({
+				code: 'heat_in_harvest',
+				message: `Harvest runs through ${hot.join(', ')}, when the weekly mean is above this crop's heat limit of ${variety.heatLimitF} °F (bolting risk).`,
+				weeks: hot
+			});
+		}
+	}
+	return out;
+}

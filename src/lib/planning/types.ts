@@ -1,0 +1,84 @@
+/**
+ * Plain-data shapes shared by the engine. Dates are `YYYY-MM-DD` calendar
+ * dates, weeks are ISO 8601 `YYYY-Www`; lengths in feet (bed-feet) and inches
+ * (spacing), temperatures in °F, seed in grams, money in cents. Quantities are
+ * in the crop's harvest unit (lb, bunch, head, each) — the engine never mixes
+ * units: targets and yields for one crop must use the same unit.
+ */
+export type SowingMethod = 'direct' | 'transplant';
+
+export interface Variety {
+	id?: string;
+	name?: string;
+	crop?: string;
+	cropId?: string;
+	/** Botanical family, for rotation (e.g. "Apiaceae"). */
+	family?: string;
+	method: SowingMethod;
+	/** Days from the field date (sowing for direct, transplanting for transplants) to first harvest. */
+	daysToMaturity: number;
+	/** Days from tray sowing to transplanting; required for transplants. */
+	daysInTray?: number;
+	harvestWindowDays: number;
+	/** Harvest units per bed-foot over the whole harvest window. */
+	yieldPerBedFoot: number;
+	rows: number;
+	inRowSpacingIn: number;
+	seedsPerSpot: number;
+	/** Germination as a fraction in (0, 1]. */
+	germinationRate: number;
+	seedsPerGram: number;
+	/** Required for transplants. */
+	cellsPerTray?: number;
+	frostTender: boolean;
+	/** Mean weekly °F above which the crop bolts or spoils in harvest. */
+	heatLimitF?: number;
+	baseTempF?: number;
+	/** Growing degree days (°F·day, base baseTempF) from field date to first harvest. */
+	gddToMaturity?: number;
+	seedPriceCentsPerGram?: number;
+	seedsPerPacket?: number;
+	/** Extra seed margin (fraction) for this variety; falls back to options.seedMargin. */
+	margin?: number;
+}
+
+export type WarningCode =
+	| 'frost_before_last_spring'
+	| 'frost_after_first_fall'
+	| 'heat_in_harvest'
+	| 'unreachable_week'
+	| 'interval_shortened'
+	| 'gdd_not_met'
+	| 'gdd_data_missing'
+	| 'supply_short'
+	| 'past_bed_end'
+	| 'overlap'
+	| 'unknown_bed'
+	| 'rotation_conflict'
+	| 'split_across_beds';
+
+export interface PlanningWarning {
+	code: WarningCode;
+	message: string;
+	/** ISO weeks the warning is about, when it is about weeks. */
+	weeks?: string[];
+}
+
+/** One line of "how was this figure reached", shown on hover. */
+export interface ExplainStep {
+	label: string;
+	value: number | string;
+	unit?: string;
+	formula?: string;
+}
+
+export interface WeeklyTarget {
+	week: string;
+	quantity: number;
+}
+
+export interface CropWeekQuantity {
+	crop: string;
+	week: string;
+	quantity: number;
+}
