@@ -8,16 +8,7 @@
  *   npx tsx scripts/bench-engine.ts
  */
 import { pathToFileURL } from 'node:url';
-import {
-	type Bed,
-	type Farm,
-	type PlacementRequest,
-	type Variety,
-	addWeeks,
-	placePlantings,
-	planSuccessions,
-	weeksBetween
-} from '../src/lib/planning/index';
+import { type Bed, type Farm, type SeasonPlanInput, type SeasonVariety, addWeeks, planSeason, weeksBetween } from '../src/lib/planning/index';
 
 /** mulberry32: a small deterministic PRNG, so every run plans the same season. */
 function prng(seed: number): () => number {
@@ -33,12 +24,7 @@ function prng(seed: number): () => number {
 
 const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Alliaceae', 'Fabaceae', 'Solanaceae', 'Cucurbitaceae'];
 
-interface Season {
-	varieties: { variety: Variety; targets: { week: string; quantity: number }[] }[];
-	beds: Bed[];
-	farm: Farm;
-	previousFamilyByBed: Record<string, string[]>;
-}
+type Season = SeasonPlanInput;
 
 export function makeSeason(varietyCount: number, bedCount: number, seed = 42): Season {
 	const rnd = prng(seed);
@@ -54,8 +40,10 @@ export function makeSeason(varietyCount: number, bedCount: number, seed = 42): S
 	const varieties = Array.from({ length: varietyCount }, (_, i) => {
 		const transplant = rnd() < 0.4;
 		const useGdd = rnd() < 0.25;
-		const variety: Variety = {
+		const variety: SeasonVariety = {
 			id: `v${i}`,
+			// Each variety carries its own crop's targets, so every variety is planned.
+			cropId: `c${i}`,
 			crop: `crop${i % Math.max(1, Math.floor(varietyCount / 2))}`,
 			family: pick(FAMILIES),
 			method: transplant ? 'transplant' : 'direct',
@@ -76,25 +64,27 @@ export function makeSeason(varietyCount: number, bedCount: number, seed = 42): S
 			seedPriceCentsPerGram: int(5, 80)
 		};
 		const first = addWeeks('2026-W18', int(0, 4));
-		const targets = Array.from({ length: 30 }, (_, k) => ({ week: addWeeks(first, k), quantity: int(5, 30) }));
+		const targets = Array.from({ length: 30 }, (_, k) => ({ crop: variety.cropId, week: addWeeks(first, k), quantity: int(5, 30) }));
 		return { variety, targets };
 	});
 	const beds: Bed[] = Array.from({ length: bedCount }, (_, i) => ({ id: `bed${i}`, lengthFt: 100 }));
 	const previousFamilyByBed: Record<string, string[]> = {};
 	for (const b of beds) previousFamilyByBed[b.id] = [pick(FAMILIES)];
-	return { varieties, beds, farm, previousFamilyByBed };
+	return {
+		farm,
+		beds,
+		previousFamilyByBed,
+		varieties: varieties.map((v) => v.variety),
+		targets: varieties.flatMap((v) => v.targets),
+		options: { bedFootIncrement: 5, margin: 0.1, turnaroundDays: 7 }
+	};
 }
 
-export function planSeason(season: Season): { successions: number; placed: number; unplaced: number } {
-	const requests: PlacementRequest[] = [];
-	for (const { variety, targets } of season.varieties) {
-		const plan = planSuccessions({ variety, targets, farm: season.farm, options: { bedFootIncrement: 5, margin: 0.1 } });
-		for (const s of plan.successions) {
-			requests.push({ key: s.key, bedFeet: s.bedFeet, fieldDate: s.fieldDate, lastHarvest: s.lastHarvest, family: s.family });
-		}
-	}
-	const placement = placePlantings(requests, season.beds, { turnaroundDays: 7, previousFamilyByBed: season.previousFamilyByBed });
-	return { successions: requests.length, placed: placement.placed.length, unplaced: placement.unplaced.length };
+/** The same call the server's plan preview makes: successions, placement and seed per piece. */
+function planOnce(season: Season): { placed: number; unplaced: number } {
+	const plan = planSeason(season);
+	const unplaced = plan.plantings.filter((p) => p.bedId === null).length;
+	return { placed: plan.plantings.length - unplaced, unplaced };
 }
 
 function median(xs: number[]): number {
@@ -104,11 +94,11 @@ function median(xs: number[]): number {
 }
 
 function timeMedian(season: Season, warmups: number, runs: number): number {
-	for (let i = 0; i < warmups; i++) planSeason(season);
+	for (let i = 0; i < warmups; i++) planOnce(season);
 	const times: number[] = [];
 	for (let i = 0; i < runs; i++) {
 		const t0 = performance.now();
-		planSeason(season);
+		planOnce(season);
 		times.push(performance.now() - t0);
 	}
 	return median(times);
@@ -130,8 +120,8 @@ const isMain = process.argv[1] !== undefined && import.meta.url === pathToFileUR
 if (isMain) {
 	if (process.env.BENCH_ENGINE_VERBOSE) {
 		for (const [v, b] of [[60, 200], [600, 2000]]) {
-			const s = planSeason(makeSeason(v, b));
-			console.error(`# ${v} varieties, ${b} beds: ${s.successions} successions, ${s.placed} placed pieces, ${s.unplaced} unplaced`);
+			const s = planOnce(makeSeason(v, b));
+			console.error(`# ${v} varieties, ${b} beds: ${s.placed} placed pieces, ${s.unplaced} unplaced`);
 		}
 	}
 	void runEngineBench().then((results) => {

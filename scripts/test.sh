@@ -16,6 +16,10 @@ fi
 say "svelte-check"
 npm run --silent check
 
+db_was_running=false
+pid_alive "$FC_PID_DIR/mariadb.pid" && db_was_running=true
+bash scripts/db-start.sh
+
 # The test run gets its own database, mail fake and app port; the demo's are left alone.
 export FC_DB_NAME="$FC_DB_TEST_NAME"
 export FC_SMTP_PORT="${FC_TEST_SMTP_PORT:-2526}"
@@ -23,8 +27,6 @@ export FC_MAIL_DIR="$FC_DATA_DIR/mail-test"
 export FC_PORT="${FC_TEST_PORT:-3100}"
 export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
 
-db_was_running=false
-pid_alive "$FC_PID_DIR/mariadb.pid" && db_was_running=true
 cleanup() {
 	bash scripts/app-stop.sh >/dev/null 2>&1 || true
 	bash scripts/mail-stop.sh >/dev/null 2>&1 || true
@@ -32,7 +34,6 @@ cleanup() {
 }
 trap cleanup EXIT
 
-bash scripts/db-start.sh
 rm -rf "$FC_MAIL_DIR"
 bash scripts/mail-start.sh
 npx tsx scripts/migrate.ts fresh "$FC_DB_NAME"

@@ -65,3 +65,12 @@ export {
 } from './targets';
 export { explainBedFeet, explainDates, explainPlanting, explainSeed } from './explain';
 export * from './units';
+export {
+	planSeason,
+	type KeptPlanting,
+	type ProposedPlanting,
+	type SeasonPlan,
+	type SeasonPlanInput,
+	type SeasonVariety,
+	type VarietyShare
+} from './season';

@@ -54,6 +54,8 @@ export type WarningCode =
 	| 'past_bed_end'
 	| 'overlap'
 	| 'unknown_bed'
+	| 'not_placed'
+	| 'no_variety'
 	| 'rotation_conflict'
 	| 'split_across_beds';
 

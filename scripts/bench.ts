@@ -1,0 +1,6 @@
+// npm run bench: every speed figure the issues name, one `name: value` line each, so runs can
+// be compared. Each figure is the median of several runs in one process.
+import { runEngineBench } from './bench-engine';
+
+const results: Record<string, number> = { ...(await runEngineBench()) };
+for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

@@ -1,0 +1,34 @@
+// Small helpers shared by the JSON routes: the season from the URL, and a validated JSON body.
+import { error, json, type RequestEvent } from '@sveltejs/kit';
+import type { z } from 'zod';
+import { fieldErrors } from '$lib/schemas/common';
+import * as seasons from './seasons';
+
+/** The season named in the URL, if it is this farm's; another farm's answers 404 like a missing one. */
+export async function seasonFromParams(farmId: number, raw: string): Promise<seasons.Season> {
+	const id = Number(raw);
+	const season = Number.isInteger(id) && id > 0 ? await seasons.get(farmId, id) : null;
+	if (!season) error(404, 'No such season on this farm.');
+	return season;
+}
+
+export type Parsed<T> = { ok: true; data: T } | { ok: false; response: Response };
+
+/** Parses the JSON body with the schema; a bad body is a 400 naming each field. */
+export async function parseBody<S extends z.ZodType>(event: RequestEvent, schema: S): Promise<Parsed<z.infer<S>>> {
+	let body: unknown = {};
+	const text = await event.request.text();
+	if (text.trim() !== '') {
+		try {
+			body = JSON.parse(text);
+		} catch {
+			return { ok: false, response: json({ message: 'The body is not valid JSON.', errors: { _body: 'not valid JSON' } }, { status: 400 }) };
+		}
+	}
+	const parsed = schema.safeParse(body);
+	if (!parsed.success) {
+		const errors = fieldErrors(parsed.error);
+		return { ok: false, response: json({ message: `Invalid input: ${Object.entries(errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors }, { status: 400 }) };
+	}
+	return { ok: true, data: parsed.data };
+}
