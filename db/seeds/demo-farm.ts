@@ -16,14 +16,14 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import {
-	type BedPlanting,
 	type Farm,
-	type Succession,
+	type KeptPlanting,
+	type SeasonPlan,
+	type SeasonVariety,
 	type Variety,
-	type WeeklyTarget,
+	type VarietyShare as EngineVarietyShare,
 	deriveTargets,
-	placePlantings,
-	planSuccessions,
+	planSeason,
 	seedNeed
 } from '../../src/lib/planning/index';
 
@@ -621,9 +621,11 @@ const VARIETY_PLAN: Readonly<Record<string, readonly VarietyShare[]>> = {
 	Spinach: [{ variety: 'Broadleaf Dawn', to: 30 }, { variety: 'Cold Frame Savoy', from: 31 }],
 	Kale: [{ variety: 'Curled Fog', to: 33 }, { variety: 'Slate Leaf', from: 34 }],
 	Tomato: [{ variety: 'Scarlet Ledger', fraction: 0.7 }, { variety: 'Honey Marble', fraction: 0.3 }],
-	'Bush bean': [{ variety: 'Slender Meadow', fraction: 0.6 }, { variety: 'Butter Lane Wax', fraction: 0.4 }],
-	// The 2027 garlic is already in the ground (planted fall 2026): nothing to plan.
-	Garlic: []
+	'Bush bean': [{ variety: 'Slender Meadow', fraction: 0.6 }, { variety: 'Butter Lane Wax', fraction: 0.4 }]
+	// Garlic has no entry: the 2027 garlic is already in the ground (planted fall 2026) and goes
+	// in as kept plantings. It is dug in W28–W29, while the shares take it from storage in
+	// W30–W44; a flat harvest window cannot carry it into storage, so those weeks come back as
+	// unreachable (a new planting would have to go in before "today") and are left in shortfall.
 };
 
 /** "Today" for the demo: the 2027 plan may not ask for work before it. */
@@ -640,34 +642,6 @@ export interface PlanDemoInput {
 	channelDemand: readonly DemoChannelDemand[];
 	/** Plantings already holding beds (and whose families count as "last season"). */
 	existing: readonly DemoFallPlanting[];
-}
-
-/** One 2027 planting row, by names; the seed maps names to ids. */
-export interface DemoPlannedPlanting {
-	key: string;
-	variety: string;
-	bed: string | null;
-	start_ft: number;
-	length_ft: number;
-	rows: number;
-	in_row_spacing_in: number;
-	seeds_per_spot: number;
-	method: Method;
-	tray_sow_date: string | null;
-	field_date: string;
-	first_harvest: string;
-	last_harvest: string;
-	expected_yield: number;
-	seeds_needed: number;
-	notes: string | null;
-}
-
-export interface DemoPlan {
-	plantings: DemoPlannedPlanting[];
-	successions: number;
-	unplaced: { key: string; reason: string }[];
-	/** Engine warnings (frost, heat, shortfall, rotation, splits), as the grid would show them. */
-	warnings: string[];
 }
 
 export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
@@ -723,126 +697,79 @@ export function defaultPlanDemoInput(): PlanDemoInput {
 	};
 }
 
-function weekNumber(week: string): number {
-	return Number(week.slice(6));
+/** The demo's variety plan in the engine's terms: ids are variety names, crops are crop names. */
+export function demoVarietyPlan(varieties: readonly DemoVariety[] = DEMO_VARIETIES): Record<string, EngineVarietyShare[]> {
+	const cropOf = new Map(varieties.map((v) => [v.name, v.crop]));
+	const out: Record<string, EngineVarietyShare[]> = {};
+	for (const [crop, shares] of Object.entries(VARIETY_PLAN)) {
+		// The engine would only warn and leave the share unplanned; a typo in the demo should fail loudly.
+		for (const s of shares) if (cropOf.get(s.variety) !== crop) throw new Error(`demo plan: ${s.variety} is not a variety of ${crop}`);
+		out[crop] = shares.map((s) => ({ varietyId: s.variety, fromWeek: s.from, toWeek: s.to, fraction: s.fraction }));
+	}
+	return out;
 }
 
 /**
- * The 2027 plan from the demand: targets per crop and week (engine `deriveTargets`),
- * split among each crop's varieties, successions per variety (`planSuccessions`), then
- * laid into the beds around what is already there (`placePlantings`). A succession
- * split across beds becomes one planting row per piece, each with its own seed count.
- * What cannot be placed is kept with no bed and a note, never dropped.
+ * The 2027 plan from the demand: targets per crop and week (engine `deriveTargets`), then one
+ * `planSeason` call that takes off what the plantings already in the ground supply, plans
+ * successions per variety share and lays them into the beds around those plantings. Engine
+ * ids are names here (crop name, variety name, bed name), so the seed maps them straight to
+ * rows. A succession split across beds comes back as one planting per piece, each with its own
+ * seed; what cannot be placed comes back with no bed and the reason, never dropped.
  */
-export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): DemoPlan {
+export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): SeasonPlan {
 	const cropByName = new Map(input.crops.map((c) => [c.name, c]));
 	const varietyByName = new Map(input.varieties.map((v) => [v.name, v]));
-	const farm = demoEngineFarm();
+	const cropOf = (v: DemoVariety): DemoCrop => {
+		const crop = cropByName.get(v.crop);
+		if (!crop) throw new Error(`demo plan: variety ${v.name} names unknown crop ${v.crop}`);
+		return crop;
+	};
 	const targets = deriveTargets({
 		shareSizes: input.shareSizes.map((s) => ({ id: s.name, members: s.members, firstWeek: s.first_week, lastWeek: s.last_week })),
 		boxItems: input.boxItems.map((b) => ({ shareSizeId: b.share, week: b.week, crop: b.crop, quantity: b.quantity })),
 		channelDemand: input.channelDemand.map((c) => ({ crop: c.crop, week: c.week, quantity: c.quantity }))
 	});
-
-	const successions: { s: Succession; variety: DemoVariety }[] = [];
-	const warnings: string[] = [];
-	for (const crop of input.crops) {
-		const cropTargets = targets.filter((t) => t.crop === crop.name);
-		if (cropTargets.length === 0) continue;
-		const shares = VARIETY_PLAN[crop.name] ?? input.varieties.filter((v) => v.crop === crop.name).slice(0, 1).map((v) => ({ variety: v.name }));
-		for (const share of shares) {
-			const variety = varietyByName.get(share.variety);
-			if (!variety || variety.crop !== crop.name) throw new Error(`demo plan: ${share.variety} is not a variety of ${crop.name}`);
-			const weekly: WeeklyTarget[] = cropTargets
-				.filter((t) => weekNumber(t.week) >= (share.from ?? 1) && weekNumber(t.week) <= (share.to ?? 53))
-				.map((t) => ({ week: t.week, quantity: t.quantity * (share.fraction ?? 1) }));
-			if (weekly.length === 0) continue;
-			const result = planSuccessions({
-				variety: toEngineVariety(variety, crop),
-				targets: weekly,
-				farm,
-				options: { bedFootIncrement: DEMO_FARM.bed_foot_increment, today: DEMO_TODAY, earliestFieldDate: DEMO_EARLIEST_FIELD_DATE }
-			});
-			for (const s of result.successions) {
-				successions.push({ s, variety });
-				for (const w of s.warnings) warnings.push(`${s.key}: ${w.message}`);
-			}
-			for (const w of result.warnings) warnings.push(`${variety.name}: ${w.message}`);
-		}
-	}
-
-	const familyOf = (varietyName: string): string | undefined => {
-		const v = varietyByName.get(varietyName);
-		return v ? cropByName.get(v.crop)?.family : undefined;
-	};
-	const fixed: BedPlanting[] = input.existing.map((p, i) => ({
-		key: `existing#${i + 1}`,
-		bedId: p.bed,
-		startFt: p.start_ft,
-		lengthFt: p.length_ft,
-		fieldDate: p.field_date,
-		lastHarvest: p.last_harvest,
-		family: familyOf(p.variety)
-	}));
-	const previousFamilyByBed: Record<string, string[]> = {};
-	for (const f of fixed) {
-		if (f.family === undefined) continue;
-		const list = (previousFamilyByBed[f.bedId] ??= []);
-		if (!list.includes(f.family)) list.push(f.family);
-	}
-	const placement = placePlantings(
-		successions.map(({ s }) => ({ key: s.key, bedFeet: s.bedFeet, fieldDate: s.fieldDate, lastHarvest: s.lastHarvest, family: s.family })),
-		input.beds.map((b) => ({ id: b.name, lengthFt: DEMO_BED_LENGTH_FT, blockId: b.block })),
-		{ turnaroundDays: DEMO_FARM.turnaround_days, fixed, previousFamilyByBed }
-	);
-	for (const w of placement.warnings) warnings.push(`${w.plantingKey}: ${w.message}`);
-
-	const byKey = new Map(successions.map((x) => [x.s.key, x]));
-	const row = (key: string, bed: string | null, startFt: number, lengthFt: number, notes: string | null): DemoPlannedPlanting => {
-		const hit = byKey.get(key);
-		if (!hit) throw new Error(`demo plan: placement returned unknown planting ${key}`);
-		const { s, variety: v } = hit;
-		const seed = seedNeed({
-			method: v.method,
-			bedFeet: lengthFt,
-			rows: v.rows_per_bed,
-			inRowSpacingIn: v.in_row_spacing_in,
-			seedsPerSpot: v.seeds_per_spot,
-			germinationRate: v.germination_rate,
-			seedsPerGram: v.seeds_per_gram,
-			margin: v.margin,
-			cellsPerTray: v.cells_per_tray
-		});
+	const varieties: SeasonVariety[] = input.varieties.map((v) => ({ ...toEngineVariety(v, cropOf(v)), id: v.name, cropId: v.crop }));
+	// The plantings already in the ground both supply their weeks and hold their bed-feet.
+	const kept: KeptPlanting[] = input.existing.map((p, i) => {
+		const v = varietyByName.get(p.variety);
+		if (!v) throw new Error(`demo plan: existing planting names unknown variety ${p.variety}`);
 		return {
-			key,
-			variety: v.name,
-			bed,
-			start_ft: startFt,
-			length_ft: lengthFt,
-			rows: v.rows_per_bed,
-			in_row_spacing_in: v.in_row_spacing_in,
-			seeds_per_spot: v.seeds_per_spot,
-			method: v.method,
-			tray_sow_date: s.traySowDate ?? null,
-			field_date: s.fieldDate,
-			first_harvest: s.firstHarvest,
-			last_harvest: s.lastHarvest,
-			expected_yield: Math.round(lengthFt * v.yield_per_bed_foot * 100) / 100,
-			seeds_needed: seed.seeds,
-			notes
+			key: `existing#${i + 1}`,
+			cropId: v.crop,
+			family: cropOf(v).family,
+			bedId: p.bed,
+			startFt: p.start_ft,
+			lengthFt: p.length_ft,
+			fieldDate: p.field_date,
+			firstHarvest: p.first_harvest,
+			lastHarvest: p.last_harvest,
+			yieldPerBedFoot: v.yield_per_bed_foot
 		};
-	};
-	const plantings = [
-		...placement.placed.map((p) => row(p.plantingKey, p.bedId, p.startFt, p.lengthFt, null)),
-		...placement.unplaced.map((u) => row(u.plantingKey, null, 0, byKey.get(u.plantingKey)?.s.bedFeet ?? 0, `Not placed: ${u.reason}`))
-	];
-	plantings.sort((a, b) => (a.field_date < b.field_date ? -1 : a.field_date > b.field_date ? 1 : a.key < b.key ? -1 : 1));
-	return {
-		plantings,
-		successions: successions.length,
-		unplaced: placement.unplaced.map((u) => ({ key: u.plantingKey, reason: u.reason })),
-		warnings
-	};
+	});
+	// Their families also count as what each bed held last season, for rotation.
+	const previousFamilyByBed: Record<string, string[]> = {};
+	for (const k of kept) {
+		if (k.family === undefined || k.bedId === null) continue;
+		const list = (previousFamilyByBed[k.bedId] ??= []);
+		if (!list.includes(k.family)) list.push(k.family);
+	}
+	return planSeason({
+		farm: demoEngineFarm(),
+		varieties,
+		beds: input.beds.map((b) => ({ id: b.name, lengthFt: DEMO_BED_LENGTH_FT, blockId: b.block })),
+		targets,
+		kept,
+		varietyPlan: demoVarietyPlan(input.varieties),
+		previousFamilyByBed,
+		options: {
+			bedFootIncrement: DEMO_FARM.bed_foot_increment,
+			turnaroundDays: DEMO_FARM.turnaround_days,
+			today: DEMO_TODAY,
+			earliestFieldDate: DEMO_EARLIEST_FIELD_DATE
+		}
+	});
 }
 
 // ---------------------------------------------------------------------------------------
@@ -1043,22 +970,22 @@ export async function seedDemoFarm(knex: Knex): Promise<{ farmId: number }> {
 		const rows = plan.plantings.map((p) => ({
 			farm_id: farmId,
 			season_id: season2027,
-			variety_id: need(varietyIds, p.variety, 'variety'),
-			bed_id: p.bed === null ? null : need(bedIds, p.bed, 'bed'),
-			start_ft: p.start_ft,
-			length_ft: p.length_ft,
+			variety_id: need(varietyIds, p.varietyId, 'variety'),
+			bed_id: p.bedId === null ? null : need(bedIds, p.bedId, 'bed'),
+			start_ft: p.startFt,
+			length_ft: p.lengthFt,
 			rows: p.rows,
-			in_row_spacing_in: p.in_row_spacing_in,
-			seeds_per_spot: p.seeds_per_spot,
+			in_row_spacing_in: p.inRowSpacingIn,
+			seeds_per_spot: p.seedsPerSpot,
 			method: p.method,
-			tray_sow_date: p.tray_sow_date,
-			field_date: p.field_date,
-			first_harvest: p.first_harvest,
-			last_harvest: p.last_harvest,
-			expected_yield: p.expected_yield,
-			seeds_needed: p.seeds_needed,
+			tray_sow_date: p.traySowDate,
+			field_date: p.fieldDate,
+			first_harvest: p.firstHarvest,
+			last_harvest: p.lastHarvest,
+			expected_yield: p.expectedYield,
+			seeds_needed: p.seed.seeds,
 			status: 'planned',
-			notes: p.notes
+			notes: p.unplacedReason === null ? null : `Not placed: ${p.unplacedReason}`
 		}));
 		for (let i = 0; i < rows.length; i += 100) await trx('plantings').insert(rows.slice(i, i + 100));
 		return { farmId: Number(farmId) };

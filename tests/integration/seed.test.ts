@@ -6,7 +6,17 @@ import knex, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { knexConfig } from '../../knexfile';
 import { verifyPassword } from '../../src/lib/server/password';
-import { DEMO_FARM, DEMO_PASSWORD, DEMO_USERS, ensureDemoFarm, findDemoFarm } from '../../db/seeds/demo-farm';
+import { seedNeed } from '../../src/lib/planning/index';
+import {
+	DEMO_FALL_PLANTINGS_2026,
+	DEMO_FARM,
+	DEMO_PASSWORD,
+	DEMO_USERS,
+	DEMO_VARIETIES,
+	ensureDemoFarm,
+	findDemoFarm,
+	planDemoSeason
+} from '../../db/seeds/demo-farm';
 
 const DATABASE = process.env.FC_DB_SCRATCH_NAME ?? 'furrowcast_scratch';
 
@@ -142,6 +152,65 @@ describe('demo farm seed', () => {
 			expect(Number(p.expected_yield)).toBeGreaterThan(0);
 			expect(p.seeds_needed).toBeGreaterThan(0);
 		}
+	});
+
+	it('writes the planSeason result as it stands: one row per placed piece, seed sized to that piece', async () => {
+		const season = await seasonId(2027);
+		const rows = await db('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.leftJoin('beds as b', 'b.id', 'p.bed_id')
+			.where('p.season_id', season)
+			.select('p.length_ft', 'p.seeds_needed', 'p.bed_id', 'v.name as variety', 'b.name as bed');
+		const plan = planDemoSeason();
+		expect(rows).toHaveLength(plan.plantings.length);
+		expect(rows.filter((r) => r.bed_id === null)).toHaveLength(plan.plantings.filter((p) => p.bedId === null).length);
+		// The same bed-feet per variety and bed as the engine proposed: the seed adds and drops nothing.
+		const tally = (list: { variety: string; bed: string | null; feet: number }[]): Record<string, number> => {
+			const out: Record<string, number> = {};
+			for (const r of list) out[`${r.variety}|${r.bed}`] = (out[`${r.variety}|${r.bed}`] ?? 0) + r.feet;
+			return out;
+		};
+		expect(tally(rows.map((r) => ({ variety: r.variety, bed: r.bed, feet: Number(r.length_ft) })))).toEqual(
+			tally(plan.plantings.map((p) => ({ variety: p.varietyId, bed: p.bedId, feet: p.lengthFt })))
+		);
+		// A succession split across beds needs seed for each piece, not the whole length on every row.
+		const byName = new Map(DEMO_VARIETIES.map((v) => [v.name, v]));
+		for (const r of rows) {
+			const v = byName.get(r.variety)!;
+			const expected = seedNeed({
+				method: v.method,
+				bedFeet: Number(r.length_ft),
+				rows: v.rows_per_bed,
+				inRowSpacingIn: v.in_row_spacing_in,
+				seedsPerSpot: v.seeds_per_spot,
+				germinationRate: v.germination_rate,
+				seedsPerGram: v.seeds_per_gram,
+				margin: v.margin,
+				cellsPerTray: v.cells_per_tray
+			}).seeds;
+			expect(r.seeds_needed).toBe(expected);
+		}
+	});
+
+	it('plans around the garlic already in the ground, and reports the garlic weeks it cannot supply', async () => {
+		const garlic = DEMO_FALL_PLANTINGS_2026.filter((p) => p.variety === 'Hardneck Blush');
+		expect(garlic.map((g) => g.bed).sort()).toEqual(['S12', 'S13']);
+		// Garlic is dug by 25 July; with the farm's 7 turnaround days its beds are free from 2 August.
+		const onGarlicBeds = await db('plantings as p')
+			.join('beds as b', 'b.id', 'p.bed_id')
+			.where('p.season_id', await seasonId(2027))
+			.whereIn('b.name', ['S12', 'S13'])
+			.select<{ field_date: string }[]>('p.field_date');
+		expect(onGarlicBeds.every((p) => p.field_date >= '2027-08-02')).toBe(true);
+		const plan = planDemoSeason();
+		expect(plan.plantings.some((p) => p.cropId === 'Garlic')).toBe(false);
+		// The garlic harvest (W28–W29) comes before the boxes take it (W30 on); those weeks stay short, with a warning.
+		const garlicShort = plan.shortfall.filter((s) => s.crop === 'Garlic');
+		expect(garlicShort.length).toBeGreaterThan(0);
+		expect(garlicShort.every((s) => s.week >= '2027-W30')).toBe(true);
+		expect(plan.warnings).toContainEqual(expect.objectContaining({ code: 'unreachable_week', cropId: 'Garlic' }));
+		// Every other crop's targets are met (some plantings may still wait for a bed).
+		expect(plan.shortfall.filter((s) => s.crop !== 'Garlic')).toEqual([]);
 	});
 
 	it('never puts two plantings on the same bed-feet at the same time (turnaround included)', async () => {
