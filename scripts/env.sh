@@ -44,3 +44,11 @@ ensure_node_modules() {
 		touch "$stamp"
 	fi
 }
+
+ensure_chromium() {
+	if [ ! -x "${FC_CHROMIUM:-/usr/bin/chromium}" ]; then
+		say "installing Debian's chromium for the browser tests"
+		as_root apt-get update -qq
+		DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -qq chromium >/dev/null
+	fi
+}

@@ -25,6 +25,7 @@ export const load = (async (event) => {
 		monday,
 		sunday,
 		today,
+		isCurrent: week === isoWeek(today),
 		previousWeek: addWeeks(week, -1),
 		nextWeek: addWeeks(week, 1),
 		tasks: await tasksForWeek(farm.id, monday, sunday)

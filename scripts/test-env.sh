@@ -1,0 +1,25 @@
+# Sourced by test.sh and bench.sh: a test database, mail fake and app server of their own,
+# set up fresh, and stopped again when the calling script exits. The demo's are left alone.
+db_was_running=false
+pid_alive "$FC_PID_DIR/mariadb.pid" && db_was_running=true
+bash scripts/db-start.sh
+
+export FC_DB_NAME="$FC_DB_TEST_NAME"
+export FC_SMTP_PORT="${FC_TEST_SMTP_PORT:-2526}"
+export FC_MAIL_DIR="$FC_DATA_DIR/mail-test"
+export FC_PORT="${FC_TEST_PORT:-3100}"
+export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
+
+cleanup_test_env() {
+	bash scripts/app-stop.sh >/dev/null 2>&1 || true
+	bash scripts/mail-stop.sh >/dev/null 2>&1 || true
+	$db_was_running || bash scripts/db-stop.sh >/dev/null 2>&1 || true
+}
+trap cleanup_test_env EXIT
+
+rm -rf "$FC_MAIL_DIR"
+bash scripts/mail-start.sh
+npx tsx scripts/migrate.ts fresh "$FC_DB_NAME"
+npx tsx scripts/seed.ts "$FC_DB_NAME"
+bash scripts/build-if-needed.sh
+bash scripts/app-start.sh
