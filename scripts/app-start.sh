@@ -10,7 +10,7 @@ cd "$FC_ROOT"
 rm -f "$pidfile"
 # The child writes its own pid before exec: setsid may fork, so $! would name the wrong process.
 ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" \
-	setsid bash -c 'echo $$ >"$1"; exec node build' _ "$pidfile" </dev/null >"$FC_DATA_DIR/app-$FC_PORT.log" 2>&1 &
+	setsid bash -c 'echo $$ >"$1"; exec node "$2"' _ "$pidfile" "$FC_BUILD_DIR" </dev/null >"$FC_DATA_DIR/app-$FC_PORT.log" 2>&1 &
 for _ in $(seq 1 20); do [ -s "$pidfile" ] && break; sleep 0.1; done
 for _ in $(seq 1 80); do
 	node -e "fetch(process.argv[1]).then((r) => process.exit(r.ok ? 0 : 1), () => process.exit(1))" "http://$FC_HOST:$FC_PORT/signin" && exit 0

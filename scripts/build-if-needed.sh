@@ -3,7 +3,7 @@
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
 cd "$FC_ROOT"
-stamp=build/.fc-built
+stamp="$FC_BUILD_DIR/.fc-built"
 if [ -f "$stamp" ] && [ -z "$(find src static svelte.config.js vite.config.ts tailwind.config.js package-lock.json -newer "$stamp" -print -quit)" ]; then
 	say "build is up to date"
 	exit 0

@@ -20,6 +20,7 @@ export FC_MAIL_DIR="${FC_MAIL_DIR:-$FC_DATA_DIR/mail}"
 export FC_HOST="${FC_HOST:-127.0.0.1}"
 export FC_PORT="${FC_PORT:-3000}"
 export FC_PID_DIR="$FC_DATA_DIR/run"
+export FC_BUILD_DIR="${FC_BUILD_DIR:-build}"
 
 say() { printf '\033[1;32m[furrowcast]\033[0m %s\n' "$*"; }
 die() { printf '\033[1;31m[furrowcast]\033[0m %s\n' "$*" >&2; exit 1; }
