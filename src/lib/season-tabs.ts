@@ -11,7 +11,14 @@ export interface SeasonTab {
 
 const everyone: readonly Role[] = ['owner', 'crew_lead', 'share_manager'];
 
-export const seasonTabs: readonly SeasonTab[] = [{ path: '', label: 'Overview', roles: everyone }];
+export const seasonTabs: readonly SeasonTab[] = [
+	{ path: '', label: 'Overview', roles: everyone },
+	{ path: 'plantings', label: 'Planting grid', roles: everyone },
+	{ path: 'beds', label: 'Bed timeline', roles: everyone },
+	{ path: 'demand', label: 'Demand', roles: everyone },
+	{ path: 'forecast', label: 'Forecast', roles: everyone },
+	{ path: 'boxes', label: 'Share boxes', roles: everyone }
+];
 
 export function seasonTabsFor(role: Role): SeasonTab[] {
 	return seasonTabs.filter((t) => t.roles.includes(role));
