@@ -74,3 +74,4 @@ export {
 	type SeasonVariety,
 	type VarietyShare
 } from './season';
+export { emergenceDays, type EmergenceTable } from './emergence';
