@@ -1,7 +1,8 @@
 // Resolves the session and the farm once per request; routes read them from locals.
 import type { Handle } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { lucia, cookieIsSecure, clearSessionCookie } from '$lib/server/auth';
+import { lucia, cookieIsSecure, clearSessionCookie, closeSessions } from '$lib/server/auth';
+import { closeDb } from '$lib/server/db';
 import { resolveMembership } from '$lib/server/members';
 
 const session: Handle = async ({ event, resolve }) => {
@@ -36,3 +37,9 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 };
 
 export const handle = sequence(session, securityHeaders);
+
+// adapter-node emits this once the HTTP server has closed: end the database pools so the
+// process exits instead of idling on open connections.
+process.on('sveltekit:shutdown', () => {
+	void Promise.allSettled([closeDb(), closeSessions()]);
+});

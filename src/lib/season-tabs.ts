@@ -17,7 +17,9 @@ export const seasonTabs: readonly SeasonTab[] = [
 	{ path: 'beds', label: 'Bed timeline', roles: everyone },
 	{ path: 'demand', label: 'Demand', roles: everyone },
 	{ path: 'forecast', label: 'Forecast', roles: everyone },
-	{ path: 'boxes', label: 'Share boxes', roles: everyone }
+	{ path: 'boxes', label: 'Share boxes', roles: everyone },
+	{ path: 'week', label: 'Crew sheets', roles: everyone },
+	{ path: 'transfer', label: 'Export & import', roles: everyone }
 ];
 
 export function seasonTabsFor(role: Role): SeasonTab[] {

@@ -27,6 +27,14 @@ function sessionPool(): mysql.Pool {
 	return pool;
 }
 
+/** Closes the session pool (on shutdown). */
+export async function closeSessions(): Promise<void> {
+	const current = pool;
+	pool = undefined;
+	instance = undefined;
+	await current?.end();
+}
+
 function createLucia() {
 	return new Lucia(new Mysql2Adapter(sessionPool(), { user: 'users', session: 'user_sessions' }), {
 		sessionCookie: { name: 'fc_session', attributes: { sameSite: 'lax', secure: false } },

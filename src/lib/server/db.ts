@@ -35,3 +35,10 @@ export function db(): Knex {
 	instance ??= connect();
 	return instance;
 }
+
+/** Closes the pool (on shutdown), so the process can exit once requests are done. */
+export async function closeDb(): Promise<void> {
+	const current = instance;
+	instance = undefined;
+	await current?.destroy();
+}
