@@ -1,7 +1,34 @@
 import { FT_EPSILON, type Occupancy } from './bed-types';
 
-// Scratch list reused across calls: placement calls these thousands of times per plan.
+/**
+ * Scratch list reused across calls: placement calls these thousands of times per plan.
+ * Only the first `n` entries count. It is never emptied with `length = 0`, which
+ * would drop its backing store and make every call allocate a new one.
+ */
 const scratch: Occupancy[] = [];
+
+/**
+ * Stable sort of xs[0..n) by start foot. The lists are a bed's few overlapping
+ * plantings, and Array.prototype.sort allocates work space on every call, which at
+ * thousands of calls per plan was a large share of all garbage; insertion sort
+ * allocates none. Long lists (many fixed plantings in one bed) use the built-in sort.
+ */
+function sortByStartFt(xs: Occupancy[], n: number): void {
+	if (n > 32) {
+		const sorted = xs.slice(0, n).sort((x, y) => x.a - y.a);
+		for (let i = 0; i < n; i++) xs[i] = sorted[i];
+		return;
+	}
+	for (let i = 1; i < n; i++) {
+		const o = xs[i];
+		let j = i - 1;
+		while (j >= 0 && xs[j].a > o.a) {
+			xs[j + 1] = xs[j];
+			j--;
+		}
+		xs[j + 1] = o;
+	}
+}
 
 export interface Gap {
 	startFt: number;
@@ -18,11 +45,12 @@ export const gap: Gap = { startFt: 0, lengthFt: 0 };
  */
 export function firstGap(occ: Occupancy[], bedLength: number, s: number, e: number, need: number): boolean {
 	const hits = scratch;
-	hits.length = 0;
-	for (const o of occ) if (o.s < e && o.e > s) hits.push(o);
-	if (hits.length > 1) hits.sort((x, y) => x.a - y.a);
+	let n = 0;
+	for (const o of occ) if (o.s < e && o.e > s) hits[n++] = o;
+	sortByStartFt(hits, n);
 	let cursor = 0;
-	for (const o of hits) {
+	for (let i = 0; i < n; i++) {
+		const o = hits[i];
 		if (o.a - cursor >= need - FT_EPSILON) {
 			gap.startFt = cursor;
 			gap.lengthFt = o.a - cursor;
@@ -61,18 +89,19 @@ export const instant = { maxGap: 0, validUntil: Infinity };
  */
 export function instantGap(occ: Occupancy[], bedLength: number, s: number): void {
 	const hits = scratch;
-	hits.length = 0;
+	let n = 0;
 	let validUntil = Infinity;
 	for (const o of occ) {
 		if (o.s <= s && o.e > s) {
-			hits.push(o);
+			hits[n++] = o;
 			if (o.e < validUntil) validUntil = o.e;
 		}
 	}
-	if (hits.length > 1) hits.sort((x, y) => x.a - y.a);
+	sortByStartFt(hits, n);
 	let cursor = 0;
 	let maxGap = 0;
-	for (const o of hits) {
+	for (let i = 0; i < n; i++) {
+		const o = hits[i];
 		if (o.a - cursor > maxGap) maxGap = o.a - cursor;
 		if (o.b > cursor) cursor = o.b;
 	}

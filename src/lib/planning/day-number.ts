@@ -1,4 +1,4 @@
-import { PlanningInputError } from './errors';
+import { PlanningInputError, itemField } from './errors';
 
 /**
  * Calendar dates are plain `YYYY-MM-DD` strings. Internally a date is its day
@@ -76,9 +76,30 @@ export function toDayNumber(date: string | Date, field = 'date'): DayNumber {
 	return daysFromCivil(year, month, day);
 }
 
+/** toDayNumber for a field of a list item, naming the field only when the date is bad (see errors.ts). */
+export function toDayNumberItem(date: string | Date, list: string, index: number, name: string): DayNumber {
+	try {
+		return toDayNumber(date);
+	} catch {
+		return toDayNumber(date, itemField(list, index, name));
+	}
+}
+
+// Memo of formatted dates: a plan names the same few hundred days thousands of times,
+// and sharing one string per day keeps both garbage and the plan's live size down.
+// Derived strings only (no state); cleared if it ever grows large.
+const MEMO_LIMIT = 20_000;
+const dateByDay = new Map<DayNumber, string>();
+
 export function fromDayNumber(n: DayNumber): string {
-	const { year, month, day } = civilFromDays(n);
-	return `${pad(year, 4)}-${pad(month, 2)}-${pad(day, 2)}`;
+	let date = dateByDay.get(n);
+	if (date === undefined) {
+		const { year, month, day } = civilFromDays(n);
+		date = `${pad(year, 4)}-${pad(month, 2)}-${pad(day, 2)}`;
+		if (dateByDay.size >= MEMO_LIMIT) dateByDay.clear();
+		dateByDay.set(n, date);
+	}
+	return date;
 }
 
 /** ISO weekday, Monday = 1 … Sunday = 7. Day 0 (1970-01-01) was a Thursday. */

@@ -13,6 +13,29 @@ export class PlanningInputError extends Error {
 	}
 }
 
+/** The name of field `name` of item `index` of a list: `plantings[3].fieldDate`. */
+export function itemField(list: string, index: number, name: string): string {
+	return `${list}[${index}].${name}`;
+}
+
+/*
+ * The *Item checks below name the field only when the check fails: loops over
+ * thousands of targets or plantings would otherwise build a name string per item
+ * for nothing, and that garbage was a measurable share of a season plan's time.
+ */
+
+/** requirePositive for a field of a list item. */
+export function requirePositiveItem(list: string, index: number, name: string, value: unknown): number {
+	if (typeof value === 'number' && Number.isFinite(value) && value > 0) return value;
+	return requirePositive(itemField(list, index, name), value);
+}
+
+/** requireNonNegative for a field of a list item. */
+export function requireNonNegativeItem(list: string, index: number, name: string, value: unknown): number {
+	if (typeof value === 'number' && Number.isFinite(value) && value >= 0) return value;
+	return requireNonNegative(itemField(list, index, name), value);
+}
+
 export function requireFinite(field: string, value: unknown): number {
 	if (typeof value !== 'number' || !Number.isFinite(value)) {
 		throw new PlanningInputError(field, `must be a finite number (got ${String(value)})`);

@@ -1,4 +1,4 @@
-import { PlanningInputError } from './errors';
+import { PlanningInputError, itemField } from './errors';
 import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber, toDayNumber, weekdayOf } from './day-number';
 
 /**
@@ -82,6 +82,15 @@ export function weekStartDay(week: IsoWeek, field = 'week'): DayNumber {
 	if (mondayByWeekName.size >= MEMO_LIMIT) mondayByWeekName.clear();
 	mondayByWeekName.set(week, monday);
 	return monday;
+}
+
+/** weekStartDay for a field of a list item, naming the field only when the week is bad (see errors.ts). */
+export function weekStartDayItem(week: IsoWeek, list: string, index: number, name: string): DayNumber {
+	try {
+		return weekStartDay(week);
+	} catch {
+		return weekStartDay(week, itemField(list, index, name));
+	}
 }
 
 /** The Monday `YYYY-MM-DD` that starts an ISO week: `weekStart('2026-W01')` is `'2025-12-29'`. */

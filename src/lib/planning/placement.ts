@@ -1,8 +1,8 @@
 import { BedIndex } from './bed-index';
 import { firstGap, gap, instant, instantGap } from './bed-gaps';
 import { type Bed, type BedPlanting, DEFAULT_TURNAROUND_DAYS, FT_EPSILON, type Occupancy } from './bed-types';
-import { PlanningInputError, requireNonNegativeInteger, requirePositive } from './errors';
-import { toDayNumber } from './day-number';
+import { PlanningInputError, itemField, requireNonNegativeInteger, requirePositive, requirePositiveItem } from './errors';
+import { toDayNumber, toDayNumberItem } from './day-number';
 import type { WarningCode } from './types';
 
 export interface PlacementRequest {
@@ -40,6 +40,7 @@ export interface PlacementNote {
 }
 
 export interface PlacementResult {
+	/** In the order placed; the pieces of a split planting come one after another. */
 	placed: PlacedRange[];
 	unplaced: { plantingKey: string; reason: string }[];
 	warnings: PlacementNote[];
@@ -130,7 +131,7 @@ function validateBeds(beds: Bed[]): Map<string, number> {
 	beds.forEach((bed, i) => {
 		if (typeof bed.id !== 'string' || bed.id === '') throw new PlanningInputError(`beds[${i}].id`, 'is required');
 		if (byId.has(bed.id)) throw new PlanningInputError(`beds[${i}].id`, `duplicates bed ${bed.id}`);
-		requirePositive(`beds[${i}].lengthFt`, bed.lengthFt);
+		requirePositiveItem('beds', i, 'lengthFt', bed.lengthFt);
 		byId.set(bed.id, i);
 	});
 	return byId;
@@ -144,6 +145,19 @@ function validateBeds(beds: Bed[]): Map<string, number> {
  * not fit is listed in `unplaced` with the reason. Fixed plantings are obstacles.
  */
 export function placePlantings(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): PlacementResult {
+	return placeIndexed(plantings, beds, options).result;
+}
+
+/**
+ * placePlantings, also giving for each placed range and each unplaced planting the
+ * index of its request in `plantings`, so a caller can find its own record for
+ * it without a lookup by key (planSeason does this for thousands of plantings).
+ */
+export function placeIndexed(
+	plantings: PlacementRequest[],
+	beds: Bed[],
+	options: PlacementOptions = {}
+): { result: PlacementResult; placedFrom: number[]; unplacedFrom: number[] } {
 	const bedIndexById = validateBeds(beds);
 	const turnaround =
 		options.turnaroundDays === undefined ? DEFAULT_TURNAROUND_DAYS : requireNonNegativeInteger('options.turnaroundDays', options.turnaroundDays);
@@ -165,18 +179,44 @@ export function placePlantings(plantings: PlacementRequest[], beds: Bed[], optio
 	}
 
 	const jobs: Job[] = plantings.map((req, order) => {
-		requirePositive(`plantings[${order}].bedFeet`, req.bedFeet);
-		const s = toDayNumber(req.fieldDate, `plantings[${order}].fieldDate`);
-		const last = toDayNumber(req.lastHarvest, `plantings[${order}].lastHarvest`);
-		if (last < s) throw new PlanningInputError(`plantings[${order}].lastHarvest`, 'is before the field date');
+		requirePositiveItem('plantings', order, 'bedFeet', req.bedFeet);
+		const s = toDayNumberItem(req.fieldDate, 'plantings', order, 'fieldDate');
+		const last = toDayNumberItem(req.lastHarvest, 'plantings', order, 'lastHarvest');
+		if (last < s) throw new PlanningInputError(itemField('plantings', order, 'lastHarvest'), 'is before the field date');
 		return { req, s, e: last + turnaround + 1, order };
 	});
-	jobs.sort((x, y) => x.s - y.s || x.order - y.order);
+	sortByFieldDay(jobs);
 
 	const maxBedFt = beds.reduce((m, b) => Math.max(m, b.lengthFt), 0);
-	const ctx: PlaceContext = { beds, placer, turnaround, allowSplit, minPiece, maxBedFt, result };
+	const ctx: PlaceContext = { beds, placer, turnaround, allowSplit, minPiece, maxBedFt, result, placedFrom: [], unplacedFrom: [] };
 	for (const job of jobs) placeOne(job, ctx);
-	return result;
+	return { result, placedFrom: ctx.placedFrom, unplacedFrom: ctx.unplacedFrom };
+}
+
+/**
+ * Sort jobs by field day, then input order. A plan's field days span a season, so a
+ * stable bucket pass by day does it in linear time; jobs over a span much longer
+ * than their number (e.g. years apart) use the ordinary sort.
+ */
+function sortByFieldDay(jobs: Job[]): void {
+	if (jobs.length < 2) return;
+	let lo = Infinity;
+	let hi = -Infinity;
+	for (const j of jobs) {
+		if (j.s < lo) lo = j.s;
+		if (j.s > hi) hi = j.s;
+	}
+	if (hi - lo > 4 * jobs.length + 1024) {
+		jobs.sort((x, y) => x.s - y.s || x.order - y.order);
+		return;
+	}
+	// Jobs arrive in input order, so placing each after those already in its day's bucket keeps that order.
+	const starts = new Int32Array(hi - lo + 2);
+	for (const j of jobs) starts[j.s - lo + 1]++;
+	for (let d = 1; d < starts.length; d++) starts[d] += starts[d - 1];
+	const sorted = new Array<Job>(jobs.length);
+	for (const j of jobs) sorted[starts[j.s - lo]++] = j;
+	for (let i = 0; i < jobs.length; i++) jobs[i] = sorted[i];
 }
 
 interface PlaceContext {
@@ -187,6 +227,9 @@ interface PlaceContext {
 	minPiece: number;
 	maxBedFt: number;
 	result: PlacementResult;
+	/** Request index of each entry of result.placed, and of result.unplaced. */
+	placedFrom: number[];
+	unplacedFrom: number[];
 }
 
 /** First fit for one planting: whole on a bed free of its family last season, whole anywhere, then in pieces. */
@@ -204,13 +247,14 @@ function placeOne(job: Job, ctx: PlaceContext): void {
 		if (hit) {
 			placer.put(hit.b, s, e, hit.startFt, req.bedFeet, req.key);
 			result.placed.push({ plantingKey: req.key, bedId: beds[hit.b].id, startFt: hit.startFt, lengthFt: req.bedFeet });
+			ctx.placedFrom.push(job.order);
 			if (rotationHit) result.warnings.push(rotationNote(req, beds[hit.b].id));
 			return;
 		}
 	}
-	const whole = `No bed has ${req.bedFeet} ft free from field date ${req.fieldDate} to ${turnaround} days after last harvest ${req.lastHarvest}`;
 	if (!ctx.allowSplit || req.bedFeet <= minPiece) {
-		result.unplaced.push({ plantingKey: req.key, reason: `${whole}.` });
+		result.unplaced.push({ plantingKey: req.key, reason: `${noRoomWhole(req, turnaround)}.` });
+		ctx.unplacedFrom.push(job.order);
 		return;
 	}
 	const pieces: { b: number; o: Occupancy }[] = [];
@@ -225,15 +269,17 @@ function placeOne(job: Job, ctx: PlaceContext): void {
 	}
 	if (left > FT_EPSILON) {
 		for (const p of pieces) placer.remove(p.b, p.o);
+		ctx.unplacedFrom.push(job.order);
 		result.unplaced.push({
 			plantingKey: req.key,
-			reason: `${whole}, and split across beds only ${req.bedFeet - left} ft is free in pieces of ${minPiece} ft or more.`
+			reason: `${noRoomWhole(req, turnaround)}, and split across beds only ${req.bedFeet - left} ft is free in pieces of ${minPiece} ft or more.`
 		});
 		return;
 	}
 	for (const p of pieces) {
 		const bedId = beds[p.b].id;
 		result.placed.push({ plantingKey: req.key, bedId, startFt: p.o.a, lengthFt: p.o.b - p.o.a });
+		ctx.placedFrom.push(job.order);
 		if (placer.heldFamily(p.b, family)) result.warnings.push(rotationNote(req, bedId));
 	}
 	if (pieces.length > 1) {
@@ -243,6 +289,11 @@ function placeOne(job: Job, ctx: PlaceContext): void {
 			message: `${req.bedFeet} ft split into ${pieces.length} pieces: ${pieces.map((p) => `${beds[p.b].id} ${p.o.b - p.o.a} ft`).join(', ')}.`
 		});
 	}
+}
+
+/** Why a planting found no bed whole (built only when it is reported: most split plantings fit). */
+function noRoomWhole(req: PlacementRequest, turnaround: number): string {
+	return `No bed has ${req.bedFeet} ft free from field date ${req.fieldDate} to ${turnaround} days after last harvest ${req.lastHarvest}`;
 }
 
 function rotationNote(req: PlacementRequest, bedId: string): PlacementNote {

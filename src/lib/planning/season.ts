@@ -5,10 +5,13 @@
  */
 import type { Bed, BedPlanting } from './bed-types';
 import { forecast } from './forecast';
-import { placePlantings } from './placement';
+import { placeIndexed, type PlacementRequest } from './placement';
+import { inPlanOrder } from './season-order';
 import { seedNeed, type SeedNeed } from './seed';
-import { planSuccessions, type Farm, type PlanOptions } from './successions';
+import { fromDayNumber } from './day-number';
+import { planSuccessionRuns, type Farm, type PlanOptions } from './successions';
 import type { CropWeekQuantity, PlanningWarning, SowingMethod, Variety } from './types';
+import { makeTempLookup } from './weekly-temps';
 
 export interface SeasonVariety extends Variety {
 	id: string;
@@ -94,6 +97,19 @@ function remainingTargets(targets: CropWeekQuantity[], kept: KeptPlanting[]): Cr
 	return rows.filter((r) => r.shortfall > 1e-9).map((r) => ({ crop: r.crop, week: r.week, quantity: r.shortfall }));
 }
 
+/**
+ * What the season keeps of a succession: its placement request and what the proposal
+ * needs, no more, as everything else kept alive through placement is copied by the
+ * garbage collector, which at thousands of plantings made planning superlinear.
+ */
+interface PlannedSuccession {
+	variety: SeasonVariety;
+	req: PlacementRequest;
+	firstHarvest: string;
+	traySowDate: string | null;
+	warnings: PlanningWarning[];
+}
+
 export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const kept = input.kept ?? [];
 	const varietyById = new Map(input.varieties.map((v) => [v.id, v]));
@@ -106,45 +122,78 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 
 	const warnings: SeasonPlan['warnings'] = [];
 	const shortfall: CropWeekQuantity[] = [];
-	const planned = new Map<string, { variety: SeasonVariety; s: ReturnType<typeof planSuccessions>['successions'][number] }>();
+	const planned = new Map<string, PlannedSuccession>();
+	// One temperature lookup for the farm, shared by every variety's planning.
+	const temps = input.farm?.weeklyMeanTempF ? makeTempLookup(input.farm.weeklyMeanTempF) : undefined;
 
 	for (const [cropId, cropTargets] of targetsByCrop) {
-		const shares: VarietyShare[] = input.varietyPlan?.[cropId] ?? byCrop.get(cropId)?.slice(0, 1).map((v) => ({ varietyId: v.id })) ?? [];
+		const planShares = input.varietyPlan?.[cropId];
+		const shares: VarietyShare[] = planShares ?? byCrop.get(cropId)?.slice(0, 1).map((v) => ({ varietyId: v.id })) ?? [];
 		if (shares.length === 0) {
-			warnings.push({ code: 'no_variety', cropId, message: `No variety of this crop is in the library, so its targets cannot be planned.`, weeks: cropTargets.map((t) => t.week) });
+			const message = planShares ? 'The variety plan gives this crop no variety, so its targets cannot be planned.' : 'No variety of this crop is in the library, so its targets cannot be planned.';
+			warnings.push({ code: 'no_variety', cropId, message, weeks: cropTargets.map((t) => t.week) });
 			shortfall.push(...cropTargets);
 			continue;
 		}
-		for (const share of shares) {
+		// How much of each week's target the valid shares carry; what no share carries is shortfall.
+		const carried = new Map<string, number>();
+		const prefixes = new Set<string>();
+		shares.forEach((share, i) => {
 			const variety = varietyById.get(share.varietyId);
 			if (!variety || variety.cropId !== cropId) {
 				warnings.push({ code: 'no_variety', cropId, message: `Variety ${share.varietyId} is not a variety of this crop; its share of the targets is left unplanned.` });
-				continue;
+				return;
 			}
-			const weekly = cropTargets
-				.filter((t) => weekNumber(t.week) >= (share.fromWeek ?? 1) && weekNumber(t.week) <= (share.toWeek ?? 53))
-				.map((t) => ({ week: t.week, quantity: t.quantity * (share.fraction ?? 1) }));
-			if (weekly.length === 0) continue;
-			const result = planSuccessions({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix: `${variety.id}@w${share.fromWeek ?? 1}` } });
-			for (const s of result.successions) planned.set(s.key, { variety, s });
+			const fraction = share.fraction ?? 1;
+			const weekly: { week: string; quantity: number }[] = [];
+			for (const t of cropTargets) {
+				const n = weekNumber(t.week);
+				if (n < (share.fromWeek ?? 1) || n > (share.toWeek ?? 53)) continue;
+				weekly.push({ week: t.week, quantity: t.quantity * fraction });
+				carried.set(t.week, (carried.get(t.week) ?? 0) + fraction);
+			}
+			if (weekly.length === 0) return;
+			// Two shares of one variety from the same week would otherwise plan under the same keys.
+			let keyPrefix = `${variety.id}@w${share.fromWeek ?? 1}`;
+			if (prefixes.has(keyPrefix)) keyPrefix += `.${i + 1}`;
+			prefixes.add(keyPrefix);
+			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps);
+			for (const r of result.runs) {
+				const req = { key: r.key, bedFeet: r.bedFeet, fieldDate: fromDayNumber(r.fieldDay), lastHarvest: fromDayNumber(r.lastHarvest), family: variety.family };
+				const traySowDate = r.trayDay === undefined ? null : fromDayNumber(r.trayDay);
+				planned.set(r.key, { variety, req, firstHarvest: fromDayNumber(r.start), traySowDate, warnings: r.warnings });
+			}
 			for (const w of result.warnings) warnings.push({ ...w, cropId });
 			shortfall.push(...result.shortfall.map((q) => ({ crop: cropId, week: q.week, quantity: q.quantity })));
+		});
+		const uncarried = cropTargets
+			.map((t) => ({ crop: cropId, week: t.week, quantity: t.quantity * Math.max(0, 1 - (carried.get(t.week) ?? 0)) }))
+			.filter((t) => t.quantity > 1e-9);
+		if (uncarried.length) {
+			warnings.push({ code: 'no_variety', cropId, message: `The variety plan leaves part of the target in ${uncarried.map((t) => t.week).join(', ')} to no variety.`, weeks: uncarried.map((t) => t.week) });
+			shortfall.push(...uncarried);
 		}
 	}
 
 	const fixed: BedPlanting[] = kept
 		.filter((k): k is KeptPlanting & { bedId: string } => k.bedId !== null)
 		.map((k) => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }));
-	const placement = placePlantings(
-		[...planned.values()].map(({ s, variety }) => ({ key: s.key, bedFeet: s.bedFeet, fieldDate: s.fieldDate, lastHarvest: s.lastHarvest, family: variety.family })),
+	const records = [...planned.values()];
+	const { result: placement, placedFrom, unplacedFrom } = placeIndexed(
+		records.map((p) => p.req),
 		input.beds,
 		{ turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }
 	);
 	const notesByKey = new Map<string, PlanningWarning[]>();
-	for (const n of placement.warnings) (notesByKey.get(n.plantingKey) ?? notesByKey.set(n.plantingKey, []).get(n.plantingKey)!).push({ code: n.code, message: n.message });
+	for (const n of placement.warnings) {
+		// Notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
+		if (!planned.has(n.plantingKey)) warnings.push({ code: n.code, key: n.plantingKey, message: n.message });
+		else (notesByKey.get(n.plantingKey) ?? notesByKey.set(n.plantingKey, []).get(n.plantingKey)!).push({ code: n.code, message: n.message });
+	}
 
-	const proposal = (key: string, bedId: string | null, startFt: number, lengthFt: number, unplacedReason: string | null, piece: number): ProposedPlanting => {
-		const { s, variety: v } = planned.get(key)!;
+	const proposal = (from: number, bedId: string | null, startFt: number, lengthFt: number, unplacedReason: string | null, piece: number): ProposedPlanting => {
+		const { req, variety: v, firstHarvest, traySowDate, warnings: own } = records[from];
+		const key = req.key;
 		return {
 			key: piece === 0 ? key : `${key}/${piece + 1}`,
 			cropId: v.cropId,
@@ -156,10 +205,10 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			inRowSpacingIn: v.inRowSpacingIn,
 			seedsPerSpot: v.seedsPerSpot,
 			method: v.method,
-			traySowDate: s.traySowDate ?? null,
-			fieldDate: s.fieldDate,
-			firstHarvest: s.firstHarvest,
-			lastHarvest: s.lastHarvest,
+			traySowDate,
+			fieldDate: req.fieldDate,
+			firstHarvest,
+			lastHarvest: req.lastHarvest,
 			expectedYield: Math.round(lengthFt * v.yieldPerBedFoot * 100) / 100,
 			// Seed for this piece of bed: a planting split over two beds needs seed for each.
 			seed: seedNeed({
@@ -167,19 +216,19 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				germinationRate: v.germinationRate, seedsPerGram: v.seedsPerGram, margin: v.margin ?? input.options?.seedMargin ?? 0.1,
 				cellsPerTray: v.cellsPerTray, seedPriceCentsPerGram: v.seedPriceCentsPerGram, seedsPerPacket: v.seedsPerPacket
 			}),
-			warnings: [...s.warnings, ...(notesByKey.get(key) ?? [])],
+			warnings: [...own, ...(notesByKey.get(key) ?? [])],
 			unplacedReason
 		};
 	};
-	const pieces = new Map<string, number>();
-	const plantings = [
-		...placement.placed.map((p) => {
-			const n = pieces.get(p.plantingKey) ?? 0;
-			pieces.set(p.plantingKey, n + 1);
-			return proposal(p.plantingKey, p.bedId, p.startFt, p.lengthFt, null, n);
+	// A planting's pieces come one after another in `placed`, so counting runs numbers them.
+	let piece = 0;
+	const plantings = inPlanOrder(
+		placement.placed.map((p, i) => {
+			piece = i > 0 && placedFrom[i - 1] === placedFrom[i] ? piece + 1 : 0;
+			return proposal(placedFrom[i], p.bedId, p.startFt, p.lengthFt, null, piece);
 		}),
-		...placement.unplaced.map((u) => proposal(u.plantingKey, null, 0, planned.get(u.plantingKey)!.s.bedFeet, u.reason, 0))
-	].sort((a, b) => (a.fieldDate < b.fieldDate ? -1 : a.fieldDate > b.fieldDate ? 1 : a.key < b.key ? -1 : 1));
+		placement.unplaced.map((u, i) => proposal(unplacedFrom[i], null, 0, records[unplacedFrom[i]].req.bedFeet, u.reason, 0))
+	);
 	for (const u of placement.unplaced) warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
 	return { plantings, shortfall, warnings };
 }

@@ -1,13 +1,14 @@
 import { PlanningInputError, requireLatitude, requireNonNegative, requirePositive } from './errors';
-import { type DayNumber, fromDayNumber, toDayNumber, weekdayOf } from './day-number';
+import { type DayNumber, fromDayNumber, toDayNumber } from './day-number';
 import { type DtmContext, type EffectiveDtm, effectiveDaysToMaturity } from './effective-dtm';
-import { isoWeekOfDay, weekStartDay } from './iso-week';
+import { isoWeekOfDay } from './iso-week';
 import { roundUpTo } from './numbers';
 import { successionWarnings } from './plan-warnings';
-import { type SeedNeed, seedNeed } from './seed';
+import { type SeedNeed, type SeedNeedInput, seedNeed, validateSeedInput } from './seed';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
+import { checkSupply, normaliseTargets } from './target-weeks';
 import { validateVariety, varietyLabel } from './variety';
-import { type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
+import { type TempLookup, type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
 
 export interface Farm {
 	lastSpringFrost: string;
@@ -106,7 +107,7 @@ interface ResolvedOptions {
 	dtm: DtmContext;
 }
 
-function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: PlanningWarning[]): ResolvedOptions {
+function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: PlanningWarning[], temps?: TempLookup): ResolvedOptions {
 	const fullWeeks = Math.floor(v.harvestWindowDays / 7);
 	const maxInterval = Math.max(1, fullWeeks);
 	let interval = maxInterval;
@@ -142,22 +143,39 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
 			shortDayThresholdHours:
 				o.shortDayThresholdHours === undefined ? 10 : requireNonNegative('options.shortDayThresholdHours', o.shortDayThresholdHours),
 			gddWalkLimitDays: o.gddWalkLimitDays === undefined ? 365 : requirePositive('options.gddWalkLimitDays', o.gddWalkLimitDays),
-			temps: farm.weeklyMeanTempF ? makeTempLookup(farm.weeklyMeanTempF) : undefined
+			temps: farm.weeklyMeanTempF ? (temps ?? makeTempLookup(farm.weeklyMeanTempF)) : undefined
 		}
 	};
 }
 
-/** Sum duplicate weeks; return Mondays (day numbers) of weeks with a positive target, sorted. */
-function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[]; qty: Map<DayNumber, number> } {
-	if (!Array.isArray(targets)) throw new PlanningInputError('targets', 'must be a list of { week, quantity }');
-	const qty = new Map<DayNumber, number>();
-	targets.forEach((t, i) => {
-		const monday = weekStartDay(t.week, `targets[${i}].week`);
-		const q = requireNonNegative(`targets[${i}].quantity`, t.quantity);
-		qty.set(monday, (qty.get(monday) ?? 0) + q);
-	});
-	const mondays = [...qty.keys()].filter((m) => (qty.get(m) ?? 0) > 0).sort((a, b) => a - b);
-	return { mondays, qty };
+/**
+ * One succession as the planning loop settles it, in day numbers: what planSeason
+ * needs. planSuccessions dresses each into a Succession (dates, seed, basis).
+ */
+export interface SuccessionRun {
+	key: string;
+	index: number;
+	/** First harvest. */
+	start: DayNumber;
+	fieldDay: DayNumber;
+	trayDay?: DayNumber;
+	lastHarvest: DayNumber;
+	bedFeet: number;
+	rawFeet: number;
+	/** The target weeks it is meant to supply: mondays[firstWeek..endWeek) of the variety's targets. */
+	firstWeek: number;
+	endWeek: number;
+	warnings: PlanningWarning[];
+	dtm: EffectiveDtm;
+	/** The target week that set the bed-feet: its Monday, quantity, per-foot supply and days. */
+	peak: { monday: DayNumber; q: number; perFt: number; days: number };
+}
+
+interface Planned<T> {
+	items: T[];
+	shortfall: WeeklyTarget[];
+	warnings: PlanningWarning[];
+	interval: number;
 }
 
 /**
@@ -171,6 +189,28 @@ function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[]; qty:
  * `shortfall` with an `unreachable_week` warning, and the next week is tried.
  */
 export function planSuccessions(input: PlanInput): PlanResult {
+	const p = planRuns(input, undefined, toSuccession);
+	return { successions: p.items, shortfall: p.shortfall, warnings: p.warnings, intervalWeeks: p.interval };
+}
+
+/**
+ * planSuccessions for planSeason: the same successions, shortfall and warnings, but
+ * as bare runs, without the seed and basis a season plan does not use (it works out
+ * seed per placed piece). `temps` is a lookup already made for the farm's weekly
+ * temperatures, shared by every variety of the season rather than rebuilt for each.
+ */
+export function planSuccessionRuns(input: PlanInput, temps?: TempLookup): { runs: SuccessionRun[]; shortfall: WeeklyTarget[]; warnings: PlanningWarning[] } {
+	const p = planRuns(input, temps, (run, v, o) => {
+		// planSuccessions would reject bad seed figures at the first succession; so does this.
+		if (run.index === 0) validateSeedInput(seedInput(v, o, run.bedFeet));
+		return run;
+	});
+	return { runs: p.items, shortfall: p.shortfall, warnings: p.warnings };
+}
+
+type MakeRun<T> = (run: SuccessionRun, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
+
+function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, make: MakeRun<T>): Planned<T> {
 	const v = validateVariety(input.variety);
 	const farm = input.farm;
 	if (!farm || typeof farm !== 'object') throw new PlanningInputError('farm', 'is required');
@@ -179,13 +219,13 @@ export function planSuccessions(input: PlanInput): PlanResult {
 		firstFallFrost: toDayNumber(farm.firstFallFrost, 'farm.firstFallFrost')
 	};
 	const warnings: PlanningWarning[] = [];
-	const o = resolveOptions(v, farm, input.options ?? {}, warnings);
+	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
+	const facts = { ...season, temps: o.dtm.temps };
 	const { mondays, qty } = normaliseTargets(input.targets);
 	const H = v.harvestWindowDays;
 	const perFtPerDay = v.yieldPerBedFoot / H;
-	const weeklyYieldPerFt = perFtPerDay * 7;
 	const prefix = input.options?.keyPrefix ?? v.id ?? varietyLabel(v);
-	const successions: Succession[] = [];
+	const items: T[] = [];
 	const windows: [DayNumber, DayNumber, number][] = [];
 	const unreachable: DayNumber[] = [];
 	let i = 0;
@@ -202,8 +242,12 @@ export function planSuccessions(input: PlanInput): PlanResult {
 		}
 		const groupEnd = start + 7 * o.interval;
 		let j = i;
-		let peak = { need: -1, monday: start, q: 0, perFt: 0, days: 0 };
-		const weeks: string[] = [];
+		// The most demanding week of the run (kept as plain numbers: this loop runs per target week).
+		let peakNeed = -1;
+		let peakMonday = start;
+		let peakQ = 0;
+		let peakPerFt = 0;
+		let peakDays = 0;
 		while (j < mondays.length && mondays[j] < groupEnd) {
 			const monday = mondays[j];
 			const offsetDays = monday - start;
@@ -212,61 +256,41 @@ export function planSuccessions(input: PlanInput): PlanResult {
 			const perFt = perFtPerDay * days;
 			const q = qty.get(monday) ?? 0;
 			const need = q / perFt;
-			if (need > peak.need) peak = { need, monday, q, perFt, days };
-			weeks.push(isoWeekOfDay(monday));
+			if (need > peakNeed) {
+				peakNeed = need;
+				peakMonday = monday;
+				peakQ = q;
+				peakPerFt = perFt;
+				peakDays = days;
+			}
 			j++;
 		}
-		const rawFeet = peak.need * (1 + o.margin);
+		const rawFeet = peakNeed * (1 + o.margin);
 		const bedFeet = roundUpTo(rawFeet, o.increment);
 		const lastHarvest = start + H - 1;
-		const seed = seedNeed({
-			method: v.method,
-			bedFeet,
-			rows: v.rows,
-			inRowSpacingIn: v.inRowSpacingIn,
-			seedsPerSpot: v.seedsPerSpot,
-			germinationRate: v.germinationRate,
-			seedsPerGram: v.seedsPerGram,
-			margin: o.seedMargin,
-			cellsPerTray: v.cellsPerTray,
-			seedPriceCentsPerGram: v.seedPriceCentsPerGram,
-			seedsPerPacket: v.seedsPerPacket
-		});
-		const index = successions.length;
-		const s: Succession = {
-			key: `${prefix}#${index + 1}`,
-			index,
-			method: v.method,
-			fieldDate: fromDayNumber(fieldDay),
-			firstHarvest: fromDayNumber(start),
-			lastHarvest: fromDayNumber(lastHarvest),
-			bedFeet,
-			weeklyYield: bedFeet * weeklyYieldPerFt,
-			totalYield: bedFeet * v.yieldPerBedFoot,
-			yieldPerBedFoot: v.yieldPerBedFoot,
-			harvestWindowDays: H,
-			weeks,
-			seed,
-			warnings: [...dtm.warnings, ...successionWarnings(v, fieldDay, start, lastHarvest, { ...season, temps: o.dtm.temps })],
-			basis: {
-				weeklyYieldPerFt,
-				peakWeek: isoWeekOfDay(peak.monday),
-				peakQuantity: peak.q,
-				peakSupplyPerFt: peak.perFt,
-				peakWeekDays: peak.days,
-				margin: o.margin,
-				increment: o.increment,
-				rawFeet,
-				seedMargin: o.seedMargin,
-				dtm
-			}
-		};
-		if (trayDay !== undefined) s.traySowDate = fromDayNumber(trayDay);
-		if (v.id !== undefined) s.varietyId = v.id;
-		const crop = v.crop ?? v.cropId;
-		if (crop !== undefined) s.crop = crop;
-		if (v.family !== undefined) s.family = v.family;
-		successions.push(s);
+		const index = items.length;
+		items.push(
+			make(
+				{
+					key: `${prefix}#${index + 1}`,
+					index,
+					start,
+					fieldDay,
+					trayDay,
+					lastHarvest,
+					bedFeet,
+					rawFeet,
+					firstWeek: i,
+					endWeek: j,
+					warnings: withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts)),
+					dtm,
+					peak: { monday: peakMonday, q: peakQ, perFt: peakPerFt, days: peakDays }
+				},
+				v,
+				o,
+				mondays
+			)
+		);
 		windows.push([start, lastHarvest, bedFeet]);
 		i = j;
 	}
@@ -280,38 +304,69 @@ export function planSuccessions(input: PlanInput): PlanResult {
 		});
 	}
 	checkSupply(windows, mondays, qty, unreachable, perFtPerDay, shortfall, warnings);
-	return { successions, shortfall, warnings, intervalWeeks: o.interval };
+	return { items, shortfall, warnings, interval: o.interval };
 }
 
-/** Belt and braces: recount supply per target week and report any week left short. */
-function checkSupply(
-	windows: [DayNumber, DayNumber, number][],
-	mondays: DayNumber[],
-	qty: Map<DayNumber, number>,
-	unreachable: DayNumber[],
-	perFtPerDay: number,
-	shortfall: WeeklyTarget[],
-	warnings: PlanningWarning[]
-): void {
-	const supply = new Map<DayNumber, number>();
-	for (const [a, b, feet] of windows) {
-		for (let monday = a - weekdayOf(a) + 1; monday <= b; monday += 7) {
-			const days = Math.min(b, monday + 6) - Math.max(a, monday) + 1;
-			supply.set(monday, (supply.get(monday) ?? 0) + feet * perFtPerDay * days);
+function seedInput(v: Variety, o: ResolvedOptions, bedFeet: number): SeedNeedInput {
+	return {
+		method: v.method,
+		bedFeet,
+		rows: v.rows,
+		inRowSpacingIn: v.inRowSpacingIn,
+		seedsPerSpot: v.seedsPerSpot,
+		germinationRate: v.germinationRate,
+		seedsPerGram: v.seedsPerGram,
+		margin: o.seedMargin,
+		cellsPerTray: v.cellsPerTray,
+		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
+		seedsPerPacket: v.seedsPerPacket
+	};
+}
+
+/** A run dressed as planSuccessions returns it: dates as strings, seed, and the basis for explain*(). */
+function toSuccession(run: SuccessionRun, v: Variety, o: ResolvedOptions, mondays: DayNumber[]): Succession {
+	const { bedFeet, peak } = run;
+	const weeks: string[] = [];
+	for (let k = run.firstWeek; k < run.endWeek; k++) weeks.push(isoWeekOfDay(mondays[k]));
+	const seed = seedNeed(seedInput(v, o, bedFeet));
+	const weeklyYieldPerFt = (v.yieldPerBedFoot / v.harvestWindowDays) * 7;
+	const s: Succession = {
+		key: run.key,
+		index: run.index,
+		method: v.method,
+		fieldDate: fromDayNumber(run.fieldDay),
+		firstHarvest: fromDayNumber(run.start),
+		lastHarvest: fromDayNumber(run.lastHarvest),
+		bedFeet,
+		weeklyYield: bedFeet * weeklyYieldPerFt,
+		totalYield: bedFeet * v.yieldPerBedFoot,
+		yieldPerBedFoot: v.yieldPerBedFoot,
+		harvestWindowDays: v.harvestWindowDays,
+		weeks,
+		seed,
+		warnings: run.warnings,
+		basis: {
+			weeklyYieldPerFt,
+			peakWeek: isoWeekOfDay(peak.monday),
+			peakQuantity: peak.q,
+			peakSupplyPerFt: peak.perFt,
+			peakWeekDays: peak.days,
+			margin: o.margin,
+			increment: o.increment,
+			rawFeet: run.rawFeet,
+			seedMargin: o.seedMargin,
+			dtm: run.dtm
 		}
-	}
-	const skip = new Set(unreachable);
-	const short: string[] = [];
-	for (const m of mondays) {
-		if (skip.has(m)) continue;
-		const gap = (qty.get(m) ?? 0) - (supply.get(m) ?? 0);
-		if (gap > 1e-9 * Math.max(1, qty.get(m) ?? 0)) {
-			shortfall.push({ week: isoWeekOfDay(m), quantity: gap });
-			short.push(isoWeekOfDay(m));
-		}
-	}
-	if (short.length > 0) {
-		warnings.push({ code: 'supply_short', message: `Planned supply falls short of target in ${short.join(', ')}.`, weeks: short });
-	}
-	shortfall.sort((x, y) => (x.week < y.week ? -1 : x.week > y.week ? 1 : 0));
+	};
+	if (run.trayDay !== undefined) s.traySowDate = fromDayNumber(run.trayDay);
+	if (v.id !== undefined) s.varietyId = v.id;
+	const crop = v.crop ?? v.cropId;
+	if (crop !== undefined) s.crop = crop;
+	if (v.family !== undefined) s.family = v.family;
+	return s;
+}
+
+/** A succession's warnings: the days-to-maturity ones, then its own (a fresh list, shared with neither). */
+function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWarning[]): PlanningWarning[] {
+	return dtmWarnings.length === 0 ? own : [...dtmWarnings, ...own];
 }

@@ -205,3 +205,61 @@ describe('planSeason', () => {
 		}
 	});
 });
+
+describe('planSeason never drops a target silently', () => {
+	it('puts the weeks of a share naming another crop\'s variety into shortfall', () => {
+		const other = v({ id: 'beet-a', cropId: 'beet' });
+		const plan = planSeason({ farm: farm42, varieties: [v(), other], beds: twoBeds, targets: weekly('crop', [24], 20), varietyPlan: { crop: [{ varietyId: 'beet-a' }] }, options });
+		// The only share is invalid, so all 20 units of W24 are carried by no variety.
+		expect(plan.plantings).toEqual([]);
+		expect(plan.shortfall).toEqual([{ crop: 'crop', week: '2026-W24', quantity: 20 }]);
+		expect(plan.warnings.map((w) => w.code)).toContain('no_variety');
+	});
+
+	it('reports weeks outside every share, and the part left over when fractions add to less than one', () => {
+		const a = v({ id: 'a' });
+		const b = v({ id: 'b' });
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [a, b],
+			beds: twoBeds,
+			targets: weekly('crop', [24, 25, 26], 20),
+			// a carries W24 whole; b carries 60 % of W26; nobody carries W25.
+			varietyPlan: { crop: [{ varietyId: 'a', toWeek: 24 }, { varietyId: 'b', fromWeek: 26, fraction: 0.6 }] },
+			options
+		});
+		// Left unplanned: W25 all 20 units; W26 20 × (1 − 0.6) = 8 units.
+		expect(plan.shortfall).toEqual(
+			expect.arrayContaining([
+				{ crop: 'crop', week: '2026-W25', quantity: 20 },
+				{ crop: 'crop', week: '2026-W26', quantity: expect.closeTo(8, 9) }
+			])
+		);
+		// Planted: W24 20 ft (a) and W26 20 × 0.6 = 12 ft, rounded up to the 5-ft increment = 15 ft (b).
+		expect(plan.plantings.map((p) => [p.varietyId, p.lengthFt])).toEqual([
+			['a', 20],
+			['b', 15]
+		]);
+	});
+
+	it('plans both halves when two shares of one variety start the same week', () => {
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v({ id: 'a' })],
+			beds: twoBeds,
+			targets: weekly('crop', [24], 40),
+			varietyPlan: { crop: [{ varietyId: 'a', fraction: 0.5 }, { varietyId: 'a', fraction: 0.5 }] },
+			options
+		});
+		// 40 × 0.5 = 20 units each: two plantings of 20 ft, 40 ft in all, nothing short.
+		expect(plan.plantings.map((p) => p.lengthFt)).toEqual([20, 20]);
+		expect(new Set(plan.plantings.map((p) => p.key)).size).toBe(2);
+		expect(plan.shortfall).toEqual([]);
+	});
+
+	it("keeps placement's notes about kept plantings", () => {
+		const kept: KeptPlanting = { key: 'old', cropId: 'other', bedId: 'nope', startFt: 0, lengthFt: 10, fieldDate: '2026-04-01', firstHarvest: '2026-05-01', lastHarvest: '2026-05-10', yieldPerBedFoot: 1 };
+		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 10), kept: [kept], options });
+		expect(plan.warnings).toEqual(expect.arrayContaining([expect.objectContaining({ code: 'unknown_bed', key: 'old' })]));
+	});
+});
