@@ -6,7 +6,7 @@ bash scripts/db-start.sh
 
 export FC_DB_NAME="$FC_DB_TEST_NAME"
 export FC_SMTP_PORT="${FC_TEST_SMTP_PORT:-2526}"
-export FC_MAIL_DIR="$FC_DATA_DIR/mail-test"
+export FC_MAIL_DIR="$FC_DATA_DIR/mail-test-$FC_SMTP_PORT"
 export FC_PORT="${FC_TEST_PORT:-3100}"
 export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
 
