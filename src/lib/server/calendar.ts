@@ -1,0 +1,155 @@
+// Personal calendar feeds (RFC 5545, built with ical-generator): the tasks a user is responsible
+// for by role, at a secret URL a calendar app polls without a session. Only the token's SHA-256
+// is stored (as for invites); a new feed URL revokes the old one, and revoking answers 404.
+import ical, { ICalCalendarMethod } from 'ical-generator';
+import { formatWeekDate, weekStart, weeksBetween } from '$lib/planning';
+import type { Role } from '$lib/roles';
+import { db } from './db';
+import { hashToken, newToken } from './tokens';
+
+export interface FeedStatus {
+	createdAt: string;
+	lastFetchedAt: string | null;
+}
+
+/** Creates a feed for the user on this farm, revoking any earlier one; returns the secret token. */
+export async function createFeed(farmId: number, userId: string): Promise<string> {
+	const { token, hash } = newToken();
+	await db().transaction(async (trx) => {
+		await trx('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+		await trx('calendar_feeds').insert({ farm_id: farmId, user_id: userId, token_hash: hash });
+	});
+	return token;
+}
+
+/** Revokes the user's feed on this farm; returns how many feeds were open. */
+export async function revokeFeed(farmId: number, userId: string): Promise<number> {
+	return db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+}
+
+export async function feedStatus(farmId: number, userId: string): Promise<FeedStatus | null> {
+	const r = await db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').orderBy('id', 'desc').first('created_at', 'last_fetched_at');
+	if (!r) return null;
+	return { createdAt: new Date(r.created_at).toISOString(), lastFetchedAt: r.last_fetched_at ? new Date(r.last_fetched_at).toISOString() : null };
+}
+
+export interface Feed {
+	farmId: number;
+	farmName: string;
+	timeZone: string;
+	userId: string;
+	role: Role;
+}
+
+/** The open feed behind a token, with the user's current role; null when unknown or revoked. */
+export async function findFeed(token: string): Promise<Feed | null> {
+	if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
+	const r = await db()('calendar_feeds as c')
+		.join('farm_members as m', function () {
+			this.on('m.farm_id', '=', 'c.farm_id').andOn('m.user_id', '=', 'c.user_id');
+		})
+		.join('farms as f', 'f.id', 'c.farm_id')
+		.where('c.token_hash', hashToken(token))
+		.whereNull('c.revoked_at')
+		.first('c.id', 'c.farm_id', 'c.user_id', 'm.role', 'f.name', 'f.time_zone');
+	if (!r) return null;
+	// Best effort: when a feed was last read, shown on its page; a failure here must not fail the feed.
+	await db()('calendar_feeds').where({ id: r.id }).update({ last_fetched_at: new Date() }).catch(() => undefined);
+	return { farmId: r.farm_id, farmName: r.name, timeZone: r.time_zone, userId: r.user_id, role: r.role };
+}
+
+/** A calendar date as the UTC midnight ical-generator prints as a DATE value (no calendar time zone is set on purpose). */
+function day(d: string): Date {
+	return new Date(`${d}T00:00:00Z`);
+}
+function nextDay(d: string): Date {
+	return new Date(day(d).getTime() + 86_400_000);
+}
+
+type Kind = 'tray_sow' | 'direct_sow' | 'transplant' | 'harvest';
+const byRole: Record<Role, readonly Kind[]> = {
+	owner: ['tray_sow', 'direct_sow', 'transplant', 'harvest'],
+	crew_lead: ['tray_sow', 'direct_sow', 'transplant', 'harvest'],
+	share_manager: ['harvest']
+};
+const verb: Record<Kind, string> = { tray_sow: 'Sow in trays', direct_sow: 'Direct sow', transplant: 'Transplant', harvest: 'Harvest starts' };
+
+/** The feed's calendar as RFC 5545 text. */
+export async function feedCalendar(feed: Feed, url: string): Promise<string> {
+	const cal = ical({
+		name: `Furrowcast tasks · ${feed.farmName}`,
+		prodId: { company: 'Furrowcast', product: 'tasks', language: 'EN' },
+		method: ICalCalendarMethod.PUBLISH,
+		url,
+		ttl: 3600,
+		// Every event is an all-day DATE value, which carries no time zone; the farm's zone is
+		// named for calendar apps that show "today" and reminders by it.
+		x: [{ key: 'X-WR-TIMEZONE', value: feed.timeZone }]
+	});
+	const kinds = byRole[feed.role];
+	const plantings = await db()('plantings as p')
+		.join('varieties as v', 'v.id', 'p.variety_id')
+		.join('crops as c', 'c.id', 'v.crop_id')
+		.leftJoin('beds as b', 'b.id', 'p.bed_id')
+		.leftJoin('blocks as k', 'k.id', 'b.block_id')
+		.where('p.farm_id', feed.farmId)
+		.whereNot('p.status', 'failed')
+		.orderBy('p.id')
+		.select('p.id', 'p.method', 'p.tray_sow_date', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.start_ft', 'p.length_ft', 'p.rows', 'p.in_row_spacing_in', 'p.expected_yield', 'p.status', 'p.updated_at', 'v.name as variety', 'c.name as crop', 'c.harvest_unit', 'b.name as bed', 'k.name as block');
+	for (const p of plantings) {
+		const start = Number(p.start_ft);
+		const end = start + Number(p.length_ft);
+		const where = p.bed ? `${p.block} · bed ${p.bed}, ${start}–${end} ft` : 'not placed in a bed yet';
+		const tasks: [Kind, string | null][] = [
+			['tray_sow', p.method === 'transplant' ? p.tray_sow_date : null],
+			['direct_sow', p.method === 'direct' ? p.field_date : null],
+			['transplant', p.method === 'transplant' ? p.field_date : null],
+			['harvest', p.first_harvest]
+		];
+		for (const [kind, date] of tasks) {
+			if (!date || !kinds.includes(kind)) continue;
+			const details = kind === 'harvest' ? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${Number(p.expected_yield)} ${p.harvest_unit} in all.` : `${p.rows} rows at ${Number(p.in_row_spacing_in)} in.`;
+			cal.createEvent({
+				// Stable across fetches, so a calendar app updates the event instead of adding another.
+				id: `planting-${p.id}-${kind}@furrowcast`,
+				allDay: true,
+				start: day(date),
+				end: nextDay(date),
+				stamp: new Date(p.updated_at),
+				summary: `${verb[kind]}: ${p.crop} · ${p.variety} (${p.bed ? `${p.block} ${p.bed}` : 'no bed'})`,
+				description: `${formatWeekDate(date)} · ${where}. ${details} Status: ${p.status}.`
+			});
+		}
+	}
+	if (feed.role === 'share_manager') await addShareWeeks(cal, feed.farmId);
+	return cal.toString();
+}
+
+/** One week-long all-day event per farm-share distribution week, with each share size's box. */
+async function addShareWeeks(cal: ReturnType<typeof ical>, farmId: number): Promise<void> {
+	const [shares, items] = await Promise.all([
+		db()('share_sizes').where({ farm_id: farmId }).orderBy(['season_id', 'name']).select('id', 'season_id', 'name', 'members', 'first_week', 'last_week', 'pickup_days'),
+		db()('box_items as i').join('share_sizes as s', 's.id', 'i.share_size_id').join('crops as c', 'c.id', 'i.crop_id').where('s.farm_id', farmId).orderBy('c.name').select('i.share_size_id', 'i.week', 'c.name as crop', 'i.quantity', 'i.unit')
+	]);
+	const weeks = new Map<string, string[]>();
+	for (const s of shares) {
+		for (const week of weeksBetween(s.first_week, s.last_week)) {
+			const box = items.filter((i) => i.share_size_id === s.id && i.week === week).map((i) => `${i.crop} ${Number(i.quantity)} ${i.unit}`);
+			const line = `${s.name} (${s.members} members${s.pickup_days ? `, pick-up ${s.pickup_days}` : ''}): ${box.join(', ') || 'no box contents yet'}`;
+			const key = `${s.season_id}|${week}`;
+			weeks.set(key, [...(weeks.get(key) ?? []), line]);
+		}
+	}
+	for (const [key, lines] of weeks) {
+		const [seasonId, week] = key.split('|');
+		const monday = weekStart(week);
+		cal.createEvent({
+			id: `share-week-${seasonId}-${week}@furrowcast`,
+			allDay: true,
+			start: day(monday),
+			end: new Date(day(monday).getTime() + 7 * 86_400_000),
+			summary: `Farm-share week ${week}`,
+			description: lines.join('\n')
+		});
+	}
+}

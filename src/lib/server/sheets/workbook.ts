@@ -1,0 +1,95 @@
+// The week's crew sheets as an .xlsx (exceljs): one worksheet per task kind, header row frozen,
+// units in the headers, dates as real dates and numbers as numbers, with empty Done / Actual date
+// / Notes columns to fill in by hand.
+import ExcelJS from 'exceljs';
+import type { SheetRow, SheetSection, WeekSheet } from './week';
+
+interface Column {
+	header: string;
+	width: number;
+	value: (r: SheetRow, group: string) => string | number | Date | null;
+	/** Excel number format, e.g. '0.00' or 'yyyy-mm-dd'. */
+	format?: string;
+}
+
+/** A calendar date as a UTC-midnight Date, which Excel stores as a whole-day serial. */
+function excelDate(d: string | undefined): Date | null {
+	return d ? new Date(`${d}T00:00:00Z`) : null;
+}
+
+const where: Column[] = [
+	{ header: 'Block · bed', width: 18, value: (_r, g) => g },
+	{ header: 'From (ft)', width: 10, value: (r) => r.startFt, format: '0.#' },
+	{ header: 'To (ft)', width: 10, value: (r) => r.endFt, format: '0.#' }
+];
+const crop: Column[] = [
+	{ header: 'Crop', width: 16, value: (r) => r.crop },
+	{ header: 'Variety', width: 20, value: (r) => r.variety }
+];
+const fillIn: Column[] = [
+	{ header: 'Done (✓)', width: 9, value: () => null },
+	{ header: 'Actual date', width: 13, value: (r) => excelDate(r.doneOn ?? undefined), format: 'yyyy-mm-dd' },
+	{ header: 'Notes', width: 30, value: () => null }
+];
+const planned = (label: string): Column => ({ header: label, width: 13, value: (r) => excelDate(r.date), format: 'yyyy-mm-dd' });
+
+const columns: Record<SheetSection['kind'], Column[]> = {
+	tray_sow: [
+		...crop,
+		planned('Sow on'),
+		{ header: 'Cells', width: 9, value: (r) => r.seed?.cells ?? null, format: '0' },
+		{ header: 'Cells per tray', width: 13, value: (r) => r.cellsPerTray, format: '0' },
+		{ header: 'Trays', width: 8, value: (r) => r.seed?.trays ?? null, format: '0' },
+		{ header: 'Seeds per cell', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
+		{ header: 'Seed (g)', width: 10, value: (r) => r.seed?.grams ?? null, format: '0.00' },
+		{ header: 'For bed', width: 16, value: (r) => (r.bed ? `${r.block} · ${r.bed}` : 'not placed') },
+		...fillIn
+	],
+	direct_sow: [
+		...where,
+		...crop,
+		planned('Sow on'),
+		{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
+		{ header: 'In-row spacing (in)', width: 17, value: (r) => r.inRowSpacingIn, format: '0.##' },
+		{ header: 'Seeds per spot', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
+		{ header: 'Seeds', width: 10, value: (r) => r.seed?.seeds ?? null, format: '#,##0' },
+		{ header: 'Seed (g)', width: 10, value: (r) => r.seed?.grams ?? null, format: '0.00' },
+		...fillIn
+	],
+	transplant: [
+		...where,
+		...crop,
+		planned('Transplant on'),
+		{ header: 'Plants', width: 9, value: (r) => r.seed?.plants ?? null, format: '#,##0' },
+		{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
+		{ header: 'In-row spacing (in)', width: 17, value: (r) => r.inRowSpacingIn, format: '0.##' },
+		...fillIn
+	],
+	harvest: [
+		...where,
+		...crop,
+		{ header: 'Expected this week', width: 17, value: (r) => r.weekQuantity ?? null, format: '0.0' },
+		{ header: 'Unit', width: 8, value: (r) => r.unit ?? null },
+		{ header: 'For (share size or channel)', width: 40, value: (r) => (r.demand ?? []).map((d) => `${d.for}: ${d.quantity} ${d.unit}`).join('; ') || 'no demand listed' },
+		{ header: 'Window ends', width: 13, value: (r) => excelDate(r.lastHarvest), format: 'yyyy-mm-dd' },
+		...fillIn
+	]
+};
+
+/** Builds the .xlsx of a week's sheets; `title` goes in the workbook's properties. */
+export async function weekWorkbook(sheet: WeekSheet, title: string): Promise<Buffer> {
+	const wb = new ExcelJS.Workbook();
+	wb.creator = 'Furrowcast';
+	wb.title = title;
+	wb.created = new Date();
+	for (const section of sheet.sections) {
+		const cols = columns[section.kind];
+		const ws = wb.addWorksheet(section.title, { views: [{ state: 'frozen', ySplit: 1 }], pageSetup: { orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0 } });
+		ws.columns = cols.map((c, i) => ({ header: c.header, key: `c${i}`, width: c.width, style: c.format ? { numFmt: c.format } : {} }));
+		ws.getRow(1).font = { bold: true };
+		for (const group of section.groups) {
+			for (const r of group.rows) ws.addRow(cols.map((c) => c.value(r, group.label)));
+		}
+	}
+	return Buffer.from(await wb.xlsx.writeBuffer());
+}
