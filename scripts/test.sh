@@ -17,7 +17,7 @@ fi
 
 source scripts/test-env.sh
 
-report="$FC_DATA_DIR/vitest-report.json"
+report="$FC_DATA_DIR/vitest-report-$FC_PORT.json"
 set +e
 npx vitest run --reporter=default --reporter=json --outputFile.json="$report" "$@"
 status=$?
