@@ -1,6 +1,7 @@
 // npm run bench: every speed figure the issues name, one `name: value` line each, so runs can
 // be compared. Each figure is the median of several runs in one process.
 import { runEngineBench } from './bench-engine';
+import { runForecastBench } from './bench-forecast';
 
-const results: Record<string, number> = { ...(await runEngineBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

@@ -54,6 +54,7 @@ export { checkBedConflicts, type BedConflict } from './bed-conflicts';
 export { freeSpace, type BedFreeSpace, type FreeRange } from './free-space';
 export { explainSupply, forecast, type ForecastPlanting, type ForecastRow } from './forecast';
 export { checkBoxes, type BoxCheck } from './box-check';
+export * from './matching';
 export {
 	deriveTargets,
 	deriveTargetsWithNotes,

@@ -1,0 +1,56 @@
+// The forecast's query string (GET /api/seasons/{id}/forecast) and the box swap input, shared
+// by the API routes, the page actions and the browser.
+import { z } from 'zod';
+import { weeksInIsoYear } from '$lib/planning/iso-week';
+
+/** An ISO week 'YYYY-Www' that exists (W53 only in years that have one). */
+export const isoWeekField = (label: string) =>
+	z
+		.string({ error: `${label} is required.` })
+		.trim()
+		.regex(/^\d{4}-W\d{2}$/, `${label} must be an ISO week like 2027-W24.`)
+		.refine((v) => {
+			const n = Number(v.slice(6));
+			return n >= 1 && n <= weeksInIsoYear(Number(v.slice(0, 4)));
+		}, `${label} is not a week of that year.`);
+
+/** Longest range one request may ask for: two years of weeks. */
+export const MAX_FORECAST_WEEKS = 106;
+
+export const forecastQuerySchema = z
+	.object({
+		crops: z
+			.string()
+			.trim()
+			.regex(/^\d+(,\d+)*$/, 'crops must be crop ids separated by commas, like 3,7,12.')
+			.transform((v) => [...new Set(v.split(',').map(Number))])
+			.optional(),
+		from: isoWeekField('from').optional(),
+		to: isoWeekField('to').optional()
+	})
+	.refine((q) => !q.from || !q.to || q.from <= q.to, { path: ['to'], message: 'to must not be before from.' });
+
+export type ForecastQuery = z.infer<typeof forecastQuerySchema>;
+
+/** A whole number from a form field (a string) or JSON (a number). */
+const idField = (label: string) =>
+	z.preprocess(
+		(v) => (typeof v === 'string' && /^\s*\d+\s*$/.test(v) ? Number(v) : v),
+		z.number({ error: `${label} must be an id.` }).int(`${label} must be an id.`).positive(`${label} must be an id.`)
+	);
+
+export const swapSchema = z
+	.object({
+		shareSizeId: idField('shareSizeId'),
+		week: isoWeekField('week'),
+		fromCropId: idField('fromCropId'),
+		toCropId: idField('toCropId'),
+		quantity: z.preprocess(
+			(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.')) : v),
+			z.number({ error: 'quantity must be a number.' }).positive('quantity must be above 0.').max(10_000, 'quantity must be at most 10,000.')
+		)
+	})
+	.strict()
+	.refine((s) => s.fromCropId !== s.toCropId, { path: ['toCropId'], message: 'toCropId must differ from fromCropId.' });
+
+export type SwapInput = z.infer<typeof swapSchema>;

@@ -1,0 +1,110 @@
+// A season's weekly harvest forecast against its demand: the engine's forecast() over the
+// season's plantings (failed ones left out), logged harvests in place of the forecast for
+// past weeks, and targets from the box contents with the recorded swaps applied.
+import {
+	applySwaps,
+	cropWeekKey,
+	deriveTargets,
+	forecastFromSupply,
+	isoWeek,
+	supplyWithActuals,
+	weeksBetween,
+	type BoxSwap,
+	type ForecastPlanting,
+	type ForecastRow,
+	type TargetInput
+} from '$lib/planning';
+import { todayIn } from '$lib/today';
+import { db } from './db';
+import { targetInput } from './demand';
+import type { Season } from './seasons';
+
+export interface ForecastCrop {
+	id: string;
+	name: string;
+	family: string;
+	unit: string;
+}
+
+export interface SeasonForecastRow extends ForecastRow {
+	/** True when logged harvests stand in for the forecast in this (past) week. */
+	actual: boolean;
+}
+
+export interface SeasonForecast {
+	/** The season's ISO weeks, first to last. */
+	weeks: string[];
+	/** The farm's current week: harvests logged before it replace the forecast. */
+	currentWeek: string;
+	crops: ForecastCrop[];
+	rows: SeasonForecastRow[];
+	/** Demand with the active swaps applied, as the rows were computed from. */
+	demand: TargetInput;
+	swaps: BoxSwap[];
+	/** Milliseconds spent reading the database and in the engine, for a Server-Timing header. */
+	timing: { db: number; engine: number };
+}
+
+export async function listCrops(farmId: number): Promise<ForecastCrop[]> {
+	const rows = await db()('crops').where({ farm_id: farmId }).orderBy('name').select('id', 'name', 'family', 'harvest_unit');
+	return rows.map((c) => ({ id: String(c.id), name: c.name, family: c.family, unit: c.harvest_unit }));
+}
+
+/** Swaps still in force, oldest first: the order they were made in is the order they apply. */
+export async function activeSwaps(farmId: number, seasonId: number): Promise<BoxSwap[]> {
+	const rows = await db()('box_swaps')
+		.where({ farm_id: farmId, season_id: seasonId })
+		.whereNull('undone_at')
+		.orderBy('id')
+		.select('id', 'share_size_id', 'week', 'from_crop_id', 'to_crop_id', 'quantity');
+	return rows.map((s) => ({ key: String(s.id), shareSizeId: String(s.share_size_id), week: s.week, fromCrop: String(s.from_crop_id), toCrop: String(s.to_crop_id), quantity: Number(s.quantity) }));
+}
+
+export function seasonWeeks(season: Season): string[] {
+	return weeksBetween(isoWeek(season.startsOn), isoWeek(season.endsOn));
+}
+
+export async function seasonForecast(farmId: number, season: Season): Promise<SeasonForecast> {
+	const t0 = performance.now();
+	// One round of queries in parallel; logged harvests are cut at the current week below, once
+	// the farm's time zone is known.
+	const [farm, crops, plantings, harvests, input, swaps] = await Promise.all([
+		db()('farms').where({ id: farmId }).first('time_zone'),
+		listCrops(farmId),
+		db()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.where({ 'p.farm_id': farmId, 'p.season_id': season.id })
+			.whereNot('p.status', 'failed')
+			.select('p.id', 'v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot'),
+		db()('harvest_records as h')
+			.join('plantings as p', 'p.id', 'h.planting_id')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where({ 'h.farm_id': farmId, 'p.season_id': season.id })
+			// A harvest logged in another unit cannot be added to the crop's figures.
+			.andWhereRaw('h.unit = c.harvest_unit')
+			.select('h.planting_id', 'v.crop_id', 'h.harvested_on', 'h.quantity'),
+		targetInput(farmId, season.id),
+		activeSwaps(farmId, season.id)
+	]);
+	const currentWeek = isoWeek(todayIn(farm?.time_zone ?? 'UTC'));
+	const t1 = performance.now();
+	// Supply from bed-feet × the variety's yield, so a change of a planting's length shows at once.
+	const forecastPlantings: ForecastPlanting[] = plantings.map((p) => ({
+		key: `p${p.id}`,
+		crop: String(p.crop_id),
+		firstHarvest: p.first_harvest,
+		lastHarvest: p.last_harvest,
+		bedFeet: Number(p.length_ft),
+		yieldPerBedFoot: Number(p.yield_per_bed_foot)
+	}));
+	const { supply, actual } = supplyWithActuals(
+		forecastPlantings,
+		harvests.map((h) => ({ key: `p${h.planting_id}`, crop: String(h.crop_id), date: h.harvested_on, quantity: Number(h.quantity) })),
+		currentWeek
+	);
+	const demand = applySwaps(input, swaps);
+	const rows = forecastFromSupply(supply, deriveTargets(demand)).map((r) => ({ ...r, actual: actual.has(cropWeekKey(r.crop, r.week)) }));
+	const timing = { db: t1 - t0, engine: performance.now() - t1 };
+	return { weeks: seasonWeeks(season), currentWeek, crops, rows, demand, swaps, timing };
+}

@@ -1,0 +1,38 @@
+import { fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { requireRole, requireUser } from '$lib/server/guards';
+import { seasonFromParams } from '$lib/server/api';
+import { createSwap, matching, undoSwap } from '$lib/server/boxes';
+import { swapSchema } from '$lib/schemas/forecast';
+import { fieldErrors } from '$lib/schemas/common';
+
+export const load = (async (event) => {
+	const { farm } = requireUser(event);
+	const { season } = await event.parent();
+	return { matching: await matching(farm.id, season), canSwap: farm.role === 'owner' || farm.role === 'share_manager' };
+}) satisfies PageServerLoad;
+
+// Back to the same view (filter kept) after a swap or an undo.
+const back = (url: URL): string => url.pathname + (url.searchParams.get('show') === 'short' ? '?show=short' : '');
+
+export const actions = {
+	swap: async (event) => {
+		const { farm, user } = requireRole(event, 'share_manager', 'owner');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
+		const parsed = swapSchema.safeParse(values);
+		if (!parsed.success) return fail(400, { swap: { errors: fieldErrors(parsed.error), values } });
+		const result = await createSwap(farm.id, season.id, user.id, parsed.data);
+		if (!result.ok) return fail(400, { swap: { errors: result.errors, values } });
+		redirect(303, back(event.url));
+	},
+	undo: async (event) => {
+		const { farm, user } = requireRole(event, 'share_manager', 'owner');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const id = Number((await event.request.formData()).get('swapId'));
+		const result = Number.isInteger(id) && id > 0 ? await undoSwap(farm.id, season.id, id, user.id) : 'missing';
+		if (result === 'missing') return fail(400, { undo: { errors: { swapId: 'No such swap in this season.' } } });
+		if (result === 'already_undone') return fail(409, { undo: { errors: { swapId: 'This swap is already undone.' } } });
+		redirect(303, back(event.url));
+	}
+} satisfies Actions;

@@ -1,0 +1,78 @@
+// The forecast page's data in the browser: fetched from the API, and fetched again whenever
+// the plan may have changed — the window regains focus, the tab becomes visible, or another
+// part of the app dispatches `furrowcast:plan-changed` on window.
+import type { ChartCrop, ForecastApiRow } from '$lib/components/charts/forecast-series';
+
+export const PLAN_CHANGED_EVENT = 'furrowcast:plan-changed';
+
+export interface ForecastResponse {
+	from: string;
+	to: string;
+	weeks: string[];
+	currentWeek: string;
+	crops: ChartCrop[];
+	rows: ForecastApiRow[];
+}
+
+export interface Query {
+	from: string;
+	to: string;
+	/** Crop ids, or null for every crop with figures. */
+	crops: string[] | null;
+}
+
+export class ForecastData {
+	// Raw: thousands of rows are replaced whole on each fetch, never mutated, so no deep proxy.
+	data = $state.raw<ForecastResponse | null>(null);
+	error = $state<string | null>(null);
+	loading = $state(false);
+	/** How many responses have arrived: lets tests and the bench see a refetch land. */
+	fetches = $state(0);
+	/** When the latest response arrived (performance.now()), for measuring the chart's render. */
+	arrivedAt = 0;
+	#seq = 0;
+	#seasonId: number;
+
+	constructor(seasonId: number) {
+		this.#seasonId = seasonId;
+	}
+
+	async load(q: Query): Promise<void> {
+		const params = new URLSearchParams({ from: q.from, to: q.to });
+		if (q.crops) params.set('crops', q.crops.join(','));
+		const seq = ++this.#seq;
+		this.loading = true;
+		try {
+			const res = await fetch(`/api/seasons/${this.#seasonId}/forecast?${params}`, { headers: { accept: 'application/json' } });
+			const body = await res.json();
+			if (seq !== this.#seq) return; // a newer request is on its way
+			if (!res.ok) {
+				this.error = body.message ?? `The forecast could not be loaded (${res.status}).`;
+				return;
+			}
+			this.error = null;
+			this.arrivedAt = performance.now();
+			this.data = body as ForecastResponse;
+			this.fetches++;
+		} catch {
+			if (seq === this.#seq) this.error = 'The forecast could not be loaded: no connection to the server.';
+		} finally {
+			if (seq === this.#seq) this.loading = false;
+		}
+	}
+
+	/** Calls `again` on focus, on becoming visible and on the plan-changed event; returns the cleanup. */
+	watch(again: () => void): () => void {
+		const visible = (): void => {
+			if (document.visibilityState === 'visible') again();
+		};
+		window.addEventListener('focus', again);
+		window.addEventListener(PLAN_CHANGED_EVENT, again);
+		document.addEventListener('visibilitychange', visible);
+		return () => {
+			window.removeEventListener('focus', again);
+			window.removeEventListener(PLAN_CHANGED_EVENT, again);
+			document.removeEventListener('visibilitychange', visible);
+		};
+	}
+}

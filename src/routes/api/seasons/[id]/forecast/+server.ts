@@ -1,0 +1,50 @@
+// GET /api/seasons/{id}/forecast?crops=3,7&from=2027-W20&to=2027-W30 — weekly supply, demand,
+// shortfall and surplus per crop, for the forecast charts. Every role may read it.
+import { json } from '@sveltejs/kit';
+import type { RequestHandler } from './$types';
+import { requireUser } from '$lib/server/guards';
+import { seasonFromParams } from '$lib/server/api';
+import { seasonForecast } from '$lib/server/forecast';
+import { forecastQuerySchema, MAX_FORECAST_WEEKS } from '$lib/schemas/forecast';
+import { fieldErrors } from '$lib/schemas/common';
+import { weeksBetween } from '$lib/planning';
+
+function bad(errors: Record<string, string>): Response {
+	return json({ message: `Invalid query: ${Object.entries(errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors }, { status: 400 });
+}
+
+export const GET: RequestHandler = async (event) => {
+	const { farm } = requireUser(event);
+	const season = await seasonFromParams(farm.id, event.params.id);
+	const params = event.url.searchParams;
+	const raw: Record<string, string> = {};
+	for (const name of ['crops', 'from', 'to']) if (params.has(name)) raw[name] = params.getAll(name).join(',');
+	const parsed = forecastQuerySchema.safeParse(raw);
+	if (!parsed.success) return bad(fieldErrors(parsed.error));
+
+	const f = await seasonForecast(farm.id, season);
+	const from = parsed.data.from ?? f.weeks[0];
+	const to = parsed.data.to ?? f.weeks[f.weeks.length - 1];
+	if (from > to) return bad({ [parsed.data.from ? 'from' : 'to']: `the range ${from}–${to} is empty; the season runs ${f.weeks[0]}–${f.weeks[f.weeks.length - 1]}.` });
+	const weeks = weeksBetween(from, to);
+	if (weeks.length > MAX_FORECAST_WEEKS) return bad({ to: `at most ${MAX_FORECAST_WEEKS} weeks at once.` });
+
+	const known = new Set(f.crops.map((c) => c.id));
+	const asked = parsed.data.crops?.map(String);
+	const unknown = asked?.filter((id) => !known.has(id)) ?? [];
+	if (unknown.length) return bad({ crops: `no crop ${unknown.join(', ')} on this farm.` });
+
+	const inRange = f.rows.filter((r) => r.week >= from && r.week <= to);
+	// Without a list, the crops that have supply or demand in the range.
+	const chosen = new Set(asked ?? inRange.filter((r) => r.supply > 0 || r.demand > 0).map((r) => r.crop));
+	const serverTiming = `db;dur=${f.timing.db.toFixed(1)}, engine;dur=${f.timing.engine.toFixed(1)}`;
+	return json({
+		season: { id: season.id, name: season.name },
+		from,
+		to,
+		weeks,
+		currentWeek: f.currentWeek,
+		crops: f.crops.filter((c) => chosen.has(c.id)),
+		rows: inRange.filter((r) => chosen.has(r.crop))
+	}, { headers: { 'server-timing': serverTiming } });
+};

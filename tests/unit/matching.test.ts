@@ -1,0 +1,178 @@
+// Box matching on small worked examples. Every expected number is computed by hand in the
+// comments; none is taken from the code under test.
+import { describe, expect, it } from 'vitest';
+import {
+	type TargetInput,
+	applySwaps,
+	checkBoxes,
+	deriveTargets,
+	forecast,
+	forecastFromSupply,
+	matchBoxes,
+	suggestSubstitutes,
+	summarizeMatching,
+	supplyWithActuals,
+	swapStep
+} from '../../src/lib/planning/index';
+
+// 2027-W24 is Mon 14 Jun – Sun 20 Jun 2027; W25 is 21–27 Jun (ISO 8601: W01 starts Mon 4 Jan 2027,
+// 4 Jan + 23 × 7 days = 14 Jun).
+const demand: TargetInput = {
+	shareSizes: [
+		{ id: 'full', members: 10, firstWeek: '2027-W24', lastWeek: '2027-W25' },
+		{ id: 'half', members: 5, firstWeek: '2027-W24', lastWeek: '2027-W25' }
+	],
+	boxItems: [
+		{ shareSizeId: 'full', week: '2027-W24', crop: 'carrot', quantity: 2 },
+		{ shareSizeId: 'full', week: '2027-W24', crop: 'kale', quantity: 1 },
+		{ shareSizeId: 'half', week: '2027-W24', crop: 'carrot', quantity: 1 },
+		{ shareSizeId: 'full', week: '2027-W25', crop: 'kale', quantity: 1 }
+	],
+	channelDemand: []
+};
+const units: Record<string, string> = { carrot: 'lb', spinach: 'lb', kale: 'bunch', chard: 'bunch' };
+const unitOf = (c: string): string | undefined => units[c];
+
+// Supply, one figure per crop-week (a week-long planting yielding exactly that much).
+const supply = [
+	{ crop: 'carrot', week: '2027-W24', quantity: 20 },
+	{ crop: 'kale', week: '2027-W24', quantity: 12 },
+	{ crop: 'spinach', week: '2027-W24', quantity: 10 },
+	{ crop: 'chard', week: '2027-W24', quantity: 8 },
+	{ crop: 'kale', week: '2027-W25', quantity: 12 }
+];
+
+function rowsFor(input: TargetInput) {
+	return forecastFromSupply(supply, deriveTargets(input));
+}
+
+describe('matchBoxes', () => {
+	const rows = rowsFor(demand);
+	const boxes = matchBoxes(rows, demand);
+
+	it('gives each item its supply, need and fill', () => {
+		// Carrot W24 demand = 10 × 2 + 5 × 1 = 25 lb; supply 20 lb → fill 20 / 25 = 0.8, short.
+		// Kale W24 demand = 10 × 1 = 10 bunches; supply 12 → fill 1.
+		expect(boxes.map((b) => `${b.week} ${b.shareSizeId}`)).toEqual(['2027-W24 full', '2027-W24 half', '2027-W25 full']);
+		const [full24, half24, full25] = boxes;
+		const carrot = full24.items.find((i) => i.crop === 'carrot')!;
+		expect(carrot.need).toBe(20); // 10 members × 2 lb
+		expect(carrot.demand).toBeCloseTo(25, 9);
+		expect(carrot.supply).toBeCloseTo(20, 9);
+		expect(carrot.fill).toBeCloseTo(0.8, 9);
+		expect(carrot.short).toBe(true);
+		expect(full24.items.find((i) => i.crop === 'kale')!.fill).toBe(1);
+		// Full box W24 = mean(0.8, 1) = 0.9; half box W24 = carrot only = 0.8; full W25 = kale 12 ≥ 10 → 1.
+		expect(full24.fill).toBeCloseTo(0.9, 9);
+		expect(half24.fill).toBeCloseTo(0.8, 9);
+		expect(half24.items[0].need).toBe(5); // 5 members × 1 lb
+		expect(full25.fill).toBe(1);
+		expect(boxes.map((b) => b.fillable)).toEqual([false, false, true]);
+	});
+
+	it('agrees with checkBoxes on which boxes fill', () => {
+		const checks = checkBoxes(rows, demand);
+		expect(checks.map((c) => [c.week, c.shareSizeId, c.fillable])).toEqual(boxes.map((b) => [b.week, b.shareSizeId, b.fillable]));
+	});
+
+	it('summarises the season', () => {
+		const s = summarizeMatching(boxes, rows);
+		// 3 boxes, 1 fills; weeks W24 (two short boxes) and W25 (fills) → 1 of 2.
+		expect([s.boxes, s.boxesFilled, s.weeks, s.weeksFilled]).toEqual([3, 1, 2, 1]);
+		// (0.9 + 0.8 + 1) / 3 = 0.9
+		expect(s.averageFill).toBeCloseTo(0.9, 9);
+		// Surplus: spinach 10 − 0 = 10 lb; chard 8 bunches; kale (12 − 10) + (12 − 10) = 4; carrot none.
+		expect(s.surplusByCrop.map((x) => [x.crop, Math.round(x.surplus * 1e6) / 1e6])).toEqual([
+			['spinach', 10],
+			['chard', 8],
+			['kale', 4]
+		]);
+	});
+});
+
+describe('suggestSubstitutes', () => {
+	const rows = rowsFor(demand);
+	const [full24, half24] = matchBoxes(rows, demand);
+
+	it('offers surplus crops of the same unit, sized to close the shortfall', () => {
+		// Carrot short 25 − 20 = 5 lb. Through the full share: 5 lb ÷ 10 members = 0.5 lb per box
+		// (a multiple of the 0.25 lb step, under the 2 lb in the box). Spinach surplus 10 lb ÷ 10 = 1 lb
+		// a box at most → 0.5 lb, and 10 × 0.5 = 5 lb covers the shortfall. Chard and kale are bunches: left out.
+		const carrot = full24.items.find((i) => i.crop === 'carrot')!;
+		expect(suggestSubstitutes(rows, full24, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.5, surplus: 10, covers: true }]);
+		// Through the half share: 5 lb ÷ 5 members = 1 lb, the whole item; spinach 10 ÷ 5 = 2 lb at most → 1 lb.
+		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf)).toEqual([{ crop: 'spinach', quantity: 1, surplus: 10, covers: true }]);
+	});
+
+	it('cuts the quantity to what the surplus gives every member, and says when it does not cover', () => {
+		// Spinach only 3 lb in surplus: 3 ÷ 10 = 0.3 → 0.25 lb per box (step 0.25, rounded down);
+		// 10 × 0.25 = 2.5 lb < 5 lb short → does not cover.
+		const lean = forecastFromSupply(supply.map((s) => (s.crop === 'spinach' ? { ...s, quantity: 3 } : s)), deriveTargets(demand));
+		const box = matchBoxes(lean, demand)[0];
+		const carrot = box.items.find((i) => i.crop === 'carrot')!;
+		expect(suggestSubstitutes(lean, box, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.25, surplus: 3, covers: false }]);
+		expect(swapStep('bunch')).toBe(1);
+	});
+
+	it('suggests nothing for an item that fills', () => {
+		const kale = full24.items.find((i) => i.crop === 'kale')!;
+		expect(suggestSubstitutes(rows, full24, kale, unitOf)).toEqual([]);
+	});
+});
+
+describe('applySwaps', () => {
+	it('moves the swapped quantity, and the fill follows', () => {
+		const swapped = applySwaps(demand, [{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 0.5 }]);
+		const full24 = swapped.boxItems.filter((b) => b.shareSizeId === 'full' && b.week === '2027-W24');
+		// 2 − 0.5 = 1.5 lb carrot; 0.5 lb spinach added; kale unchanged.
+		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([['carrot', 1.5], ['kale', 1], ['spinach', 0.5]]);
+		const boxes = matchBoxes(rowsFor(swapped), swapped);
+		// Carrot demand = 10 × 1.5 + 5 × 1 = 20 lb = supply → fill 1; spinach 10 × 0.5 = 5 lb ≤ 10 → 1.
+		// Full box W24 = mean(1, 1, 1) = 1, half box W24 = 1 (carrot now fully supplied).
+		expect(boxes.map((b) => b.fill)).toEqual([1, 1, 1]);
+		expect(summarizeMatching(boxes, rowsFor(swapped)).weeksFilled).toBe(2);
+		// The original input is untouched.
+		expect(demand.boxItems[0].quantity).toBe(2);
+	});
+
+	it('never moves more than the box holds', () => {
+		// Asking for 5 lb of a 2 lb item moves 2 lb: carrot leaves the box, spinach 2 lb arrives.
+		const swapped = applySwaps(demand, [{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 5 }]);
+		const full24 = swapped.boxItems.filter((b) => b.shareSizeId === 'full' && b.week === '2027-W24');
+		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([['kale', 1], ['spinach', 2]]);
+	});
+});
+
+describe('supplyWithActuals', () => {
+	// p1: carrot 14 lb a week over W24–W25 (Mon 14 Jun – Sun 27 Jun, 2 lb a day);
+	// p2: carrot 7 lb a week in W24 only.
+	const plantings = [
+		{ key: 'p1', crop: 'carrot', firstHarvest: '2027-06-14', lastHarvest: '2027-06-27', weeklyYield: 14 },
+		{ key: 'p2', crop: 'carrot', firstHarvest: '2027-06-14', lastHarvest: '2027-06-20', weeklyYield: 7 }
+	];
+	it('replaces a logged planting-week before the current week, and keeps the rest forecast', () => {
+		const actuals = [
+			{ key: 'p1', crop: 'carrot', date: '2027-06-16', quantity: 9 },
+			{ key: 'p1', crop: 'carrot', date: '2027-06-18', quantity: 3 },
+			// W25 is the current week: not yet replaced.
+			{ key: 'p1', crop: 'carrot', date: '2027-06-22', quantity: 30 }
+		];
+		const { supply: s, actual } = supplyWithActuals(plantings, actuals, '2027-W25');
+		const w = Object.fromEntries(s.map((x) => [x.week, x.quantity]));
+		// W24: p1 logged 9 + 3 = 12 instead of its 14, p2 still forecast 7 → 19. W25: p1 forecast 14.
+		expect(w['2027-W24']).toBeCloseTo(19, 9);
+		expect(w['2027-W25']).toBeCloseTo(14, 9);
+		expect([...actual].map((k) => k.split('\u0000').join(' '))).toEqual(['carrot 2027-W24']);
+	});
+	it('counts harvests of a planting that is no longer forecast', () => {
+		const { supply: s } = supplyWithActuals([], [{ key: 'p9', crop: 'beet', date: '2027-06-15', quantity: 4 }], '2027-W30');
+		expect(s).toEqual([{ crop: 'beet', week: '2027-W24', quantity: 4 }]);
+	});
+	it('feeds forecast(): the same totals as forecasting the plantings directly', () => {
+		// No actuals: W24 = 14 + 7 = 21, W25 = 14, as forecast() gives.
+		const direct = forecast(plantings, []);
+		const via = forecastFromSupply(supplyWithActuals(plantings, [], '2027-W01').supply, []);
+		expect(via.map((r) => [r.week, Math.round(r.supply * 1e9) / 1e9])).toEqual([['2027-W24', 21], ['2027-W25', 14]]);
+		expect(direct.map((r) => r.week)).toEqual(via.map((r) => r.week));
+	});
+});
