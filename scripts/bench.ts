@@ -2,6 +2,7 @@
 // be compared. Each figure is the median of several runs in one process.
 import { runEngineBench } from './bench-engine';
 import { runForecastBench } from './bench-forecast';
+import { runGridBench } from './bench-grid';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

@@ -29,6 +29,14 @@ export interface PlantingView {
 	status: string;
 	notes: string | null;
 	version: number;
+	/** Added for the planting grid; optional so older callers need not fill them. */
+	actualTraySowDate?: string | null;
+	actualFieldDate?: string | null;
+	actualFirstHarvest?: string | null;
+	actualLastHarvest?: string | null;
+	/** Who saved the current version, and when (ISO timestamp). */
+	updatedBy?: string | null;
+	updatedAt?: string | null;
 }
 
 export interface Block {

@@ -1,5 +1,12 @@
 // Plantings of a farm's seasons, with their variety, crop and bed joined in for display.
 import { db } from './db';
+import type { Knex } from 'knex';
+import type { Role } from '$lib/roles';
+import { editableFields, type PlantingCreate, type PlantingField, type PlantingPatch } from '$lib/schemas/planting';
+import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/components/grid/engine';
+import * as farmsData from './farms';
+import * as bedsData from './beds';
+import { listVarieties } from './crops';
 
 import type { PlantingView } from '$lib/types';
 
@@ -11,12 +18,14 @@ function base(farmId: number) {
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.leftJoin('blocks as k', 'k.id', 'b.block_id')
+		.leftJoin('users as u', 'u.id', 'p.updated_by')
 		.where('p.farm_id', farmId)
 		.select(
 			'p.id', 'p.season_id', 'p.variety_id', 'v.name as variety', 'c.name as crop', 'c.family', 'c.harvest_unit',
 			'p.bed_id', 'b.name as bed', 'k.name as block', 'k.position as block_position', 'b.position as bed_position',
 			'p.start_ft', 'p.length_ft', 'p.rows', 'p.in_row_spacing_in', 'p.seeds_per_spot', 'p.method', 'p.tray_sow_date',
-			'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.expected_yield', 'p.seeds_needed', 'p.status', 'p.notes', 'p.version'
+			'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.expected_yield', 'p.seeds_needed', 'p.status', 'p.notes', 'p.version',
+			'p.actual_tray_sow_date', 'p.actual_field_date', 'p.actual_first_harvest', 'p.actual_last_harvest', 'u.name as updated_by_name', 'p.updated_at'
 		);
 }
 
@@ -49,7 +58,13 @@ function toView(r: any): PlantingView {
 		seedsNeeded: r.seeds_needed,
 		status: r.status,
 		notes: r.notes,
-		version: r.version
+		version: r.version,
+		actualTraySowDate: r.actual_tray_sow_date ?? null,
+		actualFieldDate: r.actual_field_date ?? null,
+		actualFirstHarvest: r.actual_first_harvest ?? null,
+		actualLastHarvest: r.actual_last_harvest ?? null,
+		updatedBy: r.updated_by_name ?? null,
+		updatedAt: r.updated_at ? new Date(r.updated_at).toISOString() : null
 	};
 }
 
@@ -79,4 +94,184 @@ export async function tasksForWeek(farmId: number, monday: string, sunday: strin
 		transplanting: fieldViews.filter((p) => p.method === 'transplant'),
 		harvest: harvest.map(toView)
 	};
+}
+
+// ---- The planting grid's verbs: context, create (one row or a paste), update with a version, remove.
+// Derived columns (dates, expected yield, seeds) are recomputed here on every save by the same
+// engine the grid runs in the browser; what the browser sent for them is never trusted.
+
+export interface GridContext {
+	varieties: GridVariety[];
+	beds: GridBed[];
+	farm: GridFarm;
+}
+
+/** Everything the grid needs to recalculate rows in the browser the way the server will. */
+export async function gridContext(farmId: number): Promise<GridContext> {
+	const [farm, temps, varieties, beds] = await Promise.all([farmsData.get(farmId), farmsData.weeklyTemps(farmId), listVarieties(farmId), bedsData.list(farmId)]);
+	return {
+		varieties,
+		beds: beds.map((b) => ({ id: b.id, name: b.name, blockId: b.blockId, blockName: b.blockName, lengthFt: b.lengthFt })),
+		farm: {
+			lastSpringFrost: farm.lastSpringFrost,
+			firstFallFrost: farm.firstFallFrost,
+			latitude: farm.latitude,
+			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t])),
+			turnaroundDays: farm.turnaroundDays,
+			bedFootIncrement: farm.bedFootIncrement
+		}
+	};
+}
+
+export async function getOne(farmId: number, id: number, trx?: Knex.Transaction): Promise<PlantingView | null> {
+	const q = base(farmId).andWhere('p.id', id);
+	if (trx) q.transacting(trx);
+	const r = await q.first();
+	return r ? toView(r) : null;
+}
+
+/** Bad input that only the database can judge (another farm's variety or bed, a row the engine cannot work out). */
+export type FieldErrors = Record<string, string>;
+
+const columnOf: Record<PlantingField, string> = {
+	varietyId: 'variety_id',
+	bedId: 'bed_id',
+	startFt: 'start_ft',
+	lengthFt: 'length_ft',
+	rows: 'rows',
+	inRowSpacingIn: 'in_row_spacing_in',
+	seedsPerSpot: 'seeds_per_spot',
+	method: 'method',
+	fieldDate: 'field_date',
+	status: 'status',
+	actualTraySowDate: 'actual_tray_sow_date',
+	actualFieldDate: 'actual_field_date',
+	actualFirstHarvest: 'actual_first_harvest',
+	actualLastHarvest: 'actual_last_harvest',
+	notes: 'notes'
+};
+
+type Full = Required<{ [K in PlantingField]: NonNullable<PlantingCreate[K]> | null }>;
+
+/** The row as stored, with derived columns recomputed; errors keyed by field. */
+function buildRow(values: Full, variety: GridVariety | undefined, ctx: GridContext, prefix: string): { row?: Record<string, unknown>; errors: FieldErrors } {
+	const errors: FieldErrors = {};
+	if (!variety) errors[`${prefix}varietyId`] = 'Choose one of this farm\'s varieties.';
+	if (values.bedId !== null && !ctx.beds.some((b) => b.id === values.bedId)) errors[`${prefix}bedId`] = 'Choose one of this farm\'s beds.';
+	if (!variety || Object.keys(errors).length) return { errors };
+	const d = deriveRow(
+		{ method: values.method as 'direct' | 'transplant', fieldDate: values.fieldDate as string, lengthFt: values.lengthFt as number, rows: values.rows as number, inRowSpacingIn: values.inRowSpacingIn as number, seedsPerSpot: values.seedsPerSpot as number },
+		variety,
+		ctx.farm
+	);
+	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
+	const row: Record<string, unknown> = {};
+	for (const f of Object.keys(columnOf) as PlantingField[]) row[columnOf[f]] = values[f];
+	Object.assign(row, {
+		tray_sow_date: d.value.traySowDate,
+		first_harvest: d.value.firstHarvest,
+		last_harvest: d.value.lastHarvest,
+		expected_yield: d.value.expectedYield,
+		seeds_needed: d.value.seed.seeds
+	});
+	return { row, errors };
+}
+
+function withDefaults(input: PlantingCreate, v: GridVariety | undefined): Full {
+	return {
+		varietyId: input.varietyId,
+		bedId: input.bedId ?? null,
+		startFt: input.startFt ?? 0,
+		lengthFt: input.lengthFt,
+		rows: input.rows ?? v?.rows ?? 1,
+		inRowSpacingIn: input.inRowSpacingIn ?? v?.inRowSpacingIn ?? 6,
+		seedsPerSpot: input.seedsPerSpot ?? v?.seedsPerSpot ?? 1,
+		method: input.method ?? v?.method ?? 'direct',
+		fieldDate: input.fieldDate,
+		status: input.status ?? 'planned',
+		actualTraySowDate: input.actualTraySowDate ?? null,
+		actualFieldDate: input.actualFieldDate ?? null,
+		actualFirstHarvest: input.actualFirstHarvest ?? null,
+		actualLastHarvest: input.actualLastHarvest ?? null,
+		notes: input.notes ?? null
+	};
+}
+
+export type CreateResult = { ok: true; plantings: PlantingView[] } | { ok: false; errors: FieldErrors };
+
+/** New rows (one, or a whole paste) in one transaction: all of them or none. */
+export async function create(farmId: number, seasonId: number, userId: string, inputs: PlantingCreate[]): Promise<CreateResult> {
+	const ctx = await gridContext(farmId);
+	const byId = new Map(ctx.varieties.map((v) => [v.id, v]));
+	const rows: Record<string, unknown>[] = [];
+	const errors: FieldErrors = {};
+	inputs.forEach((input, i) => {
+		const v = byId.get(input.varietyId);
+		const built = buildRow(withDefaults(input, v), v, ctx, `plantings.${i}.`);
+		Object.assign(errors, built.errors);
+		if (built.row) rows.push({ ...built.row, farm_id: farmId, season_id: seasonId, updated_by: userId });
+	});
+	if (Object.keys(errors).length) return { ok: false, errors };
+	const ids = await db().transaction(async (trx) => {
+		const out: number[] = [];
+		// One INSERT per row: MariaDB reports only the first id of a multi-row insert.
+		for (const r of rows) out.push(...(await trx('plantings').insert(r)));
+		return out;
+	});
+	const views = (await base(farmId).whereIn('p.id', ids)).map(toView);
+	const order = new Map(ids.map((id, i) => [id, i]));
+	views.sort((a, b) => (order.get(a.id) ?? 0) - (order.get(b.id) ?? 0));
+	return { ok: true, plantings: views };
+}
+
+export type UpdateResult =
+	| { kind: 'ok'; planting: PlantingView }
+	| { kind: 'not_found' }
+	| { kind: 'forbidden'; fields: string[] }
+	| { kind: 'conflict'; current: PlantingView }
+	| { kind: 'invalid'; errors: FieldErrors };
+
+/** An edit made on `patch.version`; a stale version is refused with the row as it now stands. */
+export async function update(farmId: number, id: number, user: { id: string; role: Role }, patch: PlantingPatch): Promise<UpdateResult> {
+	const { version, ...changes } = patch;
+	const allowed = editableFields(user.role);
+	const refused = Object.keys(changes).filter((f) => !allowed.includes(f as PlantingField));
+	if (refused.length) return { kind: 'forbidden', fields: refused };
+	const ctx = await gridContext(farmId);
+	return db().transaction(async (trx) => {
+		const cur = await trx('plantings').where({ id, farm_id: farmId }).forUpdate().first();
+		if (!cur) return { kind: 'not_found' } as const;
+		if (cur.version !== version) {
+			const current = await getOne(farmId, id, trx);
+			return { kind: 'conflict', current: current! } as const;
+		}
+		const values = { ...rowValues(cur), ...changes } as Full;
+		const built = buildRow(values, ctx.varieties.find((v) => v.id === values.varietyId), ctx, '');
+		if (!built.row) return { kind: 'invalid', errors: built.errors } as const;
+		await trx('plantings').where({ id, farm_id: farmId }).update({ ...built.row, version: version + 1, updated_by: user.id, updated_at: trx.fn.now() });
+		return { kind: 'ok', planting: (await getOne(farmId, id, trx))! } as const;
+	});
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function rowValues(r: any): Full {
+	const out = {} as Record<string, unknown>;
+	for (const [f, c] of Object.entries(columnOf)) out[f] = ['start_ft', 'length_ft', 'in_row_spacing_in'].includes(c) ? Number(r[c]) : r[c];
+	return out as Full;
+}
+
+/**
+ * Removes a planting; returns it as it was, so the grid can offer to put it back (POST).
+ * A planting with harvests logged is refused ('has_harvests'): deleting it would take the
+ * harvest records with it (ON DELETE CASCADE), and undo could not bring those back.
+ */
+export async function remove(farmId: number, id: number): Promise<PlantingView | null | 'has_harvests'> {
+	return db().transaction(async (trx) => {
+		const view = await getOne(farmId, id, trx);
+		if (!view) return null;
+		const logged = await trx('harvest_records').where({ planting_id: id }).first('id');
+		if (logged) return 'has_harvests' as const;
+		await trx('plantings').where({ id, farm_id: farmId }).delete();
+		return view;
+	});
 }

@@ -1,14 +1,25 @@
-import { error, json } from '@sveltejs/kit';
+import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireUser } from '$lib/server/guards';
-import * as seasons from '$lib/server/seasons';
-import { listForSeason } from '$lib/server/plantings';
+import { requireRole, requireUser } from '$lib/server/guards';
+import { parseBody, seasonFromParams } from '$lib/server/api';
+import { create, gridContext, listForSeason } from '$lib/server/plantings';
+import { editableFields, plantingBatchSchema } from '$lib/schemas/planting';
 
+// `{ season, plantings }` as before, plus what the grid needs to recalculate in the browser.
 export const GET: RequestHandler = async (event) => {
 	const { farm } = requireUser(event);
-	const id = Number(event.params.id);
-	// Another farm's season answers exactly like a missing one.
-	const season = Number.isInteger(id) ? await seasons.get(farm.id, id) : null;
-	if (!season) error(404, 'No such season on this farm.');
-	return json({ season, plantings: await listForSeason(farm.id, season.id) });
+	const season = await seasonFromParams(farm.id, event.params.id);
+	const [plantings, context] = await Promise.all([listForSeason(farm.id, season.id), gridContext(farm.id)]);
+	return json({ season, plantings, ...context, role: farm.role, editable: editableFields(farm.role) });
+};
+
+/** New rows: `{ plantings: [...] }`, one or a whole paste; all are written or none. */
+export const POST: RequestHandler = async (event) => {
+	const { user, farm } = requireRole(event, 'owner');
+	const season = await seasonFromParams(farm.id, event.params.id);
+	const body = await parseBody(event, plantingBatchSchema);
+	if (!body.ok) return body.response;
+	const result = await create(farm.id, season.id, user.id, body.data.plantings);
+	if (!result.ok) return json({ message: `Invalid input: ${Object.entries(result.errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: result.errors }, { status: 400 });
+	return json({ plantings: result.plantings }, { status: 201 });
 };

@@ -1,0 +1,189 @@
+// The grid's columns: what each shows, how it is typed or pasted, and which field it edits.
+import { formatWeekDate } from '$lib/planning';
+import { checkCell, plantingStatuses, type CellCheck, type PlantingField } from '$lib/schemas/planting';
+import type { GridRow } from './rows';
+import type { GridBed, GridVariety } from './engine';
+
+export type ColumnKind = 'text' | 'number' | 'date' | 'select';
+
+export interface Lookups {
+	varieties: GridVariety[];
+	varietyById: Map<number, GridVariety>;
+	beds: GridBed[];
+	bedById: Map<number, GridBed>;
+}
+
+export interface GridColumn {
+	id: string;
+	label: string;
+	/** The field it edits; derived columns have none. */
+	field?: PlantingField;
+	/** The crop column edits the variety (a crop is chosen through one of its varieties). */
+	kind: ColumnKind;
+	width: number;
+	numeric?: boolean;
+	/** Display text, with its unit. */
+	show(row: GridRow, l: Lookups): string;
+	/** The value to sort by. */
+	sortValue(row: GridRow, l: Lookups): string | number;
+	/** Text an editor starts from, and what a copy puts on the clipboard. */
+	text?(row: GridRow, l: Lookups): string;
+	/** Dropdown choices (label → value) for select columns. */
+	options?(row: GridRow, l: Lookups): { label: string; value: string }[];
+}
+
+// One formatter, made once: toLocaleString builds a new one per call, too slow for hundreds of cells per edit.
+const numberFormat = new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 });
+const n = (x: number): string => numberFormat.format(x);
+const wd = (d: string | null | undefined): string => (d ? formatWeekDate(d) : '');
+export const bedLabel = (b: GridBed): string => `${b.blockName} · ${b.name}`;
+
+function unitOf(row: GridRow, l: Lookups): string {
+	return l.varietyById.get(row.values.varietyId)?.harvestUnit ?? '';
+}
+
+export const columns: GridColumn[] = [
+	{
+		id: 'crop', label: 'Crop', field: 'varietyId', kind: 'select', width: 120,
+		show: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '?',
+		sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
+		text: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
+		// Choosing a crop picks its first variety; the variety column then narrows to that crop.
+		options: (_r, l) => {
+			const seen = new Map<string, number>();
+			for (const v of l.varieties) if (!seen.has(v.crop)) seen.set(v.crop, v.id);
+			return [...seen].map(([label, id]) => ({ label, value: String(id) }));
+		}
+	},
+	{
+		id: 'variety', label: 'Variety', field: 'varietyId', kind: 'select', width: 140,
+		show: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '?',
+		sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
+		text: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
+		options: (r, l) => {
+			const crop = l.varietyById.get(r.values.varietyId)?.crop;
+			return l.varieties.filter((v) => v.crop === crop).map((v) => ({ label: v.name, value: String(v.id) }));
+		}
+	},
+	{
+		id: 'bed', label: 'Bed', field: 'bedId', kind: 'select', width: 130,
+		show: (r, l) => (r.values.bedId === null ? 'not placed' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '?'),
+		sortValue: (r, l) => (r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
+		text: (r, l) => (r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
+		options: (_r, l) => [{ label: 'not placed', value: '' }, ...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))]
+	},
+	num('startFt', 'Start', 'ft', 70, 'startFt'),
+	num('lengthFt', 'Bed-feet', 'ft', 80, 'lengthFt'),
+	num('rows', 'Rows', 'rows', 64, 'rows'),
+	num('spacing', 'Spacing', 'in', 72, 'inRowSpacingIn'),
+	num('seedsPerSpot', 'Seeds/spot', 'seeds', 80, 'seedsPerSpot'),
+	{
+		id: 'method', label: 'Method', field: 'method', kind: 'select', width: 96,
+		show: (r) => r.values.method, sortValue: (r) => r.values.method, text: (r) => r.values.method,
+		options: () => [{ label: 'direct', value: 'direct' }, { label: 'transplant', value: 'transplant' }]
+	},
+	{
+		id: 'fieldDate', label: 'Field date', field: 'fieldDate', kind: 'date', width: 140,
+		show: (r) => wd(r.values.fieldDate), sortValue: (r) => r.values.fieldDate, text: (r) => r.values.fieldDate
+	},
+	{
+		id: 'status', label: 'Status', field: 'status', kind: 'select', width: 104,
+		show: (r) => r.values.status, sortValue: (r) => plantingStatuses.indexOf(r.values.status), text: (r) => r.values.status,
+		options: () => plantingStatuses.map((s) => ({ label: s, value: s }))
+	},
+	derivedDate('traySow', 'Tray sowing', (r) => r.derived?.traySowDate ?? null),
+	derivedDate('firstHarvest', 'First harvest', (r) => r.derived?.firstHarvest ?? null),
+	derivedDate('lastHarvest', 'Last harvest', (r) => r.derived?.lastHarvest ?? null),
+	derivedNum('weeklyYield', 'Weekly yield', (r) => r.derived?.weeklyYield, unitOf, 96),
+	derivedNum('totalYield', 'Total yield', (r) => r.derived?.expectedYield, unitOf, 96),
+	derivedNum('seeds', 'Seeds', (r) => r.derived?.seed.seeds, () => 'seeds', 96),
+	derivedNum('grams', 'Seed', (r) => r.derived?.seed.grams, () => 'g', 80),
+	derivedNum('cells', 'Cells', (r) => (r.values.method === 'transplant' ? r.derived?.seed.cells : undefined), () => 'cells', 84),
+	derivedNum('trays', 'Trays', (r) => (r.values.method === 'transplant' ? r.derived?.seed.trays : undefined), () => 'trays', 72),
+	{
+		id: 'warnings', label: 'Warnings', kind: 'text', width: 160,
+		show: (r) => warningLabels(r).join(', '), sortValue: (r) => warningLabels(r).length, text: (r) => warningLabels(r).join(', ')
+	},
+	dateCol('actualTraySow', 'Sown in tray', 'actualTraySowDate'),
+	dateCol('actualField', 'In field', 'actualFieldDate'),
+	dateCol('actualFirst', 'Harvest began', 'actualFirstHarvest'),
+	dateCol('actualLast', 'Harvest ended', 'actualLastHarvest'),
+	{
+		id: 'notes', label: 'Notes', field: 'notes', kind: 'text', width: 200,
+		show: (r) => r.values.notes ?? '', sortValue: (r) => r.values.notes ?? '', text: (r) => r.values.notes ?? ''
+	}
+];
+
+const warningNames: Record<string, string> = {
+	frost_before_last_spring: 'frost (spring)',
+	frost_after_first_fall: 'frost (fall)',
+	heat_in_harvest: 'heat',
+	overlap: 'overlap',
+	past_bed_end: 'past bed end',
+	unknown_bed: 'unknown bed',
+	gdd_not_met: 'degree days short',
+	gdd_data_missing: 'no temperatures'
+};
+
+/** Short names of a row's warnings (engine warnings and bed conflicts). */
+export function warningLabels(r: GridRow): string[] {
+	const codes = new Set<string>();
+	for (const w of r.derived?.warnings ?? []) codes.add(w.code);
+	for (const c of r.conflicts) codes.add(c.code);
+	if (r.deriveError) codes.add('error');
+	return [...codes].map((c) => warningNames[c] ?? c);
+}
+
+function num(id: string, label: string, unit: string, width: number, field: PlantingField): GridColumn {
+	const get = (r: GridRow): number => r.values[field] as number;
+	return { id, label, field, kind: 'number', width, numeric: true, show: (r) => `${n(get(r))} ${unit}`, sortValue: get, text: (r) => String(get(r)) };
+}
+
+function derivedDate(id: string, label: string, get: (r: GridRow) => string | null): GridColumn {
+	return { id, label, kind: 'date', width: 140, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
+}
+
+function derivedNum(id: string, label: string, get: (r: GridRow) => number | undefined, unit: (r: GridRow, l: Lookups) => string, width: number): GridColumn {
+	return {
+		id, label, kind: 'number', width, numeric: true,
+		show: (r, l) => (get(r) === undefined ? '' : `${n(get(r)!)} ${unit(r, l)}`),
+		sortValue: (r) => get(r) ?? -1,
+		text: (r) => (get(r) === undefined ? '' : String(get(r)))
+	};
+}
+
+function dateCol(id: string, label: string, field: PlantingField): GridColumn {
+	const get = (r: GridRow): string | null => r.values[field] as string | null;
+	return { id, label, field, kind: 'date', width: 130, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
+}
+
+export const columnById = new Map(columns.map((c) => [c.id, c]));
+
+/**
+ * A typed or pasted text turned into the field's value: names of crops, varieties and beds
+ * become ids; anything else goes through the field's own zod schema (shared with the server).
+ */
+export function readCell(col: GridColumn, text: string, row: GridRow, l: Lookups): CellCheck {
+	if (!col.field) return { ok: false, message: `${col.label} is worked out, not typed.` };
+	const t = text.trim();
+	const low = t.toLowerCase();
+	if (col.id === 'crop') {
+		const cur = l.varietyById.get(row.values.varietyId);
+		if (cur && cur.crop.toLowerCase() === low) return { ok: true, value: cur.id };
+		const v = l.varieties.find((x) => x.crop.toLowerCase() === low);
+		return v ? { ok: true, value: v.id } : { ok: false, message: `No crop named "${t}" in the crop library.` };
+	}
+	if (col.id === 'variety') {
+		const crop = l.varietyById.get(row.values.varietyId)?.crop;
+		const v = l.varieties.find((x) => x.name.toLowerCase() === low && x.crop === crop) ?? l.varieties.find((x) => x.name.toLowerCase() === low);
+		return v ? { ok: true, value: v.id } : { ok: false, message: `No variety named "${t}" in the crop library.` };
+	}
+	if (col.id === 'bed') {
+		if (t === '' || low === 'not placed') return { ok: true, value: null };
+		const b = l.beds.find((x) => bedLabel(x).toLowerCase() === low) ?? l.beds.find((x) => x.name.toLowerCase() === low);
+		return b ? { ok: true, value: b.id } : { ok: false, message: `No bed named "${t}" on this farm.` };
+	}
+	// A pasted number may carry its unit ("25 ft"): keep the figure.
+	const raw = col.kind === 'number' ? t.replace(/\s*(ft|in|rows?|seeds?)$/i, '') : t;
+	return checkCell(col.field, raw);
+}

@@ -1,0 +1,177 @@
+/**
+ * Derived figures of one edited planting, worked forwards from its field date: the grid
+ * recalculates them in the browser on every keystroke, and the server recomputes them
+ * authoritatively on save — the same function in both places.
+ *
+ * The succession planner works backwards from a first harvest; a grower editing the grid
+ * sets the field date instead, so here first harvest = field date + effective days to
+ * maturity. Effective days depend on the first-harvest date itself (short days, degree
+ * days), so it is found by a short fixed-point walk over the same `effectiveDaysToMaturity`.
+ */
+import { checkBedConflicts, type BedConflict } from './bed-conflicts';
+import type { Bed, BedPlanting } from './bed-types';
+import { fromDayNumber, toDayNumber } from './day-number';
+import { effectiveDaysToMaturity, type EffectiveDtm } from './effective-dtm';
+import { formatWeekDate } from './iso-week';
+import { successionWarnings } from './plan-warnings';
+import { explainSeed } from './explain';
+import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
+import type { ExplainStep, PlanningWarning, SowingMethod, Variety } from './types';
+import { makeTempLookup, type WeeklyMeanTempF } from './weekly-temps';
+
+export interface DeriveFarm {
+	lastSpringFrost: string;
+	firstFallFrost: string;
+	latitude: number;
+	weeklyMeanTempF?: WeeklyMeanTempF;
+	shortDayAllowanceDays?: number;
+	shortDayThresholdHours?: number;
+}
+
+/** The editable facts of a planting that the derived figures depend on. */
+export interface DeriveInput {
+	method: SowingMethod;
+	fieldDate: string;
+	lengthFt: number;
+	rows: number;
+	inRowSpacingIn: number;
+	seedsPerSpot: number;
+}
+
+export interface DerivedPlanting {
+	traySowDate: string | null;
+	firstHarvest: string;
+	lastHarvest: string;
+	/** Harvest units over the whole window. */
+	expectedYield: number;
+	/** Harvest units per week of the window (flat curve). */
+	weeklyYield: number;
+	seed: SeedNeed;
+	dtm: EffectiveDtm;
+	warnings: PlanningWarning[];
+	explain: ExplainStep[];
+}
+
+// Default margin when a variety gives none, as the succession planner uses (options.seedMargin).
+const DEFAULT_SEED_MARGIN = 0.1;
+// Cells per tray assumed for a transplant whose variety gives none (a common 128-cell tray).
+const DEFAULT_CELLS_PER_TRAY = 128;
+
+type Context = { farm: DeriveFarm; temps?: ReturnType<typeof makeTempLookup>; frost: { last: number; first: number } };
+const contexts = new WeakMap<DeriveFarm, Context>();
+function contextOf(farm: DeriveFarm): Context {
+	let c = contexts.get(farm);
+	if (!c) {
+		c = {
+			farm,
+			temps: farm.weeklyMeanTempF && Object.keys(farm.weeklyMeanTempF).length > 0 ? makeTempLookup(farm.weeklyMeanTempF) : undefined,
+			frost: { last: toDayNumber(farm.lastSpringFrost, 'farm.lastSpringFrost'), first: toDayNumber(farm.firstFallFrost, 'farm.firstFallFrost') }
+		};
+		contexts.set(farm, c);
+	}
+	return c;
+}
+
+export function seedInputOf(p: DeriveInput, v: Variety): SeedNeedInput {
+	return {
+		method: p.method,
+		bedFeet: p.lengthFt,
+		rows: p.rows,
+		inRowSpacingIn: p.inRowSpacingIn,
+		seedsPerSpot: p.seedsPerSpot,
+		germinationRate: v.germinationRate,
+		seedsPerGram: v.seedsPerGram,
+		margin: v.margin ?? DEFAULT_SEED_MARGIN,
+		cellsPerTray: p.method === 'transplant' ? (v.cellsPerTray ?? DEFAULT_CELLS_PER_TRAY) : undefined,
+		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
+		seedsPerPacket: v.seedsPerPacket
+	};
+}
+
+/** Dates, yield, seed, frost/heat warnings and the explanation of one planting. Throws PlanningInputError on bad input. */
+export function derivePlanting(p: DeriveInput, v: Variety, farm: DeriveFarm, opts: { explain?: boolean } = {}): DerivedPlanting {
+	const ctx = contextOf(farm);
+	const field = toDayNumber(p.fieldDate, 'fieldDate');
+	const dtmCtx = {
+		latitude: farm.latitude,
+		shortDayAllowanceDays: farm.shortDayAllowanceDays ?? 14,
+		shortDayThresholdHours: farm.shortDayThresholdHours ?? 10,
+		gddWalkLimitDays: 365,
+		temps: ctx.temps
+	};
+	// Fixed point of first = field + dtm(first); a few steps settle it (the short-day rule
+	// adds a constant; degree days change slowly). If it cycles at a threshold, the later date stands.
+	let first = field + v.daysToMaturity;
+	let dtm = effectiveDaysToMaturity(v, first, dtmCtx);
+	for (let i = 0; i < 4 && field + dtm.days !== first; i++) {
+		first = Math.max(first, field + dtm.days);
+		dtm = effectiveDaysToMaturity(v, first, dtmCtx);
+	}
+	const last = first + v.harvestWindowDays - 1;
+	const tray = p.method === 'transplant' ? field - (v.daysInTray ?? 0) : null;
+	const expectedYield = Math.round(p.lengthFt * v.yieldPerBedFoot * 100) / 100;
+	const weeklyYield = Math.round((expectedYield / (v.harvestWindowDays / 7)) * 100) / 100;
+	const seedInput = seedInputOf(p, v);
+	const seed = seedNeed(seedInput);
+	const warnings = [...dtm.warnings, ...successionWarnings(v, field, first, last, { lastSpringFrost: ctx.frost.last, firstFallFrost: ctx.frost.first, temps: ctx.temps })];
+	const fieldLabel = p.method === 'direct' ? 'sowing date' : 'transplant date';
+	const out: DerivedPlanting = {
+		traySowDate: tray === null ? null : fromDayNumber(tray),
+		firstHarvest: fromDayNumber(first),
+		lastHarvest: fromDayNumber(last),
+		expectedYield,
+		weeklyYield,
+		seed,
+		dtm,
+		warnings,
+		explain: []
+	};
+	// The explanation is text for a hover panel: built only when asked, so 5,000 rows derive fast.
+	if (opts.explain === false) return out;
+	const explain: ExplainStep[] = [
+		{ label: fieldLabel, value: formatWeekDate(p.fieldDate), formula: 'as entered' },
+		{ label: 'days to maturity (variety)', value: dtm.varietyDays, unit: 'days' },
+		dtm.source === 'gdd' && dtm.gdd
+			? { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `degree days: Σ max(0, weekly mean − ${dtm.gdd.baseF} °F) = ${dtm.gdd.accumulated.toFixed(1)} ≥ ${dtm.gdd.required}` }
+			: dtm.source === 'short_day'
+				? { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `${dtm.varietyDays} + ${dtm.allowanceDays} short-day allowance (day length ${dtm.dayLengthHours.toFixed(2)} h < ${dtm.thresholdHours} h at first harvest)` }
+				: { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `variety figure (day length ${dtm.dayLengthHours.toFixed(2)} h at first harvest)` },
+		{ label: 'first harvest', value: formatWeekDate(fromDayNumber(first)), formula: `${fieldLabel} + ${dtm.days} days` },
+		{ label: 'last harvest', value: formatWeekDate(fromDayNumber(last)), formula: `first harvest + ${v.harvestWindowDays} − 1 days` }
+	];
+	if (tray !== null) explain.push({ label: 'tray sowing', value: formatWeekDate(fromDayNumber(tray)), formula: `transplant date − ${v.daysInTray ?? 0} days in tray` });
+	explain.push(
+		{ label: 'expected yield', value: expectedYield, formula: `${p.lengthFt} ft × ${v.yieldPerBedFoot} per bed-foot over the window` },
+		{ label: 'weekly yield', value: weeklyYield, formula: `${expectedYield} ÷ (${v.harvestWindowDays} days ÷ 7)` },
+		...explainSeed(seedInput)
+	);
+	out.explain = explain;
+	return out;
+}
+
+/** A planting as the bed checks see it; bedless plantings are left out (nothing to overlap). */
+export interface ConflictRow {
+	id: number | string;
+	bedId: number | string | null;
+	startFt: number;
+	lengthFt: number;
+	fieldDate: string;
+	lastHarvest: string;
+}
+
+/** Overlap and past-the-bed-end conflicts, keyed by planting id as a string. */
+export function plantingConflicts(rows: ConflictRow[], beds: { id: number | string; lengthFt: number }[], turnaroundDays: number): Map<string, BedConflict[]> {
+	const bp: BedPlanting[] = [];
+	for (const r of rows) {
+		if (r.bedId === null) continue;
+		bp.push({ key: String(r.id), bedId: String(r.bedId), startFt: r.startFt, lengthFt: r.lengthFt, fieldDate: r.fieldDate, lastHarvest: r.lastHarvest });
+	}
+	const bedList: Bed[] = beds.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt }));
+	const out = new Map<string, BedConflict[]>();
+	for (const c of checkBedConflicts(bp, bedList, turnaroundDays)) {
+		const list = out.get(c.plantingKey) ?? [];
+		list.push(c);
+		out.set(c.plantingKey, list);
+	}
+	return out;
+}

@@ -1,0 +1,164 @@
+// The planting grid in headless Chromium: keyboard edits recalculate derived cells, a pasted
+// 3×4 block, fill down, undo/redo, a stale edit from a second browser meets the conflict
+// message without losing data, and a crew lead cannot edit crop or bed-feet.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launch, signIn, type BrowserSession, type Page } from '../helpers/browser';
+import { demo } from '../helpers/env';
+import { closeTestDb, testDb } from '../helpers/db';
+import { signedIn } from '../helpers/http';
+
+let browser: BrowserSession;
+let seasonId: number;
+let ids: number[] = [];
+
+beforeAll(async () => {
+	browser = await launch({ viewport: { width: 1600, height: 900 } });
+	const u = await testDb()('users').where({ email: demo.owner }).first('id');
+	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
+	// A season of its own, so these edits never touch the demo season other tests read.
+	[seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year: 2031, name: '2031 grid test (invented)', starts_on: '2031-01-01', ends_on: '2031-12-31' });
+	const variety = await testDb()('varieties').where({ farm_id: farmId, method: 'direct' }).whereNull('gdd_to_maturity').first('id');
+	const bed = await testDb()('beds').where({ farm_id: farmId }).orderBy('length_ft', 'desc').first('id');
+	const owner = await signedIn(demo.owner, demo.password);
+	const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', {
+		plantings: [0, 1, 2, 3].map((i) => ({ varietyId: variety.id, bedId: bed.id, startFt: i * 25, lengthFt: 20, fieldDate: '2031-05-05' }))
+	});
+	ids = (await res.json()).plantings.map((p: { id: number }) => p.id);
+});
+afterAll(async () => {
+	await testDb()('plantings').where({ season_id: seasonId }).delete();
+	await testDb()('seasons').where({ id: seasonId }).delete();
+	await closeTestDb();
+	await browser.close();
+});
+
+const cell = (page: Page, row: number, col: string) => page.locator(`[data-row="${row}"] [data-col="${col}"]`);
+
+async function openGrid(page: Page, email: string): Promise<void> {
+	await signIn(page, email, demo.password);
+	await page.goto(`/seasons/${seasonId}/plantings`);
+	await page.locator('[data-row="0"]').waitFor();
+}
+
+async function saved(page: Page): Promise<void> {
+	await page.getByTestId('save-status').getByText('All changes saved').waitFor({ timeout: 10_000 });
+}
+
+async function paste(page: Page, text: string): Promise<void> {
+	await page.getByTestId('grid').evaluate((el, t) => {
+		const data = new DataTransfer();
+		data.setData('text/plain', t);
+		el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+	}, text);
+}
+
+describe('the owner drives the grid from the keyboard', () => {
+	let page: Page;
+	beforeAll(async () => {
+		page = await browser.context.newPage();
+		await openGrid(page, demo.owner);
+	});
+	afterAll(async () => {
+		await page.close();
+		await browser.context.clearCookies();
+	});
+
+	it('edits bed-feet with the keyboard and sees yield and seed change at once', async () => {
+		const seedsBefore = await cell(page, 0, 'seeds').innerText();
+		await cell(page, 0, 'lengthFt').click();
+		await page.keyboard.type('40');
+		await page.keyboard.press('Enter');
+		await expect(cell(page, 0, 'lengthFt').innerText()).resolves.toBe('40 ft');
+		const seedsAfter = await cell(page, 0, 'seeds').innerText();
+		// Twice the bed-feet: about twice the seed (spots are floored per row, so allow a seed or two).
+		const n = (s: string) => Number(s.replace(/[^\d.]/g, ''));
+		expect(n(seedsAfter) / n(seedsBefore)).toBeCloseTo(2, 1);
+		await saved(page);
+		expect(Number((await testDb()('plantings').where({ id: ids[0] }).first('length_ft')).length_ft)).toBe(40);
+	});
+
+	it('pastes a 3×4 block of tab-separated text', async () => {
+		await cell(page, 1, 'startFt').click();
+		await paste(page, '26\t15\t2\t3\n51\t16\t3\t4\n76\t17\t4\t5');
+		await expect(cell(page, 1, 'startFt').innerText()).resolves.toBe('26 ft');
+		await expect(cell(page, 3, 'spacing').innerText()).resolves.toBe('5 in');
+		await expect(cell(page, 2, 'rows').innerText()).resolves.toBe('3 rows');
+		await saved(page);
+		const r = await testDb()('plantings').where({ id: ids[3] }).first();
+		expect([Number(r.start_ft), Number(r.length_ft), r.rows, Number(r.in_row_spacing_in)]).toEqual([76, 17, 4, 5]);
+	});
+
+	it('names the bad cell of a paste and saves the good ones only on confirmation', async () => {
+		await cell(page, 0, 'notes').click();
+		await paste(page, 'good note\nx\n');
+		await cell(page, 0, 'rows').click();
+		await paste(page, '2\nmany');
+		await expect(page.getByTestId('paste-review').innerText()).resolves.toContain('Row 2, Rows: “many”');
+		await page.getByRole('button', { name: /Save the 1 good cell/ }).click();
+		await expect(cell(page, 0, 'rows').innerText()).resolves.toBe('2 rows');
+	});
+
+	it('fills down with Ctrl+D, then undoes and redoes it', async () => {
+		await cell(page, 0, 'lengthFt').click();
+		await cell(page, 2, 'lengthFt').click({ modifiers: ['Shift'] });
+		await page.keyboard.press('Control+d');
+		await expect(cell(page, 2, 'lengthFt').innerText()).resolves.toBe('40 ft');
+		await expect(cell(page, 1, 'lengthFt').innerText()).resolves.toBe('40 ft');
+		await page.keyboard.press('Control+z');
+		await expect(cell(page, 2, 'lengthFt').innerText()).resolves.toBe('16 ft');
+		await page.keyboard.press('Control+y');
+		await expect(cell(page, 2, 'lengthFt').innerText()).resolves.toBe('40 ft');
+		await saved(page);
+	});
+});
+
+describe('two people edit the same planting', () => {
+	it('the stale edit gets the conflict message naming who won, and nothing is lost', async () => {
+		const other = await launch();
+		const a = await browser.context.newPage();
+		const b = await other.context.newPage();
+		await openGrid(a, demo.owner);
+		await openGrid(b, demo.crew);
+		// The crew lead saves first.
+		await cell(b, 3, 'notes').click();
+		await b.keyboard.type('crew was here');
+		await b.keyboard.press('Enter');
+		await saved(b);
+		// The owner's page still holds the old version.
+		await cell(a, 3, 'notes').click();
+		await a.keyboard.type('owner note');
+		await a.keyboard.press('Enter');
+		const conflict = a.getByTestId('conflicts');
+		await conflict.waitFor();
+		await expect(conflict.innerText()).resolves.toMatch(/Demo Crew|crew/i);
+		await expect(conflict.innerText()).resolves.toContain('owner note');
+		await expect(cell(a, 3, 'notes').innerText()).resolves.toBe('crew was here');
+		await a.getByRole('button', { name: 'Re-apply my edit' }).click();
+		await saved(a);
+		expect((await testDb()('plantings').where({ id: ids[3] }).first('notes')).notes).toBe('owner note');
+		await a.close();
+		await browser.context.clearCookies();
+		await other.close();
+	});
+});
+
+describe('roles', () => {
+	it('a crew lead cannot edit crop or bed-feet, but can set the status', async () => {
+		const page = await browser.context.newPage();
+		await openGrid(page, demo.crew);
+		await expect(cell(page, 0, 'crop').getAttribute('aria-readonly')).resolves.toBe('true');
+		await cell(page, 0, 'lengthFt').click();
+		await page.keyboard.press('Enter');
+		await expect(page.getByTestId('cell-editor').count()).resolves.toBe(0);
+		await expect(page.getByTestId('grid-message').innerText()).resolves.toContain('read-only');
+		await cell(page, 0, 'status').click();
+		await page.keyboard.press('Enter');
+		await page.getByTestId('cell-editor').fill('sow');
+		await page.keyboard.press('Enter');
+		await expect(cell(page, 0, 'status').innerText()).resolves.toBe('sown');
+		await saved(page);
+		expect((await testDb()('plantings').where({ id: ids[0] }).first('status')).status).toBe('sown');
+		await page.close();
+		await browser.context.clearCookies();
+	});
+});

@@ -1,0 +1,227 @@
+// The grid's state without a browser: edits recalculate derived figures, undo/redo, fill down,
+// paste validation, and the save queue's batching and 409 handling against a stand-in server.
+import { describe, expect, it } from 'vitest';
+import { GridState, UNDO_LIMIT } from '../../src/lib/components/grid/grid-state.svelte';
+import type { ApiAnswer, GridApi } from '../../src/lib/components/grid/save-queue.svelte';
+import type { GridVariety } from '../../src/lib/components/grid/engine';
+import type { PlantingView } from '../../src/lib/types';
+
+const carrot: GridVariety = {
+	id: 1, cropId: 1, crop: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', frostTolerance: 'hardy', heatLimitF: null, baseTempF: 40,
+	name: 'Invented Orange', method: 'direct', daysToMaturity: 70, daysInTray: 0, harvestWindowDays: 14, yieldPerBedFoot: 1.5,
+	rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, germinationRate: 0.65, seedsPerGram: 776.03, seedPriceCentsPerGram: 0,
+	seedsPerPacket: null, cellsPerTray: 128, margin: 0.1, gddToMaturity: null
+};
+const lettuce: GridVariety = { ...carrot, id: 2, cropId: 2, crop: 'Lettuce', family: 'Asteraceae', harvestUnit: 'head', name: 'Invented Green', method: 'transplant', daysToMaturity: 30, daysInTray: 28, inRowSpacingIn: 12, rows: 3, seedsPerSpot: 1, germinationRate: 0.9 };
+
+function planting(id: number, over: Partial<PlantingView> = {}): PlantingView {
+	return {
+		id, seasonId: 1, varietyId: 1, variety: 'Invented Orange', crop: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', bedId: 10, bed: 'B1', block: 'North',
+		blockPosition: 1, bedPosition: 1, startFt: 0, lengthFt: 60, rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, method: 'direct', traySowDate: null,
+		fieldDate: '2026-04-20', firstHarvest: '2026-06-29', lastHarvest: '2026-07-12', expectedYield: 90, seedsNeeded: 9748, status: 'planned', notes: null, version: 1,
+		...over
+	};
+}
+
+class FakeApi implements GridApi {
+	calls: { kind: string; id?: number; body: unknown }[] = [];
+	answer: (kind: string, id: number | undefined, body: unknown) => ApiAnswer = (kind, id, body) =>
+		kind === 'create'
+			? { status: 201, body: { plantings: (body as Record<string, unknown>[]).map((b, i) => planting(100 + i, b as Partial<PlantingView>)) } }
+			: kind === 'remove'
+				? { status: 204, body: null }
+				: { status: 200, body: { planting: planting(id!, { ...(body as object), version: (body as { version: number }).version + 1 }) } };
+	async patch(id: number, body: Record<string, unknown>): Promise<ApiAnswer> {
+		this.calls.push({ kind: 'patch', id, body });
+		return this.answer('patch', id, body);
+	}
+	async create(_s: number, rows: Record<string, unknown>[]): Promise<ApiAnswer> {
+		this.calls.push({ kind: 'create', body: rows });
+		return this.answer('create', undefined, rows);
+	}
+	async remove(id: number): Promise<ApiAnswer> {
+		this.calls.push({ kind: 'remove', id, body: null });
+		return this.answer('remove', id, null);
+	}
+}
+
+function grid(plantings = [planting(1), planting(2, { startFt: 60, lengthFt: 40, fieldDate: '2026-05-04' })], role: 'owner' | 'crew_lead' | 'share_manager' = 'owner') {
+	const api = new FakeApi();
+	const g = new GridState(
+		{ plantings, varieties: [carrot, lettuce], beds: [{ id: 10, name: 'B1', blockId: 1, blockName: 'North', lengthFt: 100 }], farm: { lastSpringFrost: '2026-05-10', firstFallFrost: '2026-10-05', latitude: 42, turnaroundDays: 7, bedFootIncrement: 5 }, role, seasonId: 1 },
+		api,
+		{ debounceMs: 60_000 }
+	);
+	return { g, api };
+}
+const col = (g: GridState, id: string): number => g.columns.findIndex((c) => c.id === id);
+
+describe('editing a cell', () => {
+	it('recalculates first harvest and seeds from the new field date and bed-feet', () => {
+		const { g } = grid();
+		// 2026-04-20 + 70 days = 2026-06-29 (day length at 42° N in late June is far above 10 h: no allowance).
+		expect(g.rows[0].derived?.firstHarvest).toBe('2026-06-29');
+		// Seeds: 60 ft × 12 ÷ 1 in = 720 spots × 4 rows = 2,880; × 2 ÷ 0.65 × 1.1 = 9,747.7 → 9,748 (README worked example).
+		expect(g.rows[0].derived?.seed.seeds).toBe(9748);
+		g.moveTo(0, col(g, 'lengthFt'));
+		g.beginEdit('30');
+		expect(g.commitEdit()).toBe(true);
+		// 30 ft: 360 spots × 4 = 1,440; × 2 ÷ 0.65 × 1.1 = 4,873.8 → 4,874.
+		expect(g.rows[0].derived?.seed.seeds).toBe(4874);
+		g.moveTo(0, col(g, 'fieldDate'));
+		g.beginEdit('2026-05-01');
+		g.commitEdit();
+		// 2026-05-01 + 70 days = 2026-07-10; last harvest + 14 − 1 = 2026-07-23.
+		expect(g.rows[0].derived?.firstHarvest).toBe('2026-07-10');
+		expect(g.rows[0].derived?.lastHarvest).toBe('2026-07-23');
+	});
+	it('keeps an invalid entry in its cell with the schema\'s message, changing nothing', () => {
+		const { g } = grid();
+		g.moveTo(0, col(g, 'rows'));
+		g.beginEdit('2.5');
+		expect(g.commitEdit()).toBe(false);
+		expect(g.rows[0].errors.rows?.message).toBe('Rows must be a whole number.');
+		expect(g.rows[0].values.rows).toBe(4);
+	});
+	it('marks the overlap when two plantings share bed-feet and dates', () => {
+		const { g } = grid();
+		expect(g.rows[1].conflicts).toEqual([]);
+		g.moveTo(1, col(g, 'startFt'));
+		g.beginEdit('30');
+		g.commitEdit();
+		expect(g.rows[0].conflicts.map((c) => c.code)).toContain('overlap');
+		expect(g.rows[1].conflicts.map((c) => c.code)).toContain('overlap');
+	});
+	it('refuses a crew lead the crop and bed-feet but lets them set the status', () => {
+		const { g } = grid(undefined, 'crew_lead');
+		g.moveTo(0, col(g, 'lengthFt'));
+		expect(g.beginEdit('5')).toBe(false);
+		g.moveTo(0, col(g, 'status'));
+		expect(g.beginEdit('sown')).toBe(true);
+		expect(g.commitEdit()).toBe(true);
+		expect(g.rows[0].values.status).toBe('sown');
+	});
+});
+
+describe('undo, redo and fill down', () => {
+	it('keeps at least 100 steps and walks them back in order', () => {
+		const { g } = grid();
+		g.moveTo(0, col(g, 'startFt'));
+		for (let i = 1; i <= 120; i++) {
+			g.beginEdit(String(i));
+			g.commitEdit();
+		}
+		expect(UNDO_LIMIT).toBeGreaterThanOrEqual(100);
+		for (let i = 0; i < 100; i++) g.undo();
+		expect(g.rows[0].values.startFt).toBe(20);
+		g.redo();
+		expect(g.rows[0].values.startFt).toBe(21);
+	});
+	it('fills the top row\'s bed-feet into the rows below', () => {
+		const { g } = grid([planting(1), planting(2, { lengthFt: 20 }), planting(3, { lengthFt: 25 })]);
+		g.moveTo(0, col(g, 'lengthFt'));
+		g.moveTo(2, col(g, 'lengthFt'), true);
+		g.fillDown();
+		expect(g.rows.map((r) => r.values.lengthFt)).toEqual([60, 60, 60]);
+		g.undo();
+		expect(g.rows.map((r) => r.values.lengthFt)).toEqual([60, 20, 25]);
+	});
+});
+
+describe('paste', () => {
+	it('names each bad cell by row and column and saves the good ones only when confirmed', () => {
+		const { g } = grid();
+		g.moveTo(0, col(g, 'startFt'));
+		const p = g.paste('5\t40\n7\tlots\n');
+		expect(p.bad).toEqual([{ row: 2, column: 'Bed-feet', text: 'lots', message: 'Bed-feet must be a number.' }]);
+		expect(g.rows[0].values.startFt).toBe(0);
+		g.confirmPaste();
+		expect(g.rows[0].values.startFt).toBe(5);
+		expect(g.rows[0].values.lengthFt).toBe(40);
+		expect(g.rows[1].values.startFt).toBe(7);
+		expect(g.rows[1].values.lengthFt).toBe(40);
+	});
+	it('turns rows past the end into new rows, sent in one POST', async () => {
+		const { g, api } = grid();
+		g.moveTo(1, col(g, 'crop'));
+		g.paste('Carrot\nLettuce\nLettuce');
+		expect(g.rows).toHaveLength(4);
+		expect(g.rows[3].values.method).toBe('transplant');
+		await g.save.flush();
+		expect(api.calls.filter((c) => c.kind === 'create')).toHaveLength(1);
+		expect((api.calls.find((c) => c.kind === 'create')!.body as unknown[]).length).toBe(2);
+		expect(g.rows[3].id).toBe(101);
+	});
+});
+
+describe('the save queue', () => {
+	it('sends only the changed fields with the version, and takes the new version', async () => {
+		const { g, api } = grid();
+		g.moveTo(0, col(g, 'notes'));
+		g.beginEdit('thin at 2 in');
+		g.commitEdit();
+		expect(g.save.unsaved).toBe(true);
+		await g.save.flush();
+		expect(api.calls).toEqual([{ kind: 'patch', id: 1, body: { version: 1, notes: 'thin at 2 in' } }]);
+		expect(g.rows[0].version).toBe(2);
+		expect(g.save.status).toBe('saved');
+	});
+	it('on 409 shows whose change won and keeps the user\'s edit to re-apply', async () => {
+		const { g, api } = grid();
+		api.answer = (kind, id, body) =>
+			kind === 'patch' && (body as { version: number }).version === 1
+				? { status: 409, body: { message: 'Pat saved first', changedBy: 'Pat', current: planting(1, { version: 2, notes: 'theirs', updatedBy: 'Pat' }) } }
+				: { status: 200, body: { planting: planting(id!, { ...(body as object), version: 3 }) } };
+		g.moveTo(0, col(g, 'notes'));
+		g.beginEdit('mine');
+		g.commitEdit();
+		await g.save.flush();
+		expect(g.save.status).toBe('failed');
+		expect(g.save.conflicts[0].changedBy).toBe('Pat');
+		expect(g.save.conflicts[0].mine).toEqual({ notes: 'mine' });
+		expect(g.rows[0].values.notes).toBe('theirs');
+		g.save.reapply(g.rows[0].key);
+		await g.save.flush();
+		expect(api.calls.at(-1)).toEqual({ kind: 'patch', id: 1, body: { version: 2, notes: 'mine' } });
+		expect(g.rows[0].values.notes).toBe('mine');
+		expect(g.save.status).toBe('saved');
+	});
+	it('keeps a failed save queued and sends it again on retry', async () => {
+		const { g, api } = grid();
+		api.answer = () => ({ status: 503, body: { message: 'down' } });
+		g.moveTo(0, col(g, 'notes'));
+		g.beginEdit('x');
+		g.commitEdit();
+		await g.save.flush();
+		expect(g.save.status).toBe('failed');
+		expect(g.save.pending).toBe(1);
+		api.answer = (_k, id, body) => ({ status: 200, body: { planting: planting(id!, { ...(body as object), version: 2 }) } });
+		await g.save.retry();
+		expect(g.save.status).toBe('saved');
+		expect(api.calls).toHaveLength(2);
+	});
+	it('removes a row with DELETE and undo sends it back as a new row', async () => {
+		const { g, api } = grid();
+		g.moveTo(0, 0);
+		g.removeSelected();
+		await g.save.flush();
+		expect(api.calls[0]).toEqual({ kind: 'remove', id: 1, body: null });
+		g.undo();
+		await g.save.flush();
+		expect(api.calls[1].kind).toBe('create');
+		expect(g.rows).toHaveLength(2);
+	});
+});
+
+describe('grouping', () => {
+	it('totals bed-feet, seed grams and yield per group', () => {
+		const { g } = grid([planting(1), planting(2, { varietyId: 2, method: 'transplant', lengthFt: 20 }), planting(3, { lengthFt: 30, startFt: 60 })]);
+		g.groupBy = 'crop';
+		const groups = g.view.items.filter((i) => i.kind === 'group');
+		expect(groups.map((x) => x.kind === 'group' && x.label)).toEqual(['Carrot', 'Lettuce']);
+		const carrotTotals = groups[0].kind === 'group' ? groups[0].totals : null;
+		// 60 ft + 30 ft; yield 60 × 1.5 + 30 × 1.5 = 135 lb.
+		expect(carrotTotals?.bedFeet).toBe(90);
+		expect(carrotTotals?.yield).toEqual({ lb: 135 });
+	});
+});
