@@ -19,7 +19,9 @@ export const seasonTabs: readonly SeasonTab[] = [
 	{ path: 'forecast', label: 'Forecast', roles: everyone },
 	{ path: 'boxes', label: 'Share boxes', roles: everyone },
 	{ path: 'week', label: 'Crew sheets', roles: everyone },
-	{ path: 'transfer', label: 'Export & import', roles: everyone }
+	{ path: 'transfer', label: 'Export & import', roles: everyone },
+	{ path: 'harvests', label: 'Harvest log', roles: everyone },
+	{ path: 'results', label: 'Actual vs plan', roles: everyone }
 ];
 
 export function seasonTabsFor(role: Role): SeasonTab[] {

@@ -76,3 +76,5 @@ export {
 	type VarietyShare
 } from './season';
 export { emergenceDays, type EmergenceTable } from './emergence';
+export * from './actuals';
+export * from './season-shift';

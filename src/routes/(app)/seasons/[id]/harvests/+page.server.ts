@@ -1,0 +1,75 @@
+import { fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { requireRole, requireUser } from '$lib/server/guards';
+import { seasonFromParams } from '$lib/server/api';
+import * as harvests from '$lib/server/harvests';
+import { listMembers } from '$lib/server/members';
+import { harvestPatchSchema, harvestSchema } from '$lib/schemas/harvest';
+import { fieldErrors } from '$lib/schemas/common';
+import { sheetRows, remapRowErrors } from './sheet';
+
+function text(form: FormData): Record<string, string> {
+	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
+}
+
+export const load = (async (event) => {
+	const { farm, user } = requireUser(event);
+	const { season } = await event.parent();
+	const today = await harvests.farmToday(farm.id);
+	const [records, plantings, members, audit] = await Promise.all([
+		harvests.list(farm.id, season.id),
+		harvests.plantingOptions(farm.id, season.id, today),
+		listMembers(farm.id),
+		harvests.auditTrail(farm.id, season.id, 50)
+	]);
+	return {
+		today,
+		records,
+		plantings,
+		members: members.map((m) => ({ id: m.userId, name: m.name })),
+		audit,
+		me: user.id,
+		canWrite: farm.role === 'owner' || farm.role === 'crew_lead'
+	};
+}) satisfies PageServerLoad;
+
+export const actions = {
+	log: async (event) => {
+		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const values = text(await event.request.formData());
+		const parsed = harvestSchema.safeParse(values);
+		if (!parsed.success) return fail(400, { log: { errors: fieldErrors(parsed.error), values } });
+		const out = await harvests.create(farm.id, season.id, user.id, [parsed.data]);
+		if (!out.ok) return fail(out.status, { log: { errors: out.errors, values } });
+		redirect(303, `/seasons/${season.id}/harvests?logged=${out.value[0].id}`);
+	},
+	sheet: async (event) => {
+		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const values = text(await event.request.formData());
+		const { records, rowOf, errors } = sheetRows(values);
+		if (Object.keys(errors).length) return fail(400, { sheet: { errors, values } });
+		const out = await harvests.create(farm.id, season.id, user.id, records, true);
+		if (!out.ok) return fail(out.status, { sheet: { errors: remapRowErrors(out.errors, rowOf), values } });
+		redirect(303, `/seasons/${season.id}/harvests?saved=${out.value.length}`);
+	},
+	edit: async (event) => {
+		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const { id, ...values } = text(await event.request.formData());
+		const key = `edit-${id}`;
+		const parsed = harvestPatchSchema.safeParse(values);
+		if (!parsed.success) return fail(400, { edit: { key, errors: fieldErrors(parsed.error), values } });
+		const out = await harvests.update(farm.id, season.id, Number(id), user.id, parsed.data);
+		if (!out.ok) return fail(out.status, { edit: { key, errors: out.errors, values } });
+		redirect(303, `/seasons/${season.id}/harvests?edited=${id}`);
+	},
+	delete: async (event) => {
+		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const id = Number((await event.request.formData()).get('id'));
+		if (!Number.isInteger(id) || !(await harvests.remove(farm.id, season.id, id, user.id))) return fail(404, { edit: { key: `edit-${id}`, errors: { _form: 'No such harvest record in this season.' }, values: {} } });
+		redirect(303, `/seasons/${season.id}/harvests?deleted=${id}`);
+	}
+} satisfies Actions;
