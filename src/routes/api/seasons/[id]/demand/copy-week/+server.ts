@@ -1,0 +1,16 @@
+import { json } from '@sveltejs/kit';
+import { z } from 'zod';
+import type { RequestHandler } from './$types';
+import { requireRole } from '$lib/server/guards';
+import { parseBody, seasonFromParams } from '$lib/server/api';
+import { copyWeek } from '$lib/server/demand';
+import { respond } from '../respond';
+
+/** Copies one week of a grid onto a range of weeks ({ grid, fromWeek, toFirst, toLast }). */
+export const POST: RequestHandler = async (event) => {
+	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const season = await seasonFromParams(farm.id, event.params.id);
+	const body = await parseBody(event, z.unknown());
+	if (!body.ok) return body.response;
+	return respond(async () => json(await copyWeek(farm.id, season, body.data)));
+};
