@@ -3,6 +3,7 @@
 import { runEngineBench } from './bench-engine';
 import { runForecastBench } from './bench-forecast';
 import { runGridBench } from './bench-grid';
+import { runTimelineBench } from './bench-timeline';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

@@ -1,0 +1,39 @@
+// The free-space question "which beds are free from week X to week Y, for how many feet?",
+// shared by the bed timeline's form (query string), the JSON route and the browser.
+import { z } from 'zod';
+import { parseIsoWeek, PlanningInputError, weekStart } from '$lib/planning';
+import { numberField } from './common';
+
+const isoWeekField = (label: string) =>
+	z
+		.string({ error: `${label} is required.` })
+		.trim()
+		.min(1, `${label} is required.`)
+		.superRefine((v, ctx) => {
+			try {
+				parseIsoWeek(v);
+			} catch (e) {
+				const why = e instanceof PlanningInputError ? e.message.replace(/^week: /, '') : 'is not an ISO week';
+				ctx.addIssue({ code: 'custom', message: `${label} ${why}.` });
+			}
+		});
+
+const blank = (v: unknown): unknown => (typeof v === 'string' && v.trim() === '' ? undefined : v);
+
+export const freeSpaceQuerySchema = z
+	.object({
+		from: isoWeekField('From week'),
+		to: isoWeekField('To week'),
+		minFt: z.preprocess(blank, numberField('Minimum feet', 0, 100_000).optional()),
+		block: z.preprocess(blank, numberField('Block', 1, 2_147_483_647, { int: true }).optional())
+	})
+	.superRefine((q, ctx) => {
+		// Only compare once both weeks parse; each bad week already has its own message.
+		try {
+			if (weekStart(q.to) < weekStart(q.from)) ctx.addIssue({ code: 'custom', path: ['to'], message: 'To week must not be before the from week.' });
+		} catch {
+			/* reported at the field */
+		}
+	});
+
+export type FreeSpaceQuery = z.infer<typeof freeSpaceQuerySchema>;
