@@ -4,6 +4,7 @@ import { runEngineBench } from './bench-engine';
 import { runForecastBench } from './bench-forecast';
 import { runGridBench } from './bench-grid';
 import { runTimelineBench } from './bench-timeline';
+import { runExportBench } from './bench-export';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

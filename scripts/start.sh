@@ -34,6 +34,6 @@ cat <<MSG
   sign in as the owner and open "Mail (dev)". Stop with Ctrl-C or npm stop.
 
 MSG
-ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" node "$FC_BUILD_DIR" &
+ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-6M}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" node "$FC_BUILD_DIR" &
 echo $! >"$FC_PID_DIR/app-$FC_PORT.pid"
 wait "$(cat "$FC_PID_DIR/app-$FC_PORT.pid")" || true

@@ -1,0 +1,217 @@
+// The rows of each workbook sheet, worked out from the season's data with the planning
+// engine (seed, forecast, targets). Pure: no I/O, so the bench and tests can call it alike.
+// Values are plain: dates as 'YYYY-MM-DD' (the writer turns them into real Excel dates),
+// money in dollars, rates as fractions.
+import { deriveTargets, forecast, seedNeed, type ForecastPlanting, type SeedNeed } from '$lib/planning';
+import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
+import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
+import type { VarietyView } from '../crops';
+import type { ExportPlanting, SeasonData } from './season-data';
+import { seasonFields } from './layout';
+
+export type Cell = string | number | Date | null;
+export type Row = Cell[];
+
+export interface SheetRows {
+	season: Row[];
+	plantings: Row[];
+	seedOrder: Row[];
+	tasks: Row[];
+	forecast: Row[];
+	crops: Row[];
+	beds: Row[];
+}
+
+/** Seed for one planting from the engine, on the planting's own bed-feet, rows and spacing. */
+function plantingSeed(p: ExportPlanting, v: VarietyView): SeedNeed {
+	return seedNeed({
+		method: p.method,
+		bedFeet: p.lengthFt,
+		rows: p.rows,
+		inRowSpacingIn: p.inRowSpacingIn,
+		seedsPerSpot: p.seedsPerSpot,
+		germinationRate: v.germinationRate,
+		seedsPerGram: v.seedsPerGram,
+		margin: v.margin,
+		cellsPerTray: v.cellsPerTray,
+		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
+		seedsPerPacket: v.seedsPerPacket ?? undefined
+	});
+}
+
+/** A calendar date as a Date at UTC midnight: exceljs turns it into a whole Excel day number. */
+export function excelDate(iso: string): Date {
+	return new Date(Date.UTC(Number(iso.slice(0, 4)), Number(iso.slice(5, 7)) - 1, Number(iso.slice(8, 10))));
+}
+
+const round2 = (n: number): number => Math.round(n * 100) / 100;
+
+function plantingRows(d: SeasonData): Row[] {
+	return d.plantings.map((p) => [
+		p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, p.rows, p.inRowSpacingIn, p.seedsPerSpot, p.method,
+		p.traySowDate, p.fieldDate, isoWeekOfDay(toDayNumber(p.fieldDate)), p.firstHarvest, p.lastHarvest, p.expectedYield,
+		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes
+	]);
+}
+
+interface SeedTotal {
+	v: VarietyView;
+	plantings: number;
+	bedFeet: number;
+	seeds: number;
+	grams: number;
+	costCents: number;
+	cells: number;
+	trays: number;
+}
+
+/**
+ * Per variety: Σ of the engine's seedNeed over the season's plantings. Packets are bought per
+ * variety, so they are ceil(Σ seeds ÷ seeds per packet), not a sum of per-planting packets.
+ */
+function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
+	const totals = new Map<number, SeedTotal>();
+	for (const p of d.plantings) {
+		const v = varieties.get(p.varietyId);
+		const s = seeds.get(p.id);
+		if (!v || !s) continue;
+		let t = totals.get(v.id);
+		if (!t) totals.set(v.id, (t = { v, plantings: 0, bedFeet: 0, seeds: 0, grams: 0, costCents: 0, cells: 0, trays: 0 }));
+		t.plantings += 1;
+		t.bedFeet += p.lengthFt;
+		t.seeds += s.seeds;
+		t.grams += s.grams;
+		t.costCents += s.costCents ?? 0;
+		t.cells += s.cells;
+		t.trays += s.trays;
+	}
+	const rows = [...totals.values()]
+		.sort((a, b) => a.v.crop.localeCompare(b.v.crop) || a.v.name.localeCompare(b.v.name))
+		.map((t): Row => [
+			t.v.crop, t.v.name, t.v.method, t.plantings, round2(t.bedFeet), t.seeds, round2(t.grams), t.v.seedsPerPacket,
+			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null, t.v.seedPriceCentsPerGram / 100, t.costCents / 100,
+			t.v.method === 'transplant' ? t.cells : null, t.v.method === 'transplant' ? t.trays : null
+		]);
+	return rows;
+}
+
+const taskOrder = { 'Tray sowing': 0, 'Direct sowing': 1, Transplanting: 2, Harvest: 3 } as const;
+type TaskName = keyof typeof taskOrder;
+
+interface TaskRow {
+	/** Week (its Monday's day number) × 4 + kind of task: one number sorts both. */
+	order: number;
+	/** Walking order packed in one number: block, bed, start foot (tenths). */
+	walk: number;
+	/** Tray work sorts by crop and variety, as the tray bench does. */
+	name: string;
+	row: Row;
+}
+
+// Positions and feet are far below these bounds, so the packed key stays an exact integer.
+const walkKey = (block: number | null, bed: number | null, startFt: number): number =>
+	((Math.min(block ?? 99_999, 99_999) * 100_000 + Math.min(bed ?? 99_999, 99_999)) * 100_000) + Math.round(startFt * 10);
+
+/**
+ * Per ISO week, the same four kinds of work as the crew's week view (plantings.ts
+ * tasksForWeek): tray sowing and field work of plantings not failed; harvest of plantings
+ * not failed or finished. Worked out in memory from the season's plantings rather than with
+ * one query per week, so a large season streams at the writer's pace.
+ */
+function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>): Row[] {
+	const out: TaskRow[] = [];
+	for (const p of d.plantings) {
+		if (p.status === 'failed') continue;
+		const s = seeds.get(p.id);
+		const walk = walkKey(p.blockPosition, p.bedPosition, p.startFt);
+		const push = (day: number, task: TaskName, rest: Row, byCrop = false): void => {
+			const monday = day - weekdayOf(day) + 1;
+			out.push({
+				order: monday * 4 + taskOrder[task],
+				walk: byCrop ? 0 : walk,
+				name: byCrop ? `${p.crop}\u0000${p.variety}` : '',
+				row: [isoWeekOfDay(day), fromDayNumber(monday), task, p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, fromDayNumber(day), ...rest]
+			});
+		};
+		if (p.traySowDate) push(toDayNumber(p.traySowDate), 'Tray sowing', [s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null], true);
+		const field = toDayNumber(p.fieldDate);
+		if (p.method === 'direct') push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
+		else push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
+		if (p.status === 'finished') continue;
+		// Flat harvest curve, as the engine's forecast: each day of the window yields the same.
+		const a = toDayNumber(p.firstHarvest);
+		const b = toDayNumber(p.lastHarvest);
+		if (b < a) continue;
+		const perDay = p.expectedYield / (b - a + 1);
+		for (let monday = a - weekdayOf(a) + 1; monday <= b; monday += 7) {
+			const from = Math.max(a, monday);
+			const days = Math.min(b, monday + 6) - from + 1;
+			push(from, 'Harvest', [round2(days * perDay), p.harvestUnit, null, null]);
+		}
+	}
+	out.sort((x, y) => x.order - y.order || x.walk - y.walk || (x.name < y.name ? -1 : x.name > y.name ? 1 : 0));
+	return out.map((t) => t.row);
+}
+
+/** Engine forecast (flat curve) of the season's plantings against the derived weekly targets. */
+function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[] {
+	const plantings: ForecastPlanting[] = [];
+	for (const p of d.plantings) {
+		const v = varieties.get(p.varietyId);
+		if (!v || p.status === 'failed' || p.lastHarvest < p.firstHarvest) continue;
+		plantings.push({ crop: String(p.cropId), firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt, yieldPerBedFoot: v.yieldPerBedFoot });
+	}
+	const crops = new Map(d.crops.map((c) => [String(c.id), c]));
+	return forecast(plantings, deriveTargets(d.demand)).map((r) => [
+		crops.get(r.crop)?.name ?? r.crop, crops.get(r.crop)?.harvestUnit ?? null, r.week, weekStart(r.week),
+		round2(r.supply), round2(r.demand), round2(r.shortfall), round2(r.surplus)
+	]);
+}
+
+function cropRows(d: SeasonData): Row[] {
+	const byCrop = new Map<number, VarietyView[]>();
+	for (const v of d.varieties) byCrop.set(v.cropId, [...(byCrop.get(v.cropId) ?? []), v]);
+	const rows: Row[] = [];
+	for (const c of d.crops) {
+		const crop: Row = [c.name, c.family, c.harvestUnit, c.frostTolerance, c.heatLimitF, c.baseTempF];
+		const vs = byCrop.get(c.id) ?? [];
+		// A crop without varieties still gets a row, so the import keeps it.
+		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null)]);
+		for (const v of vs) {
+			rows.push([
+				...crop, v.name, v.method, v.daysToMaturity, v.daysInTray, v.harvestWindowDays, v.yieldPerBedFoot, v.rows, v.inRowSpacingIn,
+				v.seedsPerSpot, v.germinationRate, v.seedsPerGram, v.seedPriceCentsPerGram / 100, v.seedsPerPacket, v.cellsPerTray, v.margin, v.gddToMaturity
+			]);
+		}
+	}
+	return rows;
+}
+
+export function buildSheetRows(d: SeasonData, today: string): SheetRows {
+	const varieties = new Map(d.varieties.map((v) => [v.id, v]));
+	const seeds = new Map<number, SeedNeed>();
+	for (const p of d.plantings) {
+		const v = varieties.get(p.varietyId);
+		if (v) seeds.set(p.id, plantingSeed(p, v));
+	}
+	return {
+		season: [
+			[seasonFields.name, d.season.name],
+			[seasonFields.year, d.season.year],
+			[seasonFields.startsOn, excelDate(d.season.startsOn)],
+			[seasonFields.endsOn, excelDate(d.season.endsOn)],
+			[seasonFields.farm, d.farmName],
+			[seasonFields.exportedOn, excelDate(today)]
+		],
+		plantings: plantingRows(d),
+		seedOrder: seedOrderRows(d, seeds, varieties),
+		tasks: taskRows(d, seeds),
+		forecast: forecastRows(d, varieties),
+		crops: cropRows(d),
+		beds: d.beds.map((b) => [b.block, b.blockPosition, b.name, b.position, b.lengthFt, b.widthIn])
+	};
+}
+
+export function rowCount(r: SheetRows): number {
+	return Object.values(r).reduce((n, rows: Row[]) => n + rows.length, 0);
+}

@@ -1,0 +1,55 @@
+// The import as a page form action: the same checks as the JSON route; refused files come
+// back to the form with every issue, a good one redirects (303) to a summary.
+import { fail, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
+import type { ImportIssue } from '$lib/schemas/import';
+import { requireRole } from '../guards';
+import { importUpload, type ImportSummary } from './index';
+import { drainUpload, readUpload } from './request';
+
+export interface ImportFailure {
+	importMessage: string;
+	importIssues: ImportIssue[];
+}
+
+/** requireRole(event, 'owner') for an upload: a refused body is read off first (see drainUpload). */
+export async function requireOwnerForUpload(event: RequestEvent): Promise<ReturnType<typeof requireRole>> {
+	try {
+		return requireRole(event, 'owner');
+	} catch (refusal) {
+		await drainUpload(event);
+		throw refusal;
+	}
+}
+
+/** Query string that carries the summary to the page the action redirects to. */
+export function summaryQuery(s: ImportSummary): string {
+	return new URLSearchParams({
+		imported: '1',
+		crops: String(s.crops),
+		varieties: String(s.varieties),
+		beds: String(s.beds),
+		plantings: String(s.plantings),
+		...(s.seasonCreated ? { seasonCreated: '1' } : {})
+	}).toString();
+}
+
+/**
+ * Runs the import for the owner. With a season id the plantings go into that season; without
+ * one they go into the season named in the file, and the redirect leads to it.
+ */
+export async function importAction(event: RequestEvent, seasonId?: number): Promise<ActionFailure<ImportFailure>> {
+	const { farm, user } = await requireOwnerForUpload(event);
+	const upload = await readUpload(event, seasonId);
+	if (!upload.ok) return fail(upload.status, { importMessage: upload.message, importIssues: upload.issues });
+	const outcome = await importUpload(farm.id, user.id, upload.file, upload.options);
+	if (!outcome.ok) return fail(outcome.status, { importMessage: outcome.message, importIssues: outcome.issues });
+	const target = outcome.summary.seasonId ?? seasonId;
+	redirect(303, target ? `/seasons/${target}/transfer?${summaryQuery(outcome.summary)}` : `/import?${summaryQuery(outcome.summary)}`);
+}
+
+/** The summary of the last import, read back from the query string. */
+export function importedSummary(url: URL): { crops: number; varieties: number; beds: number; plantings: number; seasonCreated: boolean } | null {
+	if (url.searchParams.get('imported') !== '1') return null;
+	const n = (k: string): number => Math.max(0, Number(url.searchParams.get(k)) || 0);
+	return { crops: n('crops'), varieties: n('varieties'), beds: n('beds'), plantings: n('plantings'), seasonCreated: url.searchParams.get('seasonCreated') === '1' };
+}

@@ -1,0 +1,63 @@
+// An uploaded workbook or CSV, from bytes to rows written: size and type checked, every row
+// validated, and nothing written unless the whole file is good.
+import { IMPORT_MAX_BYTES, describeIssue, type ImportIssue, type ImportOptions } from '$lib/schemas/import';
+import { listVarieties } from '../crops';
+import * as beds from '../beds';
+import { readCsv, readXlsx, type ReadResult } from './read';
+import { checkImport, type FarmLibrary } from './validate';
+import { ImportRefused, writeImport, type ImportSummary } from './write';
+
+export type { ImportSummary };
+
+export type ImportOutcome =
+	| { ok: true; summary: ImportSummary }
+	| { ok: false; status: 400 | 413 | 415; message: string; issues: ImportIssue[] };
+
+const fileIssue = (message: string): ImportIssue[] => [{ sheet: 'file', row: null, column: null, header: null, message }];
+
+function refuse(status: 400 | 413 | 415, issues: ImportIssue[]): ImportOutcome {
+	const shown = issues.slice(0, 3).map(describeIssue).join('; ');
+	const more = issues.length > 3 ? ` (and ${issues.length - 3} more)` : '';
+	return { ok: false, status, message: `Nothing was imported: ${shown}${more}`, issues };
+}
+
+/** What kind of file this is, from its first bytes and its name: both must agree. */
+function kindOf(name: string, bytes: Uint8Array): 'xlsx' | 'csv' | null {
+	const ext = name.toLowerCase().split('.').pop();
+	// An .xlsx is a zip archive: it starts "PK\x03\x04".
+	const zip = bytes[0] === 0x50 && bytes[1] === 0x4b && bytes[2] === 0x03 && bytes[3] === 0x04;
+	if (ext === 'xlsx') return zip ? 'xlsx' : null;
+	if (ext === 'csv') return !zip && !bytes.subarray(0, 8192).includes(0) ? 'csv' : null;
+	return null;
+}
+
+async function farmLibrary(farmId: number): Promise<FarmLibrary> {
+	const [varieties, bedList] = await Promise.all([listVarieties(farmId), beds.list(farmId)]);
+	return {
+		varieties: new Set(varieties.map((v) => `${v.crop.trim().toLowerCase()}\u0000${v.name.trim().toLowerCase()}`)),
+		beds: new Set(bedList.map((b) => b.name.trim().toLowerCase()))
+	};
+}
+
+export async function importUpload(farmId: number, userId: string, file: File, options: ImportOptions): Promise<ImportOutcome> {
+	if (file.size > IMPORT_MAX_BYTES) return refuse(413, fileIssue(`The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${IMPORT_MAX_BYTES / 1024 / 1024} MB.`));
+	if (file.size === 0) return refuse(400, fileIssue('The file is empty.'));
+	const buffer = await file.arrayBuffer();
+	const kind = kindOf(file.name, new Uint8Array(buffer));
+	if (!kind) return refuse(415, fileIssue(`"${file.name}" is not an .xlsx workbook or a .csv file.`));
+	let read: ReadResult;
+	if (kind === 'xlsx') read = await readXlsx(buffer);
+	else {
+		const text = new TextDecoder('utf-8', { fatal: false }).decode(buffer);
+		read = readCsv(text, options.sheet);
+	}
+	if (!read.ok) return refuse(400, read.issues);
+	const checked = checkImport(read.sheets, await farmLibrary(farmId), options.seasonId === undefined);
+	if (!checked.ok) return refuse(400, checked.issues);
+	try {
+		return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
+	} catch (err) {
+		if (err instanceof ImportRefused) return refuse(400, err.issues);
+		throw err;
+	}
+}

@@ -1,0 +1,144 @@
+// Writes a checked import in one transaction: crops, varieties, blocks and beds matched by
+// name (created when new, updated to the file's figures when they exist), then the season and
+// its plantings. Plantings go only into a season that has none yet: an import never merges a
+// second copy of a plan into one that is already there.
+import type { Knex } from 'knex';
+import type { ImportIssue } from '$lib/schemas/import';
+import { db } from '../db';
+import type { ImportPlan } from './validate';
+
+export interface ImportSummary {
+	seasonId: number | null;
+	seasonCreated: boolean;
+	crops: number;
+	varieties: number;
+	blocks: number;
+	beds: number;
+	plantings: number;
+}
+
+/** Refuses the whole import (the transaction rolls back) with issues to show. */
+export class ImportRefused extends Error {
+	constructor(public issues: ImportIssue[]) {
+		super(issues.map((i) => i.message).join(' '));
+	}
+}
+
+const lower = (s: string): string => s.trim().toLowerCase();
+
+async function idsByName(trx: Knex.Transaction, table: string, farmId: number): Promise<Map<string, number>> {
+	const rows: { id: number; name: string }[] = await trx(table).where({ farm_id: farmId }).forUpdate().select('id', 'name');
+	return new Map(rows.map((r) => [lower(r.name), r.id]));
+}
+
+async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ crops: Map<string, number>; varieties: Map<string, number> }> {
+	const crops = await idsByName(trx, 'crops', farmId);
+	for (const { data: c } of plan.crops) {
+		const row = { name: c.crop, family: c.family, harvest_unit: c.harvestUnit, frost_tolerance: c.frostTolerance, heat_limit_f: c.heatLimitF, base_temp_f: c.baseTempF };
+		const id = crops.get(lower(c.crop));
+		if (id) await trx('crops').where({ id, farm_id: farmId }).update(row);
+		else crops.set(lower(c.crop), (await trx('crops').insert({ farm_id: farmId, ...row }))[0]);
+	}
+	const existing: { id: number; name: string; crop_id: number }[] = await trx('varieties').where({ farm_id: farmId }).forUpdate().select('id', 'name', 'crop_id');
+	const varieties = new Map(existing.map((v) => [`${v.crop_id}\u0000${lower(v.name)}`, v.id]));
+	for (const { data: v } of plan.varieties) {
+		const cropId = crops.get(lower(v.crop))!;
+		const row = {
+			crop_id: cropId, name: v.variety, method: v.method, days_to_maturity: v.daysToMaturity, days_in_tray: v.daysInTray,
+			harvest_window_days: v.harvestWindowDays, yield_per_bed_foot: v.yieldPerBedFoot, rows_per_bed: v.rows, in_row_spacing_in: v.inRowSpacingIn,
+			seeds_per_spot: v.seedsPerSpot, germination_rate: v.germinationRate, seeds_per_gram: v.seedsPerGram, seed_price_cents_per_gram: v.seedPrice,
+			seeds_per_packet: v.seedsPerPacket, cells_per_tray: v.cellsPerTray, margin: v.margin, gdd_to_maturity: v.gddToMaturity
+		};
+		const k = `${cropId}\u0000${lower(v.variety)}`;
+		const id = varieties.get(k);
+		if (id) await trx('varieties').where({ id, farm_id: farmId }).update(row);
+		else varieties.set(k, (await trx('varieties').insert({ farm_id: farmId, ...row }))[0]);
+	}
+	return { crops, varieties };
+}
+
+async function writeBeds(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ beds: Map<string, number>; blocks: number }> {
+	const blocks = await idsByName(trx, 'blocks', farmId);
+	let newBlocks = 0;
+	for (const { data: b } of plan.beds) {
+		const id = blocks.get(lower(b.block));
+		if (id) {
+			if (b.blockPosition !== null) await trx('blocks').where({ id, farm_id: farmId }).update({ position: b.blockPosition });
+			continue;
+		}
+		const position = b.blockPosition ?? blocks.size + 1;
+		blocks.set(lower(b.block), (await trx('blocks').insert({ farm_id: farmId, name: b.block, position }))[0]);
+		newBlocks++;
+	}
+	const beds = await idsByName(trx, 'beds', farmId);
+	for (const { data: b } of plan.beds) {
+		const row = { block_id: blocks.get(lower(b.block))!, name: b.bed, length_ft: b.lengthFt, width_in: b.widthIn, position: b.position };
+		const id = beds.get(lower(b.bed));
+		if (id) await trx('beds').where({ id, farm_id: farmId }).update(row);
+		else beds.set(lower(b.bed), (await trx('beds').insert({ farm_id: farmId, ...row }))[0]);
+	}
+	return { beds, blocks: newBlocks };
+}
+
+/** The season that receives the plantings: the one named, or the file's year (created if new). */
+async function targetSeason(trx: Knex.Transaction, farmId: number, plan: ImportPlan, seasonId: number | undefined): Promise<{ id: number; created: boolean }> {
+	let id = seasonId;
+	let created = false;
+	if (id === undefined) {
+		const s = plan.season!;
+		const found = await trx('seasons').where({ farm_id: farmId, year: s.year }).forUpdate().first('id');
+		if (found) id = found.id as number;
+		else {
+			id = (await trx('seasons').insert({ farm_id: farmId, year: s.year, name: s.name, starts_on: s.startsOn, ends_on: s.endsOn }))[0];
+			created = true;
+		}
+	}
+	const n = Number((await trx('plantings').where({ farm_id: farmId, season_id: id }).count({ n: '*' }).first())?.n ?? 0);
+	if (n > 0) {
+		throw new ImportRefused([
+			{
+				sheet: plan.season && seasonId === undefined ? 'Season' : 'Plantings',
+				row: plan.season && seasonId === undefined ? plan.season.row : null,
+				column: plan.season && seasonId === undefined ? 'B' : null,
+				header: plan.season && seasonId === undefined ? 'Value' : null,
+				message: `That season already holds ${n} plantings; plantings are imported only into a season without any (start a new season, or import into an empty farm).`
+			}
+		]);
+	}
+	return { id: id!, created };
+}
+
+export async function writeImport(farmId: number, userId: string, plan: ImportPlan, seasonId: number | undefined): Promise<ImportSummary> {
+	return db().transaction(async (trx) => {
+		const library = await writeLibrary(trx, farmId, plan);
+		const bedsOut = await writeBeds(trx, farmId, plan);
+		const summary: ImportSummary = {
+			seasonId: seasonId ?? null,
+			seasonCreated: false,
+			crops: plan.crops.length,
+			varieties: plan.varieties.length,
+			blocks: bedsOut.blocks,
+			beds: plan.beds.length,
+			plantings: 0
+		};
+		if (!plan.plantings.length) return summary;
+		const season = await targetSeason(trx, farmId, plan, seasonId);
+		summary.seasonId = season.id;
+		summary.seasonCreated = season.created;
+		const rows = plan.plantings.map(({ data: p }) => {
+			const cropId = library.crops.get(lower(p.crop));
+			const varietyId = cropId === undefined ? undefined : library.varieties.get(`${cropId}\u0000${lower(p.variety)}`);
+			return {
+				farm_id: farmId, season_id: season.id, variety_id: varietyId!, bed_id: p.bed === null ? null : bedsOut.beds.get(lower(p.bed))!,
+				start_ft: p.startFt, length_ft: p.lengthFt, rows: p.rows, in_row_spacing_in: p.inRowSpacingIn, seeds_per_spot: p.seedsPerSpot,
+				method: p.method, tray_sow_date: p.traySowDate, field_date: p.fieldDate, first_harvest: p.firstHarvest, last_harvest: p.lastHarvest,
+				expected_yield: p.expectedYield, seeds_needed: p.seedsNeeded, status: p.status, actual_tray_sow_date: p.actualTraySowDate,
+				actual_field_date: p.actualFieldDate, actual_first_harvest: p.actualFirstHarvest, actual_last_harvest: p.actualLastHarvest,
+				notes: p.notes, updated_by: userId
+			};
+		});
+		for (let i = 0; i < rows.length; i += 500) await trx('plantings').insert(rows.slice(i, i + 500));
+		summary.plantings = rows.length;
+		return summary;
+	});
+}
