@@ -15,6 +15,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
+import { plantingRow } from '../../src/lib/planting-row';
 import {
 	type Farm,
 	type KeptPlanting,
@@ -967,26 +968,14 @@ export async function seedDemoFarm(knex: Knex): Promise<{ farmId: number }> {
 			}
 		}
 
-		const rows = plan.plantings.map((p) => ({
-			farm_id: farmId,
-			season_id: season2027,
-			variety_id: need(varietyIds, p.varietyId, 'variety'),
-			bed_id: p.bedId === null ? null : need(bedIds, p.bedId, 'bed'),
-			start_ft: p.startFt,
-			length_ft: p.lengthFt,
-			rows: p.rows,
-			in_row_spacing_in: p.inRowSpacingIn,
-			seeds_per_spot: p.seedsPerSpot,
-			method: p.method,
-			tray_sow_date: p.traySowDate,
-			field_date: p.fieldDate,
-			first_harvest: p.firstHarvest,
-			last_harvest: p.lastHarvest,
-			expected_yield: p.expectedYield,
-			seeds_needed: p.seed.seeds,
-			status: 'planned',
-			notes: p.unplacedReason === null ? null : `Not placed: ${p.unplacedReason}`
-		}));
+		const rows = plan.plantings.map((p) =>
+			plantingRow(p, {
+				farmId: Number(farmId),
+				seasonId: season2027,
+				varietyId: need(varietyIds, p.varietyId, 'variety'),
+				bedId: p.bedId === null ? null : need(bedIds, p.bedId, 'bed')
+			})
+		);
 		for (let i = 0; i < rows.length; i += 100) await trx('plantings').insert(rows.slice(i, i + 100));
 		return { farmId: Number(farmId) };
 	});

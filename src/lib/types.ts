@@ -54,3 +54,31 @@ export interface Bed {
 	widthIn: number;
 	position: number;
 }
+
+/** A variety with its crop's figures joined in, as the crop library, grid and planner read it. */
+export interface VarietyView {
+	id: number;
+	cropId: number;
+	crop: string;
+	family: string;
+	harvestUnit: string;
+	frostTolerance: 'tender' | 'hardy';
+	heatLimitF: number | null;
+	baseTempF: number;
+	name: string;
+	method: 'direct' | 'transplant';
+	daysToMaturity: number;
+	daysInTray: number;
+	harvestWindowDays: number;
+	yieldPerBedFoot: number;
+	rows: number;
+	inRowSpacingIn: number;
+	seedsPerSpot: number;
+	germinationRate: number;
+	seedsPerGram: number;
+	seedPriceCentsPerGram: number;
+	seedsPerPacket: number | null;
+	cellsPerTray: number;
+	margin: number;
+	gddToMaturity: number | null;
+}

@@ -1,32 +1,9 @@
 // The farm's crop library: crops and their varieties.
 import { db } from './db';
 
-export interface VarietyView {
-	id: number;
-	cropId: number;
-	crop: string;
-	family: string;
-	harvestUnit: string;
-	frostTolerance: 'tender' | 'hardy';
-	heatLimitF: number | null;
-	baseTempF: number;
-	name: string;
-	method: 'direct' | 'transplant';
-	daysToMaturity: number;
-	daysInTray: number;
-	harvestWindowDays: number;
-	yieldPerBedFoot: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	germinationRate: number;
-	seedsPerGram: number;
-	seedPriceCentsPerGram: number;
-	seedsPerPacket: number | null;
-	cellsPerTray: number;
-	margin: number;
-	gddToMaturity: number | null;
-}
+import type { VarietyView } from '$lib/types';
+
+export type { VarietyView };
 
 export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 	const rows = await db()('varieties as v')

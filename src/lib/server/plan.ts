@@ -1,42 +1,17 @@
 // Plan generation for a season: gathers the farm's data, runs the engine, and writes the result.
 // Preview never writes; apply replaces the season's still-planned plantings in one transaction
 // and keeps every planting that is already sown, growing, harvested or failed.
-import { deriveTargetsWithNotes, planSeason, type KeptPlanting, type SeasonPlan, type SeasonVariety } from '$lib/planning';
+import { deriveTargetsWithNotes, planSeason, type KeptPlanting, type SeasonPlan } from '$lib/planning';
+import { toEngineVariety } from '$lib/varieties';
+import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
 import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
-import { listVarieties, type VarietyView } from './crops';
+import { listVarieties } from './crops';
 import { targetInput } from './demand';
 
-function engineVariety(v: VarietyView): SeasonVariety {
-	return {
-		id: String(v.id),
-		cropId: String(v.cropId),
-		name: v.name,
-		crop: v.crop,
-		family: v.family,
-		method: v.method,
-		daysToMaturity: v.daysToMaturity,
-		daysInTray: v.daysInTray,
-		harvestWindowDays: v.harvestWindowDays,
-		yieldPerBedFoot: v.yieldPerBedFoot,
-		rows: v.rows,
-		inRowSpacingIn: v.inRowSpacingIn,
-		seedsPerSpot: v.seedsPerSpot,
-		germinationRate: v.germinationRate,
-		seedsPerGram: v.seedsPerGram,
-		cellsPerTray: v.cellsPerTray,
-		frostTender: v.frostTolerance === 'tender',
-		heatLimitF: v.heatLimitF ?? undefined,
-		baseTempF: v.baseTempF,
-		gddToMaturity: v.gddToMaturity ?? undefined,
-		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
-		seedsPerPacket: v.seedsPerPacket ?? undefined,
-		margin: v.margin
-	};
-}
 
 export interface PlanPreview {
 	plan: SeasonPlan;
@@ -82,7 +57,7 @@ export async function preview(farmId: number, seasonId: number, request: PlanReq
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},
-		varieties: varieties.map(engineVariety),
+		varieties: varieties.map(toEngineVariety),
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,
@@ -124,27 +99,9 @@ export async function apply(farmId: number, seasonId: number, userId: string, re
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
-		const inserts = result.plan.plantings.map((p) => ({
-			farm_id: farmId,
-			season_id: seasonId,
-			variety_id: Number(p.varietyId),
-			bed_id: p.bedId === null ? null : Number(p.bedId),
-			start_ft: p.startFt,
-			length_ft: p.lengthFt,
-			rows: p.rows,
-			in_row_spacing_in: p.inRowSpacingIn,
-			seeds_per_spot: p.seedsPerSpot,
-			method: p.method,
-			tray_sow_date: p.traySowDate,
-			field_date: p.fieldDate,
-			first_harvest: p.firstHarvest,
-			last_harvest: p.lastHarvest,
-			expected_yield: p.expectedYield,
-			seeds_needed: p.seed.seeds,
-			status: 'planned',
-			notes: p.unplacedReason ? `Not placed: ${p.unplacedReason}` : null,
-			updated_by: userId
-		}));
+		const inserts = result.plan.plantings.map((p) =>
+			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
+		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
 		return {
 			kept: rows.length - plannedIds.length,
