@@ -3,7 +3,9 @@
  * 40 ISO weeks (plus shares, box contents and market demand), created through /signup and the
  * database, and removed again at the end.
  *
- * - forecast.server_ms: GET /api/seasons/{id}/forecast over the 40 weeks, timed from the client.
+ * - forecast.server_ms: GET /api/seasons/{id}/forecast over the 40 weeks, timed from the client
+ *   (request to parsed body), in the shape the forecast page asks for (shape=series). With
+ *   BENCH_FORECAST_VERBOSE set, the rows shape is timed as well, for comparison.
  * - forecast.chart_ms: headless Chromium, from the response in hand to the chart in the DOM
  *   (the page's data-render-ms), refetched through the `furrowcast:plan-changed` event.
  * - forecast.floor_ms: the same weekly sums in a plain loop over the same plantings, in memory.
@@ -120,20 +122,21 @@ function plainSums(plantings: BenchPlanting[]): Float64Array {
 	return sums;
 }
 
-async function timeServer(b: BenchFarm, runs: number): Promise<number> {
+async function timeServer(b: BenchFarm, runs: number, shape: 'series' | 'rows' = 'series'): Promise<number> {
 	const client = new Client();
 	const res = await client.postForm('/signin', { email: b.email, password: PASSWORD });
 	if (res.status !== 303) throw new Error(`bench sign-in answered ${res.status}`);
-	const url = `/api/seasons/${b.seasonId}/forecast?from=${FROM}&to=${TO}`;
+	const url = `/api/seasons/${b.seasonId}/forecast?from=${FROM}&to=${TO}&shape=${shape}`;
 	const times: number[] = [];
 	for (let i = 0; i < runs + 2; i++) {
 		const t0 = performance.now();
 		const r = await client.get(url);
 		const body = await r.json();
 		const t = performance.now() - t0;
-		if (r.status !== 200 || body.crops.length !== CROPS) throw new Error(`bench forecast answered ${r.status} with ${body.crops?.length} crops`);
+		const per = shape === 'series' ? body.series?.length : new Set(body.rows?.map((x: { crop: string }) => x.crop)).size;
+		if (r.status !== 200 || body.crops.length !== CROPS || per !== CROPS) throw new Error(`bench forecast answered ${r.status} with ${body.crops?.length} crops, ${per} with figures`);
 		if (i >= 2) times.push(t);
-		if (process.env.BENCH_FORECAST_VERBOSE) console.error(`# ${t.toFixed(1)} ms, server-timing: ${r.headers.get('server-timing')}`);
+		if (process.env.BENCH_FORECAST_VERBOSE) console.error(`# ${shape}: ${t.toFixed(1)} ms, ${(JSON.stringify(body).length / 1024).toFixed(0)} KiB, server-timing: ${r.headers.get('server-timing')}`);
 	}
 	return median(times);
 }
@@ -167,6 +170,7 @@ export async function runForecastBench(): Promise<Record<string, number>> {
 	const bench = await createBenchFarm();
 	try {
 		const serverMs = await timeServer(bench, 11);
+		if (process.env.BENCH_FORECAST_VERBOSE) console.error(`# rows shape, median: ${(await timeServer(bench, 11, 'rows')).toFixed(1)} ms`);
 		const chartMs = await timeChart(bench, 7);
 		for (let i = 0; i < 5; i++) plainSums(bench.plantings);
 		const floor: number[] = [];

@@ -46,7 +46,8 @@ describe('a bad query is a 400 naming the parameter', () => {
 		['?from=2027-W60', 'from'],
 		['?to=2027-W53', 'to'], // 2027 has 52 ISO weeks
 		['?from=2027-W30&to=2027-W20', 'to'],
-		['?from=2020-W01&to=2027-W01', 'to'] // more than 106 weeks
+		['?from=2020-W01&to=2027-W01', 'to'], // more than 106 weeks
+		['?shape=table', 'shape']
 	];
 	for (const [q, field] of cases) {
 		it(`${q} → 400 naming ${field}`, async () => {
@@ -98,5 +99,32 @@ describe('the figures', () => {
 			['2026-W47', 31, true],
 			['2026-W48', 50, false]
 		]);
+	});
+
+	it('shape=series: the same figures per crop in arrays across the weeks', async () => {
+		const q = `?from=2027-W23&to=2027-W25`;
+		const rows = (await (await f.client.get(url(f.season2027, q))).json()).rows as Row[];
+		const out = await (await f.client.get(url(f.season2027, `${q}&shape=series`))).json();
+		expect(out.rows).toBeUndefined();
+		expect(out.weeks).toEqual(['2027-W23', '2027-W24', '2027-W25']);
+		type S = { crop: string; supply: (number | null)[]; demand: number[]; actual: number[] };
+		const carrot = out.series.find((s: S) => s.crop === String(f.crops.carrot));
+		// Carrot has figures in W24 only (20 lb against 25 lb, as above): null where there is no row.
+		expect(carrot.supply[0]).toBeNull();
+		expect(carrot.supply[1]).toBeCloseTo(20, 9);
+		expect(carrot.supply[2]).toBeNull();
+		expect(carrot.demand).toEqual([0, 25, 0]);
+		expect(carrot.actual).toEqual([]);
+		// Every row of the rows shape is one non-null entry, with the same supply and demand.
+		const back = out.series.flatMap((s: S) => out.weeks.flatMap((w: string, i: number) => (s.supply[i] === null ? [] : [[s.crop, w, s.supply[i], s.demand[i]]])));
+		expect(back).toEqual(rows.map((r) => [r.crop, r.week, r.supply, r.demand]));
+	});
+
+	it('shape=series marks logged weeks by index', async () => {
+		const out = await (await f.client.get(url(f.season2026, `?crops=${f.crops.carrot}&from=2026-W47&to=2026-W48&shape=series`))).json();
+		// W47 (index 0) had 31 lb logged; W48 (index 1) keeps the 50 lb forecast.
+		expect(out.series).toHaveLength(1);
+		expect(out.series[0].supply.map((x: number) => Math.round(x * 1e6) / 1e6)).toEqual([31, 50]);
+		expect(out.series[0].actual).toEqual([0]);
 	});
 });

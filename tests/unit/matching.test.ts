@@ -14,6 +14,7 @@ import {
 	supplyWithActuals,
 	swapStep
 } from '../../src/lib/planning/index';
+import { forecastFromWeeklySupply } from '../../src/lib/planning/forecast';
 
 // 2027-W24 is Mon 14 Jun – Sun 20 Jun 2027; W25 is 21–27 Jun (ISO 8601: W01 starts Mon 4 Jan 2027,
 // 4 Jan + 23 × 7 days = 14 Jun).
@@ -174,5 +175,38 @@ describe('supplyWithActuals', () => {
 		const via = forecastFromSupply(supplyWithActuals(plantings, [], '2027-W01').supply, []);
 		expect(via.map((r) => [r.week, Math.round(r.supply * 1e9) / 1e9])).toEqual([['2027-W24', 21], ['2027-W25', 14]]);
 		expect(direct.map((r) => r.week)).toEqual(via.map((r) => r.week));
+	});
+});
+
+describe('forecastFromWeeklySupply (the forecast route joins supply with targets in one pass)', () => {
+	it('joins weekly supply with targets, by hand', () => {
+		// Targets: carrot W24 = 10 × 2 + 5 × 1 = 25, kale W24 = 10 × 1 = 10, kale W25 = 10 × 1 = 10.
+		// Carrot 20 − 25 → 5 short; kale W24 12 − 10 → 2 over; kale W25 has no supply → 10 short;
+		// spinach 10 with no demand → 10 over; chard 0 is no supply and no demand → no row.
+		const weekly = [
+			{ crop: 'spinach', week: '2027-W24', quantity: 10 },
+			{ crop: 'carrot', week: '2027-W24', quantity: 20 },
+			{ crop: 'chard', week: '2027-W24', quantity: 0 },
+			{ crop: 'kale', week: '2027-W24', quantity: 12 }
+		];
+		const rows = forecastFromWeeklySupply(weekly, deriveTargets(demand));
+		expect(rows.map((r) => [r.crop, r.week, Math.round(r.supply * 1e9) / 1e9, r.demand, Math.round(r.shortfall * 1e9) / 1e9, Math.round(r.surplus * 1e9) / 1e9])).toEqual([
+			['carrot', '2027-W24', 20, 25, 5, 0],
+			['kale', '2027-W24', 12, 10, 0, 2],
+			['kale', '2027-W25', 0, 10, 10, 0],
+			['spinach', '2027-W24', 10, 0, 0, 10]
+		]);
+	});
+	it('gives forecastFromSupply’s rows to the last bit, awkward fractions included', () => {
+		// Quantities that are not multiples of 7 (q ÷ 7 × 7 need not be q in floating point).
+		const odd = [0.1, 0.3, 1 / 3, 2.675, 19.999999, 1e-7, 123456.789].flatMap((q, i) => [
+			{ crop: `c${i % 3}`, week: `2027-W${String(20 + i).padStart(2, '0')}`, quantity: q },
+			{ crop: `c${(i + 1) % 3}`, week: '2027-W30', quantity: q * 3 }
+		]);
+		const targets = [{ crop: 'c1', week: '2027-W30', quantity: 0.7 }, { crop: 'c9', week: '2027-W01', quantity: 0 }];
+		expect(forecastFromWeeklySupply(odd, targets)).toEqual(forecastFromSupply(odd, targets));
+	});
+	it('refuses a negative target naming it, as forecast() does', () => {
+		expect(() => forecastFromWeeklySupply([], [{ crop: 'kale', week: '2027-W24', quantity: -1 }])).toThrow(/targets\[0\]\.quantity/);
 	});
 });

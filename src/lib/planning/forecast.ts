@@ -82,10 +82,38 @@ export function forecast(plantings: ForecastPlanting[], targets: CropWeekQuantit
 			addTo(supply, p.crop, monday, days * w.perDay);
 		}
 	});
+	addTargets(demand, targets);
+	return rowsOf(supply, demand);
+}
+
+function addTargets(demand: Map<string, Map<DayNumber, number>>, targets: CropWeekQuantity[]): void {
 	targets.forEach((t, i) => {
 		const q = requireNonNegative(`targets[${i}].quantity`, t.quantity);
 		addTo(demand, t.crop, weekStartDay(t.week, `targets[${i}].week`), q);
 	});
+}
+
+/**
+ * Weekly supply already summed per crop and ISO week, against targets, as forecast() rows:
+ * the same rows as forecast() over one Monday–Sunday planting of weeklyYield q per supply
+ * entry (entries of 0 or less left out), without that second pass over pseudo-plantings.
+ * forecast() spreads q as 7 days × (q ÷ 7), which is not always q to the last bit, so the
+ * same product is taken here and the rows stay identical.
+ */
+export function forecastFromWeeklySupply(weekly: CropWeekQuantity[], targets: CropWeekQuantity[]): ForecastRow[] {
+	const supply = new Map<string, Map<DayNumber, number>>();
+	const demand = new Map<string, Map<DayNumber, number>>();
+	weekly.forEach((s, i) => {
+		if (!(s.quantity > 0)) return;
+		if (typeof s.crop !== 'string') throw new PlanningInputError(`supply[${i}].crop`, 'is required');
+		addTo(supply, s.crop, weekStartDay(s.week, `supply[${i}].week`), 7 * (s.quantity / 7));
+	});
+	addTargets(demand, targets);
+	return rowsOf(supply, demand);
+}
+
+/** One row per crop and week with supply or demand, sorted by crop then week. */
+function rowsOf(supply: Map<string, Map<DayNumber, number>>, demand: Map<string, Map<DayNumber, number>>): ForecastRow[] {
 	const weekName = new Map<DayNumber, string>();
 	const nameOf = (m: DayNumber): string => {
 		let s = weekName.get(m);

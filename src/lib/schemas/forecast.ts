@@ -26,7 +26,10 @@ export const forecastQuerySchema = z
 			.transform((v) => [...new Set(v.split(',').map(Number))])
 			.optional(),
 		from: isoWeekField('from').optional(),
-		to: isoWeekField('to').optional()
+		to: isoWeekField('to').optional(),
+		// 'rows' (the default): one object per crop-week. 'series': per crop, one array per
+		// figure across the weeks — a quarter of the bytes, what the forecast page asks for.
+		shape: z.enum(['rows', 'series'], { error: "shape must be 'rows' or 'series'." }).optional()
 	})
 	.refine((q) => !q.from || !q.to || q.from <= q.to, { path: ['to'], message: 'to must not be before from.' });
 

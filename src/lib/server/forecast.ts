@@ -5,7 +5,6 @@ import {
 	applySwaps,
 	cropWeekKey,
 	deriveTargets,
-	forecastFromSupply,
 	isoWeek,
 	supplyWithActuals,
 	weeksBetween,
@@ -14,6 +13,7 @@ import {
 	type ForecastRow,
 	type TargetInput
 } from '$lib/planning';
+import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { todayIn } from '$lib/today';
 import { db } from './db';
 import { targetInput } from './demand';
@@ -104,7 +104,41 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 		currentWeek
 	);
 	const demand = applySwaps(input, swaps);
-	const rows = forecastFromSupply(supply, deriveTargets(demand)).map((r) => ({ ...r, actual: actual.has(cropWeekKey(r.crop, r.week)) }));
+	// The supply is summed per crop-week already: join it with the targets directly rather than
+	// through a second forecast() over one pseudo-planting per crop-week (same rows, bit for bit).
+	const rows = forecastFromWeeklySupply(supply, deriveTargets(demand)) as SeasonForecastRow[];
+	for (const r of rows) r.actual = actual.size > 0 && actual.has(cropWeekKey(r.crop, r.week));
 	const timing = { db: t1 - t0, engine: performance.now() - t1 };
 	return { weeks: seasonWeeks(season), currentWeek, crops, rows, demand, swaps, timing };
+}
+
+/**
+ * One crop's figures across the response's weeks (the `shape=series` answer): supply[i] is null
+ * where the crop has neither supply nor demand in weeks[i] (no row in the rows shape); demand[i]
+ * is 0 there. Shortfall and surplus are max(0, demand − supply) and max(0, supply − demand), so
+ * they are not sent. actual lists the indices of the weeks with logged harvests.
+ */
+export interface ForecastSeries {
+	crop: string;
+	supply: (number | null)[];
+	demand: number[];
+	actual: number[];
+}
+
+/** Rows (sorted by crop, then week, all within `weeks`) as one series per crop, in the same order. */
+export function toSeries(rows: SeasonForecastRow[], weeks: string[]): ForecastSeries[] {
+	const index = new Map(weeks.map((w, i) => [w, i]));
+	const out: ForecastSeries[] = [];
+	let s: ForecastSeries | undefined;
+	for (const r of rows) {
+		if (s?.crop !== r.crop) {
+			s = { crop: r.crop, supply: new Array<number | null>(weeks.length).fill(null), demand: new Array<number>(weeks.length).fill(0), actual: [] };
+			out.push(s);
+		}
+		const i = index.get(r.week)!;
+		s.supply[i] = r.supply;
+		s.demand[i] = r.demand;
+		if (r.actual) s.actual.push(i);
+	}
+	return out;
 }

@@ -14,6 +14,27 @@ export interface ForecastResponse {
 	rows: ForecastApiRow[];
 }
 
+/** The API's `shape=series` answer: per crop, one array per figure across `weeks`. */
+interface SeriesResponse extends Omit<ForecastResponse, 'rows'> {
+	series: { crop: string; supply: (number | null)[]; demand: number[]; actual: number[] }[];
+}
+
+/** Back to one row per crop-week (in the API's order: by crop, then week), as the charts and table read them. */
+export function rowsFromSeries(body: SeriesResponse): ForecastResponse {
+	const rows: ForecastApiRow[] = [];
+	for (const s of body.series) {
+		const actual = new Set(s.actual);
+		for (let i = 0; i < body.weeks.length; i++) {
+			const supply = s.supply[i];
+			if (supply === null) continue;
+			const demand = s.demand[i];
+			// The engine's own arithmetic, so the figures match the rows shape exactly.
+			rows.push({ crop: s.crop, week: body.weeks[i], supply, demand, shortfall: Math.max(0, demand - supply), surplus: Math.max(0, supply - demand), actual: actual.has(i) });
+		}
+	}
+	return { from: body.from, to: body.to, weeks: body.weeks, currentWeek: body.currentWeek, crops: body.crops, rows };
+}
+
 export interface Query {
 	from: string;
 	to: string;
@@ -38,7 +59,7 @@ export class ForecastData {
 	}
 
 	async load(q: Query): Promise<void> {
-		const params = new URLSearchParams({ from: q.from, to: q.to });
+		const params = new URLSearchParams({ from: q.from, to: q.to, shape: 'series' });
 		if (q.crops) params.set('crops', q.crops.join(','));
 		const seq = ++this.#seq;
 		this.loading = true;
@@ -51,8 +72,9 @@ export class ForecastData {
 				return;
 			}
 			this.error = null;
+			// The response in hand: turning it back into rows counts as part of the chart's render.
 			this.arrivedAt = performance.now();
-			this.data = body as ForecastResponse;
+			this.data = rowsFromSeries(body as SeriesResponse);
 			this.fetches++;
 		} catch {
 			if (seq === this.#seq) this.error = 'The forecast could not be loaded: no connection to the server.';

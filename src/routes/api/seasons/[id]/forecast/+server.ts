@@ -1,10 +1,11 @@
 // GET /api/seasons/{id}/forecast?crops=3,7&from=2027-W20&to=2027-W30 — weekly supply, demand,
 // shortfall and surplus per crop, for the forecast charts. Every role may read it.
+// &shape=series answers per crop with arrays across the weeks instead of a row per crop-week.
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireUser } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
-import { seasonForecast } from '$lib/server/forecast';
+import { seasonForecast, toSeries } from '$lib/server/forecast';
 import { forecastQuerySchema, MAX_FORECAST_WEEKS } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { weeksBetween } from '$lib/planning';
@@ -18,7 +19,7 @@ export const GET: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const params = event.url.searchParams;
 	const raw: Record<string, string> = {};
-	for (const name of ['crops', 'from', 'to']) if (params.has(name)) raw[name] = params.getAll(name).join(',');
+	for (const name of ['crops', 'from', 'to', 'shape']) if (params.has(name)) raw[name] = params.getAll(name).join(',');
 	const parsed = forecastQuerySchema.safeParse(raw);
 	if (!parsed.success) return bad(fieldErrors(parsed.error));
 
@@ -38,13 +39,8 @@ export const GET: RequestHandler = async (event) => {
 	// Without a list, the crops that have supply or demand in the range.
 	const chosen = new Set(asked ?? inRange.filter((r) => r.supply > 0 || r.demand > 0).map((r) => r.crop));
 	const serverTiming = `db;dur=${f.timing.db.toFixed(1)}, engine;dur=${f.timing.engine.toFixed(1)}`;
-	return json({
-		season: { id: season.id, name: season.name },
-		from,
-		to,
-		weeks,
-		currentWeek: f.currentWeek,
-		crops: f.crops.filter((c) => chosen.has(c.id)),
-		rows: inRange.filter((r) => chosen.has(r.crop))
-	}, { headers: { 'server-timing': serverTiming } });
+	const rows = inRange.filter((r) => chosen.has(r.crop));
+	const head = { season: { id: season.id, name: season.name }, from, to, weeks, currentWeek: f.currentWeek, crops: f.crops.filter((c) => chosen.has(c.id)) };
+	const body = parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
+	return json(body, { headers: { 'server-timing': serverTiming } });
 };
