@@ -53,8 +53,10 @@ describe('phone: log a harvest, then see it in the chart', () => {
 		await page.goto(`/seasons/${season}/results`);
 		const chart = page.locator(`[data-testid=crop-chart][data-crop="${kale.crop}"]`);
 		const bars = chart.locator('[data-testid=logged-bar]');
-		const values = await bars.evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-value'))));
-		expect(values).toContain(Number(sum!.q));
+		// The chart draws in the browser once it knows its width: wait for its bars rather than race it.
+		await expect
+			.poll(() => bars.evaluateAll((els) => els.map((e) => Number(e.getAttribute('data-value')))), { timeout: 15_000 })
+			.toContain(Number(sum!.q));
 		await expect(chart.locator('[data-testid=forecast-line]').getAttribute('d')).resolves.toMatch(/^M/);
 
 		const del = await page.request.delete(`/api/seasons/${season}/harvests/${record.id}`);
