@@ -67,6 +67,13 @@ export const UNDO_LIMIT = 200;
 
 let newKey = 0;
 
+class RowBox {
+	current: GridRow = $state.raw() as unknown as GridRow;
+	constructor(row: GridRow) {
+		this.current = row;
+	}
+}
+
 export class GridState {
 	rows = $state.raw<GridRow[]>([]);
 	filters = $state<Filters>({ crop: '', bedId: '', block: '', status: '', fromWeek: '', toWeek: '', warningsOnly: false });
@@ -87,6 +94,14 @@ export class GridState {
 	readonly editable: ReadonlySet<PlantingField>;
 	readonly save: SaveQueue;
 	private byKey = new Map<string, GridRow>();
+	/** One reactive box per row (its latest GridRow), for the drawn cells: see current(). */
+	private boxes = new Map<string, RowBox>();
+	/**
+	 * The view's row items by key, reused while their row object and position are unchanged:
+	 * an edit then hands the virtualised rows the same item objects for every row but the
+	 * edited one, so only that row's cells are drawn again (not every visible cell).
+	 */
+	private itemCache = new Map<string, Item & { kind: 'row' }>();
 
 	constructor(init: GridInit, api: GridApi, opts: { debounceMs?: number } = {}) {
 		this.lookups = {
@@ -108,10 +123,24 @@ export class GridState {
 	setRows(rows: GridRow[]): void {
 		this.rows = rows;
 		this.byKey = new Map(rows.map((r) => [r.key, r]));
+		for (const r of rows) {
+			const box = this.boxes.get(r.key);
+			if (!box) this.boxes.set(r.key, new RowBox(r));
+			else if (box.current !== r) box.current = r;
+		}
+		if (this.boxes.size > rows.length) for (const k of this.boxes.keys()) if (!this.byKey.has(k)) this.boxes.delete(k);
 	}
 
 	row(key: string): GridRow | undefined {
 		return this.byKey.get(key);
+	}
+
+	/**
+	 * The row by key, read reactively row by row: a cell drawn from this wakes up only when its
+	 * own row changes, so an edit redraws the edited row and nothing else.
+	 */
+	current(key: string): GridRow | undefined {
+		return this.boxes.get(key)?.current;
 	}
 
 	/** Conflicts recalculated for the given beds only (all beds when null): an edit touches one or two. */
@@ -175,7 +204,15 @@ export class GridState {
 			rows = keyed.map((k) => k.r);
 		}
 		const items: Item[] = [];
-		if (group === 'none') rows.forEach((row, index) => items.push({ kind: 'row', row, index }));
+		const prevItems = this.itemCache;
+		const nextItems = new Map<string, Item & { kind: 'row' }>();
+		const rowItem = (row: GridRow, index: number): Item => {
+			const old = prevItems.get(row.key);
+			const item = old && old.row === row && old.index === index ? old : { kind: 'row' as const, row, index };
+			nextItems.set(row.key, item);
+			return item;
+		};
+		if (group === 'none') rows.forEach((row, index) => items.push(rowItem(row, index)));
 		else {
 			let current: { label: string; totals: GroupTotals } | null = null;
 			rows.forEach((row, index) => {
@@ -190,9 +227,10 @@ export class GridState {
 				t.grams += row.derived?.seed.grams ?? 0;
 				const unit = l.varietyById.get(row.values.varietyId)?.harvestUnit ?? '?';
 				t.yield[unit] = (t.yield[unit] ?? 0) + (row.derived?.expectedYield ?? 0);
-				items.push({ kind: 'row', row, index });
+				items.push(rowItem(row, index));
 			});
 		}
+		this.itemCache = nextItems;
 		return { rows, items };
 	}
 
@@ -202,14 +240,13 @@ export class GridState {
 
 	// ---- selection
 
-	get range(): { r0: number; r1: number; c0: number; c1: number } {
-		return {
-			r0: Math.min(this.anchor.r, this.focus.r),
-			r1: Math.max(this.anchor.r, this.focus.r),
-			c0: Math.min(this.anchor.c, this.focus.c),
-			c1: Math.max(this.anchor.c, this.focus.c)
-		};
-	}
+	/** Derived once per move, not once per cell that asks. */
+	range = $derived.by((): { r0: number; r1: number; c0: number; c1: number } => ({
+		r0: Math.min(this.anchor.r, this.focus.r),
+		r1: Math.max(this.anchor.r, this.focus.r),
+		c0: Math.min(this.anchor.c, this.focus.c),
+		c1: Math.max(this.anchor.c, this.focus.c)
+	}));
 
 	moveTo(r: number, c: number, extend = false): void {
 		const rows = this.view.rows.length;
@@ -230,6 +267,17 @@ export class GridState {
 		if (c >= cols) [r, c] = [r + 1, 0];
 		if (c < 0) [r, c] = [r - 1, cols - 1];
 		this.moveTo(r, c);
+	}
+
+	/** Focuses and selects the row of a planting (the timeline links here); false when it is not shown. */
+	selectPlanting(id: number): boolean {
+		const index = this.view.rows.findIndex((r) => r.id === id);
+		if (index < 0) {
+			this.message = `Planting #${id} is not in this view of the season.`;
+			return false;
+		}
+		this.moveTo(index, this.focus.c);
+		return true;
 	}
 
 	focusRow(): GridRow | undefined {

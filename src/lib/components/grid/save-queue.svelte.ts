@@ -27,6 +27,9 @@ export interface Conflict {
 	mine: Partial<Record<PlantingField, unknown>>;
 }
 
+/** Told on window after a save round wrote something, so other views (the forecast) refetch. */
+export const PLAN_CHANGED_EVENT = 'furrowcast:plan-changed';
+
 export type SaveStatus = 'idle' | 'pending' | 'saving' | 'saved' | 'failed';
 
 export function fetchApi(fetcher: typeof fetch = fetch): GridApi {
@@ -156,6 +159,7 @@ export class SaveQueue {
 		this.removed.clear();
 		this.status = 'saving';
 		const failures: string[] = [];
+		let wrote = 0;
 		const requeue = (fn: () => void, why: string): void => {
 			fn();
 			failures.push(why);
@@ -169,6 +173,7 @@ export class SaveQueue {
 				this.api.create(this.seasonId, freshRows.map((r) => createBody(r.values))).then(
 					(a) => {
 						if (a.status === 201) {
+							wrote++;
 							(a.body.plantings as PlantingView[]).forEach((p, i) => {
 								const key = freshRows[i].key;
 								const later = this.touched.get(key);
@@ -192,7 +197,10 @@ export class SaveQueue {
 			for (const f of fields) body[f] = row.values[f];
 			tasks.push(
 				this.api.patch(row.id, body).then(
-					(a) => this.patched(key, fields, body, a, failures),
+					(a) => {
+						if (a.status === 200) wrote++;
+						this.patched(key, fields, body, a, failures);
+					},
 					(e) => requeue(() => this.mergeDirty(key, fields), String(e))
 				)
 			);
@@ -201,7 +209,8 @@ export class SaveQueue {
 			tasks.push(
 				this.api.remove(row.id!).then(
 					(a) => {
-						if (a.status !== 204 && a.status !== 404) requeue(() => this.removed.set(key, row), messageOf(a));
+						if (a.status === 204) wrote++;
+						else if (a.status !== 404) requeue(() => this.removed.set(key, row), messageOf(a));
 					},
 					(e) => requeue(() => this.removed.set(key, row), String(e))
 				)
@@ -209,6 +218,8 @@ export class SaveQueue {
 		}
 		await Promise.all(tasks);
 		this.count();
+		// Even a round that partly failed changed the saved plan: whatever was written is news.
+		if (wrote > 0 && typeof window !== 'undefined') window.dispatchEvent(new Event(PLAN_CHANGED_EVENT));
 		if (failures.length) {
 			this.status = 'failed';
 			this.error = failures[0];
