@@ -1,35 +1,12 @@
 // The bridge between the grid's rows and the planning engine, used by the browser (instant
 // recalculation) and by the server (authoritative figures on save) alike. Pure: no I/O.
 import type { Variety } from '$lib/planning';
+import type { VarietyView } from '$lib/types';
+import { toEngineVariety } from '$lib/varieties';
 import { derivePlanting, type DeriveFarm, type DerivedPlanting } from '$lib/planning/planting-derive';
 
-/** A variety as the grid receives it (the crop library's view, plain JSON). */
-export interface GridVariety {
-	id: number;
-	cropId: number;
-	crop: string;
-	family: string;
-	harvestUnit: string;
-	frostTolerance: 'tender' | 'hardy';
-	heatLimitF: number | null;
-	baseTempF: number;
-	name: string;
-	method: 'direct' | 'transplant';
-	daysToMaturity: number;
-	daysInTray: number;
-	harvestWindowDays: number;
-	yieldPerBedFoot: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	germinationRate: number;
-	seedsPerGram: number;
-	seedPriceCentsPerGram: number;
-	seedsPerPacket: number | null;
-	cellsPerTray: number;
-	margin: number;
-	gddToMaturity: number | null;
-}
+/** A variety as the grid receives it: the crop library's view, plain JSON. */
+export type GridVariety = VarietyView;
 
 export interface GridBed {
 	id: number;
@@ -44,40 +21,8 @@ export interface GridFarm extends DeriveFarm {
 	bedFootIncrement: number;
 }
 
-const cache = new WeakMap<GridVariety, Variety>();
-
-export function engineVariety(v: GridVariety): Variety {
-	let out = cache.get(v);
-	if (!out) {
-		out = {
-			id: String(v.id),
-			cropId: String(v.cropId),
-			name: v.name,
-			crop: v.crop,
-			family: v.family,
-			method: v.method,
-			daysToMaturity: v.daysToMaturity,
-			daysInTray: v.daysInTray,
-			harvestWindowDays: v.harvestWindowDays,
-			yieldPerBedFoot: v.yieldPerBedFoot,
-			rows: v.rows,
-			inRowSpacingIn: v.inRowSpacingIn,
-			seedsPerSpot: v.seedsPerSpot,
-			germinationRate: v.germinationRate,
-			seedsPerGram: v.seedsPerGram,
-			cellsPerTray: v.cellsPerTray,
-			frostTender: v.frostTolerance === 'tender',
-			heatLimitF: v.heatLimitF ?? undefined,
-			baseTempF: v.baseTempF,
-			gddToMaturity: v.gddToMaturity ?? undefined,
-			seedPriceCentsPerGram: v.seedPriceCentsPerGram,
-			seedsPerPacket: v.seedsPerPacket ?? undefined,
-			margin: v.margin
-		};
-		cache.set(v, out);
-	}
-	return out;
-}
+/** The engine's form of a library variety, shared with the server's planner. */
+export const engineVariety: (v: GridVariety) => Variety = toEngineVariety;
 
 export interface DeriveRow {
 	method: 'direct' | 'transplant';
