@@ -216,7 +216,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				germinationRate: v.germinationRate, seedsPerGram: v.seedsPerGram, margin: v.margin ?? input.options?.seedMargin ?? 0.1,
 				cellsPerTray: v.cellsPerTray, seedPriceCentsPerGram: v.seedPriceCentsPerGram, seedsPerPacket: v.seedsPerPacket
 			}),
-			warnings: [...own, ...(notesByKey.get(key) ?? [])],
+			// Most plantings carry no placement note: share their own list rather than copy it.
+			warnings: notesByKey.has(key) ? [...own, ...notesByKey.get(key)!] : own,
 			unplacedReason
 		};
 	};
