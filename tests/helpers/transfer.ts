@@ -91,7 +91,7 @@ export async function upload(client: Client, name: string, content: Uint8Array |
 	const form = new FormData();
 	form.set('file', new Blob([typeof content === 'string' ? content : new Uint8Array(content)]), name);
 	for (const [k, v] of Object.entries(fields)) form.set(k, v);
-	return client.request('/api/farm/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'application/json' } });
+	return client.request('/api/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'application/json' } });
 }
 
 /** A season's plan as comparable rows, by names rather than ids (ids differ between farms). */

@@ -194,7 +194,7 @@ describe('size and type', () => {
 	it('over 5 MB: 413, naming the limit', async () => {
 		const big = new Uint8Array(5 * 1024 * 1024 + 10);
 		big.set([0x50, 0x4b, 0x03, 0x04]);
-		const res = await owner.request('/api/farm/import', { method: 'POST', body: (() => { const f = new FormData(); f.set('file', new Blob([big]), 'big.xlsx'); return f; })(), headers: { origin: baseUrl(), accept: 'application/json' } });
+		const res = await owner.request('/api/import', { method: 'POST', body: (() => { const f = new FormData(); f.set('file', new Blob([big]), 'big.xlsx'); return f; })(), headers: { origin: baseUrl(), accept: 'application/json' } });
 		expect(res.status).toBe(413);
 		expect((await res.json()).message).toMatch(/5 MB/);
 	});
@@ -202,14 +202,14 @@ describe('size and type', () => {
 		expect((await upload(owner, 'notes.pdf', '%PDF-1.4 not a sheet')).status).toBe(415);
 		expect((await upload(owner, 'fake.xlsx', 'Crop,Family\n')).status).toBe(415);
 		expect((await upload(owner, 'zip.csv', demoFile)).status).toBe(415);
-		const raw = await owner.json('/api/farm/import', 'POST', { file: 'x' });
+		const raw = await owner.json('/api/import', 'POST', { file: 'x' });
 		expect(raw.status).toBe(415);
 		expect(await farmRows(farmId)).toEqual(nothing);
 	});
 	it('no file, or a zip that is no workbook: 400', async () => {
 		const empty = new FormData();
 		empty.set('sheet', 'Beds');
-		const res = await owner.request('/api/farm/import', { method: 'POST', body: empty, headers: { origin: baseUrl(), accept: 'application/json' } });
+		const res = await owner.request('/api/import', { method: 'POST', body: empty, headers: { origin: baseUrl(), accept: 'application/json' } });
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors[0].header).toBe('file');
 		expect((await upload(owner, 'broken.xlsx', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 1, 2, 3]))).status).toBe(400);
