@@ -9,18 +9,7 @@
  */
 import { pathToFileURL } from 'node:url';
 import { type Bed, type Farm, type SeasonPlanInput, type SeasonVariety, addWeeks, planSeason, weeksBetween } from '../src/lib/planning/index';
-
-/** mulberry32: a small deterministic PRNG, so every run plans the same season. */
-function prng(seed: number): () => number {
-	let a = seed >>> 0;
-	return () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
+import { median, prng } from './bench-stats';
 
 const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Alliaceae', 'Fabaceae', 'Solanaceae', 'Cucurbitaceae'];
 
@@ -85,12 +74,6 @@ function planOnce(season: Season): { placed: number; unplaced: number } {
 	const plan = planSeason(season);
 	const unplaced = plan.plantings.filter((p) => p.bedId === null).length;
 	return { placed: plan.plantings.length - unplaced, unplaced };
-}
-
-function median(xs: number[]): number {
-	const s = [...xs].sort((a, b) => a - b);
-	const m = s.length >> 1;
-	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
 }
 
 function timeMedian(season: Season, warmups: number, runs: number): number {

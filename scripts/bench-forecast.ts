@@ -17,6 +17,7 @@ import { addDays, weekStart, weeksBetween } from '../src/lib/planning/index';
 import { Client } from '../tests/helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../tests/helpers/db';
 import { launch, signIn } from '../tests/helpers/browser';
+import { median, prng } from './bench-stats';
 
 const CROPS = 60;
 const PLANTINGS = 5_000;
@@ -24,23 +25,6 @@ const YEAR = 2031;
 const FROM = `${YEAR}-W10`;
 const TO = `${YEAR}-W49`;
 const PASSWORD = 'bench-forecast-pass';
-
-function prng(seed: number): () => number {
-	let a = seed >>> 0;
-	return () => {
-		a = (a + 0x6d2b79f5) >>> 0;
-		let t = a;
-		t = Math.imul(t ^ (t >>> 15), t | 1);
-		t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-		return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-	};
-}
-
-function median(xs: number[]): number {
-	const s = [...xs].sort((a, b) => a - b);
-	const m = s.length >> 1;
-	return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
-}
 
 interface BenchPlanting {
 	crop: number;

@@ -1,6 +1,6 @@
 // The crop library's variety, as the planning engine takes it. Shared by the server's planner
 // and the browser's grid, so both plan from the same figures.
-import type { SeasonVariety } from '$lib/planning';
+import { seedNeed, type SeasonVariety, type SeedNeed } from '$lib/planning';
 import type { VarietyView } from '$lib/types';
 
 const cache = new WeakMap<VarietyView, SeasonVariety>();
@@ -37,4 +37,30 @@ export function toEngineVariety(v: VarietyView): SeasonVariety {
 		cache.set(v, out);
 	}
 	return out;
+}
+
+/** The fields of a planting that size its seed: its own bed-feet, rows and spacing. */
+export interface SeededPlanting {
+	method: 'direct' | 'transplant';
+	lengthFt: number;
+	rows: number;
+	inRowSpacingIn: number;
+	seedsPerSpot: number;
+}
+
+/** Seed for one planting from the engine, with the variety's germination, seed size and prices. */
+export function plantingSeed(p: SeededPlanting, v: VarietyView): SeedNeed {
+	return seedNeed({
+		method: p.method,
+		bedFeet: p.lengthFt,
+		rows: p.rows,
+		inRowSpacingIn: p.inRowSpacingIn,
+		seedsPerSpot: p.seedsPerSpot,
+		germinationRate: v.germinationRate,
+		seedsPerGram: v.seedsPerGram,
+		margin: v.margin,
+		cellsPerTray: v.cellsPerTray,
+		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
+		seedsPerPacket: v.seedsPerPacket ?? undefined
+	});
 }

@@ -2,7 +2,8 @@
 // engine (seed, forecast, targets). Pure: no I/O, so the bench and tests can call it alike.
 // Values are plain: dates as 'YYYY-MM-DD' (the writer turns them into real Excel dates),
 // money in dollars, rates as fractions.
-import { deriveTargets, forecast, seedNeed, type ForecastPlanting, type SeedNeed } from '$lib/planning';
+import { deriveTargets, forecast, type ForecastPlanting, type SeedNeed } from '$lib/planning';
+import { plantingSeed } from '$lib/varieties';
 import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
@@ -22,22 +23,6 @@ export interface SheetRows {
 	beds: Row[];
 }
 
-/** Seed for one planting from the engine, on the planting's own bed-feet, rows and spacing. */
-function plantingSeed(p: ExportPlanting, v: VarietyView): SeedNeed {
-	return seedNeed({
-		method: p.method,
-		bedFeet: p.lengthFt,
-		rows: p.rows,
-		inRowSpacingIn: p.inRowSpacingIn,
-		seedsPerSpot: p.seedsPerSpot,
-		germinationRate: v.germinationRate,
-		seedsPerGram: v.seedsPerGram,
-		margin: v.margin,
-		cellsPerTray: v.cellsPerTray,
-		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
-		seedsPerPacket: v.seedsPerPacket ?? undefined
-	});
-}
 
 /** A calendar date as a Date at UTC midnight: exceljs turns it into a whole Excel day number. */
 export function excelDate(iso: string): Date {

@@ -1,7 +1,8 @@
 // The week's crew sheets for one season: what to sow in trays, direct-sow, transplant and
 // harvest, with the figures the crew needs (cells, trays, seed grams, plants, expected harvest and
 // who it is for), grouped by block and bed in walking order. Figures come from the engine.
-import { forecast, seedNeed, type SeedNeed } from '$lib/planning';
+import { forecast, type SeedNeed } from '$lib/planning';
+import { plantingSeed } from '$lib/varieties';
 import { db } from '../db';
 import { listVarieties, type VarietyView } from '../crops';
 import { tasksForWeek, type PlantingView } from '../plantings';
@@ -124,17 +125,7 @@ function round(n: number, places: number): number {
 function seedFor(p: PlantingView, v: VarietyView | undefined): SheetRow['seed'] {
 	if (!v) return null;
 	try {
-		const s = seedNeed({
-			method: p.method,
-			bedFeet: p.lengthFt,
-			rows: p.rows,
-			inRowSpacingIn: p.inRowSpacingIn,
-			seedsPerSpot: p.seedsPerSpot,
-			germinationRate: v.germinationRate,
-			seedsPerGram: v.seedsPerGram,
-			margin: v.margin,
-			cellsPerTray: v.cellsPerTray
-		});
+		const s = plantingSeed(p, v);
 		return { seeds: s.seeds, grams: s.grams, cells: s.cells, trays: s.trays, plants: s.plants ?? s.spots };
 	} catch {
 		// A planting with figures the engine refuses still belongs on the sheet, without seed.
