@@ -37,17 +37,30 @@ export interface DtmContext {
  * threshold (common practice: about two weeks longer in autumn's short days).
  */
 export function effectiveDaysToMaturity(variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
+	return effectiveDaysInto(blankDtm(), variety, firstHarvest, ctx);
+}
+
+/** An empty record for effectiveDaysInto to fill. */
+export function blankDtm(): EffectiveDtm {
+	return { days: 0, source: 'variety', varietyDays: 0, dayLengthHours: 0, thresholdHours: 0, allowanceDays: 0, warnings: [] };
+}
+
+/**
+ * effectiveDaysToMaturity written into `out` (a record from blankDtm, possibly filled
+ * before): season planning reuses one record per variety instead of making one per
+ * succession. A caller that keeps `out.warnings` must take it before the next call.
+ */
+export function effectiveDaysInto(out: EffectiveDtm, variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
 	const dl = dayLengthHours(ctx.latitude, dayOfYearOfDay(firstHarvest));
-	const warnings: PlanningWarning[] = [];
-	const out: EffectiveDtm = {
-		days: variety.daysToMaturity,
-		source: 'variety',
-		varietyDays: variety.daysToMaturity,
-		dayLengthHours: dl,
-		thresholdHours: ctx.shortDayThresholdHours,
-		allowanceDays: 0,
-		warnings
-	};
+	if (out.warnings.length > 0) out.warnings = [];
+	const warnings = out.warnings;
+	out.days = variety.daysToMaturity;
+	out.source = 'variety';
+	out.varietyDays = variety.daysToMaturity;
+	out.dayLengthHours = dl;
+	out.thresholdHours = ctx.shortDayThresholdHours;
+	out.allowanceDays = 0;
+	if (out.gdd !== undefined) out.gdd = undefined;
 	if (ctx.temps && variety.gddToMaturity !== undefined && variety.baseTempF !== undefined) {
 		const required = variety.gddToMaturity;
 		const baseF = variety.baseTempF;

@@ -1,6 +1,6 @@
 import { BedIndex } from './bed-index';
-import { firstGap, gap, instant, instantGap } from './bed-gaps';
-import { type Bed, type BedPlanting, DEFAULT_TURNAROUND_DAYS, FT_EPSILON, type Occupancy } from './bed-types';
+import { type FlatOccupancies, firstGap, gap, instant, instantGap } from './bed-gaps';
+import { type Bed, type BedPlanting, DEFAULT_TURNAROUND_DAYS, FT_EPSILON } from './bed-types';
 import { PlanningInputError, itemField, requireNonNegativeInteger, requirePositive, requirePositiveItem } from './errors';
 import { toDayNumber, toDayNumberItem } from './day-number';
 import type { WarningCode } from './types';
@@ -48,14 +48,7 @@ export interface PlacementResult {
 
 interface BedState {
 	bed: Bed;
-	occ: Occupancy[];
-}
-
-interface Job {
-	req: PlacementRequest;
-	s: number;
-	e: number;
-	order: number;
+	occ: FlatOccupancies;
 }
 
 class Placer {
@@ -74,17 +67,28 @@ class Placer {
 		return family !== undefined && (this.held[b]?.includes(family) ?? false);
 	}
 
-	put(b: number, s: number, e: number, startFt: number, lengthFt: number, key: string): Occupancy {
-		const o = { s, e, a: startFt, b: startFt + lengthFt, key };
-		this.add(b, o, s);
-		return o;
+	/** Occupy feet [startFt, startFt + lengthFt) of bed b over days [s, e). */
+	put(b: number, s: number, e: number, startFt: number, lengthFt: number): void {
+		this.states[b].occ.push(s, e, startFt, startFt + lengthFt);
+		this.refresh(b, s);
 	}
 
 	/** Drop occupancies that ended before s: jobs come in field-date order, so none can matter again. */
 	private prune(st: BedState, s: number): void {
+		const occ = st.occ;
 		let w = 0;
-		for (const o of st.occ) if (o.e > s) st.occ[w++] = o;
-		st.occ.length = w;
+		for (let i = 0; i < occ.length; i += 4) {
+			if (occ[i + 1] > s) {
+				if (w !== i) {
+					occ[w] = occ[i];
+					occ[w + 1] = occ[i + 1];
+					occ[w + 2] = occ[i + 2];
+					occ[w + 3] = occ[i + 3];
+				}
+				w += 4;
+			}
+		}
+		occ.length = w;
 	}
 
 	private refresh(b: number, s: number): void {
@@ -93,12 +97,15 @@ class Placer {
 		this.index.set(b, instant.maxGap, instant.validUntil);
 	}
 
-	/** First bed (by order, optionally skipping some) with a gap of at least `need` ft over [s, e). */
-	find(s: number, e: number, need: number, skipFamily?: string): { b: number; startFt: number; gapFt: number } | null {
+	/** The last hit of find (one record, refilled: find runs for every planting and piece). */
+	readonly hit = { b: 0, startFt: 0, gapFt: 0 };
+
+	/** First bed (by order, optionally skipping some) with a gap of at least `need` ft over [s, e): written into `hit`. */
+	find(s: number, e: number, need: number, skipFamily?: string): boolean {
 		let from = 0;
 		for (;;) {
 			const b = this.index.findFrom(from, s, need - FT_EPSILON);
-			if (b < 0) return null;
+			if (b < 0) return false;
 			from = b + 1;
 			if (skipFamily !== undefined && this.held[b]?.includes(skipFamily)) continue;
 			const st = this.states[b];
@@ -107,21 +114,26 @@ class Placer {
 				continue;
 			}
 			this.prune(st, s);
-			if (firstGap(st.occ, st.bed.lengthFt, s, e, need)) return { b, startFt: gap.startFt, gapFt: gap.lengthFt };
+			if (firstGap(st.occ, st.bed.lengthFt, s, e, need)) {
+				this.hit.b = b;
+				this.hit.startFt = gap.startFt;
+				this.hit.gapFt = gap.lengthFt;
+				return true;
+			}
 			this.refresh(b, s);
 		}
 	}
 
-	add(b: number, o: Occupancy, s: number): void {
-		this.states[b].occ.push(o);
-		this.refresh(b, s);
-	}
-
-	remove(b: number, o: Occupancy): void {
-		const occ = this.states[b].occ;
-		const i = occ.indexOf(o);
-		if (i >= 0) occ.splice(i, 1);
-		this.index.invalidate(b);
+	/** Take back the occupancy put as (s, e, a, b) in bed `bed` (the last one that matches: it was put last). */
+	remove(bed: number, s: number, e: number, a: number, b: number): void {
+		const occ = this.states[bed].occ;
+		for (let i = occ.length - 4; i >= 0; i -= 4) {
+			if (occ[i] === s && occ[i + 1] === e && occ[i + 2] === a && occ[i + 3] === b) {
+				occ.splice(i, 4);
+				break;
+			}
+		}
+		this.index.invalidate(bed);
 	}
 }
 
@@ -145,19 +157,61 @@ function validateBeds(beds: Bed[]): Map<string, number> {
  * not fit is listed in `unplaced` with the reason. Fixed plantings are obstacles.
  */
 export function placePlantings(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): PlacementResult {
-	return placeIndexed(plantings, beds, options).result;
+	const p = placeIndexed(plantings, beds, options);
+	const placed: PlacedRange[] = p.placedFrom.map((from, i) => ({
+		plantingKey: plantings[from].key,
+		bedId: beds[p.placedBed[i]].id,
+		startFt: p.placedStart[i],
+		lengthFt: p.placedLength[i]
+	}));
+	return { placed, unplaced: p.unplaced, warnings: p.warnings };
 }
 
 /**
- * placePlantings, also giving for each placed range and each unplaced planting the
- * index of its request in `plantings`, so a caller can find its own record for
- * it without a lookup by key (planSeason does this for thousands of plantings).
+ * What placeIndexed finds: the placed ranges as parallel arrays (request index, bed
+ * index, start and length in feet; the pieces of a split planting one after
+ * another), which at thousands of plantings keeps a plan's live size down, and for
+ * each unplaced planting and each note the index of its request (-1: a note about
+ * a fixed planting).
  */
-export function placeIndexed(
-	plantings: PlacementRequest[],
-	beds: Bed[],
-	options: PlacementOptions = {}
-): { result: PlacementResult; placedFrom: number[]; unplacedFrom: number[] } {
+export interface IndexedPlacement {
+	placedFrom: number[];
+	placedBed: number[];
+	placedStart: number[];
+	placedLength: number[];
+	unplaced: PlacementResult['unplaced'];
+	unplacedFrom: number[];
+	warnings: PlacementNote[];
+	noteFrom: number[];
+}
+
+/**
+ * Plantings to place in placement's own form: parallel lists, one entry per
+ * planting, with dates as day numbers (and as given, for messages). planSeason
+ * fills these as it plans, so thousands of plantings need no request object each.
+ */
+export interface PlacementJobs {
+	keys: string[];
+	bedFeet: number[];
+	fieldDays: number[];
+	lastDays: number[];
+	fieldDates: string[];
+	lastHarvests: string[];
+	families: (string | undefined)[];
+}
+
+/** Beds and options checked, and fixed plantings laid as obstacles: what placing needs before the plantings. */
+export interface PlacementSetup {
+	beds: Bed[];
+	placer: Placer;
+	turnaround: number;
+	allowSplit: boolean;
+	minPiece: number;
+	maxBedFt: number;
+	result: IndexedPlacement;
+}
+
+export function preparePlacement(beds: Bed[], options: PlacementOptions = {}): PlacementSetup {
 	const bedIndexById = validateBeds(beds);
 	const turnaround =
 		options.turnaroundDays === undefined ? DEFAULT_TURNAROUND_DAYS : requireNonNegativeInteger('options.turnaroundDays', options.turnaroundDays);
@@ -165,141 +219,176 @@ export function placeIndexed(
 	const minPiece = options.minPieceFt === undefined ? 10 : requirePositive('options.minPieceFt', options.minPieceFt);
 	const prev = options.previousFamilyByBed ?? {};
 	const placer = new Placer(beds, prev);
-	const result: PlacementResult = { placed: [], unplaced: [], warnings: [] };
+	const result: IndexedPlacement = { placedFrom: [], placedBed: [], placedStart: [], placedLength: [], unplaced: [], unplacedFrom: [], warnings: [], noteFrom: [] };
 
 	for (const f of options.fixed ?? []) {
 		const b = bedIndexById.get(f.bedId);
 		if (b === undefined) {
 			result.warnings.push({ plantingKey: f.key, code: 'unknown_bed', message: `Fixed planting ${f.key} names unknown bed ${f.bedId}; ignored as an obstacle.` });
+			result.noteFrom.push(-1);
 			continue;
 		}
 		const s = toDayNumber(f.fieldDate, `fixed ${f.key}.fieldDate`);
-		const o = { s, e: toDayNumber(f.lastHarvest, `fixed ${f.key}.lastHarvest`) + turnaround + 1, a: f.startFt, b: f.startFt + f.lengthFt, key: f.key };
-		placer.states[b].occ.push(o);
+		placer.states[b].occ.push(s, toDayNumber(f.lastHarvest, `fixed ${f.key}.lastHarvest`) + turnaround + 1, f.startFt, f.startFt + f.lengthFt);
 	}
-
-	const jobs: Job[] = plantings.map((req, order) => {
-		requirePositiveItem('plantings', order, 'bedFeet', req.bedFeet);
-		const s = toDayNumberItem(req.fieldDate, 'plantings', order, 'fieldDate');
-		const last = toDayNumberItem(req.lastHarvest, 'plantings', order, 'lastHarvest');
-		if (last < s) throw new PlanningInputError(itemField('plantings', order, 'lastHarvest'), 'is before the field date');
-		return { req, s, e: last + turnaround + 1, order };
-	});
-	sortByFieldDay(jobs);
-
 	const maxBedFt = beds.reduce((m, b) => Math.max(m, b.lengthFt), 0);
-	const ctx: PlaceContext = { beds, placer, turnaround, allowSplit, minPiece, maxBedFt, result, placedFrom: [], unplacedFrom: [] };
-	for (const job of jobs) placeOne(job, ctx);
-	return { result, placedFrom: ctx.placedFrom, unplacedFrom: ctx.unplacedFrom };
+	return { beds, placer, turnaround, allowSplit, minPiece, maxBedFt, result };
 }
 
 /**
- * Sort jobs by field day, then input order. A plan's field days span a season, so a
- * stable bucket pass by day does it in linear time; jobs over a span much longer
- * than their number (e.g. years apart) use the ordinary sort.
+ * placePlantings with request indices instead of keys (see IndexedPlacement), so a
+ * caller finds its own record for each range without a lookup by key.
  */
-function sortByFieldDay(jobs: Job[]): void {
-	if (jobs.length < 2) return;
-	let lo = Infinity;
-	let hi = -Infinity;
-	for (const j of jobs) {
-		if (j.s < lo) lo = j.s;
-		if (j.s > hi) hi = j.s;
+export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): IndexedPlacement {
+	const setup = preparePlacement(beds, options);
+	const jobs: PlacementJobs = { keys: [], bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
+	for (let i = 0; i < plantings.length; i++) {
+		const req = plantings[i];
+		// Checked here, item by item, so the first bad item is the one named (placeJobs checks its own jobs too).
+		requirePositiveItem('plantings', i, 'bedFeet', req.bedFeet);
+		const s = toDayNumberItem(req.fieldDate, 'plantings', i, 'fieldDate');
+		const last = toDayNumberItem(req.lastHarvest, 'plantings', i, 'lastHarvest');
+		if (last < s) throw new PlanningInputError(itemField('plantings', i, 'lastHarvest'), 'is before the field date');
+		jobs.keys.push(req.key);
+		jobs.bedFeet.push(req.bedFeet);
+		jobs.fieldDays.push(s);
+		jobs.lastDays.push(last);
+		jobs.fieldDates.push(req.fieldDate);
+		jobs.lastHarvests.push(req.lastHarvest);
+		jobs.families.push(req.family);
 	}
-	if (hi - lo > 4 * jobs.length + 1024) {
-		jobs.sort((x, y) => x.s - y.s || x.order - y.order);
-		return;
-	}
-	// Jobs arrive in input order, so placing each after those already in its day's bucket keeps that order.
-	const starts = new Int32Array(hi - lo + 2);
-	for (const j of jobs) starts[j.s - lo + 1]++;
-	for (let d = 1; d < starts.length; d++) starts[d] += starts[d - 1];
-	const sorted = new Array<Job>(jobs.length);
-	for (const j of jobs) sorted[starts[j.s - lo]++] = j;
-	for (let i = 0; i < jobs.length; i++) jobs[i] = sorted[i];
+	return placeJobs(setup, jobs);
 }
 
-interface PlaceContext {
-	beds: Bed[];
-	placer: Placer;
-	turnaround: number;
-	allowSplit: boolean;
-	minPiece: number;
-	maxBedFt: number;
-	result: PlacementResult;
-	/** Request index of each entry of result.placed, and of result.unplaced. */
-	placedFrom: number[];
-	unplacedFrom: number[];
+/** Place `jobs` (in field-date order, first fit) with a prepared setup; see placePlantings. */
+export function placeJobs(setup: PlacementSetup, jobs: PlacementJobs): IndexedPlacement {
+	const n = jobs.keys.length;
+	// Each planting's occupancy ends (exclusive) turnaround days after its last harvest.
+	const ends: number[] = new Array<number>(n).fill(0);
+	for (let i = 0; i < n; i++) {
+		requirePositiveItem('plantings', i, 'bedFeet', jobs.bedFeet[i]);
+		if (jobs.lastDays[i] < jobs.fieldDays[i]) throw new PlanningInputError(itemField('plantings', i, 'lastHarvest'), 'is before the field date');
+		ends[i] = jobs.lastDays[i] + setup.turnaround + 1;
+	}
+	const order = byFieldDay(jobs.fieldDays);
+	for (let k = 0; k < n; k++) {
+		const i = order[k];
+		placeOne(jobs, i, jobs.fieldDays[i], ends[i], setup);
+	}
+	return setup.result;
 }
 
-/** First fit for one planting: whole on a bed free of its family last season, whole anywhere, then in pieces. */
-function placeOne(job: Job, ctx: PlaceContext): void {
-	const { req, s, e } = job;
+/**
+ * Request indices sorted by field day, then input order. A plan's field days span a
+ * season, so a stable counting pass by day does it in linear time; days over a span
+ * much longer than their number (e.g. years apart) use the ordinary sort.
+ */
+function byFieldDay(starts: number[]): number[] {
+	const n = starts.length;
+	const order: number[] = new Array<number>(n).fill(0);
+	if (n === 0) return order;
+	let lo = starts[0];
+	let hi = starts[0];
+	for (let i = 1; i < n; i++) {
+		if (starts[i] < lo) lo = starts[i];
+		if (starts[i] > hi) hi = starts[i];
+	}
+	if (hi - lo > 4 * n + 1024) {
+		for (let i = 0; i < n; i++) order[i] = i;
+		return order.sort((x, y) => starts[x] - starts[y] || x - y);
+	}
+	// Requests are visited in input order, so placing each after those already counted for its day keeps that order.
+	const firstOfDay: number[] = new Array<number>(hi - lo + 2).fill(0);
+	for (let i = 0; i < n; i++) firstOfDay[starts[i] - lo + 1]++;
+	for (let d = 1; d < firstOfDay.length; d++) firstOfDay[d] += firstOfDay[d - 1];
+	for (let i = 0; i < n; i++) order[firstOfDay[starts[i] - lo]++] = i;
+	return order;
+}
+
+/** First fit for planting `order`, over days [s, e): whole on a bed free of its family last season, whole anywhere, then in pieces. */
+function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx: PlacementSetup): void {
 	const { beds, placer, result, turnaround, minPiece } = ctx;
-	const family = req.family;
-	if (req.bedFeet <= ctx.maxBedFt + FT_EPSILON) {
-		let hit = placer.find(s, e, req.bedFeet, family);
+	const family = jobs.families[order];
+	const bedFeet = jobs.bedFeet[order];
+	const key = jobs.keys[order];
+	const hit = placer.hit;
+	if (bedFeet <= ctx.maxBedFt + FT_EPSILON) {
+		let found = placer.find(s, e, bedFeet, family);
 		let rotationHit = false;
-		if (!hit && family !== undefined) {
-			hit = placer.find(s, e, req.bedFeet);
-			rotationHit = hit !== null;
+		if (!found && family !== undefined) {
+			found = placer.find(s, e, bedFeet);
+			rotationHit = found;
 		}
-		if (hit) {
-			placer.put(hit.b, s, e, hit.startFt, req.bedFeet, req.key);
-			result.placed.push({ plantingKey: req.key, bedId: beds[hit.b].id, startFt: hit.startFt, lengthFt: req.bedFeet });
-			ctx.placedFrom.push(job.order);
-			if (rotationHit) result.warnings.push(rotationNote(req, beds[hit.b].id));
+		if (found) {
+			placer.put(hit.b, s, e, hit.startFt, bedFeet);
+			placed(result, order, hit.b, hit.startFt, bedFeet);
+			if (rotationHit) note(ctx, order, rotationNote(key, family, beds[hit.b].id));
 			return;
 		}
 	}
-	if (!ctx.allowSplit || req.bedFeet <= minPiece) {
-		result.unplaced.push({ plantingKey: req.key, reason: `${noRoomWhole(req, turnaround)}.` });
-		ctx.unplacedFrom.push(job.order);
+	if (!ctx.allowSplit || bedFeet <= minPiece) {
+		result.unplaced.push({ plantingKey: key, reason: `${noRoomWhole(jobs, order, turnaround)}.` });
+		result.unplacedFrom.push(order);
 		return;
 	}
-	const pieces: { b: number; o: Occupancy }[] = [];
-	let left = req.bedFeet;
+	// The pieces so far, as bed index and feet [a, b) (scratch lists: placeOne does not nest).
+	let count = 0;
+	let left = bedFeet;
 	while (left > FT_EPSILON) {
 		const need = Math.min(minPiece, left);
-		const p = placer.find(s, e, need, family) ?? (family !== undefined ? placer.find(s, e, need) : null);
-		if (!p) break;
-		const len = Math.min(left, p.gapFt);
-		pieces.push({ b: p.b, o: placer.put(p.b, s, e, p.startFt, len, req.key) });
+		if (!placer.find(s, e, need, family) && !(family !== undefined && placer.find(s, e, need))) break;
+		const len = Math.min(left, hit.gapFt);
+		placer.put(hit.b, s, e, hit.startFt, len);
+		pieceBed[count] = hit.b;
+		pieceFrom[count] = hit.startFt;
+		pieceTo[count++] = hit.startFt + len;
 		left -= len;
 	}
 	if (left > FT_EPSILON) {
-		for (const p of pieces) placer.remove(p.b, p.o);
-		ctx.unplacedFrom.push(job.order);
+		for (let k = 0; k < count; k++) placer.remove(pieceBed[k], s, e, pieceFrom[k], pieceTo[k]);
+		result.unplacedFrom.push(order);
 		result.unplaced.push({
-			plantingKey: req.key,
-			reason: `${noRoomWhole(req, turnaround)}, and split across beds only ${req.bedFeet - left} ft is free in pieces of ${minPiece} ft or more.`
+			plantingKey: key,
+			reason: `${noRoomWhole(jobs, order, turnaround)}, and split across beds only ${bedFeet - left} ft is free in pieces of ${minPiece} ft or more.`
 		});
 		return;
 	}
-	for (const p of pieces) {
-		const bedId = beds[p.b].id;
-		result.placed.push({ plantingKey: req.key, bedId, startFt: p.o.a, lengthFt: p.o.b - p.o.a });
-		ctx.placedFrom.push(job.order);
-		if (placer.heldFamily(p.b, family)) result.warnings.push(rotationNote(req, bedId));
+	for (let k = 0; k < count; k++) {
+		placed(result, order, pieceBed[k], pieceFrom[k], pieceTo[k] - pieceFrom[k]);
+		if (placer.heldFamily(pieceBed[k], family)) note(ctx, order, rotationNote(key, family, beds[pieceBed[k]].id));
 	}
-	if (pieces.length > 1) {
-		result.warnings.push({
-			plantingKey: req.key,
-			code: 'split_across_beds',
-			message: `${req.bedFeet} ft split into ${pieces.length} pieces: ${pieces.map((p) => `${beds[p.b].id} ${p.o.b - p.o.a} ft`).join(', ')}.`
-		});
+	if (count > 1) {
+		let list = '';
+		for (let k = 0; k < count; k++) list += `${k > 0 ? ', ' : ''}${beds[pieceBed[k]].id} ${pieceTo[k] - pieceFrom[k]} ft`;
+		note(ctx, order, { plantingKey: key, code: 'split_across_beds', message: `${bedFeet} ft split into ${count} pieces: ${list}.` });
 	}
+}
+
+const pieceBed: number[] = [];
+const pieceFrom: number[] = [];
+const pieceTo: number[] = [];
+
+function note(ctx: PlacementSetup, order: number, n: PlacementNote): void {
+	ctx.result.warnings.push(n);
+	ctx.result.noteFrom.push(order);
+}
+
+function placed(result: IndexedPlacement, order: number, bed: number, startFt: number, lengthFt: number): void {
+	result.placedFrom.push(order);
+	result.placedBed.push(bed);
+	result.placedStart.push(startFt);
+	result.placedLength.push(lengthFt);
 }
 
 /** Why a planting found no bed whole (built only when it is reported: most split plantings fit). */
-function noRoomWhole(req: PlacementRequest, turnaround: number): string {
-	return `No bed has ${req.bedFeet} ft free from field date ${req.fieldDate} to ${turnaround} days after last harvest ${req.lastHarvest}`;
+function noRoomWhole(jobs: PlacementJobs, i: number, turnaround: number): string {
+	return `No bed has ${jobs.bedFeet[i]} ft free from field date ${jobs.fieldDates[i]} to ${turnaround} days after last harvest ${jobs.lastHarvests[i]}`;
 }
 
-function rotationNote(req: PlacementRequest, bedId: string): PlacementNote {
+function rotationNote(key: string, family: string | undefined, bedId: string): PlacementNote {
 	return {
-		plantingKey: req.key,
+		plantingKey: key,
 		code: 'rotation_conflict',
-		message: `Bed ${bedId} held ${req.family} last season; no other bed had room.`
+		message: `Bed ${bedId} held ${family} last season; no other bed had room.`
 	};
 }

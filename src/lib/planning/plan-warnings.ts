@@ -40,9 +40,10 @@ export function successionWarnings(
 			out.push({
 				code: 'heat_in_harvest',
 				message: `Harvest runs through ${hot.join(', ')}, when the weekly mean is above this crop's heat limit of ${variety.heatLimitF} °F (bolting risk).`,
-				weeks: hot
+				weeks: hot.slice()
 			});
 		}
 	}
-	return out;
+	// An exact-size copy: a list grown by push keeps room for 16 more, and a season plan keeps thousands.
+	return out.length === 0 ? out : out.slice();
 }

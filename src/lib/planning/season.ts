@@ -5,10 +5,10 @@
  */
 import type { Bed, BedPlanting } from './bed-types';
 import { forecast } from './forecast';
-import { placeIndexed, type PlacementRequest } from './placement';
-import { inPlanOrder } from './season-order';
-import { seedNeed, type SeedNeed } from './seed';
-import { fromDayNumber } from './day-number';
+import { type PlacementJobs, placeJobs, preparePlacement } from './placement';
+import { byDayThenRank, inPlanOrder, keyRanks, pieceRanks } from './season-order';
+import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
+import { type DayNumber, daysFromCivil, fromDayNumber } from './day-number';
 import { planSuccessionRuns, type Farm, type PlanOptions } from './successions';
 import type { CropWeekQuantity, PlanningWarning, SowingMethod, Variety } from './types';
 import { makeTempLookup } from './weekly-temps';
@@ -98,17 +98,10 @@ function remainingTargets(targets: CropWeekQuantity[], kept: KeptPlanting[]): Cr
 }
 
 /**
- * What the season keeps of a succession: its placement request and what the proposal
- * needs, no more, as everything else kept alive through placement is copied by the
- * garbage collector, which at thousands of plantings made planning superlinear.
+ * A proposal's seed before placement has settled its feet (every proposal gets its
+ * own before planSeason returns).
  */
-interface PlannedSuccession {
-	variety: SeasonVariety;
-	req: PlacementRequest;
-	firstHarvest: string;
-	traySowDate: string | null;
-	warnings: PlanningWarning[];
-}
+const SEED_PENDING: SeedNeed = Object.freeze({ spotsPerRow: 0, spots: 0, seeds: 0, grams: 0, cells: 0, trays: 0 });
 
 export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const kept = input.kept ?? [];
@@ -122,22 +115,32 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 
 	const warnings: SeasonPlan['warnings'] = [];
 	const shortfall: CropWeekQuantity[] = [];
-	const planned = new Map<string, PlannedSuccession>();
+	// Successions in planning order (crop by crop, share by share, succession by succession),
+	// as placement's parallel lists, each with its variety and the proposal it will become.
+	// One object per succession, the proposal, and no other: everything kept alive through
+	// placement is copied by the garbage collector, which at thousands of plantings made
+	// planning superlinear.
+	const jobs: PlacementJobs = { keys: [], bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
+	const plannedVariety: SeasonVariety[] = [];
+	const proposals: ProposedPlanting[] = [];
+	// Key prefixes in use, so two shares never plan under the same keys, and where each one's records are.
+	const prefixes = new Set<string>();
+	const groups: { prefix: string; start: number; count: number }[] = [];
 	// One temperature lookup for the farm, shared by every variety's planning.
 	const temps = input.farm?.weeklyMeanTempF ? makeTempLookup(input.farm.weeklyMeanTempF) : undefined;
 
-	for (const [cropId, cropTargets] of targetsByCrop) {
+	targetsByCrop.forEach((cropTargets, cropId) => {
 		const planShares = input.varietyPlan?.[cropId];
 		const shares: VarietyShare[] = planShares ?? byCrop.get(cropId)?.slice(0, 1).map((v) => ({ varietyId: v.id })) ?? [];
 		if (shares.length === 0) {
 			const message = planShares ? 'The variety plan gives this crop no variety, so its targets cannot be planned.' : 'No variety of this crop is in the library, so its targets cannot be planned.';
 			warnings.push({ code: 'no_variety', cropId, message, weeks: cropTargets.map((t) => t.week) });
 			shortfall.push(...cropTargets);
-			continue;
+			return;
 		}
 		// How much of each week's target the valid shares carry; what no share carries is shortfall.
-		const carried = new Map<string, number>();
-		const prefixes = new Set<string>();
+		// (A crop planned by its first variety alone, the usual case, carries all of it.)
+		const carried = planShares ? new Map<string, number>() : undefined;
 		shares.forEach((share, i) => {
 			const variety = varietyById.get(share.varietyId);
 			if (!variety || variety.cropId !== cropId) {
@@ -145,27 +148,59 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				return;
 			}
 			const fraction = share.fraction ?? 1;
-			const weekly: { week: string; quantity: number }[] = [];
-			for (const t of cropTargets) {
-				const n = weekNumber(t.week);
-				if (n < (share.fromWeek ?? 1) || n > (share.toWeek ?? 53)) continue;
-				weekly.push({ week: t.week, quantity: t.quantity * fraction });
-				carried.set(t.week, (carried.get(t.week) ?? 0) + fraction);
+			let weekly: { week: string; quantity: number }[] = cropTargets;
+			if (carried) {
+				weekly = [];
+				for (const t of cropTargets) {
+					const n = weekNumber(t.week);
+					if (n < (share.fromWeek ?? 1) || n > (share.toWeek ?? 53)) continue;
+					weekly.push({ week: t.week, quantity: t.quantity * fraction });
+					carried.set(t.week, (carried.get(t.week) ?? 0) + fraction);
+				}
 			}
 			if (weekly.length === 0) return;
 			// Two shares of one variety from the same week would otherwise plan under the same keys.
 			let keyPrefix = `${variety.id}@w${share.fromWeek ?? 1}`;
 			if (prefixes.has(keyPrefix)) keyPrefix += `.${i + 1}`;
 			prefixes.add(keyPrefix);
-			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps);
-			for (const r of result.runs) {
-				const req = { key: r.key, bedFeet: r.bedFeet, fieldDate: fromDayNumber(r.fieldDay), lastHarvest: fromDayNumber(r.lastHarvest), family: variety.family };
-				const traySowDate = r.trayDay === undefined ? null : fromDayNumber(r.trayDay);
-				planned.set(r.key, { variety, req, firstHarvest: fromDayNumber(r.start), traySowDate, warnings: r.warnings });
-			}
+			const start = proposals.length;
+			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
+				const fieldDate = fromDayNumber(r.fieldDay);
+				const lastHarvest = fromDayNumber(r.lastHarvest);
+				jobs.keys.push(r.key);
+				jobs.bedFeet.push(r.bedFeet);
+				jobs.fieldDays.push(r.fieldDay);
+				jobs.lastDays.push(r.lastHarvest);
+				jobs.fieldDates.push(fieldDate);
+				jobs.lastHarvests.push(lastHarvest);
+				jobs.families.push(variety.family);
+				plannedVariety.push(variety);
+				proposals.push({
+					key: r.key,
+					cropId: variety.cropId,
+					varietyId: variety.id,
+					bedId: null,
+					startFt: 0,
+					lengthFt: r.bedFeet,
+					rows: variety.rows,
+					inRowSpacingIn: variety.inRowSpacingIn,
+					seedsPerSpot: variety.seedsPerSpot,
+					method: variety.method,
+					traySowDate: r.trayDay === undefined ? null : fromDayNumber(r.trayDay),
+					fieldDate,
+					firstHarvest: fromDayNumber(r.start),
+					lastHarvest,
+					expectedYield: 0,
+					seed: SEED_PENDING,
+					warnings: r.warnings,
+					unplacedReason: null
+				});
+			});
+			if (proposals.length > start) groups.push({ prefix: keyPrefix, start, count: proposals.length - start });
 			for (const w of result.warnings) warnings.push({ ...w, cropId });
-			shortfall.push(...result.shortfall.map((q) => ({ crop: cropId, week: q.week, quantity: q.quantity })));
+			for (const q of result.shortfall) shortfall.push({ crop: cropId, week: q.week, quantity: q.quantity });
 		});
+		if (!carried) return;
 		const uncarried = cropTargets
 			.map((t) => ({ crop: cropId, week: t.week, quantity: t.quantity * Math.max(0, 1 - (carried.get(t.week) ?? 0)) }))
 			.filter((t) => t.quantity > 1e-9);
@@ -173,63 +208,154 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			warnings.push({ code: 'no_variety', cropId, message: `The variety plan leaves part of the target in ${uncarried.map((t) => t.week).join(', ')} to no variety.`, weeks: uncarried.map((t) => t.week) });
 			shortfall.push(...uncarried);
 		}
-	}
+	});
 
 	const fixed: BedPlanting[] = kept
 		.filter((k): k is KeptPlanting & { bedId: string } => k.bedId !== null)
 		.map((k) => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }));
-	const records = [...planned.values()];
-	const { result: placement, placedFrom, unplacedFrom } = placeIndexed(
-		records.map((p) => p.req),
-		input.beds,
-		{ turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }
+	const placement = placeJobs(
+		preparePlacement(input.beds, { turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }),
+		jobs
 	);
-	const notesByKey = new Map<string, PlanningWarning[]>();
-	for (const n of placement.warnings) {
-		// Notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
-		if (!planned.has(n.plantingKey)) warnings.push({ code: n.code, key: n.plantingKey, message: n.message });
-		else (notesByKey.get(n.plantingKey) ?? notesByKey.set(n.plantingKey, []).get(n.plantingKey)!).push({ code: n.code, message: n.message });
-	}
+	// Placement notes by the succession they are about; notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
+	// (Sized up front: writing far past the end of an empty list would turn it into a slow sparse one.)
+	const notes: (PlanningWarning[] | undefined)[] = new Array<PlanningWarning[] | undefined>(proposals.length).fill(undefined);
+	placement.warnings.forEach((n, i) => {
+		const from = placement.noteFrom[i];
+		if (from < 0) warnings.push({ code: n.code, key: n.plantingKey, message: n.message });
+		else {
+			// Exact-size lists (a list grown by push keeps room for 16 more): most plantings have one note at most.
+			const note = { code: n.code, message: n.message };
+			const had = notes[from];
+			notes[from] = had ? [...had, note] : [note];
+		}
+	});
 
-	const proposal = (from: number, bedId: string | null, startFt: number, lengthFt: number, unplacedReason: string | null, piece: number): ProposedPlanting => {
-		const { req, variety: v, firstHarvest, traySowDate, warnings: own } = records[from];
-		const key = req.key;
-		return {
-			key: piece === 0 ? key : `${key}/${piece + 1}`,
-			cropId: v.cropId,
-			varietyId: v.id,
-			bedId,
-			startFt,
-			lengthFt,
-			rows: v.rows,
-			inRowSpacingIn: v.inRowSpacingIn,
-			seedsPerSpot: v.seedsPerSpot,
-			method: v.method,
-			traySowDate,
-			fieldDate: req.fieldDate,
-			firstHarvest,
-			lastHarvest: req.lastHarvest,
-			expectedYield: Math.round(lengthFt * v.yieldPerBedFoot * 100) / 100,
-			// Seed for this piece of bed: a planting split over two beds needs seed for each.
-			seed: seedNeed({
-				method: v.method, bedFeet: lengthFt, rows: v.rows, inRowSpacingIn: v.inRowSpacingIn, seedsPerSpot: v.seedsPerSpot,
-				germinationRate: v.germinationRate, seedsPerGram: v.seedsPerGram, margin: v.margin ?? input.options?.seedMargin ?? 0.1,
-				cellsPerTray: v.cellsPerTray, seedPriceCentsPerGram: v.seedPriceCentsPerGram, seedsPerPacket: v.seedsPerPacket
-			}),
-			// Most plantings carry no placement note: share their own list rather than copy it.
-			warnings: notesByKey.has(key) ? [...own, ...notesByKey.get(key)!] : own,
-			unplacedReason
-		};
+	const seedMargin = input.options?.seedMargin ?? 0.1;
+	// One seed input, refilled for each piece: seedNeed keeps none of it.
+	const seedIn: SeedNeedInput = { method: 'direct', bedFeet: 0, rows: 0, inRowSpacingIn: 0, seedsPerSpot: 0, germinationRate: 0, seedsPerGram: 0, margin: 0 };
+	// Seed for a piece of bed: a planting split over two beds needs seed for each.
+	const seedFor = (v: SeasonVariety, lengthFt: number): SeedNeed => {
+		seedIn.method = v.method;
+		seedIn.bedFeet = lengthFt;
+		seedIn.rows = v.rows;
+		seedIn.inRowSpacingIn = v.inRowSpacingIn;
+		seedIn.seedsPerSpot = v.seedsPerSpot;
+		seedIn.germinationRate = v.germinationRate;
+		seedIn.seedsPerGram = v.seedsPerGram;
+		seedIn.margin = v.margin ?? seedMargin;
+		seedIn.cellsPerTray = v.cellsPerTray;
+		seedIn.seedPriceCentsPerGram = v.seedPriceCentsPerGram;
+		seedIn.seedsPerPacket = v.seedsPerPacket;
+		return seedNeed(seedIn);
 	};
+	const yieldOf = (v: SeasonVariety, lengthFt: number): number => Math.round(lengthFt * v.yieldPerBedFoot * 100) / 100;
+	// Most plantings carry no placement note: they keep their succession's own list rather than a copy.
+	const warningsOf = (own: PlanningWarning[], from: number): PlanningWarning[] => {
+		const placed = notes[from];
+		return placed ? [...own, ...placed] : own;
+	};
+
+	const { placedFrom, placedBed, placedStart, placedLength, unplacedFrom } = placement;
+	const count = placedFrom.length + unplacedFrom.length;
+	const all: ProposedPlanting[] = new Array(count);
+	// Each proposal's succession and piece (0: whole, k: the (k + 1)th piece of a split).
+	// (Plain arrays: typed arrays each hold a buffer outside the heap, which costs the collector more at this size.)
+	const fromOf: number[] = new Array<number>(count).fill(0);
+	const pieceOf: number[] = new Array<number>(count).fill(0);
 	// A planting's pieces come one after another in `placed`, so counting runs numbers them.
 	let piece = 0;
-	const plantings = inPlanOrder(
-		placement.placed.map((p, i) => {
-			piece = i > 0 && placedFrom[i - 1] === placedFrom[i] ? piece + 1 : 0;
-			return proposal(placedFrom[i], p.bedId, p.startFt, p.lengthFt, null, piece);
-		}),
-		placement.unplaced.map((u, i) => proposal(unplacedFrom[i], null, 0, records[unplacedFrom[i]].req.bedFeet, u.reason, 0))
-	);
+	let maxPiece = 0;
+	let own: PlanningWarning[] = [];
+	for (let i = 0; i < placedFrom.length; i++) {
+		const from = placedFrom[i];
+		piece = i > 0 && placedFrom[i - 1] === from ? piece + 1 : 0;
+		if (piece > maxPiece) maxPiece = piece;
+		const v = plannedVariety[from];
+		const bedId = input.beds[placedBed[i]].id;
+		const lengthFt = placedLength[i];
+		let p = proposals[from];
+		if (piece === 0) {
+			// The succession's own proposal takes its first (usually only) piece.
+			own = p.warnings;
+			p.bedId = bedId;
+			p.startFt = placedStart[i];
+			p.lengthFt = lengthFt;
+			p.expectedYield = yieldOf(v, lengthFt);
+			p.seed = seedFor(v, lengthFt);
+			p.warnings = warningsOf(own, from);
+		} else {
+			const first = p;
+			p = {
+				key: `${first.key}/${piece + 1}`,
+				cropId: first.cropId,
+				varietyId: first.varietyId,
+				bedId,
+				startFt: placedStart[i],
+				lengthFt,
+				rows: first.rows,
+				inRowSpacingIn: first.inRowSpacingIn,
+				seedsPerSpot: first.seedsPerSpot,
+				method: first.method,
+				traySowDate: first.traySowDate,
+				fieldDate: first.fieldDate,
+				firstHarvest: first.firstHarvest,
+				lastHarvest: first.lastHarvest,
+				expectedYield: yieldOf(v, lengthFt),
+				seed: seedFor(v, lengthFt),
+				warnings: warningsOf(own, from),
+				unplacedReason: null
+			};
+		}
+		all[i] = p;
+		fromOf[i] = from;
+		pieceOf[i] = piece;
+	}
+	placement.unplaced.forEach((u, j) => {
+		const i = placedFrom.length + j;
+		const from = unplacedFrom[j];
+		const p = proposals[from];
+		const v = plannedVariety[from];
+		p.expectedYield = yieldOf(v, p.lengthFt);
+		p.seed = seedFor(v, p.lengthFt);
+		p.warnings = warningsOf(p.warnings, from);
+		p.unplacedReason = u.reason;
+		all[i] = p;
+		fromOf[i] = from;
+	});
+	const plantings =
+		planOrder(all, fromOf, pieceOf, maxPiece + 1, jobs.fieldDays, groups) ?? inPlanOrder(all.slice(0, placedFrom.length), all.slice(placedFrom.length));
 	for (const u of placement.unplaced) warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
 	return { plantings, shortfall, warnings };
+}
+
+// The days whose dates are four-digit years: there, date strings sort as the days do.
+const FIRST_DAY = daysFromCivil(0, 1, 1);
+const LAST_DAY = daysFromCivil(9999, 12, 31);
+
+/**
+ * A season plan's proposals in plan order (field date, then key: see season-order.ts)
+ * from what planSeason knows of each, the day and rank of its record and piece, so
+ * no keys are compared; null in the cases that rule does not cover.
+ */
+function planOrder(
+	all: ProposedPlanting[],
+	fromOf: number[],
+	pieceOf: number[],
+	pieceSlots: number,
+	fieldDays: number[],
+	groups: { prefix: string; start: number; count: number }[]
+): ProposedPlanting[] | null {
+	const ranks = keyRanks(groups, fieldDays.length);
+	if (!ranks) return null;
+	const pieces = pieceRanks(pieceSlots);
+	const day: number[] = new Array<number>(all.length).fill(0);
+	const rank: number[] = new Array<number>(all.length).fill(0);
+	for (let i = 0; i < all.length; i++) {
+		const fieldDay = fieldDays[fromOf[i]];
+		if (fieldDay < FIRST_DAY || fieldDay > LAST_DAY) return null;
+		day[i] = fieldDay;
+		rank[i] = ranks[fromOf[i]] * pieceSlots + pieces[pieceOf[i]];
+	}
+	return byDayThenRank(all, day, rank, fieldDays.length * pieceSlots);
 }

@@ -91,9 +91,18 @@ export function seedNeed(input: SeedNeedInput): SeedNeed {
 		seeds = cells * v.seedsPerSpot;
 	}
 	const grams = ceilToPlaces(seeds / v.seedsPerGram, 2);
-	const out: SeedNeed = { spotsPerRow: perRow, spots, seeds, grams, cells, trays };
-	if (plants !== undefined) out.plants = plants;
-	if (v.seedsPerPacket !== undefined) out.packets = ceilSafe(seeds / v.seedsPerPacket);
-	if (v.seedPriceCentsPerGram !== undefined) out.costCents = Math.round(grams * v.seedPriceCentsPerGram);
+	// One literal with every figure (undefined where it does not apply), so the object is made
+	// whole rather than grown field by field: a season plan makes one per planting.
+	const out: SeedNeed = {
+		spotsPerRow: perRow,
+		spots,
+		seeds,
+		grams,
+		cells,
+		trays,
+		plants,
+		packets: v.seedsPerPacket === undefined ? undefined : ceilSafe(seeds / v.seedsPerPacket),
+		costCents: v.seedPriceCentsPerGram === undefined ? undefined : Math.round(grams * v.seedPriceCentsPerGram)
+	};
 	return out;
 }

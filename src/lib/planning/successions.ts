@@ -1,6 +1,6 @@
 import { PlanningInputError, requireLatitude, requireNonNegative, requirePositive } from './errors';
 import { type DayNumber, fromDayNumber, toDayNumber } from './day-number';
-import { type DtmContext, type EffectiveDtm, effectiveDaysToMaturity } from './effective-dtm';
+import { type DtmContext, type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity } from './effective-dtm';
 import { isoWeekOfDay } from './iso-week';
 import { roundUpTo } from './numbers';
 import { successionWarnings } from './plan-warnings';
@@ -149,8 +149,11 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
 }
 
 /**
- * One succession as the planning loop settles it, in day numbers: what planSeason
- * needs. planSuccessions dresses each into a Succession (dates, seed, basis).
+ * One succession as the planning loop settles it, in day numbers. planRuns keeps one
+ * of these per call and refills it for each succession, so a maker copies what it
+ * keeps: planSeason keeps a few dates, planSuccessions dresses the rest into a
+ * Succession. (At thousands of successions a fresh object each, with its own
+ * days-to-maturity record, was garbage the collector kept copying.)
  */
 export interface SuccessionRun {
 	key: string;
@@ -158,17 +161,22 @@ export interface SuccessionRun {
 	/** First harvest. */
 	start: DayNumber;
 	fieldDay: DayNumber;
-	trayDay?: DayNumber;
+	trayDay: DayNumber | undefined;
 	lastHarvest: DayNumber;
 	bedFeet: number;
 	rawFeet: number;
 	/** The target weeks it is meant to supply: mondays[firstWeek..endWeek) of the variety's targets. */
 	firstWeek: number;
 	endWeek: number;
+	/** This succession's own list (a maker may keep it). */
 	warnings: PlanningWarning[];
+	/** Refilled per succession unless the maker asked for detail (then a fresh record each). */
 	dtm: EffectiveDtm;
 	/** The target week that set the bed-feet: its Monday, quantity, per-foot supply and days. */
-	peak: { monday: DayNumber; q: number; perFt: number; days: number };
+	peakMonday: DayNumber;
+	peakQ: number;
+	peakPerFt: number;
+	peakDays: number;
 }
 
 interface Planned<T> {
@@ -189,28 +197,33 @@ interface Planned<T> {
  * `shortfall` with an `unreachable_week` warning, and the next week is tried.
  */
 export function planSuccessions(input: PlanInput): PlanResult {
-	const p = planRuns(input, undefined, toSuccession);
+	const p = planRuns(input, undefined, true, toSuccession);
 	return { successions: p.items, shortfall: p.shortfall, warnings: p.warnings, intervalWeeks: p.interval };
 }
 
 /**
  * planSuccessions for planSeason: the same successions, shortfall and warnings, but
- * as bare runs, without the seed and basis a season plan does not use (it works out
- * seed per placed piece). `temps` is a lookup already made for the farm's weekly
+ * each handed to `make` as bare facts (refilled per succession, see SuccessionRun),
+ * without the seed and basis a season plan does not use (it works out seed per
+ * placed piece). `temps` is a lookup already made for the farm's weekly
  * temperatures, shared by every variety of the season rather than rebuilt for each.
  */
-export function planSuccessionRuns(input: PlanInput, temps?: TempLookup): { runs: SuccessionRun[]; shortfall: WeeklyTarget[]; warnings: PlanningWarning[] } {
-	const p = planRuns(input, temps, (run, v, o) => {
+export function planSuccessionRuns<T>(
+	input: PlanInput,
+	temps: TempLookup | undefined,
+	make: (run: Readonly<SuccessionRun>) => T
+): { runs: T[]; shortfall: WeeklyTarget[]; warnings: PlanningWarning[] } {
+	const p = planRuns(input, temps, false, (run, v, o) => {
 		// planSuccessions would reject bad seed figures at the first succession; so does this.
 		if (run.index === 0) validateSeedInput(seedInput(v, o, run.bedFeet));
-		return run;
+		return make(run);
 	});
 	return { runs: p.items, shortfall: p.shortfall, warnings: p.warnings };
 }
 
-type MakeRun<T> = (run: SuccessionRun, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
+type MakeRun<T> = (run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
 
-function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, make: MakeRun<T>): Planned<T> {
+function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: boolean, make: MakeRun<T>): Planned<T> {
 	const v = validateVariety(input.variety);
 	const farm = input.farm;
 	if (!farm || typeof farm !== 'object') throw new PlanningInputError('farm', 'is required');
@@ -226,12 +239,18 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, make: Make
 	const perFtPerDay = v.yieldPerBedFoot / H;
 	const prefix = input.options?.keyPrefix ?? v.id ?? varietyLabel(v);
 	const items: T[] = [];
-	const windows: [DayNumber, DayNumber, number][] = [];
+	// Harvest windows as flat triples: first day, last day, bed-feet.
+	const windows: number[] = [];
 	const unreachable: DayNumber[] = [];
+	const scratchDtm = detail ? undefined : blankDtm();
+	const run: SuccessionRun = {
+		key: '', index: 0, start: 0, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
+		warnings: [], dtm: scratchDtm ?? blankDtm(), peakMonday: 0, peakQ: 0, peakPerFt: 0, peakDays: 0
+	};
 	let i = 0;
 	while (i < mondays.length) {
 		const start = mondays[i];
-		const dtm = effectiveDaysToMaturity(v, start, o.dtm);
+		const dtm = scratchDtm ? effectiveDaysInto(scratchDtm, v, start, o.dtm) : effectiveDaysToMaturity(v, start, o.dtm);
 		const fieldDay = start - dtm.days;
 		const trayDay = v.method === 'transplant' ? fieldDay - (v.daysInTray ?? 0) : undefined;
 		const firstAction = trayDay ?? fieldDay;
@@ -254,7 +273,7 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, make: Make
 			// Days of this window inside that week: 7, except when the whole window is under a week.
 			const days = Math.min(7, H - offsetDays);
 			const perFt = perFtPerDay * days;
-			const q = qty.get(monday) ?? 0;
+			const q = qty[j];
 			const need = q / perFt;
 			if (need > peakNeed) {
 				peakNeed = need;
@@ -268,33 +287,28 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, make: Make
 		const rawFeet = peakNeed * (1 + o.margin);
 		const bedFeet = roundUpTo(rawFeet, o.increment);
 		const lastHarvest = start + H - 1;
-		const index = items.length;
-		items.push(
-			make(
-				{
-					key: `${prefix}#${index + 1}`,
-					index,
-					start,
-					fieldDay,
-					trayDay,
-					lastHarvest,
-					bedFeet,
-					rawFeet,
-					firstWeek: i,
-					endWeek: j,
-					warnings: withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts)),
-					dtm,
-					peak: { monday: peakMonday, q: peakQ, perFt: peakPerFt, days: peakDays }
-				},
-				v,
-				o,
-				mondays
-			)
-		);
-		windows.push([start, lastHarvest, bedFeet]);
+		run.key = `${prefix}#${items.length + 1}`;
+		run.index = items.length;
+		run.start = start;
+		run.fieldDay = fieldDay;
+		run.trayDay = trayDay;
+		run.lastHarvest = lastHarvest;
+		run.bedFeet = bedFeet;
+		run.rawFeet = rawFeet;
+		run.firstWeek = i;
+		run.endWeek = j;
+		run.warnings = withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts));
+		run.dtm = dtm;
+		run.peakMonday = peakMonday;
+		run.peakQ = peakQ;
+		run.peakPerFt = peakPerFt;
+		run.peakDays = peakDays;
+		items.push(make(run, v, o, mondays));
+		windows.push(start, lastHarvest, bedFeet);
 		i = j;
 	}
-	const shortfall: WeeklyTarget[] = unreachable.map((m) => ({ week: isoWeekOfDay(m), quantity: qty.get(m) ?? 0 }));
+	const qtyOf = (m: DayNumber): number => qty[mondays.indexOf(m)] ?? 0;
+	const shortfall: WeeklyTarget[] = unreachable.map((m) => ({ week: isoWeekOfDay(m), quantity: qtyOf(m) }));
 	if (unreachable.length > 0) {
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
@@ -324,8 +338,8 @@ function seedInput(v: Variety, o: ResolvedOptions, bedFeet: number): SeedNeedInp
 }
 
 /** A run dressed as planSuccessions returns it: dates as strings, seed, and the basis for explain*(). */
-function toSuccession(run: SuccessionRun, v: Variety, o: ResolvedOptions, mondays: DayNumber[]): Succession {
-	const { bedFeet, peak } = run;
+function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions, mondays: DayNumber[]): Succession {
+	const { bedFeet } = run;
 	const weeks: string[] = [];
 	for (let k = run.firstWeek; k < run.endWeek; k++) weeks.push(isoWeekOfDay(mondays[k]));
 	const seed = seedNeed(seedInput(v, o, bedFeet));
@@ -347,10 +361,10 @@ function toSuccession(run: SuccessionRun, v: Variety, o: ResolvedOptions, monday
 		warnings: run.warnings,
 		basis: {
 			weeklyYieldPerFt,
-			peakWeek: isoWeekOfDay(peak.monday),
-			peakQuantity: peak.q,
-			peakSupplyPerFt: peak.perFt,
-			peakWeekDays: peak.days,
+			peakWeek: isoWeekOfDay(run.peakMonday),
+			peakQuantity: run.peakQ,
+			peakSupplyPerFt: run.peakPerFt,
+			peakWeekDays: run.peakDays,
 			margin: o.margin,
 			increment: o.increment,
 			rawFeet: run.rawFeet,

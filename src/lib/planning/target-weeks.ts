@@ -4,42 +4,89 @@ import { PlanningInputError, requireNonNegativeItem } from './errors';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import type { PlanningWarning, WeeklyTarget } from './types';
 
-/** Sum duplicate weeks; return Mondays (day numbers) of weeks with a positive target, sorted. */
-export function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[]; qty: Map<DayNumber, number> } {
+/**
+ * Sum duplicate weeks; return the Mondays (day numbers) of weeks with a positive
+ * target, sorted, and beside them each week's quantity. Plain arrays filled in one
+ * pass, not a map: this runs for every variety of a season plan.
+ */
+export function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[]; qty: number[] } {
 	if (!Array.isArray(targets)) throw new PlanningInputError('targets', 'must be a list of { week, quantity }');
-	const qty = new Map<DayNumber, number>();
-	targets.forEach((t, i) => {
+	const mondays: DayNumber[] = [];
+	const qty: number[] = [];
+	let last = -Infinity;
+	let ascending = true;
+	for (let i = 0; i < targets.length; i++) {
+		const t = targets[i];
 		const monday = weekStartDayItem(t.week, 'targets', i, 'week');
 		const q = requireNonNegativeItem('targets', i, 'quantity', t.quantity);
-		qty.set(monday, (qty.get(monday) ?? 0) + q);
-	});
-	const mondays = [...qty.keys()].filter((m) => (qty.get(m) ?? 0) > 0).sort((a, b) => a - b);
+		if (monday <= last) ascending = false;
+		last = monday;
+		// The usual case: one target per week, in week order; weeks of no target are left out.
+		if (ascending && q > 0) {
+			mondays.push(monday);
+			qty.push(q);
+		}
+	}
+	if (ascending) return { mondays, qty };
+	mondays.length = 0;
+	qty.length = 0;
+	const sums = new Map<DayNumber, number>();
+	for (const t of targets) {
+		const monday = weekStartDayItem(t.week, 'targets', 0, 'week');
+		sums.set(monday, (sums.get(monday) ?? 0) + t.quantity);
+	}
+	for (const m of [...sums.keys()].sort((a, b) => a - b)) {
+		const q = sums.get(m) ?? 0;
+		if (q > 0) {
+			mondays.push(m);
+			qty.push(q);
+		}
+	}
 	return { mondays, qty };
 }
 
-/** Belt and braces: recount supply per target week and report any week left short. */
+/**
+ * Belt and braces: recount supply per target week and report any week left short.
+ * `windows` holds flat triples (first harvest day, last harvest day, bed-feet);
+ * `qty[k]` is the target of the week starting `mondays[k]`.
+ */
 export function checkSupply(
-	windows: [DayNumber, DayNumber, number][],
+	windows: number[],
 	mondays: DayNumber[],
-	qty: Map<DayNumber, number>,
+	qty: number[],
 	unreachable: DayNumber[],
 	perFtPerDay: number,
 	shortfall: WeeklyTarget[],
 	warnings: PlanningWarning[]
 ): void {
-	const supply = new Map<DayNumber, number>();
-	for (const [a, b, feet] of windows) {
-		for (let monday = a - weekdayOf(a) + 1; monday <= b; monday += 7) {
+	const supply: number[] = new Array<number>(mondays.length).fill(0);
+	for (let w = 0; w < windows.length; w += 3) {
+		const a = windows[w];
+		const b = windows[w + 1];
+		const feet = windows[w + 2];
+		const first = a - weekdayOf(a) + 1;
+		// The first target week on or after the window's first Monday (mondays is sorted).
+		let lo = 0;
+		let hi = mondays.length;
+		while (lo < hi) {
+			const mid = (lo + hi) >> 1;
+			if (mondays[mid] < first) lo = mid + 1;
+			else hi = mid;
+		}
+		for (let k = lo; k < mondays.length && mondays[k] <= b; k++) {
+			const monday = mondays[k];
+			if ((monday - first) % 7 !== 0) continue;
 			const days = Math.min(b, monday + 6) - Math.max(a, monday) + 1;
-			supply.set(monday, (supply.get(monday) ?? 0) + feet * perFtPerDay * days);
+			supply[k] += feet * perFtPerDay * days;
 		}
 	}
-	const skip = new Set(unreachable);
+	const skip = unreachable.length > 0 ? new Set(unreachable) : undefined;
 	const short: string[] = [];
-	for (const m of mondays) {
-		if (skip.has(m)) continue;
-		const gap = (qty.get(m) ?? 0) - (supply.get(m) ?? 0);
-		if (gap > 1e-9 * Math.max(1, qty.get(m) ?? 0)) {
+	for (let k = 0; k < mondays.length; k++) {
+		const m = mondays[k];
+		if (skip?.has(m)) continue;
+		const gap = qty[k] - supply[k];
+		if (gap > 1e-9 * Math.max(1, qty[k])) {
 			shortfall.push({ week: isoWeekOfDay(m), quantity: gap });
 			short.push(isoWeekOfDay(m));
 		}
