@@ -1,5 +1,5 @@
 import { requireLatitude } from './errors';
-import { type DayNumber, civilFromDays, daysFromCivil, toDayNumber } from './day-number';
+import { type DayNumber, daysFromCivil, toDayNumber, yearOfDay } from './day-number';
 
 /**
  * Day length by the CBM model of Forsythe, Rykiel, Stahl, Wu & Schoolfield
@@ -11,7 +11,7 @@ const SUNRISE_P_DEG = 0.8333;
 
 /** Day of the year of a day number, 1 = 1 January. */
 export function dayOfYearOfDay(n: DayNumber): number {
-	return n - daysFromCivil(civilFromDays(n).year, 1, 1) + 1;
+	return n - daysFromCivil(yearOfDay(n), 1, 1) + 1;
 }
 
 /** Day of the year, 1 = 1 January. */

@@ -1,5 +1,5 @@
 import { PlanningInputError, itemField } from './errors';
-import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber, toDayNumber, weekdayOf } from './day-number';
+import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber, toDayNumber, weekdayOf, yearOfDay } from './day-number';
 
 /**
  * ISO 8601 weeks: weeks start on Monday and week 1 is the week holding the
@@ -24,7 +24,7 @@ function week1Monday(isoYear: number): DayNumber {
 
 export function isoWeekPartsOfDay(n: DayNumber): { year: number; week: number } {
 	const thursday = n - weekdayOf(n) + 4;
-	const year = civilFromDays(thursday).year;
+	const year = yearOfDay(thursday);
 	const week = Math.floor((thursday - daysFromCivil(year, 1, 1)) / 7) + 1;
 	return { year, week };
 }
@@ -131,8 +131,20 @@ export function weeksBetween(a: string, b: string): IsoWeek[] {
 
 /** "W19 · Mon 10 May": the ISO week beside the date, as every date in the UI shows it. */
 export function formatWeekDate(dateStr: string): string {
-	const n = toDayNumber(dateStr);
-	const { week } = isoWeekPartsOfDay(n);
-	const { month, day } = civilFromDays(n);
-	return `W${pad2(week)} · ${WEEKDAYS[weekdayOf(n) - 1]} ${day} ${MONTHS[month - 1]}`;
+	return weekDateOfDay(toDayNumber(dateStr));
+}
+
+const weekDateByDay = new Map<DayNumber, string>();
+
+/** formatWeekDate of a day number (memoised, as the plan's warnings name the same days over and over). */
+export function weekDateOfDay(n: DayNumber): string {
+	let text = weekDateByDay.get(n);
+	if (text === undefined) {
+		const { week } = isoWeekPartsOfDay(n);
+		const { month, day } = civilFromDays(n);
+		text = `W${pad2(week)} · ${WEEKDAYS[weekdayOf(n) - 1]} ${day} ${MONTHS[month - 1]}`;
+		if (weekDateByDay.size >= MEMO_LIMIT) weekDateByDay.clear();
+		weekDateByDay.set(n, text);
+	}
+	return text;
 }

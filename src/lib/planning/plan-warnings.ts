@@ -1,5 +1,5 @@
-import { type DayNumber, fromDayNumber, weekdayOf } from './day-number';
-import { formatWeekDate, isoWeekOfDay } from './iso-week';
+import { type DayNumber, weekdayOf } from './day-number';
+import { isoWeekOfDay, weekDateOfDay } from './iso-week';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
 
@@ -21,13 +21,13 @@ export function successionWarnings(
 	if (variety.frostTender && fieldDay < season.lastSpringFrost) {
 		out.push({
 			code: 'frost_before_last_spring',
-			message: `Frost-tender crop goes into the field on ${formatWeekDate(fromDayNumber(fieldDay))}, before the last spring frost (${formatWeekDate(fromDayNumber(season.lastSpringFrost))}).`
+			message: `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, before the last spring frost (${weekDateOfDay(season.lastSpringFrost)}).`
 		});
 	}
 	if (variety.frostTender && lastHarvest > season.firstFallFrost) {
 		out.push({
 			code: 'frost_after_first_fall',
-			message: `Frost-tender crop is still harvesting on ${formatWeekDate(fromDayNumber(lastHarvest))}, after the first fall frost (${formatWeekDate(fromDayNumber(season.firstFallFrost))}).`
+			message: `Frost-tender crop is still harvesting on ${weekDateOfDay(lastHarvest)}, after the first fall frost (${weekDateOfDay(season.firstFallFrost)}).`
 		});
 	}
 	if (variety.heatLimitF !== undefined && season.temps) {

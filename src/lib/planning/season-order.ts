@@ -54,17 +54,20 @@ export function inPlanOrder<T extends Dated>(first: T[], second: T[]): T[] {
  */
 export function keyRanks(groups: { prefix: string; start: number; count: number }[], total: number): number[] | null {
 	if (groups.some((g) => g.prefix.includes('#'))) return null;
-	const byPrefix = groups.map((g) => ({ ...g, head: `${g.prefix}#` })).sort((a, b) => (a.head < b.head ? -1 : a.head > b.head ? 1 : 0));
+	const heads = groups.map((g) => `${g.prefix}#`);
+	const byPrefix = groups.map((_, i) => i).sort((a, b) => (heads[a] < heads[b] ? -1 : heads[a] > heads[b] ? 1 : 0));
 	const ranks: number[] = new Array<number>(total).fill(0);
+	// n = 1..count in string order, by count (a season's shares have a few dozen successions at most).
 	const lexOrder = new Map<number, number[]>();
 	let next = 0;
-	for (const g of byPrefix) {
+	for (let k = 0; k < byPrefix.length; k++) {
+		const g = groups[byPrefix[k]];
 		let order = lexOrder.get(g.count);
 		if (!order) {
 			order = Array.from({ length: g.count }, (_, i) => i + 1).sort((a, b) => (String(a) < String(b) ? -1 : 1));
 			lexOrder.set(g.count, order);
 		}
-		for (const n of order) ranks[g.start + n - 1] = next++;
+		for (let j = 0; j < order.length; j++) ranks[g.start + order[j] - 1] = next++;
 	}
 	return ranks;
 }

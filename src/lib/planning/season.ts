@@ -97,32 +97,37 @@ function remainingTargets(targets: CropWeekQuantity[], kept: KeptPlanting[]): Cr
 	return rows.filter((r) => r.shortfall > 1e-9).map((r) => ({ crop: r.crop, week: r.week, quantity: r.shortfall }));
 }
 
-/**
- * A proposal's seed before placement has settled its feet (every proposal gets its
- * own before planSeason returns).
- */
-const SEED_PENDING: SeedNeed = Object.freeze({ spotsPerRow: 0, spots: 0, seeds: 0, grams: 0, cells: 0, trays: 0 });
-
 export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const kept = input.kept ?? [];
-	const varietyById = new Map(input.varieties.map((v) => [v.id, v]));
+	// (Index loops here and below: this code runs once per plan, too seldom to be optimised,
+	// and each step of a for-of loop over thousands of targets then leaves an object behind.)
+	const varietyById = new Map<string, SeasonVariety>();
 	const byCrop = new Map<string, SeasonVariety[]>();
-	for (const v of input.varieties) (byCrop.get(v.cropId) ?? byCrop.set(v.cropId, []).get(v.cropId)!).push(v);
+	for (let i = 0; i < input.varieties.length; i++) {
+		const v = input.varieties[i];
+		varietyById.set(v.id, v);
+		(byCrop.get(v.cropId) ?? byCrop.set(v.cropId, []).get(v.cropId)!).push(v);
+	}
 
 	const targets = remainingTargets(input.targets, kept);
 	const targetsByCrop = new Map<string, CropWeekQuantity[]>();
-	for (const t of targets) (targetsByCrop.get(t.crop) ?? targetsByCrop.set(t.crop, []).get(t.crop)!).push(t);
+	for (let i = 0; i < targets.length; i++) {
+		const t = targets[i];
+		(targetsByCrop.get(t.crop) ?? targetsByCrop.set(t.crop, []).get(t.crop)!).push(t);
+	}
 
 	const warnings: SeasonPlan['warnings'] = [];
 	const shortfall: CropWeekQuantity[] = [];
 	// Successions in planning order (crop by crop, share by share, succession by succession),
-	// as placement's parallel lists, each with its variety and the proposal it will become.
-	// One object per succession, the proposal, and no other: everything kept alive through
-	// placement is copied by the garbage collector, which at thousands of plantings made
-	// planning superlinear.
+	// as parallel lists: placement's, and what each proposal needs besides. No object per
+	// succession until the proposals at the end: everything kept alive through placement is
+	// copied by the garbage collector, which at thousands of plantings made planning superlinear.
 	const jobs: PlacementJobs = { keys: [], bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
 	const plannedVariety: SeasonVariety[] = [];
-	const proposals: ProposedPlanting[] = [];
+	const firstHarvests: string[] = [];
+	const traySowDates: (string | null)[] = [];
+	const succWarnings: PlanningWarning[][] = [];
+	let planned = 0;
 	// Key prefixes in use, so two shares never plan under the same keys, and where each one's records are.
 	const prefixes = new Set<string>();
 	const groups: { prefix: string; start: number; count: number }[] = [];
@@ -163,40 +168,22 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			let keyPrefix = `${variety.id}@w${share.fromWeek ?? 1}`;
 			if (prefixes.has(keyPrefix)) keyPrefix += `.${i + 1}`;
 			prefixes.add(keyPrefix);
-			const start = proposals.length;
+			const start = planned;
 			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
-				const fieldDate = fromDayNumber(r.fieldDay);
-				const lastHarvest = fromDayNumber(r.lastHarvest);
+				planned++;
 				jobs.keys.push(r.key);
 				jobs.bedFeet.push(r.bedFeet);
 				jobs.fieldDays.push(r.fieldDay);
 				jobs.lastDays.push(r.lastHarvest);
-				jobs.fieldDates.push(fieldDate);
-				jobs.lastHarvests.push(lastHarvest);
+				jobs.fieldDates.push(fromDayNumber(r.fieldDay));
+				jobs.lastHarvests.push(fromDayNumber(r.lastHarvest));
 				jobs.families.push(variety.family);
 				plannedVariety.push(variety);
-				proposals.push({
-					key: r.key,
-					cropId: variety.cropId,
-					varietyId: variety.id,
-					bedId: null,
-					startFt: 0,
-					lengthFt: r.bedFeet,
-					rows: variety.rows,
-					inRowSpacingIn: variety.inRowSpacingIn,
-					seedsPerSpot: variety.seedsPerSpot,
-					method: variety.method,
-					traySowDate: r.trayDay === undefined ? null : fromDayNumber(r.trayDay),
-					fieldDate,
-					firstHarvest: fromDayNumber(r.start),
-					lastHarvest,
-					expectedYield: 0,
-					seed: SEED_PENDING,
-					warnings: r.warnings,
-					unplacedReason: null
-				});
+				firstHarvests.push(fromDayNumber(r.start));
+				traySowDates.push(r.trayDay === undefined ? null : fromDayNumber(r.trayDay));
+				succWarnings.push(r.warnings);
 			});
-			if (proposals.length > start) groups.push({ prefix: keyPrefix, start, count: proposals.length - start });
+			if (planned > start) groups.push({ prefix: keyPrefix, start, count: planned - start });
 			for (const w of result.warnings) warnings.push({ ...w, cropId });
 			for (const q of result.shortfall) shortfall.push({ crop: cropId, week: q.week, quantity: q.quantity });
 		});
@@ -219,7 +206,7 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	);
 	// Placement notes by the succession they are about; notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
 	// (Sized up front: writing far past the end of an empty list would turn it into a slow sparse one.)
-	const notes: (PlanningWarning[] | undefined)[] = new Array<PlanningWarning[] | undefined>(proposals.length).fill(undefined);
+	const notes: (PlanningWarning[] | undefined)[] = new Array<PlanningWarning[] | undefined>(planned).fill(undefined);
 	placement.warnings.forEach((n, i) => {
 		const from = placement.noteFrom[i];
 		if (from < 0) warnings.push({ code: n.code, key: n.plantingKey, message: n.message });
@@ -257,74 +244,66 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	};
 
 	const { placedFrom, placedBed, placedStart, placedLength, unplacedFrom } = placement;
-	const count = placedFrom.length + unplacedFrom.length;
-	const all: ProposedPlanting[] = new Array(count);
-	// Each proposal's succession and piece (0: whole, k: the (k + 1)th piece of a split).
-	// (Plain arrays: typed arrays each hold a buffer outside the heap, which costs the collector more at this size.)
-	const fromOf: number[] = new Array<number>(count).fill(0);
-	const pieceOf: number[] = new Array<number>(count).fill(0);
-	// A planting's pieces come one after another in `placed`, so counting runs numbers them.
-	let piece = 0;
-	let maxPiece = 0;
-	let own: PlanningWarning[] = [];
+	// Where each succession's pieces are in `placed` (they come one after another), or where it is in `unplaced`.
+	const firstPiece: number[] = filled(planned, -1);
+	const pieceCount: number[] = filled(planned, 0);
+	let maxPieces = 1;
 	for (let i = 0; i < placedFrom.length; i++) {
 		const from = placedFrom[i];
-		piece = i > 0 && placedFrom[i - 1] === from ? piece + 1 : 0;
-		if (piece > maxPiece) maxPiece = piece;
-		const v = plannedVariety[from];
-		const bedId = input.beds[placedBed[i]].id;
-		const lengthFt = placedLength[i];
-		let p = proposals[from];
-		if (piece === 0) {
-			// The succession's own proposal takes its first (usually only) piece.
-			own = p.warnings;
-			p.bedId = bedId;
-			p.startFt = placedStart[i];
-			p.lengthFt = lengthFt;
-			p.expectedYield = yieldOf(v, lengthFt);
-			p.seed = seedFor(v, lengthFt);
-			p.warnings = warningsOf(own, from);
-		} else {
-			const first = p;
-			p = {
-				key: `${first.key}/${piece + 1}`,
-				cropId: first.cropId,
-				varietyId: first.varietyId,
-				bedId,
-				startFt: placedStart[i],
-				lengthFt,
-				rows: first.rows,
-				inRowSpacingIn: first.inRowSpacingIn,
-				seedsPerSpot: first.seedsPerSpot,
-				method: first.method,
-				traySowDate: first.traySowDate,
-				fieldDate: first.fieldDate,
-				firstHarvest: first.firstHarvest,
-				lastHarvest: first.lastHarvest,
-				expectedYield: yieldOf(v, lengthFt),
-				seed: seedFor(v, lengthFt),
-				warnings: warningsOf(own, from),
-				unplacedReason: null
-			};
-		}
-		all[i] = p;
-		fromOf[i] = from;
-		pieceOf[i] = piece;
+		if (firstPiece[from] < 0) firstPiece[from] = i;
+		if (++pieceCount[from] > maxPieces) maxPieces = pieceCount[from];
 	}
-	placement.unplaced.forEach((u, j) => {
-		const i = placedFrom.length + j;
-		const from = unplacedFrom[j];
-		const p = proposals[from];
+	const unplacedAt: number[] = filled(planned, -1);
+	for (let j = 0; j < unplacedFrom.length; j++) unplacedAt[unplacedFrom[j]] = j;
+
+	const proposal = (from: number, key: string, bedId: string | null, startFt: number, lengthFt: number, unplacedReason: string | null): ProposedPlanting => {
 		const v = plannedVariety[from];
-		p.expectedYield = yieldOf(v, p.lengthFt);
-		p.seed = seedFor(v, p.lengthFt);
-		p.warnings = warningsOf(p.warnings, from);
-		p.unplacedReason = u.reason;
-		all[i] = p;
-		fromOf[i] = from;
-	});
-	const plantings =
-		planOrder(all, fromOf, pieceOf, maxPiece + 1, jobs.fieldDays, groups) ?? inPlanOrder(all.slice(0, placedFrom.length), all.slice(placedFrom.length));
+		return {
+			key,
+			cropId: v.cropId,
+			varietyId: v.id,
+			bedId,
+			startFt,
+			lengthFt,
+			rows: v.rows,
+			inRowSpacingIn: v.inRowSpacingIn,
+			seedsPerSpot: v.seedsPerSpot,
+			method: v.method,
+			traySowDate: traySowDates[from],
+			fieldDate: jobs.fieldDates[from],
+			firstHarvest: firstHarvests[from],
+			lastHarvest: jobs.lastHarvests[from],
+			expectedYield: yieldOf(v, lengthFt),
+			seed: seedFor(v, lengthFt),
+			warnings: warningsOf(succWarnings[from], from),
+			unplacedReason
+		};
+	};
+	// The proposals in planning order (reading the lists above in order, not at random), each
+	// with its succession and piece (0: whole, k: the (k + 1)th piece of a split) for the sort.
+	const count = placedFrom.length + unplacedFrom.length;
+	const all: ProposedPlanting[] = new Array<ProposedPlanting>(count);
+	// (Plain arrays: typed arrays each hold a buffer outside the heap, which costs the collector more at this size.)
+	const fromOf: number[] = filled(count, 0);
+	const pieceOf: number[] = filled(count, 0);
+	let n = 0;
+	for (let from = 0; from < planned; from++) {
+		const first = firstPiece[from];
+		if (first >= 0) {
+			for (let k = 0; k < pieceCount[from]; k++) {
+				const i = first + k;
+				const key = k === 0 ? jobs.keys[from] : `${jobs.keys[from]}/${k + 1}`;
+				all[n] = proposal(from, key, input.beds[placedBed[i]].id, placedStart[i], placedLength[i], null);
+				fromOf[n] = from;
+				pieceOf[n++] = k;
+			}
+		} else {
+			all[n] = proposal(from, jobs.keys[from], null, 0, jobs.bedFeet[from], placement.unplaced[unplacedAt[from]].reason);
+			fromOf[n++] = from;
+		}
+	}
+	// Plan order; where the key ranks do not hold (a '#' in a variety id), one sort by date and key.
+	const plantings = planOrder(all, fromOf, pieceOf, maxPieces, jobs.fieldDays, groups) ?? inPlanOrder(all, []);
 	for (const u of placement.unplaced) warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
 	return { plantings, shortfall, warnings };
 }
@@ -359,3 +338,9 @@ function planOrder(
 	}
 	return byDayThenRank(all, day, rank, fieldDays.length * pieceSlots);
 }
+
+/** A list of n copies of `fill`. */
+function filled<T>(n: number, fill: T): T[] {
+	return new Array<T>(n).fill(fill);
+}
+

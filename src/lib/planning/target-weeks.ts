@@ -11,8 +11,10 @@ import type { PlanningWarning, WeeklyTarget } from './types';
  */
 export function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[]; qty: number[] } {
 	if (!Array.isArray(targets)) throw new PlanningInputError('targets', 'must be a list of { week, quantity }');
-	const mondays: DayNumber[] = [];
-	const qty: number[] = [];
+	// Sized for every target and cut to length after (a list grown by push leaves its outgrown copies behind).
+	const mondays: DayNumber[] = new Array<DayNumber>(targets.length);
+	const qty: number[] = new Array<number>(targets.length);
+	let n = 0;
 	let last = -Infinity;
 	let ascending = true;
 	for (let i = 0; i < targets.length; i++) {
@@ -23,13 +25,16 @@ export function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[
 		last = monday;
 		// The usual case: one target per week, in week order; weeks of no target are left out.
 		if (ascending && q > 0) {
-			mondays.push(monday);
-			qty.push(q);
+			mondays[n] = monday;
+			qty[n++] = q;
 		}
 	}
-	if (ascending) return { mondays, qty };
-	mondays.length = 0;
-	qty.length = 0;
+	if (ascending) {
+		mondays.length = n;
+		qty.length = n;
+		return { mondays, qty };
+	}
+	n = 0;
 	const sums = new Map<DayNumber, number>();
 	for (const t of targets) {
 		const monday = weekStartDayItem(t.week, 'targets', 0, 'week');
@@ -38,10 +43,12 @@ export function normaliseTargets(targets: WeeklyTarget[]): { mondays: DayNumber[
 	for (const m of [...sums.keys()].sort((a, b) => a - b)) {
 		const q = sums.get(m) ?? 0;
 		if (q > 0) {
-			mondays.push(m);
-			qty.push(q);
+			mondays[n] = m;
+			qty[n++] = q;
 		}
 	}
+	mondays.length = n;
+	qty.length = n;
 	return { mondays, qty };
 }
 

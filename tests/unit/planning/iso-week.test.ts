@@ -12,6 +12,7 @@ import {
 	weeksBetween,
 	weeksInIsoYear
 } from '../../../src/lib/planning/index';
+import { yearOfDay } from '../../../src/lib/planning/day-number';
 
 /** Every calendar day from start to end inclusive, as [YYYY-MM-DD, local Date for date-fns]. */
 function* days(startYear: number, endYear: number): Generator<[string, Date]> {
@@ -129,5 +130,18 @@ describe('ISO 8601 weeks', () => {
 		// 2025 has 52 ISO weeks
 		expect(() => weekStart('2025-W53')).toThrow(/2025 has no ISO week 53/);
 		expect(() => weekStart('2026-W00')).toThrow(PlanningInputError);
+	});
+});
+
+describe('yearOfDay', () => {
+	it('names the same year as the ECMAScript Date, across leap and century years', () => {
+		// Source: ECMA-262 Date (proleptic Gregorian calendar, UTC), days since 1970-01-01.
+		for (let day = -800_000; day <= 800_000; day += 37) {
+			expect(yearOfDay(day)).toBe(new Date(day * 86_400_000).getUTCFullYear());
+		}
+		// The last and first days of years either side of a leap day and a century.
+		for (const date of ['1899-12-31', '1900-01-01', '2000-02-29', '2000-12-31', '2001-01-01', '2100-03-01']) {
+			expect(yearOfDay(Date.parse(`${date}T00:00:00Z`) / 86_400_000)).toBe(Number(date.slice(0, 4)));
+		}
 	});
 });
