@@ -191,7 +191,9 @@ export interface IndexedPlacement {
  * fills these as it plans, so thousands of plantings need no request object each.
  */
 export interface PlacementJobs {
-	keys: string[];
+	/** How many plantings, and each one's key (asked for only when a note or reason names it). */
+	count: number;
+	keyOf: (i: number) => string;
 	bedFeet: number[];
 	fieldDays: number[];
 	lastDays: number[];
@@ -241,7 +243,16 @@ export function preparePlacement(beds: Bed[], options: PlacementOptions = {}): P
  */
 export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): IndexedPlacement {
 	const setup = preparePlacement(beds, options);
-	const jobs: PlacementJobs = { keys: [], bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
+	const jobs: PlacementJobs = {
+		count: plantings.length,
+		keyOf: (i) => plantings[i].key,
+		bedFeet: [],
+		fieldDays: [],
+		lastDays: [],
+		fieldDates: [],
+		lastHarvests: [],
+		families: []
+	};
 	for (let i = 0; i < plantings.length; i++) {
 		const req = plantings[i];
 		// Checked here, item by item, so the first bad item is the one named (placeJobs checks its own jobs too).
@@ -249,7 +260,6 @@ export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options
 		const s = toDayNumberItem(req.fieldDate, 'plantings', i, 'fieldDate');
 		const last = toDayNumberItem(req.lastHarvest, 'plantings', i, 'lastHarvest');
 		if (last < s) throw new PlanningInputError(itemField('plantings', i, 'lastHarvest'), 'is before the field date');
-		jobs.keys.push(req.key);
 		jobs.bedFeet.push(req.bedFeet);
 		jobs.fieldDays.push(s);
 		jobs.lastDays.push(last);
@@ -262,7 +272,7 @@ export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options
 
 /** Place `jobs` (in field-date order, first fit) with a prepared setup; see placePlantings. */
 export function placeJobs(setup: PlacementSetup, jobs: PlacementJobs): IndexedPlacement {
-	const n = jobs.keys.length;
+	const n = jobs.count;
 	// Each planting's occupancy ends (exclusive) turnaround days after its last harvest.
 	const ends: number[] = new Array<number>(n).fill(0);
 	for (let i = 0; i < n; i++) {
@@ -310,7 +320,6 @@ function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx:
 	const { beds, placer, result, turnaround, minPiece } = ctx;
 	const family = jobs.families[order];
 	const bedFeet = jobs.bedFeet[order];
-	const key = jobs.keys[order];
 	const hit = placer.hit;
 	if (bedFeet <= ctx.maxBedFt + FT_EPSILON) {
 		let found = placer.find(s, e, bedFeet, family);
@@ -322,12 +331,12 @@ function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx:
 		if (found) {
 			placer.put(hit.b, s, e, hit.startFt, bedFeet);
 			placed(result, order, hit.b, hit.startFt, bedFeet);
-			if (rotationHit) note(ctx, order, rotationNote(key, family, beds[hit.b].id));
+			if (rotationHit) note(ctx, order, rotationNote(jobs.keyOf(order), family, beds[hit.b].id));
 			return;
 		}
 	}
 	if (!ctx.allowSplit || bedFeet <= minPiece) {
-		result.unplaced.push({ plantingKey: key, reason: `${noRoomWhole(jobs, order, turnaround)}.` });
+		result.unplaced.push({ plantingKey: jobs.keyOf(order), reason: `${noRoomWhole(jobs, order, turnaround)}.` });
 		result.unplacedFrom.push(order);
 		return;
 	}
@@ -348,19 +357,19 @@ function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx:
 		for (let k = 0; k < count; k++) placer.remove(pieceBed[k], s, e, pieceFrom[k], pieceTo[k]);
 		result.unplacedFrom.push(order);
 		result.unplaced.push({
-			plantingKey: key,
+			plantingKey: jobs.keyOf(order),
 			reason: `${noRoomWhole(jobs, order, turnaround)}, and split across beds only ${bedFeet - left} ft is free in pieces of ${minPiece} ft or more.`
 		});
 		return;
 	}
 	for (let k = 0; k < count; k++) {
 		placed(result, order, pieceBed[k], pieceFrom[k], pieceTo[k] - pieceFrom[k]);
-		if (placer.heldFamily(pieceBed[k], family)) note(ctx, order, rotationNote(key, family, beds[pieceBed[k]].id));
+		if (placer.heldFamily(pieceBed[k], family)) note(ctx, order, rotationNote(jobs.keyOf(order), family, beds[pieceBed[k]].id));
 	}
 	if (count > 1) {
 		let list = '';
 		for (let k = 0; k < count; k++) list += `${k > 0 ? ', ' : ''}${beds[pieceBed[k]].id} ${pieceTo[k] - pieceFrom[k]} ft`;
-		note(ctx, order, { plantingKey: key, code: 'split_across_beds', message: `${bedFeet} ft split into ${count} pieces: ${list}.` });
+		note(ctx, order, { plantingKey: jobs.keyOf(order), code: 'split_across_beds', message: `${bedFeet} ft split into ${count} pieces: ${list}.` });
 	}
 }
 

@@ -8,7 +8,8 @@ import { forecast } from './forecast';
 import { type PlacementJobs, placeJobs, preparePlacement } from './placement';
 import { byDayThenRank, inPlanOrder, keyRanks, pieceRanks } from './season-order';
 import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
-import { type DayNumber, daysFromCivil, fromDayNumber } from './day-number';
+import { type DayNumber, daysFromCivil, fromDayNumber, toDayNumber } from './day-number';
+import { type SeasonFacts, successionWarnings } from './plan-warnings';
 import { planSuccessionRuns, type Farm, type PlanOptions } from './successions';
 import type { CropWeekQuantity, PlanningWarning, SowingMethod, Variety } from './types';
 import { makeTempLookup } from './weekly-temps';
@@ -122,11 +123,18 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	// as parallel lists: placement's, and what each proposal needs besides. No object per
 	// succession until the proposals at the end: everything kept alive through placement is
 	// copied by the garbage collector, which at thousands of plantings made planning superlinear.
-	const jobs: PlacementJobs = { keys: [], bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
+	// Each succession's key is `${prefix}#${n}`: made when asked for, not kept (a string each).
+	const succPrefix: string[] = [];
+	const succNumber: number[] = [];
+	const keyOf = (i: number): string => `${succPrefix[i]}#${succNumber[i]}`;
+	const jobs: PlacementJobs = { count: 0, keyOf, bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
 	const plannedVariety: SeasonVariety[] = [];
-	const firstHarvests: string[] = [];
-	const traySowDates: (string | null)[] = [];
-	const succWarnings: PlanningWarning[][] = [];
+	const firstDays: DayNumber[] = [];
+	// Tray sowing day; -Infinity for a direct-sown planting.
+	const trayDays: DayNumber[] = [];
+	// Days-to-maturity warnings by succession, for the few that have any. Each succession's frost
+	// and heat warnings are made with its proposal, at the end, rather than carried through placement.
+	const dtmWarnings = new Map<number, PlanningWarning[]>();
 	let planned = 0;
 	// Key prefixes in use, so two shares never plan under the same keys, and where each one's records are.
 	const prefixes = new Set<string>();
@@ -170,8 +178,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			prefixes.add(keyPrefix);
 			const start = planned;
 			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
-				planned++;
-				jobs.keys.push(r.key);
+				succPrefix.push(keyPrefix);
+				succNumber.push(r.index + 1);
 				jobs.bedFeet.push(r.bedFeet);
 				jobs.fieldDays.push(r.fieldDay);
 				jobs.lastDays.push(r.lastHarvest);
@@ -179,9 +187,10 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				jobs.lastHarvests.push(fromDayNumber(r.lastHarvest));
 				jobs.families.push(variety.family);
 				plannedVariety.push(variety);
-				firstHarvests.push(fromDayNumber(r.start));
-				traySowDates.push(r.trayDay === undefined ? null : fromDayNumber(r.trayDay));
-				succWarnings.push(r.warnings);
+				firstDays.push(r.start);
+				trayDays.push(r.trayDay ?? -Infinity);
+				if (r.warnings.length > 0) dtmWarnings.set(planned, r.warnings);
+				planned++;
 			});
 			if (planned > start) groups.push({ prefix: keyPrefix, start, count: planned - start });
 			for (const w of result.warnings) warnings.push({ ...w, cropId });
@@ -200,6 +209,7 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const fixed: BedPlanting[] = kept
 		.filter((k): k is KeptPlanting & { bedId: string } => k.bedId !== null)
 		.map((k) => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }));
+	jobs.count = planned;
 	const placement = placeJobs(
 		preparePlacement(input.beds, { turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }),
 		jobs
@@ -256,7 +266,17 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const unplacedAt: number[] = filled(planned, -1);
 	for (let j = 0; j < unplacedFrom.length; j++) unplacedAt[unplacedFrom[j]] = j;
 
-	const proposal = (from: number, key: string, bedId: string | null, startFt: number, lengthFt: number, unplacedReason: string | null): ProposedPlanting => {
+	// The frost and heat warnings of every succession, against the farm's frost dates (which
+	// planning has checked by now, if there is any succession) and weekly temperatures.
+	const facts: SeasonFacts | undefined =
+		planned === 0 ? undefined : { lastSpringFrost: toDayNumber(input.farm.lastSpringFrost), firstFallFrost: toDayNumber(input.farm.firstFallFrost), temps };
+	// A succession's own warnings: the days-to-maturity ones, then its frost and heat ones.
+	const ownWarnings = (from: number): PlanningWarning[] => {
+		const own = successionWarnings(plannedVariety[from], jobs.fieldDays[from], firstDays[from], jobs.lastDays[from], facts!);
+		const dtm = dtmWarnings.get(from);
+		return dtm ? [...dtm, ...own] : own;
+	};
+	const proposal = (from: number, key: string, bedId: string | null, startFt: number, lengthFt: number, own: PlanningWarning[], unplacedReason: string | null): ProposedPlanting => {
 		const v = plannedVariety[from];
 		return {
 			key,
@@ -269,13 +289,13 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			inRowSpacingIn: v.inRowSpacingIn,
 			seedsPerSpot: v.seedsPerSpot,
 			method: v.method,
-			traySowDate: traySowDates[from],
+			traySowDate: trayDays[from] === -Infinity ? null : fromDayNumber(trayDays[from]),
 			fieldDate: jobs.fieldDates[from],
-			firstHarvest: firstHarvests[from],
+			firstHarvest: fromDayNumber(firstDays[from]),
 			lastHarvest: jobs.lastHarvests[from],
 			expectedYield: yieldOf(v, lengthFt),
 			seed: seedFor(v, lengthFt),
-			warnings: warningsOf(succWarnings[from], from),
+			warnings: warningsOf(own, from),
 			unplacedReason
 		};
 	};
@@ -289,16 +309,17 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	let n = 0;
 	for (let from = 0; from < planned; from++) {
 		const first = firstPiece[from];
+		const key = keyOf(from);
+		const own = ownWarnings(from);
 		if (first >= 0) {
 			for (let k = 0; k < pieceCount[from]; k++) {
 				const i = first + k;
-				const key = k === 0 ? jobs.keys[from] : `${jobs.keys[from]}/${k + 1}`;
-				all[n] = proposal(from, key, input.beds[placedBed[i]].id, placedStart[i], placedLength[i], null);
+				all[n] = proposal(from, k === 0 ? key : `${key}/${k + 1}`, input.beds[placedBed[i]].id, placedStart[i], placedLength[i], own, null);
 				fromOf[n] = from;
 				pieceOf[n++] = k;
 			}
 		} else {
-			all[n] = proposal(from, jobs.keys[from], null, 0, jobs.bedFeet[from], placement.unplaced[unplacedAt[from]].reason);
+			all[n] = proposal(from, key, null, 0, jobs.bedFeet[from], own, placement.unplaced[unplacedAt[from]].reason);
 			fromOf[n++] = from;
 		}
 	}

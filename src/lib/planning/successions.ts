@@ -156,7 +156,8 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
  * days-to-maturity record, was garbage the collector kept copying.)
  */
 export interface SuccessionRun {
-	key: string;
+	/** The succession's key is `${prefix}#${index + 1}`. */
+	prefix: string;
 	index: number;
 	/** First harvest. */
 	start: DayNumber;
@@ -168,7 +169,10 @@ export interface SuccessionRun {
 	/** The target weeks it is meant to supply: mondays[firstWeek..endWeek) of the variety's targets. */
 	firstWeek: number;
 	endWeek: number;
-	/** This succession's own list (a maker may keep it). */
+	/**
+	 * This succession's own list (a maker may keep it). For planSuccessionRuns, only the
+	 * days-to-maturity warnings: the frost and heat ones are the caller's (see there).
+	 */
 	warnings: PlanningWarning[];
 	/** Refilled per succession unless the maker asked for detail (then a fresh record each). */
 	dtm: EffectiveDtm;
@@ -205,8 +209,10 @@ export function planSuccessions(input: PlanInput): PlanResult {
  * planSuccessions for planSeason: the same successions, shortfall and warnings, but
  * each handed to `make` as bare facts (refilled per succession, see SuccessionRun),
  * without the seed and basis a season plan does not use (it works out seed per
- * placed piece). `temps` is a lookup already made for the farm's weekly
- * temperatures, shared by every variety of the season rather than rebuilt for each.
+ * placed piece), and without each succession's frost and heat warnings, which the
+ * caller makes with successionWarnings when it makes the planting (a season plan
+ * would otherwise carry thousands of them through placement). `temps` is a lookup
+ * already made for the farm's weekly temperatures, shared by every variety.
  */
 export function planSuccessionRuns<T>(
 	input: PlanInput,
@@ -244,7 +250,7 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: bo
 	const unreachable: DayNumber[] = [];
 	const scratchDtm = detail ? undefined : blankDtm();
 	const run: SuccessionRun = {
-		key: '', index: 0, start: 0, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
+		prefix, index: 0, start: 0, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
 		warnings: [], dtm: scratchDtm ?? blankDtm(), peakMonday: 0, peakQ: 0, peakPerFt: 0, peakDays: 0
 	};
 	let i = 0;
@@ -287,7 +293,6 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: bo
 		const rawFeet = peakNeed * (1 + o.margin);
 		const bedFeet = roundUpTo(rawFeet, o.increment);
 		const lastHarvest = start + H - 1;
-		run.key = `${prefix}#${items.length + 1}`;
 		run.index = items.length;
 		run.start = start;
 		run.fieldDay = fieldDay;
@@ -297,7 +302,8 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: bo
 		run.rawFeet = rawFeet;
 		run.firstWeek = i;
 		run.endWeek = j;
-		run.warnings = withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts));
+		// The days-to-maturity warnings (a fresh list: the record is refilled) and, with detail, the succession's own.
+		run.warnings = detail ? withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts)) : dtm.warnings.length === 0 ? NONE : [...dtm.warnings];
 		run.dtm = dtm;
 		run.peakMonday = peakMonday;
 		run.peakQ = peakQ;
@@ -345,7 +351,7 @@ function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptio
 	const seed = seedNeed(seedInput(v, o, bedFeet));
 	const weeklyYieldPerFt = (v.yieldPerBedFoot / v.harvestWindowDays) * 7;
 	const s: Succession = {
-		key: run.key,
+		key: `${run.prefix}#${run.index + 1}`,
 		index: run.index,
 		method: v.method,
 		fieldDate: fromDayNumber(run.fieldDay),
@@ -379,6 +385,9 @@ function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptio
 	if (v.family !== undefined) s.family = v.family;
 	return s;
 }
+
+/** An empty list shared by every succession without days-to-maturity warnings; never written to. */
+const NONE: PlanningWarning[] = [];
 
 /** A succession's warnings: the days-to-maturity ones, then its own (a fresh list, shared with neither). */
 function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWarning[]): PlanningWarning[] {
