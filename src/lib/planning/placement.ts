@@ -197,8 +197,8 @@ export interface PlacementJobs {
 	bedFeet: number[];
 	fieldDays: number[];
 	lastDays: number[];
-	fieldDates: string[];
-	lastHarvests: string[];
+	/** The dates as the caller gave them, for the reason a planting is left unplaced. */
+	datesOf: (i: number) => { fieldDate: string; lastHarvest: string };
 	families: (string | undefined)[];
 }
 
@@ -249,8 +249,7 @@ export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options
 		bedFeet: [],
 		fieldDays: [],
 		lastDays: [],
-		fieldDates: [],
-		lastHarvests: [],
+		datesOf: (i) => plantings[i],
 		families: []
 	};
 	for (let i = 0; i < plantings.length; i++) {
@@ -263,8 +262,6 @@ export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options
 		jobs.bedFeet.push(req.bedFeet);
 		jobs.fieldDays.push(s);
 		jobs.lastDays.push(last);
-		jobs.fieldDates.push(req.fieldDate);
-		jobs.lastHarvests.push(req.lastHarvest);
 		jobs.families.push(req.family);
 	}
 	return placeJobs(setup, jobs);
@@ -391,7 +388,8 @@ function placed(result: IndexedPlacement, order: number, bed: number, startFt: n
 
 /** Why a planting found no bed whole (built only when it is reported: most split plantings fit). */
 function noRoomWhole(jobs: PlacementJobs, i: number, turnaround: number): string {
-	return `No bed has ${jobs.bedFeet[i]} ft free from field date ${jobs.fieldDates[i]} to ${turnaround} days after last harvest ${jobs.lastHarvests[i]}`;
+	const { fieldDate, lastHarvest } = jobs.datesOf(i);
+	return `No bed has ${jobs.bedFeet[i]} ft free from field date ${fieldDate} to ${turnaround} days after last harvest ${lastHarvest}`;
 }
 
 function rotationNote(key: string, family: string | undefined, bedId: string): PlacementNote {

@@ -127,7 +127,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const succPrefix: string[] = [];
 	const succNumber: number[] = [];
 	const keyOf = (i: number): string => `${succPrefix[i]}#${succNumber[i]}`;
-	const jobs: PlacementJobs = { count: 0, keyOf, bedFeet: [], fieldDays: [], lastDays: [], fieldDates: [], lastHarvests: [], families: [] };
+	const datesOf = (i: number): { fieldDate: string; lastHarvest: string } => ({ fieldDate: fromDayNumber(jobs.fieldDays[i]), lastHarvest: fromDayNumber(jobs.lastDays[i]) });
+	const jobs: PlacementJobs = { count: 0, keyOf, datesOf, bedFeet: [], fieldDays: [], lastDays: [], families: [] };
 	const plannedVariety: SeasonVariety[] = [];
 	const firstDays: DayNumber[] = [];
 	// Tray sowing day; -Infinity for a direct-sown planting.
@@ -183,8 +184,6 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				jobs.bedFeet.push(r.bedFeet);
 				jobs.fieldDays.push(r.fieldDay);
 				jobs.lastDays.push(r.lastHarvest);
-				jobs.fieldDates.push(fromDayNumber(r.fieldDay));
-				jobs.lastHarvests.push(fromDayNumber(r.lastHarvest));
 				jobs.families.push(variety.family);
 				plannedVariety.push(variety);
 				firstDays.push(r.start);
@@ -290,9 +289,9 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			seedsPerSpot: v.seedsPerSpot,
 			method: v.method,
 			traySowDate: trayDays[from] === -Infinity ? null : fromDayNumber(trayDays[from]),
-			fieldDate: jobs.fieldDates[from],
+			fieldDate: fromDayNumber(jobs.fieldDays[from]),
 			firstHarvest: fromDayNumber(firstDays[from]),
-			lastHarvest: jobs.lastHarvests[from],
+			lastHarvest: fromDayNumber(jobs.lastDays[from]),
 			expectedYield: yieldOf(v, lengthFt),
 			seed: seedFor(v, lengthFt),
 			warnings: warningsOf(own, from),
