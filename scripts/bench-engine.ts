@@ -83,7 +83,7 @@ function timed(season: Season): number {
 }
 
 /**
- * Both sizes are timed in turns, after warming each up: rounds of five base plans and one
+ * Both sizes are timed in turns, after warming each up: 21 rounds of five base plans and one
  * 10× plan. This machine is a shared host whose speed drifts from second to second, and
  * timing one size after the other let a fast or slow spell fall on one of them only; in
  * turns, both see the same spells. The figures are the medians of each size's times.
@@ -96,7 +96,7 @@ export async function runEngineBench(): Promise<Record<string, number>> {
 	for (let i = 0; i < 3; i++) planOnce(x10);
 	const baseTimes: number[] = [];
 	const x10Times: number[] = [];
-	for (let r = 0; r < 15; r++) {
+	for (let r = 0; r < 21; r++) {
 		for (let i = 0; i < 5; i++) baseTimes.push(timed(base));
 		x10Times.push(timed(x10));
 	}

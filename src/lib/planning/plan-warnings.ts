@@ -9,7 +9,13 @@ export interface SeasonFacts {
 	temps?: TempLookup;
 }
 
-/** Frost and heat warnings for one succession (DESIGN step 4). */
+/**
+ * The list of a succession with no frost or heat warning: one list, shared, and frozen so
+ * that nothing can add to it (a season plan would otherwise make thousands of empty lists).
+ */
+const NO_WARNINGS: PlanningWarning[] = Object.freeze([]) as unknown as PlanningWarning[];
+
+/** Frost and heat warnings for one succession (DESIGN step 4); an empty result is a shared, frozen list. */
 export function successionWarnings(
 	variety: Variety,
 	fieldDay: DayNumber,
@@ -45,5 +51,5 @@ export function successionWarnings(
 		}
 	}
 	// An exact-size copy: a list grown by push keeps room for 16 more, and a season plan keeps thousands.
-	return out.length === 0 ? out : out.slice();
+	return out.length === 0 ? NO_WARNINGS : out.slice();
 }
