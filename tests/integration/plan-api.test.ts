@@ -66,6 +66,33 @@ describe('bad input names the field', () => {
 });
 
 describe('preview', () => {
+	it("keeps clear of another season's plantings still in their beds (the fall's garlic)", async () => {
+		// Overlap worked here from the rows, as the bed timeline counts it: same bed, feet that
+		// overlap, and days from field date through last harvest plus the farm's turnaround days.
+		const { turnaround_days: turnaround } = await testDb()('farms').where({ id: farmId }).first('turnaround_days');
+		const season = await testDb()('seasons').where({ id: seasonId }).first('starts_on', 'ends_on');
+		const day = (d: string | Date): number => Date.parse(`${String(d instanceof Date ? d.toISOString() : d).slice(0, 10)}T00:00:00Z`) / 86_400_000;
+		const others = (
+			await testDb()('plantings').where({ farm_id: farmId }).whereNot({ season_id: seasonId }).whereNotNull('bed_id').whereNot({ status: 'failed' })
+				.select('id', 'bed_id', 'start_ft', 'length_ft', 'field_date', 'last_harvest')
+		).filter((o) => day(o.field_date) <= day(season.ends_on) && day(o.last_harvest) + turnaround >= day(season.starts_on));
+		// The invented demo's 2026 garlic is dug in July 2027.
+		expect(others.length).toBeGreaterThan(0);
+		const res = await owner.json(preview(), 'POST', {});
+		expect(res.status).toBe(200);
+		const out = await res.json();
+		const placed = out.plantings.filter((p: { bedId: string | null }) => p.bedId !== null);
+		expect(placed.length).toBeGreaterThan(20);
+		for (const p of placed as { key: string; bedId: string; startFt: number; lengthFt: number; fieldDate: string; lastHarvest: string }[]) {
+			for (const o of others) {
+				if (String(o.bed_id) !== p.bedId) continue;
+				const feet = p.startFt < Number(o.start_ft) + Number(o.length_ft) && Number(o.start_ft) < p.startFt + p.lengthFt;
+				const days = day(p.fieldDate) <= day(o.last_harvest) + turnaround && day(o.field_date) <= day(p.lastHarvest) + turnaround;
+				expect(feet && days, `${p.key} in bed ${p.bedId} overlaps planting ${o.id} of another season`).toBe(false);
+			}
+		}
+	});
+
 	it('proposes plantings that meet every reachable target week, and writes nothing', async () => {
 		const before = await testDb()('plantings').where({ season_id: seasonId }).select('id', 'version').orderBy('id');
 		const res = await owner.json(preview(), 'POST', { intervalWeeks: 2 });

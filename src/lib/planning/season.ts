@@ -48,6 +48,11 @@ export interface SeasonPlanInput {
 	/** Weekly targets, `crop` being the crop id. */
 	targets: CropWeekQuantity[];
 	kept?: KeptPlanting[];
+	/**
+	 * Plantings outside this plan that hold bed-feet during it (another season's garlic, dug
+	 * next summer): placement works around them; they supply nothing to this plan's targets.
+	 */
+	obstacles?: BedPlanting[];
 	/** Which varieties carry each crop's targets (by crop id); default: the crop's first variety. */
 	varietyPlan?: Record<string, VarietyShare[]>;
 	previousFamilyByBed?: Record<string, string[]>;
@@ -207,7 +212,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 
 	const fixed: BedPlanting[] = kept
 		.filter((k): k is KeptPlanting & { bedId: string } => k.bedId !== null)
-		.map((k) => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }));
+		.map((k): BedPlanting => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }))
+		.concat(input.obstacles ?? []);
 	jobs.count = planned;
 	const placement = placeJobs(
 		preparePlacement(input.beds, { turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }),

@@ -1,7 +1,7 @@
 // Plan generation for a season: gathers the farm's data, runs the engine, and writes the result.
 // Preview never writes; apply replaces the season's still-planned plantings in one transaction
 // and keeps every planting that is already sown, growing, harvested or failed.
-import { deriveTargetsWithNotes, planSeason, type KeptPlanting, type SeasonPlan } from '$lib/planning';
+import { addDays, deriveTargetsWithNotes, planSeason, type BedPlanting, type KeptPlanting, type SeasonPlan } from '$lib/planning';
 import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
@@ -11,6 +11,7 @@ import * as farms from './farms';
 import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
+import * as seasons from './seasons';
 
 
 export interface PlanPreview {
@@ -21,9 +22,38 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
+/**
+ * Other seasons' plantings that hold bed-feet while this season runs (the fall's garlic, dug
+ * next summer): placed, not failed, in the ground between the season's first day (less the
+ * turnaround) and its last, as the bed timeline counts them.
+ */
+async function otherSeasonsInBeds(farmId: number, seasonId: number, turnaroundDays: number): Promise<BedPlanting[]> {
+	const season = await seasons.get(farmId, seasonId);
+	if (!season) return [];
+	const rows = await db()('plantings as p')
+		.join('varieties as v', 'v.id', 'p.variety_id')
+		.join('crops as c', 'c.id', 'v.crop_id')
+		.where('p.farm_id', farmId)
+		.whereNot('p.season_id', seasonId)
+		.whereNotNull('p.bed_id')
+		.whereNot('p.status', 'failed')
+		.where('p.field_date', '<=', season.endsOn)
+		.where('p.last_harvest', '>=', addDays(season.startsOn, -turnaroundDays))
+		.select('p.id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.last_harvest', 'c.family');
+	return rows.map((p) => ({
+		key: `planting#${p.id}`,
+		bedId: String(p.bed_id),
+		startFt: Number(p.start_ft),
+		lengthFt: Number(p.length_ft),
+		fieldDate: p.field_date,
+		lastHarvest: p.last_harvest,
+		family: p.family
+	}));
+}
+
 export async function preview(farmId: number, seasonId: number, request: PlanRequest): Promise<PlanPreview> {
-	const [farm, temps, varieties, bedList, demand, existing] = await Promise.all([
-		farms.get(farmId),
+	const farm = await farms.get(farmId);
+	const [temps, varieties, bedList, demand, existing, obstacles] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
@@ -32,7 +62,8 @@ export async function preview(farmId: number, seasonId: number, request: PlanReq
 			.join('varieties as v', 'v.id', 'p.variety_id')
 			.join('crops as c', 'c.id', 'v.crop_id')
 			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-			.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family')
+			.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
+		otherSeasonsInBeds(farmId, seasonId, farm.turnaroundDays)
 	]);
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
@@ -61,6 +92,7 @@ export async function preview(farmId: number, seasonId: number, request: PlanReq
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,
+		obstacles,
 		varietyPlan: request.varietyPlan
 			? Object.fromEntries(Object.entries(request.varietyPlan).map(([crop, shares]) => [crop, shares.map((s) => ({ ...s, varietyId: String(s.varietyId) }))]))
 			: undefined,

@@ -117,6 +117,19 @@ describe('planSeason', () => {
 		expect(plan.shortfall).toEqual([]);
 	});
 
+	it("places around another season's planting (an obstacle) without counting its harvest", () => {
+		// The same crop, but of another season: it holds b1 0–100 from 1 Apr to 14 Jun 2026
+		// (+ 7 turnaround days: busy through 21 Jun), and supplies nothing to this plan.
+		const obstacles = [{ key: 'planting#7', bedId: 'b1', startFt: 0, lengthFt: 100, fieldDate: '2026-04-01', lastHarvest: '2026-06-14', family: 'Apiaceae' }];
+		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 50), obstacles, options });
+		// W24 is still planned in full: 50 ÷ 1 per foot = 50 ft, field date 19 Apr, in b2 since b1 is held.
+		expect(plan.plantings.map((p) => [p.key, p.fieldDate, p.bedId, p.startFt, p.lengthFt])).toEqual([['v@w1#1', '2026-04-19', 'b2', 0, 50]]);
+		expect(plan.shortfall).toEqual([]);
+		// Without the obstacle the same planting takes b1, the first bed.
+		const free = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 50), options });
+		expect(free.plantings.map((p) => p.bedId)).toEqual(['b1']);
+	});
+
 	it('splits a crop between two varieties by week (varietyPlan)', () => {
 		// Invented: "early" yields 1 per foot, "late" 2 per foot; early takes weeks up to W25, late from W26.
 		const varieties = [v({ id: 'early', cropId: 'lettuce' }), v({ id: 'late', cropId: 'lettuce', yieldPerBedFoot: 2 })];
