@@ -150,3 +150,33 @@ describe('copy a season into the next year', () => {
 		expect(w53).toBeGreaterThan(0);
 	});
 });
+
+describe("next season works around last fall's plantings still in the beds", () => {
+	it('a moved spring planting finds every bed held and stays unplaced, with the reason', async () => {
+		// Invented: three 100-ft beds, each holding carrots sown 20 Oct 2026 and dug by 15 Jul 2027
+		// (busy through 22 Jul with the 7 turnaround days), and one spring basil of 2026.
+		const farm = await harvestFarm('copy-held');
+		const src = await addSeason(farm.farmId, 2026);
+		for (const bedId of farm.bedIds) {
+			await addPlanting(farm.farmId, src, { varietyId: farm.carrot.varietyId, bedId, lengthFt: 100, fieldDate: '2026-10-20', firstHarvest: '2027-06-01', lastHarvest: '2027-07-15', expectedYield: 200, status: 'sown' });
+		}
+		// Tue 21 Apr 2026 (W17-2) moves to W17-2 of 2027, Tue 27 Apr, harvesting into June 2027:
+		// every bed is still under the fall carrots then.
+		await addPlanting(farm.farmId, src, { varietyId: farm.basil.varietyId, bedId: farm.bedIds[0], lengthFt: 20, fieldDate: '2026-04-21', firstHarvest: '2026-06-01', lastHarvest: '2026-06-28', expectedYield: 20, status: 'finished' });
+		const res = await farm.owner.json(`/api/seasons/${src}/copy`, 'POST', {});
+		expect(res.status).toBe(201);
+		const { report } = await res.json();
+		const rows = await testDb()('plantings').where({ season_id: report.season.id }).orderBy('field_date');
+		const basil = rows.find((r) => r.variety_id === farm.basil.varietyId)!;
+		expect(basil.field_date).toBe('2027-04-27');
+		expect(basil.bed_id).toBeNull();
+		expect(report.unplaced).toEqual([expect.objectContaining({ crop: 'Basil' })]);
+		// Tue 20 Oct 2026 is W43-2; 2027-W43 starts Mon 25 Oct (W1 starts Mon 4 Jan 2027, + 42 weeks),
+		// so the carrots move to Tue 26 Oct 2027, after their own 2026 selves are dug: placed, each
+		// back on a bed carrots held (there is no other), with a rotation note.
+		const carrots = rows.filter((r) => r.variety_id === farm.carrot.varietyId);
+		expect(carrots.map((r) => r.field_date)).toEqual(['2027-10-26', '2027-10-26', '2027-10-26']);
+		expect(carrots.every((r) => r.bed_id !== null)).toBe(true);
+		expect(report.rotation).toHaveLength(3);
+	});
+});

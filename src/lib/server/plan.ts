@@ -1,7 +1,7 @@
 // Plan generation for a season: gathers the farm's data, runs the engine, and writes the result.
 // Preview never writes; apply replaces the season's still-planned plantings in one transaction
 // and keeps every planting that is already sown, growing, harvested or failed.
-import { addDays, deriveTargetsWithNotes, planSeason, type BedPlanting, type KeptPlanting, type SeasonPlan } from '$lib/planning';
+import { deriveTargetsWithNotes, planSeason, type BedPlanting, type KeptPlanting, type SeasonPlan } from '$lib/planning';
 import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
@@ -12,6 +12,7 @@ import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
 import * as seasons from './seasons';
+import { bedHolders } from './bed-holders';
 
 
 export interface PlanPreview {
@@ -22,33 +23,10 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
-/**
- * Other seasons' plantings that hold bed-feet while this season runs (the fall's garlic, dug
- * next summer): placed, not failed, in the ground between the season's first day (less the
- * turnaround) and its last, as the bed timeline counts them.
- */
+/** Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer). */
 async function otherSeasonsInBeds(farmId: number, seasonId: number, turnaroundDays: number): Promise<BedPlanting[]> {
 	const season = await seasons.get(farmId, seasonId);
-	if (!season) return [];
-	const rows = await db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
-		.where('p.farm_id', farmId)
-		.whereNot('p.season_id', seasonId)
-		.whereNotNull('p.bed_id')
-		.whereNot('p.status', 'failed')
-		.where('p.field_date', '<=', season.endsOn)
-		.where('p.last_harvest', '>=', addDays(season.startsOn, -turnaroundDays))
-		.select('p.id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.last_harvest', 'c.family');
-	return rows.map((p) => ({
-		key: `planting#${p.id}`,
-		bedId: String(p.bed_id),
-		startFt: Number(p.start_ft),
-		lengthFt: Number(p.length_ft),
-		fieldDate: p.field_date,
-		lastHarvest: p.last_harvest,
-		family: p.family
-	}));
+	return season ? bedHolders(farmId, season.startsOn, season.endsOn, turnaroundDays, seasonId) : [];
 }
 
 export async function preview(farmId: number, seasonId: number, request: PlanRequest): Promise<PlanPreview> {

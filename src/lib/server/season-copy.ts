@@ -18,6 +18,7 @@ import {
 import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
+import { bedHolders } from './bed-holders';
 import type { Season } from './seasons';
 
 export interface CopyPlantingNote {
@@ -87,16 +88,19 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 		const list = (previousFamilyByBed[String(p.bed_id)] ??= []);
 		if (!list.includes(p.family)) list.push(p.family);
 	}
+	// Whatever is in the beds while the new season runs (this season's fall plantings, dug next
+	// summer, among them) stays where it is: the moved plantings are placed around it.
+	const dates = seasonDates(source, year);
+	const fixed = await bedHolders(farmId, dates.startsOn, dates.endsOn, farm.turnaroundDays);
 	const placement = placePlantings(
 		moved.map(({ p, next }) => ({ key: String(p.id), bedFeet: Number(p.length_ft), fieldDate: next.fieldDate, lastHarvest: next.lastHarvest, family: p.family })),
 		bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		// Kept whole: splitting would change the planting's rows, seed and yield per piece.
-		{ turnaroundDays: farm.turnaroundDays, previousFamilyByBed, allowSplit: false }
+		{ turnaroundDays: farm.turnaroundDays, previousFamilyByBed, fixed, allowSplit: false }
 	);
 	const placedBy = new Map(placement.placed.map((r) => [r.plantingKey, r]));
 	const unplacedBy = new Map(placement.unplaced.map((u) => [u.plantingKey, u.reason]));
 
-	const dates = seasonDates(source, year);
 	return db().transaction(async (trx) => {
 		if (await trx('seasons').where({ farm_id: farmId, year }).first('id')) {
 			return { ok: false, status: 409, message: `This farm already has a ${year} season; copying would mix two plans.` } as const;

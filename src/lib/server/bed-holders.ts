@@ -1,0 +1,32 @@
+// Plantings that hold bed-feet over a span of days, whatever their season: beds carry plantings
+// across seasons (garlic planted in the fall is dug the next summer), so a plan for a season
+// works around those of other seasons that are in the ground while it runs.
+import { addDays, type BedPlanting } from '$lib/planning';
+import { db } from './db';
+
+/**
+ * The farm's placed, not-failed plantings in the ground at some time in [from, to] (their last
+ * harvest plus the turnaround on or after `from`), other than those of `exceptSeasonId`, as the
+ * engine's obstacles. The bed timeline counts the same plantings.
+ */
+export async function bedHolders(farmId: number, from: string, to: string, turnaroundDays: number, exceptSeasonId?: number): Promise<BedPlanting[]> {
+	const q = db()('plantings as p')
+		.join('varieties as v', 'v.id', 'p.variety_id')
+		.join('crops as c', 'c.id', 'v.crop_id')
+		.where('p.farm_id', farmId)
+		.whereNotNull('p.bed_id')
+		.whereNot('p.status', 'failed')
+		.where('p.field_date', '<=', to)
+		.where('p.last_harvest', '>=', addDays(from, -turnaroundDays));
+	if (exceptSeasonId !== undefined) q.whereNot('p.season_id', exceptSeasonId);
+	const rows = await q.select('p.id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.last_harvest', 'c.family');
+	return rows.map((p) => ({
+		key: `planting#${p.id}`,
+		bedId: String(p.bed_id),
+		startFt: Number(p.start_ft),
+		lengthFt: Number(p.length_ft),
+		fieldDate: p.field_date,
+		lastHarvest: p.last_harvest,
+		family: p.family
+	}));
+}
