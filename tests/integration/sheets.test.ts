@@ -69,6 +69,37 @@ describe('the sheet of a week', () => {
 		expect((await other.get(sheetPath)).status).toBe(404);
 		expect((await other.get(`${sheetPath}/sheets.xlsx`)).status).toBe(404);
 	});
+	it("the heat note follows the farm's normal mean for the week, on the page and in the mail", async () => {
+		// Invented normals for ISO week 21. The thresholds (no note under 60 °F, a firm one from 75 °F)
+		// are common practice (no published source); the note defers to local heat-safety rules.
+		const setNormal = async (meanF: number | null): Promise<void> => {
+			await testDb()('farm_weekly_temps').where({ farm_id: f.farmId, week_number: 21 }).delete();
+			if (meanF !== null) await testDb()('farm_weekly_temps').insert({ farm_id: f.farmId, week_number: 21, mean_temp_f: meanF });
+		};
+		try {
+			await setNormal(77);
+			let page = await html(await f.crew.get(sheetPath));
+			expect(page).toMatch(/Heat: this week&#39;s normal mean is 77 °F|Heat: this week's normal mean is 77 °F/);
+			expect(page).toMatch(/signs of heat illness; follow your local heat-safety rules/);
+			const to = uniqueEmail('sheet-heat');
+			expect((await f.crew.postForm(`${sheetPath}?/email`, { extra: to })).status).toBe(303);
+			expect((await waitForMail(to)).text).toContain("Caution: Heat: this week's normal mean is 77 °F");
+
+			await setNormal(52);
+			page = await html(await f.crew.get(sheetPath));
+			expect(page).not.toMatch(/Heat:/);
+			// The other cautions stay whatever the weather.
+			expect(page).toMatch(/Treated seed.*gloves/);
+			expect(page).toMatch(/Food safety/);
+
+			await setNormal(66);
+			page = await html(await f.crew.get(sheetPath));
+			expect(page).toMatch(/Heat: .*cool hours.*water and shade/);
+			expect(page).not.toMatch(/normal mean is/);
+		} finally {
+			await setNormal(null);
+		}
+	});
 });
 
 describe('marking tasks done', () => {

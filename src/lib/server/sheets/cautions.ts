@@ -2,15 +2,37 @@
 // supplier's label rather than replace them.
 import type { SectionKind } from './week';
 
-export const cautions: Record<SectionKind, string[]> = {
-	tray_sow: ['Treated seed (coloured coating): wear gloves, keep it away from food and feed, and follow the seed label and local rules.'],
-	direct_sow: [
-		'Treated seed (coloured coating): wear gloves, keep it away from food and feed, and follow the seed label and local rules.',
-		'Heat: in hot weather work the cool hours, keep water and shade at hand, and rest often.'
-	],
-	transplant: ['Heat: in hot weather work the cool hours, keep water and shade at hand, and rest often. Water transplants in well.'],
-	harvest: [
-		'Food safety: wash hands before harvest, use clean bins and potable water for washing, keep produce off the ground and cool it quickly, as your local food-safety rules require.',
-		'Heat: harvest in the cool hours where you can, with water and shade at hand.'
-	]
-};
+const treatedSeed = 'Treated seed (coloured coating): wear gloves, keep it away from food and feed, and follow the seed label and local rules.';
+const foodSafety =
+	'Food safety: wash hands before harvest, use clean bins and potable water for washing, keep produce off the ground and cool it quickly, as your local food-safety rules require.';
+
+/**
+ * Weekly normal means (°F) from which the heat note changes: below COOL_WEEK_F a week is too cool
+ * for one; from HOT_WEEK_F the afternoons are hot enough (highs around the upper 80s) to warn in
+ * earnest. Common practice (no published source); the farm's own heat-safety rules come first.
+ */
+export const COOL_WEEK_F = 60;
+export const HOT_WEEK_F = 75;
+
+function heatNote(kind: SectionKind, meanF: number | null): string[] {
+	if (kind === 'tray_sow') return [];
+	if (meanF !== null && meanF < COOL_WEEK_F) return [];
+	const extra = kind === 'transplant' ? ' Water transplants in well.' : '';
+	if (meanF !== null && meanF >= HOT_WEEK_F) {
+		return [
+			`Heat: this week's normal mean is ${Math.round(meanF)} °F, so expect hot afternoons. Start early and ${kind === 'harvest' ? 'harvest' : 'work'} in the cool hours, drink water often, rest in the shade, and watch each other for signs of heat illness; follow your local heat-safety rules.${extra}`
+		];
+	}
+	if (kind === 'harvest') return ['Heat: harvest in the cool hours where you can, with water and shade at hand.'];
+	return [`Heat: in hot weather work the cool hours, keep water and shade at hand, and rest often.${extra}`];
+}
+
+/** The cautions of each section for a week whose normal mean is `meanF` (null: the farm has none). */
+export function cautionsFor(meanF: number | null): Record<SectionKind, string[]> {
+	return {
+		tray_sow: [treatedSeed],
+		direct_sow: [treatedSeed, ...heatNote('direct_sow', meanF)],
+		transplant: heatNote('transplant', meanF),
+		harvest: [foodSafety, ...heatNote('harvest', meanF)]
+	};
+}

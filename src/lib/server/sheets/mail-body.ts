@@ -1,7 +1,7 @@
 // The e-mail that carries a week's crew sheets: a plain HTML summary (inline styles only, as mail
 // readers strip style sheets) and its text twin; the full sheets travel as the attached .xlsx.
 import { formatWeekDate } from '$lib/planning';
-import { cautions } from './cautions';
+import { cautionsFor } from './cautions';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
 
 function esc(s: string): string {
@@ -35,6 +35,7 @@ export interface MailBody {
 }
 
 export function weekMail(sheet: WeekSheet, farmName: string, seasonName: string, link: string, sender: string): MailBody {
+	const cautions = cautionsFor(sheet.weekMeanF);
 	const subject = `Crew sheets ${sheet.week} (${formatWeekDate(sheet.monday)} – ${formatWeekDate(sheet.sunday)}) · ${farmName}`;
 	const html: string[] = [
 		`<div style="font-family:sans-serif;color:#222;max-width:720px">`,

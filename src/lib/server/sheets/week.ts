@@ -64,6 +64,8 @@ export interface WeekSheet {
 	week: string;
 	monday: string;
 	sunday: string;
+	/** The farm's weekly normal mean for this ISO week number, °F, when the farm has one. */
+	weekMeanF: number | null;
 	sections: SheetSection[];
 }
 
@@ -153,7 +155,12 @@ function groupByBed(rows: SheetRow[]): SheetGroup[] {
 
 /** The crew sheets of one ISO week of a season (monday..sunday), farm-scoped. */
 export async function weekSheet(farmId: number, seasonId: number, week: string, monday: string, sunday: string): Promise<WeekSheet> {
-	const [tasks, varieties, demand] = await Promise.all([tasksForWeek(farmId, monday, sunday), listVarieties(farmId), demandForWeek(farmId, seasonId, week)]);
+	const [tasks, varieties, demand, normal] = await Promise.all([
+		tasksForWeek(farmId, monday, sunday),
+		listVarieties(farmId),
+		demandForWeek(farmId, seasonId, week),
+		db()('farm_weekly_temps').where({ farm_id: farmId, week_number: Number(week.slice(6)) }).first('mean_temp_f')
+	]);
 	const inSeason = (list: PlantingView[]) => list.filter((p) => p.seasonId === seasonId);
 	const t = {
 		tray_sow: inSeason(tasks.traySowing),
@@ -208,5 +215,5 @@ export async function weekSheet(farmId: number, seasonId: number, week: string, 
 		const groups = kind === 'tray_sow' ? (rows.length ? [{ label: 'Greenhouse · trays', rows }] : []) : groupByBed(rows);
 		return { kind, title: titles[kind], count: rows.length, groups };
 	});
-	return { week, monday, sunday, sections };
+	return { week, monday, sunday, weekMeanF: normal ? Number(normal.mean_temp_f) : null, sections };
 }

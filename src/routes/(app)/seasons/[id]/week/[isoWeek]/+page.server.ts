@@ -7,7 +7,7 @@ import { todayIn } from '$lib/today';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import { sheetContext } from '$lib/server/sheets/context';
 import { weekSheet } from '$lib/server/sheets/week';
-import { cautions } from '$lib/server/sheets/cautions';
+import { cautionsFor } from '$lib/server/sheets/cautions';
 import { crewAddresses, sendWeekSheets } from '$lib/server/sheets/send';
 import { markDoneSchema, sendSheetsSchema, splitAddresses } from '$lib/server/sheets/schemas';
 import type { z } from 'zod';
@@ -24,7 +24,7 @@ export const load = (async (event) => {
 	]);
 	return {
 		sheet,
-		cautions,
+		cautions: cautionsFor(sheet.weekMeanF),
 		canMark,
 		crew,
 		farmName: settings.name,
