@@ -119,6 +119,31 @@ describe('the grid form', () => {
 		const text = await html(await crew.get(page()));
 		expect(text).toMatch(new RegExp(`data-testid="target-${carrot}-2034-W24"[^>]*>[\\s\\S]{0,400}?>110`));
 	});
+	it("a save writes only the cells its editor changed, so a save from an older page keeps another's change", async () => {
+		// The market grid now holds Carrot W24 = 20 lb (above) and nothing in W25; the page draws
+		// each cell with what it held, for the save to compare against.
+		const drawn = await html(await share.get(`${page()}?grid=market`));
+		expect(drawn).toContain(`name="was.${carrot}.2034-W24" value="20"`);
+		expect(drawn).toContain(`name="was.${carrot}.2034-W25" value=""`);
+		const form = (w24: string, w25: string): Record<string, string | number> => ({
+			grid: 'market',
+			[`u.${carrot}`]: 'lb',
+			[`q.${carrot}.2034-W24`]: w24,
+			[`was.${carrot}.2034-W24`]: '20',
+			[`q.${carrot}.2034-W25`]: w25,
+			[`was.${carrot}.2034-W25`]: ''
+		});
+		// One editor types 15 into W25 and saves.
+		expect((await share.postForm(`${page()}?/saveGrid`, form('20', '15'))).status).toBe(303);
+		// A second editor, on a page drawn before that save (W25 still empty there), changes W24 to 25.
+		expect((await share.postForm(`${page()}?/saveGrid`, form('25', ''))).status).toBe(303);
+		const rows = await testDb()('channel_demand').where({ season_id: fx.seasonId, channel: 'market', crop_id: carrot }).orderBy('week').select('week', 'quantity');
+		// W24 carries the second editor's change, W25 the first one's: neither save undid the other.
+		expect(rows.map((r) => [r.week, Number(r.quantity)])).toEqual([
+			['2034-W24', 25],
+			['2034-W25', 15]
+		]);
+	});
 	it('copy a week: bad range 400 naming the field, good range 303', async () => {
 		const bad = await share.postForm(`${page()}?/copyWeek`, { grid: grid(), fromWeek: '2034-W24', toFirst: '2034-W25', toLast: '2034-W40' });
 		expect(bad.status).toBe(400);

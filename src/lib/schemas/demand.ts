@@ -63,7 +63,10 @@ export const cellSchema = z
 		week: isoWeekField('Week'),
 		// Empty (null) or 0 clears the cell.
 		quantity: z.preprocess((v) => (v === '' || v === undefined ? null : v), numberField('Quantity', 0, 100_000).nullable()),
-		unit: z.enum(harvestUnits, { error: 'Unit must be lb, bunch, head or each.' })
+		unit: z.enum(harvestUnits, { error: 'Unit must be lb, bunch, head or each.' }),
+		// What the cell held when the editor opened it (empty: nothing). A cell sent unchanged from
+		// that is left as it is now, so a save never undoes what someone else saved meanwhile.
+		was: z.preprocess((v) => (v === '' ? null : v), numberField('Previous quantity', 0, 100_000).nullable()).optional()
 	})
 	.strict();
 export type CellInput = z.infer<typeof cellSchema>;

@@ -276,6 +276,8 @@ export async function saveCells(farmId: number, season: Season, raw: unknown): P
 		const k = `${c.crop}|${c.week}`;
 		if (seen.has(k)) return void (errors[`cells.${i}.week`] = `${where(i)}: the same cell is listed twice (also cell ${seen.get(k)}).`);
 		seen.set(k, i);
+		// Sent as it was when the editor opened it: not the editor's change, so not written.
+		if (c.was !== undefined && (c.quantity ?? 0) === (c.was ?? 0)) return;
 		if (c.quantity === null || c.quantity === 0) write.clear.push({ cropId: c.crop, week: c.week });
 		else write.set.push({ cropId: c.crop, week: c.week, quantity: c.quantity, unit: crop.unit });
 	});

@@ -15,7 +15,8 @@ export function shareFields(form: FormData): Record<string, unknown> {
 }
 
 /**
- * The grid form: inputs `q.<cropId>.<week>` for each shown cell with `u.<cropId>` the row's unit,
+ * The grid form: inputs `q.<cropId>.<week>` for each shown cell with `u.<cropId>` the row's unit
+ * and `was.<cropId>.<week>` what the cell held when the page was drawn,
  * and the add-a-crop row `newCrop` with `n.<week>` inputs. Returns the cells for the schema and,
  * per cell index, the input name to hang an error on.
  */
@@ -26,7 +27,8 @@ export function gridFields(form: FormData, unitOf: Map<number, string>): { body:
 	for (const [k, v] of Object.entries(values)) {
 		const m = /^q\.(\d+)\.(\d{4}-W\d{2})$/.exec(k);
 		if (!m) continue;
-		cells.push({ crop: m[1], week: m[2], quantity: v, unit: values[`u.${m[1]}`] ?? '' });
+		const was = values[`was.${m[1]}.${m[2]}`];
+		cells.push({ crop: m[1], week: m[2], quantity: v, unit: values[`u.${m[1]}`] ?? '', ...(was === undefined ? {} : { was }) });
 		names.push(k);
 	}
 	const newCrop = Number(values.newCrop);
