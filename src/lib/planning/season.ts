@@ -142,7 +142,7 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	// and heat warnings are made with its proposal, at the end, rather than carried through placement.
 	const dtmWarnings = new Map<number, PlanningWarning[]>();
 	let planned = 0;
-	// Key prefixes in use, so two shares never plan under the same keys, and where each one's records are.
+	// Key prefixes in use, so two shares never plan under the same keys, and which successions each one has.
 	const prefixes = new Set<string>();
 	const groups: { prefix: string; start: number; count: number }[] = [];
 	// One temperature lookup for the farm, shared by every variety's planning.
