@@ -187,17 +187,17 @@ export interface IndexedPlacement {
 
 /**
  * Plantings to place in placement's own form: parallel lists, one entry per
- * planting, with dates as day numbers (and as given, for messages). planSeason
- * fills these as it plans, so thousands of plantings need no request object each.
+ * planting, with dates as day numbers; keys and the dates as given are asked for
+ * only when a note or a reason names them. planSeason fills these as it plans, so
+ * thousands of plantings need no request object each.
  */
 export interface PlacementJobs {
-	/** How many plantings, and each one's key (asked for only when a note or reason names it). */
 	count: number;
 	keyOf: (i: number) => string;
 	bedFeet: number[];
 	fieldDays: number[];
 	lastDays: number[];
-	/** The dates as the caller gave them, for the reason a planting is left unplaced. */
+	/** The dates as the caller gave them. */
 	datesOf: (i: number) => { fieldDate: string; lastHarvest: string };
 	families: (string | undefined)[];
 }
@@ -213,6 +213,7 @@ export interface PlacementSetup {
 	result: IndexedPlacement;
 }
 
+/** Check the beds and options and lay the fixed plantings; the setup serves one placeJobs call. */
 export function preparePlacement(beds: Bed[], options: PlacementOptions = {}): PlacementSetup {
 	const bedIndexById = validateBeds(beds);
 	const turnaround =
