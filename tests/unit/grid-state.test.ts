@@ -75,6 +75,27 @@ describe('editing a cell', () => {
 		expect(g.rows[0].derived?.firstHarvest).toBe('2026-07-10');
 		expect(g.rows[0].derived?.lastHarvest).toBe('2026-07-23');
 	});
+	it('an edit gives the view a new item for the edited row only, and filters still apply after', () => {
+		const { g } = grid([planting(1), planting(2, { startFt: 60, lengthFt: 40 }), planting(3, { varietyId: 2, variety: 'Invented Green', crop: 'Lettuce', method: 'transplant', startFt: 0, lengthFt: 30, bedId: null, bed: null })]);
+		const before = g.view.items;
+		g.moveTo(1, col(g, 'lengthFt'));
+		g.beginEdit('35');
+		expect(g.commitEdit()).toBe(true);
+		const after = g.view.items;
+		expect(after).toHaveLength(3);
+		// Rows 0 and 2 keep their item objects (so their cells are not drawn again); row 1 has a new one.
+		expect(after[0]).toBe(before[0]);
+		expect(after[2]).toBe(before[2]);
+		expect(after[1]).not.toBe(before[1]);
+		expect(after[1]).toMatchObject({ kind: 'row', index: 1 });
+		expect(after[1].kind === 'row' && after[1].row.values.lengthFt).toBe(35);
+		// A filter after the patched view, then none again: the full list comes back, edit included.
+		g.filters.crop = 'Lettuce';
+		expect(g.view.rows.map((r) => r.key)).toEqual([g.rows[2].key]);
+		g.filters.crop = '';
+		expect(g.view.rows.map((r) => r.values.lengthFt)).toEqual([60, 35, 30]);
+	});
+
 	it('keeps an invalid entry in its cell with the schema\'s message, changing nothing', () => {
 		const { g } = grid();
 		g.moveTo(0, col(g, 'rows'));

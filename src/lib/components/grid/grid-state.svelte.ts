@@ -102,6 +102,8 @@ export class GridState {
 	 * edited one, so only that row's cells are drawn again (not every visible cell).
 	 */
 	private itemCache = new Map<string, Item & { kind: 'row' }>();
+	/** The last view built with no filter, sort or grouping: its rows and items, to patch on an edit. */
+	private lastPlain: { rows: GridRow[]; items: Item[] } | null = null;
 
 	constructor(init: GridInit, api: GridApi, opts: { debounceMs?: number } = {}) {
 		this.lookups = {
@@ -120,7 +122,12 @@ export class GridState {
 
 	// ---- rows
 
-	setRows(rows: GridRow[]): void {
+	/**
+	 * `before`: the rows these replace one for one (an edit), so that only the changed ones are
+	 * looked at again rather than every row of a season of thousands.
+	 */
+	setRows(rows: GridRow[], before?: GridRow[]): void {
+		if (before && before.length === rows.length && this.replaceInPlace(rows, before)) return;
 		this.rows = rows;
 		this.byKey = new Map(rows.map((r) => [r.key, r]));
 		for (const r of rows) {
@@ -129,6 +136,21 @@ export class GridState {
 			else if (box.current !== r) box.current = r;
 		}
 		if (this.boxes.size > rows.length) for (const k of this.boxes.keys()) if (!this.byKey.has(k)) this.boxes.delete(k);
+	}
+
+	/** setRows for rows that replace `before` position by position; false (nothing done) when a key moved. */
+	private replaceInPlace(rows: GridRow[], before: GridRow[]): boolean {
+		for (let i = 0; i < rows.length; i++) if (rows[i] !== before[i] && rows[i].key !== before[i].key) return false;
+		this.rows = rows;
+		for (let i = 0; i < rows.length; i++) {
+			const r = rows[i];
+			if (r === before[i]) continue;
+			this.byKey.set(r.key, r);
+			const box = this.boxes.get(r.key);
+			if (!box) this.boxes.set(r.key, new RowBox(r));
+			else box.current = r;
+		}
+		return true;
 	}
 
 	row(key: string): GridRow | undefined {
@@ -165,7 +187,7 @@ export class GridState {
 			if (u) beds.add(r.values.bedId);
 			return u ?? r;
 		});
-		this.setRows(this.withConflicts(next, beds));
+		this.setRows(this.withConflicts(next, beds), this.rows);
 	}
 
 	// ---- view
@@ -180,7 +202,8 @@ export class GridState {
 		const from = f.fromWeek ? safeWeekStart(f.fromWeek) : null;
 		const to = f.toWeek ? safeWeekStart(f.toWeek) : null;
 		const toEnd = to ? addDays(to, 6) : null;
-		let rows = this.rows.filter((r) => {
+		const filtered = !!(f.crop || f.bedId || f.block || f.status || f.warningsOnly || from || toEnd);
+		let rows = !filtered ? this.rows : this.rows.filter((r) => {
 			const v = l.varietyById.get(r.values.varietyId);
 			if (f.crop && v?.crop !== f.crop) return false;
 			if (f.bedId && String(r.values.bedId ?? '') !== f.bedId) return false;
@@ -202,6 +225,32 @@ export class GridState {
 			const keyed = rows.map((r) => ({ r, g: group === 'none' ? '' : groupKey(r), v: col ? col.sortValue(r, l) : 0 }));
 			keyed.sort((a, b) => (a.g < b.g ? -1 : a.g > b.g ? 1 : 0) || (col ? cmp(a.v, b.v) * (s!.desc ? -1 : 1) : 0));
 			rows = keyed.map((k) => k.r);
+		}
+		// The usual edit: no filter, sort or grouping, the same rows in the same places but one or
+		// two replaced. Patch the last list of items rather than rebuild thousands of them.
+		const last = this.lastPlain;
+		if (!filtered && !col && group === 'none' && last && last.rows.length === rows.length) {
+			let items: Item[] | null = last.items;
+			let copied = false;
+			for (let i = 0; i < rows.length; i++) {
+				const r = rows[i];
+				if (r === last.rows[i]) continue;
+				if (r.key !== last.rows[i].key) {
+					items = null;
+					break;
+				}
+				if (!copied) {
+					items = last.items.slice();
+					copied = true;
+				}
+				const item = { kind: 'row' as const, row: r, index: i };
+				items![i] = item;
+				this.itemCache.set(r.key, item);
+			}
+			if (items) {
+				this.lastPlain = { rows, items };
+				return { rows, items };
+			}
 		}
 		const items: Item[] = [];
 		const prevItems = this.itemCache;
@@ -231,6 +280,7 @@ export class GridState {
 			});
 		}
 		this.itemCache = nextItems;
+		this.lastPlain = !filtered && !col && group === 'none' ? { rows, items } : null;
 		return { rows, items };
 	}
 
