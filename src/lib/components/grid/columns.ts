@@ -35,6 +35,10 @@ export interface GridColumn {
 // One formatter, made once: toLocaleString builds a new one per call, too slow for hundreds of cells per edit.
 const numberFormat = new Intl.NumberFormat('en-US', { maximumFractionDigits: 2 });
 const n = (x: number): string => numberFormat.format(x);
+
+// Counted units read in the singular for one ("1 seed", "1 row"); feet, inches and harvest units do not change.
+const singular: Record<string, string> = { rows: 'row', seeds: 'seed', cells: 'cell', trays: 'tray', plants: 'plant' };
+const counted = (x: number, unit: string): string => `${n(x)} ${x === 1 ? (singular[unit] ?? unit) : unit}`;
 const wd = (d: string | null | undefined): string => (d ? formatWeekDate(d) : '');
 export const bedLabel = (b: GridBed): string => `${b.blockName} · ${b.name}`;
 
@@ -136,7 +140,7 @@ export function warningLabels(r: GridRow): string[] {
 
 function num(id: string, label: string, unit: string, width: number, field: PlantingField): GridColumn {
 	const get = (r: GridRow): number => r.values[field] as number;
-	return { id, label, field, kind: 'number', width, numeric: true, show: (r) => `${n(get(r))} ${unit}`, sortValue: get, text: (r) => String(get(r)) };
+	return { id, label, field, kind: 'number', width, numeric: true, show: (r) => counted(get(r), unit), sortValue: get, text: (r) => String(get(r)) };
 }
 
 function derivedDate(id: string, label: string, get: (r: GridRow) => string | null): GridColumn {
@@ -146,7 +150,7 @@ function derivedDate(id: string, label: string, get: (r: GridRow) => string | nu
 function derivedNum(id: string, label: string, get: (r: GridRow) => number | undefined, unit: (r: GridRow, l: Lookups) => string, width: number): GridColumn {
 	return {
 		id, label, kind: 'number', width, numeric: true,
-		show: (r, l) => (get(r) === undefined ? '' : `${n(get(r)!)} ${unit(r, l)}`),
+		show: (r, l) => (get(r) === undefined ? '' : counted(get(r)!, unit(r, l))),
 		sortValue: (r) => get(r) ?? -1,
 		text: (r) => (get(r) === undefined ? '' : String(get(r)))
 	};
