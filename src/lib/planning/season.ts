@@ -10,7 +10,7 @@ import { byDayThenRank, inPlanOrder, keyRanks, pieceRanks } from './season-order
 import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
 import { type DayNumber, daysFromCivil, fromDayNumber, toDayNumber } from './day-number';
 import { type SeasonFacts, successionWarnings } from './plan-warnings';
-import { planSuccessionRuns, type Farm, type PlanOptions } from './successions';
+import { planSuccessionRuns, withDtmWarnings, type Farm, type PlanOptions } from './successions';
 import type { CropWeekQuantity, PlanningWarning, SowingMethod, Variety } from './types';
 import { makeTempLookup } from './weekly-temps';
 
@@ -221,7 +221,7 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	);
 	// Placement notes by the succession they are about; notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
 	// (Sized up front: writing far past the end of an empty list would turn it into a slow sparse one.)
-	const notes: (PlanningWarning[] | undefined)[] = new Array<PlanningWarning[] | undefined>(planned).fill(undefined);
+	const notes: (PlanningWarning[] | undefined)[] = filled<PlanningWarning[] | undefined>(planned, undefined);
 	placement.warnings.forEach((n, i) => {
 		const from = placement.noteFrom[i];
 		if (from < 0) warnings.push({ code: n.code, key: n.plantingKey, message: n.message });
@@ -278,8 +278,7 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	// A succession's own warnings: the days-to-maturity ones, then its frost and heat ones.
 	const ownWarnings = (from: number): PlanningWarning[] => {
 		const own = successionWarnings(plannedVariety[from], jobs.fieldDays[from], firstDays[from], jobs.lastDays[from], facts!);
-		const dtm = dtmWarnings.get(from);
-		return dtm ? [...dtm, ...own] : own;
+		return withDtmWarnings(dtmWarnings.get(from) ?? [], own);
 	};
 	const proposal = (from: number, key: string, bedId: string | null, startFt: number, lengthFt: number, own: PlanningWarning[], unplacedReason: string | null): ProposedPlanting => {
 		const v = plannedVariety[from];
@@ -354,8 +353,8 @@ function planOrder(
 	const ranks = keyRanks(groups, fieldDays.length);
 	if (!ranks) return null;
 	const pieces = pieceRanks(pieceSlots);
-	const day: number[] = new Array<number>(all.length).fill(0);
-	const rank: number[] = new Array<number>(all.length).fill(0);
+	const day: number[] = filled(all.length, 0);
+	const rank: number[] = filled(all.length, 0);
 	for (let i = 0; i < all.length; i++) {
 		const fieldDay = fieldDays[fromOf[i]];
 		if (fieldDay < FIRST_DAY || fieldDay > LAST_DAY) return null;

@@ -390,6 +390,6 @@ function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptio
 const NONE: PlanningWarning[] = [];
 
 /** A succession's warnings: the days-to-maturity ones, then its own (a fresh list, shared with neither). */
-function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWarning[]): PlanningWarning[] {
+export function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWarning[]): PlanningWarning[] {
 	return dtmWarnings.length === 0 ? own : [...dtmWarnings, ...own];
 }

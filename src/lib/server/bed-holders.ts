@@ -2,7 +2,13 @@
 // across seasons (garlic planted in the fall is dug the next summer), so a plan for a season
 // works around those of other seasons that are in the ground while it runs.
 import { addDays, type BedPlanting } from '$lib/planning';
+import type { Knex } from 'knex';
 import { db } from './db';
+
+/** Narrows a query on `plantings as p` to placed plantings in the ground at some time in [from, to] (turnaround counted). */
+export function holdingBedIn(q: Knex.QueryBuilder, from: string, to: string, turnaroundDays: number): Knex.QueryBuilder {
+	return q.whereNotNull('p.bed_id').andWhere('p.field_date', '<=', to).andWhere('p.last_harvest', '>=', addDays(from, -turnaroundDays));
+}
 
 /**
  * The farm's placed, not-failed plantings in the ground at some time in [from, to] (their last
@@ -14,10 +20,8 @@ export async function bedHolders(farmId: number, from: string, to: string, turna
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('p.farm_id', farmId)
-		.whereNotNull('p.bed_id')
-		.whereNot('p.status', 'failed')
-		.where('p.field_date', '<=', to)
-		.where('p.last_harvest', '>=', addDays(from, -turnaroundDays));
+		.whereNot('p.status', 'failed');
+	holdingBedIn(q, from, to, turnaroundDays);
 	if (exceptSeasonId !== undefined) q.whereNot('p.season_id', exceptSeasonId);
 	const rows = await q.select('p.id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.last_harvest', 'c.family');
 	return rows.map((p) => ({

@@ -1,7 +1,7 @@
 // Plan generation for a season: gathers the farm's data, runs the engine, and writes the result.
 // Preview never writes; apply replaces the season's still-planned plantings in one transaction
 // and keeps every planting that is already sown, growing, harvested or failed.
-import { deriveTargetsWithNotes, planSeason, type BedPlanting, type KeptPlanting, type SeasonPlan } from '$lib/planning';
+import { deriveTargetsWithNotes, planSeason, type KeptPlanting, type SeasonPlan } from '$lib/planning';
 import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
@@ -11,7 +11,7 @@ import * as farms from './farms';
 import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
-import * as seasons from './seasons';
+import type { Season } from './seasons';
 import { bedHolders } from './bed-holders';
 
 
@@ -23,13 +23,8 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
-/** Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer). */
-async function otherSeasonsInBeds(farmId: number, seasonId: number, turnaroundDays: number): Promise<BedPlanting[]> {
-	const season = await seasons.get(farmId, seasonId);
-	return season ? bedHolders(farmId, season.startsOn, season.endsOn, turnaroundDays, seasonId) : [];
-}
-
-export async function preview(farmId: number, seasonId: number, request: PlanRequest): Promise<PlanPreview> {
+export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
+	const seasonId = season.id;
 	const farm = await farms.get(farmId);
 	const [temps, varieties, bedList, demand, existing, obstacles] = await Promise.all([
 		farms.weeklyTemps(farmId),
@@ -41,7 +36,8 @@ export async function preview(farmId: number, seasonId: number, request: PlanReq
 			.join('crops as c', 'c.id', 'v.crop_id')
 			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 			.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
-		otherSeasonsInBeds(farmId, seasonId, farm.turnaroundDays)
+		// Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer).
+		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId)
 	]);
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
@@ -102,8 +98,9 @@ export interface ApplyResult {
 	unplaced: number;
 }
 
-export async function apply(farmId: number, seasonId: number, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
-	const result = await preview(farmId, seasonId, request);
+export async function apply(farmId: number, season: Season, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
+	const seasonId = season.id;
+	const result = await preview(farmId, season, request);
 	return db().transaction(async (trx) => {
 		// Lock the season's plantings: a concurrent edit waits, and the counts below stay true.
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');

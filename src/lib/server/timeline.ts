@@ -5,6 +5,7 @@ import { addDays, checkBedConflicts, formatWeekDate, freeSpace, weekStart, type 
 import type { FreeSpaceQuery } from '$lib/schemas/free-space';
 import type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting } from '$lib/components/timeline/types';
 import { db } from './db';
+import { holdingBedIn } from './bed-holders';
 import * as bedData from './beds';
 import * as farms from './farms';
 import type { Season } from './seasons';
@@ -44,9 +45,7 @@ async function plantingsTouching(farmId: number, seasonId: number | null, from: 
 		.where('p.farm_id', farmId)
 		.andWhere((q) => {
 			if (seasonId !== null) q.where('p.season_id', seasonId);
-			q.orWhere((o) =>
-				o.whereNotNull('p.bed_id').andWhere('p.field_date', '<=', to).andWhere('p.last_harvest', '>=', addDays(from, -turnaroundDays))
-			);
+			q.orWhere((o) => holdingBedIn(o, from, to, turnaroundDays));
 		})
 		.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
 		.select(columns);

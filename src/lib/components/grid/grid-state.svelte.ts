@@ -130,11 +130,7 @@ export class GridState {
 		if (before && before.length === rows.length && this.replaceInPlace(rows, before)) return;
 		this.rows = rows;
 		this.byKey = new Map(rows.map((r) => [r.key, r]));
-		for (const r of rows) {
-			const box = this.boxes.get(r.key);
-			if (!box) this.boxes.set(r.key, new RowBox(r));
-			else if (box.current !== r) box.current = r;
-		}
+		for (const r of rows) this.box(r);
 		if (this.boxes.size > rows.length) for (const k of this.boxes.keys()) if (!this.byKey.has(k)) this.boxes.delete(k);
 	}
 
@@ -146,11 +142,16 @@ export class GridState {
 			const r = rows[i];
 			if (r === before[i]) continue;
 			this.byKey.set(r.key, r);
-			const box = this.boxes.get(r.key);
-			if (!box) this.boxes.set(r.key, new RowBox(r));
-			else box.current = r;
+			this.box(r);
 		}
 		return true;
+	}
+
+	/** The row's reactive box holds this row object (a new box for a new key). */
+	private box(r: GridRow): void {
+		const box = this.boxes.get(r.key);
+		if (!box) this.boxes.set(r.key, new RowBox(r));
+		else if (box.current !== r) box.current = r;
 	}
 
 	row(key: string): GridRow | undefined {

@@ -4,6 +4,7 @@
 import { forecast, type SeedNeed } from '$lib/planning';
 import { plantingSeed } from '$lib/varieties';
 import { db } from '../db';
+import * as farms from '../farms';
 import { listVarieties, type VarietyView } from '../crops';
 import { tasksForWeek, type PlantingView } from '../plantings';
 import type { TaskKind } from './schemas';
@@ -155,11 +156,11 @@ function groupByBed(rows: SheetRow[]): SheetGroup[] {
 
 /** The crew sheets of one ISO week of a season (monday..sunday), farm-scoped. */
 export async function weekSheet(farmId: number, seasonId: number, week: string, monday: string, sunday: string): Promise<WeekSheet> {
-	const [tasks, varieties, demand, normal] = await Promise.all([
+	const [tasks, varieties, demand, normals] = await Promise.all([
 		tasksForWeek(farmId, monday, sunday),
 		listVarieties(farmId),
 		demandForWeek(farmId, seasonId, week),
-		db()('farm_weekly_temps').where({ farm_id: farmId, week_number: Number(week.slice(6)) }).first('mean_temp_f')
+		farms.weeklyTemps(farmId)
 	]);
 	const inSeason = (list: PlantingView[]) => list.filter((p) => p.seasonId === seasonId);
 	const t = {
@@ -215,5 +216,5 @@ export async function weekSheet(farmId: number, seasonId: number, week: string, 
 		const groups = kind === 'tray_sow' ? (rows.length ? [{ label: 'Greenhouse · trays', rows }] : []) : groupByBed(rows);
 		return { kind, title: titles[kind], count: rows.length, groups };
 	});
-	return { week, monday, sunday, weekMeanF: normal ? Number(normal.mean_temp_f) : null, sections };
+	return { week, monday, sunday, weekMeanF: normals[Number(week.slice(6))] ?? null, sections };
 }

@@ -11,6 +11,6 @@ export const POST: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;
-	const { preview, ...changes } = await apply(farm.id, season.id, user.id, body.data);
+	const { preview, ...changes } = await apply(farm.id, season, user.id, body.data);
 	return json({ season, ...changes, warnings: preview.plan.warnings, shortfall: preview.plan.shortfall });
 };

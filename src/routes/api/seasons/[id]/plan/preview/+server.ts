@@ -11,6 +11,6 @@ export const POST: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;
-	const result = await preview(farm.id, season.id, body.data);
+	const result = await preview(farm.id, season, body.data);
 	return json({ season, kept: result.kept, replaced: result.replaced, ...result.plan, names: result.names });
 };
