@@ -6,7 +6,7 @@ import type { Knex } from 'knex';
 import { isoWeek, weeksBetween } from '$lib/planning/iso-week';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import { cellSchema, cellsSchema, copyWeekSchema, gridSchema, shareSizeSchema, type Channel, type GridKey, type HarvestUnit, type ShareSizeInput } from '$lib/schemas/demand';
-import type { Season } from './seasons';
+import { markDemandChanged, type Season } from './seasons';
 
 export async function targetInput(farmId: number, seasonId: number): Promise<TargetInput> {
 	const [shares, items, channels] = await Promise.all([
@@ -144,7 +144,11 @@ function isDuplicate(e: unknown): boolean {
 export async function createShareSize(farmId: number, season: Season, raw: unknown): Promise<ShareSizeView> {
 	const input = parseShare(raw, season);
 	try {
-		const [id] = await db()('share_sizes').insert({ farm_id: farmId, season_id: season.id, ...shareRow(input) });
+		const id = await db().transaction(async (trx) => {
+			const [newId] = await trx('share_sizes').insert({ farm_id: farmId, season_id: season.id, ...shareRow(input) });
+			await markDemandChanged(trx, farmId, season.id);
+			return newId;
+		});
 		return (await listShareSizes(farmId, season.id)).find((s) => s.id === id)!;
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
@@ -156,7 +160,11 @@ export async function createShareSize(farmId: number, season: Season, raw: unkno
 export async function updateShareSize(farmId: number, season: Season, id: number, raw: unknown): Promise<ShareSizeView | null> {
 	const input = parseShare(raw, season);
 	try {
-		const n = await db()('share_sizes').where({ id, farm_id: farmId, season_id: season.id }).update(shareRow(input));
+		const n = await db().transaction(async (trx) => {
+			const changed = await trx('share_sizes').where({ id, farm_id: farmId, season_id: season.id }).update(shareRow(input));
+			if (changed) await markDemandChanged(trx, farmId, season.id);
+			return changed;
+		});
 		if (n === 0) return null;
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
@@ -167,7 +175,11 @@ export async function updateShareSize(farmId: number, season: Season, id: number
 
 /** Removes a share size and its box contents (the foreign key cascades). */
 export async function removeShareSize(farmId: number, seasonId: number, id: number): Promise<boolean> {
-	return (await db()('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
+	return db().transaction(async (trx) => {
+		const removed = (await trx('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
+		if (removed) await markDemandChanged(trx, farmId, seasonId);
+		return removed;
+	});
 }
 
 export interface GridTarget {
@@ -233,6 +245,7 @@ export async function writeGrids(farmId: number, seasonId: number, writes: GridW
 			await trx('channel_demand').where({ farm_id: farmId, season_id: seasonId }).delete();
 		}
 		for (const w of writes) await writeGrid(trx, farmId, seasonId, w);
+		await markDemandChanged(trx, farmId, seasonId);
 	});
 }
 

@@ -11,7 +11,7 @@ import * as farms from './farms';
 import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
-import type { Season } from './seasons';
+import { markPlanApplied, type Season } from './seasons';
 import { bedHolders } from './bed-holders';
 
 
@@ -62,7 +62,8 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},
-		varieties: varieties.map(toEngineVariety),
+		// Archived varieties keep their plantings but are offered to no new plan.
+		varieties: varieties.filter((v) => !v.archived).map(toEngineVariety),
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,
@@ -110,6 +111,7 @@ export async function apply(farmId: number, season: Season, userId: string, requ
 			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
+		await markPlanApplied(trx, farmId, seasonId);
 		return {
 			kept: rows.length - plannedIds.length,
 			removed: plannedIds.length,
