@@ -22,6 +22,7 @@ export const navItems: readonly NavItem[] = [
 	{ href: '/seasons', label: 'Seasons', roles: everyone },
 	{ href: '/crops', label: 'Crop library', roles: everyone },
 	{ href: '/settings', label: 'Farm & beds', roles: ['owner'] },
+	{ href: '/setup', label: 'Set-up', roles: ['owner'] },
 	{ href: '/import', label: 'Import', roles: ['owner'] },
 	{ href: '/team', label: 'Team', roles: ['owner'] },
 	{ href: '/dev/mail', label: 'Mail (dev)', roles: ['owner'] }

@@ -81,4 +81,8 @@ export interface VarietyView {
 	cellsPerTray: number;
 	margin: number;
 	gddToMaturity: number | null;
+	/** Archived varieties (or varieties of an archived crop) stay for history but are left out of new plans. */
+	archived?: boolean;
+	/** Where the variety's figures come from (handbook, extension guide, own records). */
+	source?: string | null;
 }
