@@ -2,8 +2,8 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireRole, requireUser } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
-import { createSwap, matching, undoSwap } from '$lib/server/boxes';
-import { swapSchema } from '$lib/schemas/forecast';
+import { createSwap, matching, setShortFill, undoSwap } from '$lib/server/boxes';
+import { shortFillSchema, swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 
 export const load = (async (event) => {
@@ -24,6 +24,14 @@ export const actions = {
 		if (!parsed.success) return fail(400, { swap: { errors: fieldErrors(parsed.error), values } });
 		const result = await createSwap(farm.id, season.id, user.id, parsed.data);
 		if (!result.ok) return fail(400, { swap: { errors: result.errors, values } });
+		redirect(303, back(event.url));
+	},
+	shortFill: async (event) => {
+		const { farm } = requireRole(event, 'share_manager', 'owner');
+		const values = Object.fromEntries([...(await event.request.formData())].map(([k, v]) => [k, String(v).slice(0, 100)]));
+		const parsed = shortFillSchema.safeParse(values);
+		if (!parsed.success) return fail(400, { shortFill: { errors: fieldErrors(parsed.error), values } });
+		await setShortFill(farm.id, parsed.data.shortFillPct);
 		redirect(303, back(event.url));
 	},
 	undo: async (event) => {
