@@ -1,6 +1,6 @@
 // The form action behind BulkBedsForm, shared by the set-up path and the Farm & beds page.
 import { fail, type RequestEvent } from '@sveltejs/kit';
-import { requireRole } from './guards';
+import { requireCan } from './guards';
 import { addBeds } from './bed-bulk';
 import { BedInputError } from './beds';
 import { bulkBedsSchema } from '$lib/schemas/farm';
@@ -8,7 +8,7 @@ import { fieldErrors } from '$lib/schemas/common';
 import { textValues } from '$lib/library-form';
 
 export async function bulkBedsAction(event: RequestEvent) {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'farm.settings');
 	const values = textValues(await event.request.formData());
 	const parsed = bulkBedsSchema.safeParse(values);
 	if (!parsed.success) return fail(400, { bulk: { errors: fieldErrors(parsed.error), values } });

@@ -1,6 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import * as seasons from '$lib/server/seasons';
 import { copySeason } from '$lib/server/season-copy';
 import { seasonCopySchema, seasonCreateSchema, seasonRenameSchema } from '$lib/schemas/season';
@@ -16,7 +17,7 @@ export const load = (async (event) => {
 	const taken = new Set(list.map((s) => s.year));
 	let nextYear = thisYear;
 	while (taken.has(nextYear)) nextYear++;
-	return { summaries: list, canEdit: farm.role === 'owner', nextYear };
+	return { summaries: list, canEdit: can(farm.role, 'seasons.manage'), nextYear };
 }) satisfies PageServerLoad;
 
 function seasonId(raw: string | undefined): number {
@@ -26,7 +27,7 @@ function seasonId(raw: string | undefined): number {
 }
 
 async function setArchived(event: RequestEvent, archived: boolean) {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'seasons.manage');
 	const values = textValues(await event.request.formData());
 	if (!(await seasons.setArchived(farm.id, seasonId(values.id), archived))) error(404, 'No such season on this farm.');
 	redirect(303, '/seasons');
@@ -34,7 +35,7 @@ async function setArchived(event: RequestEvent, archived: boolean) {
 
 export const actions = {
 	create: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'seasons.manage');
 		const values = textValues(await event.request.formData());
 		const parsed = seasonCreateSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { create: { errors: fieldErrors(parsed.error), values } });
@@ -48,7 +49,7 @@ export const actions = {
 		redirect(303, `/seasons/${id}`);
 	},
 	copy: async (event) => {
-		const { farm, user } = requireRole(event, 'owner');
+		const { farm, user } = requireCan(event, 'seasons.manage');
 		const values = textValues(await event.request.formData());
 		const parsed = seasonCopySchema.safeParse(values);
 		if (!parsed.success) return fail(400, { copy: { errors: fieldErrors(parsed.error), values } });
@@ -59,9 +60,10 @@ export const actions = {
 		redirect(303, `/seasons/${out.report.season.id}`);
 	},
 	rename: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'seasons.manage');
 		const values = textValues(await event.request.formData());
 		const id = seasonId(values.id);
+		if (!(await seasons.get(farm.id, id))) error(404, 'No such season on this farm.');
 		const parsed = seasonRenameSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { rename: { id, errors: fieldErrors(parsed.error), values } });
 		if (!(await seasons.rename(farm.id, id, parsed.data.name))) error(404, 'No such season on this farm.');

@@ -1,10 +1,10 @@
 import type { LayoutServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { db } from '$lib/server/db';
 
 /** How far the farm is: the set-up steps show a tick for what is already there. */
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'farm.settings');
 	const count = async (table: string): Promise<number> => {
 		const r = await db()(table).where({ farm_id: farm.id }).count({ n: '*' }).first();
 		return Number(r?.n ?? 0);

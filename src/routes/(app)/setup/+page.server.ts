@@ -1,13 +1,13 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import { locationSchema } from '$lib/schemas/farm';
 import { fieldErrors } from '$lib/schemas/common';
 import { textValues } from '$lib/library-form';
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'farm.settings');
 	const s = await farms.get(farm.id);
 	return {
 		values: { latitude: String(s.latitude), timeZone: s.timeZone, unitSystem: s.unitSystem, lastSpringFrost: s.lastSpringFrost, firstFallFrost: s.firstFallFrost }
@@ -16,7 +16,7 @@ export const load = (async (event) => {
 
 export const actions = {
 	default: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'farm.settings');
 		const values = textValues(await event.request.formData());
 		const parsed = locationSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });

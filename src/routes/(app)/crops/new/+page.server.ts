@@ -1,19 +1,19 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { createCrop, LibraryInputError } from '$lib/server/crops';
 import { cropSchema, type CropInput } from '$lib/schemas/crop';
 import { fieldErrors } from '$lib/schemas/common';
 import { newCropValues, textValues } from '$lib/library-form';
 
 export const load = (async (event) => {
-	requireRole(event, 'owner');
+	requireCan(event, 'library.edit');
 	return { values: newCropValues };
 }) satisfies PageServerLoad;
 
 export const actions = {
 	default: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const values = textValues(await event.request.formData());
 		const parsed = cropSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });

@@ -1,12 +1,12 @@
 import { fail } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { addStarterCrops, listCrops } from '$lib/server/crops';
 import { starterCrop, starterCrops, type StarterCrop } from '$lib/server/starter-library';
 import { plural } from '$lib/plural';
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'library.edit');
 	const have = new Set((await listCrops(farm.id, { archived: true })).map((c) => c.name.toLowerCase()));
 	return {
 		starter: starterCrops.map((c) => ({
@@ -23,7 +23,7 @@ export const load = (async (event) => {
 
 export const actions = {
 	default: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const keys = (await event.request.formData()).getAll('crop').map(String);
 		if (keys.length === 0) return fail(400, { errors: { crop: 'Tick at least one crop, or skip this step.' } });
 		if (keys.length > starterCrops.length) return fail(400, { errors: { crop: 'The same crop is listed more than once.' } });

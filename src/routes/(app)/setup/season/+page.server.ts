@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import * as seasons from '$lib/server/seasons';
 import * as farms from '$lib/server/farms';
 import { seasonCreateSchema } from '$lib/schemas/season';
@@ -9,7 +9,7 @@ import { textValues } from '$lib/library-form';
 import { todayIn } from '$lib/today';
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'seasons.manage');
 	const [list, settings] = await Promise.all([seasons.list(farm.id, { archived: true }), farms.get(farm.id)]);
 	const today = todayIn(settings.timeZone);
 	// After midsummer a new farm is planning next year's season.
@@ -19,7 +19,7 @@ export const load = (async (event) => {
 
 export const actions = {
 	default: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'seasons.manage');
 		const values = textValues(await event.request.formData());
 		const parsed = seasonCreateSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });

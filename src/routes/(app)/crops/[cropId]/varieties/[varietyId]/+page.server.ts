@@ -1,6 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import { getCrop, LibraryInputError, removeVariety, setVarietyArchived, updateVariety } from '$lib/server/crops';
 import { observedForVariety } from '$lib/server/actuals';
 import { varietySchema, type VarietyInput } from '$lib/schemas/crop';
@@ -29,13 +30,13 @@ export const load = (async (event) => {
 		variety,
 		values: varietyFormValues(variety),
 		observed: await observedForVariety(farm.id, variety.id),
-		canEdit: farm.role === 'owner'
+		canEdit: can(farm.role, 'library.edit')
 	};
 }) satisfies PageServerLoad;
 
 export const actions = {
 	save: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const { variety } = await lookup(event, farm.id);
 		const values = textValues(await event.request.formData());
 		const parsed = varietySchema.safeParse(values);
@@ -49,19 +50,19 @@ export const actions = {
 		return { saved: true };
 	},
 	archive: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const { crop, variety } = await lookup(event, farm.id);
 		await setVarietyArchived(farm.id, variety.id, true);
 		redirect(303, `/crops/${crop.id}/varieties/${variety.id}`);
 	},
 	restore: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const { crop, variety } = await lookup(event, farm.id);
 		await setVarietyArchived(farm.id, variety.id, false);
 		redirect(303, `/crops/${crop.id}/varieties/${variety.id}`);
 	},
 	delete: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const { crop, variety } = await lookup(event, farm.id);
 		const out = await removeVariety(farm.id, variety.id);
 		if (!out.ok && out.status === 404) error(404, missing);

@@ -1,6 +1,6 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { createVariety, getCrop, LibraryInputError } from '$lib/server/crops';
 import { varietySchema, type VarietyInput } from '$lib/schemas/crop';
 import { fieldErrors } from '$lib/schemas/common';
@@ -14,14 +14,14 @@ async function cropOf(farmId: number, raw: string) {
 }
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'library.edit');
 	const crop = await cropOf(farm.id, event.params.cropId);
 	return { crop: { id: crop.id, name: crop.name, harvestUnit: crop.harvestUnit }, values: newVarietyValues, created: event.url.searchParams.has('created') };
 }) satisfies PageServerLoad;
 
 export const actions = {
 	default: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'library.edit');
 		const crop = await cropOf(farm.id, event.params.cropId);
 		const values = textValues(await event.request.formData());
 		const parsed = varietySchema.safeParse(values);
