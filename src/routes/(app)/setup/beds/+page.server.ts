@@ -9,4 +9,6 @@ export const load = (async (event) => {
 	return { blocks, beds: list };
 }) satisfies PageServerLoad;
 
-export const actions = { default: bulkBedsAction } satisfies Actions;
+export const actions = {
+	default: bulkBedsAction
+} satisfies Actions;
