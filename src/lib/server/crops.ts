@@ -10,7 +10,8 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])
-		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f');
+		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f',
+			'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days');
 	return rows.map((r) => ({
 		id: r.id,
 		cropId: r.crop_id,
@@ -35,6 +36,14 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		seedsPerPacket: r.seeds_per_packet,
 		cellsPerTray: r.cells_per_tray,
 		margin: Number(r.margin),
-		gddToMaturity: r.gdd_to_maturity
+		gddToMaturity: r.gdd_to_maturity,
+		harvestCurve: curveOf(r.harvest_curve ?? r.crop_harvest_curve),
+		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
 	}));
+}
+
+const CURVES = ['flat', 'ramp', 'single', 'cuts'] as const;
+
+function curveOf(x: unknown): (typeof CURVES)[number] {
+	return CURVES.find((c) => c === x) ?? 'flat';
 }
