@@ -79,8 +79,12 @@ export interface ProposedPlanting {
 	fieldDate: string;
 	firstHarvest: string;
 	lastHarvest: string;
-	/** Harvest units over the whole window for this range. */
+	/** Harvest units over the whole window for this range (up to lastHarvest, when cut short). */
 	expectedYield: number;
+	/** The variety's full harvest window, days: the yield and curve are given over it. */
+	harvestWindowDays: number;
+	/** How the yield spreads over the window (absent: flat). */
+	curve?: HarvestCurve;
 	seed: SeedNeed;
 	warnings: PlanningWarning[];
 	/** Why it has no bed, when it has none. */
@@ -350,6 +354,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			firstHarvest: fromDayNumber(firstDays[from]),
 			lastHarvest: fromDayNumber(jobs.lastDays[from]),
 			expectedYield: yieldOf(v, lengthFt, from),
+			harvestWindowDays: v.harvestWindowDays,
+			...(v.harvestCurve && v.harvestCurve.shape !== 'flat' ? { curve: v.harvestCurve } : {}),
 			seed: seedFor(v, lengthFt),
 			warnings: warningsOf(own, from),
 			unplacedReason

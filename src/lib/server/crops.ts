@@ -2,6 +2,7 @@
 import { db } from './db';
 
 import type { VarietyView } from '$lib/types';
+import type { HarvestCurve } from '$lib/planning';
 
 export type { VarietyView };
 
@@ -37,13 +38,26 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		cellsPerTray: r.cells_per_tray,
 		margin: Number(r.margin),
 		gddToMaturity: r.gdd_to_maturity,
-		harvestCurve: curveOf(r.harvest_curve ?? r.crop_harvest_curve),
+		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
 		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
 	}));
 }
 
 const CURVES = ['flat', 'ramp', 'single', 'cuts'] as const;
 
-function curveOf(x: unknown): (typeof CURVES)[number] {
+function shapeOf(x: unknown): (typeof CURVES)[number] {
 	return CURVES.find((c) => c === x) ?? 'flat';
+}
+
+/**
+ * A stored curve (the variety's, else the crop's) as the engine takes it; undefined for flat.
+ * One rule for every screen and file: a planting's expected harvest follows its variety's
+ * current yield, window and curve, spread from its first to its last harvest date.
+ */
+export function curveOf(shape: unknown, cutIntervalDays?: unknown): HarvestCurve | undefined {
+	const s = shapeOf(shape);
+	if (s === 'flat') return undefined;
+	const out: HarvestCurve = { shape: s };
+	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0) out.intervalDays = Number(cutIntervalDays);
+	return out;
 }
