@@ -7,6 +7,9 @@ cd "$FC_ROOT"
 mkdir -p "$FC_DATA_DIR" "$FC_PID_DIR"
 
 ensure_node_modules
+# Demo mode: the invented demo farm's Mail (dev) page reads the local mail fake. Set FC_DEMO_MODE=0
+# for a real farm; the page and its link are then gone.
+export FC_DEMO_MODE="${FC_DEMO_MODE:-1}"
 bash scripts/db-start.sh
 bash scripts/mail-start.sh
 npx tsx scripts/migrate.ts latest "$FC_DB_NAME"
@@ -34,6 +37,8 @@ cat <<MSG
   sign in as the owner and open "Mail (dev)". Stop with Ctrl-C or npm stop.
 
 MSG
-ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-6M}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" node "$FC_BUILD_DIR" &
-echo $! >"$FC_PID_DIR/app-$FC_PORT.pid"
-wait "$(cat "$FC_PID_DIR/app-$FC_PORT.pid")" || true
+# The app server runs under a supervisor that starts it again if it dies; MariaDB and the mail
+# fake run in sessions of their own, so the app's exit never takes them down. Only Ctrl-C or
+# npm stop ends the supervisor, and then this script stops everything it started.
+ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-6M}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" \
+	bash scripts/supervise.sh "$FC_PID_DIR/app-$FC_PORT.pid" -- node scripts/serve.js "$FC_BUILD_DIR" || true
