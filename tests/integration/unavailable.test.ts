@@ -1,41 +1,18 @@
 // When MariaDB cannot be reached, the app answers 503 with Retry-After and says the farm's
 // data is briefly unavailable (a page for the browser, JSON for the API), never a bare 500.
 // A second server from the same build is started here with a database port nothing listens on.
-import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demo } from '../helpers/env';
+import { freePort, startSecondApp, type SecondApp } from '../helpers/second-app';
 
-let app: ChildProcess | undefined;
+let app: SecondApp | undefined;
 let base = '';
 
-/** A loopback port that was free a moment ago (for the database nobody runs). */
-function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const s = createServer();
-		s.once('error', reject);
-		s.listen(0, '127.0.0.1', () => {
-			const { port } = s.address() as { port: number };
-			s.close(() => resolve(port));
-		});
-	});
-}
-
 beforeAll(async () => {
-	const host = process.env.FC_HOST ?? '127.0.0.1';
-	const port = Number(process.env.FC_PORT ?? 3100) + 1001;
-	const env: NodeJS.ProcessEnv = { ...process.env, PORT: String(port), HOST: host, ORIGIN: `http://${host}:${port}`, FC_DB_PORT: String(await freePort()) };
-	app = spawn('node', [process.env.FC_BUILD_DIR ?? 'build'], { env, stdio: 'ignore' });
-	base = `http://${host}:${port}`;
-	for (let i = 0; i < 80; i++) {
-		if (await fetch(`${base}/signin`).then(() => true, () => false)) return;
-		await new Promise((r) => setTimeout(r, 250));
-	}
-	throw new Error('the second server did not start');
+	app = await startSecondApp({ FC_DB_PORT: String(await freePort()) });
+	base = app.base;
 });
-afterAll(() => {
-	app?.kill('SIGTERM');
-});
+afterAll(() => app?.stop());
 
 const cookie = { cookie: 'fc_session=some-session-id-the-database-would-check' };
 
