@@ -16,6 +16,7 @@ export const seasonTabs: readonly SeasonTab[] = [
 	{ path: 'plantings', label: 'Planting grid', roles: everyone },
 	{ path: 'beds', label: 'Bed timeline', roles: everyone },
 	{ path: 'demand', label: 'Demand', roles: everyone },
+	{ path: 'plan', label: 'Plan', roles: everyone },
 	{ path: 'forecast', label: 'Forecast', roles: everyone },
 	{ path: 'boxes', label: 'Share boxes', roles: everyone },
 	{ path: 'week', label: 'Crew sheets', roles: everyone },
