@@ -2,7 +2,7 @@
 // back to the form with every issue, a good one redirects (303) to a summary.
 import { fail, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import type { ImportIssue } from '$lib/schemas/import';
-import { requireRole } from '../guards';
+import { requireCan } from '../guards';
 import { importUpload, type ImportSummary } from './index';
 import { drainUpload, readUpload } from './request';
 
@@ -11,10 +11,10 @@ export interface ImportFailure {
 	importIssues: ImportIssue[];
 }
 
-/** requireRole(event, 'owner') for an upload: a refused body is read off first (see drainUpload). */
-export async function requireOwnerForUpload(event: RequestEvent): Promise<ReturnType<typeof requireRole>> {
+/** requireCan(event, 'season.import') for an upload: a refused body is read off first (see drainUpload). */
+export async function requireOwnerForUpload(event: RequestEvent): Promise<ReturnType<typeof requireCan>> {
 	try {
-		return requireRole(event, 'owner');
+		return requireCan(event, 'season.import');
 	} catch (refusal) {
 		await drainUpload(event);
 		throw refusal;

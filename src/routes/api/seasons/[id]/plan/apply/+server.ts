@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { applyRequestSchema } from '$lib/schemas/plan';
 import { apply } from '$lib/server/plan';
@@ -11,7 +11,7 @@ import { PlanConflictError } from '$lib/server/plan-history';
  * replaced ones for undo. With the preview's `fingerprint`, a season that moved on since is a 409.
  */
 export const POST: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, applyRequestSchema);
 	if (!body.ok) return body.response;

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { planRequestSchema } from '$lib/schemas/plan';
 import { preview } from '$lib/server/plan';
@@ -12,7 +12,7 @@ import { describePreview } from '$lib/server/plan-screen';
  * names the state it was made from (send it back with apply); `changes` is what the plan screen lists.
  */
 export const POST: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;

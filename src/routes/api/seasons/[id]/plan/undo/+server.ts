@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
 import { PlanConflictError, undoLastApply } from '$lib/server/plan-history';
 
 /** Undoes the season's last apply in one step: its plantings go, the ones it replaced come back. */
 export const POST: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	try {
 		return json({ season, ...(await undoLastApply(farm.id, season.id, user.id)) });
