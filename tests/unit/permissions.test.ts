@@ -8,7 +8,11 @@ import { editableFields, plantingFieldNames, recordFields } from '$lib/schemas/p
 
 function readmeTable(): { header: string[]; rows: string[][] } {
 	const readme = readFileSync(new URL('../../README.md', import.meta.url), 'utf8');
-	const cells = (l: string) => l.split('|').slice(1, -1).map((c) => c.trim());
+	const cells = (l: string) =>
+		l
+			.split('|')
+			.slice(1, -1)
+			.map((c) => c.trim());
 	const table: string[][] = [];
 	for (const line of readme.slice(readme.indexOf('## Who does what')).split('\n').slice(1)) {
 		if (line.startsWith('|')) table.push(cells(line));
@@ -33,7 +37,9 @@ describe('permissions', () => {
 	for (const row of rows) {
 		const action = row[0].match(/\(`([a-z.]+)`\)$/)?.[1] as Action;
 		it(`marks ${action} for exactly the roles that may take it`, () => {
-			roles.forEach((role, i) => expect({ role, marked: row[i + 1] === '✓' }).toEqual({ role, marked: can(role, action) }));
+			roles.forEach((role, i) =>
+				expect({ role, marked: row[i + 1] === '✓' }).toEqual({ role, marked: can(role, action) })
+			);
 		});
 	}
 
@@ -44,7 +50,14 @@ describe('permissions', () => {
 			else if (can(role, 'planting.record')) expect(fields).toEqual(recordFields);
 			else expect(fields).toEqual([]);
 		}
-		expect(editableFields('crew_lead')).toEqual(['status', 'actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest', 'notes']);
+		expect(editableFields('crew_lead')).toEqual([
+			'status',
+			'actualTraySowDate',
+			'actualFieldDate',
+			'actualFirstHarvest',
+			'actualLastHarvest',
+			'notes'
+		]);
 		expect(editableFields('share_manager')).toEqual([]);
 	});
 });
