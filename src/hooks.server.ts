@@ -28,11 +28,17 @@ const session: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+// scripts/serve.js sets these on every response (static files too); they are repeated here for
+// `vite dev` and `vite preview`. Pages get their Content-Security-Policy from kit.csp.
+// Everything the app itself answers (pages, JSON, downloads) may hold a farm's data: no cache,
+// shared or private, may keep it, unless the route chose its own Cache-Control.
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Frame-Options', 'DENY');
+	if (!response.headers.has('Content-Security-Policy')) response.headers.set('Content-Security-Policy', "default-src 'none'; frame-ancestors 'none'");
+	if (!response.headers.has('Cache-Control')) response.headers.set('Cache-Control', 'no-store');
 	return response;
 };
 
