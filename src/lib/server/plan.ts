@@ -13,7 +13,7 @@ import { listVarieties } from './crops';
 import { targetInput } from './demand';
 import type { Season } from './seasons';
 import { bedHolders } from './bed-holders';
-
+import { lockForApply, planFingerprint, recordApply, snapshotPlanned } from './plan-history';
 
 export interface PlanPreview {
 	plan: SeasonPlan;
@@ -129,18 +129,33 @@ export interface ApplyResult {
 	unplaced: number;
 }
 
-export async function apply(farmId: number, season: Season, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
+/**
+ * `expected` is the fingerprint of the preview the owner looked at: when given, the apply is
+ * refused (PlanConflictError) if the season moved on since. Without it, the state this run
+ * planned from must still hold when the write starts. The replaced plantings are kept for undo.
+ */
+export async function apply(
+	farmId: number,
+	season: Season,
+	userId: string,
+	request: PlanRequest,
+	expected?: string
+): Promise<ApplyResult & { preview: PlanPreview }> {
 	const seasonId = season.id;
+	const planned = expected ?? (await planFingerprint(farmId, seasonId));
 	const result = await preview(farmId, season, request);
 	return db().transaction(async (trx) => {
-		// Lock the season's plantings: a concurrent edit waits, and the counts below stay true.
+		// Lock the season, then its plantings: a second apply or a concurrent edit waits, and the counts below stay true.
+		await lockForApply(trx, farmId, seasonId, planned);
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
+		const replaced = await snapshotPlanned(trx, plannedIds);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
 		const inserts = result.plan.plantings.map((p) =>
 			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
+		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced });
 		return {
 			kept: rows.length - plannedIds.length,
 			removed: plannedIds.length,
