@@ -1,8 +1,7 @@
 // The crop library and seasons as the screens keep them: archived crops, varieties and seasons
 // (hidden from new plans, kept for history); where a figure came from; a price per harvest unit
-// (to size box swaps across units by value); when a season's plan was last applied and its
-// demand last changed (a plan older than its demand is flagged); and the box fill below which a
-// share item counts as short; and swaps into crops of another unit.
+// (to size box swaps across units by value); the box fill below which a share item counts as
+// short; and swaps into crops of another unit.
 import type { Knex } from 'knex';
 
 export async function up(knex: Knex): Promise<void> {
@@ -17,9 +16,6 @@ export async function up(knex: Knex): Promise<void> {
 	});
 	await knex.schema.alterTable('seasons', (t) => {
 		t.datetime('archived_at').nullable();
-		// Millisecond precision: a demand edit in the same second as an apply must still order.
-		t.datetime('plan_applied_at', { precision: 3 }).nullable();
-		t.datetime('demand_changed_at', { precision: 3 }).nullable();
 	});
 	await knex.schema.alterTable('farms', (t) => {
 		// Percent of an item's need; under it the item is flagged short on the share boxes page.
@@ -35,11 +31,7 @@ export async function up(knex: Knex): Promise<void> {
 export async function down(knex: Knex): Promise<void> {
 	await knex.schema.alterTable('box_swaps', (t) => t.dropColumn('to_quantity'));
 	await knex.schema.alterTable('farms', (t) => t.dropColumn('box_short_fill_pct'));
-	await knex.schema.alterTable('seasons', (t) => {
-		t.dropColumn('demand_changed_at');
-		t.dropColumn('plan_applied_at');
-		t.dropColumn('archived_at');
-	});
+	await knex.schema.alterTable('seasons', (t) => t.dropColumn('archived_at'));
 	await knex.schema.alterTable('varieties', (t) => {
 		t.dropColumn('source');
 		t.dropColumn('archived_at');

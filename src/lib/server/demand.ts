@@ -144,11 +144,8 @@ function isDuplicate(e: unknown): boolean {
 export async function createShareSize(farmId: number, season: Season, raw: unknown): Promise<ShareSizeView> {
 	const input = parseShare(raw, season);
 	try {
-		const id = await db().transaction(async (trx) => {
-			const [newId] = await trx('share_sizes').insert({ farm_id: farmId, season_id: season.id, ...shareRow(input) });
-			await markDemandChanged(trx, farmId, season.id);
-			return newId;
-		});
+		const [id] = await db()('share_sizes').insert({ farm_id: farmId, season_id: season.id, ...shareRow(input) });
+		await markDemandChanged(farmId, season.id);
 		return (await listShareSizes(farmId, season.id)).find((s) => s.id === id)!;
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
@@ -160,12 +157,9 @@ export async function createShareSize(farmId: number, season: Season, raw: unkno
 export async function updateShareSize(farmId: number, season: Season, id: number, raw: unknown): Promise<ShareSizeView | null> {
 	const input = parseShare(raw, season);
 	try {
-		const n = await db().transaction(async (trx) => {
-			const changed = await trx('share_sizes').where({ id, farm_id: farmId, season_id: season.id }).update(shareRow(input));
-			if (changed) await markDemandChanged(trx, farmId, season.id);
-			return changed;
-		});
+		const n = await db()('share_sizes').where({ id, farm_id: farmId, season_id: season.id }).update(shareRow(input));
 		if (n === 0) return null;
+		await markDemandChanged(farmId, season.id);
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
 		throw e;
@@ -175,11 +169,9 @@ export async function updateShareSize(farmId: number, season: Season, id: number
 
 /** Removes a share size and its box contents (the foreign key cascades). */
 export async function removeShareSize(farmId: number, seasonId: number, id: number): Promise<boolean> {
-	return db().transaction(async (trx) => {
-		const removed = (await trx('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
-		if (removed) await markDemandChanged(trx, farmId, seasonId);
-		return removed;
-	});
+	const removed = (await db()('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
+	if (removed) await markDemandChanged(farmId, seasonId);
+	return removed;
 }
 
 export interface GridTarget {
@@ -245,7 +237,7 @@ export async function writeGrids(farmId: number, seasonId: number, writes: GridW
 			await trx('channel_demand').where({ farm_id: farmId, season_id: seasonId }).delete();
 		}
 		for (const w of writes) await writeGrid(trx, farmId, seasonId, w);
-		await markDemandChanged(trx, farmId, seasonId);
+		await markDemandChanged(farmId, seasonId, trx);
 	});
 }
 

@@ -1,7 +1,9 @@
-// A farm's seasons: list, get, create (empty), rename, archive, and the two moments that say
-// whether a season's plan is older than its demand (planAppliedAt, demandChangedAt).
+// A farm's seasons.
+import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
+import { deriveTargets } from '$lib/planning';
 import { db } from './db';
+import { targetInput } from './demand';
 
 export interface Season {
 	id: number;
@@ -9,47 +11,14 @@ export interface Season {
 	name: string;
 	startsOn: string;
 	endsOn: string;
-	/** ISO timestamp, or null while the season is in use. Archived seasons stay readable. */
+	/** ISO timestamp when archived, or null while in use. Archived seasons stay readable. */
 	archivedAt?: string | null;
-	/** When a plan was last applied to the season (ISO timestamp), or null. */
-	planAppliedAt?: string | null;
-	/** When the season's demand (share sizes, box contents, channel demand) last changed, or null. */
-	demandChangedAt?: string | null;
 }
 
-type SeasonRow = {
-	id: number;
-	year: number;
-	name: string;
-	starts_on: string;
-	ends_on: string;
-	archived_at: Date | null;
-	plan_applied_at: Date | null;
-	demand_changed_at: Date | null;
-};
-
-const columns = ['id', 'year', 'name', 'starts_on', 'ends_on', 'archived_at', 'plan_applied_at', 'demand_changed_at'] as const;
-const iso = (d: Date | null): string | null => (d === null ? null : new Date(d).toISOString());
+type SeasonRow = { id: number; year: number; name: string; starts_on: string; ends_on: string; archived_at: Date | null };
+const columns = ['id', 'year', 'name', 'starts_on', 'ends_on', 'archived_at'] as const;
 function toSeason(r: SeasonRow): Season {
-	return {
-		id: r.id,
-		year: r.year,
-		name: r.name,
-		startsOn: r.starts_on,
-		endsOn: r.ends_on,
-		archivedAt: iso(r.archived_at),
-		planAppliedAt: iso(r.plan_applied_at),
-		demandChangedAt: iso(r.demand_changed_at)
-	};
-}
-
-/**
- * True when the season's demand changed after its plan was last applied (or demand exists and no
- * plan was ever applied to it): the plan, forecast and boxes pages then offer to re-plan.
- */
-export function planOlderThanDemand(s: Pick<Season, 'planAppliedAt' | 'demandChangedAt'>): boolean {
-	if (!s.demandChangedAt) return false;
-	return !s.planAppliedAt || s.demandChangedAt > s.planAppliedAt;
+	return { id: r.id, year: r.year, name: r.name, startsOn: r.starts_on, endsOn: r.ends_on, archivedAt: r.archived_at === null ? null : new Date(r.archived_at).toISOString() };
 }
 
 /** Every season of the farm, newest first; archived ones only when asked for. */
@@ -59,28 +28,72 @@ export async function list(farmId: number, opts: { archived?: boolean } = {}): P
 	return (await q.orderBy('year', 'desc').select(columns)).map(toSeason);
 }
 
-export interface SeasonSummary extends Season {
-	plantings: number;
-	planStale: boolean;
+/** The season of this farm, or null when the id belongs to no season of this farm. */
+export async function get(farmId: number, seasonId: number): Promise<Season | null> {
+	const r = await db()('seasons').where({ farm_id: farmId, id: seasonId }).first(columns);
+	return r ? toSeason(r) : null;
 }
 
-/** Every season with its planting count and whether its plan is older than its demand. */
+// ---- Plan against demand -------------------------------------------------------------------
+// One answer to "is this season's plan older than its demand?", shared by the seasons, plan,
+// forecast and share-box pages. The plan screen records, at each apply, a hash of the weekly
+// targets it planned for; demand has changed since when today's targets hash differently.
+// demand_changed_at (set by every demand write) says when.
+
+export interface PlanFreshness {
+	/** ISO timestamp of the last apply from the plan screen; null when none. */
+	planAppliedAt: string | null;
+	/** ISO timestamp of the last demand write; null when none was recorded. */
+	demandChangedAt: string | null;
+	/** True when the season's weekly targets differ from those the last apply planned for. */
+	demandChangedSincePlan: boolean;
+}
+
+const iso = (v: Date | string | null): string | null => (v === null ? null : new Date(v).toISOString());
+
+/** Hash of a season's weekly targets (crop, week, quantity), independent of row order. */
+export async function demandHash(farmId: number, seasonId: number): Promise<string> {
+	const targets = deriveTargets(await targetInput(farmId, seasonId))
+		.filter((t) => t.quantity > 1e-9)
+		.map((t) => `${t.crop}|${t.week}|${Math.round(t.quantity * 1000) / 1000}`)
+		.sort();
+	return createHash('sha256').update(targets.join('\n')).digest('hex');
+}
+
+export async function planFreshness(farmId: number, seasonId: number): Promise<PlanFreshness> {
+	const r: { plan_applied_at: Date | null; demand_changed_at: Date | null; plan_demand_hash: string | null } | undefined = await db()('seasons')
+		.where({ farm_id: farmId, id: seasonId })
+		.first('plan_applied_at', 'demand_changed_at', 'plan_demand_hash');
+	if (!r) return { planAppliedAt: null, demandChangedAt: null, demandChangedSincePlan: false };
+	const changed = r.plan_demand_hash !== null && (await demandHash(farmId, seasonId)) !== r.plan_demand_hash;
+	return { planAppliedAt: iso(r.plan_applied_at), demandChangedAt: iso(r.demand_changed_at), demandChangedSincePlan: changed };
+}
+
+/** Records that the season's demand was written now (inside the writer's transaction when given). */
+export async function markDemandChanged(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<void> {
+	await (trx ?? db())('seasons').where({ farm_id: farmId, id: seasonId }).update({ demand_changed_at: (trx ?? db()).fn.now() });
+}
+
+// ---- The seasons page: start, rename, archive -------------------------------------------------
+
+export interface SeasonSummary extends Season {
+	plantings: number;
+	freshness: PlanFreshness;
+}
+
+/** Every season (archived too) with its planting count and whether its plan is older than its demand. */
 export async function listSummaries(farmId: number): Promise<SeasonSummary[]> {
 	const [rows, counts] = await Promise.all([
 		db()('seasons').where({ farm_id: farmId }).orderBy('year', 'desc').select(columns),
 		db()('plantings').where({ farm_id: farmId }).groupBy('season_id').select('season_id').count({ n: '*' })
 	]);
 	const bySeason = new Map((counts as { season_id: number; n: number | string }[]).map((c) => [Number(c.season_id), Number(c.n)]));
-	return rows.map((r: SeasonRow) => {
-		const s = toSeason(r);
-		return { ...s, plantings: bySeason.get(s.id) ?? 0, planStale: planOlderThanDemand(s) };
-	});
-}
-
-/** The season of this farm, or null when the id belongs to no season of this farm. */
-export async function get(farmId: number, seasonId: number): Promise<Season | null> {
-	const r = await db()('seasons').where({ farm_id: farmId, id: seasonId }).first(columns);
-	return r ? toSeason(r) : null;
+	return Promise.all(
+		rows.map(async (r: SeasonRow) => {
+			const s = toSeason(r);
+			return { ...s, plantings: bySeason.get(s.id) ?? 0, freshness: await planFreshness(farmId, s.id) };
+		})
+	);
 }
 
 export class SeasonInputError extends Error {
@@ -103,13 +116,7 @@ export async function create(farmId: number, input: { year: number; name: string
 		throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
 	}
 	try {
-		const [id] = await db()('seasons').insert({
-			farm_id: farmId,
-			year: input.year,
-			name: input.name,
-			starts_on: `${input.year}-01-01`,
-			ends_on: `${input.year}-12-31`
-		});
+		const [id] = await db()('seasons').insert({ farm_id: farmId, year: input.year, name: input.name, starts_on: `${input.year}-01-01`, ends_on: `${input.year}-12-31` });
 		return id;
 	} catch (e) {
 		if (isDuplicate(e)) throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
@@ -124,14 +131,4 @@ export async function rename(farmId: number, seasonId: number, name: string): Pr
 /** Archives (or brings back) a season; its plantings and demand stay as they are. */
 export async function setArchived(farmId: number, seasonId: number, archived: boolean): Promise<boolean> {
 	return (await db()('seasons').where({ farm_id: farmId, id: seasonId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
-}
-
-/** Records that a plan was applied to the season now (call inside the apply's transaction). */
-export async function markPlanApplied(trx: Knex | Knex.Transaction, farmId: number, seasonId: number): Promise<void> {
-	await trx('seasons').where({ farm_id: farmId, id: seasonId }).update({ plan_applied_at: trx.raw('NOW(3)') });
-}
-
-/** Records that the season's demand changed now (call inside the demand write's transaction). */
-export async function markDemandChanged(trx: Knex | Knex.Transaction, farmId: number, seasonId: number): Promise<void> {
-	await trx('seasons').where({ farm_id: farmId, id: seasonId }).update({ demand_changed_at: trx.raw('NOW(3)') });
 }

@@ -6,11 +6,13 @@ import { seasonFromParams } from '$lib/server/api';
 import { createSwap, matching, setShortFill, undoSwap } from '$lib/server/boxes';
 import { shortFillSchema, swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
+import { planFreshness } from '$lib/server/seasons';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { matching: await matching(farm.id, season), canSwap: can(farm.role, 'boxes.swap'), canSetShort: can(farm.role, 'boxes.settings') };
+	const [boxes, freshness] = await Promise.all([matching(farm.id, season), planFreshness(farm.id, season.id)]);
+	return { matching: boxes, freshness, canSwap: can(farm.role, 'boxes.swap'), canSetShort: can(farm.role, 'boxes.settings') };
 }) satisfies PageServerLoad;
 
 // Back to the same view (filter kept) after a swap or an undo.
