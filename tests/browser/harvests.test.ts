@@ -120,7 +120,7 @@ describe('next season across week 53', () => {
 		await page.getByRole('button', { name: 'Copy into 2027' }).click();
 		const report = page.getByTestId('copy-report');
 		await expect(report.innerText()).resolves.toContain('Copied 2 plantings');
-		await expect(report.innerText()).resolves.toContain('1 plantings were in week 53 and now sit in week 52.');
+		await expect(report.innerText()).resolves.toContain('1 planting was in week 53 and now sits in week 52.');
 		await Promise.all([page.waitForURL(/\/seasons\/\d+$/), report.getByRole('link', { name: '2027 season' }).click()]);
 		const text = await page.locator('table').first().innerText();
 		expect(text).toContain('W52 · Tue 28 Dec');

@@ -1,5 +1,6 @@
 // The e-mail that carries a week's crew sheets: a plain HTML summary (inline styles only, as mail
 // readers strip style sheets) and its text twin; the full sheets travel as the attached .xlsx.
+import { plural } from '$lib/plural';
 import { formatWeekDate } from '$lib/planning';
 import { cautionsFor } from './cautions';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
@@ -16,9 +17,9 @@ function detail(kind: SheetSection['kind'], r: SheetRow): string {
 	const s = r.seed;
 	switch (kind) {
 		case 'tray_sow':
-			return s ? `${s.cells} cells · ${s.trays} trays of ${r.cellsPerTray} · ${s.grams} g seed` : 'seed figures missing';
+			return s ? `${plural(s.cells, 'cell')} · ${plural(s.trays, 'tray')} of ${r.cellsPerTray} · ${s.grams} g seed` : 'seed figures missing';
 		case 'direct_sow':
-			return `${r.rows} rows at ${r.inRowSpacingIn} in · ${r.seedsPerSpot} seeds per spot` + (s ? ` · ${s.grams} g seed` : '');
+			return `${plural(r.rows, 'row')} at ${r.inRowSpacingIn} in · ${plural(r.seedsPerSpot, 'seed')} per spot` + (s ? ` · ${s.grams} g seed` : '');
 		case 'transplant':
 			return (s ? `${s.plants} plants · ` : '') + `${r.rows} rows at ${r.inRowSpacingIn} in`;
 		case 'harvest': {
