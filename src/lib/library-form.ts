@@ -10,6 +10,10 @@ export function cropFormValues(c: {
 	frostTolerance: string;
 	heatLimitF: number | null;
 	baseTempF: number;
+	harvestCurve: string;
+	cutIntervalDays: number | null;
+	storageWeeks: number | null;
+	storageLossPct: number | null;
 	price: number | null;
 	source: string | null;
 }): Record<string, string> {
@@ -17,13 +21,14 @@ export function cropFormValues(c: {
 }
 
 export function varietyFormValues(v: VarietyView): Record<string, string> {
-	const stored: Record<string, unknown> = { ...v, seedPrice: v.seedPriceCentsPerGram / 100 };
+	const stored: Record<string, unknown> = { ...v, seedPrice: v.seedPriceCentsPerGram / 100, harvestCurve: v.ownHarvestCurve ?? '' };
 	return Object.fromEntries(Object.entries(varietyFields).map(([k, spec]) => [k, formValue(spec, stored[k])]));
 }
 
-export const newCropValues: Record<string, string> = { harvestUnit: 'lb', frostTolerance: 'hardy', baseTempF: '40' };
+export const newCropValues: Record<string, string> = { harvestUnit: 'lb', frostTolerance: 'hardy', baseTempF: '40', harvestCurve: 'flat' };
 export const newVarietyValues: Record<string, string> = {
 	method: 'direct',
+	harvestCurve: '',
 	daysInTray: '0',
 	seedsPerSpot: '1',
 	germinationRate: '80',

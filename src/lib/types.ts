@@ -85,6 +85,8 @@ export interface VarietyView {
 	archived?: boolean;
 	/** Where the variety's figures come from (handbook, extension guide, own records). */
 	source?: string | null;
+	/** The variety's own curve (null: the crop's), as the library form edits it. */
+	ownHarvestCurve?: string | null;
 	/** How the yield spreads over the harvest window: the variety's, else the crop's (default flat). */
 	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
 	/** Days between cuts, for a curve of several cuts (null: the engine's default). */

@@ -23,13 +23,16 @@ beforeAll(async () => {
 	({ client: owner, farmId } = await newFarm('library'));
 });
 
-const crop = { name: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', frostTolerance: 'hardy', heatLimitF: '', baseTempF: '40', price: '2.50', source: 'test' };
+const crop = {
+	name: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', frostTolerance: 'hardy', heatLimitF: '', baseTempF: '40', harvestCurve: 'flat', cutIntervalDays: '',
+	storageWeeks: '', storageLossPct: '', price: '2.50', source: 'test'
+};
 // Figures of a direct-sown carrot. Source: University of Illinois Extension vegetable guide
 // (22,000 seeds per ounce within its 18,000–25,000, 70 days within 65–75); 22,000 ÷ 28.349523125 = 776.03 seeds/g.
 const variety = {
 	name: 'Carrot, standard', method: 'direct', daysToMaturity: '70', daysInTray: '0', harvestWindowDays: '14', yieldPerBedFoot: '2.4', rows: '4',
 	inRowSpacingIn: '1', seedsPerSpot: '1', germinationRate: '65', seedsPerGram: '776.03', seedPrice: '0.35', seedsPerPacket: '', cellsPerTray: '128',
-	margin: '10', gddToMaturity: '', source: 'test'
+	margin: '10', harvestCurve: '', gddToMaturity: '', source: 'test'
 };
 
 async function cropId(name: string): Promise<number> {
@@ -77,11 +80,16 @@ describe('crops', () => {
 
 	it('edits a crop, and archives and brings it back', async () => {
 		const id = await cropId('Carrot');
-		const res = await owner.postForm(`/crops/${id}?/save`, { ...crop, heatLimitF: '85', price: '3' });
+		const res = await owner.postForm(`/crops/${id}?/save`, { ...crop, heatLimitF: '85', price: '3', harvestCurve: 'cuts', cutIntervalDays: '21', storageWeeks: '30', storageLossPct: '2' });
 		expect(res.status).toBe(200);
 		const row = await testDb()('crops').where({ id }).first();
 		expect(Number(row.heat_limit_f)).toBe(85);
 		expect(row.price_cents_per_unit).toBe(300);
+		expect([row.harvest_curve, row.harvest_cut_interval_days, row.storage_weeks, Number(row.storage_loss_per_week)]).toEqual(['cuts', 21, 30, 0.02]);
+		const bad = await owner.postForm(`/crops/${id}?/save`, { ...crop, harvestCurve: 'wavy' });
+		expect(bad.status).toBe(400);
+		expect(await html(bad)).toContain('id="crop-harvestCurve-error"');
+		expect((await testDb()('crops').where({ id }).first('harvest_curve')).harvest_curve).toBe('cuts');
 
 		expect((await owner.postForm(`/crops/${id}?/archive`, {})).status).toBe(303);
 		expect((await testDb()('crops').where({ id }).first('archived_at')).archived_at).not.toBeNull();

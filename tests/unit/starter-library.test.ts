@@ -19,7 +19,7 @@ describe('starter library', () => {
 
 	it('passes the crop library\'s own schemas, crop and variety, and keeps every figure through the form', () => {
 		for (const c of starterCrops) {
-			const crop = cropSchema.safeParse(asForm(cropFields, { ...c, price: null }));
+			const crop = cropSchema.safeParse(asForm(cropFields, { harvestCurve: 'flat', ...c, price: null }));
 			expect(crop.success, `${c.name}: ${JSON.stringify(crop.error?.issues)}`).toBe(true);
 			for (const v of c.varieties) {
 				const parsed = varietySchema.safeParse(asForm(varietyFields, { ...v, seedPrice: 0 }));
@@ -65,6 +65,13 @@ describe('starter library', () => {
 				expect(v.daysToMaturity, v.name).toBeLessThanOrEqual(hi);
 			}
 		}
+	});
+
+	it('gives beans a rising curve and head lettuce one cut', () => {
+		// common practice (no published source): beans pick over 2–3 weeks peaking in the second; heads are one cut.
+		expect(starterCrops.find((c) => c.key === 'bean')!.harvestCurve).toBe('ramp');
+		expect(starterCrops.find((c) => c.key === 'lettuce')!.harvestCurve).toBe('single');
+		expect(starterCrops.find((c) => c.key === 'carrot')!.harvestCurve).toBeUndefined();
 	});
 
 	it('keeps cilantro out of weeks above 85 °F', () => {

@@ -70,6 +70,30 @@ export const cropFields = {
 		min: 0,
 		max: 80
 	},
+	harvestCurve: {
+		kind: 'choice',
+		label: 'Harvest curve',
+		help: 'How a planting\'s yield spreads over its harvest window; a variety may differ.',
+		options: [
+			{ value: 'flat', label: 'even over the window' },
+			{ value: 'ramp', label: 'rises, peaks, tails off (fruiting crops)' },
+			{ value: 'single', label: 'one cut (heads)' },
+			{ value: 'cuts', label: 'several cuts (cut-and-come-again)' }
+		]
+	},
+	cutIntervalDays: { kind: 'number', label: 'Days between cuts', unit: 'days', help: 'For several cuts; blank for the usual interval.', min: 1, max: 120, int: true, optional: true },
+	storageWeeks: { kind: 'number', label: 'Keeps in store', unit: 'weeks', help: 'For a storage crop (garlic, onions, squash); blank if sold fresh.', min: 0, max: 52, int: true, optional: true },
+	storageLossPct: {
+		kind: 'number',
+		label: 'Loss in store',
+		unit: '% a week',
+		help: 'Share of what is stored that is lost each week.',
+		min: 0,
+		max: 100,
+		scale: 100,
+		optional: true,
+		step: 'any'
+	},
 	price: {
 		kind: 'number',
 		label: 'Price',
@@ -129,6 +153,18 @@ export const varietyFields = {
 	seedsPerPacket: { kind: 'number', label: 'Seeds per packet', unit: 'seeds', help: 'To count packets; blank to order by weight.', min: 1, max: 10_000_000, int: true, optional: true },
 	cellsPerTray: { kind: 'number', label: 'Cells per tray', unit: 'cells', help: 'Tray size for transplants, e.g. 72 or 128.', min: 1, max: 2000, int: true },
 	margin: { kind: 'number', label: 'Extra margin', unit: '%', help: 'Extra seed and bed space on top of the target, for losses.', min: 0, max: 100, scale: 100, step: 'any' },
+	harvestCurve: {
+		kind: 'choice',
+		label: 'Harvest curve',
+		help: 'Leave as the crop\'s, or give this variety its own.',
+		options: [
+			{ value: '', label: 'as the crop' },
+			{ value: 'flat', label: 'even over the window' },
+			{ value: 'ramp', label: 'rises, peaks, tails off' },
+			{ value: 'single', label: 'one cut' },
+			{ value: 'cuts', label: 'several cuts' }
+		]
+	},
 	gddToMaturity: {
 		kind: 'number',
 		label: 'Degree days to maturity',
@@ -178,11 +214,17 @@ export const varietySchema = schemaOf(varietyFields).refine((v) => v.method === 
 	path: ['daysInTray']
 });
 
-export type CropInput = Omit<Parsed<typeof cropFields>, 'harvestUnit' | 'frostTolerance'> & {
+export type HarvestCurveName = 'flat' | 'ramp' | 'single' | 'cuts';
+export type CropInput = Omit<Parsed<typeof cropFields>, 'harvestUnit' | 'frostTolerance' | 'harvestCurve'> & {
 	harvestUnit: (typeof harvestUnits)[number];
 	frostTolerance: 'tender' | 'hardy';
+	harvestCurve: HarvestCurveName;
 };
-export type VarietyInput = Omit<Parsed<typeof varietyFields>, 'method'> & { method: (typeof sowingMethods)[number] };
+/** A variety's harvest curve: '' keeps the crop's. */
+export type VarietyInput = Omit<Parsed<typeof varietyFields>, 'method' | 'harvestCurve'> & {
+	method: (typeof sowingMethods)[number];
+	harvestCurve: HarvestCurveName | '';
+};
 
 /** A field's unit with the crop's harvest unit filled in. */
 export function unitLabel(spec: FieldSpec, harvestUnit: string): string {

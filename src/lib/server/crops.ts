@@ -44,6 +44,7 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		// A variety of an archived crop is archived with it.
 		archived: r.archived_at !== null || r.crop_archived_at !== null,
 		source: r.source ?? null,
+		ownHarvestCurve: r.harvest_curve ?? null,
 		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
 		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
 	}));
@@ -78,6 +79,11 @@ export interface CropView {
 	frostTolerance: CropInput['frostTolerance'];
 	heatLimitF: number | null;
 	baseTempF: number;
+	harvestCurve: CropInput['harvestCurve'];
+	cutIntervalDays: number | null;
+	storageWeeks: number | null;
+	/** Fraction lost each week in store, or null. */
+	storageLossPct: number | null;
 	/** Dollars per harvest unit, or null when unknown. */
 	price: number | null;
 	source: string | null;
@@ -96,6 +102,10 @@ type CropRow = {
 	price_cents_per_unit: number | null;
 	source: string | null;
 	archived_at: Date | null;
+	harvest_curve: string;
+	harvest_cut_interval_days: number | null;
+	storage_weeks: number | null;
+	storage_loss_per_week: string | number | null;
 };
 
 function toCrop(r: CropRow, varieties: VarietyView[]): CropView {
@@ -107,6 +117,10 @@ function toCrop(r: CropRow, varieties: VarietyView[]): CropView {
 		frostTolerance: r.frost_tolerance,
 		heatLimitF: r.heat_limit_f === null ? null : Number(r.heat_limit_f),
 		baseTempF: Number(r.base_temp_f),
+		harvestCurve: shapeOf(r.harvest_curve),
+		cutIntervalDays: r.harvest_cut_interval_days,
+		storageWeeks: r.storage_weeks,
+		storageLossPct: r.storage_loss_per_week === null ? null : Number(r.storage_loss_per_week),
 		price: r.price_cents_per_unit === null ? null : r.price_cents_per_unit / 100,
 		source: r.source,
 		archived: r.archived_at !== null,
@@ -151,7 +165,11 @@ function cropColumns(input: CropInput) {
 		heat_limit_f: input.heatLimitF,
 		base_temp_f: input.baseTempF,
 		price_cents_per_unit: input.price === null ? null : Math.round(input.price * 100),
-		source: input.source
+		source: input.source,
+		harvest_curve: input.harvestCurve,
+		harvest_cut_interval_days: input.cutIntervalDays,
+		storage_weeks: input.storageWeeks,
+		storage_loss_per_week: input.storageLossPct
 	};
 }
 
@@ -218,7 +236,8 @@ function varietyColumns(input: VarietyInput) {
 		cells_per_tray: input.cellsPerTray,
 		margin: input.margin,
 		gdd_to_maturity: input.gddToMaturity,
-		source: input.source
+		source: input.source,
+		harvest_curve: input.harvestCurve === '' ? null : input.harvestCurve
 	};
 }
 
@@ -287,9 +306,13 @@ export async function addStarterCrops(farmId: number, picked: StarterCrop[]): Pr
 				continue;
 			}
 			const { key: _key, varieties, ...crop } = c;
-			const cropId = await createCrop(farmId, { ...crop, price: null }, trx);
+			const cropId = await createCrop(
+				farmId,
+				{ harvestCurve: 'flat', cutIntervalDays: null, storageWeeks: null, storageLossPct: null, ...crop, price: null },
+				trx
+			);
 			for (const sv of varieties) {
-				await createVariety(farmId, cropId, { ...sv, seedPrice: 0, seedsPerPacket: null, gddToMaturity: null }, trx);
+				await createVariety(farmId, cropId, { ...sv, harvestCurve: '', seedPrice: 0, seedsPerPacket: null, gddToMaturity: null }, trx);
 				out.varieties++;
 			}
 			out.crops.push(c.name);

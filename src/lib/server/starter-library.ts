@@ -26,10 +26,12 @@ const GDD_BASE = 'base temp: Oklahoma State Univ. GDD notes (40 °F cool-season,
 const PRACTICE = 'rows, spacing, window, germination: common practice (no published source)';
 const MEMORY = 'figures common practice (no published source), from memory: check before relying on them';
 
-export interface StarterVariety extends Omit<VarietyInput, 'source' | 'seedPrice' | 'seedsPerPacket' | 'gddToMaturity'> {
+export interface StarterVariety extends Omit<VarietyInput, 'source' | 'seedPrice' | 'seedsPerPacket' | 'gddToMaturity' | 'harvestCurve'> {
 	source: string;
 }
-export interface StarterCrop extends Omit<CropInput, 'source' | 'price'> {
+export interface StarterCrop extends Omit<CropInput, 'source' | 'price' | 'harvestCurve' | 'cutIntervalDays' | 'storageWeeks' | 'storageLossPct'> {
+	/** Common practice (no published source): beans and cucurbits ramp, heads are one cut; default flat. */
+	harvestCurve?: CropInput['harvestCurve'];
 	key: string;
 	source: string;
 	varieties: StarterVariety[];
@@ -41,7 +43,14 @@ const v = (x: V): StarterVariety => ({ daysInTray: 0, seedsPerSpot: 1, cellsPerT
 const cool = { frostTolerance: 'hardy', baseTempF: 40 } as const;
 const warm = { frostTolerance: 'tender', baseTempF: 50 } as const;
 
-export const starterCrops: readonly StarterCrop[] = [
+// Harvest curves, common practice (no published source): bush beans pick over 2–3 weeks, peaking in
+// the second; cucumbers and summer squash rise over their first weeks; head crops are one cut.
+const CURVES: Record<string, CropInput['harvestCurve']> = {
+	bean: 'ramp', cucumber: 'ramp', zucchini: 'ramp', tomato: 'ramp',
+	lettuce: 'single', cabbage: 'single', broccoli: 'single', cauliflower: 'single', 'bok-choy': 'single', kohlrabi: 'single'
+};
+
+const listed: StarterCrop[] = [
 	{
 		key: 'carrot', name: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', ...cool, heatLimitF: null, source: GDD_BASE,
 		varieties: [
@@ -134,6 +143,8 @@ export const starterCrops: readonly StarterCrop[] = [
 	},
 	...memoryCrops()
 ];
+
+export const starterCrops: readonly StarterCrop[] = listed.map((c) => (CURVES[c.key] ? { ...c, harvestCurve: CURVES[c.key] } : c));
 
 /** Crops not in the reference tables we hold: every figure common practice, from memory. */
 function memoryCrops(): StarterCrop[] {
