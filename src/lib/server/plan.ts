@@ -6,6 +6,7 @@ import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
+import type { Knex } from 'knex';
 import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
@@ -23,19 +24,24 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
-export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
+/**
+ * Runs the engine over the season as it stands. With `trx` (apply, holding the locks), the season's
+ * plantings are read in that transaction, so the plan starts from the rows it is about to replace.
+ */
+export async function preview(farmId: number, season: Season, request: PlanRequest, trx?: Knex.Transaction): Promise<PlanPreview> {
 	const seasonId = season.id;
+	const plantingsQuery = (trx ?? db())('plantings as p')
+		.join('varieties as v', 'v.id', 'p.variety_id')
+		.join('crops as c', 'c.id', 'v.crop_id')
+		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
+		.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family');
 	const farm = await farms.get(farmId);
 	const [temps, varieties, bedList, demand, existing, obstacles] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
 		targetInput(farmId, seasonId),
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
-			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-			.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
+		plantingsQuery,
 		// Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer).
 		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId)
 	]);
@@ -100,10 +106,15 @@ export interface ApplyResult {
 
 export async function apply(farmId: number, season: Season, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
 	const seasonId = season.id;
-	const result = await preview(farmId, season, request);
 	return db().transaction(async (trx) => {
-		// Lock the season's plantings: a concurrent edit waits, and the counts below stay true.
+		// One lock for computing and writing: the season row (a second apply waits here), then the season's
+		// plantings, read with locking reads and planned from. A status change that commits first is seen
+		// (its planting is kept, not planned again); one that comes later waits, then finds its planted row
+		// replaced. Planning from rows read before the lock could plant a kept planting twice.
+		await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
+		// The transaction's first plain read, so its snapshot is taken with the locks held.
+		const result = await preview(farmId, season, request, trx);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
 		const inserts = result.plan.plantings.map((p) =>
