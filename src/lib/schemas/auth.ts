@@ -21,6 +21,8 @@ export const inviteSchema = z.object({
 });
 
 export const acceptInviteSchema = z.object({ name: plainText('Your name', 120), password });
+/** Accepting with an existing account: its current password proves it, whatever rules held when it was set. */
+export const acceptInviteExistingSchema = z.object({ name: plainText('Your name', 120), password: signInSchema.shape.password });
 
 export const forgotSchema = z.object({ email });
 

@@ -28,7 +28,7 @@ export function weakPasswordReason(password: string): string | null {
 	if (result.score >= minPasswordScore) return null;
 	const warning = result.feedback.warning ?? 'This password is too easy to guess.';
 	const hint = result.feedback.suggestions[0] ?? 'Add more words that are less common.';
-	return `Too easy to guess: ${warning.replace(/\.$/, '')}. ${hint}`;
+	return `${warning} ${hint}`;
 }
 
 export const newPassword = z

@@ -24,27 +24,50 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
-/**
- * Runs the engine over the season as it stands. With `trx` (apply, holding the locks), the season's
- * plantings are read in that transaction, so the plan starts from the rows it is about to replace.
- */
-export async function preview(farmId: number, season: Season, request: PlanRequest, trx?: Knex.Transaction): Promise<PlanPreview> {
-	const seasonId = season.id;
-	const plantingsQuery = (trx ?? db())('plantings as p')
+type ExistingPlanting = {
+	id: number;
+	status: string;
+	bed_id: number | null;
+	start_ft: number;
+	length_ft: number;
+	field_date: string;
+	first_harvest: string;
+	last_harvest: string;
+	crop_id: number;
+	yield_per_bed_foot: number;
+	family: string;
+};
+
+function seasonPlantings(executor: Knex | Knex.Transaction, farmId: number, seasonId: number): Promise<ExistingPlanting[]> {
+	return executor('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family');
+}
+
+/** Everything the engine needs except the season's own plantings. */
+async function gatherInputs(farmId: number, season: Season) {
 	const farm = await farms.get(farmId);
-	const [temps, varieties, bedList, demand, existing, obstacles] = await Promise.all([
+	const [temps, varieties, bedList, demand, obstacles] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
-		targetInput(farmId, seasonId),
-		plantingsQuery,
+		targetInput(farmId, season.id),
 		// Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer).
-		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId)
+		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, season.id)
 	]);
+	return { farm, temps, varieties, bedList, demand, obstacles };
+}
+
+/** Runs the engine over the season as it stands; writes nothing. */
+export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
+	const [inputs, existing] = await Promise.all([gatherInputs(farmId, season), seasonPlantings(db(), farmId, season.id)]);
+	return planFrom(inputs, existing, request);
+}
+
+function planFrom(inputs: Awaited<ReturnType<typeof gatherInputs>>, existing: ExistingPlanting[], request: PlanRequest): PlanPreview {
+	const { farm, temps, varieties, bedList, demand, obstacles } = inputs;
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
 	const kept: KeptPlanting[] = keptRows
@@ -106,6 +129,9 @@ export interface ApplyResult {
 
 export async function apply(farmId: number, season: Season, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
 	const seasonId = season.id;
+	// Farm, varieties, beds and demand are read first, outside the lock: holding it while waiting for
+	// more pool connections could starve the edits queued behind it.
+	const inputs = await gatherInputs(farmId, season);
 	return db().transaction(async (trx) => {
 		// One lock for computing and writing: the season row (a second apply waits here), then the season's
 		// plantings, read with locking reads and planned from. A status change that commits first is seen
@@ -114,7 +140,7 @@ export async function apply(farmId: number, season: Season, userId: string, requ
 		await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
 		// The transaction's first plain read, so its snapshot is taken with the locks held.
-		const result = await preview(farmId, season, request, trx);
+		const result = planFrom(inputs, await seasonPlantings(trx, farmId, seasonId), request);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
 		const inserts = result.plan.plantings.map((p) =>

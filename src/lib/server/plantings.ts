@@ -7,6 +7,7 @@ import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/c
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
+import { shareSeasonLockOfPlanting } from './seasons';
 
 import type { PlantingView } from '$lib/types';
 
@@ -239,6 +240,7 @@ export async function update(farmId: number, id: number, user: { id: string; rol
 	if (refused.length) return { kind: 'forbidden', fields: refused };
 	const ctx = await gridContext(farmId);
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const cur = await trx('plantings').where({ id, farm_id: farmId }).forUpdate().first();
 		if (!cur) return { kind: 'not_found' } as const;
 		if (cur.version !== version) {
@@ -267,6 +269,7 @@ function rowValues(r: any): Full {
  */
 export async function remove(farmId: number, id: number): Promise<PlantingView | null | 'has_harvests'> {
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const view = await getOne(farmId, id, trx);
 		if (!view) return null;
 		const logged = await trx('harvest_records').where({ planting_id: id }).first('id');
