@@ -15,6 +15,7 @@ export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
 export FC_SIGNIN_ADDRESS_FREE="${FC_SIGNIN_ADDRESS_FREE:-100000}"
 export FC_FORGOT_ADDRESS_LIMIT="${FC_FORGOT_ADDRESS_LIMIT:-100000}"
 export FC_SIGNUP_ADDRESS_LIMIT="${FC_SIGNUP_ADDRESS_LIMIT:-100000}"
+export FC_DEMO_MODE=1
 
 cleanup_test_env() {
 	bash scripts/app-stop.sh >/dev/null 2>&1 || true

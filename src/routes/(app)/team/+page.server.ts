@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { changeMember, LastOwnerError, listMembers } from '$lib/server/members';
 import { createInvite, listOpenInvites, renewInvite, revokeInvite, sendInvite } from '$lib/server/invites';
 import { endSessionsOf } from '$lib/server/auth';
@@ -9,7 +9,7 @@ import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import type { Role } from '$lib/roles';
 
 export const load = (async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'team.manage');
 	const [members, invites] = await Promise.all([listMembers(farm.id), listOpenInvites(farm.id)]);
 	const q = event.url.searchParams;
 	return { members, invites, me: user.id, sent: q.get('sent'), unsent: q.get('unsent'), changed: q.get('changed'), removed: q.get('removed') };
@@ -17,7 +17,7 @@ export const load = (async (event) => {
 
 /** Changes a role or removes a member; the member's sessions on this farm end at once. */
 async function memberAction(event: RequestEvent, remove: boolean) {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'team.manage');
 	const form = Object.fromEntries(await event.request.formData());
 	const parsed = remove ? memberSchema.safeParse(form) : memberRoleSchema.safeParse(form);
 	const userId = String(form.userId ?? '').slice(0, 40);
@@ -39,7 +39,7 @@ async function memberAction(event: RequestEvent, remove: boolean) {
 
 export const actions = {
 	invite: async (event) => {
-		const { farm, user } = requireRole(event, 'owner');
+		const { farm, user } = requireCan(event, 'team.manage');
 		const form = Object.fromEntries(await event.request.formData());
 		const values = { email: String(form.email ?? ''), role: String(form.role ?? '') };
 		const parsed = inviteSchema.safeParse(form);
@@ -54,7 +54,7 @@ export const actions = {
 		redirect(303, `/team?${sent ? 'sent' : 'unsent'}=${encodeURIComponent(parsed.data.email)}`);
 	},
 	resend: async (event) => {
-		const { farm, user } = requireRole(event, 'owner');
+		const { farm, user } = requireCan(event, 'team.manage');
 		const parsed = inviteIdSchema.safeParse(Object.fromEntries(await event.request.formData()));
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values: { email: '', role: '' } });
 		const invite = await renewInvite(farm.id, parsed.data.id);
@@ -63,7 +63,7 @@ export const actions = {
 		redirect(303, `/team?${sent ? 'sent' : 'unsent'}=${encodeURIComponent(invite.email)}`);
 	},
 	revoke: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'team.manage');
 		const parsed = inviteIdSchema.safeParse(Object.fromEntries(await event.request.formData()));
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values: { email: '', role: '' } });
 		await revokeInvite(farm.id, parsed.data.id);
