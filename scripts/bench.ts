@@ -5,6 +5,7 @@ import { runForecastBench } from './bench-forecast';
 import { runGridBench } from './bench-grid';
 import { runTimelineBench } from './bench-timeline';
 import { runExportBench } from './bench-export';
+import { runApiBench } from './bench-api';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runApiBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

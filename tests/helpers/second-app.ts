@@ -1,52 +1,42 @@
-// A second app server on the test database, started by a test with settings of its own (for example
-// ADDRESS_HEADER, as behind a proxy, with small limits). Its port is FC_TEST_PORT + 100 unless
-// FC_TEST_SECOND_PORT says otherwise.
+// A second app server from the same build, for checks that need other settings than the test
+// app's (no demo mode, an unreachable database). It listens on a port the system hands out, so
+// parallel test runs on one machine never meet.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { resolve } from 'node:path';
+import { createServer } from 'node:net';
 
-export interface SecondApp {
-	url: string;
-	/** POSTs a form as a browser behind the proxy would, with the given client address header. */
-	postForm(path: string, fields: Record<string, string>, headers?: Record<string, string>): Promise<Response>;
-	stop(): Promise<void>;
+/** A loopback port that was free a moment ago. */
+export function freePort(): Promise<number> {
+	return new Promise((resolve, reject) => {
+		const s = createServer();
+		s.once('error', reject);
+		s.listen(0, '127.0.0.1', () => {
+			const { port } = s.address() as { port: number };
+			s.close(() => resolve(port));
+		});
+	});
 }
 
-export async function startSecondApp(env: Record<string, string>): Promise<SecondApp> {
-	const port = Number(process.env.FC_TEST_SECOND_PORT ?? Number(process.env.FC_PORT ?? 3100) + 100);
+export interface SecondApp {
+	base: string;
+	stop(): void;
+}
+
+/** Starts scripts/serve.js with the test app's environment changed by `change` (undefined deletes). */
+export async function startSecondApp(change: Record<string, string | undefined>): Promise<SecondApp> {
 	const host = process.env.FC_HOST ?? '127.0.0.1';
-	const url = `http://${host}:${port}`;
-	const child: ChildProcess = spawn(process.execPath, [resolve(process.env.FC_BUILD_DIR ?? 'build')], {
-		env: { ...process.env, HOST: host, PORT: String(port), ORIGIN: url, SHUTDOWN_TIMEOUT: '1', ...env },
-		stdio: ['ignore', 'ignore', 'pipe']
-	});
-	let stderr = '';
-	child.stderr?.on('data', (d: Buffer) => (stderr += d.toString()));
-	const until = Date.now() + 20_000;
-	for (;;) {
-		try {
-			if ((await fetch(`${url}/signin`)).ok) break;
-		} catch {
-			// not listening yet
-		}
-		if (child.exitCode !== null || Date.now() > until) throw new Error(`second app did not start on ${url}: ${stderr.slice(-500)}`);
-		await new Promise((r) => setTimeout(r, 150));
+	const port = await freePort();
+	const env: NodeJS.ProcessEnv = { ...process.env, PORT: String(port), HOST: host, ORIGIN: `http://${host}:${port}`, SHUTDOWN_TIMEOUT: '1' };
+	for (const [k, v] of Object.entries(change)) {
+		if (v === undefined) delete env[k];
+		else env[k] = v;
 	}
-	return {
-		url,
-		postForm(path, fields, headers = {}) {
-			return fetch(url + path, {
-				method: 'POST',
-				body: new URLSearchParams(fields),
-				redirect: 'manual',
-				headers: { origin: url, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded', ...headers }
-			});
-		},
-		async stop() {
-			if (child.exitCode !== null) return;
-			const exited = new Promise((r) => child.once('exit', r));
-			child.kill('SIGTERM');
-			await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-			if (child.exitCode === null) child.kill('SIGKILL');
-		}
-	};
+	const app: ChildProcess = spawn('node', ['scripts/serve.js', process.env.FC_BUILD_DIR ?? 'build'], { env, stdio: 'ignore' });
+	const base = `http://${host}:${port}`;
+	for (let i = 0; i < 80; i++) {
+		if (app.exitCode !== null) break;
+		if (await fetch(`${base}/signin`).then(() => true, () => false)) return { base, stop: () => app.kill('SIGTERM') };
+		await new Promise((r) => setTimeout(r, 250));
+	}
+	app.kill('SIGTERM');
+	throw new Error(`the second app server did not start on ${base}`);
 }

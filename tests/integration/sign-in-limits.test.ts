@@ -65,17 +65,28 @@ describe('per account (default limits: 5 free failures, then 1 s doubling to 1 m
 });
 
 describe('behind a proxy: per client address from ADDRESS_HEADER, and the account cap', () => {
-	let app: SecondApp;
+	let second: SecondApp;
+	let app: { postForm(path: string, fields: Record<string, string>, headers: Record<string, string>): Promise<Response> };
 	beforeAll(async () => {
-		app = await startSecondApp({
+		second = await startSecondApp({
 			ADDRESS_HEADER: 'x-real-ip',
 			FC_SIGNIN_ADDRESS_FREE: '3',
 			FC_SIGNIN_ACCOUNT_MAX_WAIT: '2',
 			FC_FORGOT_ADDRESS_LIMIT: '2',
 			FC_SIGNUP_ADDRESS_LIMIT: '1'
 		});
+		// A browser's form post as the proxy passes it on, with the client's address in the header.
+		app = {
+			postForm: (path, fields, headers) =>
+				fetch(second.base + path, {
+					method: 'POST',
+					body: new URLSearchParams(fields),
+					redirect: 'manual',
+					headers: { origin: second.base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded', ...headers }
+				})
+		};
 	});
-	afterAll(() => app?.stop());
+	afterAll(() => second?.stop());
 
 	// Addresses from the documentation ranges (RFC 5737), random per run.
 	const address = () => `203.0.113.${Math.floor(Math.random() * 250) + 1}`;

@@ -14,6 +14,7 @@ import { listVarieties } from './crops';
 import { targetInput } from './demand';
 import type { Season } from './seasons';
 import { bedHolders } from './bed-holders';
+import { lockForApply, recordApply, snapshotPlanned } from './plan-history';
 
 
 export interface PlanPreview {
@@ -127,26 +128,40 @@ export interface ApplyResult {
 	unplaced: number;
 }
 
-export async function apply(farmId: number, season: Season, userId: string, request: PlanRequest): Promise<ApplyResult & { preview: PlanPreview }> {
+/**
+ * `expected` is the fingerprint of the preview the owner looked at: when given, the apply is
+ * refused (PlanConflictError) if the season moved on since. Without it, the plan is computed from the
+ * season as it stands under the lock, so whatever committed before is kept, and nothing is planted
+ * twice. The replaced plantings are kept for undo.
+ */
+export async function apply(
+	farmId: number,
+	season: Season,
+	userId: string,
+	request: PlanRequest,
+	expected?: string
+): Promise<ApplyResult & { preview: PlanPreview }> {
 	const seasonId = season.id;
 	// Farm, varieties, beds and demand are read first, outside the lock: holding it while waiting for
 	// more pool connections could starve the edits queued behind it.
 	const inputs = await gatherInputs(farmId, season);
 	return db().transaction(async (trx) => {
-		// One lock for computing and writing: the season row (a second apply waits here), then the season's
-		// plantings, read with locking reads and planned from. A status change that commits first is seen
-		// (its planting is kept, not planned again); one that comes later waits, then finds its planted row
-		// replaced. Planning from rows read before the lock could plant a kept planting twice.
-		await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
+		// One lock for computing and writing: the season row (a second apply, and every planting edit, which
+		// shares it, waits here), then the season's plantings, planned from as read under the lock. A status
+		// change that committed first is seen (its planting is kept, not planned again); a later one waits,
+		// then finds its planned row replaced. Planning from rows read before the lock could plant a kept
+		// planting twice.
+		await lockForApply(trx, farmId, seasonId, expected);
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
-		// The transaction's first plain read, so its snapshot is taken with the locks held.
 		const result = planFrom(inputs, await seasonPlantings(trx, farmId, seasonId), request);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
+		const replaced = await snapshotPlanned(trx, plannedIds);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
 		const inserts = result.plan.plantings.map((p) =>
 			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
+		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced });
 		return {
 			kept: rows.length - plannedIds.length,
 			removed: plannedIds.length,
