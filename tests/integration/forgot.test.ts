@@ -28,9 +28,9 @@ async function mailsTo(email: string): Promise<{ subject: string; text: string }
 	return all.filter((m) => m.to.includes(email));
 }
 
-/** A page's text with the one address it echoes taken out, to compare two answers. */
+/** A page's text with the one address it echoes (and the per-response CSP nonce) taken out, to compare two answers. */
 async function answer(res: Response, email: string): Promise<string> {
-	return (await html(res)).split(email).join('ADDRESS');
+	return (await html(res)).split(email).join('ADDRESS').replace(/nonce="[^"]*"/g, 'nonce=""');
 }
 
 const ask = (email: string) => new Client().postForm('/forgot', { email });

@@ -12,7 +12,7 @@ import * as farms from './farms';
 import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
-import type { Season } from './seasons';
+import { demandHash, type Season } from './seasons';
 import { bedHolders } from './bed-holders';
 import { lockForApply, recordApply, snapshotPlanned } from './plan-history';
 
@@ -144,14 +144,14 @@ export async function apply(
 	const seasonId = season.id;
 	// Farm, varieties, beds and demand are read first, outside the lock: holding it while waiting for
 	// more pool connections could starve the edits queued behind it.
-	const inputs = await gatherInputs(farmId, season);
+	const [inputs, demandDigest] = await Promise.all([gatherInputs(farmId, season), demandHash(farmId, seasonId)]);
 	return db().transaction(async (trx) => {
 		// One lock for computing and writing: the season row (a second apply, and every planting edit, which
 		// shares it, waits here), then the season's plantings, planned from as read under the lock. A status
 		// change that committed first is seen (its planting is kept, not planned again); a later one waits,
 		// then finds its planned row replaced. Planning from rows read before the lock could plant a kept
 		// planting twice.
-		await lockForApply(trx, farmId, seasonId, expected);
+		await lockForApply(trx, farmId, seasonId, expected, demandDigest);
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
 		const result = planFrom(inputs, await seasonPlantings(trx, farmId, seasonId), request);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
@@ -161,7 +161,7 @@ export async function apply(
 			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
-		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced });
+		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced, demandDigest });
 		return {
 			kept: rows.length - plannedIds.length,
 			removed: plannedIds.length,
