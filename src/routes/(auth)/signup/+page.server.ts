@@ -35,6 +35,6 @@ export const actions = {
 			afterResponse('sign-up note', () => mailSignUpAttempt(parsed.data.email, url.origin));
 			return { checkMail: parsed.data.email };
 		}
-		redirect(303, '/settings?welcome=1');
+		redirect(303, '/setup');
 	}
 } satisfies Actions;
