@@ -62,7 +62,7 @@ describe('editing a cell', () => {
 		const { g } = grid();
 		// 2026-04-20 + 70 days = 2026-06-29 (day length at 42° N in late June is far above 10 h: no allowance).
 		expect(g.rows[0].derived?.firstHarvest).toBe('2026-06-29');
-		// Seeds: 60 ft × 12 ÷ 1 in = 720 spots × 4 rows = 2,880; × 2 ÷ 0.65 × 1.1 = 9,747.7 → 9,748 (README worked example).
+		// Seeds: 60 ft × 12 ÷ 1 in = 720 spots × 4 rows = 2,880; × 2 ÷ 0.65 × 1.1 = 9,747.7 → 9,748 (worked example in DEVELOPERS.md).
 		expect(g.rows[0].derived?.seed.seeds).toBe(9748);
 		g.moveTo(0, col(g, 'lengthFt'));
 		g.beginEdit('30');

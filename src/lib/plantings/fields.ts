@@ -54,7 +54,13 @@ const id = numberField;
 
 /** Every stored, editable field by its API name, in the grid's and the API's order. */
 export const plantingFieldTable = {
-	varietyId: { column: 'variety_id', schema: id('Variety', 1, 2 ** 31 - 1, { int: true }), kind: 'ref', edit: 'plan', nextSeason: 'keep' },
+	varietyId: {
+		column: 'variety_id',
+		schema: id('Variety', 1, 2 ** 31 - 1, { int: true }),
+		kind: 'ref',
+		edit: 'plan',
+		nextSeason: 'keep'
+	},
 	bedId: {
 		column: 'bed_id',
 		schema: z.preprocess((v) => (v === '' ? null : v), id('Bed', 1, 2 ** 31 - 1, { int: true }).nullable()),
