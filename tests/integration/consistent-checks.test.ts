@@ -2,7 +2,7 @@
 // 0), a CSV without rows or a known sheet is a 400 naming `sheet` (not 201 with 0 rows), and a
 // plan request naming another farm's variety is a 400 naming the entry (not 200 with a warning).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, signedIn } from '../helpers/http';
+import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { signUpFarm, upload, type NewFarm } from '../helpers/transfer';
@@ -37,6 +37,18 @@ describe('money below a cent', () => {
 	it('$0.29 is kept as 29 cents', async () => {
 		expect((await upload(fresh.client, 'crops.csv', cropsHeader + cropRow('$0.29'), { sheet: 'Crops & varieties' })).status).toBe(201);
 		expect((await testDb()('varieties').where({ farm_id: fresh.farmId, name: 'Check Ruby' }).first('seed_price_cents_per_gram')).seed_price_cents_per_gram).toBe(29);
+	});
+	it('the crop library refuses a seed price of $0.001 too, naming it; nothing written', async () => {
+		const crop = await testDb()('crops').where({ farm_id: demoFarmId }).first('id');
+		const before = await count('varieties', { farm_id: demoFarmId });
+		const res = await owner.postForm(`/crops/${crop.id}/varieties/new`, {
+			name: 'Sub-cent', method: 'direct', daysToMaturity: '70', daysInTray: '0', harvestWindowDays: '14', yieldPerBedFoot: '2.4', rows: '4',
+			inRowSpacingIn: '1', seedsPerSpot: '1', germinationRate: '65', seedsPerGram: '776.03', seedPrice: '0.001', seedsPerPacket: '', cellsPerTray: '128',
+			margin: '10', gddToMaturity: '', source: 'test'
+		});
+		expect(res.status).toBe(400);
+		expect(await html(res)).toContain('Seed price must be in whole cents');
+		expect(await count('varieties', { farm_id: demoFarmId })).toBe(before);
 	});
 	it('a share price of 0.001 sent as JSON is refused, naming price', async () => {
 		const before = await count('share_sizes', { season_id: demoSeasonId });
