@@ -1,12 +1,13 @@
 // The farm's crop library: crops and their varieties.
+import type { Knex } from 'knex';
 import { db } from './db';
 
 import type { VarietyView } from '$lib/types';
 
 export type { VarietyView };
 
-export async function listVarieties(farmId: number): Promise<VarietyView[]> {
-	const rows = await db()('varieties as v')
+export async function listVarieties(farmId: number, conn: Knex = db()): Promise<VarietyView[]> {
+	const rows = await conn('varieties as v')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])

@@ -35,7 +35,7 @@ function plantingRows(d: SeasonData): Row[] {
 	return d.plantings.map((p) => [
 		p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, p.rows, p.inRowSpacingIn, p.seedsPerSpot, p.method,
 		p.traySowDate, p.fieldDate, isoWeekOfDay(toDayNumber(p.fieldDate)), p.firstHarvest, p.lastHarvest, p.expectedYield,
-		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes
+		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes, p.id
 	]);
 }
 

@@ -1,12 +1,12 @@
 import type { Actions, PageServerLoad } from './$types';
 import { requireUser } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
-import { importAction, importedSummary, requireOwnerForUpload } from '$lib/server/import/action';
+import { applyAction, importAction, importedSummary, updatedSummary, requireOwnerForUpload } from '$lib/server/import/action';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { season, canImport: farm.role === 'owner', imported: importedSummary(event.url) };
+	return { season, canImport: farm.role === 'owner', imported: importedSummary(event.url), updated: updatedSummary(event.url) };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -14,5 +14,6 @@ export const actions = {
 		const { farm } = await requireOwnerForUpload(event);
 		const season = await seasonFromParams(farm.id, event.params.id);
 		return importAction(event, season.id);
-	}
+	},
+	apply: async (event) => applyAction(event)
 } satisfies Actions;
