@@ -85,7 +85,10 @@ export async function runGridBench(): Promise<Record<string, number>> {
 			const g = await paint(`/seasons/${seasonId}/plantings`, '[data-row="0"]');
 			const p = await paint('/__bench-plain-table', `[data-plain="${ROWS - 1}"]`);
 			// The first round warms caches (JS bundle, fonts) for both: not counted.
-			if (i > 0) gridTimes.push(g), plainTimes.push(p);
+			if (i > 0) {
+				gridTimes.push(g);
+				plainTimes.push(p);
+			}
 		}
 
 		await paint(`/seasons/${seasonId}/plantings`, '[data-row="0"]');

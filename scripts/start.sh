@@ -7,6 +7,9 @@ cd "$FC_ROOT"
 mkdir -p "$FC_DATA_DIR" "$FC_PID_DIR"
 
 ensure_node_modules
+# Demo mode: the invented demo farm's Mail (dev) page reads the local mail fake. Set FC_DEMO_MODE=0
+# for a real farm; the page and its link are then gone.
+export FC_DEMO_MODE="${FC_DEMO_MODE:-1}"
 bash scripts/db-start.sh
 bash scripts/mail-start.sh
 npx tsx scripts/migrate.ts latest "$FC_DB_NAME"

@@ -9,6 +9,7 @@ export FC_SMTP_PORT="${FC_TEST_SMTP_PORT:-2526}"
 export FC_MAIL_DIR="$FC_DATA_DIR/mail-test-$FC_SMTP_PORT"
 export FC_PORT="${FC_TEST_PORT:-3100}"
 export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
+export FC_DEMO_MODE=1
 
 cleanup_test_env() {
 	bash scripts/app-stop.sh >/dev/null 2>&1 || true

@@ -1,5 +1,4 @@
-// The three roles of a farm and what each may open. The server enforces these (guards.ts);
-// the navigation only mirrors them.
+// The three roles of a farm. What each may do is in permissions.ts; the server enforces it (guards.ts).
 export const roles = ['owner', 'crew_lead', 'share_manager'] as const;
 export type Role = (typeof roles)[number];
 
@@ -8,25 +7,3 @@ export const roleLabels: Record<Role, string> = {
 	crew_lead: 'Crew lead',
 	share_manager: 'Share manager'
 };
-
-export interface NavItem {
-	href: string;
-	label: string;
-	roles: readonly Role[];
-}
-
-const everyone = roles;
-
-export const navItems: readonly NavItem[] = [
-	{ href: '/', label: 'This week', roles: everyone },
-	{ href: '/seasons', label: 'Seasons', roles: everyone },
-	{ href: '/crops', label: 'Crop library', roles: everyone },
-	{ href: '/settings', label: 'Farm & beds', roles: ['owner'] },
-	{ href: '/import', label: 'Import', roles: ['owner'] },
-	{ href: '/team', label: 'Team', roles: ['owner'] },
-	{ href: '/dev/mail', label: 'Mail (dev)', roles: ['owner'] }
-];
-
-export function navFor(role: Role, devMail: boolean): NavItem[] {
-	return navItems.filter((item) => item.roles.includes(role) && (devMail || item.href !== '/dev/mail'));
-}

@@ -1,7 +1,5 @@
 // The invented demo farm, seeded into the scratch database after a fresh migrate.
 import { execFileSync } from 'node:child_process';
-import { readdirSync } from 'node:fs';
-import path from 'node:path';
 import knex, { type Knex } from 'knex';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { knexConfig } from '../../knexfile';

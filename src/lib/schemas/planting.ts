@@ -1,6 +1,7 @@
 // One schema per planting input, shared by the grid's cells (in the browser) and the JSON API.
 import { z } from 'zod';
 import type { Role } from '$lib/roles';
+import { can } from '$lib/permissions';
 import { isoDate, numberField } from './common';
 
 export const plantingStatuses = ['planned', 'sown', 'transplanted', 'harvesting', 'finished', 'failed'] as const;
@@ -37,13 +38,15 @@ export const plantingFields = {
 export type PlantingField = keyof typeof plantingFields;
 export const plantingFieldNames = Object.keys(plantingFields) as PlantingField[];
 
-/** What a crew lead may change: the record of what happened, never the plan itself. */
-export const crewFields: readonly PlantingField[] = ['status', 'actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest', 'notes'];
+/** The record of what happened, never the plan itself: what the 'planting.record' permission may change. */
+export const recordFields: readonly PlantingField[] = ['status', 'actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest', 'notes'];
+/** recordFields in words, for messages. */
+export const recordFieldsInWords = 'status, actual dates and notes';
 
-/** The fields a role may edit; the server enforces it, the grid greys the rest out. */
+/** The fields a role may edit (permissions.ts); the server enforces it, the grid greys the rest out. */
 export function editableFields(role: Role): readonly PlantingField[] {
-	if (role === 'owner') return plantingFieldNames;
-	if (role === 'crew_lead') return crewFields;
+	if (can(role, 'plan.edit')) return plantingFieldNames;
+	if (can(role, 'planting.record')) return recordFields;
 	return [];
 }
 

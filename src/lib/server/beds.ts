@@ -77,7 +77,11 @@ export async function update(farmId: number, bedId: number, input: BedInput): Pr
 
 /** Removes a bed; its plantings stay in the plan, unplaced, so nothing of the plan is lost. */
 export async function remove(farmId: number, bedId: number): Promise<boolean> {
-	return (await db()('beds').where({ id: bedId, farm_id: farmId }).delete()) > 0;
+	// The plantings come off the bed first: the (farm_id, bed_id) key would take them with it.
+	return db().transaction(async (trx) => {
+		await trx('plantings').where({ farm_id: farmId, bed_id: bedId }).update({ bed_id: null, version: trx.raw('version + 1') });
+		return (await trx('beds').where({ id: bedId, farm_id: farmId }).delete()) > 0;
+	});
 }
 
 export async function createBlock(farmId: number, name: string): Promise<number> {

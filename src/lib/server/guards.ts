@@ -3,6 +3,7 @@
 import { error, redirect, type RequestEvent } from '@sveltejs/kit';
 import type { Role } from '$lib/roles';
 import { roleLabels } from '$lib/roles';
+import { rolesFor, type Action } from '$lib/permissions';
 
 export interface Viewer {
 	user: { id: string; email: string; name: string };
@@ -24,7 +25,12 @@ export function requireUser(event: RequestEvent): Viewer {
 	return { user, farm };
 }
 
-export function requireRole(event: RequestEvent, ...allowed: Role[]): Viewer {
+/** The signed-in viewer, when its role may take `action` (src/lib/permissions.ts); else 403 naming who may. */
+export function requireCan(event: RequestEvent, action: Action): Viewer {
+	return requireRole(event, ...rolesFor(action));
+}
+
+function requireRole(event: RequestEvent, ...allowed: readonly Role[]): Viewer {
 	const viewer = requireUser(event);
 	if (!allowed.includes(viewer.farm.role)) {
 		const who = allowed.map((r) => roleLabels[r].toLowerCase()).join(' or ');

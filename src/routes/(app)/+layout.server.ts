@@ -1,6 +1,7 @@
 import type { LayoutServerLoad } from './$types';
 import { requireUser } from '$lib/server/guards';
-import { navFor, roleLabels } from '$lib/roles';
+import { roleLabels } from '$lib/roles';
+import { navFor } from '$lib/navigation';
 import { devMailEnabled } from '$lib/server/mail';
 import * as seasons from '$lib/server/seasons';
 

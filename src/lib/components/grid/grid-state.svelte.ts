@@ -4,6 +4,7 @@ import { plantingConflicts } from '$lib/planning/planting-derive';
 import { weekStart, addDays } from '$lib/planning';
 import { editableFields, type PlantingField } from '$lib/schemas/planting';
 import type { Role } from '$lib/roles';
+import { can } from '$lib/permissions';
 import type { PlantingView } from '$lib/types';
 import { columns as allColumns, readCell, warningLabels, bedLabel, type GridColumn, type Lookups } from './columns';
 import type { GridBed, GridFarm, GridVariety } from './engine';
@@ -457,7 +458,7 @@ export class GridState {
 
 	/** Ctrl+Enter: a new row like the focused one (the next succession is usually the same crop). */
 	addRow(): boolean {
-		if (this.role !== 'owner') return (this.message = 'Only the owner adds plantings.'), false;
+		if (!can(this.role, 'plan.edit')) return (this.message = 'Only the owner adds plantings.'), false;
 		const base = this.focusRow();
 		const values: RowValues = base
 			? { ...base.values, status: 'planned', actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null, notes: null }
@@ -476,7 +477,7 @@ export class GridState {
 
 	/** Removes the selected rows (owner); undo puts them back as new rows. */
 	removeSelected(): boolean {
-		if (this.role !== 'owner') return (this.message = 'Only the owner removes plantings.'), false;
+		if (!can(this.role, 'plan.edit')) return (this.message = 'Only the owner removes plantings.'), false;
 		const { r0, r1 } = this.range;
 		const rows = this.view.rows.slice(r0, r1 + 1);
 		if (!rows.length) return false;
@@ -553,7 +554,7 @@ export class GridState {
 			let row = this.view.rows[r];
 			const isNew = !row;
 			if (isNew) {
-				if (this.role !== 'owner') {
+				if (!can(this.role, 'plan.edit')) {
 					out.bad.push({ row: r + 1, column: '—', text: cells.join(' '), message: 'Only the owner adds plantings.' });
 					return;
 				}

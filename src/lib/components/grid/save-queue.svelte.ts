@@ -36,7 +36,7 @@ export function fetchApi(fetcher: typeof fetch = fetch): GridApi {
 	const call = async (url: string, method: string, body?: unknown): Promise<ApiAnswer> => {
 		const res = await fetcher(url, { method, headers: { 'content-type': 'application/json', accept: 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
 		const text = await res.text();
-		let parsed: unknown = null;
+		let parsed: unknown;
 		try {
 			parsed = text ? JSON.parse(text) : null;
 		} catch {
@@ -127,7 +127,10 @@ export class SaveQueue {
 
 	/** Sends everything queued now; resolves when it and any follow-up round are done. */
 	async flush(): Promise<void> {
-		if (this.timer) clearTimeout(this.timer), (this.timer = null);
+		if (this.timer) {
+			clearTimeout(this.timer);
+			this.timer = null;
+		}
 		if (this.running) {
 			this.again = true;
 			return this.running;

@@ -7,7 +7,7 @@ import { plantingSeed } from '$lib/varieties';
 import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
-import type { ExportPlanting, SeasonData } from './season-data';
+import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
 
 export type Cell = string | number | Date | null;

@@ -2,20 +2,21 @@
 // back to the form with every issue, a good one redirects (303) to a summary.
 import { fail, redirect, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import type { ImportIssue } from '$lib/schemas/import';
-import { requireRole } from '../guards';
+import { requireCan } from '../guards';
 import { importUpload, type ImportSummary, type PreviewSummary } from './index';
 import { applySeasonUpdate } from './season-update';
 import { drainUpload, readUpload } from './request';
+import * as seasons from '../seasons';
 
 export interface ImportFailure {
 	importMessage: string;
 	importIssues: ImportIssue[];
 }
 
-/** requireRole(event, 'owner') for an upload: a refused body is read off first (see drainUpload). */
-export async function requireOwnerForUpload(event: RequestEvent): Promise<ReturnType<typeof requireRole>> {
+/** requireCan(event, 'season.import') for an upload: a refused body is read off first (see drainUpload). */
+export async function requireOwnerForUpload(event: RequestEvent): Promise<ReturnType<typeof requireCan>> {
 	try {
-		return requireRole(event, 'owner');
+		return requireCan(event, 'season.import');
 	} catch (refusal) {
 		await drainUpload(event);
 		throw refusal;
@@ -42,6 +43,11 @@ export async function importAction(event: RequestEvent, seasonId?: number): Prom
 	const { farm, user } = await requireOwnerForUpload(event);
 	const upload = await readUpload(event, seasonId);
 	if (!upload.ok) return fail(upload.status, { importMessage: upload.message, importIssues: upload.issues });
+	// The form's seasonId is the visitor's to choose: it must be a season of their own farm.
+	if (upload.options.seasonId !== undefined && !(await seasons.get(farm.id, upload.options.seasonId))) {
+		const issue = { sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' };
+		return fail(404, { importMessage: 'Nothing was imported: no such season on this farm (seasonId).', importIssues: [issue] });
+	}
 	const outcome = await importUpload(farm.id, user.id, upload.file, upload.options);
 	if (!outcome.ok) return fail(outcome.status, { importMessage: outcome.message, importIssues: outcome.issues });
 	if ('preview' in outcome) return { preview: outcome.preview };
@@ -51,7 +57,7 @@ export async function importAction(event: RequestEvent, seasonId?: number): Prom
 
 /** The owner confirms a preview: it is written in one transaction, or refused when stale (409). */
 export async function applyAction(event: RequestEvent): Promise<ActionFailure<ImportFailure>> {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'season.import');
 	const form = await event.request.formData().catch(() => null);
 	const token = form?.get('token');
 	if (typeof token !== 'string' || token === '') return fail(400, { importMessage: 'The confirmation names no preview; upload the file again.', importIssues: [] });

@@ -27,11 +27,11 @@ export type ImportOutcome =
 	| { ok: true; summary: ImportSummary }
 	/** The season holds plantings: nothing is written until the owner confirms this preview. */
 	| { ok: true; preview: PreviewSummary }
-	| { ok: false; status: 400 | 413 | 415; message: string; issues: ImportIssue[] };
+	| { ok: false; status: 400 | 404 | 409 | 413 | 415; message: string; issues: ImportIssue[] };
 
 const fileIssue = (message: string): ImportIssue[] => [{ sheet: 'file', row: null, column: null, header: null, message }];
 
-function refuse(status: 400 | 413 | 415, issues: ImportIssue[]): ImportOutcome {
+function refuse(status: 400 | 404 | 409 | 413 | 415, issues: ImportIssue[]): ImportOutcome {
 	const shown = issues.slice(0, 3).map(describeIssue).join('; ');
 	const more = issues.length > 3 ? ` (and ${issues.length - 3} more)` : '';
 	return { ok: false, status, message: `Nothing was imported: ${shown}${more}`, issues };
@@ -55,6 +55,12 @@ async function farmLibrary(farmId: number): Promise<FarmLibrary> {
 	};
 }
 
+/** MariaDB's deadlock (1213) or lock wait timeout (1205): the transaction was rolled back whole. */
+export function isDeadlock(err: unknown): boolean {
+	const e = err as { errno?: number; code?: string } | null;
+	return !!e && (e.errno === 1213 || e.errno === 1205 || e.code === 'ER_LOCK_DEADLOCK' || e.code === 'ER_LOCK_WAIT_TIMEOUT');
+}
+
 export async function importUpload(farmId: number, userId: string, file: File, options: ImportOptions): Promise<ImportOutcome> {
 	if (file.size > IMPORT_MAX_BYTES) return refuse(413, fileIssue(`The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${IMPORT_MAX_BYTES / 1024 / 1024} MB.`));
 	if (file.size === 0) return refuse(400, fileIssue('The file is empty.'));
@@ -74,6 +80,7 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 	if (plan.plantings.length) {
 		const letters = read.sheets.plantings?.letters ?? {};
 		const season = options.seasonId !== undefined ? await seasons.get(farmId, options.seasonId) : await seasonOfYear(farmId, plan.season!.year);
+		if (options.seasonId !== undefined && !season) return refuse(404, [{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }]);
 		const bounds = season ?? { name: plan.season!.name, startsOn: plan.season!.startsOn, endsOn: plan.season!.endsOn };
 		const outside = datesOutside(plan, bounds, letters);
 		if (outside.length) return refuse(400, outside);
@@ -83,10 +90,16 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 		}
 		if (plan.dateOrder.length) return refuse(400, plan.dateOrder);
 	}
-	try {
-		return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
-	} catch (err) {
-		if (err instanceof ImportRefused) return refuse(400, err.issues);
-		throw err;
+	// Two imports into one farm at once can deadlock on its library rows: MariaDB rolls one back,
+	// which is retried once; a second deadlock answers 409 (nothing of it was written).
+	for (let attempt = 1; ; attempt++) {
+		try {
+			return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
+		} catch (err) {
+			if (err instanceof ImportRefused) return refuse(err.status, err.issues);
+			if (isDeadlock(err) && attempt === 1) continue;
+			if (isDeadlock(err)) return refuse(409, fileIssue('Another import into this farm was running at the same time; nothing of this one was written. Try again.'));
+			throw err;
+		}
 	}
 }

@@ -174,7 +174,12 @@ export function readCsv(text: string, sheet?: ImportableSheet): ReadResult {
 	if (!headerRow) return { ok: false, issues: [{ sheet: 'file', row: null, column: null, header: null, message: 'The CSV file is empty.' }] };
 	const spec = sheet ? specs.find((s) => s.name === sheet) : guessSheet(headerRow);
 	if (!spec) {
-		return { ok: false, issues: [{ sheet: 'file', row: 1, column: null, header: null, message: 'Could not tell which sheet this CSV holds; choose Crops & varieties, Beds or Plantings.' }] };
+		return { ok: false, issues: [{ sheet: 'upload', row: 1, column: null, header: 'sheet', message: 'Could not tell which sheet this CSV holds: choose Crops & varieties, Beds or Plantings (sheet).' }] };
+	}
+	// A header with nothing under it would import nothing: say so instead of "0 rows imported".
+	if (rest.every((values) => values.every((v) => v.trim() === ''))) {
+		const message = sheet ? `The CSV has a header row but no ${sheet} rows under it.` : 'The CSV has a header row but no rows under it; say which sheet it holds (sheet) and add its rows.';
+		return { ok: false, issues: [{ sheet: sheet ? spec.name : 'upload', row: null, column: null, header: sheet ? null : 'sheet', message }] };
 	}
 	const issues: ImportIssue[] = parsed.errors
 		.filter((e) => e.type !== 'Delimiter')

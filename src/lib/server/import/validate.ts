@@ -86,7 +86,9 @@ function checkSeason(sheet: RawSheet, issues: ImportIssue[]): (SeasonRows & { ro
 		}
 	}
 	const out = seasonRowsSchema.safeParse(values);
-	if (!out.success) for (const i of out.error.issues) rowOf[String(i.path[0])] && is.at(rowOf[String(i.path[0])], 'value', i.message);
+	if (!out.success) {
+		for (const i of out.error.issues) if (rowOf[String(i.path[0])]) is.at(rowOf[String(i.path[0])], 'value', i.message);
+	}
 	else if (out.data.endsOn < out.data.startsOn) is.at(rowOf.endsOn, 'value', 'Ends on is before Starts on.');
 	issues.push(...is.list);
 	return out.success && !is.list.length ? { ...out.data, row: rowOf.year } : null;

@@ -19,7 +19,10 @@ export interface ImportSummary {
 
 /** Refuses the whole import (the transaction rolls back) with issues to show. */
 export class ImportRefused extends Error {
-	constructor(public issues: ImportIssue[]) {
+	constructor(
+		public issues: ImportIssue[],
+		public status: 400 | 404 = 400
+	) {
 		super(issues.map((i) => i.message).join(' '));
 	}
 }
@@ -84,6 +87,10 @@ export async function writeBeds(trx: Knex.Transaction, farmId: number, plan: Imp
 async function targetSeason(trx: Knex.Transaction, farmId: number, plan: ImportPlan, seasonId: number | undefined): Promise<{ id: number; created: boolean }> {
 	let id = seasonId;
 	let created = false;
+	if (id !== undefined && !(await trx('seasons').where({ id, farm_id: farmId }).forUpdate().first('id'))) {
+		// Checked here too, whatever the caller did: a season of another farm never takes rows.
+		throw new ImportRefused([{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }], 404);
+	}
 	if (id === undefined) {
 		const s = plan.season!;
 		const found = await trx('seasons').where({ farm_id: farmId, year: s.year }).forUpdate().first('id');

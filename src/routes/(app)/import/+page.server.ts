@@ -1,11 +1,11 @@
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { applyAction, importAction, importedSummary, updatedSummary } from '$lib/server/import/action';
 
 // The farm-wide import: a workbook's plantings go into the season its Season sheet names,
 // created when the farm has no season of that year (so a new, empty farm can take a plan).
 export const load = (async (event) => {
-	requireRole(event, 'owner');
+	requireCan(event, 'season.import');
 	return { imported: importedSummary(event.url), updated: updatedSummary(event.url) };
 }) satisfies PageServerLoad;
 

@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import * as beds from '$lib/server/beds';
 import { bedSchema, blockSchema, farmSettingsSchema } from '$lib/schemas/farm';
@@ -11,14 +11,14 @@ function text(form: FormData): Record<string, string> {
 }
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'farm.settings');
 	const [settings, blocks, bedList] = await Promise.all([farms.get(farm.id), beds.listBlocks(farm.id), beds.list(farm.id)]);
 	return { settings, blocks, beds: bedList, welcome: event.url.searchParams.has('welcome') };
 }) satisfies PageServerLoad;
 
 export const actions = {
 	farm: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'farm.settings');
 		const values = text(await event.request.formData());
 		const parsed = farmSettingsSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { farm: { errors: fieldErrors(parsed.error), values } });
@@ -26,7 +26,7 @@ export const actions = {
 		return { farm: { saved: true } };
 	},
 	addBlock: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'farm.settings');
 		const values = text(await event.request.formData());
 		const parsed = blockSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { block: { errors: fieldErrors(parsed.error), values } });
@@ -39,7 +39,7 @@ export const actions = {
 		redirect(303, '/settings#beds');
 	},
 	saveBed: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'farm.settings');
 		const values = text(await event.request.formData());
 		const bedId = values.id ? Number(values.id) : null;
 		const key = bedId ? `bed-${bedId}` : 'bed-new';
@@ -58,7 +58,7 @@ export const actions = {
 		redirect(303, '/settings#beds');
 	},
 	deleteBed: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'farm.settings');
 		const id = Number((await event.request.formData()).get('id'));
 		if (!Number.isInteger(id) || !(await beds.remove(farm.id, id))) return fail(404, { bed: { key: `bed-${id}`, errors: { _form: 'That bed is not on this farm.' }, values: {} } });
 		redirect(303, '/settings#beds');

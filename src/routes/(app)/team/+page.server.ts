@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { listMembers } from '$lib/server/members';
 import { createInvite, listOpenInvites, revokeInvite } from '$lib/server/invites';
 import { inviteSchema } from '$lib/schemas/auth';
@@ -9,14 +9,14 @@ import { sendMail } from '$lib/server/mail';
 import { roleLabels } from '$lib/roles';
 
 export const load = (async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'team.manage');
 	const [members, invites] = await Promise.all([listMembers(farm.id), listOpenInvites(farm.id)]);
 	return { members, invites, sent: event.url.searchParams.get('sent') };
 }) satisfies PageServerLoad;
 
 export const actions = {
 	invite: async (event) => {
-		const { farm, user } = requireRole(event, 'owner');
+		const { farm, user } = requireCan(event, 'team.manage');
 		const form = Object.fromEntries(await event.request.formData());
 		const values = { email: String(form.email ?? ''), role: String(form.role ?? '') };
 		const parsed = inviteSchema.safeParse(form);
@@ -38,7 +38,7 @@ export const actions = {
 		redirect(303, `/team?sent=${encodeURIComponent(parsed.data.email)}`);
 	},
 	revoke: async (event) => {
-		const { farm } = requireRole(event, 'owner');
+		const { farm } = requireCan(event, 'team.manage');
 		await revokeInvite(farm.id, Number((await event.request.formData()).get('id')));
 		redirect(303, '/team');
 	}

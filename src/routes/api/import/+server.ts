@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole, type Viewer } from '$lib/server/guards';
+import { requireCan, type Viewer } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
 import { importUpload } from '$lib/server/import';
 import { drainUpload, readUpload } from '$lib/server/import/request';
@@ -16,7 +16,7 @@ import { drainUpload, readUpload } from '$lib/server/import/request';
 export const POST: RequestHandler = async (event) => {
 	let viewer: Viewer;
 	try {
-		viewer = requireRole(event, 'owner');
+		viewer = requireCan(event, 'season.import');
 	} catch (refusal) {
 		await drainUpload(event);
 		throw refusal;

@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { applySeasonUpdate } from '$lib/server/import/season-update';
 
 const body = z.object({ token: z.string({ error: 'token is required.' }).min(1, 'token is required.').max(100) }).strict();
@@ -12,7 +12,7 @@ const body = z.object({ token: z.string({ error: 'token is required.' }).min(1, 
  * 409 when the season changed after the preview was made (nothing is written).
  */
 export const POST: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'season.import');
 	const parsed = body.safeParse(await event.request.json().catch(() => null));
 	if (!parsed.success) return json({ message: parsed.error.issues[0].message, errors: { token: parsed.error.issues[0].message } }, { status: 400 });
 	const out = await applySeasonUpdate(farm.id, user.id, parsed.data.token);

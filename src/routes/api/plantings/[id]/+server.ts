@@ -1,9 +1,9 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody } from '$lib/server/api';
 import { remove, update } from '$lib/server/plantings';
-import { plantingPatchSchema } from '$lib/schemas/planting';
+import { plantingPatchSchema, recordFieldsInWords } from '$lib/schemas/planting';
 
 function plantingId(raw: string): number {
 	const id = Number(raw);
@@ -14,7 +14,7 @@ function plantingId(raw: string): number {
 /** An edit made on `version`. Stale: 409 with the row as it stands and who saved it. */
 export const PATCH: RequestHandler = async (event) => {
 	// The share manager reads the plan; owner and crew lead edit (the crew lead only its own fields).
-	const { user, farm } = requireRole(event, 'owner', 'crew_lead');
+	const { user, farm } = requireCan(event, 'planting.record');
 	const id = plantingId(event.params.id);
 	const body = await parseBody(event, plantingPatchSchema);
 	if (!body.ok) return body.response;
@@ -26,7 +26,7 @@ export const PATCH: RequestHandler = async (event) => {
 			error(404, 'No such planting on this farm.');
 		// falls through never: error() throws
 		case 'forbidden':
-			return json({ message: `A crew lead may change only status, actual dates and notes; not ${r.fields.join(', ')}.`, fields: r.fields }, { status: 403 });
+			return json({ message: `A crew lead may change only ${recordFieldsInWords}; not ${r.fields.join(', ')}.`, fields: r.fields }, { status: 403 });
 		case 'invalid':
 			return json({ message: `Invalid input: ${Object.entries(r.errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: r.errors }, { status: 400 });
 		case 'conflict':
@@ -43,7 +43,7 @@ export const PATCH: RequestHandler = async (event) => {
 
 /** Removes a planting. Undo is the grid POSTing the row it still holds back as a new row. */
 export const DELETE: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'plan.edit');
 	const removed = await remove(farm.id, plantingId(event.params.id));
 	if (!removed) error(404, 'No such planting on this farm.');
 	if (removed === 'has_harvests') return json({ message: 'This planting has harvests logged; mark it finished or failed instead of removing it.' }, { status: 409 });

@@ -1,6 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
 import { createSwap, matching, undoSwap } from '$lib/server/boxes';
 import { swapSchema } from '$lib/schemas/forecast';
@@ -9,7 +10,7 @@ import { fieldErrors } from '$lib/schemas/common';
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { matching: await matching(farm.id, season), canSwap: farm.role === 'owner' || farm.role === 'share_manager' };
+	return { matching: await matching(farm.id, season), canSwap: can(farm.role, 'boxes.swap') };
 }) satisfies PageServerLoad;
 
 // Back to the same view (filter kept) after a swap or an undo.
@@ -17,7 +18,7 @@ const back = (url: URL): string => url.pathname + (url.searchParams.get('show') 
 
 export const actions = {
 	swap: async (event) => {
-		const { farm, user } = requireRole(event, 'share_manager', 'owner');
+		const { farm, user } = requireCan(event, 'boxes.swap');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
 		const parsed = swapSchema.safeParse(values);
@@ -27,7 +28,7 @@ export const actions = {
 		redirect(303, back(event.url));
 	},
 	undo: async (event) => {
-		const { farm, user } = requireRole(event, 'share_manager', 'owner');
+		const { farm, user } = requireCan(event, 'boxes.swap');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const id = Number((await event.request.formData()).get('swapId'));
 		const result = Number.isInteger(id) && id > 0 ? await undoSwap(farm.id, season.id, id, user.id) : 'missing';

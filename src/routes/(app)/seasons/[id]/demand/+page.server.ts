@@ -1,12 +1,11 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
 import * as demand from '$lib/server/demand';
 import { importDemand, uploadFromForm, MAX_UPLOAD_BYTES } from '$lib/server/import/demand';
 import { cellErrorsToInputs, gridFields, shareFields, text } from './form-input';
-
-const editors = ['owner', 'share_manager'] as const;
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
@@ -18,7 +17,7 @@ export const load = (async (event) => {
 		demand: view,
 		grid: wanted && grids.includes(wanted) ? wanted : grids[0],
 		span: demand.seasonWeekSpan(season),
-		canEdit: (editors as readonly string[]).includes(farm.role),
+		canEdit: can(farm.role, 'demand.edit'),
 		maxUploadKb: MAX_UPLOAD_BYTES / 1024
 	};
 }) satisfies PageServerLoad;
@@ -35,7 +34,7 @@ async function attempt(key: string, values: Record<string, unknown>, work: () =>
 }
 
 async function editing(event: RequestEvent) {
-	const { farm } = requireRole(event, ...editors);
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	return { farm, season, form: await event.request.formData() };
 }
@@ -83,7 +82,7 @@ export const actions = {
 		redirect(303, back(event, grid));
 	},
 	upload: async (event) => {
-		const { farm } = requireRole(event, ...editors);
+		const { farm } = requireCan(event, 'demand.edit');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const form = await uploadFromForm(event.request);
 		if (!form.ok) return fail(400, { upload: { errors: [{ row: 0, column: form.field, message: form.message }] } });

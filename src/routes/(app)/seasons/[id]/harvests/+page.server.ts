@@ -1,6 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
 import { listMembers } from '$lib/server/members';
@@ -29,13 +30,13 @@ export const load = (async (event) => {
 		members: members.map((m) => ({ id: m.userId, name: m.name })),
 		audit,
 		me: user.id,
-		canWrite: farm.role === 'owner' || farm.role === 'crew_lead'
+		canWrite: can(farm.role, 'harvests.log')
 	};
 }) satisfies PageServerLoad;
 
 export const actions = {
 	log: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const values = text(await event.request.formData());
 		const parsed = harvestSchema.safeParse(values);
@@ -45,7 +46,7 @@ export const actions = {
 		redirect(303, `/seasons/${season.id}/harvests?logged=${out.value[0].id}`);
 	},
 	sheet: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const values = text(await event.request.formData());
 		const { records, rowOf, errors } = sheetRows(values);
@@ -55,7 +56,7 @@ export const actions = {
 		redirect(303, `/seasons/${season.id}/harvests?saved=${out.value.length}`);
 	},
 	edit: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const { id, ...values } = text(await event.request.formData());
 		const key = `edit-${id}`;
@@ -66,7 +67,7 @@ export const actions = {
 		redirect(303, `/seasons/${season.id}/harvests?edited=${id}`);
 	},
 	delete: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const id = Number((await event.request.formData()).get('id'));
 		if (!Number.isInteger(id) || !(await harvests.remove(farm.id, season.id, id, user.id))) return fail(404, { edit: { key: `edit-${id}`, errors: { _form: 'No such harvest record in this season.' }, values: {} } });

@@ -2,13 +2,13 @@
 // of what the frost, heat and rotation checks found; 409 when that year's season exists.
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { copySeason } from '$lib/server/season-copy';
 import { z } from 'zod';
 
 export const POST = (async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'season.copy');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	// No options yet; an empty object keeps the door open and refuses stray fields.
 	const parsed = await parseBody(event, z.strictObject({}));

@@ -2,7 +2,7 @@
 // record, or a batch `{ records: [...] }` from the keyboard table, all or none (crew lead, owner).
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
 import { harvestBatchSchema, harvestSchema } from '$lib/schemas/harvest';
@@ -16,7 +16,7 @@ export const GET = (async (event) => {
 }) satisfies RequestHandler;
 
 export const POST = (async (event) => {
-	const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+	const { farm, user } = requireCan(event, 'harvests.log');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	// A batch is told apart by its `records` list; anything else is one record.
 	const peek = await event.request.clone().text();

@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { create, gridContext, listForSeason } from '$lib/server/plantings';
 import { editableFields, plantingBatchSchema } from '$lib/schemas/planting';
@@ -15,7 +15,7 @@ export const GET: RequestHandler = async (event) => {
 
 /** New rows: `{ plantings: [...] }`, one or a whole paste; all are written or none. */
 export const POST: RequestHandler = async (event) => {
-	const { user, farm } = requireRole(event, 'owner');
+	const { user, farm } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, plantingBatchSchema);
 	if (!body.ok) return body.response;

@@ -1,6 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
+import { can } from '$lib/permissions';
 import * as farms from '$lib/server/farms';
 import { addWeeks } from '$lib/planning';
 import { todayIn } from '$lib/today';
@@ -16,7 +17,7 @@ import { markTaskDone } from '$lib/server/tasks';
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
-	const canMark = farm.role === 'owner' || farm.role === 'crew_lead';
+	const canMark = can(farm.role, 'tasks.mark');
 	const [settings, sheet, crew] = await Promise.all([
 		farms.get(farm.id),
 		weekSheet(farm.id, ctx.season.id, ctx.week, ctx.monday, ctx.sunday),
@@ -37,7 +38,7 @@ export const load = (async (event) => {
 
 export const actions = {
 	done: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'tasks.mark');
 		const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
 		const form = Object.fromEntries(await event.request.formData());
 		const plantingId = Number(form.plantingId);
@@ -52,7 +53,7 @@ export const actions = {
 		redirect(303, event.url.pathname);
 	},
 	email: async (event) => {
-		const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+		const { farm, user } = requireCan(event, 'tasks.mark');
 		const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
 		const form = await event.request.formData();
 		const values = { team: form.get('team') === 'on', extra: String(form.get('extra') ?? '') };

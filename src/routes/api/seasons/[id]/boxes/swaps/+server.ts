@@ -3,13 +3,13 @@
 // Share manager or owner; 201 with the swap's id.
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { createSwap } from '$lib/server/boxes';
 import { swapSchema } from '$lib/schemas/forecast';
 
 export const POST: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'share_manager', 'owner');
+	const { farm, user } = requireCan(event, 'boxes.swap');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, swapSchema);
 	if (!body.ok) return body.response;

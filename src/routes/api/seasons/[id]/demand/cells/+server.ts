@@ -1,14 +1,14 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { saveCells } from '$lib/server/demand';
 import { respond } from '../respond';
 
 /** Sets cells of one grid ({ grid, cells: [{ crop, week, quantity, unit }] }); all or none. */
 export const PATCH: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, z.unknown());
 	if (!body.ok) return body.response;

@@ -1,14 +1,14 @@
 import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { copyWeek } from '$lib/server/demand';
 import { respond } from '../respond';
 
 /** Copies one week of a grid onto a range of weeks ({ grid, fromWeek, toFirst, toLast }). */
 export const POST: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, z.unknown());
 	if (!body.ok) return body.response;

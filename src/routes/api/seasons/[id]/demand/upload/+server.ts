@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
 import { importDemand, uploadFromForm } from '$lib/server/import/demand';
 
 /** A multipart upload (field `file`, optional `mode` merge|replace); all rows or none. */
 export const POST: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const form = await uploadFromForm(event.request);
 	if (!form.ok) return json({ message: form.message, errors: { [form.field]: form.message }, rows: [] }, { status: 400 });

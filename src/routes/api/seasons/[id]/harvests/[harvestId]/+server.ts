@@ -2,7 +2,7 @@
 // delete is kept in the audit trail with the values before and after.
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole, requireUser } from '$lib/server/guards';
+import { requireCan, requireUser } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
 import { harvestPatchSchema } from '$lib/schemas/harvest';
@@ -22,7 +22,7 @@ export const GET = (async (event) => {
 }) satisfies RequestHandler;
 
 export const PATCH = (async (event) => {
-	const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+	const { farm, user } = requireCan(event, 'harvests.log');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const id = idOf(event.params.harvestId);
 	const parsed = await parseBody(event, harvestPatchSchema);
@@ -33,7 +33,7 @@ export const PATCH = (async (event) => {
 }) satisfies RequestHandler;
 
 export const DELETE = (async (event) => {
-	const { farm, user } = requireRole(event, 'owner', 'crew_lead');
+	const { farm, user } = requireCan(event, 'harvests.log');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	if (!(await harvests.remove(farm.id, season.id, idOf(event.params.harvestId), user.id))) error(404, 'No such harvest record in this season.');
 	return new Response(null, { status: 204 });

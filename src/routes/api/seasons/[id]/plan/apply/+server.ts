@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { planRequestSchema } from '$lib/schemas/plan';
 import { apply } from '$lib/server/plan';
 
 /** Replaces the season's planned plantings with the engine's plan, in one transaction. */
 export const POST: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'owner');
+	const { farm, user } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;

@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { planRequestSchema } from '$lib/schemas/plan';
 import { preview } from '$lib/server/plan';
 
 /** Runs the engine on the season's targets and returns the proposal; writes nothing. */
 export const POST: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner');
+	const { farm } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;

@@ -2,12 +2,12 @@
 // Share manager or owner; 204, 404 for no such swap on this farm, 409 when already undone.
 import { error } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
 import { undoSwap } from '$lib/server/boxes';
 
 export const DELETE: RequestHandler = async (event) => {
-	const { farm, user } = requireRole(event, 'share_manager', 'owner');
+	const { farm, user } = requireCan(event, 'boxes.swap');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const swapId = Number(event.params.swapId);
 	const result = Number.isInteger(swapId) && swapId > 0 ? await undoSwap(farm.id, season.id, swapId, user.id) : 'missing';

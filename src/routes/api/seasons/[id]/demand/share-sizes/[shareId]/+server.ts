@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import type { RequestHandler } from './$types';
-import { requireRole } from '$lib/server/guards';
+import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { removeShareSize, updateShareSize } from '$lib/server/demand';
 import { respond } from '../../respond';
@@ -14,7 +14,7 @@ function shareId(raw: string): number {
 
 /** Replaces a share size's fields (all of them, as in the add form). */
 export const PUT: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const id = shareId(event.params.shareId);
 	const body = await parseBody(event, z.unknown());
@@ -28,7 +28,7 @@ export const PUT: RequestHandler = async (event) => {
 
 /** Removes a share size and its box contents. */
 export const DELETE: RequestHandler = async (event) => {
-	const { farm } = requireRole(event, 'owner', 'share_manager');
+	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	if (!(await removeShareSize(farm.id, season.id, shareId(event.params.shareId)))) error(404, 'No such share size in this season.');
 	return new Response(null, { status: 204 });
