@@ -5,6 +5,7 @@ import { runForecastBench } from './bench-forecast';
 import { runGridBench } from './bench-grid';
 import { runTimelineBench } from './bench-timeline';
 import { runExportBench } from './bench-export';
+import { runImportBench } from './bench-import';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runImportBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

@@ -53,6 +53,7 @@ export const accessTable: AccessRow[] = [
 	{ key: '(app) page', url: () => '/', expect: ownFarmPage },
 	{ key: '(app)/calendar page', url: () => '/calendar', expect: ownFarmPage },
 	{ key: '(app)/calendar action:create', url: () => '/calendar?/create', expect: { anon: 303, owner: 200, crew: 200, share: 200, other: 200 }, why: "each member's own feed" },
+	{ key: '(app)/calendar action:seasons', url: () => '/calendar?/seasons', expect: { anon: 303, owner: 400, crew: 400, share: 400, other: 400 }, why: "each member's own feed; an empty choice is a 400" },
 	{ key: '(app)/calendar action:revoke', url: () => '/calendar?/revoke', expect: all(303), why: "each member's own feed" },
 	{ key: '(app)/crops page', url: () => '/crops', expect: ownFarmPage },
 	{ key: '(app)/dev/mail page', url: () => '/dev/mail', expect: ownerOnlyPage, why: 'demo mode only; lists the viewer farm’s own mail' },

@@ -242,7 +242,8 @@ describe('printing the workbooks (LibreOffice to PDF, read back with pdftotext)'
 		}
 		// The workbook keeps its filters through a LibreOffice save (the names it needs are there).
 		const book = await zipText(readFileSync(file('edited.xlsx')), 'xl/workbook.xml');
-		expect(book).toMatch(/<definedName [^>]*name="_xlnm._FilterDatabase"[^>]*localSheetId="1"/);
+		const names = [...book.matchAll(/<definedName\b[^>]*>/g)].map((m) => m[0]);
+		expect(names.some((n) => n.includes('name="_xlnm._FilterDatabase"') && n.includes('localSheetId="1"'))).toBe(true);
 		expect(await sheetXml(readFileSync(file('edited.xlsx')), 'Plantings')).toMatch(/<autoFilter ref="A1:[A-Z]+\d+"/);
 	});
 

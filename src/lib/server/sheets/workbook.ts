@@ -116,9 +116,9 @@ export async function weekWorkbook(sheet: WeekSheet, title: string, farmName = '
 				row.height = 20;
 			}
 		}
+		// The first page says which kinds have nothing this week (they get no sheet).
 		if (section === busy[0] && empty.length) {
-			ws.addRow([]);
-			ws.addRow([`Nothing this week for ${empty.join(', ')}: no sheet for ${empty.length === 1 ? 'it' : 'them'}.`]);
+			ws.headerFooter.oddFooter = `&L${headerText(`Nothing this week for ${empty.join(', ')}: no sheet for ${empty.length === 1 ? 'it' : 'them'}.`)}&RPage &P of &N`;
 		}
 	}
 	return Buffer.from(await wb.xlsx.writeBuffer());
