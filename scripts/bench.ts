@@ -6,6 +6,17 @@ import { runGridBench } from './bench-grid';
 import { runTimelineBench } from './bench-timeline';
 import { runExportBench } from './bench-export';
 import { runImportBench } from './bench-import';
+import { runApiBench } from './bench-api';
+import { runPlanBench } from './bench-plan';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runImportBench()) };
+const results: Record<string, number> = {
+	...(await runEngineBench()),
+	...(await runPlanBench()),
+	...(await runForecastBench()),
+	...(await runGridBench()),
+	...(await runTimelineBench()),
+	...(await runExportBench()),
+	...(await runImportBench()),
+	...(await runApiBench())
+};
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

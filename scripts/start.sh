@@ -37,6 +37,8 @@ cat <<MSG
   sign in as the owner and open "Mail (dev)". Stop with Ctrl-C or npm stop.
 
 MSG
-ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-6M}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" node "$FC_BUILD_DIR" &
-echo $! >"$FC_PID_DIR/app-$FC_PORT.pid"
-wait "$(cat "$FC_PID_DIR/app-$FC_PORT.pid")" || true
+# The app server runs under a supervisor that starts it again if it dies; MariaDB and the mail
+# fake run in sessions of their own, so the app's exit never takes them down. Only Ctrl-C or
+# npm stop ends the supervisor, and then this script stops everything it started.
+ORIGIN="${ORIGIN:-http://$FC_HOST:$FC_PORT}" BODY_SIZE_LIMIT="${BODY_SIZE_LIMIT:-6M}" HOST="$FC_HOST" PORT="$FC_PORT" SHUTDOWN_TIMEOUT="${SHUTDOWN_TIMEOUT:-3}" \
+	bash scripts/supervise.sh "$FC_PID_DIR/app-$FC_PORT.pid" -- node scripts/serve.js "$FC_BUILD_DIR" || true

@@ -4,6 +4,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { lucia, cookieIsSecure, clearSessionCookie, closeSessions } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
 import { resolveMembership } from '$lib/server/members';
+import { databaseUnavailable, handleDatabaseError } from '$lib/server/unavailable';
 
 const session: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
@@ -28,15 +29,24 @@ const session: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+// scripts/serve.js sets these on every response (static files too); they are repeated here for
+// `vite dev` and `vite preview`. Pages get their Content-Security-Policy from kit.csp.
+// Everything the app itself answers (pages, JSON, downloads) may hold a farm's data: no cache,
+// shared or private, may keep it, unless the route chose its own Cache-Control.
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Frame-Options', 'DENY');
+	if (!response.headers.has('Content-Security-Policy')) response.headers.set('Content-Security-Policy', "default-src 'none'; frame-ancestors 'none'");
+	if (!response.headers.has('Cache-Control')) response.headers.set('Cache-Control', 'no-store');
 	return response;
 };
 
-export const handle = sequence(session, securityHeaders);
+export const handle = sequence(databaseUnavailable, session, securityHeaders);
+
+// A database that cannot be reached is a 503 with Retry-After, not a 500 (src/lib/server/unavailable.ts).
+export const handleError = handleDatabaseError;
 
 // adapter-node emits this once the HTTP server has closed: end the database pools so the
 // process exits instead of idling on open connections.

@@ -16,6 +16,7 @@ export const seasonTabs: readonly SeasonTab[] = [
 	{ path: 'plantings', label: 'Planting grid', action: 'plan.read' },
 	{ path: 'beds', label: 'Bed timeline', action: 'plan.read' },
 	{ path: 'demand', label: 'Demand', action: 'plan.read' },
+	{ path: 'plan', label: 'Plan', action: 'plan.read' },
 	{ path: 'forecast', label: 'Forecast', action: 'plan.read' },
 	{ path: 'boxes', label: 'Share boxes', action: 'plan.read' },
 	{ path: 'week', label: 'Crew sheets', action: 'plan.read' },

@@ -83,6 +83,7 @@ export const accessTable: AccessRow[] = [
 	{ key: '(app)/seasons/[id]/demand action:saveGrid', url: (f) => `/seasons/${S(f)}/demand?/saveGrid`, expect: action(['owner', 'share']) },
 	{ key: '(app)/seasons/[id]/demand action:copyWeek', url: (f) => `/seasons/${S(f)}/demand?/copyWeek`, expect: action(['owner', 'share']) },
 	{ key: '(app)/seasons/[id]/demand action:upload', url: (f) => `/seasons/${S(f)}/demand?/upload`, expect: action(['owner', 'share']) },
+	{ key: '(app)/seasons/[id]/plan page', url: (f) => `/seasons/${S(f)}/plan`, expect: everyMemberSeasonPage },
 	{ key: '(app)/seasons/[id]/forecast page', url: (f) => `/seasons/${S(f)}/forecast`, expect: everyMemberSeasonPage },
 	{ key: '(app)/seasons/[id]/harvests page', url: (f) => `/seasons/${S(f)}/harvests`, expect: everyMemberSeasonPage },
 	{ key: '(app)/seasons/[id]/harvests action:log', url: (f) => `/seasons/${S(f)}/harvests?/log`, expect: action(['owner', 'crew']) },
@@ -190,6 +191,13 @@ export const accessTable: AccessRow[] = [
 		url: (f, who) => `/api/seasons/${who === 'owner' ? f.scratchSeasonId : S(f)}/plan/apply`,
 		expect: api(['owner'], 200),
 		why: 'applies to the empty scratch season for the owner'
+	},
+	{ key: 'api/seasons/[id]/plan GET', url: (f) => `/api/seasons/${S(f)}/plan`, expect: everyMemberApi },
+	{
+		key: 'api/seasons/[id]/plan/undo POST',
+		url: (f, who) => `/api/seasons/${who === 'owner' ? f.scratchSeasonId : S(f)}/plan/undo`,
+		expect: { ...api(['owner'], 200), owner: [200, 409] },
+		why: "the owner undoes on the scratch season: 200 after the apply row's apply, 409 when there is nothing to undo"
 	},
 	{ key: 'api/seasons/[id]/plan/preview POST', url: (f) => `/api/seasons/${S(f)}/plan/preview`, expect: api(['owner'], 200) },
 	{ key: 'api/seasons/[id]/plantings GET', url: (f) => `/api/seasons/${S(f)}/plantings`, expect: everyMemberApi },

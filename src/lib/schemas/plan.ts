@@ -18,3 +18,8 @@ export const planRequestSchema = z
 	.strict();
 
 export type PlanRequest = z.infer<typeof planRequestSchema>;
+
+/** An apply may carry the fingerprint of the preview it was made from; a stale one is refused (409). */
+export const applyRequestSchema = planRequestSchema
+	.extend({ fingerprint: z.string().regex(/^[0-9a-f]{32}$/, 'fingerprint must be the one a preview returned.').optional() })
+	.strict();

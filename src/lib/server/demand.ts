@@ -6,7 +6,7 @@ import type { Knex } from 'knex';
 import { isoWeek, weeksBetween } from '$lib/planning/iso-week';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import { cellSchema, cellsSchema, copyWeekSchema, gridSchema, shareSizeSchema, type Channel, type GridKey, type HarvestUnit, type ShareSizeInput } from '$lib/schemas/demand';
-import type { Season } from './seasons';
+import { markDemandChanged, type Season } from './seasons';
 
 export async function targetInput(farmId: number, seasonId: number): Promise<TargetInput> {
 	const [shares, items, channels] = await Promise.all([
@@ -145,6 +145,7 @@ export async function createShareSize(farmId: number, season: Season, raw: unkno
 	const input = parseShare(raw, season);
 	try {
 		const [id] = await db()('share_sizes').insert({ farm_id: farmId, season_id: season.id, ...shareRow(input) });
+		await markDemandChanged(farmId, season.id);
 		return (await listShareSizes(farmId, season.id)).find((s) => s.id === id)!;
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
@@ -158,6 +159,7 @@ export async function updateShareSize(farmId: number, season: Season, id: number
 	try {
 		const n = await db()('share_sizes').where({ id, farm_id: farmId, season_id: season.id }).update(shareRow(input));
 		if (n === 0) return null;
+		await markDemandChanged(farmId, season.id);
 	} catch (e) {
 		if (isDuplicate(e)) throw new DemandInputError({ name: `This season already has a share size named ${input.name}.` }, 409);
 		throw e;
@@ -167,7 +169,9 @@ export async function updateShareSize(farmId: number, season: Season, id: number
 
 /** Removes a share size and its box contents (the foreign key cascades). */
 export async function removeShareSize(farmId: number, seasonId: number, id: number): Promise<boolean> {
-	return (await db()('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
+	const removed = (await db()('share_sizes').where({ id, farm_id: farmId, season_id: seasonId }).delete()) > 0;
+	if (removed) await markDemandChanged(farmId, seasonId);
+	return removed;
 }
 
 export interface GridTarget {
@@ -233,6 +237,7 @@ export async function writeGrids(farmId: number, seasonId: number, writes: GridW
 			await trx('channel_demand').where({ farm_id: farmId, season_id: seasonId }).delete();
 		}
 		for (const w of writes) await writeGrid(trx, farmId, seasonId, w);
+		await markDemandChanged(farmId, seasonId, trx);
 	});
 }
 

@@ -7,6 +7,8 @@ export interface Farm {
 	timeZone: string;
 	latitude: number;
 	unitSystem: 'imperial' | 'metric';
+	/** ISO 4217 code; money is stored in its minor unit (cents). */
+	currency?: string;
 	lastSpringFrost: string;
 	firstFallFrost: string;
 	bedFootIncrement: number;
@@ -22,6 +24,7 @@ export async function get(farmId: number): Promise<Farm> {
 		timeZone: r.time_zone,
 		latitude: Number(r.latitude),
 		unitSystem: r.unit_system,
+		currency: r.currency ?? 'USD',
 		lastSpringFrost: r.last_spring_frost,
 		firstFallFrost: r.first_fall_frost,
 		bedFootIncrement: r.bed_foot_increment,
@@ -35,6 +38,7 @@ export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<v
 		time_zone: input.timeZone,
 		latitude: input.latitude,
 		unit_system: input.unitSystem,
+		...(input.currency ? { currency: input.currency } : {}),
 		last_spring_frost: input.lastSpringFrost,
 		first_fall_frost: input.firstFallFrost,
 		bed_foot_increment: input.bedFootIncrement,
@@ -46,4 +50,10 @@ export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<v
 export async function weeklyTemps(farmId: number): Promise<Record<number, number>> {
 	const rows: { week_number: number; mean_temp_f: number }[] = await db()('farm_weekly_temps').where({ farm_id: farmId }).select('week_number', 'mean_temp_f');
 	return Object.fromEntries(rows.map((r) => [r.week_number, Number(r.mean_temp_f)]));
+}
+
+/** What the farm chose for display: unit system, currency and time zone. */
+export async function displayPrefs(farmId: number): Promise<import('$lib/format').DisplayPrefs> {
+	const r = await db()('farms').where({ id: farmId }).first('unit_system', 'currency', 'time_zone');
+	return { unitSystem: r?.unit_system === 'metric' ? 'metric' : 'imperial', currency: r?.currency ?? 'USD', timeZone: r?.time_zone ?? 'UTC' };
 }

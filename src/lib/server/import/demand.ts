@@ -52,10 +52,14 @@ async function readXlsx(bytes: ArrayBuffer): Promise<RawRow[]> {
 	}));
 }
 
+/** Undoes toCsv's formula escape, so a downloaded file uploads again unchanged. */
+const escapedFormula = /^'(?=[=+\-@\t\r])/;
+
 function readCsv(text: string): { rows: RawRow[]; errors: UploadError[] } {
 	const out = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: false });
 	const errors = out.errors.map((e) => ({ row: (e.row ?? 0) + 1, column: '(row)', message: `The CSV could not be read here: ${e.message}.` }));
-	return { rows: out.data.map((cells, i) => ({ row: i + 1, cells: cells.map((c) => String(c ?? '').trim()) })), errors };
+	const cell = (c: unknown): string => String(c ?? '').replace(escapedFormula, '').trim();
+	return { rows: out.data.map((cells, i) => ({ row: i + 1, cells: cells.map(cell) })), errors };
 }
 
 /** Reads the file into rows of text; the header row is checked against the layout. */
@@ -168,8 +172,10 @@ export function demandRows(view: DemandView): string[][] {
 	return rows;
 }
 
+/** Cells that would start a formula (= + - @, tab, CR) get a leading `'`, so a spreadsheet program
+ *  opening the file shows the text instead of running it (OWASP: CSV injection). */
 export function toCsv(rows: string[][]): string {
-	return Papa.unparse({ fields: [...uploadColumns], data: rows }, { newline: '\r\n' }) + '\r\n';
+	return Papa.unparse({ fields: [...uploadColumns], data: rows }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
 }
 
 export async function toXlsx(rows: string[][]): Promise<Buffer> {

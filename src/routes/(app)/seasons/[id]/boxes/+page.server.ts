@@ -6,11 +6,13 @@ import { seasonFromParams } from '$lib/server/api';
 import { createSwap, matching, undoSwap } from '$lib/server/boxes';
 import { swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
+import { planFreshness } from '$lib/server/seasons';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { matching: await matching(farm.id, season), canSwap: can(farm.role, 'boxes.swap') };
+	const [boxes, freshness] = await Promise.all([matching(farm.id, season), planFreshness(farm.id, season.id)]);
+	return { matching: boxes, freshness, canSwap: can(farm.role, 'boxes.swap') };
 }) satisfies PageServerLoad;
 
 // Back to the same view (filter kept) after a swap or an undo.

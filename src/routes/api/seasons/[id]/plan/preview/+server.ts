@@ -4,13 +4,21 @@ import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { planRequestSchema } from '$lib/schemas/plan';
 import { preview } from '$lib/server/plan';
+import { planFingerprint } from '$lib/server/plan-history';
+import { describePreview } from '$lib/server/plan-screen';
 
-/** Runs the engine on the season's targets and returns the proposal; writes nothing. */
+/**
+ * Runs the engine on the season's targets and returns the proposal; writes nothing. `fingerprint`
+ * names the state it was made from (send it back with apply); `changes` is what the plan screen lists.
+ */
 export const POST: RequestHandler = async (event) => {
 	const { farm } = requireCan(event, 'plan.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;
+	// Taken before the run: if anything moves meanwhile, the apply from this preview is refused.
+	const fingerprint = await planFingerprint(farm.id, season.id);
 	const result = await preview(farm.id, season, body.data);
-	return json({ season, kept: result.kept, replaced: result.replaced, ...result.plan, names: result.names });
+	const changes = await describePreview(farm.id, season, result);
+	return json({ season, kept: result.kept, replaced: result.replaced, ...result.plan, names: result.names, fingerprint, changes });
 };
