@@ -81,6 +81,10 @@ export interface VarietyView {
 	cellsPerTray: number;
 	margin: number;
 	gddToMaturity: number | null;
+	/** Archived varieties (or varieties of an archived crop) stay for history but are left out of new plans. */
+	archived?: boolean;
+	/** Where the variety's figures come from (handbook, extension guide, own records). */
+	source?: string | null;
 	/** How the yield spreads over the harvest window: the variety's, else the crop's (default flat). */
 	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
 	/** Days between cuts, for a curve of several cuts (null: the engine's default). */

@@ -13,12 +13,12 @@ function signUpFields(email: string): Record<string, string> {
 }
 
 describe('sign-up', () => {
-	it('creates a farm and its owner, signs them in, and lands on settings', async () => {
+	it('creates a farm and its owner, signs them in, and lands on the set-up path', async () => {
 		const email = uniqueEmail('signup');
 		const client = new Client();
 		const res = await client.postForm('/signup', signUpFields(email));
 		expect(res.status).toBe(303);
-		expect(res.headers.get('location')).toBe('/settings?welcome=1');
+		expect(res.headers.get('location')).toBe('/setup');
 		const user = await testDb()('users').where({ email }).first();
 		expect(user).toBeTruthy();
 		expect(user.password_hash).toMatch(/^\$argon2id\$/);

@@ -93,7 +93,8 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},
-		varieties: [...engineVarieties.values()],
+		// Archived varieties keep their plantings (kept ones still use their curves above) but are offered to no new plan.
+		varieties: varieties.filter((v) => !v.archived).map((v) => engineVarieties.get(String(v.id))!),
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,

@@ -23,6 +23,6 @@ export const actions = {
 			if (error instanceof DuplicateEmailError) return fail(400, { errors: { email: error.message } as FieldErrors, values });
 			throw error;
 		}
-		redirect(303, '/settings?welcome=1');
+		redirect(303, '/setup');
 	}
 } satisfies Actions;
