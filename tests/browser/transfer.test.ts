@@ -61,7 +61,7 @@ describe('export and re-import through the pages', () => {
 		await page.getByLabel('Latitude (° N, negative for south)').fill('42.5');
 		await page.getByLabel('Last spring frost').fill('2027-05-10');
 		await page.getByLabel('First fall frost').fill('2027-10-05');
-		await Promise.all([page.waitForURL(/\/settings/), page.getByRole('button', { name: /sign up|create/i }).click()]);
+		await Promise.all([page.waitForURL(/\/(settings|setup)/), page.getByRole('button', { name: /sign up|create/i }).click()]);
 
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' }).click();
 		await page.waitForURL(/\/import$/);
