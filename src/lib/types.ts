@@ -1,39 +1,25 @@
 // Shapes shared by the server and the browser (no server code here).
+import type { PlantingValues } from '$lib/plantings/fields';
 
 /** A planting with its variety, crop and bed joined in, as pages and the API show it. */
-export interface PlantingView {
+export interface PlantingView extends PlantingValues {
 	id: number;
 	seasonId: number;
-	varietyId: number;
 	variety: string;
 	crop: string;
 	family: string;
 	harvestUnit: string;
-	bedId: number | null;
 	bed: string | null;
 	block: string | null;
 	blockPosition: number | null;
 	bedPosition: number | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: 'direct' | 'transplant';
+	/** Worked out by the engine on every save (plantings/derive.ts). */
 	traySowDate: string | null;
-	fieldDate: string;
 	firstHarvest: string;
 	lastHarvest: string;
 	expectedYield: number;
 	seedsNeeded: number;
-	status: string;
-	notes: string | null;
 	version: number;
-	/** Added for the planting grid; optional so older callers need not fill them. */
-	actualTraySowDate?: string | null;
-	actualFieldDate?: string | null;
-	actualFirstHarvest?: string | null;
-	actualLastHarvest?: string | null;
 	/** Who saved the current version, and when (ISO timestamp). */
 	updatedBy?: string | null;
 	updatedAt?: string | null;

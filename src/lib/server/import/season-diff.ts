@@ -5,7 +5,7 @@
 // left out. New and changed plantings go through the grid's derivation (deriveRow), so tray
 // sowing, harvest dates, expected yield and seeds needed follow the edited figures.
 import type { ImportIssue, PlantingRow } from '$lib/schemas/import';
-import { deriveRow, type GridFarm } from '$lib/components/grid/engine';
+import { deriveRow, type GridFarm } from '$lib/plantings/derive';
 import type { VarietyView } from '$lib/types';
 import { plantingsSheet } from '../export/layout';
 import type { ValidRow } from './validate';
