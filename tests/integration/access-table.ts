@@ -100,7 +100,10 @@ export const accessTable: AccessRow[] = [
 	{ key: '(app)/settings action:deleteBed', url: () => '/settings?/deleteBed', body: { id: '' }, expect: { ...action(['owner'], 404), other: 404 } },
 	{ key: '(app)/team page', url: () => '/team', expect: ownerOnlyPage },
 	{ key: '(app)/team action:invite', url: () => '/team?/invite', expect: { ...action(['owner']), other: 400 } },
-	{ key: '(app)/team action:revoke', url: () => '/team?/revoke', expect: { ...action(['owner'], 303), other: 303 }, why: 'no invite named: nothing to revoke' },
+	{ key: '(app)/team action:revoke', url: () => '/team?/revoke', expect: { ...action(['owner']), other: 400 }, why: 'no invite named: 400 naming id' },
+	{ key: '(app)/team action:resend', url: () => '/team?/resend', expect: { ...action(['owner']), other: 400 }, why: 'no invite named: 400 naming id' },
+	{ key: '(app)/team action:role', url: () => '/team?/role', expect: { ...action(['owner']), other: 400 }, why: "no member named: 400; another farm's owner acts on their own team" },
+	{ key: '(app)/team action:remove', url: () => '/team?/remove', expect: { ...action(['owner']), other: 400 }, why: "no member named: 400; another farm's owner acts on their own team" },
 
 	// One season
 	{ key: '(app)/seasons/[id] page', url: (f) => `/seasons/${S(f)}`, expect: everyMemberSeasonPage },

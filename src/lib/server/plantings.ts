@@ -8,6 +8,7 @@ import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/p
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
+import { shareSeasonLockOfPlanting } from './seasons';
 
 import type { PlantingView } from '$lib/types';
 import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
@@ -263,6 +264,7 @@ export async function update(farmId: number, id: number, user: { id: string; rol
 	if (refused.length) return { kind: 'forbidden', fields: refused };
 	const ctx = await gridContext(farmId);
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const cur = await trx('plantings').where({ id, farm_id: farmId }).forUpdate().first();
 		if (!cur) return { kind: 'not_found' } as const;
 		if (cur.version !== version) {
@@ -287,6 +289,7 @@ export async function update(farmId: number, id: number, user: { id: string; rol
  */
 export async function remove(farmId: number, id: number): Promise<PlantingView | null | 'has_harvests'> {
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const view = await getOne(farmId, id, trx);
 		if (!view) return null;
 		const logged = await trx('harvest_records').where({ planting_id: id }).first('id');

@@ -34,6 +34,21 @@ export async function get(farmId: number, seasonId: number): Promise<Season | nu
 	return r ? toSeason(r) : null;
 }
 
+/**
+ * Takes the season's row lock, shared, at the start of a transaction that edits one of its plantings.
+ * Plan apply takes the same lock exclusively before it reads and replaces the season's plantings, so
+ * edits and applies queue in one order (season first, then plantings) and never deadlock each other.
+ */
+export async function shareSeasonLock(trx: Knex.Transaction, farmId: number, seasonId: number): Promise<void> {
+	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forShare().first('id');
+}
+
+/** The same, found from a planting (no lock when the planting is not the farm's). */
+export async function shareSeasonLockOfPlanting(trx: Knex.Transaction, farmId: number, plantingId: number): Promise<void> {
+	const row: { season_id: number } | undefined = await trx('plantings').where({ id: plantingId, farm_id: farmId }).first('season_id');
+	if (row) await shareSeasonLock(trx, farmId, row.season_id);
+}
+
 // ---- Plan against demand -------------------------------------------------------------------
 // One answer to "is this season's plan older than its demand?", shared by the seasons, plan,
 // forecast and share-box pages. The plan screen records, at each apply, a hash of the weekly
