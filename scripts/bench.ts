@@ -6,6 +6,7 @@ import { runGridBench } from './bench-grid';
 import { runTimelineBench } from './bench-timeline';
 import { runExportBench } from './bench-export';
 import { runApiBench } from './bench-api';
+import { runPlanScreenBench } from './bench-plan-screen';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runApiBench()) };
+const results: Record<string, number> = { ...(await runEngineBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runApiBench()), ...(await runPlanScreenBench()) };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);
