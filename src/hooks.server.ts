@@ -4,6 +4,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { lucia, cookieIsSecure, clearSessionCookie, closeSessions } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
 import { resolveMembership } from '$lib/server/members';
+import { databaseUnavailable, handleDatabaseError } from '$lib/server/unavailable';
 
 const session: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
@@ -42,7 +43,10 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(session, securityHeaders);
+export const handle = sequence(databaseUnavailable, session, securityHeaders);
+
+// A database that cannot be reached is a 503 with Retry-After, not a 500 (src/lib/server/unavailable.ts).
+export const handleError = handleDatabaseError;
 
 // adapter-node emits this once the HTTP server has closed: end the database pools so the
 // process exits instead of idling on open connections.

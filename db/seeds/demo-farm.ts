@@ -24,6 +24,7 @@ import {
 	type Variety,
 	type VarietyShare as EngineVarietyShare,
 	deriveTargets,
+	forecast,
 	planSeason,
 	seedNeed
 } from '../../src/lib/planning/index';
@@ -43,7 +44,7 @@ export const DEMO_FARM = {
 	unit_system: 'imperial',
 	last_spring_frost: '2027-05-10',
 	first_fall_frost: '2027-10-05',
-	bed_foot_increment: 5,
+	bed_foot_increment: 1,
 	turnaround_days: 7
 } as const;
 
@@ -123,29 +124,36 @@ export interface DemoCrop {
 	heat_limit_f: number | null;
 	/** Degree-day base: 40 °F for cool-season crops, 50 °F for warm-season ones. */
 	base_temp_f: number;
+	/** How the yield spreads over the harvest window (see src/lib/planning/harvest-curve.ts). */
+	harvest_curve: 'flat' | 'ramp' | 'single' | 'cuts';
+	harvest_cut_interval_days: number | null;
 }
 
+// Harvest curves (common practice, no published source): fruiting crops are picked in a ramp,
+// a peak and a tail; heads, bunched roots, scallions and cilantro are cut once when ready; salad
+// mix, spinach, arugula and dill regrow and are cut again two weeks later; kale, chard and basil
+// are picked about evenly every week of their window.
 export const DEMO_CROPS: readonly DemoCrop[] = [
-	{ name: 'Carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Beet', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Radish', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40 },
-	{ name: 'Head lettuce', family: 'Asteraceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: 80, base_temp_f: 40 },
-	{ name: 'Salad mix', family: 'Asteraceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40 },
-	{ name: 'Spinach', family: 'Amaranthaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40 },
-	{ name: 'Arugula', family: 'Brassicaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40 },
-	{ name: 'Kale', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Chard', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Cilantro', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40 },
-	{ name: 'Dill', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Basil', family: 'Lamiaceae', harvest_unit: 'bunch', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 },
-	{ name: 'Scallion', family: 'Amaryllidaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Onion', family: 'Amaryllidaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Garlic', family: 'Amaryllidaceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40 },
-	{ name: 'Tomato', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 },
-	{ name: 'Pepper', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 },
-	{ name: 'Cucumber', family: 'Cucurbitaceae', harvest_unit: 'each', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 },
-	{ name: 'Summer squash', family: 'Cucurbitaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 },
-	{ name: 'Bush bean', family: 'Fabaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50 }
+	{ name: 'Carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Beet', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Radish', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Head lettuce', family: 'Asteraceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: 80, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Salad mix', family: 'Asteraceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
+	{ name: 'Spinach', family: 'Amaranthaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
+	{ name: 'Arugula', family: 'Brassicaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
+	{ name: 'Kale', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'flat', harvest_cut_interval_days: null },
+	{ name: 'Chard', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'flat', harvest_cut_interval_days: null },
+	{ name: 'Cilantro', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Dill', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
+	{ name: 'Basil', family: 'Lamiaceae', harvest_unit: 'bunch', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'flat', harvest_cut_interval_days: null },
+	{ name: 'Scallion', family: 'Amaryllidaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Onion', family: 'Amaryllidaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Garlic', family: 'Amaryllidaceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
+	{ name: 'Tomato', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
+	{ name: 'Pepper', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
+	{ name: 'Cucumber', family: 'Cucurbitaceae', harvest_unit: 'each', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
+	{ name: 'Summer squash', family: 'Cucurbitaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
+	{ name: 'Bush bean', family: 'Fabaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null }
 ];
 
 export interface DemoVariety {
@@ -388,24 +396,24 @@ const BOX_RUNS: readonly BoxRun[] = [
 	{ crop: 'Scallion', from: 25, to: 33, every: 2, full: 0, half: 1 },
 	{ crop: 'Cilantro', from: 25, to: 27, every: 2, full: 1, half: 0 },
 	{ crop: 'Cilantro', from: 37, to: 41, every: 2, full: 1, half: 0 },
-	{ crop: 'Kale', from: 26, to: 43, full: 1, half: 0 },
-	{ crop: 'Kale', from: 26, to: 43, every: 2, full: 0, half: 1 },
-	// Half shares get chard in the weeks they get no kale.
-	{ crop: 'Chard', from: 27, to: 41, every: 2, full: 0, half: 1 },
-	{ crop: 'Chard', from: 28, to: 41, every: 2, full: 1, half: 0 },
+	// Leaf crops picked evenly every week go into the boxes in even weekly amounts: a picked
+	// bed cannot follow a box that wants twice as much one week as the next.
+	{ crop: 'Kale', from: 26, to: 43, full: 1, half: 1 },
+	{ crop: 'Chard', from: 28, to: 41, full: 1, half: 0 },
 	// Alternating weeks for full and half shares keep each week's harvest even.
 	{ crop: 'Beet', from: 28, to: 43, every: 2, full: 1, half: 0 },
 	{ crop: 'Beet', from: 29, to: 43, every: 2, full: 0, half: 1 },
 	{ crop: 'Carrot', from: 29, to: 43, every: 2, full: 1, half: 0 },
 	{ crop: 'Carrot', from: 30, to: 43, every: 2, full: 0, half: 1 },
 	{ crop: 'Dill', from: 28, to: 32, every: 2, full: 1, half: 0 },
-	{ crop: 'Basil', from: 29, to: 37, every: 2, full: 1, half: 0 },
-	{ crop: 'Basil', from: 30, to: 37, every: 2, full: 0, half: 1 },
-	{ crop: 'Summer squash', from: 28, to: 35, full: 1.5, half: 1 },
-	{ crop: 'Cucumber', from: 29, to: 36, full: 2, half: 1 },
-	{ crop: 'Bush bean', from: 30, to: 38, every: 2, full: 1, half: 0 },
-	{ crop: 'Bush bean', from: 31, to: 38, every: 2, full: 0, half: 1 },
-	{ crop: 'Tomato', from: 31, to: 39, full: 2, half: 1 },
+	{ crop: 'Basil', from: 29, to: 37, full: 1, half: 1 },
+	{ crop: 'Summer squash', from: 30, to: 37, full: 1.5, half: 1 },
+	{ crop: 'Cucumber', from: 31, to: 37, full: 2, half: 1 },
+	// Fruiting crops go into the boxes once the plantings are in full bearing, not with the
+	// first light pickings (the harvest curve's ramp).
+	{ crop: 'Bush bean', from: 32, to: 38, every: 2, full: 1, half: 0 },
+	{ crop: 'Bush bean', from: 33, to: 38, every: 2, full: 0, half: 1 },
+	{ crop: 'Tomato', from: 33, to: 39, full: 2, half: 1 },
 	{ crop: 'Pepper', from: 34, to: 39, full: 0.5, half: 0 },
 	{ crop: 'Pepper', from: 35, to: 39, every: 2, full: 0, half: 0.5 },
 	{ crop: 'Onion', from: 34, to: 38, every: 2, full: 1, half: 1 },
@@ -441,9 +449,9 @@ const MARKET_RUNS: readonly ChannelRun[] = [
 	{ crop: 'Cilantro', from: 36, to: 41, quantity: 6 },
 	{ crop: 'Dill', from: 27, to: 33, quantity: 5 },
 	{ crop: 'Basil', from: 28, to: 37, quantity: 5 },
-	{ crop: 'Summer squash', from: 28, to: 36, quantity: 10 },
-	{ crop: 'Cucumber', from: 29, to: 37, quantity: 20 },
-	{ crop: 'Tomato', from: 31, to: 39, quantity: 25 },
+	{ crop: 'Summer squash', from: 30, to: 37, quantity: 10 },
+	{ crop: 'Cucumber', from: 31, to: 37, quantity: 20 },
+	{ crop: 'Tomato', from: 33, to: 39, quantity: 25 },
 	{ crop: 'Pepper', from: 33, to: 39, quantity: 8 },
 	{ crop: 'Garlic', from: 30, to: 44, quantity: 20 }
 ];
@@ -459,7 +467,7 @@ const RESTAURANT_RUNS: readonly ChannelRun[] = [
 	{ crop: 'Head lettuce', from: 22, to: 40, quantity: 6 },
 	{ crop: 'Radish', from: 22, to: 27, quantity: 4 },
 	{ crop: 'Basil', from: 28, to: 38, quantity: 10 },
-	{ crop: 'Tomato', from: 31, to: 39, quantity: 15 },
+	{ crop: 'Tomato', from: 33, to: 39, quantity: 15 },
 	{ crop: 'Pepper', from: 34, to: 39, quantity: 5 }
 ];
 
@@ -670,6 +678,10 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 		out.cellsPerTray = v.cells_per_tray;
 	}
 	if (crop.heat_limit_f !== null) out.heatLimitF = crop.heat_limit_f;
+	if (crop.harvest_curve !== 'flat') {
+		out.harvestCurve = { shape: crop.harvest_curve };
+		if (crop.harvest_cut_interval_days !== null) out.harvestCurve.intervalDays = crop.harvest_cut_interval_days;
+	}
 	if (v.gdd_to_maturity !== null) out.gddToMaturity = v.gdd_to_maturity;
 	if (v.seeds_per_packet !== null) out.seedsPerPacket = v.seeds_per_packet;
 	return out;
@@ -746,7 +758,9 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 			fieldDate: p.field_date,
 			firstHarvest: p.first_harvest,
 			lastHarvest: p.last_harvest,
-			yieldPerBedFoot: v.yield_per_bed_foot
+			yieldPerBedFoot: v.yield_per_bed_foot,
+			curve: toEngineVariety(v, cropOf(v)).harvestCurve,
+			windowDays: v.harvest_window_days
 		};
 	});
 	// Their families also count as what each bed held last season, for rotation.
@@ -771,6 +785,62 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 			earliestFieldDate: DEMO_EARLIEST_FIELD_DATE
 		}
 	});
+}
+
+/** Per crop: the plan year's supply (kept and planned plantings) against demand. */
+export interface DemoCropSupply {
+	crop: string;
+	supply: number;
+	demand: number;
+	/** Weeks with demand whose supply is under demand × (1 + margin) and that a planting could reach. */
+	shortWeeks: string[];
+}
+
+/**
+ * How well a plan fits the demo's demand: the engine's forecast over the plantings already in
+ * the ground and the plan's, against the targets, over the plan year's weeks. Weeks the plan
+ * reports as unreachable (nothing sown after "today" can be ready then) are not counted short.
+ */
+export function demoPlanSupply(plan: SeasonPlan, input: PlanDemoInput = defaultPlanDemoInput(), margin = 0.1): DemoCropSupply[] {
+	const cropByName = new Map(input.crops.map((c) => [c.name, c]));
+	const varietyByName = new Map(input.varieties.map((v) => [v.name, v]));
+	const shape = (name: string) => {
+		const v = varietyByName.get(name);
+		if (!v) throw new Error(`demo plan: unknown variety ${name}`);
+		const crop = cropByName.get(v.crop);
+		if (!crop) throw new Error(`demo plan: unknown crop ${v.crop}`);
+		return { crop: v.crop, yieldPerBedFoot: v.yield_per_bed_foot, curve: toEngineVariety(v, crop).harvestCurve, windowDays: v.harvest_window_days };
+	};
+	const plantings = [
+		...plan.plantings.map((p) => ({ ...shape(p.varietyId), firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt })),
+		...input.existing.map((p) => ({ ...shape(p.variety), firstHarvest: p.first_harvest, lastHarvest: p.last_harvest, bedFeet: p.length_ft }))
+	];
+	const targets = deriveTargets({
+		shareSizes: input.shareSizes.map((s) => ({ id: s.name, members: s.members, firstWeek: s.first_week, lastWeek: s.last_week })),
+		boxItems: input.boxItems.map((b) => ({ shareSizeId: b.share, week: b.week, crop: b.crop, quantity: b.quantity })),
+		channelDemand: input.channelDemand.map((c) => ({ crop: c.crop, week: c.week, quantity: c.quantity }))
+	});
+	const unreachable = new Set(
+		plan.warnings.filter((w) => w.code === 'unreachable_week').flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
+	);
+	const out = new Map<string, DemoCropSupply>();
+	for (const r of forecast(plantings, targets)) {
+		if (!r.week.startsWith(`${DEMO_PLAN_YEAR}-`)) continue;
+		const c = out.get(r.crop) ?? { crop: r.crop, supply: 0, demand: 0, shortWeeks: [] };
+		c.supply += r.supply;
+		c.demand += r.demand;
+		if (r.demand > 0 && r.supply < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`)) c.shortWeeks.push(r.week);
+		out.set(r.crop, c);
+	}
+	return [...out.values()].filter((c) => c.demand > 0);
+}
+
+/** Median and largest supply ÷ demand over the crops, and the count of short crop-weeks. */
+export function supplyRatioSummary(crops: DemoCropSupply[]): { median: number; max: number; shortCropWeeks: number } {
+	const ratios = crops.map((c) => c.supply / c.demand).sort((a, b) => a - b);
+	const mid = ratios.length >> 1;
+	const median = ratios.length % 2 ? ratios[mid] : (ratios[mid - 1] + ratios[mid]) / 2;
+	return { median, max: ratios[ratios.length - 1], shortCropWeeks: crops.reduce((n, c) => n + c.shortWeeks.length, 0) };
 }
 
 // ---------------------------------------------------------------------------------------

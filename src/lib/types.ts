@@ -81,4 +81,8 @@ export interface VarietyView {
 	cellsPerTray: number;
 	margin: number;
 	gddToMaturity: number | null;
+	/** How the yield spreads over the harvest window: the variety's, else the crop's (default flat). */
+	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
+	/** Days between cuts, for a curve of several cuts (null: the engine's default). */
+	cutIntervalDays?: number | null;
 }

@@ -1,12 +1,12 @@
 // Mail (dev) shows only mail to the signed-in farm's own members and invitees, and exists only
 // in demo mode. The path it closed: sign up a farm of your own, ask /forgot for another farm's
 // member, read the reset link in your Mail (dev), and set that member's password.
-import { spawn, type ChildProcess } from 'node:child_process';
 import { afterAll, describe, expect, it } from 'vitest';
 import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { firstLink, waitForMail } from '../helpers/mail';
+import { startSecondApp, type SecondApp } from '../helpers/second-app';
 
 afterAll(closeTestDb);
 
@@ -66,26 +66,12 @@ describe('Mail (dev) in demo mode', () => {
 });
 
 describe('Mail (dev) outside demo mode', () => {
-	let app: ChildProcess | undefined;
-	afterAll(() => {
-		app?.kill('SIGTERM');
-	});
+	let app: SecondApp | undefined;
+	afterAll(() => app?.stop());
 
 	it('answers 404 for the owner and has no link, when the app runs without FC_DEMO_MODE', async () => {
-		// A second server from the same build and database, on a port of its own.
-		const port = Number(process.env.FC_PORT ?? 3100) + 1000;
-		const host = process.env.FC_HOST ?? '127.0.0.1';
-		const env: NodeJS.ProcessEnv = { ...process.env, PORT: String(port), HOST: host, ORIGIN: `http://${host}:${port}` };
-		delete env.FC_DEMO_MODE;
-		app = spawn('node', [process.env.FC_BUILD_DIR ?? 'build'], { env, stdio: 'ignore' });
-		const base = `http://${host}:${port}`;
-		let up = false;
-		for (let i = 0; i < 80 && !up; i++) {
-			up = await fetch(`${base}/signin`).then((r) => r.ok, () => false);
-			if (!up) await new Promise((r) => setTimeout(r, 250));
-		}
-		expect(up).toBe(true);
-
+		app = await startSecondApp({ FC_DEMO_MODE: undefined });
+		const base = app.base;
 		const body = new URLSearchParams({ email: demo.owner, password: demo.password });
 		const signin = await fetch(`${base}/signin`, { method: 'POST', body, redirect: 'manual', headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
 		expect(signin.status).toBe(303);

@@ -1,7 +1,7 @@
 // The plan routes: preview runs the engine and writes nothing; apply replaces the season's
 // planned plantings in one transaction and keeps what is already sown.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { forecast, deriveTargets } from '../../src/lib/planning';
+import { forecast, deriveTargets, type HarvestCurve } from '../../src/lib/planning';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
@@ -115,7 +115,11 @@ describe('preview', () => {
 		const yieldOf = new Map((await testDb()('varieties').where({ farm_id: farmId })).map((v) => [String(v.id), Number(v.yield_per_bed_foot)]));
 		const supply = forecast(
 			[
-				...out.plantings.map((p: { cropId: string; varietyId: string; firstHarvest: string; lastHarvest: string; lengthFt: number }) => ({ crop: p.cropId, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt, yieldPerBedFoot: yieldOf.get(p.varietyId)! })),
+				...out.plantings.map((p: { cropId: string; varietyId: string; firstHarvest: string; lastHarvest: string; lengthFt: number; harvestWindowDays: number; curve?: HarvestCurve }) => ({
+					crop: p.cropId, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt, yieldPerBedFoot: yieldOf.get(p.varietyId)!,
+					// A harvest cut short at the last target week yields its share of the variety's window.
+					windowDays: p.harvestWindowDays, curve: p.curve
+				})),
 				...kept.map((k) => ({ crop: String(k.crop_id), firstHarvest: k.first_harvest, lastHarvest: k.last_harvest, bedFeet: Number(k.length_ft), yieldPerBedFoot: Number(k.yield_per_bed_foot) }))
 			],
 			targets

@@ -116,7 +116,7 @@ describe('PATCH /api/plantings/[id]', () => {
 	});
 	it('lets a crew lead set status, actual dates and notes, but not bed-feet or crop', async () => {
 		const p = await createOne();
-		const ok = await crew.json(one(p.id), 'PATCH', { version: 1, status: 'sown', actualFieldDate: '2027-06-08', notes: 'sown a day late' });
+		const ok = await crew.json(one(p.id), 'PATCH', { version: 1, status: 'sown', actualFieldDate: '2026-11-30', notes: 'sown early' });
 		expect(ok.status).toBe(200);
 		const no = await crew.json(one(p.id), 'PATCH', { version: 2, lengthFt: 5, varietyId });
 		expect(no.status).toBe(403);

@@ -5,7 +5,8 @@ import { meanDegreeDays } from './degree-days';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
 
-export type DtmSource = 'variety' | 'short_day' | 'gdd';
+/** gdd_cold: the degree days before that harvest do not add up since the last cold spell. */
+export type DtmSource = 'variety' | 'short_day' | 'gdd' | 'gdd_cold';
 
 export interface EffectiveDtm {
 	days: number;
@@ -67,6 +68,10 @@ export function effectiveDaysInto(out: EffectiveDtm, variety: Variety, firstHarv
 		let acc = 0;
 		let walked = 0;
 		let missing: string | undefined;
+		// Days in a row, walking back, that add no heat: four weeks of it is winter, and a crop
+		// does not grow through winter, so the walk stops there.
+		let cold = 0;
+		let winter = false;
 		// Walk back a week at a time: within a week every day adds the same max(0, mean − base),
 		// so the day that meets the requirement is found by division, not by stepping.
 		let day = firstHarvest - 1;
@@ -91,6 +96,19 @@ export function effectiveDaysInto(out: EffectiveDtm, variety: Variety, firstHarv
 			acc += perDay * chunk;
 			walked += chunk;
 			day = monday - 1;
+			cold = perDay > 0 ? 0 : cold + chunk;
+			if (cold >= 28 && acc > 0) {
+				winter = true;
+				break;
+			}
+		}
+		if (winter) {
+			out.source = 'gdd_cold';
+			warnings.push({
+				code: 'gdd_not_met',
+				message: `Only ${acc.toFixed(0)} of ${required} degree days (base ${baseF} °F) accumulate after the last cold spell before first harvest; it cannot be ready then.`
+			});
+			return out;
 		}
 		warnings.push(
 			missing

@@ -1,7 +1,8 @@
-import { PlanningInputError, requireNonNegative } from './errors';
+import { PlanningInputError, requireNonNegative, requirePositive } from './errors';
 import { type DayNumber, toDayNumber, weekdayOf } from './day-number';
 import { isoWeekOfDay, weekStartDay } from './iso-week';
 import type { CropWeekQuantity, ExplainStep } from './types';
+import { type HarvestCurve, cumulativeWeights, shareOfDays, validateCurve } from './harvest-curve';
 
 /**
  * A planting as the forecast sees it. Give either bedFeet × yieldPerBedFoot
@@ -17,6 +18,13 @@ export interface ForecastPlanting {
 	bedFeet?: number;
 	yieldPerBedFoot?: number;
 	weeklyYield?: number;
+	/** How the yield spreads over the window; default flat. */
+	curve?: HarvestCurve;
+	/**
+	 * The full harvest window (days) the yield and curve are given over, when the planting's
+	 * harvest was cut short of it: only the days up to lastHarvest are picked.
+	 */
+	windowDays?: number;
 }
 
 export interface ForecastRow {
@@ -32,6 +40,19 @@ interface Window {
 	a: DayNumber;
 	b: DayNumber;
 	perDay: number;
+	/** Days the yield is spread over: the dates' days, or more when the harvest was cut short. */
+	n: number;
+	/** Cumulative curve weights over the n days, when it is not flat. */
+	curve?: Float64Array;
+}
+
+/** What a window yields on days from..to (day numbers, inclusive). */
+export function windowAmount(w: Window, from: DayNumber, to: DayNumber): number {
+	const lo = Math.max(w.a, from);
+	const hi = Math.min(w.b, to);
+	if (hi < lo) return 0;
+	if (!w.curve) return (hi - lo + 1) * w.perDay;
+	return w.perDay * w.n * shareOfDays(w.curve, lo - w.a, hi - w.a);
 }
 
 /**
@@ -48,16 +69,20 @@ export function harvestWindow(p: ForecastPlanting, field = 'planting'): Window {
 	else throw new PlanningInputError(`${field}.lastHarvest`, 'or harvestWindowDays is required');
 	if (b < a) throw new PlanningInputError(`${field}.lastHarvest`, 'is before firstHarvest');
 	let perDay: number;
+	let n = b - a + 1;
+	if (p.windowDays !== undefined && p.windowDays > n) n = requirePositive(`${field}.windowDays`, Math.floor(p.windowDays));
 	if (p.bedFeet !== undefined && p.yieldPerBedFoot !== undefined) {
 		requireNonNegative(`${field}.bedFeet`, p.bedFeet);
 		requireNonNegative(`${field}.yieldPerBedFoot`, p.yieldPerBedFoot);
-		perDay = (p.bedFeet * p.yieldPerBedFoot) / (b - a + 1);
+		perDay = (p.bedFeet * p.yieldPerBedFoot) / n;
 	} else if (p.weeklyYield !== undefined) {
 		perDay = requireNonNegative(`${field}.weeklyYield`, p.weeklyYield) / 7;
 	} else {
 		throw new PlanningInputError(`${field}.weeklyYield`, 'or bedFeet with yieldPerBedFoot is required');
 	}
-	return { a, b, perDay };
+	const shape = p.curve?.shape;
+	if (shape === undefined || shape === 'flat') return { a, b, perDay, n };
+	return { a, b, perDay, n, curve: cumulativeWeights(validateCurve(p.curve, `${field}.curve`), n) };
 }
 
 function addTo(map: Map<string, Map<DayNumber, number>>, crop: string, monday: DayNumber, q: number): void {
@@ -78,8 +103,7 @@ export function forecast(plantings: ForecastPlanting[], targets: CropWeekQuantit
 		if (typeof p.crop !== 'string') throw new PlanningInputError(`plantings[${i}].crop`, 'is required');
 		const w = harvestWindow(p, `plantings[${i}]`);
 		for (let monday = w.a - weekdayOf(w.a) + 1; monday <= w.b; monday += 7) {
-			const days = Math.min(w.b, monday + 6) - Math.max(w.a, monday) + 1;
-			addTo(supply, p.crop, monday, days * w.perDay);
+			addTo(supply, p.crop, monday, windowAmount(w, monday, monday + 6));
 		}
 	});
 	addTargets(demand, targets);
@@ -145,12 +169,15 @@ export function explainSupply(plantings: ForecastPlanting[], crop: string, week:
 		const w = harvestWindow(p, `plantings[${i}]`);
 		const days = Math.min(w.b, monday + 6) - Math.max(w.a, monday) + 1;
 		if (days <= 0) return;
-		const q = days * w.perDay;
+		const q = windowAmount(w, monday, monday + 6);
 		total += q;
+		const whole = w.perDay * w.n;
 		steps.push({
 			label: `${p.key ?? `planting ${i + 1}`}: ${days} of 7 days in ${week}`,
 			value: q,
-			formula: `${days} d × ${w.perDay.toFixed(3)} per day (flat harvest curve)`
+			formula: w.curve
+				? `${whole.toFixed(2)} over the window × ${(q / whole).toFixed(3)} of it in these days (${p.curve?.shape} harvest curve)`
+				: `${days} d × ${w.perDay.toFixed(3)} per day (flat harvest curve)`
 		});
 	});
 	steps.push({ label: `${crop} supply in ${week}`, value: total, formula: 'Σ plantings harvesting that week' });

@@ -39,8 +39,10 @@ export {
 	type PlanOptions,
 	type PlanResult,
 	type Succession,
-	type SuccessionBasis
+	type SuccessionBasis,
+	sizingLp
 } from './successions';
+export { type HarvestCurve, type HarvestCurveShape, cumulativeWeights, dailyWeights, validateCurve } from './harvest-curve';
 export type { Bed, BedPlanting } from './bed-types';
 export {
 	placePlantings,

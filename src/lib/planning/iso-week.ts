@@ -16,6 +16,15 @@ function pad2(n: number): string {
 	return n < 10 ? `0${n}` : String(n);
 }
 
+/**
+ * The year of a week key, always four digits ("0999", never "999"), so every key the engine
+ * makes parses again and sorts as text. A year outside 0–9999 has no such key: refused.
+ */
+export function yearKey(year: number): string {
+	if (!Number.isInteger(year) || year < 0 || year > 9999) throw new PlanningInputError('week', `year ${year} cannot be written as a four-digit ISO week key`);
+	return String(year).padStart(4, '0');
+}
+
 /** Monday (day number) of ISO week 1 of isoYear. */
 function week1Monday(isoYear: number): DayNumber {
 	const jan4 = daysFromCivil(isoYear, 1, 4);
@@ -40,7 +49,7 @@ export function isoWeekOfDay(n: DayNumber): IsoWeek {
 	let name = weekNameByMonday.get(monday);
 	if (name === undefined) {
 		const { year, week } = isoWeekPartsOfDay(monday);
-		name = `${year}-W${pad2(week)}`;
+		name = `${yearKey(year)}-W${pad2(week)}`;
 		if (weekNameByMonday.size >= MEMO_LIMIT) weekNameByMonday.clear();
 		weekNameByMonday.set(monday, name);
 	}

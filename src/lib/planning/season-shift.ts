@@ -6,7 +6,7 @@
  * so days in tray, to maturity and in harvest stay what they were.
  */
 import { civilFromDays, daysFromCivil, fromDayNumber, toDayNumber, weekdayOf } from './day-number';
-import { isoWeekPartsOfDay, parseIsoWeek, weekStartDay, weeksInIsoYear } from './iso-week';
+import { isoWeekPartsOfDay, parseIsoWeek, weekStartDay, weeksInIsoYear, yearKey } from './iso-week';
 import { successionWarnings } from './plan-warnings';
 import { makeTempLookup, type WeeklyMeanTempF } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
@@ -21,13 +21,13 @@ export function nextYearDate(date: string): string {
 	const { year, week } = isoWeekPartsOfDay(n);
 	const weekday = weekdayOf(n) - 1; // Monday = 0
 	const w = Math.min(week, weeksInIsoYear(year + 1));
-	return fromDayNumber(weekStartDay(`${year + 1}-W${pad2(w)}`) + weekday);
+	return fromDayNumber(weekStartDay(`${yearKey(year + 1)}-W${pad2(w)}`) + weekday);
 }
 
 /** The same ISO week one year on ('2026-W53' → '2027-W52'). */
 export function nextYearWeek(week: string): string {
 	const { year, week: w } = parseIsoWeek(week);
-	return `${year + 1}-W${pad2(Math.min(w, weeksInIsoYear(year + 1)))}`;
+	return `${yearKey(year + 1)}-W${pad2(Math.min(w, weeksInIsoYear(year + 1)))}`;
 }
 
 export interface PlantingDates {

@@ -4,7 +4,8 @@
  * The server's plan preview and the demo seed both plan through here.
  */
 import type { Bed, BedPlanting } from './bed-types';
-import { forecast } from './forecast';
+import { type ForecastPlanting, forecast } from './forecast';
+import type { HarvestCurve } from './harvest-curve';
 import { type PlacementJobs, placeJobs, preparePlacement } from './placement';
 import { byDayThenRank, inPlanOrder, keyRanks, pieceRanks } from './season-order';
 import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
@@ -39,6 +40,10 @@ export interface KeptPlanting {
 	firstHarvest: string;
 	lastHarvest: string;
 	yieldPerBedFoot: number;
+	/** How its yield spreads over its window (default flat). */
+	curve?: HarvestCurve;
+	/** The variety's full window, when this planting's harvest is cut short of it. */
+	windowDays?: number;
 }
 
 export interface SeasonPlanInput {
@@ -74,8 +79,12 @@ export interface ProposedPlanting {
 	fieldDate: string;
 	firstHarvest: string;
 	lastHarvest: string;
-	/** Harvest units over the whole window for this range. */
+	/** Harvest units over the whole window for this range (up to lastHarvest, when cut short). */
 	expectedYield: number;
+	/** The variety's full harvest window, days: the yield and curve are given over it. */
+	harvestWindowDays: number;
+	/** How the yield spreads over the window (absent: flat). */
+	curve?: HarvestCurve;
 	seed: SeedNeed;
 	warnings: PlanningWarning[];
 	/** Why it has no bed, when it has none. */
@@ -93,14 +102,24 @@ function weekNumber(week: string): number {
 	return Number(week.slice(6));
 }
 
-/** Targets still to plan for: the targets less what the kept plantings supply each week. */
-function remainingTargets(targets: CropWeekQuantity[], kept: KeptPlanting[]): CropWeekQuantity[] {
-	if (kept.length === 0) return targets;
+/** What the kept plantings supply, per crop id and ISO week (curves and cut-short windows followed). */
+function keptSupply(kept: KeptPlanting[]): Map<string, Map<string, number>> {
+	const out = new Map<string, Map<string, number>>();
+	if (kept.length === 0) return out;
 	const rows = forecast(
-		kept.map((k) => ({ crop: k.cropId, firstHarvest: k.firstHarvest, lastHarvest: k.lastHarvest, bedFeet: k.lengthFt, yieldPerBedFoot: k.yieldPerBedFoot })),
-		targets
+		kept.map((k) => ({
+			crop: k.cropId,
+			firstHarvest: k.firstHarvest,
+			lastHarvest: k.lastHarvest,
+			bedFeet: k.lengthFt,
+			yieldPerBedFoot: k.yieldPerBedFoot,
+			curve: k.curve,
+			windowDays: k.windowDays
+		})),
+		[]
 	);
-	return rows.filter((r) => r.shortfall > 1e-9).map((r) => ({ crop: r.crop, week: r.week, quantity: r.shortfall }));
+	for (const r of rows) (out.get(r.crop) ?? out.set(r.crop, new Map()).get(r.crop)!).set(r.week, r.supply);
+	return out;
 }
 
 export function planSeason(input: SeasonPlanInput): SeasonPlan {
@@ -115,7 +134,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 		(byCrop.get(v.cropId) ?? byCrop.set(v.cropId, []).get(v.cropId)!).push(v);
 	}
 
-	const targets = remainingTargets(input.targets, kept);
+	const targets = input.targets;
+	const fromKept = keptSupply(kept);
 	const targetsByCrop = new Map<string, CropWeekQuantity[]>();
 	for (let i = 0; i < targets.length; i++) {
 		const t = targets[i];
@@ -135,6 +155,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const datesOf = (i: number): { fieldDate: string; lastHarvest: string } => ({ fieldDate: fromDayNumber(jobs.fieldDays[i]), lastHarvest: fromDayNumber(jobs.lastDays[i]) });
 	const jobs: PlacementJobs = { count: 0, keyOf, datesOf, bedFeet: [], fieldDays: [], lastDays: [], families: [] };
 	const plannedVariety: SeasonVariety[] = [];
+	// Share of its window's yield each succession picks (under 1 when its harvest ends early).
+	const yieldShares: number[] = [];
 	const firstDays: DayNumber[] = [];
 	// Tray sowing day; -Infinity for a direct-sown planting.
 	const trayDays: DayNumber[] = [];
@@ -154,12 +176,17 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 		if (shares.length === 0) {
 			const message = planShares ? 'The variety plan gives this crop no variety, so its targets cannot be planned.' : 'No variety of this crop is in the library, so its targets cannot be planned.';
 			warnings.push({ code: 'no_variety', cropId, message, weeks: cropTargets.map((t) => t.week) });
-			shortfall.push(...cropTargets);
+			const k = fromKept.get(cropId);
+			for (const t of cropTargets) {
+				const left = t.quantity - (k?.get(t.week) ?? 0);
+				if (left > 1e-9) shortfall.push({ crop: cropId, week: t.week, quantity: left });
+			}
 			return;
 		}
 		// How much of each week's target the valid shares carry; what no share carries is shortfall.
 		// (A crop planned by its first variety alone, the usual case, carries all of it.)
 		const carried = planShares ? new Map<string, number>() : undefined;
+		let spill: Map<string, number> | undefined;
 		shares.forEach((share, i) => {
 			const variety = varietyById.get(share.varietyId);
 			if (!variety || variety.cropId !== cropId) {
@@ -178,12 +205,31 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				}
 			}
 			if (weekly.length === 0) return;
+			// What already harvests in this share's weeks: its fraction of the kept plantings' supply,
+			// and what the crop's earlier shares' successions harvest past their own weeks.
+			const keptHere = fromKept.get(cropId);
+			const supplied: { week: string; quantity: number }[] = [];
+			for (const t of weekly) {
+				const q = (keptHere?.get(t.week) ?? 0) * fraction + (spill?.get(t.week) ?? 0);
+				if (q > 0) supplied.push({ week: t.week, quantity: q });
+			}
 			// Two shares of one variety from the same week would otherwise plan under the same keys.
 			let keyPrefix = `${variety.id}@w${share.fromWeek ?? 1}`;
 			if (prefixes.has(keyPrefix)) keyPrefix += `.${i + 1}`;
 			prefixes.add(keyPrefix);
 			const start = planned;
-			const result = planSuccessionRuns({ variety, targets: weekly, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
+			const mine: ForecastPlanting[] | undefined = shares.length > 1 ? [] : undefined;
+			const result = planSuccessionRuns({ variety, targets: weekly, supplied, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
+				mine?.push({
+					crop: cropId,
+					firstHarvest: fromDayNumber(r.start),
+					lastHarvest: fromDayNumber(r.lastHarvest),
+					bedFeet: r.bedFeet,
+					yieldPerBedFoot: variety.yieldPerBedFoot,
+					curve: variety.harvestCurve,
+					windowDays: variety.harvestWindowDays
+				});
+				yieldShares.push(r.yieldShare);
 				succPrefix.push(keyPrefix);
 				succNumber.push(r.index + 1);
 				jobs.bedFeet.push(r.bedFeet);
@@ -197,6 +243,15 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				planned++;
 			});
 			if (planned > start) groups.push({ prefix: keyPrefix, start, count: planned - start });
+			// This share's harvest outside its own weeks feeds the shares planned after it.
+			if (mine && mine.length > 0) {
+				for (const r of forecast(mine, [])) {
+					const n = weekNumber(r.week);
+					if (n >= (share.fromWeek ?? 1) && n <= (share.toWeek ?? 53)) continue;
+					spill ??= new Map();
+					spill.set(r.week, (spill.get(r.week) ?? 0) + r.supply);
+				}
+			}
 			for (const w of result.warnings) warnings.push({ ...w, cropId });
 			for (const q of result.shortfall) shortfall.push({ crop: cropId, week: q.week, quantity: q.quantity });
 		});
@@ -251,7 +306,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 		seedIn.seedsPerPacket = v.seedsPerPacket;
 		return seedNeed(seedIn);
 	};
-	const yieldOf = (v: SeasonVariety, lengthFt: number): number => Math.round(lengthFt * v.yieldPerBedFoot * 100) / 100;
+	const yieldOf = (v: SeasonVariety, lengthFt: number, from: number): number =>
+		Math.round(lengthFt * v.yieldPerBedFoot * yieldShares[from] * 100) / 100;
 	// Most plantings carry no placement note: they keep their succession's own list rather than a copy.
 	const warningsOf = (own: PlanningWarning[], from: number): PlanningWarning[] => {
 		const placed = notes[from];
@@ -297,7 +353,9 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			fieldDate: fromDayNumber(jobs.fieldDays[from]),
 			firstHarvest: fromDayNumber(firstDays[from]),
 			lastHarvest: fromDayNumber(jobs.lastDays[from]),
-			expectedYield: yieldOf(v, lengthFt),
+			expectedYield: yieldOf(v, lengthFt, from),
+			harvestWindowDays: v.harvestWindowDays,
+			...(v.harvestCurve && v.harvestCurve.shape !== 'flat' ? { curve: v.harvestCurve } : {}),
 			seed: seedFor(v, lengthFt),
 			warnings: warningsOf(own, from),
 			unplacedReason

@@ -1,12 +1,13 @@
-import { PlanningInputError, requireLatitude, requireNonNegative, requirePositive } from './errors';
-import { type DayNumber, fromDayNumber, toDayNumber } from './day-number';
+import { PlanningInputError, requireLatitude, requireNonNegative, requireNonNegativeItem, requirePositive } from './errors';
+import { type HarvestCurve, cumulativeWeights, shareOfDays } from './harvest-curve';
+import { type DayNumber, fromDayNumber, toDayNumber, yearOfDay } from './day-number';
 import { type DtmContext, type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity } from './effective-dtm';
-import { isoWeekOfDay } from './iso-week';
+import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
 import { successionWarnings } from './plan-warnings';
 import { type SeedNeed, type SeedNeedInput, seedNeed, validateSeedInput } from './seed';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
-import { checkSupply, normaliseTargets } from './target-weeks';
+import { normaliseTargets } from './target-weeks';
 import { validateVariety, varietyLabel } from './variety';
 import { type TempLookup, type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
 
@@ -47,6 +48,11 @@ export interface PlanInput {
 	targets: WeeklyTarget[];
 	farm: Farm;
 	options?: PlanOptions;
+	/**
+	 * What plantings outside this plan already harvest in the target weeks (kept plantings,
+	 * other seasons' plantings), in the crop's unit: the plan covers only the rest.
+	 */
+	supplied?: WeeklyTarget[];
 }
 
 /** The figures a succession's size and dates were reached from, for explain*(). */
@@ -82,6 +88,10 @@ export interface Succession {
 	totalYield: number;
 	yieldPerBedFoot: number;
 	harvestWindowDays: number;
+	/** How its yield spreads over the window (absent: flat). */
+	curve?: HarvestCurve;
+	/** Set when the harvest ends before the window does (after the last target week): the full window. */
+	windowDays?: number;
 	/** The target weeks this succession is meant to supply. */
 	weeks: string[];
 	seed: SeedNeed;
@@ -99,6 +109,8 @@ export interface PlanResult {
 
 interface ResolvedOptions {
 	interval: number;
+	/** Weeks between candidate starts: the asked-for interval, else 1. */
+	stepWeeks: number;
 	margin: number;
 	increment: number;
 	seedMargin: number;
@@ -110,7 +122,7 @@ interface ResolvedOptions {
 function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: PlanningWarning[], temps?: TempLookup): ResolvedOptions {
 	const fullWeeks = Math.floor(v.harvestWindowDays / 7);
 	const maxInterval = Math.max(1, fullWeeks);
-	let interval = maxInterval;
+	let interval = 1;
 	if (o.intervalWeeks !== undefined) {
 		if (!Number.isInteger(o.intervalWeeks) || o.intervalWeeks < 1 || o.intervalWeeks > 4) {
 			throw new PlanningInputError('options.intervalWeeks', `must be a whole number of weeks from 1 to 4 (got ${o.intervalWeeks})`);
@@ -131,6 +143,7 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
 	const seedMargin = v.margin ?? (o.seedMargin === undefined ? 0.1 : requireNonNegative('options.seedMargin', o.seedMargin));
 	return {
 		interval,
+		stepWeeks: interval,
 		margin,
 		increment,
 		seedMargin,
@@ -161,6 +174,8 @@ export interface SuccessionRun {
 	index: number;
 	/** First harvest. */
 	start: DayNumber;
+	/** Share of the window's yield picked by lastHarvest: under 1 when the harvest ends early. */
+	yieldShare: number;
 	fieldDay: DayNumber;
 	trayDay: DayNumber | undefined;
 	lastHarvest: DayNumber;
@@ -229,7 +244,55 @@ export function planSuccessionRuns<T>(
 
 type MakeRun<T> = (run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
 
-function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: boolean, make: MakeRun<T>): Planned<T> {
+/** What planRuns knows of one candidate start (a Monday): its dates, or that it cannot be reached. */
+interface Candidate {
+	ok: boolean;
+	fieldDay: DayNumber;
+	trayDay: DayNumber | undefined;
+	/** Days the succession holds its bed: field date to last harvest. */
+	occupancy: number;
+	dtmWarnings: PlanningWarning[];
+	dtm: EffectiveDtm | undefined;
+	/** Bed-feet chosen here so far (0: no succession starts here), unrounded and rounded. */
+	raw: number;
+	feet: number;
+	/** The week whose need first called for this succession, its target and per-foot supply. */
+	sizedOn: number;
+	sizedPerFt: number;
+}
+
+/**
+ * Net-need sizing (DESIGN steps 1–4). Weeks are taken in order; a week whose target × (1 + margin)
+ * is not yet met by what already harvests then (supply from outside the plan, and the successions
+ * planned so far) gets more bed-feet from the one candidate start, among those whose harvest
+ * reaches it, that covers the rest of the weeks' need at the least bed-foot-days per unit of need
+ * met; ties go to the later start. With a flat curve that is the latest start (the start that
+ * reaches furthest into later weeks), the classic optimal rule for covering weekly needs with
+ * windows of one length; with a ramp curve it is a start whose peak falls on the week. The
+ * bed-feet are rounded up to the increment at once, so the extra they bring counts toward the
+ * next weeks (the repair that keeps rounding from adding up). A week no reachable start can
+ * supply (field date before `earliestFieldDate`, first action before `today`) is reported as
+ * shortfall with an `unreachable_week` warning.
+ */
+/** The covering problem planRuns solves, for sizingLp: handed out once the plan is made. */
+interface SizingProblem {
+	nWeeks: number;
+	cMin: number;
+	span: number;
+	step: number;
+	target: Float64Array;
+	need: Float64Array;
+	candidate: (c: number) => Candidate;
+	perFt: (c: number, w: number) => number;
+}
+
+function planRuns<T>(
+	input: PlanInput,
+	temps: TempLookup | undefined,
+	detail: boolean,
+	make: MakeRun<T>,
+	problemOut?: (p: SizingProblem) => void
+): Planned<T> {
 	const v = validateVariety(input.variety);
 	const farm = input.farm;
 	if (!farm || typeof farm !== 'object') throw new PlanningInputError('farm', 'is required');
@@ -241,89 +304,202 @@ function planRuns<T>(input: PlanInput, temps: TempLookup | undefined, detail: bo
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
 	const facts = { ...season, temps: o.dtm.temps };
 	const { mondays, qty } = normaliseTargets(input.targets);
+	const frostMonthDay = fromDayNumber(season.lastSpringFrost).slice(4);
+	const lastFrostOfYear = (year: number): DayNumber => toDayNumber(`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`);
 	const H = v.harvestWindowDays;
-	const perFtPerDay = v.yieldPerBedFoot / H;
+	const P = cumulativeWeights(v.harvestCurve, H);
+	const Y = v.yieldPerBedFoot;
 	const prefix = input.options?.keyPrefix ?? v.id ?? varietyLabel(v);
 	const items: T[] = [];
-	// Harvest windows as flat triples: first day, last day, bed-feet.
-	const windows: number[] = [];
 	const unreachable: DayNumber[] = [];
+	if (mondays.length === 0) return { items, shortfall: [], warnings, interval: o.interval };
+
+	// Weeks from the first target week to the last, by offset from the first Monday.
+	const base = mondays[0];
+	const nWeeks = (mondays[mondays.length - 1] - base) / 7 + 1;
+	const target = new Float64Array(nWeeks);
+	const need = new Float64Array(nWeeks);
+	const outside = new Float64Array(nWeeks);
+	const planned = new Float64Array(nWeeks);
+	for (let k = 0; k < mondays.length; k++) target[(mondays[k] - base) / 7] = qty[k];
+	const supplied = input.supplied;
+	if (supplied !== undefined) {
+		if (!Array.isArray(supplied)) throw new PlanningInputError('supplied', 'must be a list of { week, quantity }');
+		for (let i = 0; i < supplied.length; i++) {
+			const m = weekStartDayItem(supplied[i].week, 'supplied', i, 'week');
+			const q = requireNonNegativeItem('supplied', i, 'quantity', supplied[i].quantity);
+			const w = (m - base) / 7;
+			if (w >= 0 && w < nWeeks) outside[w] += q;
+		}
+	}
+	for (let w = 0; w < nWeeks; w++) need[w] = target[w] > 0 ? target[w] * (1 + o.margin) - outside[w] : 0;
+
+	// Candidate starts: every `interval`-th Monday (every Monday unless the grower asked for an
+	// interval), from as early as a window that reaches the first target week can start.
+	const span = Math.ceil(H / 7);
+	const step = o.stepWeeks;
+	const cMin = -(span - 1);
+	const cands: (Candidate | undefined)[] = new Array<Candidate | undefined>(nWeeks - cMin).fill(undefined);
 	const scratchDtm = detail ? undefined : blankDtm();
-	const run: SuccessionRun = {
-		prefix, index: 0, start: 0, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
-		warnings: [], dtm: scratchDtm ?? blankDtm(), peakMonday: 0, peakQ: 0, peakPerFt: 0, peakDays: 0
-	};
-	let i = 0;
-	while (i < mondays.length) {
-		const start = mondays[i];
+	const candidate = (c: number): Candidate => {
+		let cand = cands[c - cMin];
+		if (cand) return cand;
+		const start = base + 7 * c;
 		const dtm = scratchDtm ? effectiveDaysInto(scratchDtm, v, start, o.dtm) : effectiveDaysToMaturity(v, start, o.dtm);
 		const fieldDay = start - dtm.days;
 		const trayDay = v.method === 'transplant' ? fieldDay - (v.daysInTray ?? 0) : undefined;
 		const firstAction = trayDay ?? fieldDay;
-		if ((o.earliestField !== undefined && fieldDay < o.earliestField) || (o.today !== undefined && firstAction < o.today)) {
-			unreachable.push(start);
-			i++;
+		// A tender crop goes out only after the last spring frost of its own year; a degree-day crop
+		// whose heat cannot add up since the last cold spell cannot be ready that week at all.
+		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(start)) : -Infinity;
+		const ok = !(
+			(o.earliestField !== undefined && fieldDay < o.earliestField) ||
+			(o.today !== undefined && firstAction < o.today) ||
+			fieldDay < frostFree ||
+			dtm.source === 'gdd_cold'
+		);
+		cand = {
+			ok,
+			fieldDay,
+			trayDay,
+			occupancy: start + H - fieldDay,
+			dtmWarnings: dtm.warnings.length === 0 ? NONE : [...dtm.warnings],
+			dtm: detail ? dtm : undefined,
+			raw: 0,
+			feet: 0,
+			sizedOn: -1,
+			sizedPerFt: 0
+		};
+		cands[c - cMin] = cand;
+		return cand;
+	};
+	// Per-foot supply of a succession starting at week c in week w (Monday to Sunday).
+	// (It depends only on w − c: worked out once per variety.)
+	const byOffset = new Float64Array(span);
+	for (let k = 0; k < span; k++) byOffset[k] = Y * shareOfDays(P, 7 * k, 7 * k + 6);
+	const perFt = (c: number, w: number): number => (w - c >= 0 && w - c < span ? byOffset[w - c] : 0);
+
+	for (let w = 0; w < nWeeks; w++) {
+		if (!(target[w] > 0)) continue;
+		const net = need[w] - planned[w];
+		if (net <= 1e-9 * Math.max(1, need[w])) continue;
+		let best = NaN;
+		let bestX = 0;
+		let bestScore = Infinity;
+		for (let c = w; c >= Math.max(cMin, w - span + 1); c--) {
+			if (step > 1 && ((c % step) + step) % step !== 0) continue;
+			const cf = perFt(c, w);
+			if (!(cf > 0)) continue;
+			const cand = candidate(c);
+			if (!cand.ok) continue;
+			const x = net / cf;
+			let useful = 0;
+			for (let u = w; u < nWeeks && u <= c + span - 1; u++) {
+				const left = need[u] - planned[u];
+				if (target[u] > 0 && left > 0) useful += Math.min(perFt(c, u) * x, left);
+			}
+			const score = (x * cand.occupancy) / useful;
+			if (score < bestScore * (1 - 1e-9)) {
+				bestScore = score;
+				best = c;
+				bestX = x;
+			}
+		}
+		if (Number.isNaN(best)) {
+			unreachable.push(base + 7 * w);
 			continue;
 		}
-		const groupEnd = start + 7 * o.interval;
-		let j = i;
-		// The most demanding week of the run (kept as plain numbers: this loop runs per target week).
-		let peakNeed = -1;
-		let peakMonday = start;
-		let peakQ = 0;
-		let peakPerFt = 0;
-		let peakDays = 0;
-		while (j < mondays.length && mondays[j] < groupEnd) {
-			const monday = mondays[j];
-			const offsetDays = monday - start;
-			// Days of this window inside that week: 7, except when the whole window is under a week.
-			const days = Math.min(7, H - offsetDays);
-			const perFt = perFtPerDay * days;
-			const q = qty[j];
-			const need = q / perFt;
-			if (need > peakNeed) {
-				peakNeed = need;
-				peakMonday = monday;
-				peakQ = q;
-				peakPerFt = perFt;
-				peakDays = days;
-			}
-			j++;
+		const cand = candidate(best);
+		const feet = roundUpTo(cand.feet + bestX, o.increment);
+		const added = feet - cand.feet;
+		if (cand.sizedOn < 0) {
+			cand.sizedOn = w;
+			cand.sizedPerFt = perFt(best, w);
 		}
-		const rawFeet = peakNeed * (1 + o.margin);
-		const bedFeet = roundUpTo(rawFeet, o.increment);
-		const lastHarvest = start + H - 1;
+		cand.raw += bestX;
+		cand.feet = feet;
+		for (let u = Math.max(0, best); u < nWeeks && u <= best + span - 1; u++) planned[u] += added * perFt(best, u);
+	}
+
+	// Repair: greedy choices made for early weeks may leave later successions (or themselves)
+	// larger than what is still needed once everything is placed. Shrink each succession, latest
+	// first, to the least whole increment that keeps every week it supplies covered.
+	for (let pass = 0; pass < 2; pass++) {
+		for (let c = nWeeks - 1; c >= cMin; c--) {
+			const cand = cands[c - cMin];
+			if (!cand || cand.feet <= 0) continue;
+			let cut = cand.feet;
+			for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) {
+				const cf = perFt(c, u);
+				if (!(target[u] > 0) || !(cf > 0) || !(need[u] > 0)) continue;
+				cut = Math.min(cut, (planned[u] - need[u]) / cf);
+			}
+			const feet = roundUpTo(Math.max(0, cand.feet - cut), o.increment);
+			if (feet >= cand.feet) continue;
+			for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) planned[u] -= (cand.feet - feet) * perFt(c, u);
+			cand.feet = feet;
+		}
+	}
+
+	const run: SuccessionRun = {
+		prefix, index: 0, start: 0, yieldShare: 1, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
+		warnings: [], dtm: scratchDtm ?? blankDtm(), peakMonday: 0, peakQ: 0, peakPerFt: 0, peakDays: 0
+	};
+	// The target weeks (indices into mondays) each succession's harvest reaches. A harvest that
+	// would run past the last target week ends with that week: the bed is free sooner, and the
+	// yield is what the curve gives up to then.
+	const lastSunday = mondays[mondays.length - 1] + 6;
+	let firstWeek = 0;
+	for (let c = cMin; c < nWeeks; c++) {
+		const cand = cands[c - cMin];
+		if (!cand || cand.feet <= 0) continue;
+		const start = base + 7 * c;
+		const lastHarvest = Math.min(start + H - 1, lastSunday);
+		run.yieldShare = lastHarvest === start + H - 1 ? 1 : P[lastHarvest - start + 1];
+		while (firstWeek < mondays.length && mondays[firstWeek] < start) firstWeek++;
+		let endWeek = firstWeek;
+		while (endWeek < mondays.length && mondays[endWeek] <= lastHarvest) endWeek++;
 		run.index = items.length;
 		run.start = start;
-		run.fieldDay = fieldDay;
-		run.trayDay = trayDay;
+		run.fieldDay = cand.fieldDay;
+		run.trayDay = cand.trayDay;
 		run.lastHarvest = lastHarvest;
-		run.bedFeet = bedFeet;
-		run.rawFeet = rawFeet;
-		run.firstWeek = i;
-		run.endWeek = j;
-		// The days-to-maturity warnings (a fresh list: the record is refilled) and, with detail, the succession's own.
-		run.warnings = detail ? withDtmWarnings(dtm.warnings, successionWarnings(v, fieldDay, start, lastHarvest, facts)) : dtm.warnings.length === 0 ? NONE : [...dtm.warnings];
-		run.dtm = dtm;
-		run.peakMonday = peakMonday;
-		run.peakQ = peakQ;
-		run.peakPerFt = peakPerFt;
-		run.peakDays = peakDays;
+		run.bedFeet = cand.feet;
+		run.rawFeet = cand.raw;
+		run.firstWeek = firstWeek;
+		run.endWeek = endWeek;
+		run.warnings = detail ? withDtmWarnings(cand.dtmWarnings, successionWarnings(v, cand.fieldDay, start, lastHarvest, facts)) : cand.dtmWarnings;
+		if (cand.dtm) run.dtm = cand.dtm;
+		run.peakMonday = base + 7 * cand.sizedOn;
+		run.peakQ = target[cand.sizedOn];
+		run.peakPerFt = cand.sizedPerFt;
+		run.peakDays = Math.min(7, H - 7 * (cand.sizedOn - c));
 		items.push(make(run, v, o, mondays));
-		windows.push(start, lastHarvest, bedFeet);
-		i = j;
 	}
-	const qtyOf = (m: DayNumber): number => qty[mondays.indexOf(m)] ?? 0;
-	const shortfall: WeeklyTarget[] = unreachable.map((m) => ({ week: isoWeekOfDay(m), quantity: qtyOf(m) }));
+
+	problemOut?.({ nWeeks, cMin, span, step, target, need, candidate, perFt });
+	const shortfall: WeeklyTarget[] = [];
+	const short: string[] = [];
+	const skip = new Set(unreachable);
+	for (let w = 0; w < nWeeks; w++) {
+		if (!(target[w] > 0)) continue;
+		const gap = target[w] - outside[w] - planned[w];
+		if (gap <= 1e-9 * Math.max(1, target[w])) continue;
+		const week = isoWeekOfDay(base + 7 * w);
+		shortfall.push({ week, quantity: gap });
+		if (!skip.has(base + 7 * w)) short.push(week);
+	}
 	if (unreachable.length > 0) {
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
 			code: 'unreachable_week',
-			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}.`,
+			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop).`,
 			weeks
 		});
 	}
-	checkSupply(windows, mondays, qty, unreachable, perFtPerDay, shortfall, warnings);
+	if (short.length > 0) {
+		warnings.push({ code: 'supply_short', message: `Planned supply falls short of target in ${short.join(', ')}.`, weeks: short });
+	}
 	return { items, shortfall, warnings, interval: o.interval };
 }
 
@@ -359,7 +535,7 @@ function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptio
 		lastHarvest: fromDayNumber(run.lastHarvest),
 		bedFeet,
 		weeklyYield: bedFeet * weeklyYieldPerFt,
-		totalYield: bedFeet * v.yieldPerBedFoot,
+		totalYield: bedFeet * v.yieldPerBedFoot * run.yieldShare,
 		yieldPerBedFoot: v.yieldPerBedFoot,
 		harvestWindowDays: v.harvestWindowDays,
 		weeks,
@@ -383,6 +559,8 @@ function toSuccession(run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptio
 	const crop = v.crop ?? v.cropId;
 	if (crop !== undefined) s.crop = crop;
 	if (v.family !== undefined) s.family = v.family;
+	if (v.harvestCurve !== undefined && v.harvestCurve.shape !== 'flat') s.curve = v.harvestCurve;
+	if (run.yieldShare < 1) s.windowDays = v.harvestWindowDays;
 	return s;
 }
 
@@ -392,4 +570,41 @@ const NONE: PlanningWarning[] = [];
 /** A succession's warnings: the days-to-maturity ones, then its own (a fresh list, shared with neither). */
 export function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWarning[]): PlanningWarning[] {
 	return dtmWarnings.length === 0 ? own : [...dtmWarnings, ...own];
+}
+
+/**
+ * The plan's sizing as a linear program, for comparing the plan with its lower bound: one
+ * variable per reachable candidate start (bed-feet, continuous), minimising bed-foot-days
+ * (bed-feet × days from field date to the end of the window), with every week a reachable
+ * start can supply getting at least its target × (1 + margin), less what is supplied from
+ * outside the plan. Returned as CPLEX LP text for any LP solver (the bench and tests use the
+ * `highs` package), beside the plan's own bed-foot-days on the same measure.
+ */
+export function sizingLp(input: PlanInput): { lp: string; planBedFootDays: number; variables: number } {
+	let problem: SizingProblem | undefined;
+	const plan = planRuns(input, undefined, false, (run) => ({ start: run.start, feet: run.bedFeet, field: run.fieldDay }), (p) => (problem = p));
+	const H = input.variety.harvestWindowDays;
+	let planBedFootDays = 0;
+	for (const r of plan.items) planBedFootDays += r.feet * (r.start + H - r.field);
+	const p = problem;
+	if (!p) return { lp: '', planBedFootDays, variables: 0 };
+	const obj: string[] = [];
+	const rows: string[] = [];
+	const used = new Set<number>();
+	for (let w = 0; w < p.nWeeks; w++) {
+		if (!(p.target[w] > 0) || !(p.need[w] > 0)) continue;
+		const terms: string[] = [];
+		for (let c = w; c >= Math.max(p.cMin, w - p.span + 1); c--) {
+			if (p.step > 1 && ((c % p.step) + p.step) % p.step !== 0) continue;
+			const cf = p.perFt(c, w);
+			if (!(cf > 0) || !p.candidate(c).ok) continue;
+			terms.push(`${cf} x${c - p.cMin}`);
+			used.add(c);
+		}
+		if (terms.length > 0) rows.push(` w${w}: ${terms.join(' + ')} >= ${p.need[w]}`);
+	}
+	for (const c of [...used].sort((a, b) => a - b)) obj.push(`${p.candidate(c).occupancy} x${c - p.cMin}`);
+	if (rows.length === 0) return { lp: '', planBedFootDays, variables: 0 };
+	const lp = `Minimize\n obj: ${obj.join(' + ')}\nSubject To\n${rows.join('\n')}\nEnd\n`;
+	return { lp, planBedFootDays, variables: used.size };
 }

@@ -5,6 +5,8 @@
  * in the crop's harvest unit (lb, bunch, head, each) — the engine never mixes
  * units: targets and yields for one crop must use the same unit.
  */
+import type { HarvestCurve } from './harvest-curve';
+
 export type SowingMethod = 'direct' | 'transplant';
 
 export interface Variety {
@@ -40,6 +42,8 @@ export interface Variety {
 	seedsPerPacket?: number;
 	/** Extra seed margin (fraction) for this variety; falls back to options.seedMargin. */
 	margin?: number;
+	/** How the yield spreads over the harvest window; default flat. */
+	harvestCurve?: HarvestCurve;
 }
 
 export type WarningCode =

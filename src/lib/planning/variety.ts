@@ -8,6 +8,7 @@ import {
 	requireRate
 } from './errors';
 import type { Variety } from './types';
+import { validateCurve } from './harvest-curve';
 
 /** Check a variety's plain data; throws PlanningInputError naming `variety.<field>`. */
 export function validateVariety(v: Variety): Variety {
@@ -35,6 +36,7 @@ export function validateVariety(v: Variety): Variety {
 	if (v.baseTempF !== undefined) requireFinite(f('baseTempF'), v.baseTempF);
 	if (v.gddToMaturity !== undefined) requirePositive(f('gddToMaturity'), v.gddToMaturity);
 	if (v.margin !== undefined) requireNonNegative(f('margin'), v.margin);
+	if (v.harvestCurve !== undefined) validateCurve(v.harvestCurve, f('harvestCurve'));
 	return v;
 }
 

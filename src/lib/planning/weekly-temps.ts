@@ -18,7 +18,7 @@ export function makeTempLookup(temps: WeeklyMeanTempF): TempLookup {
 		if (cache.has(monday)) return cache.get(monday);
 		const { year, week } = isoWeekPartsOfDay(monday);
 		const ww = week < 10 ? `W0${week}` : `W${week}`;
-		const dated = temps[`${year}-${ww}`];
+		const dated = temps[`${String(year).padStart(4, '0')}-${ww}`];
 		const value = typeof dated === 'number' ? dated : typeof temps[ww] === 'number' ? temps[ww] : undefined;
 		cache.set(monday, value);
 		return value;

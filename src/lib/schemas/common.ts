@@ -24,11 +24,65 @@ export const password = z
 	.min(10, 'Password must be at least 10 characters.')
 	.max(200, 'Password must be at most 200 characters.');
 
+/**
+ * The app's one rule for calendar dates: 'YYYY-MM-DD', a real calendar date, in 1900–2200.
+ * Planting dates are held tighter still, to their season's year ± 1 (seasonDateProblem).
+ */
+export const DATE_MIN_YEAR = 1900;
+export const DATE_MAX_YEAR = 2200;
+
+/** Why `v` is not an acceptable date, or null when it is. */
+export function dateProblem(label: string, v: string): string | null {
+	if (!/^\d{4}-\d{2}-\d{2}$/.test(v)) return `${label} must be a date (YYYY-MM-DD).`;
+	const year = Number(v.slice(0, 4));
+	const month = Number(v.slice(5, 7));
+	const day = Number(v.slice(8, 10));
+	const real = month >= 1 && month <= 12 && day >= 1 && day <= new Date(Date.UTC(2000, month, 0)).getUTCDate() && (month !== 2 || day < 29 || leap(year));
+	if (!real) return `${label} is not a real calendar date.`;
+	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR) return `${label} must be between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
+	return null;
+}
+
+function leap(y: number): boolean {
+	return (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
+}
+
 export const isoDate = (label: string) =>
+	z.string({ error: `${label} is required.` }).superRefine((v, ctx) => {
+		const problem = dateProblem(label, v);
+		if (problem) ctx.addIssue({ code: 'custom', message: problem });
+	});
+
+/** A planting's dates (planned or actual) lie within its season's year ± 1. */
+export function seasonDateProblem(label: string, v: string, seasonYear: number): string | null {
+	const year = Number(v.slice(0, 4));
+	if (Math.abs(year - seasonYear) > 1) return `${label} must be within ${seasonYear - 1}–${seasonYear + 1}, the ${seasonYear} season's year ± 1.`;
+	return null;
+}
+
+/** An ISO week key 'YYYY-Www' that exists (W53 only in years that have one), in 1900–2200. */
+export function isoWeekProblem(label: string, v: string): string | null {
+	if (!/^\d{4}-W\d{2}$/.test(v)) return `${label} must be an ISO week like 2027-W24.`;
+	const year = Number(v.slice(0, 4));
+	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR) return `${label} must be a week between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
+	const week = Number(v.slice(6));
+	// ISO 8601: a year has 53 weeks when 28 December falls in week 53 (its 1 January or, in a
+	// leap year, 31 December is a Thursday); otherwise 52.
+	const jan1 = new Date(Date.UTC(year, 0, 1)).getUTCDay();
+	const weeks = jan1 === 4 || (leap(year) && jan1 === 3) ? 53 : 52;
+	if (week < 1 || week > weeks) return `${label}: ${year} has no ISO week ${week} (it has ${weeks}).`;
+	return null;
+}
+
+export const isoWeekKey = (label: string) =>
 	z
 		.string({ error: `${label} is required.` })
-		.regex(/^\d{4}-\d{2}-\d{2}$/, `${label} must be a date (YYYY-MM-DD).`)
-		.refine((v) => !Number.isNaN(Date.parse(`${v}T00:00:00Z`)) && new Date(`${v}T00:00:00Z`).toISOString().startsWith(v), `${label} is not a real calendar date.`);
+		.trim()
+		.transform((v) => v.toUpperCase())
+		.superRefine((v, ctx) => {
+			const problem = isoWeekProblem(label, v);
+			if (problem) ctx.addIssue({ code: 'custom', message: problem });
+		});
 
 /** A number typed into a form field (a string there) or sent as JSON (a number). */
 export const numberField = (label: string, min: number, max: number, opts: { int?: boolean } = {}) =>

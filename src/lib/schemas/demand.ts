@@ -1,8 +1,7 @@
 // Demand inputs: share sizes, grid cells (box contents and channel demand), copy-a-week, and one
 // row of a demand upload. Shared by the page forms, the JSON routes, the upload and the browser.
 import { z } from 'zod';
-import { weeksInIsoYear } from '$lib/planning/iso-week';
-import { numberField, plainText } from './common';
+import { isoWeekKey, numberField, plainText } from './common';
 
 export const harvestUnits = ['lb', 'bunch', 'head', 'each'] as const;
 export type HarvestUnit = (typeof harvestUnits)[number];
@@ -11,17 +10,8 @@ export const pickupDayNames = ['Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat', 'Sun'] 
 export const channels = ['market', 'restaurant'] as const;
 export type Channel = (typeof channels)[number];
 
-/** An ISO 8601 week, "YYYY-Www", that exists in its year (W53 only in long years). */
-export const isoWeekField = (label: string) =>
-	z
-		.string({ error: `${label} is required.` })
-		.trim()
-		.toUpperCase()
-		.regex(/^\d{4}-W\d{2}$/, `${label} must be an ISO week like 2027-W24.`)
-		.refine((w) => {
-			const week = Number(w.slice(6));
-			return week >= 1 && week <= weeksInIsoYear(Number(w.slice(0, 4)));
-		}, `${label} is not a week of that year.`);
+/** An ISO 8601 week, "YYYY-Www", that exists in its year, in 1900–2200: the app's one week rule. */
+export const isoWeekField = isoWeekKey;
 
 /** Money typed as dollars ("720", "720.50") or sent as a number; stored as whole cents. */
 const moneyCents = (label: string) =>

@@ -1,18 +1,10 @@
 // The forecast's query string (GET /api/seasons/{id}/forecast) and the box swap input, shared
 // by the API routes, the page actions and the browser.
 import { z } from 'zod';
-import { weeksInIsoYear } from '$lib/planning/iso-week';
+import { isoWeekKey } from './common';
 
-/** An ISO week 'YYYY-Www' that exists (W53 only in years that have one). */
-export const isoWeekField = (label: string) =>
-	z
-		.string({ error: `${label} is required.` })
-		.trim()
-		.regex(/^\d{4}-W\d{2}$/, `${label} must be an ISO week like 2027-W24.`)
-		.refine((v) => {
-			const n = Number(v.slice(6));
-			return n >= 1 && n <= weeksInIsoYear(Number(v.slice(0, 4)));
-		}, `${label} is not a week of that year.`);
+/** An ISO week 'YYYY-Www' that exists, in 1900–2200 (the app's one week rule). */
+export const isoWeekField = isoWeekKey;
 
 /** Longest range one request may ask for: two years of weeks. */
 export const MAX_FORECAST_WEEKS = 106;

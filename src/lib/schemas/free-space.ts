@@ -1,22 +1,10 @@
 // The free-space question "which beds are free from week X to week Y, for how many feet?",
 // shared by the bed timeline's form (query string), the JSON route and the browser.
 import { z } from 'zod';
-import { parseIsoWeek, PlanningInputError, weekStart } from '$lib/planning';
-import { numberField } from './common';
+import { weekStart } from '$lib/planning';
+import { isoWeekKey, numberField } from './common';
 
-const isoWeekField = (label: string) =>
-	z
-		.string({ error: `${label} is required.` })
-		.trim()
-		.min(1, `${label} is required.`)
-		.superRefine((v, ctx) => {
-			try {
-				parseIsoWeek(v);
-			} catch (e) {
-				const why = e instanceof PlanningInputError ? e.message.replace(/^week: /, '') : 'is not an ISO week';
-				ctx.addIssue({ code: 'custom', message: `${label} ${why}.` });
-			}
-		});
+const isoWeekField = isoWeekKey;
 
 const blank = (v: unknown): unknown => (typeof v === 'string' && v.trim() === '' ? undefined : v);
 

@@ -2,6 +2,7 @@
 import { db } from './db';
 
 import type { VarietyView } from '$lib/types';
+import type { HarvestCurve } from '$lib/planning';
 
 export type { VarietyView };
 
@@ -10,7 +11,8 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])
-		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f');
+		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f',
+			'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days');
 	return rows.map((r) => ({
 		id: r.id,
 		cropId: r.crop_id,
@@ -35,6 +37,27 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		seedsPerPacket: r.seeds_per_packet,
 		cellsPerTray: r.cells_per_tray,
 		margin: Number(r.margin),
-		gddToMaturity: r.gdd_to_maturity
+		gddToMaturity: r.gdd_to_maturity,
+		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
+		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
 	}));
+}
+
+const CURVES = ['flat', 'ramp', 'single', 'cuts'] as const;
+
+function shapeOf(x: unknown): (typeof CURVES)[number] {
+	return CURVES.find((c) => c === x) ?? 'flat';
+}
+
+/**
+ * A stored curve (the variety's, else the crop's) as the engine takes it; undefined for flat.
+ * One rule for every screen and file: a planting's expected harvest follows its variety's
+ * current yield, window and curve, spread from its first to its last harvest date.
+ */
+export function curveOf(shape: unknown, cutIntervalDays?: unknown): HarvestCurve | undefined {
+	const s = shapeOf(shape);
+	if (s === 'flat') return undefined;
+	const out: HarvestCurve = { shape: s };
+	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0) out.intervalDays = Number(cutIntervalDays);
+	return out;
 }

@@ -15,6 +15,7 @@ import {
 } from '$lib/planning';
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { todayIn } from '$lib/today';
+import { curveOf } from './crops';
 import { db } from './db';
 import { targetInput } from './demand';
 import type { Season } from './seasons';
@@ -71,11 +72,19 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	const [farm, crops, plantings, harvests, input, swaps] = await Promise.all([
 		db()('farms').where({ id: farmId }).first('time_zone'),
 		listCrops(farmId),
+		// Every planting harvesting in the season's dates, whatever season it belongs to (last
+		// autumn's garlic, dug this summer, feeds this season's boxes).
 		db()('plantings as p')
 			.join('varieties as v', 'v.id', 'p.variety_id')
-			.where({ 'p.farm_id': farmId, 'p.season_id': season.id })
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where({ 'p.farm_id': farmId })
+			.where('p.first_harvest', '<=', season.endsOn)
+			.where('p.last_harvest', '>=', season.startsOn)
 			.whereNot('p.status', 'failed')
-			.select('p.id', 'v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot'),
+			.select(
+				'p.id', 'v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot', 'v.harvest_window_days',
+				'v.harvest_curve', 'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days'
+			),
 		db()('harvest_records as h')
 			.join('plantings as p', 'p.id', 'h.planting_id')
 			.join('varieties as v', 'v.id', 'p.variety_id')
@@ -96,7 +105,9 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 		firstHarvest: p.first_harvest,
 		lastHarvest: p.last_harvest,
 		bedFeet: Number(p.length_ft),
-		yieldPerBedFoot: Number(p.yield_per_bed_foot)
+		yieldPerBedFoot: Number(p.yield_per_bed_foot),
+		curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days),
+		windowDays: Number(p.harvest_window_days)
 	}));
 	const { supply, actual } = supplyWithActuals(
 		forecastPlantings,

@@ -26,7 +26,7 @@ export interface PlanPreview {
 export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
 	const seasonId = season.id;
 	const farm = await farms.get(farmId);
-	const [temps, varieties, bedList, demand, existing, obstacles] = await Promise.all([
+	const [temps, varieties, bedList, demand, existing, obstacles, otherSeasons] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
@@ -35,10 +35,20 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			.join('varieties as v', 'v.id', 'p.variety_id')
 			.join('crops as c', 'c.id', 'v.crop_id')
 			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-			.select('p.id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
+			.select('p.id', 'p.status', 'p.variety_id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
 		// Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer).
-		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId)
+		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId),
+		// Other seasons' plantings harvesting in this season's dates: they supply its weeks too.
+		db()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.where({ 'p.farm_id': farmId })
+			.whereNot('p.season_id', seasonId)
+			.whereNot('p.status', 'failed')
+			.where('p.first_harvest', '<=', season.endsOn)
+			.where('p.last_harvest', '>=', season.startsOn)
+			.select('p.id', 'p.variety_id', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest')
 	]);
+	const engineVarieties = new Map(varieties.map((v) => [String(v.id), toEngineVariety(v)]));
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
 	const kept: KeptPlanting[] = keptRows
@@ -53,8 +63,29 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			fieldDate: p.field_date,
 			firstHarvest: p.first_harvest,
 			lastHarvest: p.last_harvest,
-			yieldPerBedFoot: Number(p.yield_per_bed_foot)
+			yieldPerBedFoot: Number(p.yield_per_bed_foot),
+			curve: engineVarieties.get(String(p.variety_id))?.harvestCurve,
+			windowDays: engineVarieties.get(String(p.variety_id))?.harvestWindowDays
 		}));
+	// Supply only: their bed-feet are already worked around as obstacles.
+	for (const p of otherSeasons) {
+		const v = engineVarieties.get(String(p.variety_id));
+		if (!v) continue;
+		kept.push({
+			key: `planting#${p.id}`,
+			cropId: v.cropId,
+			family: v.family,
+			bedId: null,
+			startFt: 0,
+			lengthFt: Number(p.length_ft),
+			fieldDate: p.field_date,
+			firstHarvest: p.first_harvest,
+			lastHarvest: p.last_harvest,
+			yieldPerBedFoot: v.yieldPerBedFoot,
+			curve: v.harvestCurve,
+			windowDays: v.harvestWindowDays
+		});
+	}
 	const plan = planSeason({
 		farm: {
 			lastSpringFrost: farm.lastSpringFrost,
@@ -62,7 +93,7 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},
-		varieties: varieties.map(toEngineVariety),
+		varieties: [...engineVarieties.values()],
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,

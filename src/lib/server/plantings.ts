@@ -9,6 +9,8 @@ import * as bedsData from './beds';
 import { listVarieties } from './crops';
 
 import type { PlantingView } from '$lib/types';
+import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
+import { todayIn } from '$lib/today';
 
 export type { PlantingView };
 
@@ -197,17 +199,70 @@ function withDefaults(input: PlantingCreate, v: GridVariety | undefined): Full {
 	};
 }
 
+const dateLabels = {
+	fieldDate: 'Field date',
+	actualTraySowDate: 'Actual tray sowing',
+	actualFieldDate: 'Actual field date',
+	actualFirstHarvest: 'Actual first harvest',
+	actualLastHarvest: 'Actual last harvest'
+} as const;
+type DateField = keyof typeof dateLabels;
+const actualFields: DateField[] = ['actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest'];
+
+/** The season's year and the farm's today, which a planting's dates are held to. */
+export interface DateLimits {
+	seasonYear: number;
+	today: string;
+}
+
+export async function dateLimits(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<DateLimits | null> {
+	const q = trx ?? db();
+	const row = await q('seasons as s').join('farms as f', 'f.id', 's.farm_id').where({ 's.id': seasonId, 's.farm_id': farmId }).first('s.year', 'f.time_zone');
+	return row ? { seasonYear: Number(row.year), today: todayIn(row.time_zone) } : null;
+}
+
+/**
+ * The rules every writer of a planting's dates follows (grid, API, crew sheet alike): each date
+ * within the season's year ± 1; actual dates never after the farm's today; harvests not before
+ * the planting went into the field, the last not before the first. Only the fields being
+ * written are judged, so an old row's odd value does not block an unrelated edit.
+ */
+export function plantingDateErrors(values: Partial<Record<DateField, string | null>>, written: readonly string[], limits: DateLimits, prefix = ''): DateErrors {
+	const errors: DateErrors = {};
+	const field = values.actualFieldDate ?? values.fieldDate ?? null;
+	for (const f of Object.keys(dateLabels) as DateField[]) {
+		const v = values[f];
+		if (!written.includes(f) || !v) continue;
+		const label = dateLabels[f];
+		const problem =
+			seasonDateProblem(label, v, limits.seasonYear) ??
+			(actualFields.includes(f) && v > limits.today ? `${label} cannot be after today (${limits.today}).` : null) ??
+			((f === 'actualFirstHarvest' || f === 'actualLastHarvest') && field && v < field ? `${label} cannot be before the planting went into the field (${field}).` : null) ??
+			(f === 'actualLastHarvest' && values.actualFirstHarvest && v < values.actualFirstHarvest
+				? `${label} cannot be before the actual first harvest (${values.actualFirstHarvest}).`
+				: null);
+		if (problem) errors[`${prefix}${f}`] = problem;
+	}
+	return errors;
+}
+
 export type CreateResult = { ok: true; plantings: PlantingView[] } | { ok: false; errors: FieldErrors };
 
 /** New rows (one, or a whole paste) in one transaction: all of them or none. */
 export async function create(farmId: number, seasonId: number, userId: string, inputs: PlantingCreate[]): Promise<CreateResult> {
 	const ctx = await gridContext(farmId);
+	const limits = await dateLimits(farmId, seasonId);
+	if (!limits) return { ok: false, errors: { seasonId: 'No such season on this farm.' } };
 	const byId = new Map(ctx.varieties.map((v) => [v.id, v]));
 	const rows: Record<string, unknown>[] = [];
 	const errors: FieldErrors = {};
 	inputs.forEach((input, i) => {
 		const v = byId.get(input.varietyId);
-		const built = buildRow(withDefaults(input, v), v, ctx, `plantings.${i}.`);
+		const values = withDefaults(input, v);
+		const dateErrors = plantingDateErrors(values as Partial<Record<DateField, string | null>>, Object.keys(input), limits, `plantings.${i}.`);
+		Object.assign(errors, dateErrors);
+		if (Object.keys(dateErrors).length) return;
+		const built = buildRow(values, v, ctx, `plantings.${i}.`);
 		Object.assign(errors, built.errors);
 		if (built.row) rows.push({ ...built.row, farm_id: farmId, season_id: seasonId, updated_by: userId });
 	});
@@ -246,6 +301,9 @@ export async function update(farmId: number, id: number, user: { id: string; rol
 			return { kind: 'conflict', current: current! } as const;
 		}
 		const values = { ...rowValues(cur), ...changes } as Full;
+		const limits = await dateLimits(farmId, cur.season_id, trx);
+		const dateErrors = limits ? plantingDateErrors(values as Partial<Record<DateField, string | null>>, Object.keys(changes), limits) : {};
+		if (Object.keys(dateErrors).length) return { kind: 'invalid', errors: dateErrors } as const;
 		const built = buildRow(values, ctx.varieties.find((v) => v.id === values.varietyId), ctx, '');
 		if (!built.row) return { kind: 'invalid', errors: built.errors } as const;
 		await trx('plantings').where({ id, farm_id: farmId }).update({ ...built.row, version: version + 1, updated_by: user.id, updated_at: trx.fn.now() });

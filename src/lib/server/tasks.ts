@@ -1,6 +1,7 @@
 // Marking a crew task done: the planting's status moves forward to what the task implies and the
 // matching actual date is recorded, in one transaction with the row locked, bumping `version`.
 import { db } from './db';
+import { seasonDateProblem } from '$lib/schemas/common';
 import type { MarkDone, TaskKind } from './sheets/schemas';
 
 type Status = 'planned' | 'sown' | 'transplanted' | 'harvesting' | 'finished' | 'failed';
@@ -31,6 +32,10 @@ export async function markTaskDone(farmId: number, seasonId: number, userId: str
 			.forUpdate()
 			.first('id', 'method', 'status', 'version', 'notes', 'actual_first_harvest');
 		if (!row) return { ok: false, code: 404, message: 'No such planting in this season.' } as const;
+		// The same date rules as an edit in the grid or the API.
+		const season = await trx('seasons').where({ id: seasonId, farm_id: farmId }).first('year');
+		const wrong = season ? seasonDateProblem('Actual date', input.date, Number(season.year)) : null;
+		if (wrong) return { ok: false, code: 400, field: 'date', message: wrong } as const;
 		if (input.version !== undefined && input.version !== row.version) {
 			return { ok: false, code: 409, message: 'Someone changed this planting since the sheet was opened. Reload the sheet and try again.' } as const;
 		}

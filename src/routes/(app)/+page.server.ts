@@ -5,13 +5,15 @@ import * as farms from '$lib/server/farms';
 import { tasksForWeek } from '$lib/server/plantings';
 import { addDays, addWeeks, isoWeek, weekStart } from '$lib/planning/iso-week';
 import { todayIn } from '$lib/today';
+import { isoWeekProblem } from '$lib/schemas/common';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const settings = await farms.get(farm.id);
 	const today = todayIn(settings.timeZone);
 	const requested = event.url.searchParams.get('week');
-	if (requested !== null && !/^\d{4}-W\d{2}$/.test(requested)) error(400, 'week must be an ISO week like 2027-W19.');
+	const problem = requested === null ? null : isoWeekProblem('week', requested);
+	if (problem) error(400, problem);
 	const week = requested ?? isoWeek(today);
 	let monday: string;
 	try {

@@ -67,7 +67,10 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 			return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
 		} catch (err) {
 			if (err instanceof ImportRefused) return refuse(err.status, err.issues);
-			if (isDeadlock(err) && attempt === 1) continue;
+			if (isDeadlock(err) && attempt === 1) {
+				console.warn('[furrowcast] import deadlocked with another; retrying once');
+				continue;
+			}
 			if (isDeadlock(err)) return refuse(409, fileIssue('Another import into this farm was running at the same time; nothing of this one was written. Try again.'));
 			throw err;
 		}

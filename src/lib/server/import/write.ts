@@ -5,6 +5,7 @@
 import type { Knex } from 'knex';
 import type { ImportIssue } from '$lib/schemas/import';
 import { db } from '../db';
+import { seasonDateProblem } from '$lib/schemas/common';
 import type { ImportPlan } from './validate';
 
 export interface ImportSummary {
@@ -130,6 +131,21 @@ export async function writeImport(farmId: number, userId: string, plan: ImportPl
 		};
 		if (!plan.plantings.length) return summary;
 		const season = await targetSeason(trx, farmId, plan, seasonId);
+		// Every planting date within the receiving season's year ± 1, as in the grid and the API.
+		const year = Number((await trx('seasons').where({ id: season.id }).first('year')).year);
+		const dateIssues: ImportIssue[] = [];
+		for (const { row, data: p } of plan.plantings) {
+			const dates: [string, string | null][] = [
+				['Tray sowing', p.traySowDate], ['Field date', p.fieldDate], ['First harvest', p.firstHarvest], ['Last harvest', p.lastHarvest],
+				['Actual tray sowing', p.actualTraySowDate], ['Actual field date', p.actualFieldDate],
+				['Actual first harvest', p.actualFirstHarvest], ['Actual last harvest', p.actualLastHarvest]
+			];
+			for (const [header, v] of dates) {
+				const problem = v ? seasonDateProblem(header, v, year) : null;
+				if (problem) dateIssues.push({ sheet: 'Plantings', row, column: null, header, message: problem });
+			}
+		}
+		if (dateIssues.length) throw new ImportRefused(dateIssues);
 		summary.seasonId = season.id;
 		summary.seasonCreated = season.created;
 		const rows = plan.plantings.map(({ data: p }) => {

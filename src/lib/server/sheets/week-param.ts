@@ -1,13 +1,15 @@
 // The [isoWeek] of a sheet's URL: a well-formed ISO week that exists (else 400) and touches the
 // season's dates (else 404).
 import { addDays, weekStart } from '$lib/planning';
+import { isoWeekProblem } from '$lib/schemas/common';
 import type { Season } from '../seasons';
 
 export type WeekParam = { ok: true; week: string; monday: string; sunday: string } | { ok: false; status: 400 | 404; message: string };
 
 export function parseWeekParam(raw: string, season: Season): WeekParam {
 	const week = raw.toUpperCase();
-	if (!/^\d{4}-W\d{2}$/.test(week)) return { ok: false, status: 400, message: `"${raw}" is not an ISO week: write it like 2027-W19.` };
+	const problem = isoWeekProblem('week', week);
+	if (problem) return { ok: false, status: 400, message: `"${raw}" is not an ISO week we plan for: ${problem}` };
 	let monday: string;
 	try {
 		monday = weekStart(week);

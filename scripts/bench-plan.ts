@@ -1,0 +1,43 @@
+/**
+ * Plan quality: how well the demo farm's plan fits its demand (supply ÷ demand per crop, short
+ * crop-weeks), and how close the benchmark season's sizing comes to the linear program's lower
+ * bound (bed-foot-days ÷ bound, solved with the `highs` package).
+ *
+ *   npx tsx scripts/bench-plan.ts
+ */
+import { pathToFileURL } from 'node:url';
+import highsLoader from 'highs';
+import { demoPlanSupply, planDemoSeason, supplyRatioSummary } from '../db/seeds/demo-farm';
+import { sizingLp } from '../src/lib/planning/index';
+import { makeSeason } from './bench-engine';
+
+export async function runPlanBench(): Promise<Record<string, number>> {
+	const round = (x: number, places = 3): number => Math.round(x * 10 ** places) / 10 ** places;
+	const demo = supplyRatioSummary(demoPlanSupply(planDemoSeason()));
+	const highs = await highsLoader();
+	const season = makeSeason(60, 200);
+	let plan = 0;
+	let bound = 0;
+	for (const variety of season.varieties) {
+		const targets = season.targets.filter((t) => t.crop === variety.cropId).map((t) => ({ week: t.week, quantity: t.quantity }));
+		const { lp, planBedFootDays } = sizingLp({ variety, targets, farm: season.farm, options: season.options });
+		if (!lp) continue;
+		const result = highs.solve(lp);
+		if (result.Status !== 'Optimal') throw new Error(`LP for ${variety.id}: ${result.Status}`);
+		plan += planBedFootDays;
+		bound += result.ObjectiveValue;
+	}
+	return {
+		'plan.demo.supply_ratio_median': round(demo.median),
+		'plan.demo.supply_ratio_max': round(demo.max),
+		'plan.demo.short_crop_weeks': demo.shortCropWeeks,
+		'plan.lp_gap': round(plan / bound)
+	};
+}
+
+const isMain = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
+if (isMain) {
+	void runPlanBench().then((results) => {
+		for (const [k, v] of Object.entries(results)) console.log(`${k}: ${v}`);
+	});
+}
