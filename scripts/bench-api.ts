@@ -31,13 +31,15 @@ import { chromium } from 'playwright-core';
 import { knexConfig } from '../knexfile';
 import { chromiumFlags } from '../tests/helpers/browser';
 
-const GET_REQUESTS = 200; // per target and round
+const GET_REQUESTS = 100; // per target and round
 const ROUNDS = 2;
-const PATCH_REQUESTS = 1000;
+const PATCH_REQUESTS = 500;
 const TENANTS = 1000;
 const TENANT_ROWS = 500;
 const PAINT_RUNS = 3;
 
+const started = Date.now();
+const phase = (what: string) => process.stderr.write(`[bench-api] ${what} at ${((Date.now() - started) / 1000).toFixed(1)} s\n`);
 const round = (x: number, places = 2) => Math.round(x * 10 ** places) / 10 ** places;
 function p95(xs: number[]): number {
 	if (!xs.length) return NaN;
@@ -76,7 +78,7 @@ interface BenchFarm {
 }
 
 /** Signs a bench farm up like anyone, then writes its ground and `rows` plantings straight in. */
-async function benchFarm(db: Knex, base: string, tag: string, rows: number): Promise<BenchFarm> {
+export async function benchFarm(db: Knex, base: string, tag: string, rows: number): Promise<BenchFarm> {
 	const email = `bench-${tag}-${Date.now().toString(36)}@bench.furrowcast.test`;
 	const form = new URLSearchParams({ name: 'Bench Grower (invented)', email, password: 'Furrow-bench-7Qx-pl2', farmName: `Bench ${tag} (invented)`, latitude: '42', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05' });
 	const signup = await fetch(`${base}/signup`, { method: 'POST', body: form, headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }, redirect: 'manual' });
@@ -99,7 +101,7 @@ async function benchFarm(db: Knex, base: string, tag: string, rows: number): Pro
 	return { farmId, seasonId, cookie, email };
 }
 
-async function removeFarm(db: Knex, f: BenchFarm): Promise<void> {
+export async function removeFarm(db: Knex, f: BenchFarm): Promise<void> {
 	await db('plantings').where({ farm_id: f.farmId }).delete();
 	await db('farms').where({ id: f.farmId }).delete();
 	await db('users').where({ email: f.email }).delete();
@@ -119,6 +121,13 @@ async function manyFarms(db: Knex, tag: string): Promise<void> {
 		 SELECT c.farm_id, c.id, 'Tenant Orange', 'direct', 70, 14, 1.5, 4, 1, 1, 0.65, 776 FROM crops c JOIN farms f ON f.id = c.farm_id WHERE f.name LIKE ?`,
 		[like]
 	);
+	// Ground like a small farm's: one block of 40 beds each (the grid's context lists them).
+	await db.raw(`INSERT INTO blocks (farm_id, name, position) SELECT id, 'Tenant block', 1 FROM farms WHERE name LIKE ?`, [like]);
+	await db.raw(
+		`INSERT INTO beds (farm_id, block_id, name, length_ft, position)
+		 SELECT k.farm_id, k.id, CONCAT('Bed ', q.seq), 100, q.seq FROM blocks k JOIN farms f ON f.id = k.farm_id JOIN seq_1_to_40 q WHERE f.name LIKE ?`,
+		[like]
+	);
 	await db.raw(`INSERT INTO seasons (farm_id, year, name, starts_on, ends_on) SELECT id, 2027, 'Tenant 2027 (invented)', '2027-01-01', '2027-12-31' FROM farms WHERE name LIKE ?`, [like]);
 	await db.raw(
 		`INSERT INTO plantings (farm_id, season_id, variety_id, length_ft, \`rows\`, in_row_spacing_in, method, field_date, first_harvest, last_harvest, expected_yield, seeds_needed)
@@ -126,7 +135,7 @@ async function manyFarms(db: Knex, tag: string): Promise<void> {
 		 FROM seasons s JOIN farms f ON f.id = s.farm_id JOIN varieties v ON v.farm_id = s.farm_id JOIN seq_1_to_${TENANT_ROWS} q WHERE f.name LIKE ?`,
 		[like]
 	);
-	await db.raw('ANALYZE TABLE plantings, farms, seasons, varieties, crops');
+	await db.raw('ANALYZE TABLE plantings, farms, seasons, varieties, crops, blocks, beds');
 }
 
 async function removeManyFarms(db: Knex, tag: string): Promise<void> {
@@ -134,6 +143,7 @@ async function removeManyFarms(db: Knex, tag: string): Promise<void> {
 	for (let i = 0; i < ids.length; i += 100) {
 		const part = ids.slice(i, i + 100);
 		await db('plantings').whereIn('farm_id', part).delete();
+		await db('beds').whereIn('farm_id', part).delete();
 		await db('farms').whereIn('id', part).delete();
 	}
 }
@@ -173,13 +183,16 @@ export async function runApiBench(): Promise<Record<string, number>> {
 		farms.push(one);
 		const oneUrl = `${base}/api/seasons/${one.seasonId}/plantings`;
 		const tenantRun = async () => {
-			await getLoad(oneUrl, one.cookie, 50); // warm-up, not counted
-			return getLoad(oneUrl, one.cookie, 400);
+			await getLoad(oneUrl, one.cookie, 40); // warm-up, not counted
+			return getLoad(oneUrl, one.cookie, 300);
 		};
 		const alone = await tenantRun();
+		phase('one farm measured');
 		many = true;
 		await manyFarms(db, tag);
+		phase('1,000 farms written');
 		const among = await tenantRun();
+		phase('among 1,000 farms measured');
 		out['api.multitenant.alone_p95_ms'] = round(p95(alone.times));
 		out['api.multitenant.p95_ms'] = round(p95(among.times));
 		out['api.multitenant.p95_ratio'] = round(p95(among.times) / p95(alone.times), 3);
@@ -193,6 +206,7 @@ export async function runApiBench(): Promise<Record<string, number>> {
 		const body = Buffer.from(await res.arrayBuffer());
 		if (res.status !== 200) throw new Error(`the plantings API answered ${res.status}`);
 		bare = await bareServer(body);
+		phase('5,000-row farm ready');
 		await getLoad(url, big.cookie, 20);
 		await getLoad(bare.url, undefined, 20);
 		const api: Load[] = [];
@@ -202,6 +216,7 @@ export async function runApiBench(): Promise<Record<string, number>> {
 			floor.push(await getLoad(bare.url, undefined, GET_REQUESTS));
 		}
 		const apiTimes = api.flatMap((l) => l.times);
+		phase('GET loads done');
 		const bareTimes = floor.flatMap((l) => l.times);
 		out['api.plantings.p95_ms'] = round(p95(apiTimes));
 		out['api.bare.p95_ms'] = round(p95(bareTimes));
@@ -228,6 +243,7 @@ export async function runApiBench(): Promise<Record<string, number>> {
 			]
 		});
 		out['api.patch.p95_ms'] = round(p95(patch.times));
+		phase('PATCH load done');
 		out['api.patch.conflicts'] = patch.status.get(409) ?? 0;
 		out['api.patch.errors'] = patch.errors + [...patch.status].filter(([s]) => s !== 200 && s !== 409).reduce((n, [, c]) => n + c, 0);
 

@@ -9,7 +9,7 @@
  */
 import { addDays } from '../src/lib/planning/index';
 import { layoutTimeline } from '../src/lib/components/timeline/layout';
-import type { TimelinePlanting } from '../src/lib/components/timeline/types';
+import type { TimelinePlanting } from '../src/lib/timeline-types';
 import { Client } from '../tests/helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../tests/helpers/db';
 import { launch, signIn } from '../tests/helpers/browser';

@@ -12,6 +12,12 @@ export FC_SMTP_PORT="${FC_TEST_SMTP_PORT:-2526}"
 export FC_MAIL_DIR="$FC_DATA_DIR/mail-test-$FC_SMTP_PORT"
 export FC_PORT="${FC_TEST_PORT:-3100}"
 export FC_BASE_URL="http://$FC_HOST:$FC_PORT"
+# Every test reaches the test server from one address, 127.0.0.1: per-address limits would make one
+# test's wrong passwords slow down the next file. The per-address limits are tested on a second app
+# server behind a header (tests/integration/sign-in-limits.test.ts); per-account limits keep their defaults.
+export FC_SIGNIN_ADDRESS_FREE="${FC_SIGNIN_ADDRESS_FREE:-100000}"
+export FC_FORGOT_ADDRESS_LIMIT="${FC_FORGOT_ADDRESS_LIMIT:-100000}"
+export FC_SIGNUP_ADDRESS_LIMIT="${FC_SIGNUP_ADDRESS_LIMIT:-100000}"
 export FC_DEMO_MODE=1
 
 cleanup_test_env() {

@@ -1,7 +1,7 @@
 // Resolves the session and the farm once per request; routes read them from locals.
 import type { Handle } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
-import { lucia, cookieIsSecure, clearSessionCookie, closeSessions } from '$lib/server/auth';
+import { closeSessions, validateSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
 import { resolveMembership } from '$lib/server/members';
 import { databaseUnavailable, handleDatabaseError } from '$lib/server/unavailable';
@@ -10,18 +10,9 @@ const session: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	event.locals.sessionId = null;
 	event.locals.farm = null;
-	const sessionId = event.cookies.get(lucia().sessionCookieName);
-	if (!sessionId) return resolve(event);
-
-	const { session, user } = await lucia().validateSession(sessionId);
-	if (!session || !user) {
-		clearSessionCookie(event.cookies, event.url);
-		return resolve(event);
-	}
-	if (session.fresh) {
-		const cookie = lucia().createSessionCookie(session.id);
-		event.cookies.set(cookie.name, cookie.value, { ...cookie.attributes, path: '/', httpOnly: true, secure: cookieIsSecure(event.url) });
-	}
+	const found = await validateSessionCookie(event.cookies, event.url);
+	if (!found) return resolve(event);
+	const { session, user } = found;
 	event.locals.user = { id: user.id, email: user.email, name: user.name };
 	event.locals.sessionId = session.id;
 	const membership = await resolveMembership(user.id, session.farmId);

@@ -15,6 +15,7 @@ export const navItems: readonly NavItem[] = [
 	{ href: '/seasons', label: 'Seasons', action: 'plan.read' },
 	{ href: '/crops', label: 'Crop library', action: 'plan.read' },
 	{ href: '/settings', label: 'Farm & beds', action: 'farm.settings' },
+	{ href: '/setup', label: 'Set-up', action: 'farm.settings' },
 	{ href: '/import', label: 'Import', action: 'season.import' },
 	{ href: '/team', label: 'Team', action: 'team.manage' },
 	{ href: '/dev/mail', label: 'Mail (dev)', action: 'mail.read' }

@@ -23,6 +23,10 @@ export const permissions = {
 	'season.import': ['owner'],
 	/** Start next season as a copy of this one. */
 	'season.copy': ['owner'],
+	/** Start an empty season, rename a season, archive it and bring it back. */
+	'seasons.manage': ['owner'],
+	/** Add, edit, archive and delete crops and varieties; pick crops from the starter library. */
+	'library.edit': ['owner'],
 	/** Take observed yields and days to maturity into the variety figures (and undo it). */
 	'varieties.adopt': ['owner'],
 	/** Mark the week's tasks done and send the crew sheets by e-mail. */
@@ -32,7 +36,9 @@ export const permissions = {
 	/** Keep share sizes, members, box contents and market and restaurant demand. */
 	'demand.edit': ['owner', 'share_manager'],
 	/** Swap short box items for crops in surplus, and undo a swap. */
-	'boxes.swap': ['owner', 'share_manager']
+	'boxes.swap': ['owner', 'share_manager'],
+	/** Set the fill under which a box item is flagged short. */
+	'boxes.settings': ['owner', 'share_manager']
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof permissions;

@@ -1,39 +1,25 @@
 // Shapes shared by the server and the browser (no server code here).
+import type { PlantingValues } from '$lib/plantings/fields';
 
 /** A planting with its variety, crop and bed joined in, as pages and the API show it. */
-export interface PlantingView {
+export interface PlantingView extends PlantingValues {
 	id: number;
 	seasonId: number;
-	varietyId: number;
 	variety: string;
 	crop: string;
 	family: string;
 	harvestUnit: string;
-	bedId: number | null;
 	bed: string | null;
 	block: string | null;
 	blockPosition: number | null;
 	bedPosition: number | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: 'direct' | 'transplant';
+	/** Worked out by the engine on every save (plantings/derive.ts). */
 	traySowDate: string | null;
-	fieldDate: string;
 	firstHarvest: string;
 	lastHarvest: string;
 	expectedYield: number;
 	seedsNeeded: number;
-	status: string;
-	notes: string | null;
 	version: number;
-	/** Added for the planting grid; optional so older callers need not fill them. */
-	actualTraySowDate?: string | null;
-	actualFieldDate?: string | null;
-	actualFirstHarvest?: string | null;
-	actualLastHarvest?: string | null;
 	/** Who saved the current version, and when (ISO timestamp). */
 	updatedBy?: string | null;
 	updatedAt?: string | null;
@@ -81,6 +67,10 @@ export interface VarietyView {
 	cellsPerTray: number;
 	margin: number;
 	gddToMaturity: number | null;
+	/** Archived varieties (or varieties of an archived crop) stay for history but are left out of new plans. */
+	archived?: boolean;
+	/** Where the variety's figures come from (handbook, extension guide, own records). */
+	source?: string | null;
 	/** How the yield spreads over the harvest window: the variety's, else the crop's (default flat). */
 	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
 	/** Days between cuts, for a curve of several cuts (null: the engine's default). */

@@ -5,16 +5,19 @@
 // Source for the rules: axe-core's WCAG 2.0/2.1 A and AA tags (Deque, axe-core rule descriptions).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import AxeBuilder from '@axe-core/playwright';
-import { launch, signIn, type BrowserSession, type Page } from '../helpers/browser';
+import { chromium, type Browser } from 'playwright-core';
+import { chromiumFlags, signIn, type Page } from '../helpers/browser';
+import { baseUrl } from '../helpers/env';
 import { closeTestDb } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { accessTable, type Who } from '../integration/access-table';
 import { makeAccessFixture, type AccessFixture } from '../integration/access-fixture';
 
-let browser: BrowserSession;
+// One browser; each role in its own context (its own cookies), the roles side by side.
+let browser: Browser;
 let f: AccessFixture;
 beforeAll(async () => {
-	browser = await launch({ viewport: { width: 1280, height: 800 } });
+	browser = await chromium.launch({ executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium', headless: true, args: chromiumFlags });
 	f = await makeAccessFixture();
 });
 afterAll(async () => {
@@ -61,7 +64,8 @@ async function widthProblem(page: Page, width: number): Promise<string | null> {
 
 async function visitAll(who: Who): Promise<Finding[]> {
 	const findings: Finding[] = [];
-	const page = await browser.context.newPage();
+	const context = await browser.newContext({ baseURL: baseUrl(), viewport: { width: 1280, height: 800 } });
+	const page = await context.newPage();
 	if (who !== 'anon') await signIn(page, demo[who as 'owner' | 'crew' | 'share'], demo.password);
 	for (const url of await pagesFor(who)) {
 		await page.setViewportSize({ width: 1280, height: 800 });
@@ -80,18 +84,17 @@ async function visitAll(who: Who): Promise<Finding[]> {
 			if (p) findings.push({ url, problem: `at ${width} px: ${p}` });
 		}
 	}
-	await page.close();
-	await browser.context.clearCookies();
+	await context.close();
 	return findings;
 }
 
-describe('every page fits the window and passes axe-core', () => {
+describe.concurrent('every page fits the window and passes axe-core', () => {
 	for (const who of ['owner', 'crew', 'share', 'anon'] as const) {
 		it(`as ${who}`, async () => {
 			const pages = await pagesFor(who);
 			expect(pages.length).toBeGreaterThan(who === 'anon' ? 3 : 15);
 			const findings = await visitAll(who);
 			expect(findings.map((x) => `${x.url}: ${x.problem}`)).toEqual([]);
-		}, 300_000);
+		}, 600_000);
 	}
 });

@@ -104,11 +104,13 @@ describe('share boxes', () => {
 		const full = page.locator(`[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"]`);
 		// Carrot 20 ÷ 25 lb = 80 %, kale 100 % → full box (80 + 100) ÷ 2 = 90 %.
 		await expect(full.getByTestId('box-fill').innerText()).resolves.toBe('90 %');
-		await expect(full.innerText()).resolves.toContain('cannot be filled');
+		await expect(full.innerText()).resolves.toContain('⚠ short');
 		await expect(page.getByTestId('weeks-filled').innerText()).resolves.toBe('0 of 1 weeks');
 
 		// Suggested: 0.5 lb spinach a box (5 lb short ÷ 10 members). After it, carrot 10 × 1.5 + 5 × 1 = 20 lb = supply.
-		await full.getByTestId('substitute').filter({ hasText: 'Spinach (test)' }).getByRole('button', { name: /^Swap 0.5 lb Carrot/ }).click();
+		const spinach = full.getByTestId('substitute').filter({ hasText: 'Spinach (test)' });
+		await expect(spinach.getByRole('textbox').inputValue()).resolves.toBe('0.5');
+		await spinach.getByRole('button', { name: /^Swap Carrot \(test\) for Spinach \(test\)/ }).click();
 		await page.waitForFunction((sel) => document.querySelector(sel)?.textContent?.trim() === '100 %', `[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"] [data-testid="box-fill"]`);
 		await expect(page.getByTestId('weeks-filled').innerText()).resolves.toBe('1 of 1 weeks');
 		await expect(page.getByTestId('average-fill').innerText()).resolves.toBe('100 %');

@@ -28,6 +28,17 @@ export async function waitForMail(to: string, timeoutMs = 10_000): Promise<KeptM
 	throw new Error(`no mail to ${to} within ${timeoutMs} ms`);
 }
 
+/** Waits for the newest message to an address whose text contains `needle` (reset mail leaves after the answer). */
+export async function waitForMailWith(to: string, needle: string, timeoutMs = 10_000): Promise<KeptMail> {
+	const until = Date.now() + timeoutMs;
+	while (Date.now() < until) {
+		const found = (await all()).filter((m) => m.to.includes(to.toLowerCase()) && m.text.includes(needle));
+		if (found.length) return found[found.length - 1];
+		await new Promise((r) => setTimeout(r, 100));
+	}
+	throw new Error(`no mail to ${to} containing ${needle} within ${timeoutMs} ms`);
+}
+
 export function firstLink(mail: KeptMail, pathPrefix: string): string {
 	const m = mail.text.match(new RegExp(`https?://[^\\s]+${pathPrefix.replace(/\//g, '\\/')}[^\\s]+`));
 	if (!m) throw new Error(`no ${pathPrefix} link in mail "${mail.subject}"`);

@@ -19,6 +19,11 @@ export interface AccessFixture {
 	freshShareSize(): Promise<number>;
 	freshSwap(): Promise<number>;
 	freshSeason(): Promise<number>;
+	/** A demo crop and one of its varieties (read only), and throwaway ones to archive or delete. */
+	cropId: number;
+	varietyId: number;
+	freshCrop(): Promise<number>;
+	freshVariety(): Promise<{ cropId: number; varietyId: number }>;
 	cleanup(): Promise<void>;
 }
 
@@ -50,8 +55,23 @@ export async function makeAccessFixture(): Promise<AccessFixture> {
 		return id;
 	};
 	let seasonYear = SCRATCH_YEARS[0] + 1;
+	const freshCrop = async (): Promise<number> => {
+		const [id] = await db('crops').insert({ farm_id: farmId, name: `Scratch crop ${Math.random().toString(36).slice(2, 10)}`, family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy' });
+		return id;
+	};
 	return {
 		farmId,
+		cropId: variety.crop_id,
+		varietyId: variety.id,
+		freshCrop,
+		freshVariety: async () => {
+			const cropId = await freshCrop();
+			const [varietyId] = await db('varieties').insert({
+				farm_id: farmId, crop_id: cropId, name: 'Scratch variety', method: 'direct', days_to_maturity: 30, harvest_window_days: 7, yield_per_bed_foot: 1,
+				rows_per_bed: 2, in_row_spacing_in: 2, germination_rate: 0.8, seeds_per_gram: 100
+			});
+			return { cropId, varietyId };
+		},
 		seasonId,
 		scratchSeasonId,
 		plantingId: harvest.planting_id,
@@ -80,6 +100,7 @@ export async function makeAccessFixture(): Promise<AccessFixture> {
 		},
 		cleanup: async () => {
 			await db('seasons').where({ farm_id: farmId }).where('year', '>=', SCRATCH_YEARS[0]).delete();
+			await db('crops').where({ farm_id: farmId }).where('name', 'like', 'Scratch crop %').delete();
 		}
 	};
 }

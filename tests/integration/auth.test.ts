@@ -13,12 +13,12 @@ function signUpFields(email: string): Record<string, string> {
 }
 
 describe('sign-up', () => {
-	it('creates a farm and its owner, signs them in, and lands on settings', async () => {
+	it('creates a farm and its owner, signs them in, and lands on the set-up path', async () => {
 		const email = uniqueEmail('signup');
 		const client = new Client();
 		const res = await client.postForm('/signup', signUpFields(email));
 		expect(res.status).toBe(303);
-		expect(res.headers.get('location')).toBe('/settings?welcome=1');
+		expect(res.headers.get('location')).toBe('/setup');
 		const user = await testDb()('users').where({ email }).first();
 		expect(user).toBeTruthy();
 		expect(user.password_hash).toMatch(/^\$argon2id\$/);
@@ -47,6 +47,10 @@ describe('sign-up', () => {
 		['script tag in the name', { name: '<script>alert(1)</script>' }, 'name', 'Your name may not contain < or >.'],
 		['bad e-mail', { email: 'not-an-email' }, 'email', 'Enter a valid e-mail address'],
 		['short password', { password: 'short' }, 'password', 'Password must be at least 10 characters.'],
+		// Source: @zxcvbn-ts/core with its common-password dictionary (reference library from npm).
+		['common password', { password: 'password12' }, 'password', 'This is a commonly used password.'],
+		['ten spaces', { password: '          ' }, 'password', 'A password of only spaces is too easy to guess.'],
+		['repeated letters', { password: 'aaaaaaaaaa' }, 'password', 'Repeated characters like "aaa" are easy to guess.'],
 		['impossible date', { lastSpringFrost: '2027-02-30' }, 'lastSpringFrost', 'Last spring frost is not a real calendar date.']
 	];
 	for (const [what, change, field, message] of bad) {
@@ -63,11 +67,13 @@ describe('sign-up', () => {
 		});
 	}
 
-	it('refuses a duplicate e-mail at the e-mail field and writes no second farm', async () => {
+	it('answers a taken e-mail with "check your e-mail" (not "already exists") and writes no second farm', async () => {
 		const before = await count('farms');
 		const res = await new Client().postForm('/signup', signUpFields(demo.owner));
-		expect(res.status).toBe(400);
-		expect(await html(res)).toContain('An account with this e-mail already exists.');
+		expect(res.status).toBe(200);
+		const page = await html(res);
+		expect(page).toContain('Check your e-mail');
+		expect(page).not.toContain('already exists');
 		expect(await count('farms')).toBe(before);
 	});
 });
@@ -87,17 +93,28 @@ describe('sign-in and sign-out', () => {
 		expect(await html(res)).toContain('That e-mail and password do not match an account.');
 	});
 
-	it('rate-limits failed attempts per account with a clear message, even for the right password', async () => {
+	it('slows failed attempts per account with a clear, short wait (see sign-in-limits.test.ts)', async () => {
 		const email = uniqueEmail('limited');
 		await new Client().postForm('/signup', signUpFields(email));
-		for (let i = 0; i < 5; i++) await new Client().postForm('/signin', { email, password: 'wrong-password' });
+		for (let i = 0; i < 6; i++) await new Client().postForm('/signin', { email, password: 'wrong-password' });
 		const res = await new Client().postForm('/signin', { email, password: 'long-enough-pass' });
 		expect(res.status).toBe(429);
-		expect(await html(res)).toMatch(/Too many sign-in attempts\. Try again in \d+ minutes?/);
+		expect(await html(res)).toMatch(/Too many wrong passwords for this account in a row\. Wait \d+ seconds?, then try again/);
 	});
 });
 
 describe('password reset by e-mail', () => {
+	it('refuses a weak new password at the reset form, saying why', async () => {
+		const email = uniqueEmail('weakreset');
+		await new Client().postForm('/signup', signUpFields(email));
+		await new Client().postForm('/forgot', { email });
+		const link = new URL(firstLink(await waitForMail(email), '/reset/'));
+		const res = await new Client().postForm(link.pathname, { password: 'password12', confirm: 'password12' });
+		expect(res.status).toBe(400);
+		expect(await html(res)).toContain('This is a commonly used password.');
+		await expect(signedIn(email, 'long-enough-pass')).resolves.toBeInstanceOf(Client);
+	});
+
 	it('mails a one-time link that sets a new password', async () => {
 		const email = uniqueEmail('reset');
 		await new Client().postForm('/signup', signUpFields(email));

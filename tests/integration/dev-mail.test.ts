@@ -5,7 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
-import { firstLink, waitForMail } from '../helpers/mail';
+import { firstLink, waitForMail, waitForMailWith } from '../helpers/mail';
 import { startSecondApp, type SecondApp } from '../helpers/second-app';
 
 afterAll(closeTestDb);
@@ -25,7 +25,7 @@ describe('Mail (dev) in demo mode', () => {
 	it("a new farm does not see the reset link sent to another farm's member", async () => {
 		const { client } = await signUpFarm('mail-attacker');
 		expect((await new Client().postForm('/forgot', { email: demo.share })).status).toBe(200);
-		const reset = firstLink(await waitForMail(demo.share), '/reset/');
+		const reset = firstLink(await waitForMailWith(demo.share, '/reset/'), '/reset/');
 		const token = reset.split('/reset/')[1];
 
 		const page = await client.get('/dev/mail');
@@ -44,7 +44,7 @@ describe('Mail (dev) in demo mode', () => {
 		const invited = await client.postForm('/team?/invite', { email: demo.crew, role: 'crew_lead' });
 		expect(invited.status).toBe(303);
 		await new Client().postForm('/forgot', { email: demo.crew });
-		const token = firstLink(await waitForMail(demo.crew), '/reset/').split('/reset/')[1];
+		const token = firstLink(await waitForMailWith(demo.crew, '/reset/'), '/reset/').split('/reset/')[1];
 		// The newest mail to crew@ is the reset; the inviter's page shows neither it nor the invite.
 		const text = await html(await client.get('/dev/mail'));
 		expect(text).not.toContain(token);

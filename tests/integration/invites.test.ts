@@ -32,6 +32,17 @@ describe('invites', () => {
 		expect(await html(again)).toContain('This invite has already been used.');
 	});
 
+	it('refuses a weak password when accepting, saying why, and creates no account', async () => {
+		const owner = await signedIn(demo.owner, demo.password);
+		const email = uniqueEmail('weakinvitee');
+		await owner.postForm('/team?/invite', { email, role: 'crew_lead' });
+		const link = new URL(firstLink(await waitForMail(email), '/invite/'));
+		const res = await new Client().postForm(link.pathname, { name: 'Weak Pass', password: 'aaaaaaaaaa' });
+		expect(res.status).toBe(400);
+		expect(await html(res)).toContain('Repeated characters like "aaa" are easy to guess.');
+		expect(await count('users', { email })).toBe(0);
+	});
+
 	it('refuses an expired link', async () => {
 		const owner = await signedIn(demo.owner, demo.password);
 		const email = uniqueEmail('late');

@@ -94,7 +94,7 @@ export async function makeSheetFarm(timeZone = 'America/Chicago'): Promise<Sheet
 export const expected = {
 	// Direct carrot, 60 ft × 4 rows at 1 in, 2 seeds per spot, germination 0.65, margin 10 %:
 	// spots = 60 × 12 ÷ 1 = 720 per row × 4 = 2,880; seeds = ceil(2,880 × 2 ÷ 0.65 × 1.1) = ceil(9,747.7) = 9,748;
-	// grams = 9,748 ÷ 776.03 = 12.561… → rounded up to 0.01 g = 12.57 g (README worked example).
+	// grams = 9,748 ÷ 776.03 = 12.561… → rounded up to 0.01 g = 12.57 g (worked example in DEVELOPERS.md).
 	directSeeds: 9748,
 	directGrams: 12.57,
 	// Lettuce for transplanting, 50 ft × 3 rows at 12 in: spots = 50 × 12 ÷ 12 = 50 × 3 = 150 plants.

@@ -3,7 +3,7 @@
 import { describe, expect, it } from 'vitest';
 import { GridState, UNDO_LIMIT } from '../../src/lib/components/grid/grid-state.svelte';
 import type { ApiAnswer, GridApi } from '../../src/lib/components/grid/save-queue.svelte';
-import type { GridVariety } from '../../src/lib/components/grid/engine';
+import type { GridVariety } from '../../src/lib/plantings/derive';
 import type { PlantingView } from '../../src/lib/types';
 
 const carrot: GridVariety = {
@@ -19,6 +19,7 @@ function planting(id: number, over: Partial<PlantingView> = {}): PlantingView {
 		id, seasonId: 1, varietyId: 1, variety: 'Invented Orange', crop: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', bedId: 10, bed: 'B1', block: 'North',
 		blockPosition: 1, bedPosition: 1, startFt: 0, lengthFt: 60, rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, method: 'direct', traySowDate: null,
 		fieldDate: '2026-04-20', firstHarvest: '2026-06-29', lastHarvest: '2026-07-12', expectedYield: 90, seedsNeeded: 9748, status: 'planned', notes: null, version: 1,
+		actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null,
 		...over
 	};
 }
@@ -61,7 +62,7 @@ describe('editing a cell', () => {
 		const { g } = grid();
 		// 2026-04-20 + 70 days = 2026-06-29 (day length at 42° N in late June is far above 10 h: no allowance).
 		expect(g.rows[0].derived?.firstHarvest).toBe('2026-06-29');
-		// Seeds: 60 ft × 12 ÷ 1 in = 720 spots × 4 rows = 2,880; × 2 ÷ 0.65 × 1.1 = 9,747.7 → 9,748 (README worked example).
+		// Seeds: 60 ft × 12 ÷ 1 in = 720 spots × 4 rows = 2,880; × 2 ÷ 0.65 × 1.1 = 9,747.7 → 9,748 (worked example in DEVELOPERS.md).
 		expect(g.rows[0].derived?.seed.seeds).toBe(9748);
 		g.moveTo(0, col(g, 'lengthFt'));
 		g.beginEdit('30');

@@ -100,9 +100,9 @@ describe('suggestSubstitutes', () => {
 		// (a multiple of the 0.25 lb step, under the 2 lb in the box). Spinach surplus 10 lb ÷ 10 = 1 lb
 		// a box at most → 0.5 lb, and 10 × 0.5 = 5 lb covers the shortfall. Chard and kale are bunches: left out.
 		const carrot = full24.items.find((i) => i.crop === 'carrot')!;
-		expect(suggestSubstitutes(rows, full24, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.5, surplus: 10, covers: true }]);
+		expect(suggestSubstitutes(rows, full24, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.5, fromQuantity: 0.5, byValue: false, surplus: 10, covers: true }]);
 		// Through the half share: 5 lb ÷ 5 members = 1 lb, the whole item; spinach 10 ÷ 5 = 2 lb at most → 1 lb.
-		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf)).toEqual([{ crop: 'spinach', quantity: 1, surplus: 10, covers: true }]);
+		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf)).toEqual([{ crop: 'spinach', quantity: 1, fromQuantity: 1, byValue: false, surplus: 10, covers: true }]);
 	});
 
 	it('cuts the quantity to what the surplus gives every member, and says when it does not cover', () => {
@@ -111,13 +111,48 @@ describe('suggestSubstitutes', () => {
 		const lean = forecastFromSupply(supply.map((s) => (s.crop === 'spinach' ? { ...s, quantity: 3 } : s)), deriveTargets(demand));
 		const box = matchBoxes(lean, demand)[0];
 		const carrot = box.items.find((i) => i.crop === 'carrot')!;
-		expect(suggestSubstitutes(lean, box, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.25, surplus: 3, covers: false }]);
+		expect(suggestSubstitutes(lean, box, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.25, fromQuantity: 0.25, byValue: false, surplus: 3, covers: false }]);
 		expect(swapStep('bunch')).toBe(1);
 	});
 
 	it('suggests nothing for an item that fills', () => {
 		const kale = full24.items.find((i) => i.crop === 'kale')!;
 		expect(suggestSubstitutes(rows, full24, kale, unitOf)).toEqual([]);
+	});
+
+	it('offers crops of another unit sized by value when both have a price per harvest unit', () => {
+		// Prices (invented): carrot $2.00/lb, spinach $6.00/lb, chard $3.00/bunch, kale none.
+		const prices: Record<string, number> = { carrot: 2, spinach: 6, chard: 3 };
+		const priceOf = (c: string): number | undefined => prices[c];
+		const carrot = full24.items.find((i) => i.crop === 'carrot')!;
+		const out = suggestSubstitutes(rows, full24, carrot, unitOf, 3, priceOf);
+		// Spinach (same unit) comes first, as before. Chard: the 0.5 lb carrot wanted per box is worth
+		// 0.5 × $2 = $1.00 → $1.00 ÷ $3 = 0.33 bunch → rounded to the bunch step, at least 1 bunch.
+		// Chard surplus 8 bunches ÷ 10 members = 0.8 → 0 whole bunches a box: left out.
+		expect(out.map((s) => s.crop)).toEqual(['spinach']);
+		// Half share, 5 members: carrot wanted 1 lb a box = $2.00 → 0.67 bunch → 1 bunch; chard 8 ÷ 5 = 1.6 → 1 a box.
+		// One bunch ($3.00) replaces $3.00 of carrot = 1.5 lb, capped at the 1 lb in the box; 5 × 1 = 5 lb covers the 5 lb short.
+		const half = suggestSubstitutes(rows, half24, half24.items[0], unitOf, 3, priceOf);
+		expect(half.find((s) => s.crop === 'chard')).toEqual({ crop: 'chard', quantity: 1, fromQuantity: 1, byValue: true, surplus: 8, covers: true });
+		// Without a price on either crop, no crop of another unit is offered.
+		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf, 3, (c) => (c === 'chard' ? undefined : prices[c])).map((s) => s.crop)).toEqual(['spinach']);
+	});
+});
+
+describe('short threshold', () => {
+	it('flags an item short only under the fill the share manager sets', () => {
+		// Carrot W24 fill = 20 ÷ 25 = 0.8 (see above). Under a 95 % threshold: short. Under 80 %: not short
+		// (0.8 is not below 0.8). Kale fills completely either way.
+		const rows = rowsFor(demand);
+		const at95 = matchBoxes(rows, demand, { shortBelow: 0.95 })[0].items.find((i) => i.crop === 'carrot')!;
+		const at80 = matchBoxes(rows, demand, { shortBelow: 0.8 })[0].items.find((i) => i.crop === 'carrot')!;
+		expect(at95.short).toBe(true);
+		expect(at80.short).toBe(false);
+		expect(matchBoxes(rows, demand, { shortBelow: 0.8 })[0].fillable).toBe(true);
+		// A 99 % fill is not flagged under 95 %: 24.75 lb of 25.
+		const nearly = forecastFromSupply(supply.map((s) => (s.crop === 'carrot' ? { ...s, quantity: 24.75 } : s)), deriveTargets(demand));
+		expect(matchBoxes(nearly, demand, { shortBelow: 0.95 })[0].items.find((i) => i.crop === 'carrot')!.short).toBe(false);
+		expect(matchBoxes(nearly, demand)[0].items.find((i) => i.crop === 'carrot')!.short).toBe(true);
 	});
 });
 
@@ -134,6 +169,15 @@ describe('applySwaps', () => {
 		expect(summarizeMatching(boxes, rowsFor(swapped)).weeksFilled).toBe(2);
 		// The original input is untouched.
 		expect(demand.boxItems[0].quantity).toBe(2);
+	});
+
+	it('swaps into a crop of another unit by the confirmed quantity, in proportion to what moved', () => {
+		// 1 lb carrot out of the half box, 1 bunch chard in (the quantity the share manager confirmed).
+		const swapped = applySwaps(demand, [{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 1, toQuantity: 1 }]);
+		expect(swapped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([['chard', 1]]);
+		// Asking 2 lb → 2 bunches from a box holding 1 lb moves 1 lb, so 1 bunch (2 × 1 ÷ 2) arrives.
+		const capped = applySwaps(demand, [{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 2, toQuantity: 2 }]);
+		expect(capped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([['chard', 1]]);
 	});
 
 	it('never moves more than the box holds', () => {

@@ -41,6 +41,21 @@ export function effectiveDaysToMaturity(variety: Variety, firstHarvest: DayNumbe
 	return effectiveDaysInto(blankDtm(), variety, firstHarvest, ctx);
 }
 
+// Day length by day of the year, per latitude: a plan asks for the same few hundred days over and over.
+const dayLengths = new Map<number, Float64Array>();
+
+function dayLengthAt(latitude: number, doy: number): number {
+	let t = dayLengths.get(latitude);
+	if (!t) {
+		if (dayLengths.size > 64) dayLengths.clear();
+		t = new Float64Array(367).fill(NaN);
+		dayLengths.set(latitude, t);
+	}
+	let h = t[doy];
+	if (Number.isNaN(h)) h = t[doy] = dayLengthHours(latitude, doy);
+	return h;
+}
+
 /** An empty record for effectiveDaysInto to fill. */
 export function blankDtm(): EffectiveDtm {
 	return { days: 0, source: 'variety', varietyDays: 0, dayLengthHours: 0, thresholdHours: 0, allowanceDays: 0, warnings: [] };
@@ -52,7 +67,7 @@ export function blankDtm(): EffectiveDtm {
  * succession. A caller that keeps `out.warnings` must take it before the next call.
  */
 export function effectiveDaysInto(out: EffectiveDtm, variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
-	const dl = dayLengthHours(ctx.latitude, dayOfYearOfDay(firstHarvest));
+	const dl = dayLengthAt(ctx.latitude, dayOfYearOfDay(firstHarvest));
 	if (out.warnings.length > 0) out.warnings = [];
 	const warnings = out.warnings;
 	out.days = variety.daysToMaturity;

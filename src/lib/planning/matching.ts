@@ -3,7 +3,10 @@ import { isoWeek, weekStart, addDays } from './iso-week';
 import type { BoxItem, TargetInput } from './targets';
 import type { CropWeekQuantity } from './types';
 
-/** A recorded substitution: `quantity` per box of `fromCrop` becomes the same quantity of `toCrop` (same harvest unit). */
+/**
+ * A recorded substitution: `quantity` per box of `fromCrop` becomes `toQuantity` of `toCrop`
+ * (in toCrop's own unit; the same quantity when left out, for crops of the same unit).
+ */
 export interface BoxSwap {
 	key?: string;
 	shareSizeId: string;
@@ -11,6 +14,7 @@ export interface BoxSwap {
 	fromCrop: string;
 	toCrop: string;
 	quantity: number;
+	toQuantity?: number;
 }
 
 export interface MatchedItem {
@@ -40,8 +44,12 @@ export interface MatchedBox {
 
 export interface Substitute {
 	crop: string;
-	/** Suggested quantity per box, rounded to the unit's step. */
+	/** Suggested quantity per box of the substitute, in its own unit, rounded to that unit's step. */
 	quantity: number;
+	/** How much of the short item it replaces per box (equal to `quantity` in the same unit). */
+	fromQuantity: number;
+	/** True when the substitute is counted in another unit and sized by value (price per unit). */
+	byValue: boolean;
 	/** The substitute's surplus that week before the swap. */
 	surplus: number;
 	/** Whether the swap alone lifts the short crop to full supply. */
@@ -75,10 +83,12 @@ export function applySwaps(input: TargetInput, swaps: BoxSwap[]): TargetInput {
 		const moved = Math.min(s.quantity, from?.quantity ?? 0);
 		if (!from || moved <= 0 || s.toCrop === s.fromCrop) continue;
 		from.quantity = tidy(from.quantity - moved);
+		// Of another unit, the substitute comes in proportion to what was actually moved.
+		const added = s.toQuantity === undefined ? moved : tidy((s.toQuantity * moved) / s.quantity);
 		const kTo = key(s.shareSizeId, s.week, s.toCrop);
 		const to = items.get(kTo);
-		if (to) to.quantity = tidy(to.quantity + moved);
-		else items.set(kTo, { shareSizeId: s.shareSizeId, week: s.week, crop: s.toCrop, quantity: moved });
+		if (to) to.quantity = tidy(to.quantity + added);
+		else items.set(kTo, { shareSizeId: s.shareSizeId, week: s.week, crop: s.toCrop, quantity: added });
 	}
 	return { ...input, boxItems: [...items.values()].filter((i) => i.quantity > 0) };
 }
@@ -88,7 +98,9 @@ export function applySwaps(input: TargetInput, swaps: BoxSwap[]): TargetInput {
  * and fill. A short crop is shared out in proportion (fill = supply ÷ total demand), the
  * same fraction `checkBoxes` reports; who actually gets less is the share manager's call.
  */
-export function matchBoxes(rows: ForecastRow[], input: TargetInput): MatchedBox[] {
+export function matchBoxes(rows: ForecastRow[], input: TargetInput, opts: { shortBelow?: number } = {}): MatchedBox[] {
+	// An item is short when its fill is under this fraction (the share manager's setting; 1 = any shortfall).
+	const shortBelow = opts.shortBelow ?? 1;
 	const byCropWeek = new Map(rows.map((r) => [key(r.crop, r.week), r]));
 	const shares = new Map(input.shareSizes.map((s) => [s.id, s]));
 	const boxes = new Map<string, MatchedBox>();
@@ -102,7 +114,7 @@ export function matchBoxes(rows: ForecastRow[], input: TargetInput): MatchedBox[
 		const supply = row?.supply ?? 0;
 		const demand = row?.demand ?? share.members * item.quantity;
 		const fill = demand > 0 ? Math.min(1, supply / demand) : 1;
-		box.items.push({ crop: item.crop, perBox: item.quantity, need: share.members * item.quantity, supply, demand, fill, short: fill < 1 - EPS });
+		box.items.push({ crop: item.crop, perBox: item.quantity, need: share.members * item.quantity, supply, demand, fill, short: fill < shortBelow - EPS });
 	}
 	const out = [...boxes.values()];
 	for (const b of out) {
@@ -113,27 +125,52 @@ export function matchBoxes(rows: ForecastRow[], input: TargetInput): MatchedBox[
 }
 
 /**
- * Substitutes for a short item: crops with surplus that week in the same harvest unit. The
+ * Substitutes for a short item: crops with surplus that week. In the same harvest unit, the
  * suggested quantity per box is what would close the crop's whole shortfall through this
  * share size (rounded up to the unit's step, at most the item's quantity), cut down to what
- * the substitute's surplus can give every member. Best first: those that cover, then by surplus.
+ * the substitute's surplus can give every member. A crop of another unit is offered only when
+ * both crops have a price per harvest unit (`priceOf`): the same value of it, rounded to its
+ * unit's step (so "0.5 lb at $4" becomes "1 bunch at $2"); the share manager confirms the
+ * quantity. Best first: those that cover, then same unit, then by surplus.
  */
-export function suggestSubstitutes(rows: ForecastRow[], box: MatchedBox, item: MatchedItem, unitOf: (crop: string) => string | undefined, limit = 3): Substitute[] {
+export function suggestSubstitutes(
+	rows: ForecastRow[],
+	box: MatchedBox,
+	item: MatchedItem,
+	unitOf: (crop: string) => string | undefined,
+	limit = 3,
+	priceOf: (crop: string) => number | null | undefined = () => undefined
+): Substitute[] {
 	if (!item.short || box.members <= 0) return [];
 	const unit = unitOf(item.crop);
 	if (!unit) return [];
 	const step = swapStep(unit);
 	const shortfall = item.demand - item.supply;
 	const want = Math.min(item.perBox, Math.ceil(shortfall / box.members / step - EPS) * step);
+	const fromPrice = priceOf(item.crop);
 	const out: Substitute[] = [];
 	for (const r of rows) {
-		if (r.week !== box.week || r.crop === item.crop || r.surplus <= EPS || unitOf(r.crop) !== unit) continue;
-		const most = Math.floor(r.surplus / box.members / step + EPS) * step;
-		const quantity = tidy(Math.min(want, most));
+		if (r.week !== box.week || r.crop === item.crop || r.surplus <= EPS) continue;
+		const toUnit = unitOf(r.crop);
+		if (!toUnit) continue;
+		const toStep = swapStep(toUnit);
+		const most = Math.floor(r.surplus / box.members / toStep + EPS) * toStep;
+		if (toUnit === unit) {
+			const quantity = tidy(Math.min(want, most));
+			if (quantity <= 0) continue;
+			out.push({ crop: r.crop, quantity, fromQuantity: quantity, byValue: false, surplus: r.surplus, covers: box.members * quantity >= shortfall - EPS });
+			continue;
+		}
+		const toPrice = priceOf(r.crop);
+		if (!fromPrice || !toPrice || fromPrice <= 0 || toPrice <= 0) continue;
+		// The same value per box, to the nearest step of the substitute's unit (at least one step).
+		const quantity = tidy(Math.min(most, Math.max(toStep, Math.round((want * fromPrice) / toPrice / toStep) * toStep)));
 		if (quantity <= 0) continue;
-		out.push({ crop: r.crop, quantity, surplus: r.surplus, covers: box.members * quantity >= shortfall - EPS });
+		// What that quantity is worth in the short item, rounded down to its step and at most what the box holds.
+		const fromQuantity = tidy(Math.min(item.perBox, Math.max(step, Math.floor((quantity * toPrice) / fromPrice / step + EPS) * step)));
+		out.push({ crop: r.crop, quantity, fromQuantity, byValue: true, surplus: r.surplus, covers: box.members * fromQuantity >= shortfall - EPS });
 	}
-	out.sort((a, b) => Number(b.covers) - Number(a.covers) || b.surplus - a.surplus || (a.crop < b.crop ? -1 : 1));
+	out.sort((a, b) => Number(b.covers) - Number(a.covers) || Number(a.byValue) - Number(b.byValue) || b.surplus - a.surplus || (a.crop < b.crop ? -1 : 1));
 	return out.slice(0, limit);
 }
 

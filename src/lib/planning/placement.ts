@@ -342,9 +342,12 @@ function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx:
 	let count = 0;
 	let left = bedFeet;
 	while (left > FT_EPSILON) {
-		const need = Math.min(minPiece, left);
+		// Every piece is at least minPiece: under twice that, the rest goes in one piece; and a piece
+		// never leaves a rest shorter than minPiece.
+		const need = left < 2 * minPiece ? left : minPiece;
 		if (!placer.find(s, e, need, family) && !(family !== undefined && placer.find(s, e, need))) break;
-		const len = Math.min(left, hit.gapFt);
+		let len = Math.min(left, hit.gapFt);
+		if (left - len > FT_EPSILON && left - len < minPiece) len = left - minPiece;
 		placer.put(hit.b, s, e, hit.startFt, len);
 		pieceBed[count] = hit.b;
 		pieceFrom[count] = hit.startFt;

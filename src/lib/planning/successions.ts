@@ -304,8 +304,16 @@ function planRuns<T>(
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
 	const facts = { ...season, temps: o.dtm.temps };
 	const { mondays, qty } = normaliseTargets(input.targets);
-	const frostMonthDay = fromDayNumber(season.lastSpringFrost).slice(4);
-	const lastFrostOfYear = (year: number): DayNumber => toDayNumber(`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`);
+	const frostMonthDay = v.frostTender ? fromDayNumber(season.lastSpringFrost).slice(4) : '';
+	let frostYear = NaN;
+	let frostDay = 0;
+	const lastFrostOfYear = (year: number): DayNumber => {
+		if (year !== frostYear) {
+			frostYear = year;
+			frostDay = toDayNumber(`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`);
+		}
+		return frostDay;
+	};
 	const H = v.harvestWindowDays;
 	const P = cumulativeWeights(v.harvestCurve, H);
 	const Y = v.yieldPerBedFoot;
@@ -388,15 +396,16 @@ function planRuns<T>(
 		let bestScore = Infinity;
 		for (let c = w; c >= Math.max(cMin, w - span + 1); c--) {
 			if (step > 1 && ((c % step) + step) % step !== 0) continue;
-			const cf = perFt(c, w);
+			const cf = byOffset[w - c];
 			if (!(cf > 0)) continue;
-			const cand = candidate(c);
+			const cand = cands[c - cMin] ?? candidate(c);
 			if (!cand.ok) continue;
 			const x = net / cf;
 			let useful = 0;
-			for (let u = w; u < nWeeks && u <= c + span - 1; u++) {
+			const end = Math.min(nWeeks - 1, c + span - 1);
+			for (let u = w; u <= end; u++) {
 				const left = need[u] - planned[u];
-				if (target[u] > 0 && left > 0) useful += Math.min(perFt(c, u) * x, left);
+				if (left > 0 && target[u] > 0) useful += Math.min(byOffset[u - c] * x, left);
 			}
 			const score = (x * cand.occupancy) / useful;
 			if (score < bestScore * (1 - 1e-9)) {

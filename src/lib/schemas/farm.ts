@@ -46,3 +46,25 @@ export const bedSchema = z.object({
 });
 
 export const blockSchema = z.object({ name: plainText('Block name', 60) });
+
+/** "12 beds of 100 ft, 30 in wide" in block "North", named N1 … N12. */
+export const bulkBedsSchema = z.object({
+	block: plainText('Block', 60),
+	count: numberField('Number of beds', 1, 200, { int: true }),
+	lengthFt: numberField('Length (ft)', 1, 2000),
+	widthIn: numberField('Width (in)', 6, 240, { int: true }),
+	prefix: z.preprocess((v) => (typeof v === 'string' ? v.trim() : v), z.string().max(20, 'Name start must be at most 20 characters.').refine((v) => !/[<>]/.test(v), 'Name start may not contain < or >.')),
+	firstNumber: numberField('First number', 0, 100_000, { int: true })
+});
+export type BulkBedsInput = z.infer<typeof bulkBedsSchema>;
+
+/** The set-up path's first step: where the farm is and its frost dates. */
+export const locationSchema = z
+	.object({
+		latitude: numberField('Latitude', -66, 66),
+		timeZone: farmSettingsSchema.shape.timeZone,
+		unitSystem: z.enum(['imperial', 'metric'], { error: 'Choose imperial or metric units.' }),
+		lastSpringFrost: isoDate('Last spring frost'),
+		firstFallFrost: isoDate('First fall frost')
+	})
+	.refine((v) => v.lastSpringFrost < v.firstFallFrost, { message: 'First fall frost must come after the last spring frost.', path: ['firstFallFrost'] });

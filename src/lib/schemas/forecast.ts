@@ -43,9 +43,22 @@ export const swapSchema = z
 		quantity: z.preprocess(
 			(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.')) : v),
 			z.number({ error: 'quantity must be a number.' }).positive('quantity must be above 0.').max(10_000, 'quantity must be at most 10,000.')
+		),
+		// For a substitute of another unit: how much of it goes in per box, as the share manager confirmed it.
+		toQuantity: z.preprocess(
+			(v) => (v === '' || v === null ? undefined : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
+			z.number({ error: 'toQuantity must be a number.' }).positive('toQuantity must be above 0.').max(10_000, 'toQuantity must be at most 10,000.').optional()
 		)
 	})
 	.strict()
 	.refine((s) => s.fromCropId !== s.toCropId, { path: ['toCropId'], message: 'toCropId must differ from fromCropId.' });
 
 export type SwapInput = z.infer<typeof swapSchema>;
+
+/** The fill under which a box item is flagged short, in percent (the share manager sets it). */
+export const shortFillSchema = z.object({
+	shortFillPct: z.preprocess(
+		(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.')) : v),
+		z.number({ error: 'Short below must be a number.' }).int('Short below must be a whole percent.').min(50, 'Short below must be at least 50 %.').max(100, 'Short below must be at most 100 %.')
+	)
+});

@@ -2,44 +2,26 @@
 import { z } from 'zod';
 import type { Role } from '$lib/roles';
 import { can } from '$lib/permissions';
-import { isoDate, numberField } from './common';
+import {
+	fieldSpec,
+	plantingFieldNames,
+	plantingFieldTable,
+	recordFields,
+	type PlantingField,
+	type PlantingValues,
+	type RequiredField
+} from '$lib/plantings/fields';
 
-export const plantingStatuses = ['planned', 'sown', 'transplanted', 'harvesting', 'finished', 'failed'] as const;
-export const sowingMethods = ['direct', 'transplant'] as const;
-export type PlantingStatus = (typeof plantingStatuses)[number];
+export { plantingStatuses, sowingMethods, plantingFieldNames, recordFields } from '$lib/plantings/fields';
+export type { PlantingStatus, PlantingField, PlantingValues } from '$lib/plantings/fields';
 
-const optionalDate = (label: string) =>
-	z.preprocess((v) => (v === '' || v === undefined ? null : typeof v === 'string' ? v.trim() : v), isoDate(label).nullable());
+type Table = typeof plantingFieldTable;
 
-const notes = z.preprocess(
-	(v) => (typeof v === 'string' ? (v.trim() === '' ? null : v.trim()) : v),
-	z.string({ error: 'Notes must be text.' }).max(2000, 'Notes must be at most 2000 characters.').nullable()
-);
+/** Each editable field by its API name, as one cell of the grid validates it (from the field table). */
+export const plantingFields = Object.fromEntries(plantingFieldNames.map((f) => [f, fieldSpec(f).schema])) as {
+	[K in PlantingField]: Table[K]['schema'];
+};
 
-/** Each editable field by its API name, as one cell of the grid validates it. */
-export const plantingFields = {
-	varietyId: numberField('Variety', 1, 2 ** 31 - 1, { int: true }),
-	bedId: z.preprocess((v) => (v === '' ? null : v), numberField('Bed', 1, 2 ** 31 - 1, { int: true }).nullable()),
-	startFt: numberField('Start', 0, 10_000),
-	lengthFt: numberField('Bed-feet', 0.5, 10_000),
-	rows: numberField('Rows', 1, 50, { int: true }),
-	inRowSpacingIn: numberField('In-row spacing', 0.1, 240),
-	seedsPerSpot: numberField('Seeds per spot', 1, 50, { int: true }),
-	method: z.enum(sowingMethods, { error: 'Method must be direct or transplant.' }),
-	fieldDate: z.preprocess((v) => (typeof v === 'string' ? v.trim() : v), isoDate('Field date')),
-	status: z.enum(plantingStatuses, { error: `Status must be one of ${plantingStatuses.join(', ')}.` }),
-	actualTraySowDate: optionalDate('Actual tray sowing'),
-	actualFieldDate: optionalDate('Actual field date'),
-	actualFirstHarvest: optionalDate('Actual first harvest'),
-	actualLastHarvest: optionalDate('Actual last harvest'),
-	notes
-} as const;
-
-export type PlantingField = keyof typeof plantingFields;
-export const plantingFieldNames = Object.keys(plantingFields) as PlantingField[];
-
-/** The record of what happened, never the plan itself: what the 'planting.record' permission may change. */
-export const recordFields: readonly PlantingField[] = ['status', 'actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest', 'notes'];
 /** recordFields in words, for messages. */
 export const recordFieldsInWords = 'status, actual dates and notes';
 
@@ -50,30 +32,15 @@ export function editableFields(role: Role): readonly PlantingField[] {
 	return [];
 }
 
-export type PlantingValues = { [K in PlantingField]: z.infer<(typeof plantingFields)[K]> };
-
-/** A new row: a variety, a field date and bed-feet; the rest defaults from the variety. */
+/** A new row: the fields without an initial value are required, the rest default (plantings/fields.ts). */
 export const plantingCreateSchema = z
-	.object({
-		...plantingFields,
-		varietyId: plantingFields.varietyId,
-		fieldDate: plantingFields.fieldDate,
-		lengthFt: plantingFields.lengthFt,
-		bedId: plantingFields.bedId.optional(),
-		startFt: plantingFields.startFt.optional(),
-		rows: plantingFields.rows.optional(),
-		inRowSpacingIn: plantingFields.inRowSpacingIn.optional(),
-		seedsPerSpot: plantingFields.seedsPerSpot.optional(),
-		method: plantingFields.method.optional(),
-		status: plantingFields.status.optional(),
-		actualTraySowDate: plantingFields.actualTraySowDate.optional(),
-		actualFieldDate: plantingFields.actualFieldDate.optional(),
-		actualFirstHarvest: plantingFields.actualFirstHarvest.optional(),
-		actualLastHarvest: plantingFields.actualLastHarvest.optional(),
-		notes: plantingFields.notes.optional()
-	})
-	.strict();
-export type PlantingCreate = z.infer<typeof plantingCreateSchema>;
+	.object(
+		Object.fromEntries(
+			plantingFieldNames.map((f) => [f, fieldSpec(f).initial === undefined ? plantingFields[f] : plantingFields[f].optional()])
+		)
+	)
+	.strict() as unknown as z.ZodType<PlantingCreate>;
+export type PlantingCreate = Pick<PlantingValues, RequiredField> & Partial<Omit<PlantingValues, RequiredField>>;
 
 /** POST body: one row, or many (a paste); errors name `plantings.<row>.<field>`. */
 export const plantingBatchSchema = z

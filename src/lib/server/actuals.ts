@@ -160,3 +160,29 @@ export async function undoFigures(farmId: number, seasonId: number, changeId: nu
 	if (!out.ok) return out;
 	return { ok: true, change: (await listChanges(farmId, seasonId)).find((c) => c.id === changeId)! };
 }
+
+export interface VarietySeasonObserved {
+	seasonId: number;
+	season: string;
+	yieldPlantings: number;
+	observedYieldPerBedFoot: number | null;
+	dtmPlantings: number;
+	observedDtm: number | null;
+}
+
+/** A variety's observed figures in each season whose harvest log holds any of its plantings. */
+export async function observedForVariety(farmId: number, varietyId: number): Promise<VarietySeasonObserved[]> {
+	const seasons: { id: number; name: string }[] = await db()('seasons as s')
+		.join('plantings as p', 'p.season_id', 's.id')
+		.where({ 's.farm_id': farmId, 'p.variety_id': varietyId })
+		.whereExists(db()('harvest_records as h').whereRaw('h.planting_id = p.id'))
+		.distinct('s.id', 's.name', 's.year')
+		.orderBy('s.year', 'desc');
+	const out: VarietySeasonObserved[] = [];
+	for (const s of seasons) {
+		const { result } = await seasonActuals(farmId, s.id);
+		const v = result.varieties.find((x) => x.variety === String(varietyId));
+		if (v) out.push({ seasonId: s.id, season: s.name, ...v });
+	}
+	return out;
+}

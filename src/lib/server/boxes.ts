@@ -28,6 +28,8 @@ export interface SwapView {
 	fromCrop: string;
 	toCrop: string;
 	quantity: number;
+	/** Of a substitute in another unit: how much of it per box; null when the same quantity. */
+	toQuantity: number | null;
 	createdBy: string | null;
 	createdAt: string;
 	undoneAt: string | null;
@@ -41,6 +43,8 @@ export interface BoxMatching {
 	boxes: BoxView[];
 	summary: MatchingSummary;
 	swaps: SwapView[];
+	/** An item is flagged short under this fill, in percent. */
+	shortFillPct: number;
 }
 
 async function shareNames(farmId: number, seasonId: number): Promise<Map<string, string>> {
@@ -55,7 +59,7 @@ export async function listSwaps(farmId: number, seasonId: number): Promise<SwapV
 		.leftJoin('users as x', 'x.id', 'w.undone_by')
 		.where({ 'w.farm_id': farmId, 'w.season_id': seasonId })
 		.orderBy('w.id', 'desc')
-		.select('w.id', 'w.share_size_id', 's.name as share', 'w.week', 'w.from_crop_id', 'w.to_crop_id', 'w.quantity', 'u.name as created_by', 'w.created_at', 'w.undone_at', 'x.name as undone_by');
+		.select('w.id', 'w.share_size_id', 's.name as share', 'w.week', 'w.from_crop_id', 'w.to_crop_id', 'w.quantity', 'w.to_quantity', 'u.name as created_by', 'w.created_at', 'w.undone_at', 'x.name as undone_by');
 	return rows.map((r) => ({
 		id: r.id,
 		shareSizeId: String(r.share_size_id),
@@ -64,6 +68,7 @@ export async function listSwaps(farmId: number, seasonId: number): Promise<SwapV
 		fromCrop: String(r.from_crop_id),
 		toCrop: String(r.to_crop_id),
 		quantity: Number(r.quantity),
+		toQuantity: r.to_quantity === null ? null : Number(r.to_quantity),
 		createdBy: r.created_by,
 		createdAt: new Date(r.created_at).toISOString(),
 		undoneAt: r.undone_at ? new Date(r.undone_at).toISOString() : null,
@@ -71,14 +76,36 @@ export async function listSwaps(farmId: number, seasonId: number): Promise<SwapV
 	}));
 }
 
+/** The farm's box settings: the fill under which an item is short, and each crop's price per harvest unit (dollars). */
+export async function boxSettings(farmId: number): Promise<{ shortFillPct: number; prices: Record<string, number> }> {
+	const [farm, crops] = await Promise.all([
+		db()('farms').where({ id: farmId }).first('box_short_fill_pct'),
+		db()('crops').where({ farm_id: farmId }).whereNotNull('price_cents_per_unit').select('id', 'price_cents_per_unit')
+	]);
+	return {
+		shortFillPct: Number(farm?.box_short_fill_pct ?? 95),
+		prices: Object.fromEntries(crops.map((c: { id: number; price_cents_per_unit: number }) => [String(c.id), c.price_cents_per_unit / 100]))
+	};
+}
+
+export async function setShortFill(farmId: number, pct: number): Promise<void> {
+	await db()('farms').where({ id: farmId }).update({ box_short_fill_pct: pct });
+}
+
 export async function matching(farmId: number, season: Season): Promise<BoxMatching> {
-	const [f, names, swaps] = await Promise.all([seasonForecast(farmId, season), shareNames(farmId, season.id), listSwaps(farmId, season.id)]);
+	const [f, names, swaps, settings] = await Promise.all([
+		seasonForecast(farmId, season),
+		shareNames(farmId, season.id),
+		listSwaps(farmId, season.id),
+		boxSettings(farmId)
+	]);
 	const crops = Object.fromEntries(f.crops.map((c) => [c.id, c]));
 	const unitOf = (id: string): string | undefined => crops[id]?.unit;
-	const boxes = matchBoxes(f.rows, f.demand).map((b) => ({
+	const priceOf = (id: string): number | undefined => settings.prices[id];
+	const boxes = matchBoxes(f.rows, f.demand, { shortBelow: settings.shortFillPct / 100 }).map((b) => ({
 		...b,
 		shareName: names.get(b.shareSizeId) ?? b.shareSizeId,
-		substitutes: Object.fromEntries(b.items.filter((i) => i.short).map((i) => [i.crop, suggestSubstitutes(f.rows, b, i, unitOf)]))
+		substitutes: Object.fromEntries(b.items.filter((i) => i.short).map((i) => [i.crop, suggestSubstitutes(f.rows, b, i, unitOf, 3, priceOf)]))
 	}));
 	const inSeason = f.rows.filter((r) => r.week >= f.weeks[0] && r.week <= f.weeks[f.weeks.length - 1]);
 	return {
@@ -87,7 +114,8 @@ export async function matching(farmId: number, season: Season): Promise<BoxMatch
 		shareSizes: f.demand.shareSizes.map((s) => ({ ...s, name: names.get(s.id) ?? s.id })),
 		boxes,
 		summary: summarizeMatching(boxes, inSeason),
-		swaps
+		swaps,
+		shortFillPct: settings.shortFillPct
 	};
 }
 
@@ -108,17 +136,27 @@ export async function createSwap(farmId: number, seasonId: number, userId: strin
 		const to = crops.find((c) => c.id === input.toCropId);
 		if (!from) return { ok: false, errors: { fromCropId: 'no such crop on this farm.' } };
 		if (!to) return { ok: false, errors: { toCropId: 'no such crop on this farm.' } };
-		if (from.harvest_unit !== to.harvest_unit) return { ok: false, errors: { toCropId: `is counted in ${to.harvest_unit}, the box item in ${from.harvest_unit}: a swap keeps the unit.` } };
+		// A crop of another unit goes in by the quantity the share manager confirmed (sized by value).
+		if (from.harvest_unit !== to.harvest_unit && input.toQuantity === undefined) {
+			return { ok: false, errors: { toQuantity: `is needed: the substitute is counted in ${to.harvest_unit}, the box item in ${from.harvest_unit}.` } };
+		}
 		// Lock this box's items and swaps so two swaps at once cannot both take the same quantity.
 		const items = await trx('box_items').where({ share_size_id: share.id, week: input.week }).forUpdate().select('crop_id', 'quantity');
-		const swaps = await trx('box_swaps').where({ share_size_id: share.id, week: input.week }).whereNull('undone_at').orderBy('id').forUpdate().select('from_crop_id', 'to_crop_id', 'quantity');
+		const swaps = await trx('box_swaps').where({ share_size_id: share.id, week: input.week }).whereNull('undone_at').orderBy('id').forUpdate().select('from_crop_id', 'to_crop_id', 'quantity', 'to_quantity');
 		const box = applySwaps(
 			{
 				shareSizes: [],
 				channelDemand: [],
 				boxItems: items.map((i) => ({ shareSizeId: 's', week: input.week, crop: String(i.crop_id), quantity: Number(i.quantity) }))
 			},
-			swaps.map((s) => ({ shareSizeId: 's', week: input.week, fromCrop: String(s.from_crop_id), toCrop: String(s.to_crop_id), quantity: Number(s.quantity) }))
+			swaps.map((s) => ({
+				shareSizeId: 's',
+				week: input.week,
+				fromCrop: String(s.from_crop_id),
+				toCrop: String(s.to_crop_id),
+				quantity: Number(s.quantity),
+				...(s.to_quantity === null ? {} : { toQuantity: Number(s.to_quantity) })
+			}))
 		);
 		const held = box.boxItems.find((i) => i.crop === String(input.fromCropId))?.quantity ?? 0;
 		if (held <= 0) return { ok: false, errors: { fromCropId: `is not in this box in ${input.week}.` } };
@@ -131,6 +169,7 @@ export async function createSwap(farmId: number, seasonId: number, userId: strin
 			from_crop_id: input.fromCropId,
 			to_crop_id: input.toCropId,
 			quantity: input.quantity,
+			to_quantity: from.harvest_unit !== to.harvest_unit || (input.toQuantity !== undefined && input.toQuantity !== input.quantity) ? input.toQuantity : null,
 			created_by: userId
 		});
 		return { ok: true, id };

@@ -1,5 +1,8 @@
 // The farm's crop library: crops and their varieties.
+import type { Knex } from 'knex';
 import { db } from './db';
+import type { CropInput, VarietyInput } from '$lib/schemas/crop';
+import type { StarterCrop } from './starter-library';
 
 import type { VarietyView } from '$lib/types';
 import type { HarvestCurve } from '$lib/planning';
@@ -12,7 +15,7 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])
 		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f',
-			'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days');
+			'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days', 'c.archived_at as crop_archived_at');
 	return rows.map((r) => ({
 		id: r.id,
 		cropId: r.crop_id,
@@ -38,6 +41,9 @@ export async function listVarieties(farmId: number): Promise<VarietyView[]> {
 		cellsPerTray: r.cells_per_tray,
 		margin: Number(r.margin),
 		gddToMaturity: r.gdd_to_maturity,
+		// A variety of an archived crop is archived with it.
+		archived: r.archived_at !== null || r.crop_archived_at !== null,
+		source: r.source ?? null,
 		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
 		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
 	}));
@@ -60,4 +66,234 @@ export function curveOf(shape: unknown, cutIntervalDays?: unknown): HarvestCurve
 	const out: HarvestCurve = { shape: s };
 	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0) out.intervalDays = Number(cutIntervalDays);
 	return out;
+}
+
+// ---- Editing the library (owner). Every write is scoped by farm; another farm's ids are "not found".
+
+export interface CropView {
+	id: number;
+	name: string;
+	family: string;
+	harvestUnit: CropInput['harvestUnit'];
+	frostTolerance: CropInput['frostTolerance'];
+	heatLimitF: number | null;
+	baseTempF: number;
+	/** Dollars per harvest unit, or null when unknown. */
+	price: number | null;
+	source: string | null;
+	archived: boolean;
+	varieties: VarietyView[];
+}
+
+type CropRow = {
+	id: number;
+	name: string;
+	family: string;
+	harvest_unit: CropInput['harvestUnit'];
+	frost_tolerance: CropInput['frostTolerance'];
+	heat_limit_f: string | number | null;
+	base_temp_f: string | number;
+	price_cents_per_unit: number | null;
+	source: string | null;
+	archived_at: Date | null;
+};
+
+function toCrop(r: CropRow, varieties: VarietyView[]): CropView {
+	return {
+		id: r.id,
+		name: r.name,
+		family: r.family,
+		harvestUnit: r.harvest_unit,
+		frostTolerance: r.frost_tolerance,
+		heatLimitF: r.heat_limit_f === null ? null : Number(r.heat_limit_f),
+		baseTempF: Number(r.base_temp_f),
+		price: r.price_cents_per_unit === null ? null : r.price_cents_per_unit / 100,
+		source: r.source,
+		archived: r.archived_at !== null,
+		varieties: varieties.filter((v) => v.cropId === r.id)
+	};
+}
+
+/** The farm's crops with their varieties, by name; archived ones only when asked for. */
+export async function listCrops(farmId: number, opts: { archived?: boolean } = {}): Promise<CropView[]> {
+	const q = db()('crops').where({ farm_id: farmId }).orderBy('name');
+	if (!opts.archived) q.whereNull('archived_at');
+	const [rows, varieties] = await Promise.all([q.select<CropRow[]>('*'), listVarieties(farmId)]);
+	return rows.map((r) => toCrop(r, varieties.filter((v) => opts.archived || !v.archived)));
+}
+
+export async function getCrop(farmId: number, cropId: number): Promise<CropView | null> {
+	const r = await db()('crops').where({ farm_id: farmId, id: cropId }).first<CropRow | undefined>();
+	if (!r) return null;
+	return toCrop(r, await listVarieties(farmId));
+}
+
+export class LibraryInputError extends Error {
+	constructor(
+		public field: string,
+		message: string,
+		public status: 400 | 404 | 409 = 400
+	) {
+		super(message);
+	}
+}
+
+function isDuplicate(e: unknown): boolean {
+	return typeof e === 'object' && e !== null && (e as { code?: string }).code === 'ER_DUP_ENTRY';
+}
+
+function cropColumns(input: CropInput) {
+	return {
+		name: input.name,
+		family: input.family,
+		harvest_unit: input.harvestUnit,
+		frost_tolerance: input.frostTolerance,
+		heat_limit_f: input.heatLimitF,
+		base_temp_f: input.baseTempF,
+		price_cents_per_unit: input.price === null ? null : Math.round(input.price * 100),
+		source: input.source
+	};
+}
+
+export async function createCrop(farmId: number, input: CropInput, trx: Knex | Knex.Transaction = db()): Promise<number> {
+	try {
+		const [id] = await trx('crops').insert({ farm_id: farmId, ...cropColumns(input) });
+		return id;
+	} catch (e) {
+		if (isDuplicate(e)) throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
+		throw e;
+	}
+}
+
+/**
+ * Changes a crop. Its harvest unit may change only while nothing counts in the old one (no demand,
+ * box contents or harvest records), since those quantities would silently change meaning.
+ */
+export async function updateCrop(farmId: number, cropId: number, input: CropInput): Promise<boolean> {
+	return db().transaction(async (trx) => {
+		const old = await trx('crops').where({ farm_id: farmId, id: cropId }).forUpdate().first('harvest_unit');
+		if (!old) return false;
+		if (old.harvest_unit !== input.harvestUnit) {
+			const [box, channel, logged] = await Promise.all([
+				trx('box_items').where({ crop_id: cropId }).first('id'),
+				trx('channel_demand').where({ farm_id: farmId, crop_id: cropId }).first('id'),
+				trx('harvest_records as h').join('plantings as p', 'p.id', 'h.planting_id').join('varieties as v', 'v.id', 'p.variety_id').where('v.crop_id', cropId).first('h.id')
+			]);
+			if (box || channel || logged) {
+				throw new LibraryInputError(
+					'harvestUnit',
+					`Harvest unit stays ${old.harvest_unit}: demand, box contents or logged harvests already count this crop in ${old.harvest_unit}.`
+				);
+			}
+		}
+		try {
+			await trx('crops').where({ farm_id: farmId, id: cropId }).update(cropColumns(input));
+		} catch (e) {
+			if (isDuplicate(e)) throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
+			throw e;
+		}
+		return true;
+	});
+}
+
+export async function setCropArchived(farmId: number, cropId: number, archived: boolean): Promise<boolean> {
+	return (await db()('crops').where({ farm_id: farmId, id: cropId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
+}
+
+function varietyColumns(input: VarietyInput) {
+	return {
+		name: input.name,
+		method: input.method,
+		days_to_maturity: input.daysToMaturity,
+		days_in_tray: input.daysInTray,
+		harvest_window_days: input.harvestWindowDays,
+		yield_per_bed_foot: input.yieldPerBedFoot,
+		rows_per_bed: input.rows,
+		in_row_spacing_in: input.inRowSpacingIn,
+		seeds_per_spot: input.seedsPerSpot,
+		germination_rate: input.germinationRate,
+		seeds_per_gram: input.seedsPerGram,
+		seed_price_cents_per_gram: Math.round(input.seedPrice * 100),
+		seeds_per_packet: input.seedsPerPacket,
+		cells_per_tray: input.cellsPerTray,
+		margin: input.margin,
+		gdd_to_maturity: input.gddToMaturity,
+		source: input.source
+	};
+}
+
+export async function createVariety(farmId: number, cropId: number, input: VarietyInput, trx: Knex | Knex.Transaction = db()): Promise<number> {
+	if (!(await trx('crops').where({ farm_id: farmId, id: cropId }).first('id'))) throw new LibraryInputError('_form', 'That crop is not in this farm\'s library.', 404);
+	try {
+		const [id] = await trx('varieties').insert({ farm_id: farmId, crop_id: cropId, ...varietyColumns(input) });
+		return id;
+	} catch (e) {
+		if (isDuplicate(e)) throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
+		throw e;
+	}
+}
+
+/** Changes a variety's figures. Plantings already made keep the figures they were planned with. */
+export async function updateVariety(farmId: number, varietyId: number, input: VarietyInput): Promise<boolean> {
+	try {
+		return (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update(varietyColumns(input))) > 0;
+	} catch (e) {
+		if (isDuplicate(e)) throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
+		throw e;
+	}
+}
+
+export async function setVarietyArchived(farmId: number, varietyId: number, archived: boolean): Promise<boolean> {
+	return (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
+}
+
+export type RemoveResult = { ok: true } | { ok: false; status: 404 } | { ok: false; status: 409; plantings: number; seasons: string[] };
+
+/** Deletes a variety no planting uses; one that plantings use is refused with how many and where. */
+export async function removeVariety(farmId: number, varietyId: number): Promise<RemoveResult> {
+	return db().transaction(async (trx) => {
+		const v = await trx('varieties').where({ farm_id: farmId, id: varietyId }).forUpdate().first('id');
+		if (!v) return { ok: false, status: 404 } as const;
+		const used: { name: string; n: number | string }[] = await trx('plantings as p')
+			.join('seasons as s', 's.id', 'p.season_id')
+			.where({ 'p.farm_id': farmId, 'p.variety_id': varietyId })
+			.groupBy('s.id', 's.name')
+			.select('s.name')
+			.count({ n: '*' });
+		if (used.length) return { ok: false, status: 409, plantings: used.reduce((a, u) => a + Number(u.n), 0), seasons: used.map((u) => u.name) } as const;
+		await trx('variety_figure_changes').where({ farm_id: farmId, variety_id: varietyId }).delete();
+		await trx('varieties').where({ farm_id: farmId, id: varietyId }).delete();
+		return { ok: true } as const;
+	});
+}
+
+export interface StarterResult {
+	crops: string[];
+	varieties: number;
+	/** Picked crops whose name the farm's library already holds: left as the farm has them. */
+	skipped: string[];
+}
+
+/** Copies the picked starter crops, with their varieties and sources, into the farm's library. */
+export async function addStarterCrops(farmId: number, picked: StarterCrop[]): Promise<StarterResult> {
+	return db().transaction(async (trx) => {
+		const existing = new Set(
+			(await trx('crops').where({ farm_id: farmId }).select('name')).map((r: { name: string }) => r.name.toLowerCase())
+		);
+		const out: StarterResult = { crops: [], varieties: 0, skipped: [] };
+		for (const c of picked) {
+			if (existing.has(c.name.toLowerCase())) {
+				out.skipped.push(c.name);
+				continue;
+			}
+			const { key: _key, varieties, ...crop } = c;
+			const cropId = await createCrop(farmId, { ...crop, price: null }, trx);
+			for (const sv of varieties) {
+				await createVariety(farmId, cropId, { ...sv, seedPrice: 0, seedsPerPacket: null, gddToMaturity: null }, trx);
+				out.varieties++;
+			}
+			out.crops.push(c.name);
+		}
+		return out;
+	});
 }

@@ -57,8 +57,16 @@ export async function activeSwaps(farmId: number, seasonId: number): Promise<Box
 		.where({ farm_id: farmId, season_id: seasonId })
 		.whereNull('undone_at')
 		.orderBy('id')
-		.select('id', 'share_size_id', 'week', 'from_crop_id', 'to_crop_id', 'quantity');
-	return rows.map((s) => ({ key: String(s.id), shareSizeId: String(s.share_size_id), week: s.week, fromCrop: String(s.from_crop_id), toCrop: String(s.to_crop_id), quantity: Number(s.quantity) }));
+		.select('id', 'share_size_id', 'week', 'from_crop_id', 'to_crop_id', 'quantity', 'to_quantity');
+	return rows.map((s) => ({
+		key: String(s.id),
+		shareSizeId: String(s.share_size_id),
+		week: s.week,
+		fromCrop: String(s.from_crop_id),
+		toCrop: String(s.to_crop_id),
+		quantity: Number(s.quantity),
+		...(s.to_quantity === null ? {} : { toQuantity: Number(s.to_quantity) })
+	}));
 }
 
 export function seasonWeeks(season: Season): string[] {

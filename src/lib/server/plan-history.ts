@@ -20,7 +20,7 @@ export class PlanConflictError extends Error {
  * every planting's id, version and status (so a grid edit or a sowing counts), and the weekly
  * targets. Two previews of the same state have the same fingerprint.
  */
-export async function planFingerprint(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<string> {
+export async function planFingerprint(farmId: number, seasonId: number, trx?: Knex.Transaction, demandDigest?: string): Promise<string> {
 	const q = trx ?? db();
 	const season: { plan_version: number } | undefined = await q('seasons').where({ farm_id: farmId, id: seasonId }).first('plan_version');
 	const rows: { id: number; version: number; status: string }[] = await q('plantings')
@@ -28,7 +28,7 @@ export async function planFingerprint(farmId: number, seasonId: number, trx?: Kn
 		.orderBy('id')
 		.select('id', 'version', 'status');
 	const hash = createHash('sha256');
-	hash.update(`v${season?.plan_version ?? 0};d${await demandHash(farmId, seasonId)};`);
+	hash.update(`v${season?.plan_version ?? 0};d${demandDigest ?? (await demandHash(farmId, seasonId))};`);
 	for (const r of rows) hash.update(`${r.id}:${r.version}:${r.status},`);
 	return hash.digest('hex').slice(0, 32);
 }
@@ -42,10 +42,13 @@ function sqlTime(v: unknown): unknown {
  * Inside the apply's transaction, before it deletes anything: locks the season row (a second
  * apply waits here) and refuses when the state moved on since the preview was made.
  */
-export async function lockForApply(trx: Knex.Transaction, farmId: number, seasonId: number, expected: string | undefined): Promise<void> {
+// `demandDigest`: the demand hash, taken by apply together with the demand it plans from. Under the lock,
+// work must stay on `trx`: planting edits queue behind the season lock holding pool connections, and
+// asking the pool for another one could wait on them until the lock wait times out.
+export async function lockForApply(trx: Knex.Transaction, farmId: number, seasonId: number, expected: string | undefined, demandDigest?: string): Promise<void> {
 	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
 	if (expected === undefined) return;
-	if ((await planFingerprint(farmId, seasonId, trx)) !== expected) {
+	if ((await planFingerprint(farmId, seasonId, trx, demandDigest)) !== expected) {
 		throw new PlanConflictError(
 			'The plan or its demand changed since this preview was made (another apply, an undo, a grid edit or new demand). Preview again before applying.',
 			'stale'
@@ -63,7 +66,7 @@ export async function snapshotPlanned(trx: Knex.Transaction, ids: number[]): Pro
 /** After the inserts: keeps the snapshot and the added ids, bumps the counter, stamps the time. */
 export async function recordApply(
 	trx: Knex.Transaction,
-	a: { farmId: number; seasonId: number; userId: string; options: unknown; replaced: Record<string, unknown>[] }
+	a: { farmId: number; seasonId: number; userId: string; options: unknown; replaced: Record<string, unknown>[]; demandDigest?: string }
 ): Promise<void> {
 	const season: { plan_applied_at: Date | null; plan_demand_hash: string | null } = await trx('seasons')
 		.where({ farm_id: a.farmId, id: a.seasonId })
@@ -82,7 +85,7 @@ export async function recordApply(
 	});
 	await trx('seasons')
 		.where({ farm_id: a.farmId, id: a.seasonId })
-		.update({ plan_version: trx.raw('plan_version + 1'), plan_applied_at: trx.fn.now(), plan_demand_hash: await demandHash(a.farmId, a.seasonId) });
+		.update({ plan_version: trx.raw('plan_version + 1'), plan_applied_at: trx.fn.now(), plan_demand_hash: a.demandDigest ?? (await demandHash(a.farmId, a.seasonId)) });
 	// Only the last apply can be undone; older snapshots are kept a while as history, then dropped.
 	const old = await trx('plan_applies').where({ season_id: a.seasonId }).orderBy('id', 'desc').offset(10).limit(1000).select('id');
 	if (old.length) await trx('plan_applies').whereIn('id', old.map((r) => r.id)).delete();

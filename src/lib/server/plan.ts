@@ -6,14 +6,15 @@ import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
+import type { Knex } from 'knex';
 import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
-import type { Season } from './seasons';
+import { demandHash, type Season } from './seasons';
 import { bedHolders } from './bed-holders';
-import { lockForApply, planFingerprint, recordApply, snapshotPlanned } from './plan-history';
+import { lockForApply, recordApply, snapshotPlanned } from './plan-history';
 
 export interface PlanPreview {
 	plan: SeasonPlan;
@@ -23,19 +24,38 @@ export interface PlanPreview {
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 }
 
-export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
+type ExistingPlanting = {
+	id: number;
+	status: string;
+	variety_id: number;
+	bed_id: number | null;
+	start_ft: number;
+	length_ft: number;
+	field_date: string;
+	first_harvest: string;
+	last_harvest: string;
+	crop_id: number;
+	yield_per_bed_foot: number;
+	family: string;
+};
+
+function seasonPlantings(executor: Knex | Knex.Transaction, farmId: number, seasonId: number): Promise<ExistingPlanting[]> {
+	return executor('plantings as p')
+		.join('varieties as v', 'v.id', 'p.variety_id')
+		.join('crops as c', 'c.id', 'v.crop_id')
+		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
+		.select('p.id', 'p.status', 'p.variety_id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family');
+}
+
+/** Everything the engine needs except the season's own plantings. */
+async function gatherInputs(farmId: number, season: Season) {
 	const seasonId = season.id;
 	const farm = await farms.get(farmId);
-	const [temps, varieties, bedList, demand, existing, obstacles, otherSeasons] = await Promise.all([
+	const [temps, varieties, bedList, demand, obstacles, otherSeasons] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
 		targetInput(farmId, seasonId),
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
-			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-			.select('p.id', 'p.status', 'p.variety_id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family'),
 		// Other seasons' plantings in the beds while this season runs (the fall's garlic, dug next summer).
 		bedHolders(farmId, season.startsOn, season.endsOn, farm.turnaroundDays, seasonId),
 		// Other seasons' plantings harvesting in this season's dates: they supply its weeks too.
@@ -48,6 +68,17 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			.where('p.last_harvest', '>=', season.startsOn)
 			.select('p.id', 'p.variety_id', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest')
 	]);
+	return { farm, temps, varieties, bedList, demand, obstacles, otherSeasons };
+}
+
+/** Runs the engine over the season as it stands; writes nothing. */
+export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
+	const [inputs, existing] = await Promise.all([gatherInputs(farmId, season), seasonPlantings(db(), farmId, season.id)]);
+	return planFrom(inputs, existing, request);
+}
+
+function planFrom(inputs: Awaited<ReturnType<typeof gatherInputs>>, existing: ExistingPlanting[], request: PlanRequest): PlanPreview {
+	const { farm, temps, varieties, bedList, demand, obstacles, otherSeasons } = inputs;
 	const engineVarieties = new Map(varieties.map((v) => [String(v.id), toEngineVariety(v)]));
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
@@ -93,7 +124,8 @@ export async function preview(farmId: number, season: Season, request: PlanReque
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},
-		varieties: [...engineVarieties.values()],
+		// Archived varieties keep their plantings (kept ones still use their curves above) but are offered to no new plan.
+		varieties: varieties.filter((v) => !v.archived).map((v) => engineVarieties.get(String(v.id))!),
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		targets,
 		kept,
@@ -131,8 +163,9 @@ export interface ApplyResult {
 
 /**
  * `expected` is the fingerprint of the preview the owner looked at: when given, the apply is
- * refused (PlanConflictError) if the season moved on since. Without it, the state this run
- * planned from must still hold when the write starts. The replaced plantings are kept for undo.
+ * refused (PlanConflictError) if the season moved on since. Without it, the plan is computed from the
+ * season as it stands under the lock, so whatever committed before is kept, and nothing is planted
+ * twice. The replaced plantings are kept for undo.
  */
 export async function apply(
 	farmId: number,
@@ -142,12 +175,18 @@ export async function apply(
 	expected?: string
 ): Promise<ApplyResult & { preview: PlanPreview }> {
 	const seasonId = season.id;
-	const planned = expected ?? (await planFingerprint(farmId, seasonId));
-	const result = await preview(farmId, season, request);
+	// Farm, varieties, beds and demand are read first, outside the lock: holding it while waiting for
+	// more pool connections could starve the edits queued behind it.
+	const [inputs, demandDigest] = await Promise.all([gatherInputs(farmId, season), demandHash(farmId, seasonId)]);
 	return db().transaction(async (trx) => {
-		// Lock the season, then its plantings: a second apply or a concurrent edit waits, and the counts below stay true.
-		await lockForApply(trx, farmId, seasonId, planned);
+		// One lock for computing and writing: the season row (a second apply, and every planting edit, which
+		// shares it, waits here), then the season's plantings, planned from as read under the lock. A status
+		// change that committed first is seen (its planting is kept, not planned again); a later one waits,
+		// then finds its planned row replaced. Planning from rows read before the lock could plant a kept
+		// planting twice.
+		await lockForApply(trx, farmId, seasonId, expected, demandDigest);
 		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
+		const result = planFrom(inputs, await seasonPlantings(trx, farmId, seasonId), request);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
 		const replaced = await snapshotPlanned(trx, plannedIds);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
@@ -155,7 +194,7 @@ export async function apply(
 			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
-		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced });
+		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced, demandDigest });
 		return {
 			kept: rows.length - plannedIds.length,
 			removed: plannedIds.length,

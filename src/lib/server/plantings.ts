@@ -3,10 +3,12 @@ import { db } from './db';
 import type { Knex } from 'knex';
 import type { Role } from '$lib/roles';
 import { editableFields, type PlantingCreate, type PlantingField, type PlantingPatch } from '$lib/schemas/planting';
-import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/components/grid/engine';
+import { fieldSpec, fromColumns, initialValue, plantingFieldNames, toColumns, type PlantingValues } from '$lib/plantings/fields';
+import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
+import { shareSeasonLockOfPlanting } from './seasons';
 
 import type { PlantingView } from '$lib/types';
 import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
@@ -23,48 +25,55 @@ function base(farmId: number) {
 		.leftJoin('users as u', 'u.id', 'p.updated_by')
 		.where('p.farm_id', farmId)
 		.select(
-			'p.id', 'p.season_id', 'p.variety_id', 'v.name as variety', 'c.name as crop', 'c.family', 'c.harvest_unit',
-			'p.bed_id', 'b.name as bed', 'k.name as block', 'k.position as block_position', 'b.position as bed_position',
-			'p.start_ft', 'p.length_ft', 'p.rows', 'p.in_row_spacing_in', 'p.seeds_per_spot', 'p.method', 'p.tray_sow_date',
-			'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.expected_yield', 'p.seeds_needed', 'p.status', 'p.notes', 'p.version',
-			'p.actual_tray_sow_date', 'p.actual_field_date', 'p.actual_first_harvest', 'p.actual_last_harvest', 'u.name as updated_by_name', 'p.updated_at'
+			...plantingFieldNames.map((f) => `p.${fieldSpec(f).column}`),
+			'p.id', 'p.season_id', 'v.name as variety', 'c.name as crop', 'c.family', 'c.harvest_unit',
+			'b.name as bed', 'k.name as block', 'k.position as block_position', 'b.position as bed_position',
+			'p.tray_sow_date', 'p.first_harvest', 'p.last_harvest', 'p.expected_yield', 'p.seeds_needed', 'p.version',
+			'u.name as updated_by_name', 'p.updated_at'
 		);
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-function toView(r: any): PlantingView {
+/** A row of base(): the plantings table's columns with the joined names. */
+type JoinedRow = Record<string, unknown> & {
+	id: number;
+	season_id: number;
+	variety: string;
+	crop: string;
+	family: string;
+	harvest_unit: string;
+	bed: string | null;
+	block: string | null;
+	block_position: number | null;
+	bed_position: number | null;
+	tray_sow_date: string | null;
+	first_harvest: string;
+	last_harvest: string;
+	expected_yield: string | number;
+	seeds_needed: number;
+	version: number;
+	updated_by_name: string | null;
+	updated_at: Date | string | null;
+};
+
+function toView(r: JoinedRow): PlantingView {
 	return {
+		...fromColumns(r),
 		id: r.id,
 		seasonId: r.season_id,
-		varietyId: r.variety_id,
 		variety: r.variety,
 		crop: r.crop,
 		family: r.family,
 		harvestUnit: r.harvest_unit,
-		bedId: r.bed_id,
 		bed: r.bed,
 		block: r.block,
 		blockPosition: r.block_position,
 		bedPosition: r.bed_position,
-		startFt: Number(r.start_ft),
-		lengthFt: Number(r.length_ft),
-		rows: r.rows,
-		inRowSpacingIn: Number(r.in_row_spacing_in),
-		seedsPerSpot: r.seeds_per_spot,
-		method: r.method,
 		traySowDate: r.tray_sow_date,
-		fieldDate: r.field_date,
 		firstHarvest: r.first_harvest,
 		lastHarvest: r.last_harvest,
 		expectedYield: Number(r.expected_yield),
 		seedsNeeded: r.seeds_needed,
-		status: r.status,
-		notes: r.notes,
 		version: r.version,
-		actualTraySowDate: r.actual_tray_sow_date ?? null,
-		actualFieldDate: r.actual_field_date ?? null,
-		actualFirstHarvest: r.actual_first_harvest ?? null,
-		actualLastHarvest: r.actual_last_harvest ?? null,
 		updatedBy: r.updated_by_name ?? null,
 		updatedAt: r.updated_at ? new Date(r.updated_at).toISOString() : null
 	};
@@ -135,40 +144,15 @@ export async function getOne(farmId: number, id: number, trx?: Knex.Transaction)
 /** Bad input that only the database can judge (another farm's variety or bed, a row the engine cannot work out). */
 export type FieldErrors = Record<string, string>;
 
-const columnOf: Record<PlantingField, string> = {
-	varietyId: 'variety_id',
-	bedId: 'bed_id',
-	startFt: 'start_ft',
-	lengthFt: 'length_ft',
-	rows: 'rows',
-	inRowSpacingIn: 'in_row_spacing_in',
-	seedsPerSpot: 'seeds_per_spot',
-	method: 'method',
-	fieldDate: 'field_date',
-	status: 'status',
-	actualTraySowDate: 'actual_tray_sow_date',
-	actualFieldDate: 'actual_field_date',
-	actualFirstHarvest: 'actual_first_harvest',
-	actualLastHarvest: 'actual_last_harvest',
-	notes: 'notes'
-};
-
-type Full = Required<{ [K in PlantingField]: NonNullable<PlantingCreate[K]> | null }>;
-
 /** The row as stored, with derived columns recomputed; errors keyed by field. */
-function buildRow(values: Full, variety: GridVariety | undefined, ctx: GridContext, prefix: string): { row?: Record<string, unknown>; errors: FieldErrors } {
+function buildRow(values: PlantingValues, variety: GridVariety | undefined, ctx: GridContext, prefix: string): { row?: Record<string, unknown>; errors: FieldErrors } {
 	const errors: FieldErrors = {};
 	if (!variety) errors[`${prefix}varietyId`] = 'Choose one of this farm\'s varieties.';
 	if (values.bedId !== null && !ctx.beds.some((b) => b.id === values.bedId)) errors[`${prefix}bedId`] = 'Choose one of this farm\'s beds.';
 	if (!variety || Object.keys(errors).length) return { errors };
-	const d = deriveRow(
-		{ method: values.method as 'direct' | 'transplant', fieldDate: values.fieldDate as string, lengthFt: values.lengthFt as number, rows: values.rows as number, inRowSpacingIn: values.inRowSpacingIn as number, seedsPerSpot: values.seedsPerSpot as number },
-		variety,
-		ctx.farm
-	);
+	const d = deriveRow(values, variety, ctx.farm);
 	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
-	const row: Record<string, unknown> = {};
-	for (const f of Object.keys(columnOf) as PlantingField[]) row[columnOf[f]] = values[f];
+	const row = toColumns(values);
 	Object.assign(row, {
 		tray_sow_date: d.value.traySowDate,
 		first_harvest: d.value.firstHarvest,
@@ -179,24 +163,10 @@ function buildRow(values: Full, variety: GridVariety | undefined, ctx: GridConte
 	return { row, errors };
 }
 
-function withDefaults(input: PlantingCreate, v: GridVariety | undefined): Full {
-	return {
-		varietyId: input.varietyId,
-		bedId: input.bedId ?? null,
-		startFt: input.startFt ?? 0,
-		lengthFt: input.lengthFt,
-		rows: input.rows ?? v?.rows ?? 1,
-		inRowSpacingIn: input.inRowSpacingIn ?? v?.inRowSpacingIn ?? 6,
-		seedsPerSpot: input.seedsPerSpot ?? v?.seedsPerSpot ?? 1,
-		method: input.method ?? v?.method ?? 'direct',
-		fieldDate: input.fieldDate,
-		status: input.status ?? 'planned',
-		actualTraySowDate: input.actualTraySowDate ?? null,
-		actualFieldDate: input.actualFieldDate ?? null,
-		actualFirstHarvest: input.actualFirstHarvest ?? null,
-		actualLastHarvest: input.actualLastHarvest ?? null,
-		notes: input.notes ?? null
-	};
+function withDefaults(input: PlantingCreate, v: GridVariety | undefined): PlantingValues {
+	const out: Record<string, unknown> = { ...input };
+	for (const f of plantingFieldNames) if (out[f] === undefined) out[f] = initialValue(f, v);
+	return out as PlantingValues;
 }
 
 const dateLabels = {
@@ -294,28 +264,22 @@ export async function update(farmId: number, id: number, user: { id: string; rol
 	if (refused.length) return { kind: 'forbidden', fields: refused };
 	const ctx = await gridContext(farmId);
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const cur = await trx('plantings').where({ id, farm_id: farmId }).forUpdate().first();
 		if (!cur) return { kind: 'not_found' } as const;
 		if (cur.version !== version) {
 			const current = await getOne(farmId, id, trx);
 			return { kind: 'conflict', current: current! } as const;
 		}
-		const values = { ...rowValues(cur), ...changes } as Full;
+		const values: PlantingValues = { ...fromColumns(cur), ...changes };
 		const limits = await dateLimits(farmId, cur.season_id, trx);
-		const dateErrors = limits ? plantingDateErrors(values as Partial<Record<DateField, string | null>>, Object.keys(changes), limits) : {};
+		const dateErrors = limits ? plantingDateErrors(values, Object.keys(changes), limits) : {};
 		if (Object.keys(dateErrors).length) return { kind: 'invalid', errors: dateErrors } as const;
 		const built = buildRow(values, ctx.varieties.find((v) => v.id === values.varietyId), ctx, '');
 		if (!built.row) return { kind: 'invalid', errors: built.errors } as const;
 		await trx('plantings').where({ id, farm_id: farmId }).update({ ...built.row, version: version + 1, updated_by: user.id, updated_at: trx.fn.now() });
 		return { kind: 'ok', planting: (await getOne(farmId, id, trx))! } as const;
 	});
-}
-
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-function rowValues(r: any): Full {
-	const out = {} as Record<string, unknown>;
-	for (const [f, c] of Object.entries(columnOf)) out[f] = ['start_ft', 'length_ft', 'in_row_spacing_in'].includes(c) ? Number(r[c]) : r[c];
-	return out as Full;
 }
 
 /**
@@ -325,6 +289,7 @@ function rowValues(r: any): Full {
  */
 export async function remove(farmId: number, id: number): Promise<PlantingView | null | 'has_harvests'> {
 	return db().transaction(async (trx) => {
+		await shareSeasonLockOfPlanting(trx, farmId, id);
 		const view = await getOne(farmId, id, trx);
 		if (!view) return null;
 		const logged = await trx('harvest_records').where({ planting_id: id }).first('id');

@@ -15,6 +15,7 @@ import {
 	shiftPlantingDates,
 	type PlanningWarning
 } from '$lib/planning';
+import { nextSeasonColumns } from '$lib/plantings/fields';
 import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
@@ -108,31 +109,27 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 		const name = `${year} season`;
 		const [seasonId] = await trx('seasons').insert({ farm_id: farmId, year, name, starts_on: dates.startsOn, ends_on: dates.endsOn });
 
-		for (const { p, next } of moved) {
+		const rows = moved.map(({ p, next }) => {
 			const at = placedBy.get(String(p.id));
 			const reason = unplacedBy.get(String(p.id));
-			await trx('plantings').insert({
+			return {
+				...nextSeasonColumns(p),
 				farm_id: farmId,
 				season_id: seasonId,
-				variety_id: p.variety_id,
 				bed_id: at ? Number(at.bedId) : null,
 				start_ft: at ? at.startFt : 0,
-				length_ft: p.length_ft,
-				rows: p.rows,
-				in_row_spacing_in: p.in_row_spacing_in,
-				seeds_per_spot: p.seeds_per_spot,
-				method: p.method,
 				tray_sow_date: next.traySowDate,
 				field_date: next.fieldDate,
 				first_harvest: next.firstHarvest,
 				last_harvest: next.lastHarvest,
 				expected_yield: p.expected_yield,
 				seeds_needed: p.seeds_needed,
-				status: 'planned',
 				notes: reason ? `Not placed: ${reason}` : p.notes && !String(p.notes).startsWith('Not placed:') ? p.notes : null,
 				updated_by: userId
-			});
-		}
+			};
+		});
+		// Plan apply and import batch the same way; no ids are needed back from this insert.
+		for (let i = 0; i < rows.length; i += 500) await trx('plantings').insert(rows.slice(i, i + 500));
 
 		const shares = await trx('share_sizes').where({ farm_id: farmId, season_id: source.id });
 		let boxItems = 0;

@@ -11,21 +11,42 @@ export interface Season {
 	name: string;
 	startsOn: string;
 	endsOn: string;
+	/** ISO timestamp when archived, or null while in use. Archived seasons stay readable. */
+	archivedAt?: string | null;
 }
 
-const columns = ['id', 'year', 'name', 'starts_on', 'ends_on'] as const;
-function toSeason(r: { id: number; year: number; name: string; starts_on: string; ends_on: string }): Season {
-	return { id: r.id, year: r.year, name: r.name, startsOn: r.starts_on, endsOn: r.ends_on };
+type SeasonRow = { id: number; year: number; name: string; starts_on: string; ends_on: string; archived_at: Date | null };
+const columns = ['id', 'year', 'name', 'starts_on', 'ends_on', 'archived_at'] as const;
+function toSeason(r: SeasonRow): Season {
+	return { id: r.id, year: r.year, name: r.name, startsOn: r.starts_on, endsOn: r.ends_on, archivedAt: r.archived_at === null ? null : new Date(r.archived_at).toISOString() };
 }
 
-export async function list(farmId: number): Promise<Season[]> {
-	return (await db()('seasons').where({ farm_id: farmId }).orderBy('year', 'desc').select(columns)).map(toSeason);
+/** Every season of the farm, newest first; archived ones only when asked for. */
+export async function list(farmId: number, opts: { archived?: boolean } = {}): Promise<Season[]> {
+	const q = db()('seasons').where({ farm_id: farmId });
+	if (!opts.archived) q.whereNull('archived_at');
+	return (await q.orderBy('year', 'desc').select(columns)).map(toSeason);
 }
 
 /** The season of this farm, or null when the id belongs to no season of this farm. */
 export async function get(farmId: number, seasonId: number): Promise<Season | null> {
 	const r = await db()('seasons').where({ farm_id: farmId, id: seasonId }).first(columns);
 	return r ? toSeason(r) : null;
+}
+
+/**
+ * Takes the season's row lock, shared, at the start of a transaction that edits one of its plantings.
+ * Plan apply takes the same lock exclusively before it reads and replaces the season's plantings, so
+ * edits and applies queue in one order (season first, then plantings) and never deadlock each other.
+ */
+export async function shareSeasonLock(trx: Knex.Transaction, farmId: number, seasonId: number): Promise<void> {
+	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forShare().first('id');
+}
+
+/** The same, found from a planting (no lock when the planting is not the farm's). */
+export async function shareSeasonLockOfPlanting(trx: Knex.Transaction, farmId: number, plantingId: number): Promise<void> {
+	const row: { season_id: number } | undefined = await trx('plantings').where({ id: plantingId, farm_id: farmId }).first('season_id');
+	if (row) await shareSeasonLock(trx, farmId, row.season_id);
 }
 
 // ---- Plan against demand -------------------------------------------------------------------
@@ -66,4 +87,63 @@ export async function planFreshness(farmId: number, seasonId: number): Promise<P
 /** Records that the season's demand was written now (inside the writer's transaction when given). */
 export async function markDemandChanged(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<void> {
 	await (trx ?? db())('seasons').where({ farm_id: farmId, id: seasonId }).update({ demand_changed_at: (trx ?? db()).fn.now() });
+}
+
+// ---- The seasons page: start, rename, archive -------------------------------------------------
+
+export interface SeasonSummary extends Season {
+	plantings: number;
+	freshness: PlanFreshness;
+}
+
+/** Every season (archived too) with its planting count and whether its plan is older than its demand. */
+export async function listSummaries(farmId: number): Promise<SeasonSummary[]> {
+	const [rows, counts] = await Promise.all([
+		db()('seasons').where({ farm_id: farmId }).orderBy('year', 'desc').select(columns),
+		db()('plantings').where({ farm_id: farmId }).groupBy('season_id').select('season_id').count({ n: '*' })
+	]);
+	const bySeason = new Map((counts as { season_id: number; n: number | string }[]).map((c) => [Number(c.season_id), Number(c.n)]));
+	return Promise.all(
+		rows.map(async (r: SeasonRow) => {
+			const s = toSeason(r);
+			return { ...s, plantings: bySeason.get(s.id) ?? 0, freshness: await planFreshness(farmId, s.id) };
+		})
+	);
+}
+
+export class SeasonInputError extends Error {
+	constructor(
+		public field: string,
+		message: string,
+		public status: 400 | 409 = 400
+	) {
+		super(message);
+	}
+}
+
+function isDuplicate(e: unknown): boolean {
+	return typeof e === 'object' && e !== null && (e as { code?: string }).code === 'ER_DUP_ENTRY';
+}
+
+/** A new, empty season: the calendar year, named as given. One season per farm and year. */
+export async function create(farmId: number, input: { year: number; name: string }): Promise<number> {
+	if (await db()('seasons').where({ farm_id: farmId, year: input.year }).first('id')) {
+		throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
+	}
+	try {
+		const [id] = await db()('seasons').insert({ farm_id: farmId, year: input.year, name: input.name, starts_on: `${input.year}-01-01`, ends_on: `${input.year}-12-31` });
+		return id;
+	} catch (e) {
+		if (isDuplicate(e)) throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
+		throw e;
+	}
+}
+
+export async function rename(farmId: number, seasonId: number, name: string): Promise<boolean> {
+	return (await db()('seasons').where({ farm_id: farmId, id: seasonId }).update({ name })) > 0;
+}
+
+/** Archives (or brings back) a season; its plantings and demand stay as they are. */
+export async function setArchived(farmId: number, seasonId: number, archived: boolean): Promise<boolean> {
+	return (await db()('seasons').where({ farm_id: farmId, id: seasonId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
 }

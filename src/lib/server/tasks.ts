@@ -1,6 +1,7 @@
 // Marking a crew task done: the planting's status moves forward to what the task implies and the
 // matching actual date is recorded, in one transaction with the row locked, bumping `version`.
 import { db } from './db';
+import { shareSeasonLock } from './seasons';
 import { seasonDateProblem } from '$lib/schemas/common';
 import type { MarkDone, TaskKind } from './sheets/schemas';
 
@@ -27,6 +28,7 @@ export async function markTaskDone(farmId: number, seasonId: number, userId: str
 	if (input.date > today) return { ok: false, code: 400, field: 'date', message: `Actual date cannot be after today (${today}).` };
 	const rule = implied[input.kind];
 	return db().transaction(async (trx) => {
+		await shareSeasonLock(trx, farmId, seasonId);
 		const row = await trx('plantings')
 			.where({ id: input.plantingId, farm_id: farmId, season_id: seasonId })
 			.forUpdate()

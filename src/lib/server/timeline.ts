@@ -3,7 +3,7 @@
 // farm whose time in the ground touches the window, not only the season's own.
 import { addDays, checkBedConflicts, formatWeekDate, freeSpace, weekStart, type BedPlanting } from '$lib/planning';
 import type { FreeSpaceQuery } from '$lib/schemas/free-space';
-import type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting } from '$lib/components/timeline/types';
+import type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting } from '$lib/timeline-types';
 import { db } from './db';
 import { holdingBedIn } from './bed-holders';
 import * as bedData from './beds';

@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
 	type Bed,
@@ -87,6 +88,35 @@ describe('placePlantings', () => {
 		const whole = placePlantings([req('A', 150, '2026-05-01', '2026-06-30')], beds, { allowSplit: false });
 		expect(whole.placed).toEqual([]);
 		expect(whole.unplaced.map((u) => u.plantingKey)).toEqual(['A']);
+	});
+
+	it('never splits a piece under minPieceFt: 25 ft into an 18 ft gap goes 15 + 10, not 18 + 7', () => {
+		// b1 has 18 ft free (82 ft held), b2 has 10 ft free (90 ft held): a 25 ft planting must split.
+		const r = placePlantings(
+			[req('X', 82, '2026-05-01', '2026-06-30'), req('Y', 90, '2026-05-01', '2026-06-30'), req('A', 25, '2026-05-02', '2026-06-30')],
+			beds,
+			{ minPieceFt: 10 }
+		);
+		const pieces = r.placed.filter((p) => p.plantingKey === 'A').map((p) => p.lengthFt);
+		// 25 − 18 = 7 would be under 10, so the first piece leaves 10: 15 + 10.
+		expect(pieces).toEqual([15, 10]);
+	});
+
+	it('property: no piece of a split planting is under minPieceFt', () => {
+		fc.assert(
+			fc.property(
+				fc.array(fc.record({ feet: fc.integer({ min: 1, max: 180 }), day: fc.integer({ min: 0, max: 60 }), len: fc.integer({ min: 10, max: 90 }) }), { minLength: 1, maxLength: 25 }),
+				fc.integer({ min: 2, max: 30 }),
+				(ps, minPieceFt) => {
+					const reqs = ps.map((p, i) => req(`p${i}`, p.feet, addDays('2026-04-01', p.day), addDays('2026-04-01', p.day + p.len)));
+					const r = placePlantings(reqs, [...beds, { id: 'b3', lengthFt: 60 }], { minPieceFt });
+					const byKey = new Map<string, number[]>();
+					for (const p of r.placed) byKey.set(p.plantingKey, [...(byKey.get(p.plantingKey) ?? []), p.lengthFt]);
+					for (const pieces of byKey.values()) if (pieces.length > 1) for (const l of pieces) expect(l).toBeGreaterThanOrEqual(minPieceFt - 1e-9);
+				}
+			),
+			{ numRuns: 200 }
+		);
 	});
 
 	it('rolls back pieces when even split there is not room, and says how much was free', () => {

@@ -1,8 +1,9 @@
 // The grid's columns: what each shows, how it is typed or pasted, and which field it edits.
 import { formatWeekDate } from '$lib/planning';
 import { checkCell, plantingStatuses, type CellCheck, type PlantingField } from '$lib/schemas/planting';
+import { fieldSpec, plantingFieldNames } from '$lib/plantings/fields';
 import type { GridRow } from './rows';
-import type { GridBed, GridVariety } from './engine';
+import type { GridBed, GridVariety } from '$lib/plantings/derive';
 
 export type ColumnKind = 'text' | 'number' | 'date' | 'select';
 
@@ -46,55 +47,80 @@ function unitOf(row: GridRow, l: Lookups): string {
 	return l.varietyById.get(row.values.varietyId)?.harvestUnit ?? '';
 }
 
+/** Fields the grid draws with a column of its own (names to ids, lists); the rest come from the field table. */
+const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
+	varietyId: [
+		{
+			id: 'crop', label: 'Crop', field: 'varietyId', kind: 'select', width: 120,
+			show: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '?',
+			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
+			text: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
+			// Choosing a crop picks its first variety; the variety column then narrows to that crop.
+			options: (_r, l) => {
+				const seen = new Map<string, number>();
+				for (const v of l.varieties) if (!seen.has(v.crop)) seen.set(v.crop, v.id);
+				return [...seen].map(([label, id]) => ({ label, value: String(id) }));
+			}
+		},
+		{
+			id: 'variety', label: 'Variety', field: 'varietyId', kind: 'select', width: 140,
+			show: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '?',
+			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
+			text: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
+			options: (r, l) => {
+				const crop = l.varietyById.get(r.values.varietyId)?.crop;
+				return l.varieties.filter((v) => v.crop === crop).map((v) => ({ label: v.name, value: String(v.id) }));
+			}
+		}
+	],
+	bedId: [
+		{
+			id: 'bed', label: 'Bed', field: 'bedId', kind: 'select', width: 130,
+			show: (r, l) => (r.values.bedId === null ? 'not placed' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '?'),
+			sortValue: (r, l) => (r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
+			text: (r, l) => (r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
+			options: (_r, l) => [{ label: 'not placed', value: '' }, ...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))]
+		}
+	],
+	method: [
+		{
+			id: 'method', label: 'Method', field: 'method', kind: 'select', width: 96,
+			show: (r) => r.values.method, sortValue: (r) => r.values.method, text: (r) => r.values.method,
+			options: () => [{ label: 'direct', value: 'direct' }, { label: 'transplant', value: 'transplant' }]
+		}
+	],
+	fieldDate: [
+		{
+			id: 'fieldDate', label: 'Field date', field: 'fieldDate', kind: 'date', width: 140,
+			show: (r) => wd(r.values.fieldDate), sortValue: (r) => r.values.fieldDate, text: (r) => r.values.fieldDate
+		}
+	]
+};
+
+const statusColumn: GridColumn = {
+	id: 'status', label: 'Status', field: 'status', kind: 'select', width: 104,
+	show: (r) => r.values.status, sortValue: (r) => plantingStatuses.indexOf(r.values.status), text: (r) => r.values.status,
+	options: () => plantingStatuses.map((s) => ({ label: s, value: s }))
+};
+
+/** A field's plain column, from its field-table entry (grid id, label, width, unit and kind). */
+function plainColumn(f: PlantingField): GridColumn[] {
+	const g = fieldSpec(f).grid;
+	if (!g) return [];
+	const kind = fieldSpec(f).kind;
+	if (kind === 'number' || kind === 'int') return [num(g.id, g.label, g.unit ?? '', g.width, f)];
+	if (kind === 'date') return [dateCol(g.id, g.label, f, g.width)];
+	const get = (r: GridRow): string => (r.values[f] as string | null) ?? '';
+	return [{ id: g.id, label: g.label, field: f, kind: 'text', width: g.width, show: get, sortValue: get, text: get }];
+}
+
+const fieldColumns = (edit: 'plan' | 'record'): GridColumn[] =>
+	plantingFieldNames.filter((f) => f !== 'status' && fieldSpec(f).edit === edit).flatMap((f) => ownColumns[f] ?? plainColumn(f));
+
+// The plan's fields, the status, the engine's figures, then the record of what happened.
 export const columns: GridColumn[] = [
-	{
-		id: 'crop', label: 'Crop', field: 'varietyId', kind: 'select', width: 120,
-		show: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '?',
-		sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
-		text: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
-		// Choosing a crop picks its first variety; the variety column then narrows to that crop.
-		options: (_r, l) => {
-			const seen = new Map<string, number>();
-			for (const v of l.varieties) if (!seen.has(v.crop)) seen.set(v.crop, v.id);
-			return [...seen].map(([label, id]) => ({ label, value: String(id) }));
-		}
-	},
-	{
-		id: 'variety', label: 'Variety', field: 'varietyId', kind: 'select', width: 140,
-		show: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '?',
-		sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
-		text: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
-		options: (r, l) => {
-			const crop = l.varietyById.get(r.values.varietyId)?.crop;
-			return l.varieties.filter((v) => v.crop === crop).map((v) => ({ label: v.name, value: String(v.id) }));
-		}
-	},
-	{
-		id: 'bed', label: 'Bed', field: 'bedId', kind: 'select', width: 130,
-		show: (r, l) => (r.values.bedId === null ? 'not placed' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '?'),
-		sortValue: (r, l) => (r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
-		text: (r, l) => (r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
-		options: (_r, l) => [{ label: 'not placed', value: '' }, ...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))]
-	},
-	num('startFt', 'Start', 'ft', 70, 'startFt'),
-	num('lengthFt', 'Bed-feet', 'ft', 80, 'lengthFt'),
-	num('rows', 'Rows', 'rows', 64, 'rows'),
-	num('spacing', 'Spacing', 'in', 72, 'inRowSpacingIn'),
-	num('seedsPerSpot', 'Seeds/spot', 'seeds', 80, 'seedsPerSpot'),
-	{
-		id: 'method', label: 'Method', field: 'method', kind: 'select', width: 96,
-		show: (r) => r.values.method, sortValue: (r) => r.values.method, text: (r) => r.values.method,
-		options: () => [{ label: 'direct', value: 'direct' }, { label: 'transplant', value: 'transplant' }]
-	},
-	{
-		id: 'fieldDate', label: 'Field date', field: 'fieldDate', kind: 'date', width: 140,
-		show: (r) => wd(r.values.fieldDate), sortValue: (r) => r.values.fieldDate, text: (r) => r.values.fieldDate
-	},
-	{
-		id: 'status', label: 'Status', field: 'status', kind: 'select', width: 104,
-		show: (r) => r.values.status, sortValue: (r) => plantingStatuses.indexOf(r.values.status), text: (r) => r.values.status,
-		options: () => plantingStatuses.map((s) => ({ label: s, value: s }))
-	},
+	...fieldColumns('plan'),
+	statusColumn,
 	derivedDate('traySow', 'Tray sowing', (r) => r.derived?.traySowDate ?? null),
 	derivedDate('firstHarvest', 'First harvest', (r) => r.derived?.firstHarvest ?? null),
 	derivedDate('lastHarvest', 'Last harvest', (r) => r.derived?.lastHarvest ?? null),
@@ -108,14 +134,7 @@ export const columns: GridColumn[] = [
 		id: 'warnings', label: 'Warnings', kind: 'text', width: 160,
 		show: (r) => warningLabels(r).join(', '), sortValue: (r) => warningLabels(r).length, text: (r) => warningLabels(r).join(', ')
 	},
-	dateCol('actualTraySow', 'Sown in tray', 'actualTraySowDate'),
-	dateCol('actualField', 'In field', 'actualFieldDate'),
-	dateCol('actualFirst', 'Harvest began', 'actualFirstHarvest'),
-	dateCol('actualLast', 'Harvest ended', 'actualLastHarvest'),
-	{
-		id: 'notes', label: 'Notes', field: 'notes', kind: 'text', width: 200,
-		show: (r) => r.values.notes ?? '', sortValue: (r) => r.values.notes ?? '', text: (r) => r.values.notes ?? ''
-	}
+	...fieldColumns('record')
 ];
 
 const warningNames: Record<string, string> = {
@@ -156,9 +175,9 @@ function derivedNum(id: string, label: string, get: (r: GridRow) => number | und
 	};
 }
 
-function dateCol(id: string, label: string, field: PlantingField): GridColumn {
+function dateCol(id: string, label: string, field: PlantingField, width: number): GridColumn {
 	const get = (r: GridRow): string | null => r.values[field] as string | null;
-	return { id, label, field, kind: 'date', width: 130, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
+	return { id, label, field, kind: 'date', width, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
 }
 
 export const columnById = new Map(columns.map((c) => [c.id, c]));

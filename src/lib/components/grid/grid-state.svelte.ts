@@ -5,9 +5,10 @@ import { weekStart, addDays } from '$lib/planning';
 import { editableFields, type PlantingField } from '$lib/schemas/planting';
 import type { Role } from '$lib/roles';
 import { can } from '$lib/permissions';
+import { initialValue, plantingFieldNames } from '$lib/plantings/fields';
 import type { PlantingView } from '$lib/types';
 import { columns as allColumns, readCell, warningLabels, bedLabel, type GridColumn, type Lookups } from './columns';
-import type { GridBed, GridFarm, GridVariety } from './engine';
+import type { GridBed, GridFarm, GridVariety } from '$lib/plantings/derive';
 import { rowFromView, withDerived, type GridRow, type RowValues } from './rows';
 import { SaveQueue, type GridApi } from './save-queue.svelte';
 
@@ -610,24 +611,10 @@ export class GridState {
 	}
 }
 
+/** A new row's values: each field's initial value (plantings/fields.ts), ten bed-feet sown today. */
 export function defaultValues(v: GridVariety | undefined): RowValues {
-	return {
-		varietyId: v?.id ?? 0,
-		bedId: null,
-		startFt: 0,
-		lengthFt: 10,
-		rows: v?.rows ?? 1,
-		inRowSpacingIn: v?.inRowSpacingIn ?? 6,
-		seedsPerSpot: v?.seedsPerSpot ?? 1,
-		method: v?.method ?? 'direct',
-		fieldDate: new Date().toISOString().slice(0, 10),
-		status: 'planned',
-		actualTraySowDate: null,
-		actualFieldDate: null,
-		actualFirstHarvest: null,
-		actualLastHarvest: null,
-		notes: null
-	};
+	const out = Object.fromEntries(plantingFieldNames.map((f) => [f, initialValue(f, v)]));
+	return { ...out, varietyId: v?.id ?? 0, lengthFt: 10, fieldDate: new Date().toISOString().slice(0, 10) } as RowValues;
 }
 
 function clamp(x: number, lo: number, hi: number): number {

@@ -1,27 +1,12 @@
 // A row of the grid: the planting's editable values, its derived figures and its warnings.
 import type { BedConflict } from '$lib/planning';
 import type { DerivedPlanting } from '$lib/planning/planting-derive';
-import type { PlantingField, PlantingStatus } from '$lib/schemas/planting';
+import { plantingFieldNames, type PlantingField, type PlantingValues } from '$lib/plantings/fields';
 import type { PlantingView } from '$lib/types';
-import { deriveRow, type GridFarm, type GridVariety } from './engine';
+import { deriveRow, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 
-export interface RowValues {
-	varietyId: number;
-	bedId: number | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: 'direct' | 'transplant';
-	fieldDate: string;
-	status: PlantingStatus;
-	actualTraySowDate: string | null;
-	actualFieldDate: string | null;
-	actualFirstHarvest: string | null;
-	actualLastHarvest: string | null;
-	notes: string | null;
-}
+/** A row's editable values: the planting's fields as the field table lists them. */
+export type RowValues = PlantingValues;
 
 export interface GridRow {
 	/** Stable in the browser, also before the server gave the row an id. */
@@ -38,23 +23,8 @@ export interface GridRow {
 }
 
 export function valuesOf(p: PlantingView): RowValues {
-	return {
-		varietyId: p.varietyId,
-		bedId: p.bedId,
-		startFt: p.startFt,
-		lengthFt: p.lengthFt,
-		rows: p.rows,
-		inRowSpacingIn: p.inRowSpacingIn,
-		seedsPerSpot: p.seedsPerSpot,
-		method: p.method,
-		fieldDate: p.fieldDate,
-		status: p.status as PlantingStatus,
-		actualTraySowDate: p.actualTraySowDate ?? null,
-		actualFieldDate: p.actualFieldDate ?? null,
-		actualFirstHarvest: p.actualFirstHarvest ?? null,
-		actualLastHarvest: p.actualLastHarvest ?? null,
-		notes: p.notes
-	};
+	const view = p as unknown as Record<string, unknown>;
+	return Object.fromEntries(plantingFieldNames.map((f) => [f, view[f] ?? null])) as RowValues;
 }
 
 /** The row with its derived figures recalculated by the engine (conflicts are set per bed elsewhere). */

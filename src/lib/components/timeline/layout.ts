@@ -5,7 +5,7 @@
 import { daysBetween, formatWeekDate, weekStart, isoWeek, addDays, weeksBetween } from '../../planning/index';
 import { familyStyle } from '../../families';
 import type { Block } from '$lib/types';
-import type { TimelineBed, TimelineFlag, TimelinePlanting } from './types';
+import type { TimelineBed, TimelineFlag, TimelinePlanting } from '$lib/timeline-types';
 
 export const GEOMETRY = {
 	labelW: 116,

@@ -1,8 +1,10 @@
 import type { PageServerLoad } from './$types';
 import { requireUser } from '$lib/server/guards';
-import { listVarieties } from '$lib/server/crops';
+import { can } from '$lib/permissions';
+import { listCrops } from '$lib/server/crops';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
-	return { varieties: await listVarieties(farm.id) };
+	const archived = event.url.searchParams.get('archived') === '1';
+	return { crops: await listCrops(farm.id, { archived }), showArchived: archived, canEdit: can(farm.role, 'library.edit') };
 }) satisfies PageServerLoad;

@@ -5,6 +5,7 @@ import * as farms from '$lib/server/farms';
 import * as beds from '$lib/server/beds';
 import { bedSchema, blockSchema, farmSettingsSchema } from '$lib/schemas/farm';
 import { fieldErrors } from '$lib/schemas/common';
+import { bulkBedsAction } from '$lib/server/bed-bulk-action';
 
 function text(form: FormData): Record<string, string> {
 	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
@@ -17,6 +18,7 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
+	bulkBeds: bulkBedsAction,
 	farm: async (event) => {
 		const { farm } = requireCan(event, 'farm.settings');
 		const values = text(await event.request.formData());

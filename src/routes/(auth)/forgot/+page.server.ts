@@ -2,28 +2,26 @@ import { fail } from '@sveltejs/kit';
 import type { Actions } from './$types';
 import { forgotSchema } from '$lib/schemas/auth';
 import { fieldErrors } from '$lib/schemas/common';
-import { findByEmail } from '$lib/server/users';
-import { createPasswordReset } from '$lib/server/password-resets';
-import { sendMail } from '$lib/server/mail';
+import { afterResponse, mailPasswordReset } from '$lib/server/password-resets';
+import { forgotAccountAllowed, forgotAddressWait, waitInWords } from '$lib/server/rate-limit';
+import { clientAddress } from '$lib/server/client-address';
 
 export const actions = {
-	default: async ({ request, url }) => {
-		const form = Object.fromEntries(await request.formData());
+	default: async (event) => {
+		const form = Object.fromEntries(await event.request.formData());
 		const values = { email: String(form.email ?? '') };
 		const parsed = forgotSchema.safeParse(form);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		const user = await findByEmail(parsed.data.email);
-		if (user) {
-			const token = await createPasswordReset(user.id);
-			const link = `${url.origin}/reset/${token}`;
-			await sendMail({
-				to: user.email,
-				subject: 'Reset your Furrowcast password',
-				text: `Someone asked to reset the password of your Furrowcast account.\n\nChoose a new password here (the link works once, for one hour):\n${link}\n\nIf it was not you, ignore this message; your password stays as it is.`,
-				html: `<p>Someone asked to reset the password of your Furrowcast account.</p><p><a href="${link}">Choose a new password</a> (the link works once, for one hour).</p><p>If it was not you, ignore this message; your password stays as it is.</p>`
-			});
+		// Per address: said openly, since it tells nothing about any account.
+		const wait = await forgotAddressWait(clientAddress(event));
+		if (wait > 0) {
+			event.setHeaders({ 'retry-after': String(Math.ceil(wait / 1000)) });
+			return fail(429, { errors: { email: `Too many reset requests from your network address. Wait ${waitInWords(wait)}, then try again.` }, values });
 		}
-		// The same answer either way: this page does not tell who has an account.
+		// Per account: counted for every address alike, and a spent count only means no more mail for now.
+		// The look-up and the mail happen after the answer, so the answer and its timing are the same
+		// whether or not an account uses the address, and whether or not the mail server is up.
+		if (await forgotAccountAllowed(parsed.data.email)) afterResponse('password reset mail', () => mailPasswordReset(parsed.data.email, event.url.origin));
 		return { sent: true, values };
 	}
 } satisfies Actions;

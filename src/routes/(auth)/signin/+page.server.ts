@@ -6,7 +6,7 @@ import { findByEmail } from '$lib/server/users';
 import { verifyDummy, verifyPassword } from '$lib/server/password';
 import { startSession } from '$lib/server/auth';
 import { resolveMembership } from '$lib/server/members';
-import { clearFailedSignIns, recordFailedSignIn, signInBlockedFor } from '$lib/server/rate-limit';
+import { clearFailedSignIns, recordFailedSignIn, signInWait, signInWaitMessage } from '$lib/server/rate-limit';
 import { clientAddress } from '$lib/server/client-address';
 
 function safeNext(next: string | null): string {
@@ -28,9 +28,10 @@ export const actions = {
 
 		const { email, password } = parsed.data;
 		const address = clientAddress(event);
-		const blocked = await signInBlockedFor(email, address);
-		if (blocked !== null) {
-			return fail(429, { errors: <FieldErrors>{ _form: `Too many sign-in attempts. Try again in ${blocked} minute${blocked === 1 ? '' : 's'}, or reset your password.` }, values });
+		const wait = await signInWait(email, address);
+		if (wait) {
+			event.setHeaders({ 'retry-after': String(Math.ceil(wait.ms / 1000)) });
+			return fail(429, { errors: <FieldErrors>{ _form: signInWaitMessage(wait) }, values });
 		}
 		const user = await findByEmail(email);
 		// The same answer and the same work whether or not the account exists.

@@ -1,6 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { acceptInviteSchema } from '$lib/schemas/auth';
+import { acceptInviteExistingSchema, acceptInviteSchema } from '$lib/schemas/auth';
 import { fieldErrors } from '$lib/schemas/common';
 import { acceptInvite, findInvite } from '$lib/server/invites';
 import { startSession } from '$lib/server/auth';
@@ -19,7 +19,7 @@ export const actions = {
 		if (!found.ok) return fail(400, { errors: { _form: found.reason } as Record<string, string>, values: {} as Record<string, string> });
 		const form = Object.fromEntries(await request.formData());
 		const values = { name: String(form.name ?? '') };
-		const parsed = acceptInviteSchema.safeParse(form);
+		const parsed = (found.invite.accountExists ? acceptInviteExistingSchema : acceptInviteSchema).safeParse(form);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		let userId: string;
 		try {

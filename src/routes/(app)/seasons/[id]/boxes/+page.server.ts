@@ -3,8 +3,8 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
-import { createSwap, matching, undoSwap } from '$lib/server/boxes';
-import { swapSchema } from '$lib/schemas/forecast';
+import { createSwap, matching, setShortFill, undoSwap } from '$lib/server/boxes';
+import { shortFillSchema, swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { planFreshness } from '$lib/server/seasons';
 
@@ -12,7 +12,7 @@ export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
 	const [boxes, freshness] = await Promise.all([matching(farm.id, season), planFreshness(farm.id, season.id)]);
-	return { matching: boxes, freshness, canSwap: can(farm.role, 'boxes.swap') };
+	return { matching: boxes, freshness, canSwap: can(farm.role, 'boxes.swap'), canSetShort: can(farm.role, 'boxes.settings') };
 }) satisfies PageServerLoad;
 
 // Back to the same view (filter kept) after a swap or an undo.
@@ -27,6 +27,15 @@ export const actions = {
 		if (!parsed.success) return fail(400, { swap: { errors: fieldErrors(parsed.error), values } });
 		const result = await createSwap(farm.id, season.id, user.id, parsed.data);
 		if (!result.ok) return fail(400, { swap: { errors: result.errors, values } });
+		redirect(303, back(event.url));
+	},
+	shortFill: async (event) => {
+		const { farm } = requireCan(event, 'boxes.settings');
+		await seasonFromParams(farm.id, event.params.id);
+		const values = Object.fromEntries([...(await event.request.formData())].map(([k, v]) => [k, String(v).slice(0, 100)]));
+		const parsed = shortFillSchema.safeParse(values);
+		if (!parsed.success) return fail(400, { shortFill: { errors: fieldErrors(parsed.error), values } });
+		await setShortFill(farm.id, parsed.data.shortFillPct);
 		redirect(303, back(event.url));
 	},
 	undo: async (event) => {

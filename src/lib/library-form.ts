@@ -1,0 +1,40 @@
+// Stored crop and variety figures as their forms show them (percents, dollars), and a posted
+// form as plain text values to hand back when it fails.
+import { cropFields, formValue, varietyFields } from '$lib/schemas/crop';
+import type { VarietyView } from '$lib/types';
+
+export function cropFormValues(c: {
+	name: string;
+	family: string;
+	harvestUnit: string;
+	frostTolerance: string;
+	heatLimitF: number | null;
+	baseTempF: number;
+	price: number | null;
+	source: string | null;
+}): Record<string, string> {
+	return Object.fromEntries(Object.entries(cropFields).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])]));
+}
+
+export function varietyFormValues(v: VarietyView): Record<string, string> {
+	const stored: Record<string, unknown> = { ...v, seedPrice: v.seedPriceCentsPerGram / 100 };
+	return Object.fromEntries(Object.entries(varietyFields).map(([k, spec]) => [k, formValue(spec, stored[k])]));
+}
+
+export const newCropValues: Record<string, string> = { harvestUnit: 'lb', frostTolerance: 'hardy', baseTempF: '40' };
+export const newVarietyValues: Record<string, string> = {
+	method: 'direct',
+	daysInTray: '0',
+	seedsPerSpot: '1',
+	germinationRate: '80',
+	seedPrice: '0',
+	cellsPerTray: '128',
+	margin: '10'
+};
+
+/** A posted form's fields as text, capped so a hostile post cannot echo megabytes back. */
+export function textValues(form: FormData): Record<string, string> {
+	const out: Record<string, string> = {};
+	for (const [k, v] of form.entries()) if (typeof v === 'string' && k.length < 64) out[k] = v.slice(0, 1000);
+	return out;
+}

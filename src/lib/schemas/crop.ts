@@ -1,0 +1,197 @@
+// The crop library's forms: one field table per object (crop, variety) gives each figure its
+// label, unit, one-line help and bounds; the zod schema the server checks with is built from the
+// same table, so the form, its hints and the server's messages never disagree.
+import { z } from 'zod';
+import { numberField, plainText } from './common';
+import { harvestUnits } from './demand';
+import { sowingMethods } from './planting';
+
+export interface NumberSpec {
+	kind: 'number';
+	label: string;
+	/** Shown after the input; `{unit}` stands for the crop's harvest unit. */
+	unit: string;
+	help: string;
+	min: number;
+	max: number;
+	int?: boolean;
+	optional?: boolean;
+	/** Stored differently from how it is typed: a percent typed is a fraction kept (÷ 100). */
+	scale?: number;
+	step?: string;
+}
+export interface TextSpec {
+	kind: 'text';
+	label: string;
+	help: string;
+	max: number;
+	optional?: boolean;
+}
+export interface ChoiceSpec {
+	kind: 'choice';
+	label: string;
+	help: string;
+	options: readonly { value: string; label: string }[];
+}
+export type FieldSpec = NumberSpec | TextSpec | ChoiceSpec;
+
+export const cropFields = {
+	name: { kind: 'text', label: 'Crop name', help: 'As the crew says it, e.g. "Carrot".', max: 80 },
+	family: { kind: 'text', label: 'Botanical family', help: 'For rotation and colour, e.g. Apiaceae, Brassicaceae.', max: 40 },
+	harvestUnit: {
+		kind: 'choice',
+		label: 'Harvest unit',
+		help: 'How harvests, yields and demand for this crop are counted.',
+		options: harvestUnits.map((u) => ({ value: u, label: u }))
+	},
+	frostTolerance: {
+		kind: 'choice',
+		label: 'Frost',
+		help: 'Tender crops are kept out of the field between the fall and spring frost dates.',
+		options: [
+			{ value: 'hardy', label: 'hardy (takes a light frost)' },
+			{ value: 'tender', label: 'tender (killed by frost)' }
+		]
+	},
+	heatLimitF: {
+		kind: 'number',
+		label: 'Heat limit',
+		unit: '°F',
+		help: 'Weekly mean above which the crop bolts or spoils; blank for none.',
+		min: 40,
+		max: 120,
+		optional: true
+	},
+	baseTempF: {
+		kind: 'number',
+		label: 'Base temperature',
+		unit: '°F',
+		help: 'Growing degree days count above this: about 40 °F for cool-season, 50 °F for warm-season crops.',
+		min: 0,
+		max: 80
+	},
+	price: {
+		kind: 'number',
+		label: 'Price',
+		unit: '$ per {unit}',
+		help: 'What one harvest unit sells for; sizes box swaps between crops of other units. Blank if unknown.',
+		min: 0,
+		max: 10_000,
+		optional: true,
+		step: '0.01'
+	},
+	source: { kind: 'text', label: 'Source', help: 'Where these figures come from (handbook, extension guide, own records).', max: 500, optional: true }
+} as const satisfies Record<string, FieldSpec>;
+
+export const varietyFields = {
+	name: { kind: 'text', label: 'Variety name', help: 'Your name for it, e.g. "Nantes type" or "standard".', max: 80 },
+	method: {
+		kind: 'choice',
+		label: 'Method',
+		help: 'Direct-sown in the bed, or raised in trays and transplanted.',
+		options: sowingMethods.map((m) => ({ value: m, label: m === 'direct' ? 'direct sow' : 'transplant' }))
+	},
+	daysToMaturity: {
+		kind: 'number',
+		label: 'Days to maturity',
+		unit: 'days',
+		help: 'From sowing for direct-sown crops, from transplanting for transplants.',
+		min: 1,
+		max: 400,
+		int: true
+	},
+	daysInTray: { kind: 'number', label: 'Days in tray', unit: 'days', help: 'From tray sowing to transplanting; 0 for direct-sown.', min: 0, max: 200, int: true },
+	harvestWindowDays: { kind: 'number', label: 'Harvest window', unit: 'days', help: 'How long one planting keeps giving harvests.', min: 1, max: 365, int: true },
+	yieldPerBedFoot: {
+		kind: 'number',
+		label: 'Yield',
+		unit: '{unit} per bed-ft',
+		help: 'Over the whole harvest window, per foot of bed (all rows).',
+		min: 0.001,
+		max: 100_000,
+		step: 'any'
+	},
+	rows: { kind: 'number', label: 'Rows per bed', unit: 'rows', help: 'Rows across one bed.', min: 1, max: 50, int: true },
+	inRowSpacingIn: { kind: 'number', label: 'In-row spacing', unit: 'in', help: 'Between spots along a row.', min: 0.1, max: 240, step: 'any' },
+	seedsPerSpot: { kind: 'number', label: 'Seeds per spot', unit: 'seeds', help: 'More than 1 for multi-sowing (onions, beets).', min: 1, max: 50, int: true },
+	germinationRate: {
+		kind: 'number',
+		label: 'Germination',
+		unit: '%',
+		help: 'Share of seeds that come up, from the seed packet or your own test.',
+		min: 1,
+		max: 100,
+		scale: 100,
+		step: 'any'
+	},
+	seedsPerGram: { kind: 'number', label: 'Seeds per gram', unit: 'seeds/g', help: 'Seed count in one gram (seeds per ounce ÷ 28.35).', min: 0.01, max: 10_000_000, step: 'any' },
+	seedPrice: { kind: 'number', label: 'Seed price', unit: '$ per g', help: 'For the seed order; 0 if unknown.', min: 0, max: 10_000, step: '0.01' },
+	seedsPerPacket: { kind: 'number', label: 'Seeds per packet', unit: 'seeds', help: 'To count packets; blank to order by weight.', min: 1, max: 10_000_000, int: true, optional: true },
+	cellsPerTray: { kind: 'number', label: 'Cells per tray', unit: 'cells', help: 'Tray size for transplants, e.g. 72 or 128.', min: 1, max: 2000, int: true },
+	margin: { kind: 'number', label: 'Extra margin', unit: '%', help: 'Extra seed and bed space on top of the target, for losses.', min: 0, max: 100, scale: 100, step: 'any' },
+	gddToMaturity: {
+		kind: 'number',
+		label: 'Degree days to maturity',
+		unit: 'GDD',
+		help: 'Optional: with weekly temperatures set, maturity follows degree days above the base.',
+		min: 1,
+		max: 20_000,
+		int: true,
+		optional: true
+	},
+	source: { kind: 'text', label: 'Source', help: 'Where these figures come from.', max: 500, optional: true }
+} as const satisfies Record<string, FieldSpec>;
+
+const blank = (v: unknown): boolean => v === undefined || v === null || (typeof v === 'string' && v.trim() === '');
+
+function numberSchema(s: NumberSpec) {
+	const base = numberField(s.label, s.min, s.max, { int: s.int });
+	const scaled = s.scale ? base.transform((n) => n / s.scale!) : base;
+	return s.optional ? z.preprocess((v) => (blank(v) ? null : v), scaled.nullable()) : scaled;
+}
+
+function fieldSchema(s: FieldSpec) {
+	if (s.kind === 'number') return numberSchema(s);
+	if (s.kind === 'text') return s.optional ? z.preprocess((v) => (blank(v) ? null : v), plainText(s.label, s.max).nullable()) : plainText(s.label, s.max);
+	const values = s.options.map((o) => o.value) as [string, ...string[]];
+	return z.enum(values, { error: `${s.label}: choose ${values.join(' or ')}.` });
+}
+
+type Out<S> = S extends NumberSpec
+	? S['optional'] extends true
+		? number | null
+		: number
+	: S extends TextSpec
+		? S['optional'] extends true
+			? string | null
+			: string
+		: string;
+type Parsed<T extends Record<string, FieldSpec>> = { [K in keyof T]: Out<T[K]> };
+
+function schemaOf<T extends Record<string, FieldSpec>>(fields: T) {
+	return z.object(Object.fromEntries(Object.entries(fields).map(([k, s]) => [k, fieldSchema(s)]))) as unknown as z.ZodType<Parsed<T>>;
+}
+
+export const cropSchema = schemaOf(cropFields);
+export const varietySchema = schemaOf(varietyFields).refine((v) => v.method === 'transplant' || v.daysInTray === 0, {
+	message: 'Days in tray must be 0 for a direct-sown variety.',
+	path: ['daysInTray']
+});
+
+export type CropInput = Omit<Parsed<typeof cropFields>, 'harvestUnit' | 'frostTolerance'> & {
+	harvestUnit: (typeof harvestUnits)[number];
+	frostTolerance: 'tender' | 'hardy';
+};
+export type VarietyInput = Omit<Parsed<typeof varietyFields>, 'method'> & { method: (typeof sowingMethods)[number] };
+
+/** A field's unit with the crop's harvest unit filled in. */
+export function unitLabel(spec: FieldSpec, harvestUnit: string): string {
+	return spec.kind === 'number' ? spec.unit.replace('{unit}', harvestUnit) : '';
+}
+
+/** How a stored value shows in its form field (fractions as percents, cents as money). */
+export function formValue(spec: FieldSpec, value: unknown): string {
+	if (value === null || value === undefined) return '';
+	if (spec.kind === 'number' && spec.scale && typeof value === 'number') return String(Math.round(value * spec.scale * 1000) / 1000);
+	return String(value);
+}
