@@ -2,8 +2,15 @@
 // lost silently: a failed save stays queued for retry; a conflict keeps the user's values to re-apply.
 import type { PlantingField } from '$lib/schemas/planting';
 import type { PlantingView } from '$lib/types';
-import type { GridState } from './grid-state.svelte';
 import type { GridRow, RowValues } from './rows';
+
+/** What the save queue needs of the grid's rows: read one, and take the server's answers back. */
+export interface SavedRows {
+	row(key: string): GridRow | undefined;
+	acceptServer(key: string, p: PlantingView, keepValues: boolean): void;
+	replaceRows(updated: GridRow[]): void;
+	applyChanges(list: { key: string; field: PlantingField; value: unknown }[]): unknown;
+}
 
 export interface ApiAnswer {
 	status: number;
@@ -72,7 +79,7 @@ export class SaveQueue {
 	private touched = new Map<string, Set<PlantingField>>();
 
 	constructor(
-		private grid: GridState,
+		private grid: SavedRows,
 		private api: GridApi,
 		private seasonId: number,
 		private debounceMs: number
