@@ -7,6 +7,16 @@ import { runTimelineBench } from './bench-timeline';
 import { runExportBench } from './bench-export';
 import { runApiBench } from './bench-api';
 import { runPlanBench } from './bench-plan';
+import { runPlanScreenBench } from './bench-plan-screen';
 
-const results: Record<string, number> = { ...(await runEngineBench()), ...(await runPlanBench()), ...(await runForecastBench()), ...(await runGridBench()), ...(await runTimelineBench()), ...(await runExportBench()), ...(await runApiBench()) };
+const results: Record<string, number> = {
+	...(await runEngineBench()),
+	...(await runPlanBench()),
+	...(await runForecastBench()),
+	...(await runGridBench()),
+	...(await runTimelineBench()),
+	...(await runExportBench()),
+	...(await runApiBench()),
+	...(await runPlanScreenBench())
+};
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);
