@@ -8,6 +8,7 @@ import { runExportBench } from './bench-export';
 import { runImportBench } from './bench-import';
 import { runApiBench } from './bench-api';
 import { runPlanBench } from './bench-plan';
+import { runPlanScreenBench } from './bench-plan-screen';
 
 const results: Record<string, number> = {
 	...(await runEngineBench()),
@@ -17,6 +18,7 @@ const results: Record<string, number> = {
 	...(await runTimelineBench()),
 	...(await runExportBench()),
 	...(await runImportBench()),
-	...(await runApiBench())
+	...(await runApiBench()),
+	...(await runPlanScreenBench())
 };
 for (const [name, value] of Object.entries(results)) console.log(`${name}: ${value}`);

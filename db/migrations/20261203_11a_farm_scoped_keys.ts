@@ -47,19 +47,25 @@ const fkName = (k: PairKey) => `${k.table}_${k.column}_farm_fk`;
 const indexName = (k: PairKey) => `${k.table}_farm_${k.column}_idx`;
 const uniqueName = (table: string) => `${table}_farm_id_unique`;
 
+// Parents before children, so each key finds its parent's (farm_id, id) already there.
+const order = ['blocks', 'crops', 'seasons', 'beds', 'varieties', 'plantings', 'share_sizes', 'channel_demand', 'harvest_records', 'box_swaps', 'variety_figure_changes', 'calendar_feeds'];
+
 export async function up(knex: Knex): Promise<void> {
-	for (const table of parents) {
-		await knex.schema.alterTable(table, (t) => t.unique(['farm_id', 'id'], { indexName: uniqueName(table) }));
-	}
 	await knex.schema.alterTable('plantings', (t) => t.dropForeign(['bed_id']));
-	for (const k of keys) {
-		await knex.schema.alterTable(k.table, (t) => {
-			t.index(['farm_id', k.column], indexName(k));
-			t.foreign(['farm_id', k.column], fkName(k))
-				.references(k.parentColumns ?? ['farm_id', 'id'])
-				.inTable(k.parent)
-				.onDelete(k.onDelete);
-		});
+	// One ALTER TABLE per table: adding a checked foreign key copies the table, so each is copied once.
+	for (const table of order) {
+		const clauses: string[] = [];
+		const bindings: string[] = [];
+		if (parents.includes(table)) {
+			clauses.push('ADD UNIQUE ?? (`farm_id`, `id`)');
+			bindings.push(uniqueName(table));
+		}
+		for (const k of keys.filter((x) => x.table === table)) {
+			const [pa, pb] = k.parentColumns ?? ['farm_id', 'id'];
+			clauses.push(`ADD INDEX ?? (\`farm_id\`, ??), ADD CONSTRAINT ?? FOREIGN KEY (\`farm_id\`, ??) REFERENCES ?? (??, ??) ON DELETE ${k.onDelete}`);
+			bindings.push(indexName(k), k.column, fkName(k), k.column, k.parent, pa, pb);
+		}
+		if (clauses.length) await knex.raw(`ALTER TABLE ?? ${clauses.join(', ')}`, [table, ...bindings]);
 	}
 }
 

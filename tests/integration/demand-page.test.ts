@@ -55,7 +55,7 @@ describe('share size forms', () => {
 		expect(res.status).toBe(400);
 		const text = await html(res);
 		expect(text).toContain('Members must be a number.');
-		expect(text).toContain('Price must be an amount like 720.00 (at most 2 decimals).');
+		expect(text).toContain('Price must be in whole cents (at most 2 decimals)');
 		expect(text).toContain('value="sixty"');
 		expect(await count('share_sizes', { season_id: fx.seasonId })).toBe(0);
 	});

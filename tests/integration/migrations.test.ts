@@ -22,7 +22,8 @@ async function columns(): Promise<string> {
 }
 
 describe('migrations', () => {
-	it('run up, all the way down, and up again', async () => {
+	// Every migration twice over on a shared two-core machine: allow well past the default 30 s.
+	it('run up, all the way down, and up again', { timeout: 180_000 }, async () => {
 		await conn.migrate.rollback(undefined, true);
 		expect(await tables()).toEqual([]);
 

@@ -113,6 +113,26 @@ export const numberField = (label: string, min: number, max: number, opts: { int
 			.refine((n) => n <= max, `${label} must be at most ${max}.`)
 	);
 
+/**
+ * Money typed as dollars ("$0.29", "720.50", "1,200") or sent as a number, kept as whole cents.
+ * More than two decimals is refused with the field's name, never rounded away (0.001 is not 0).
+ */
+export const moneyCents = (label: string, maxDollars = 1_000_000) =>
+	z.preprocess(
+		(v) => (typeof v === 'number' ? (Number.isFinite(v) ? String(v) : 'not a number') : typeof v === 'string' ? v.trim().replace(/^\$\s*/, '').replace(/,/g, '') : v),
+		z
+			.string({ error: `${label} is required.` })
+			.min(1, `${label} is required.`)
+			.regex(/^\d{1,9}(\.\d+)?$/, `${label} must be an amount like 0.29 or 720.00.`)
+			.refine((s) => (s.split('.')[1] ?? '').replace(/0+$/, '').length <= 2, `${label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`)
+			.refine((s) => Number(s.split('.')[0]) <= maxDollars, `${label} must be at most ${maxDollars}.`)
+			// Whole and fraction parts separately, so 0.29 never becomes 28 cents through float rounding.
+			.transform((s) => {
+				const [whole, frac = ''] = s.split('.');
+				return Number(whole) * 100 + Number(frac.replace(/0+$/, '').padEnd(2, '0'));
+			})
+	);
+
 export type FieldErrors = Record<string, string>;
 
 /** The first message for each field, keyed by its path ('rows' or 'beds.3.name'). */

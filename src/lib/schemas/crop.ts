@@ -19,6 +19,8 @@ export interface NumberSpec {
 	/** Stored differently from how it is typed: a percent typed is a fraction kept (÷ 100). */
 	scale?: number;
 	step?: string;
+	/** Dollars kept as whole cents: more than two decimals is refused, never rounded to 0. */
+	money?: boolean;
 }
 export interface TextSpec {
 	kind: 'text';
@@ -77,6 +79,7 @@ export const cropFields = {
 		help: 'What one harvest unit sells for; sizes box swaps between crops of other units. Blank if unknown.',
 		min: 0,
 		max: 10_000,
+		money: true,
 		optional: true,
 		step: '0.01'
 	},
@@ -125,7 +128,7 @@ export const varietyFields = {
 		step: 'any'
 	},
 	seedsPerGram: { kind: 'number', label: 'Seeds per gram', unit: 'seeds/g', help: 'Seed count in one gram (seeds per ounce ÷ 28.35).', min: 0.01, max: 10_000_000, step: 'any' },
-	seedPrice: { kind: 'number', label: 'Seed price', unit: '$ per g', help: 'For the seed order; 0 if unknown.', min: 0, max: 10_000, step: '0.01' },
+	seedPrice: { kind: 'number', label: 'Seed price', unit: '$ per g', help: 'For the seed order; 0 if unknown.', min: 0, max: 10_000, step: '0.01', money: true },
 	seedsPerPacket: { kind: 'number', label: 'Seeds per packet', unit: 'seeds', help: 'To count packets; blank to order by weight.', min: 1, max: 10_000_000, int: true, optional: true },
 	cellsPerTray: { kind: 'number', label: 'Cells per tray', unit: 'cells', help: 'Tray size for transplants, e.g. 72 or 128.', min: 1, max: 2000, int: true },
 	margin: { kind: 'number', label: 'Extra margin', unit: '%', help: 'Extra seed and bed space on top of the target, for losses.', min: 0, max: 100, scale: 100, step: 'any' },
@@ -145,7 +148,10 @@ export const varietyFields = {
 const blank = (v: unknown): boolean => v === undefined || v === null || (typeof v === 'string' && v.trim() === '');
 
 function numberSchema(s: NumberSpec) {
-	const base = numberField(s.label, s.min, s.max, { int: s.int });
+	const plain = numberField(s.label, s.min, s.max, { int: s.int });
+	const base = s.money
+		? plain.refine((n) => Math.abs(n * 100 - Math.round(n * 100)) < 1e-6, `${s.label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`)
+		: plain;
 	const scaled = s.scale ? base.transform((n) => n / s.scale!) : base;
 	return s.optional ? z.preprocess((v) => (blank(v) ? null : v), scaled.nullable()) : scaled;
 }

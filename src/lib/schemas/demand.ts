@@ -1,7 +1,7 @@
 // Demand inputs: share sizes, grid cells (box contents and channel demand), copy-a-week, and one
 // row of a demand upload. Shared by the page forms, the JSON routes, the upload and the browser.
 import { z } from 'zod';
-import { isoWeekKey, numberField, plainText } from './common';
+import { isoWeekKey, moneyCents, numberField, plainText } from './common';
 
 export const harvestUnits = ['lb', 'bunch', 'head', 'each'] as const;
 export type HarvestUnit = (typeof harvestUnits)[number];
@@ -13,21 +13,6 @@ export type Channel = (typeof channels)[number];
 /** An ISO 8601 week, "YYYY-Www", that exists in its year, in 1900–2200: the app's one week rule. */
 export const isoWeekField = isoWeekKey;
 
-/** Money typed as dollars ("720", "720.50") or sent as a number; stored as whole cents. */
-const moneyCents = (label: string) =>
-	z.preprocess(
-		(v) => (typeof v === 'number' ? v.toFixed(2) : typeof v === 'string' ? v.trim().replace(/^\$/, '').replace(/,/g, '') : v),
-		z
-			.string({ error: `${label} is required.` })
-			.min(1, `${label} is required.`)
-			.regex(/^\d{1,7}(\.\d{1,2})?$/, `${label} must be an amount like 720.00 (at most 2 decimals).`)
-			// Whole and fraction parts separately, so 0.29 never becomes 28 cents through float rounding.
-			.transform((s) => {
-				const [whole, frac = ''] = s.split('.');
-				return Number(whole) * 100 + Number(frac.padEnd(2, '0'));
-			})
-	);
-
 export const shareSizeSchema = z
 	.object({
 		name: plainText('Name', 60),
@@ -37,7 +22,7 @@ export const shareSizeSchema = z
 		pickupDays: z
 			.preprocess((v) => (v === undefined || v === null || v === '' ? [] : typeof v === 'string' ? v.split(/[,\s]+/).filter(Boolean) : v), z.array(z.enum(pickupDayNames, { error: 'Pickup days must be among Mon, Tue, Wed, Thu, Fri, Sat, Sun.' })))
 			.transform((days) => pickupDayNames.filter((d) => days.includes(d))),
-		price: moneyCents('Price')
+		price: moneyCents('Price', 10_000_000)
 	})
 	.strict()
 	.refine((v) => v.lastWeek >= v.firstWeek, { message: 'Last week must not be before the first week.', path: ['lastWeek'] });

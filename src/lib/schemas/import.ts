@@ -2,7 +2,7 @@
 // as exceljs reads it (number, string, Date) or as CSV text; each schema takes both, so a
 // workbook saved by any spreadsheet program and a hand-made CSV pass the same checks.
 import { z } from 'zod';
-import { isoDate, numberField, plainText } from './common';
+import { isoDate, moneyCents, numberField, plainText } from './common';
 import { plantingStatuses, sowingMethods } from './planting';
 
 /** Upload limit: a season of several thousand plantings is well under 1 MB as .xlsx. */
@@ -59,11 +59,7 @@ const rate = (label: string, min: number, fallback?: number) =>
 	z.preprocess((v) => (blank(v) ? fallback : rateValue(v)), numberField(`${label} (a fraction such as 0.85, or 85%)`, min, 1));
 
 /** Money in dollars ("$0.90", "0.90" or 0.9) to whole cents, as the database keeps it. */
-const cents = (label: string) =>
-	z.preprocess(
-		(v) => (blank(v) ? 0 : typeof v === 'string' ? v.trim().replace(/^\$\s*/, '') : v),
-		numberField(label, 0, 10_000).transform((d) => Math.round(d * 100))
-	);
+const cents = (label: string) => z.preprocess((v) => (blank(v) ? '0' : v), moneyCents(label, 10_000));
 
 export const harvestUnits = ['lb', 'bunch', 'head', 'each'] as const;
 

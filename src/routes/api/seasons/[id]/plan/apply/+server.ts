@@ -1,6 +1,7 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
+import { varietyPlanErrors } from '$lib/server/variety-plan';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import { applyRequestSchema } from '$lib/schemas/plan';
 import { apply } from '$lib/server/plan';
@@ -15,6 +16,8 @@ export const POST: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const body = await parseBody(event, applyRequestSchema);
 	if (!body.ok) return body.response;
+	const wrong = await varietyPlanErrors(farm.id, body.data.varietyPlan);
+	if (wrong) return json({ message: `Invalid input: ${Object.entries(wrong).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: wrong }, { status: 400 });
 	const { fingerprint, ...request } = body.data;
 	try {
 		const { preview, ...changes } = await apply(farm.id, season, user.id, request, fingerprint);
