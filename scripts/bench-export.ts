@@ -18,11 +18,11 @@ import { hashPassword } from '../src/lib/server/password';
 
 const PLANTINGS = 5_000;
 const RUNS = 7;
-const PASSWORD = 'bench-export-password';
+export const PASSWORD = 'bench-export-password';
 
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-interface BenchFarm {
+export interface BenchFarm {
 	farmId: number;
 	userId: string;
 	email: string;
@@ -30,7 +30,7 @@ interface BenchFarm {
 }
 
 /** An invented farm: 4 blocks × 25 beds of 100 ft, 20 crops × 2 varieties, 5,000 plantings of 20 ft. */
-async function createBenchFarm(db: Knex): Promise<BenchFarm> {
+export async function createBenchFarm(db: Knex): Promise<BenchFarm> {
 	const userId = randomUUID();
 	const email = `bench-export-${Date.now().toString(36)}@bench.furrowcast.test`;
 	const passwordHash = await hashPassword(PASSWORD);
@@ -78,7 +78,7 @@ async function createBenchFarm(db: Knex): Promise<BenchFarm> {
 	});
 }
 
-async function removeBenchFarm(db: Knex, f: BenchFarm): Promise<void> {
+export async function removeBenchFarm(db: Knex, f: BenchFarm): Promise<void> {
 	await db.transaction(async (trx) => {
 		// Plantings first: varieties refuse to go while a planting points at them.
 		for (const table of ['channel_demand', 'plantings', 'seasons', 'varieties', 'crops', 'beds', 'blocks', 'farm_members']) await trx(table).where({ farm_id: f.farmId }).delete();

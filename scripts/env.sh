@@ -46,6 +46,16 @@ ensure_node_modules() {
 	fi
 }
 
+# LibreOffice Calc (headless, driven from python3-uno) and pdftotext: the tests open, edit and save
+# exported workbooks the way growers do, and read printed PDFs back.
+ensure_libreoffice() {
+	if ! command -v soffice >/dev/null || ! /usr/bin/python3 -c 'import uno' 2>/dev/null || ! command -v pdftotext >/dev/null; then
+		say "installing Debian's libreoffice-calc-nogui, python3-uno and poppler-utils for the spreadsheet tests"
+		as_root apt-get update -qq
+		DEBIAN_FRONTEND=noninteractive as_root apt-get install -y -qq libreoffice-calc-nogui python3-uno poppler-utils >/dev/null
+	fi
+}
+
 ensure_chromium() {
 	if [ ! -x "${FC_CHROMIUM:-/usr/bin/chromium}" ]; then
 		say "installing Debian's chromium for the browser tests"

@@ -8,6 +8,7 @@ mkdir -p "$FC_DATA_DIR" "$FC_PID_DIR"
 
 ensure_node_modules
 ensure_chromium
+ensure_libreoffice
 
 # FC_SKIP_CHECK=1 skips the type-check for a quick local re-run of a few tests; CI never sets it.
 if [ "${FC_SKIP_CHECK:-}" != 1 ]; then

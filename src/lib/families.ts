@@ -32,5 +32,3 @@ const byName = new Map(palette.map((p) => [p.family.toLowerCase(), p]));
 export function familyStyle(family: string): FamilyStyle {
 	return byName.get(family.trim().toLowerCase()) ?? { family, short: family.slice(0, 3), ...fallback };
 }
-
-export const familyPalette: readonly FamilyStyle[] = palette;

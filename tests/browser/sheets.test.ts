@@ -1,5 +1,9 @@
 // The crew sheets in headless Chromium: printed to PDF on A4 and Letter (one page per task kind,
 // navigation and forms left off the paper), and a task marked done from a phone-sized screen.
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launch, signIn, type BrowserSession } from '../helpers/browser';
 import { closeTestDb, testDb } from '../helpers/db';
@@ -65,7 +69,49 @@ describe('printing the sheets', () => {
 		await page.close();
 		await browser.context.clearCookies();
 	});
+
+	it("a busy week of the demo season: every printed page names its task kind and week, and empty kinds print no page", async () => {
+		// 2027-W34 of the invented demo farm: late-summer harvests across many beds run over several pages.
+		const demoSeason = (await testDb()('seasons as s').join('farms as f', 'f.id', 's.farm_id').where('s.year', 2027).orderBy('s.id').first('s.id')).id;
+		const page = await browser.context.newPage();
+		await signIn(page, 'crew@demo.furrowcast.test', 'demo-harvest-2027');
+		await page.goto(`/seasons/${demoSeason}/week/2027-W34`);
+		await page.emulateMedia({ media: 'print' });
+		const counts = await page.locator('[data-testid^="section-"]').evaluateAll((els) =>
+			els.map((el) => ({ kind: el.getAttribute('data-testid')!.slice(8), title: el.querySelector('h2')!.textContent!.split('·')[0].trim(), empty: el.classList.contains('empty') }))
+		);
+		const pdf = await page.pdf({ format: 'Letter' });
+		await page.close();
+		await browser.context.clearCookies();
+		const pages = pdfText(pdf);
+		expect(pages.length).toBeGreaterThan(counts.filter((c) => !c.empty).length);
+		// Source: pdftotext (poppler-utils) reads the printed PDF, page by page.
+		const titles = counts.filter((c) => !c.empty).map((c) => `${c.title} · 2027-W34`);
+		for (const [i, text] of pages.entries()) {
+			expect(titles.some((t) => text.includes(t)), `page ${i + 1} names its kind and week:\n${text.slice(0, 300)}`).toBe(true);
+		}
+		// Each busy kind starts a page of its own; a kind with no tasks takes none and page 1 says so.
+		for (const c of counts) {
+			const printed = pages.filter((t) => t.includes(`${c.title} · 2027-W34`)).length;
+			if (c.empty) expect(printed).toBe(0);
+			else expect(printed).toBeGreaterThan(0);
+		}
+		const empty = counts.filter((c) => c.empty).map((c) => c.title);
+		if (empty.length) expect(pages[0]).toContain(`Nothing this week for ${empty.join(', ')}`);
+		// The harvest sheet has a blank for the quantity picked.
+		// (pdftotext may set the header's two words on two lines of a narrow column.)
+		expect(pages.some((t) => /Picked\s[\s\S]{0,200}\(qty\)/.test(t))).toBe(true);
+	});
 });
+
+/** Text of each page of a PDF, with Debian's pdftotext (poppler-utils). */
+function pdfText(pdf: Buffer): string[] {
+	const dir = mkdtempSync(join(tmpdir(), 'fc-print-'));
+	const file = join(dir, 'sheets.pdf');
+	writeFileSync(file, pdf);
+	const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' });
+	return text.split('\f').filter((t) => t.trim() !== '');
+}
 
 describe('marking a task done on a phone', () => {
 	let phone: BrowserSession;

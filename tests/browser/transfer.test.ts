@@ -14,6 +14,8 @@ let browser: BrowserSession;
 let dir: string;
 let demoSeasonId: number;
 let saved: string;
+/** The farm the import test made, signed in still for the next test. */
+let lastEmail: string;
 
 beforeAll(async () => {
 	browser = await launch();
@@ -50,6 +52,7 @@ describe('export and re-import through the pages', () => {
 	it('a new farm signs up and imports it from its Import page', async () => {
 		const page = await browser.context.newPage();
 		const email = uniqueEmail('browser-import');
+		lastEmail = email;
 		await page.goto('/signup');
 		await page.getByLabel('Your name').fill('Import tester');
 		await page.getByLabel('E-mail').fill(email);
@@ -58,7 +61,7 @@ describe('export and re-import through the pages', () => {
 		await page.getByLabel('Latitude (° N, negative for south)').fill('42.5');
 		await page.getByLabel('Last spring frost').fill('2027-05-10');
 		await page.getByLabel('First fall frost').fill('2027-10-05');
-		await Promise.all([page.waitForURL(/\/settings/), page.getByRole('button', { name: /sign up|create/i }).click()]);
+		await Promise.all([page.waitForURL(/\/(settings|setup)/), page.getByRole('button', { name: /sign up|create/i }).click()]);
 
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' }).click();
 		await page.waitForURL(/\/import$/);
@@ -85,6 +88,43 @@ describe('export and re-import through the pages', () => {
 		expect(texts[0]).toMatch(/Beds\s+2\s+C · Length \(ft\)\s+Length must be a number/);
 		expect(texts[1]).toMatch(/Beds\s+3\s+A · Block\s+Block is required/);
 		expect(await count('beds', { farm_id: farmId, name: 'Z1' })).toBe(0);
+		await page.close();
+		await browser.context.clearCookies();
+	});
+
+	it('the same file edited comes back as a preview the owner confirms, at desk and phone widths', async () => {
+		const u = await testDb()('users').where({ email: lastEmail }).first('id');
+		const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
+		const season = (await testDb()('seasons').where({ farm_id: farmId, year: 2027 }).first('id')).id;
+		// The farm's own export, with one length changed and one row gone (as a grower edits it).
+		const page = await browser.context.newPage();
+		await signIn(page, lastEmail, 'long-enough-pass');
+		const res = await page.request.get(`/api/seasons/${season}/export`);
+		const wb = await loadWorkbook(Buffer.from(await res.body()));
+		const ws = wb.getWorksheet('Plantings')!;
+		const heads = (ws.getRow(1).values as unknown[]).map(String);
+		const lengthCell = ws.getRow(2).getCell(heads.indexOf('Length (ft)'));
+		const newLength = Number(lengthCell.value) === 12 ? 14 : 12;
+		lengthCell.value = newLength;
+		ws.spliceRows(3, 1);
+		const edited = join(dir, 'edited.xlsx');
+		writeFileSync(edited, Buffer.from(await wb.xlsx.writeBuffer()));
+		await page.goto(`/seasons/${season}/transfer`);
+		await page.getByLabel('Workbook or CSV file').setInputFiles(edited);
+		await page.getByRole('button', { name: 'Import' }).click();
+		const counts = page.getByTestId('preview-counts');
+		await counts.waitFor();
+		await expect(counts.innerText()).resolves.toMatch(/0 added · 1 changed · 1 removed · \d+ unchanged/);
+		const rows = await page.getByTestId('preview-change').allInnerTexts();
+		expect(rows.some((t) => new RegExp(`Length \\(ft\\)\\s+\\d[\\d.,]*\\s+${newLength}`).test(t))).toBe(true);
+		await page.setViewportSize({ width: 1280, height: 900 });
+		await page.screenshot({ path: '/tmp/fc-import-preview-1280.png', fullPage: true });
+		await page.setViewportSize({ width: 390, height: 844 });
+		await page.screenshot({ path: '/tmp/fc-import-preview-390.png', fullPage: true });
+		const before = await count('plantings', { season_id: season });
+		await Promise.all([page.waitForURL(/\/transfer\?updated=1/), page.getByRole('button', { name: 'Apply these changes' }).click()]);
+		await expect(page.getByTestId('update-summary').innerText()).resolves.toBe('Season updated from the file: 0 added, 1 changed, 1 removed.');
+		expect(await count('plantings', { season_id: season })).toBe(before - 1);
 		await page.close();
 		await browser.context.clearCookies();
 	});

@@ -53,6 +53,7 @@ export const accessTable: AccessRow[] = [
 	{ key: '(app) page', url: () => '/', expect: ownFarmPage },
 	{ key: '(app)/calendar page', url: () => '/calendar', expect: ownFarmPage },
 	{ key: '(app)/calendar action:create', url: () => '/calendar?/create', expect: { anon: 303, owner: 200, crew: 200, share: 200, other: 200 }, why: "each member's own feed" },
+	{ key: '(app)/calendar action:seasons', url: () => '/calendar?/seasons', expect: { anon: 303, owner: 400, crew: 400, share: 400, other: 400 }, why: "each member's own feed; an empty choice is a 400" },
 	{ key: '(app)/calendar action:revoke', url: () => '/calendar?/revoke', expect: all(303), why: "each member's own feed" },
 	{ key: '(app)/crops page', url: () => '/crops', expect: ownFarmPage },
 	{ key: '(app)/crops/new page', url: () => '/crops/new', expect: ownerOnlyPage },
@@ -75,6 +76,7 @@ export const accessTable: AccessRow[] = [
 	})),
 	{ key: '(app)/dev/mail page', url: () => '/dev/mail', expect: ownerOnlyPage, why: 'demo mode only; lists the viewer farm’s own mail' },
 	{ key: '(app)/import page', url: () => '/import', expect: ownerOnlyPage },
+	{ key: '(app)/import action:apply', url: () => '/import?/apply', expect: { ...action(['owner']), other: 400 }, why: 'no preview token: 400' },
 	{ key: '(app)/import action:import', url: () => '/import?/import', expect: { ...action(['owner'], 415), other: 415 }, why: 'not a file upload: 415; the season is checked with the file' },
 	{ key: '(app)/seasons page', url: () => '/seasons', expect: ownFarmPage },
 	{ key: '(app)/seasons action:create', url: () => '/seasons?/create', expect: { ...action(['owner']), other: 400 }, why: "a season of the viewer's own farm" },
@@ -135,6 +137,7 @@ export const accessTable: AccessRow[] = [
 		why: 'copies a throwaway season for the owner'
 	},
 	{ key: '(app)/seasons/[id]/transfer page', url: (f) => `/seasons/${S(f)}/transfer`, expect: everyMemberSeasonPage },
+	{ key: '(app)/seasons/[id]/transfer action:apply', url: (f) => `/seasons/${S(f)}/transfer?/apply`, expect: action(['owner']), why: 'no preview token: 400' },
 	{ key: '(app)/seasons/[id]/transfer action:import', url: (f) => `/seasons/${S(f)}/transfer?/import`, expect: action(['owner'], 415) },
 	{ key: '(app)/seasons/[id]/week page', url: (f) => `/seasons/${S(f)}/week`, expect: { ...everyMemberSeasonPage, owner: 307, crew: 307, share: 307 }, why: "redirects to this week's sheets" },
 	{ key: '(app)/seasons/[id]/week/[isoWeek] page', url: (f) => `/seasons/${S(f)}/week/2027-W21`, expect: everyMemberSeasonPage },
@@ -159,6 +162,7 @@ export const accessTable: AccessRow[] = [
 
 	// JSON API
 	{ key: 'api/import POST', url: () => '/api/import', expect: { ...api(['owner'], 415), other: 415 }, why: 'not a file upload: 415; the season is checked with the file' },
+	{ key: 'api/import/apply POST', url: () => '/api/import/apply', expect: { ...api(['owner']), other: 400 }, why: 'no preview token: 400; a token is only ever its own farm and user' },
 	{ key: 'api/me GET', url: () => '/api/me', expect: { anon: 401, owner: 200, crew: 200, share: 200, other: 200 } },
 	{ key: 'api/me/prefs/grid GET', url: () => '/api/me/prefs/grid', expect: { anon: 401, owner: 200, crew: 200, share: 200, other: 200 } },
 	{ key: 'api/me/prefs/grid PUT', url: () => '/api/me/prefs/grid', expect: { anon: 401, owner: 400, crew: 400, share: 400, other: 400 } },

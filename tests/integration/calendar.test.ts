@@ -2,6 +2,8 @@
 // parsed with ical.js (a general-purpose iCalendar library, not the one that writes it).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import ICAL from 'ical.js';
+import ical from 'node-ical';
+import { baseUrl } from '../helpers/env';
 import { Client, html } from '../helpers/http';
 import { closeTestDb, count, testDb } from '../helpers/db';
 import { makeSheetFarm, type SheetFarm } from './sheets-fixture';
@@ -124,5 +126,55 @@ describe('feeds by role and farm', () => {
 		const res = await new Client().get('/calendar');
 		expect(res.status).toBe(303);
 		expect(res.headers.get('location')).toBe('/signin?next=%2Fcalendar');
+	});
+});
+
+describe('the feed as a second, independent reader sees it (node-ical)', () => {
+	let path: string;
+	beforeAll(async () => {
+		path = await newFeed(f.owner);
+	});
+
+	it('names the time zone before the events and ends with CRLF (RFC 5545 §3.1, §3.4)', async () => {
+		const { text } = await fetchFeed(path);
+		// Source: RFC 5545 §3.1 — each content line is terminated by CRLF, the last one included.
+		expect(text.endsWith('END:VCALENDAR\r\n')).toBe(true);
+		expect(text.replace(/\r\n/g, '')).not.toMatch(/[\r\n]/);
+		const tz = text.indexOf('X-WR-TIMEZONE:Pacific/Auckland');
+		expect(tz).toBeGreaterThan(0);
+		expect(tz).toBeLessThan(text.indexOf('BEGIN:VEVENT'));
+		const parsed = ical.sync.parseICS(text);
+		const events = Object.values(parsed).filter((c) => c?.type === 'VEVENT');
+		expect(events.length).toBe(10);
+	});
+
+	it('a moved field date raises SEQUENCE and LAST-MODIFIED, so calendar apps take the new date', async () => {
+		const read = async () => {
+			const parsed = ical.sync.parseICS((await fetchFeed(path)).text);
+			return parsed[`planting-${f.p.directCarrot}-direct_sow@furrowcast`] as ical.VEvent;
+		};
+		const before = await read();
+		const p = await testDb()('plantings').where({ id: f.p.directCarrot }).first('version');
+		const res = await f.owner.json(`/api/plantings/${f.p.directCarrot}`, 'PATCH', { version: p.version, fieldDate: '2027-05-27' });
+		expect(res.status).toBe(200);
+		const after = await read();
+		expect(new Date(after.start).toISOString().slice(0, 10)).toBe('2027-05-27');
+		expect(Number(after.sequence)).toBeGreaterThan(Number(before.sequence ?? 0));
+		expect(after.lastmodified).toBeDefined();
+	});
+
+	it('covers the current seasons by default; a past test season comes in only when chosen', async () => {
+		const [old] = await testDb()('seasons').insert({ farm_id: f.farmId, year: 2019, name: 'Trial 2019', starts_on: '2019-01-01', ends_on: '2019-12-31' });
+		const one = await testDb()('plantings').where({ id: f.p.directCarrot }).first();
+		const [oldPlanting] = await testDb()('plantings').insert({ ...one, id: undefined, season_id: old, field_date: '2019-05-01', first_harvest: '2019-07-01', last_harvest: '2019-07-14', version: 1 });
+		const uid = `planting-${oldPlanting}-direct_sow@furrowcast`;
+		expect(ical.sync.parseICS((await fetchFeed(path)).text)[uid]).toBeUndefined();
+		const body = new URLSearchParams([['season', String(old)], ['season', String(f.seasonId)]]);
+		const res = await f.owner.request('/calendar?/seasons', { method: 'POST', body, headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
+		expect(res.status).toBe(303);
+		expect(ical.sync.parseICS((await fetchFeed(path)).text)[uid]).toBeDefined();
+		// Back to "the current seasons": the trial season leaves the feed again.
+		await f.owner.postForm('/calendar?/seasons', { current: 'on' });
+		expect(ical.sync.parseICS((await fetchFeed(path)).text)[uid]).toBeUndefined();
 	});
 });

@@ -104,6 +104,17 @@ describe('a bad file is refused whole', () => {
 		expect(body.rows).toEqual([{ row: 3, column: 'quantity', message: 'quantity must be at least 0.' }]);
 		expect(await written()).toBe(0);
 	});
+	it('a zip that is not a workbook says so, not "no rows"', async () => {
+		const JSZip = (await import('jszip')).default;
+		const zip = new JSZip();
+		zip.file('notes.txt', 'not a spreadsheet');
+		const res = await post(share, new Blob([new Uint8Array(await zip.generateAsync({ type: 'uint8array' }))]), 'demand.xlsx');
+		expect(res.status).toBe(400);
+		const body = await res.json();
+		expect(JSON.stringify(body)).toMatch(/not an \.xlsx workbook/);
+		expect(JSON.stringify(body)).not.toMatch(/no rows/);
+		expect(await written()).toBe(0);
+	});
 	it('no file: 400 naming file; an old .xls or a fake .xlsx: 400', async () => {
 		const none = await post(share, null, '');
 		expect(none.status).toBe(400);

@@ -124,9 +124,12 @@ describe('read with exceljs', () => {
 		// P3: 40 ft × 12 ÷ 12 = 40 a row × 3 = 120 plants; cells ceil(120 ÷ 0.9 × 1.15) = ceil(153.3) = 154; trays ceil(154 ÷ 128) = 2;
 		//     154 seeds ÷ 800 = 0.1925 g, rounded up to 0.20 g → 50 ¢.
 		// P4 (failed, still sown): 60 plants; cells ceil(76.7) = 77; 1 tray; 77 ÷ 800 = 0.096 → 0.10 g → 25 ¢.
-		// Σ 231 seeds, 0.30 g, $0.75, 231 cells, 3 trays; packets ceil(231 ÷ 1,000) = 1.
-		expect(butter).toMatchObject({ Plantings: 2, 'Seeds (seeds)': 231, Packets: 1, 'Cost ($)': 0.75, Cells: 231, Trays: 3 });
-		expect(butter['Seed (g)']).toBeCloseTo(0.3, 10);
+		// The order is rounded once, at the end, not planting by planting: Σ 231 seeds ÷ 800 = 0.28875 g, up to 0.29 g;
+		// cost 0.29 g × $2.50 = $0.725 → $0.73; 231 cells, 3 trays; packets ceil(231 ÷ 1,000) = 1.
+		expect(butter).toMatchObject({ Plantings: 2, 'Seeds (seeds)': 231, Packets: 1, 'Cost ($)': 0.73, Cells: 231, Trays: 3 });
+		expect(butter['Seed (g)']).toBeCloseTo(0.29, 10);
+		// The sheet's own columns add up on every row: cost = grams × price per gram, to the cent.
+		for (const r of rows) expect(Math.abs(Number(r['Cost ($)']) - Number(r['Seed (g)']) * Number(r['Price ($/g)']))).toBeLessThanOrEqual(0.005 + 1e-9);
 		const cost = wb.getWorksheet('Seed order')!.getRow(1).values as unknown[];
 		const costCol = cost.indexOf('Cost ($)');
 		expect(wb.getWorksheet('Seed order')!.getRow(2).getCell(costCol).numFmt).toContain('$');

@@ -192,6 +192,8 @@ describe('the sheets by e-mail', () => {
 		expect(res.headers.get('location')).toBe(`${sheetPath}?sent=1`);
 		const mail = await waitForMail(to);
 		expect(mail.subject).toContain('Crew sheets 2027-W21');
+		// The week is named once, not again before each day.
+		expect(mail.subject).toMatch(/^Crew sheets 2027-W21 \(Mon 24 May – Sun 30 May\) · /);
 		expect(mail.html).toContain('<strong>Carrot</strong> · Test Nantes');
 		expect(mail.html).toContain('12.57 g seed');
 		expect(mail.attachments).toHaveLength(1);
@@ -200,7 +202,12 @@ describe('the sheets by e-mail', () => {
 
 		const wb = new ExcelJS.Workbook();
 		await wb.xlsx.load(file as unknown as ArrayBuffer);
-		expect(wb.worksheets.map((w) => w.name)).toEqual(['Tray sowing', 'Direct sowing', 'Transplanting', 'Harvest']);
+		// The harvest was finished above, so the week has no harvest task: no Harvest sheet, and the
+		// first sheet says so.
+		expect(wb.worksheets.map((w) => w.name)).toEqual(['Tray sowing', 'Direct sowing', 'Transplanting']);
+		expect(wb.worksheets[0].headerFooter.oddFooter).toContain('Nothing this week for Harvest: no sheet for it.');
+		// Printed: every page headed with the kind, the week and the farm; fill-in cells ruled.
+		expect(wb.worksheets[1].headerFooter.oddHeader).toMatch(/Direct sowing.* · 2027-W21&C.+/);
 		const direct = wb.getWorksheet('Direct sowing')!;
 		expect(direct.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 });
 		const headers = (direct.getRow(1).values as unknown[]).slice(1);
@@ -216,15 +223,13 @@ describe('the sheets by e-mail', () => {
 
 		// The second, independent reader.
 		const sj = XLSX.read(file, { type: 'buffer', cellDates: true });
-		expect(sj.SheetNames).toEqual(['Tray sowing', 'Direct sowing', 'Transplanting', 'Harvest']);
+		expect(sj.SheetNames).toEqual(['Tray sowing', 'Direct sowing', 'Transplanting']);
 		const tray = XLSX.utils.sheet_to_json<Record<string, unknown>>(sj.Sheets['Tray sowing']);
 		expect(tray).toHaveLength(1);
 		expect(tray[0]).toMatchObject({ Crop: 'Lettuce', Variety: 'Test Butterhead', Cells: expected.trayCells, Trays: expected.trayTrays, 'Seed (g)': expected.trayGrams });
 		const transplant = XLSX.utils.sheet_to_json<Record<string, unknown>>(sj.Sheets['Transplanting']);
 		expect(transplant[0]).toMatchObject({ 'Block · bed': 'East · bed E1', 'From (ft)': 10, 'To (ft)': 60, Plants: expected.transplantPlants });
-		const harvestCell = sj.Sheets['Harvest'];
-		// The carrot harvest was finished above, so it has left this week's harvest list.
-		expect(XLSX.utils.sheet_to_json(harvestCell)).toHaveLength(0);
+		expect(direct.getRow(2).getCell(col('Notes')).border?.bottom?.style).toBe('thin');
 	});
 	it('sends to the farm crew leads and owners when asked', async () => {
 		const res = await f.owner.postForm(`${sheetPath}?/email`, { team: 'on', extra: '' });

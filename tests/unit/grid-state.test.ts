@@ -174,6 +174,40 @@ describe('paste', () => {
 		expect((api.calls.find((c) => c.kind === 'create')!.body as unknown[]).length).toBe(2);
 		expect(g.rows[3].id).toBe(101);
 	});
+
+	it('reads dates the way the locale writes them, and says which when day and month could swap', () => {
+		// Source: the order comes from Intl.DateTimeFormat (CLDR): en-US writes month/day/year, en-GB day/month/year.
+		const { g } = grid();
+		g.lookups.locale = 'en-US';
+		g.moveTo(0, col(g, 'fieldDate'));
+		expect(g.paste('6/24/2026').bad).toEqual([]);
+		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
+		const p = g.paste('6/7/2026');
+		expect(p.notes).toEqual([expect.objectContaining({ row: 1, column: 'Field date', message: expect.stringMatching(/read as 7 June 2026 \(month\/day\/year, as en-US/) })]);
+		// Nothing is saved until the reading is confirmed.
+		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
+		g.confirmPaste();
+		expect(g.rows[0].values.fieldDate).toBe('2026-06-07');
+		g.lookups.locale = 'en-GB';
+		expect(g.paste('24/06/2026').bad).toEqual([]);
+		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
+		expect(g.paste('6/24/2026').bad[0].message).toMatch(/not a real date when read as day\/month\/year/);
+	});
+	it("a new row's bad bed stays empty and a bad date leaves the row out: never the previous row's values", () => {
+		const { g } = grid();
+		// The last row is in bed B1: the pasted row below it must not take that bed.
+		g.moveTo(1, col(g, 'bed'));
+		const p = g.paste('B1\nZ9\n');
+		expect(p.bad).toEqual([expect.objectContaining({ row: 3, column: 'Bed', text: 'Z9' })]);
+		g.confirmPaste();
+		expect(g.rows).toHaveLength(3);
+		expect(g.rows[2].values.bedId).toBeNull();
+		g.moveTo(2, col(g, 'fieldDate'));
+		const q = g.paste('2026-05-01\n31/31/2026');
+		expect(q.bad.map((b) => b.column)).toEqual(['Field date', '—']);
+		g.confirmPaste();
+		expect(g.rows).toHaveLength(3);
+	});
 });
 
 describe('the save queue', () => {

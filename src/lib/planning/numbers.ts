@@ -27,8 +27,3 @@ export function ceilToPlaces(x: number, places: number): number {
 	const f = 10 ** places;
 	return ceilSafe(x * f) / f;
 }
-
-export function roundToPlaces(x: number, places: number): number {
-	const f = 10 ** places;
-	return Math.round(x * f) / f;
-}

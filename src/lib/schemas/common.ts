@@ -1,5 +1,6 @@
 // Building blocks shared by every input schema, on the server and in the browser alike.
 import { z } from 'zod';
+import { parseNumberText } from './number-text';
 
 /** Free text a person types: trimmed, bounded, and never markup. */
 export function plainText(label: string, max: number) {
@@ -84,10 +85,26 @@ export const isoWeekKey = (label: string) =>
 			if (problem) ctx.addIssue({ code: 'custom', message: problem });
 		});
 
+/**
+ * A typed or pasted number as text: "1,000" and "1.000" could each be one thousand or one, so
+ * they are refused with both readings named; "1,5", "1.5", "1,000.5" and "1 000" read one way.
+ */
+export function numberFromText(label: string, v: string, ctx: { addIssue(issue: { code: 'custom'; message: string }): void }): unknown {
+	if (v.trim() === '') return undefined;
+	const read = parseNumberText(v);
+	if (read.kind === 'number') return read.value;
+	if (read.kind === 'ambiguous') {
+		const [a, b] = read.readings;
+		ctx.addIssue({ code: 'custom', message: `${label}: "${v.trim()}" could be ${a.toLocaleString('en-US')} or ${String(b)}; write it without a thousands separator.` });
+		return z.NEVER;
+	}
+	return Number.NaN;
+}
+
 /** A number typed into a form field (a string there) or sent as JSON (a number). */
 export const numberField = (label: string, min: number, max: number, opts: { int?: boolean } = {}) =>
 	z.preprocess(
-		(v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : Number(v.trim().replace(',', '.'))) : v),
+		(v, ctx) => (typeof v === 'string' ? numberFromText(label, v, ctx) : v),
 		z
 			.number({ error: (issue) => (issue.input === undefined ? `${label} is required.` : `${label} must be a number.`) })
 			.refine((n) => Number.isFinite(n), `${label} must be a number.`)

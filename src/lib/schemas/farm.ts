@@ -14,6 +14,19 @@ export const farmSettingsSchema = z
 			}
 		}, 'Time zone must be an IANA name such as America/New_York.'),
 		unitSystem: z.enum(['imperial', 'metric'], { error: 'Choose imperial or metric units.' }),
+		// ISO 4217; optional so older forms and imports keep the farm's currency.
+		currency: z
+			.string()
+			.regex(/^[A-Z]{3}$/, 'Currency must be a three-letter ISO 4217 code such as USD or EUR.')
+			.refine((c) => {
+				try {
+					new Intl.NumberFormat('en', { style: 'currency', currency: c });
+					return true;
+				} catch {
+					return false;
+				}
+			}, 'Currency must be a three-letter ISO 4217 code such as USD or EUR.')
+			.optional(),
 		lastSpringFrost: isoDate('Last spring frost'),
 		firstFallFrost: isoDate('First fall frost'),
 		bedFootIncrement: numberField('Bed-foot increment', 1, 50, { int: true }),

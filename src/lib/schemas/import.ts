@@ -121,7 +121,8 @@ export const plantingRowSchema = z.object({
 	actualFieldDate: optionalDate('Actual field date'),
 	actualFirstHarvest: optionalDate('Actual first harvest'),
 	actualLastHarvest: optionalDate('Actual last harvest'),
-	notes: z.preprocess((v) => (blank(v) ? null : String(v).trim()), z.string().max(2000, 'Notes must be at most 2000 characters.').nullable())
+	notes: z.preprocess((v) => (blank(v) ? null : String(v).trim()), z.string().max(2000, 'Notes must be at most 2000 characters.').nullable()),
+	id: optional('Planting id', 1, 2 ** 31 - 1, { int: true })
 });
 
 export const seasonRowsSchema = z.object({

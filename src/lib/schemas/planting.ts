@@ -56,7 +56,7 @@ export const plantingPatchSchema = z
 	.strict() as unknown as z.ZodType<{ version: number } & Partial<PlantingValues>>;
 export type PlantingPatch = { version: number } & Partial<PlantingValues>;
 
-export type CellCheck = { ok: true; value: unknown } | { ok: false; message: string };
+export type CellCheck = { ok: true; value: unknown; note?: string } | { ok: false; message: string };
 
 /** Validates one cell's typed or pasted text with the field's own schema. */
 export function checkCell(field: PlantingField, raw: unknown): CellCheck {

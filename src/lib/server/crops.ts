@@ -9,8 +9,8 @@ import type { HarvestCurve } from '$lib/planning';
 
 export type { VarietyView };
 
-export async function listVarieties(farmId: number): Promise<VarietyView[]> {
-	const rows = await db()('varieties as v')
+export async function listVarieties(farmId: number, conn: Knex = db()): Promise<VarietyView[]> {
+	const rows = await conn('varieties as v')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])

@@ -1,6 +1,7 @@
 // The grid's columns: what each shows, how it is typed or pasted, and which field it edits.
 import { formatWeekDate } from '$lib/planning';
 import { checkCell, plantingStatuses, type CellCheck, type PlantingField } from '$lib/schemas/planting';
+import { readDateText } from '$lib/schemas/date-text';
 import { fieldSpec, plantingFieldNames } from '$lib/plantings/fields';
 import type { GridRow } from './rows';
 import type { GridBed, GridVariety } from '$lib/plantings/derive';
@@ -12,6 +13,8 @@ export interface Lookups {
 	varietyById: Map<number, GridVariety>;
 	beds: GridBed[];
 	bedById: Map<number, GridBed>;
+	/** How pasted dates are read besides ISO (the browser's locale, e.g. 'en-US'). */
+	locale?: string;
 }
 
 export interface GridColumn {
@@ -205,6 +208,14 @@ export function readCell(col: GridColumn, text: string, row: GridRow, l: Lookups
 		if (t === '' || low === 'not placed') return { ok: true, value: null };
 		const b = l.beds.find((x) => bedLabel(x).toLowerCase() === low) ?? l.beds.find((x) => x.name.toLowerCase() === low);
 		return b ? { ok: true, value: b.id } : { ok: false, message: `No bed named "${t}" on this farm.` };
+	}
+	// A date as ISO or as the locale writes it ("6/24/2028" in en-US); an order that could be read
+	// two ways is read the locale's way and the note says which.
+	if (col.kind === 'date' && t !== '' && !/^\d{4}-\d{2}-\d{2}$/.test(t)) {
+		const d = readDateText(t, l.locale ?? 'en-US');
+		if (!d.ok) return { ok: false, message: d.message };
+		const out = checkCell(col.field, d.iso);
+		return out.ok && d.note ? { ...out, note: d.note } : out;
 	}
 	// A pasted number may carry its unit ("25 ft"): keep the figure.
 	const raw = col.kind === 'number' ? t.replace(/\s*(ft|in|rows?|seeds?)$/i, '') : t;

@@ -54,6 +54,8 @@ export interface PendingPaste {
 	changes: { key: string; field: PlantingField; value: unknown }[];
 	newRows: RowValues[];
 	bad: BadCell[];
+	/** Cells read one way where another was possible (a date's day and month), said before saving. */
+	notes: BadCell[];
 }
 
 export interface GridInit {
@@ -112,7 +114,8 @@ export class GridState {
 			varieties: init.varieties,
 			varietyById: new Map(init.varieties.map((v) => [v.id, v])),
 			beds: init.beds,
-			bedById: new Map(init.beds.map((b) => [b.id, b]))
+			bedById: new Map(init.beds.map((b) => [b.id, b])),
+			locale: typeof navigator !== 'undefined' && navigator.language ? navigator.language : 'en-US'
 		};
 		this.farm = init.farm;
 		this.role = init.role;
@@ -548,7 +551,7 @@ export class GridState {
 	paste(text: string): PendingPaste {
 		const lines = text.replace(/\r\n?/g, '\n').replace(/\n$/, '').split('\n').map((l) => l.split('\t'));
 		const { r: r0, c: c0 } = this.focus;
-		const out: PendingPaste = { changes: [], newRows: [], bad: [] };
+		const out: PendingPaste = { changes: [], newRows: [], bad: [], notes: [] };
 		const template = this.view.rows[this.view.rows.length - 1]?.values ?? defaultValues(this.lookups.varieties[0]);
 		lines.forEach((cells, i) => {
 			const r = r0 + i;
@@ -562,6 +565,7 @@ export class GridState {
 				row = this.newRow({ ...template, status: 'planned', notes: null, actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null });
 			}
 			let values = { ...row.values };
+			const failed: PlantingField[] = [];
 			cells.forEach((text, j) => {
 				const col = this.columns[c0 + j];
 				if (!col) return;
@@ -571,14 +575,29 @@ export class GridState {
 					return;
 				}
 				const check = readCell(col, text, { ...row, values }, this.lookups);
-				if (!check.ok) return out.bad.push({ row: r + 1, column: col.label, text, message: check.message });
+				if (!check.ok) {
+					failed.push(col.field!);
+					return out.bad.push({ row: r + 1, column: col.label, text, message: check.message });
+				}
+				if (check.note) out.notes.push({ row: r + 1, column: col.label, text, message: check.note });
 				values = { ...values, [col.field!]: check.value };
 				if (col.field === 'varietyId') values.method = this.lookups.varietyById.get(check.value as number)?.method ?? values.method;
 				if (!isNew) out.changes.push({ key: row.key, field: col.field!, value: check.value });
 			});
-			if (isNew) out.newRows.push(values);
+			if (isNew) {
+				// A cell that failed its check stays empty: never the previous row's bed or date. A new
+				// row cannot be without a variety, a length or a field date, so it is left out, and said.
+				const required = failed.filter((f) => f === 'varietyId' || f === 'lengthFt' || f === 'fieldDate' || f === 'rows' || f === 'inRowSpacingIn' || f === 'method');
+				if (required.length) {
+					out.bad.push({ row: r + 1, column: '—', text: cells.join(' '), message: 'This new row is left out: a cell it cannot do without was not valid.' });
+					return;
+				}
+				const blank: Partial<Record<PlantingField, unknown>> = { startFt: 0, seedsPerSpot: 1, status: 'planned' };
+				const emptied = Object.fromEntries(failed.map((f) => [f, f in blank ? blank[f] : null]));
+				out.newRows.push({ ...values, ...emptied });
+			}
 		});
-		if (out.bad.length === 0) this.applyPaste(out);
+		if (out.bad.length === 0 && out.notes.length === 0) this.applyPaste(out);
 		else this.pendingPaste = out;
 		return out;
 	}

@@ -65,7 +65,9 @@ export const plantingsSheet: SheetSpec = {
 		col('actualFieldDate', 'Actual field date', 16, 'date'),
 		col('actualFirstHarvest', 'Actual first harvest (date)', 24, 'date'),
 		col('actualLastHarvest', 'Actual last harvest (date)', 24, 'date'),
-		col('notes', 'Notes', 40, 'text')
+		col('notes', 'Notes', 40, 'text'),
+		// The planting's key: an import into the same season matches rows by it (blank = a new planting).
+		col('id', 'Planting id', 12, 'int')
 	]
 };
 

@@ -35,7 +35,7 @@ function plantingRows(d: SeasonData): Row[] {
 	return d.plantings.map((p) => [
 		p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, p.rows, p.inRowSpacingIn, p.seedsPerSpot, p.method,
 		p.traySowDate, p.fieldDate, isoWeekOfDay(toDayNumber(p.fieldDate)), p.firstHarvest, p.lastHarvest, p.expectedYield,
-		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes
+		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes, p.id
 	]);
 }
 
@@ -49,6 +49,17 @@ interface SeedTotal {
 	cells: number;
 	trays: number;
 }
+
+/**
+ * Grams of a variety's whole order, rounded (up) once: Σ seeds ÷ seeds per gram (not a sum of each
+ * planting's rounded grams), so the sheet's own columns agree: cost = grams × price per gram,
+ * to the cent.
+ */
+const gramsOf = (t: SeedTotal): number => {
+	// Rounded up to the hundredth, as the engine rounds one planting's seed: never short of seed.
+	const g = t.v.seedsPerGram > 0 ? t.seeds / t.v.seedsPerGram : t.grams;
+	return Math.ceil(Math.round(g * 1e6) / 1e4) / 100;
+};
 
 /**
  * Per variety: Σ of the engine's seedNeed over the season's plantings. Packets are bought per
@@ -73,8 +84,9 @@ function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: M
 	const rows = [...totals.values()]
 		.sort((a, b) => a.v.crop.localeCompare(b.v.crop) || a.v.name.localeCompare(b.v.name))
 		.map((t): Row => [
-			t.v.crop, t.v.name, t.v.method, t.plantings, round2(t.bedFeet), t.seeds, round2(t.grams), t.v.seedsPerPacket,
-			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null, t.v.seedPriceCentsPerGram / 100, t.costCents / 100,
+			t.v.crop, t.v.name, t.v.method, t.plantings, round2(t.bedFeet), t.seeds, gramsOf(t), t.v.seedsPerPacket,
+			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null, t.v.seedPriceCentsPerGram / 100,
+			Math.round(gramsOf(t) * t.v.seedPriceCentsPerGram) / 100,
 			t.v.method === 'transplant' ? t.cells : null, t.v.method === 'transplant' ? t.trays : null
 		]);
 	return rows;

@@ -11,6 +11,7 @@
 // transaction or not at all; each error names its spreadsheet row (the header is row 1) and column.
 import Papa from 'papaparse';
 import ExcelJS from 'exceljs';
+import { readXlsxSheets, XlsxRefused, type XlsxLimits } from '../xlsx-read';
 import { uploadColumns, uploadModeSchema, uploadRowSchema, type HarvestUnit } from '$lib/schemas/demand';
 import type { Season } from '../seasons';
 import { listCrops, listShareSizes, outside, resolveGrid, writeGrids, type DemandView, type GridTarget, type GridWrite } from '../demand';
@@ -32,30 +33,23 @@ interface RawRow {
 	cells: string[];
 }
 
-function cellText(v: ExcelJS.CellValue): string {
+function cellText(v: unknown): string {
 	if (v === null || v === undefined) return '';
-	if (typeof v === 'number' || typeof v === 'boolean') return String(v);
-	if (typeof v === 'string') return v;
 	if (v instanceof Date) return v.toISOString().slice(0, 10);
-	if ('richText' in v) return v.richText.map((t) => t.text).join('');
-	if ('text' in v) return String(v.text);
-	if ('result' in v) return v.result === undefined ? '' : cellText(v.result as ExcelJS.CellValue);
-	if ('error' in v) return String(v.error);
-	return '';
+	return String(v);
 }
 
+/** A demand file is a few thousand rows of five columns: far below these. */
+const DEMAND_LIMITS: XlsxLimits = { maxRows: MAX_UPLOAD_ROWS, maxCells: MAX_UPLOAD_ROWS * 10, maxColumns: 50, maxUnpackedBytes: 20 * 1024 * 1024 };
+
+/** The first sheet's rows holding data, streamed (see xlsx-read.ts). */
 async function readXlsx(bytes: ArrayBuffer): Promise<RawRow[]> {
-	const book = new ExcelJS.Workbook();
-	await book.xlsx.load(bytes);
-	const sheet = book.worksheets[0];
-	if (!sheet) return [];
-	const rows: RawRow[] = [];
-	sheet.eachRow({ includeEmpty: false }, (row, n) => {
-		const cells: string[] = [];
-		for (let c = 1; c <= Math.max(row.cellCount, uploadColumns.length); c++) cells.push(cellText(row.getCell(c).value).trim());
-		rows.push({ row: n, cells });
-	});
-	return rows;
+	const book = await readXlsxSheets(new Uint8Array(bytes), (_name, position) => position === 1, DEMAND_LIMITS);
+	const [rows] = [...book.values()];
+	return (rows ?? []).map((r) => ({
+		row: r.row,
+		cells: Array.from({ length: Math.max(r.values.length, uploadColumns.length) }, (_, i) => cellText(r.values[i]).trim())
+	}));
 }
 
 /** Undoes toCsv's formula escape, so a downloaded file uploads again unchanged. */
@@ -81,8 +75,10 @@ async function readRows(file: File): Promise<{ rows: RawRow[]; header: Map<strin
 	if (isZip) {
 		try {
 			rows = await readXlsx(bytes);
-		} catch {
-			return { status: 400, errors: [{ row: 0, column: 'file', message: 'The .xlsx file could not be opened.' }] };
+		} catch (err) {
+			if (!(err instanceof XlsxRefused)) throw err;
+			// A zip that is not a workbook (no sheet at all) says so, not "no rows".
+			return { status: err.status, errors: [{ row: err.row ?? 0, column: 'file', message: err.message }] };
 		}
 	} else if (name.endsWith('.xlsx') || name.endsWith('.xls')) {
 		return { status: 400, errors: [{ row: 0, column: 'file', message: 'The file is not an .xlsx workbook (old .xls files are not read: save as .xlsx or CSV).' }] };

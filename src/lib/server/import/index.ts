@@ -6,11 +6,27 @@ import * as beds from '../beds';
 import { readCsv, readXlsx, type ReadResult } from './read';
 import { checkImport, type FarmLibrary } from './validate';
 import { ImportRefused, writeImport, type ImportSummary } from './write';
+import { db } from '../db';
+import * as seasons from '../seasons';
+import { datesOutside, previewSeasonUpdate, type PreviewSummary } from './season-update';
+
+export type { PreviewSummary };
+
+async function seasonOfYear(farmId: number, year: number): Promise<seasons.Season | null> {
+	const r = await db()('seasons').where({ farm_id: farmId, year }).orderBy('id').first('id');
+	return r ? seasons.get(farmId, Number(r.id)) : null;
+}
+
+async function plantingCount(farmId: number, seasonId: number): Promise<number> {
+	return Number((await db()('plantings').where({ farm_id: farmId, season_id: seasonId }).count({ n: '*' }).first())?.n ?? 0);
+}
 
 export type { ImportSummary };
 
 export type ImportOutcome =
 	| { ok: true; summary: ImportSummary }
+	/** The season holds plantings: nothing is written until the owner confirms this preview. */
+	| { ok: true; preview: PreviewSummary }
 	| { ok: false; status: 400 | 404 | 409 | 413 | 415; message: string; issues: ImportIssue[] };
 
 const fileIssue = (message: string): ImportIssue[] => [{ sheet: 'file', row: null, column: null, header: null, message }];
@@ -57,9 +73,23 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 		const text = new TextDecoder('utf-8', { fatal: false }).decode(buffer);
 		read = readCsv(text, options.sheet);
 	}
-	if (!read.ok) return refuse(400, read.issues);
+	if (!read.ok) return refuse(read.status ?? 400, read.issues);
 	const checked = checkImport(read.sheets, await farmLibrary(farmId), options.seasonId === undefined);
 	if (!checked.ok) return refuse(400, checked.issues);
+	const plan = checked.plan;
+	if (plan.plantings.length) {
+		const letters = read.sheets.plantings?.letters ?? {};
+		const season = options.seasonId !== undefined ? await seasons.get(farmId, options.seasonId) : await seasonOfYear(farmId, plan.season!.year);
+		if (options.seasonId !== undefined && !season) return refuse(404, [{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }]);
+		const bounds = season ?? { name: plan.season!.name, startsOn: plan.season!.startsOn, endsOn: plan.season!.endsOn };
+		const outside = datesOutside(plan, bounds, letters);
+		if (outside.length) return refuse(400, outside);
+		if (season && (await plantingCount(farmId, season.id)) > 0) {
+			const preview = await previewSeasonUpdate(farmId, userId, season, plan, letters);
+			return preview.ok ? { ok: true, preview: preview.preview } : refuse(400, preview.issues);
+		}
+		if (plan.dateOrder.length) return refuse(400, plan.dateOrder);
+	}
 	// Two imports into one farm at once can deadlock on its library rows: MariaDB rolls one back,
 	// which is retried once; a second deadlock answers 409 (nothing of it was written).
 	for (let attempt = 1; ; attempt++) {

@@ -1,9 +1,10 @@
 // Reads an uploaded .xlsx (exceljs) or .csv (papaparse) into plain rows keyed by our column
 // keys, matched by header text. Nothing is validated here beyond the layout itself: which
 // sheets and columns are present.
-import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
 import type { ImportIssue, ImportableSheet } from '$lib/schemas/import';
+import { readXlsxSheets, XlsxRefused, type XlsxLimits, type XlsxRow } from '../xlsx-read';
+import { detectDecimal, parseNumberText } from '$lib/schemas/number-text';
 import { bedsSheet, columnLetter, cropsSheet, plantingsSheet, seasonSheet, type SheetSpec } from '../export/layout';
 
 export interface RawRow {
@@ -20,7 +21,7 @@ export interface RawSheet {
 }
 
 export type Sheets = Partial<Record<'season' | 'crops' | 'beds' | 'plantings', RawSheet>>;
-export type ReadResult = { ok: true; sheets: Sheets } | { ok: false; issues: ImportIssue[] };
+export type ReadResult = { ok: true; sheets: Sheets } | { ok: false; status?: 400 | 413; issues: ImportIssue[] };
 
 const sheetKeys = { Season: 'season', 'Crops & varieties': 'crops', Beds: 'beds', Plantings: 'plantings' } as const;
 const specs: SheetSpec[] = [seasonSheet, cropsSheet, bedsSheet, plantingsSheet];
@@ -55,17 +56,6 @@ function matchHeaders(spec: SheetSpec, headers: unknown[]): { letters: Record<st
 	return { letters, index, issues };
 }
 
-/** An exceljs cell value as a plain value: a formula's result, a rich text's text. */
-function plain(v: ExcelJS.CellValue): unknown {
-	if (v === null || v === undefined) return null;
-	if (v instanceof Date || typeof v !== 'object') return v;
-	if ('result' in v) return v.result instanceof Date || typeof v.result !== 'object' ? v.result : null;
-	if ('richText' in v) return v.richText.map((t) => t.text).join('');
-	if ('text' in v) return v.text;
-	if ('error' in v) return `#${String(v.error)}`;
-	return null;
-}
-
 function toSheet(spec: SheetSpec, headerRow: unknown[], body: { row: number; values: unknown[] }[]): { sheet: RawSheet; issues: ImportIssue[] } {
 	const { letters, index, issues } = matchHeaders(spec, headerRow);
 	const rows: RawRow[] = [];
@@ -78,30 +68,84 @@ function toSheet(spec: SheetSpec, headerRow: unknown[], body: { row: number; val
 	return { sheet: { spec, rows, letters }, issues };
 }
 
+/** Per upload: far above a real farm's season (the bench's 5,000 plantings), far below harm. */
+export const IMPORT_LIMITS: XlsxLimits = { maxRows: 20_000, maxCells: 600_000, maxColumns: 200, maxUnpackedBytes: 150 * 1024 * 1024 };
+
 export async function readXlsx(buffer: ArrayBuffer): Promise<ReadResult> {
-	const wb = new ExcelJS.Workbook();
+	let book: Map<string, XlsxRow[]>;
 	try {
-		await wb.xlsx.load(buffer);
-	} catch {
-		return { ok: false, issues: [{ sheet: 'file', row: null, column: null, header: null, message: 'The file could not be read as an .xlsx workbook.' }] };
+		book = await readXlsxSheets(new Uint8Array(buffer), (name) => name in sheetKeys, IMPORT_LIMITS);
+	} catch (err) {
+		if (!(err instanceof XlsxRefused)) throw err;
+		return { ok: false, status: err.status, issues: [{ sheet: err.sheet ?? 'file', row: err.row, column: null, header: null, message: err.message }] };
 	}
 	const sheets: Sheets = {};
 	const issues: ImportIssue[] = [];
 	for (const spec of specs) {
-		const ws = wb.getWorksheet(spec.name);
-		if (!ws) continue;
-		const width = Math.max(ws.columnCount, spec.columns.length);
-		const valuesOf = (n: number): unknown[] => Array.from({ length: width }, (_, i) => plain(ws.getRow(n).getCell(i + 1).value));
-		const body: { row: number; values: unknown[] }[] = [];
-		for (let n = 2; n <= ws.rowCount; n++) body.push({ row: n, values: valuesOf(n) });
-		const read = toSheet(spec, valuesOf(1), body);
+		const rows = book.get(spec.name);
+		if (!rows) continue;
+		const header = rows[0]?.row === 1 ? rows[0].values : [];
+		const read = toSheet(spec, header, rows.filter((r) => r.row > 1));
 		sheets[sheetKeys[spec.name as keyof typeof sheetKeys]] = read.sheet;
 		issues.push(...read.issues);
 	}
 	if (!sheets.crops && !sheets.beds && !sheets.plantings) {
 		issues.push({ sheet: 'file', row: null, column: null, header: null, message: 'The workbook has none of the sheets "Crops & varieties", "Beds" or "Plantings".' });
 	}
+	issues.push(...readNumbers(sheets));
 	return issues.length ? { ok: false, issues } : { ok: true, sheets };
+}
+
+const numberKinds = new Set(['int', 'number', 'money', 'percent']);
+
+/**
+ * Number cells written as text (a CSV, or a workbook cell typed as text) are read the way the
+ * file writes them: the decimal mark is decided once for the whole file from every such cell
+ * (a file that writes "1.5" or "1,500.00" anywhere writes "1,000" for one thousand; one that
+ * writes "1,5" uses a decimal comma), and a value that still reads two ways is refused, named
+ * by row and column. In a "(%)" column "85", "85%" and 0.85 all mean 85 %.
+ */
+export function readNumbers(sheets: Sheets): ImportIssue[] {
+	const cells: { sheet: RawSheet; row: RawRow; key: string; percent: boolean }[] = [];
+	for (const sheet of Object.values(sheets)) {
+		if (!sheet || sheet.spec === seasonSheet) continue;
+		const keys = sheet.spec.columns.filter((c) => numberKinds.has(c.kind) && c.key in sheet.letters);
+		for (const row of sheet.rows) for (const c of keys) cells.push({ sheet, row, key: c.key, percent: c.kind === 'percent' });
+	}
+	const texts = function* (): Generator<string> {
+		for (const c of cells) {
+			const v = c.row.cells[c.key];
+			if (typeof v === 'string') yield v.trim().replace(/%$/, '').replace(/^\$/, '');
+		}
+	};
+	const found = detectDecimal(texts());
+	const mark = found === 'mixed' ? null : found;
+	const issues: ImportIssue[] = [];
+	for (const c of cells) {
+		const v = c.row.cells[c.key];
+		if (typeof v === 'number') {
+			if (c.percent && v > 1) c.row.cells[c.key] = v / 100;
+			continue;
+		}
+		if (typeof v !== 'string' || v.trim() === '') continue;
+		const t = v.trim();
+		const sign = t.endsWith('%');
+		const read = parseNumberText(sign ? t.slice(0, -1) : t, mark);
+		if (read.kind === 'ambiguous') {
+			const header = c.sheet.spec.columns.find((col) => col.key === c.key)!.header;
+			const [a, b] = read.readings;
+			issues.push({
+				sheet: c.sheet.spec.name,
+				row: c.row.row,
+				column: c.sheet.letters[c.key] ?? null,
+				header,
+				message: `"${t}" could be ${a.toLocaleString('en-US')} or ${String(b)}, and no other number in the file shows which mark is the decimal one; write it without the thousands separator.`
+			});
+		} else if (read.kind === 'number') {
+			c.row.cells[c.key] = sign || (c.percent && read.value > 1) ? read.value / 100 : read.value;
+		}
+	}
+	return issues;
 }
 
 /** Which sheet a CSV holds, from its header row, when the upload does not say. */
@@ -115,8 +159,18 @@ function guessSheet(headers: string[]): SheetSpec | undefined {
 
 export function readCsv(text: string, sheet?: ImportableSheet): ReadResult {
 	// Blank lines are kept (and skipped later) so row numbers match what a spreadsheet shows.
-	const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: false });
+	// preview stops the parser one row past the limit, so a huge file is never held whole as rows.
+	const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: false, preview: IMPORT_LIMITS.maxRows + 2 });
 	const [headerRow, ...rest] = parsed.data;
+	const filled = rest.filter((r) => r.some((c) => c.trim() !== ''));
+	if (filled.length > IMPORT_LIMITS.maxRows) {
+		const message = `The CSV has more than ${IMPORT_LIMITS.maxRows.toLocaleString('en-US')} rows; at most that many are read at once.`;
+		return { ok: false, status: 413, issues: [{ sheet: 'file', row: null, column: null, header: null, message }] };
+	}
+	if (filled.reduce((n, r) => n + r.length, 0) > IMPORT_LIMITS.maxCells || (headerRow?.length ?? 0) > IMPORT_LIMITS.maxColumns) {
+		const message = `The CSV has more than ${IMPORT_LIMITS.maxColumns} columns or ${IMPORT_LIMITS.maxCells.toLocaleString('en-US')} cells; at most that many are read.`;
+		return { ok: false, status: 413, issues: [{ sheet: 'file', row: null, column: null, header: null, message }] };
+	}
 	if (!headerRow) return { ok: false, issues: [{ sheet: 'file', row: null, column: null, header: null, message: 'The CSV file is empty.' }] };
 	const spec = sheet ? specs.find((s) => s.name === sheet) : guessSheet(headerRow);
 	if (!spec) {
@@ -132,6 +186,8 @@ export function readCsv(text: string, sheet?: ImportableSheet): ReadResult {
 		.map((e) => ({ sheet: spec.name, row: (e.row ?? 0) + 1, column: null, header: null, message: `CSV: ${e.message}` }));
 	const read = toSheet(spec, headerRow, rest.map((values, i) => ({ row: i + 2, values })));
 	issues.push(...read.issues);
+	const sheets: Sheets = { [sheetKeys[spec.name as keyof typeof sheetKeys]]: read.sheet };
+	issues.push(...readNumbers(sheets));
 	if (issues.length) return { ok: false, issues };
-	return { ok: true, sheets: { [sheetKeys[spec.name as keyof typeof sheetKeys]]: read.sheet } };
+	return { ok: true, sheets };
 }

@@ -35,7 +35,7 @@ async function idsByName(trx: Knex.Transaction, table: string, farmId: number): 
 	return new Map(rows.map((r) => [lower(r.name), r.id]));
 }
 
-async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ crops: Map<string, number>; varieties: Map<string, number> }> {
+export async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ crops: Map<string, number>; varieties: Map<string, number> }> {
 	const crops = await idsByName(trx, 'crops', farmId);
 	for (const { data: c } of plan.crops) {
 		const row = { name: c.crop, family: c.family, harvest_unit: c.harvestUnit, frost_tolerance: c.frostTolerance, heat_limit_f: c.heatLimitF, base_temp_f: c.baseTempF };
@@ -61,7 +61,7 @@ async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: ImportP
 	return { crops, varieties };
 }
 
-async function writeBeds(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ beds: Map<string, number>; blocks: number }> {
+export async function writeBeds(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ beds: Map<string, number>; blocks: number }> {
 	const blocks = await idsByName(trx, 'blocks', farmId);
 	let newBlocks = 0;
 	for (const { data: b } of plan.beds) {

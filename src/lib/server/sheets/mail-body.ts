@@ -37,7 +37,9 @@ export interface MailBody {
 
 export function weekMail(sheet: WeekSheet, farmName: string, seasonName: string, link: string, sender: string): MailBody {
 	const cautions = cautionsFor(sheet.weekMeanF);
-	const subject = `Crew sheets ${sheet.week} (${formatWeekDate(sheet.monday)} – ${formatWeekDate(sheet.sunday)}) · ${farmName}`;
+	// The week is named once: "Crew sheets 2027-W21 (Mon 24 May – Sun 30 May)", not again on each date.
+	const day = (d: string): string => formatWeekDate(d).replace(/^W\d+ · /, '');
+	const subject = `Crew sheets ${sheet.week} (${day(sheet.monday)} – ${day(sheet.sunday)}) · ${farmName}`;
 	const html: string[] = [
 		`<div style="font-family:sans-serif;color:#222;max-width:720px">`,
 		`<h1 style="font-size:20px">Crew sheets for ${esc(sheet.week)}</h1>`,

@@ -30,7 +30,7 @@ export interface SendInput {
 export async function sendWeekSheets(input: SendInput): Promise<string[]> {
 	const to = [...new Set(input.recipients.map((r) => r.toLowerCase()))];
 	const body = weekMail(input.sheet, input.farmName, input.seasonName, input.link, input.sender);
-	const xlsx = await weekWorkbook(input.sheet, body.subject);
+	const xlsx = await weekWorkbook(input.sheet, body.subject, input.farmName);
 	const attachment = {
 		filename: `crew-sheets-${input.sheet.week}.xlsx`,
 		content: xlsx,

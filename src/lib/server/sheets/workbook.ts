@@ -10,6 +10,8 @@ interface Column {
 	value: (r: SheetRow, group: string) => string | number | Date | null;
 	/** Excel number format, e.g. '0.00' or 'yyyy-mm-dd'. */
 	format?: string;
+	/** Left blank to write in by hand: ruled, so the lines print. */
+	fillIn?: boolean;
 }
 
 /** A calendar date as a UTC-midnight Date, which Excel stores as a whole-day serial. */
@@ -27,9 +29,9 @@ const crop: Column[] = [
 	{ header: 'Variety', width: 20, value: (r) => r.variety }
 ];
 const fillIn: Column[] = [
-	{ header: 'Done (✓)', width: 9, value: () => null },
-	{ header: 'Actual date', width: 13, value: (r) => excelDate(r.doneOn ?? undefined), format: 'yyyy-mm-dd' },
-	{ header: 'Notes', width: 30, value: () => null }
+	{ header: 'Done (✓)', width: 9, value: () => null, fillIn: true },
+	{ header: 'Actual date', width: 13, value: (r) => excelDate(r.doneOn ?? undefined), format: 'yyyy-mm-dd', fillIn: true },
+	{ header: 'Notes', width: 30, value: () => null, fillIn: true }
 ];
 const planned = (label: string): Column => ({ header: label, width: 13, value: (r) => excelDate(r.date), format: 'yyyy-mm-dd' });
 
@@ -72,23 +74,51 @@ const columns: Record<SheetSection['kind'], Column[]> = {
 		{ header: 'Unit', width: 8, value: (r) => r.unit ?? null },
 		{ header: 'For (share size or channel)', width: 40, value: (r) => (r.demand ?? []).map((d) => `${d.for}: ${d.quantity} ${d.unit}`).join('; ') || 'no demand listed' },
 		{ header: 'Window ends', width: 13, value: (r) => excelDate(r.lastHarvest), format: 'yyyy-mm-dd' },
+		{ header: 'Picked (qty)', width: 12, value: () => null, fillIn: true },
 		...fillIn
 	]
 };
 
-/** Builds the .xlsx of a week's sheets; `title` goes in the workbook's properties. */
-export async function weekWorkbook(sheet: WeekSheet, title: string): Promise<Buffer> {
+const ruled: Partial<ExcelJS.Borders> = { top: { style: 'thin' }, bottom: { style: 'thin' }, left: { style: 'thin' }, right: { style: 'thin' } };
+/** "&" starts a code in a printed page header: a literal one is doubled. */
+const headerText = (s: string): string => s.replace(/&/g, '&&');
+
+/**
+ * Builds the .xlsx of a week's sheets; `title` goes in the workbook's properties. Printed, each
+ * page is headed with the task kind, the week and the farm, the header row repeats, and the
+ * fill-in columns are ruled. A kind with no tasks gets no sheet (the first sheet says so).
+ */
+export async function weekWorkbook(sheet: WeekSheet, title: string, farmName = ''): Promise<Buffer> {
 	const wb = new ExcelJS.Workbook();
 	wb.creator = 'Furrowcast';
 	wb.title = title;
 	wb.created = new Date();
-	for (const section of sheet.sections) {
+	const empty = sheet.sections.filter((s) => s.count === 0).map((s) => s.title);
+	const busy = sheet.sections.filter((s) => s.count > 0);
+	for (const section of busy.length ? busy : sheet.sections.slice(0, 1)) {
 		const cols = columns[section.kind];
-		const ws = wb.addWorksheet(section.title, { views: [{ state: 'frozen', ySplit: 1 }], pageSetup: { orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0 } });
+		const ws = wb.addWorksheet(section.title, {
+			views: [{ state: 'frozen', ySplit: 1 }],
+			pageSetup: { orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '1:1' },
+			headerFooter: {
+				oddHeader: `&L&B${headerText(section.title)}&B · ${sheet.week}&C${headerText(farmName)}&R${sheet.monday} to ${sheet.sunday}`,
+				oddFooter: `&L${headerText(section.title)} · ${sheet.week}&RPage &P of &N`
+			}
+		});
 		ws.columns = cols.map((c, i) => ({ header: c.header, key: `c${i}`, width: c.width, style: c.format ? { numFmt: c.format } : {} }));
 		ws.getRow(1).font = { bold: true };
 		for (const group of section.groups) {
-			for (const r of group.rows) ws.addRow(cols.map((c) => c.value(r, group.label)));
+			for (const r of group.rows) {
+				const row = ws.addRow(cols.map((c) => c.value(r, group.label)));
+				cols.forEach((c, i) => {
+					if (c.fillIn) row.getCell(i + 1).border = ruled;
+				});
+				row.height = 20;
+			}
+		}
+		// The first page says which kinds have nothing this week (they get no sheet).
+		if (section === busy[0] && empty.length) {
+			ws.headerFooter.oddFooter = `&L${headerText(`Nothing this week for ${empty.join(', ')}: no sheet for ${empty.length === 1 ? 'it' : 'them'}.`)}&RPage &P of &N`;
 		}
 	}
 	return Buffer.from(await wb.xlsx.writeBuffer());

@@ -9,7 +9,7 @@ export const GET: RequestHandler = async (event) => {
 	const { farm } = requireUser(event);
 	const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
 	const sheet = await weekSheet(farm.id, ctx.season.id, ctx.week, ctx.monday, ctx.sunday);
-	const body = await weekWorkbook(sheet, `Crew sheets ${ctx.week} · ${ctx.season.name}`);
+	const body = await weekWorkbook(sheet, `Crew sheets ${ctx.week} · ${ctx.season.name}`, farm.name);
 	return new Response(new Uint8Array(body), {
 		headers: {
 			'content-type': 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
