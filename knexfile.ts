@@ -13,7 +13,10 @@ const migrationsDir = fileURLToPath(new URL('./db/migrations', import.meta.url))
  * Names are the file names, as Knex itself would record them.
  */
 export const migrationSource: Knex.MigrationSource<string> = {
-	getMigrations: async () => readdirSync(migrationsDir).filter((f) => f.endsWith('.ts')).sort(),
+	getMigrations: async () =>
+		readdirSync(migrationsDir)
+			.filter((f) => f.endsWith('.ts'))
+			.sort(),
 	getMigrationName: (file) => file,
 	getMigration: async (file) => (await import(/* @vite-ignore */ join(migrationsDir, file))) as Knex.Migration
 };

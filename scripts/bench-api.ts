@@ -39,7 +39,8 @@ const TENANT_ROWS = 500;
 const PAINT_RUNS = 3;
 
 const started = Date.now();
-const phase = (what: string) => process.stderr.write(`[bench-api] ${what} at ${((Date.now() - started) / 1000).toFixed(1)} s\n`);
+const phase = (what: string) =>
+	process.stderr.write(`[bench-api] ${what} at ${((Date.now() - started) / 1000).toFixed(1)} s\n`);
 const round = (x: number, places = 2) => Math.round(x * 10 ** places) / 10 ** places;
 function p95(xs: number[]): number {
 	if (!xs.length) return NaN;
@@ -80,22 +81,86 @@ interface BenchFarm {
 /** Signs a bench farm up like anyone, then writes its ground and `rows` plantings straight in. */
 export async function benchFarm(db: Knex, base: string, tag: string, rows: number): Promise<BenchFarm> {
 	const email = `bench-${tag}-${Date.now().toString(36)}@bench.furrowcast.test`;
-	const form = new URLSearchParams({ name: 'Bench Grower (invented)', email, password: 'Furrow-bench-7Qx-pl2', farmName: `Bench ${tag} (invented)`, latitude: '42', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05' });
-	const signup = await fetch(`${base}/signup`, { method: 'POST', body: form, headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }, redirect: 'manual' });
+	const form = new URLSearchParams({
+		name: 'Bench Grower (invented)',
+		email,
+		password: 'Furrow-bench-7Qx-pl2',
+		farmName: `Bench ${tag} (invented)`,
+		latitude: '42',
+		lastSpringFrost: '2027-05-10',
+		firstFallFrost: '2027-10-05'
+	});
+	const signup = await fetch(`${base}/signup`, {
+		method: 'POST',
+		body: form,
+		headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
+		redirect: 'manual'
+	});
 	if (signup.status !== 303) throw new Error(`bench sign-up answered ${signup.status}`);
-	const cookie = signup.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+	const cookie = signup.headers
+		.getSetCookie()
+		.map((c) => c.split(';')[0])
+		.join('; ');
 	const user = await db('users').where({ email }).first('id');
 	const farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
 	const [blockId] = await db('blocks').insert({ farm_id: farmId, name: 'Bench block', position: 1 });
 	const bedIds: number[] = [];
-	for (let i = 0; i < 100; i++) bedIds.push((await db('beds').insert({ farm_id: farmId, block_id: blockId, name: `Bench ${i + 1}`, length_ft: 100, position: i }))[0]);
-	const [cropId] = await db('crops').insert({ farm_id: farmId, name: 'Bench carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy' });
-	const [varietyId] = await db('varieties').insert({ farm_id: farmId, crop_id: cropId, name: 'Bench Orange', method: 'direct', days_to_maturity: 70, harvest_window_days: 14, yield_per_bed_foot: 1.5, rows_per_bed: 4, in_row_spacing_in: 1, seeds_per_spot: 1, germination_rate: 0.65, seeds_per_gram: 776 });
-	const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: 'Bench 2027 (invented)', starts_on: '2027-01-01', ends_on: '2027-12-31' });
+	for (let i = 0; i < 100; i++)
+		bedIds.push(
+			(
+				await db('beds').insert({
+					farm_id: farmId,
+					block_id: blockId,
+					name: `Bench ${i + 1}`,
+					length_ft: 100,
+					position: i
+				})
+			)[0]
+		);
+	const [cropId] = await db('crops').insert({
+		farm_id: farmId,
+		name: 'Bench carrot',
+		family: 'Apiaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy'
+	});
+	const [varietyId] = await db('varieties').insert({
+		farm_id: farmId,
+		crop_id: cropId,
+		name: 'Bench Orange',
+		method: 'direct',
+		days_to_maturity: 70,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 1.5,
+		rows_per_bed: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 1,
+		germination_rate: 0.65,
+		seeds_per_gram: 776
+	});
+	const [seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2027,
+		name: 'Bench 2027 (invented)',
+		starts_on: '2027-01-01',
+		ends_on: '2027-12-31'
+	});
 	const list = Array.from({ length: rows }, (_, i) => ({
-		farm_id: farmId, season_id: seasonId, variety_id: varietyId, bed_id: bedIds[i % 100], start_ft: (Math.floor(i / 100) % 5) * 20, length_ft: 20, rows: 4,
-		in_row_spacing_in: 1, seeds_per_spot: 1, method: 'direct', field_date: `2027-0${4 + (Math.floor(i / 500) % 5)}-${String(1 + (i % 28)).padStart(2, '0')}`,
-		first_harvest: '2027-07-01', last_harvest: '2027-07-14', expected_yield: 30, seeds_needed: 1000
+		farm_id: farmId,
+		season_id: seasonId,
+		variety_id: varietyId,
+		bed_id: bedIds[i % 100],
+		start_ft: (Math.floor(i / 100) % 5) * 20,
+		length_ft: 20,
+		rows: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 1,
+		method: 'direct',
+		field_date: `2027-0${4 + (Math.floor(i / 500) % 5)}-${String(1 + (i % 28)).padStart(2, '0')}`,
+		first_harvest: '2027-07-01',
+		last_harvest: '2027-07-14',
+		expected_yield: 30,
+		seeds_needed: 1000
 	}));
 	for (let i = 0; i < list.length; i += 1000) await db('plantings').insert(list.slice(i, i + 1000));
 	return { farmId, seasonId, cookie, email };
@@ -113,22 +178,34 @@ export async function removeFarm(db: Knex, f: BenchFarm): Promise<void> {
  */
 async function manyFarms(db: Knex, tag: string): Promise<void> {
 	const name = `Bench tenant ${tag} (invented)`;
-	await db.raw(`INSERT INTO farms (name, latitude, last_spring_frost, first_fall_frost) SELECT CONCAT(?, ' ', seq), 42, '2027-05-10', '2027-10-05' FROM seq_1_to_${TENANTS - 1}`, [name]);
+	await db.raw(
+		`INSERT INTO farms (name, latitude, last_spring_frost, first_fall_frost) SELECT CONCAT(?, ' ', seq), 42, '2027-05-10', '2027-10-05' FROM seq_1_to_${TENANTS - 1}`,
+		[name]
+	);
 	const like = `${name}%`;
-	await db.raw(`INSERT INTO crops (farm_id, name, family, harvest_unit, frost_tolerance) SELECT id, 'Tenant carrot', 'Apiaceae', 'lb', 'hardy' FROM farms WHERE name LIKE ?`, [like]);
+	await db.raw(
+		`INSERT INTO crops (farm_id, name, family, harvest_unit, frost_tolerance) SELECT id, 'Tenant carrot', 'Apiaceae', 'lb', 'hardy' FROM farms WHERE name LIKE ?`,
+		[like]
+	);
 	await db.raw(
 		`INSERT INTO varieties (farm_id, crop_id, name, method, days_to_maturity, harvest_window_days, yield_per_bed_foot, rows_per_bed, in_row_spacing_in, seeds_per_spot, germination_rate, seeds_per_gram)
 		 SELECT c.farm_id, c.id, 'Tenant Orange', 'direct', 70, 14, 1.5, 4, 1, 1, 0.65, 776 FROM crops c JOIN farms f ON f.id = c.farm_id WHERE f.name LIKE ?`,
 		[like]
 	);
 	// Ground like a small farm's: one block of 40 beds each (the grid's context lists them).
-	await db.raw(`INSERT INTO blocks (farm_id, name, position) SELECT id, 'Tenant block', 1 FROM farms WHERE name LIKE ?`, [like]);
+	await db.raw(
+		`INSERT INTO blocks (farm_id, name, position) SELECT id, 'Tenant block', 1 FROM farms WHERE name LIKE ?`,
+		[like]
+	);
 	await db.raw(
 		`INSERT INTO beds (farm_id, block_id, name, length_ft, position)
 		 SELECT k.farm_id, k.id, CONCAT('Bed ', q.seq), 100, q.seq FROM blocks k JOIN farms f ON f.id = k.farm_id JOIN seq_1_to_40 q WHERE f.name LIKE ?`,
 		[like]
 	);
-	await db.raw(`INSERT INTO seasons (farm_id, year, name, starts_on, ends_on) SELECT id, 2027, 'Tenant 2027 (invented)', '2027-01-01', '2027-12-31' FROM farms WHERE name LIKE ?`, [like]);
+	await db.raw(
+		`INSERT INTO seasons (farm_id, year, name, starts_on, ends_on) SELECT id, 2027, 'Tenant 2027 (invented)', '2027-01-01', '2027-12-31' FROM farms WHERE name LIKE ?`,
+		[like]
+	);
 	await db.raw(
 		`INSERT INTO plantings (farm_id, season_id, variety_id, length_ft, \`rows\`, in_row_spacing_in, method, field_date, first_harvest, last_harvest, expected_yield, seeds_needed)
 		 SELECT s.farm_id, s.id, v.id, 20, 4, 1, 'direct', '2027-04-01' + INTERVAL (q.seq MOD 120) DAY, '2027-07-01', '2027-07-14', 30, 1000
@@ -225,7 +302,9 @@ export async function runApiBench(): Promise<Record<string, number>> {
 		out['api.errors'] = api.reduce((n, l) => n + l.errors + non2xx(l), 0);
 
 		// ---- Writes: each PATCH a different planting, on its current version.
-		const rows = (JSON.parse(body.toString('utf8')).plantings as { id: number; version: number; lengthFt: number }[]).slice(0, PATCH_REQUESTS);
+		const rows = (
+			JSON.parse(body.toString('utf8')).plantings as { id: number; version: number; lengthFt: number }[]
+		).slice(0, PATCH_REQUESTS);
 		let next = 0;
 		const patch = await load({
 			url: base,
@@ -237,7 +316,11 @@ export async function runApiBench(): Promise<Record<string, number>> {
 					method: 'PATCH',
 					setupRequest: (req) => {
 						const p = rows[next++ % rows.length];
-						return { ...req, path: `/api/plantings/${p.id}`, body: JSON.stringify({ version: p.version, lengthFt: p.lengthFt === 25 ? 30 : 25 }) };
+						return {
+							...req,
+							path: `/api/plantings/${p.id}`,
+							body: JSON.stringify({ version: p.version, lengthFt: p.lengthFt === 25 ? 30 : 25 })
+						};
 					}
 				}
 			]
@@ -245,7 +328,8 @@ export async function runApiBench(): Promise<Record<string, number>> {
 		out['api.patch.p95_ms'] = round(p95(patch.times));
 		phase('PATCH load done');
 		out['api.patch.conflicts'] = patch.status.get(409) ?? 0;
-		out['api.patch.errors'] = patch.errors + [...patch.status].filter(([s]) => s !== 200 && s !== 409).reduce((n, [, c]) => n + c, 0);
+		out['api.patch.errors'] =
+			patch.errors + [...patch.status].filter(([s]) => s !== 200 && s !== 409).reduce((n, [, c]) => n + c, 0);
 
 		// ---- The grid page on a rural link.
 		Object.assign(out, await gridOverTheWire(base, big));
@@ -260,7 +344,11 @@ export async function runApiBench(): Promise<Record<string, number>> {
 }
 
 async function gridOverTheWire(base: string, farm: BenchFarm): Promise<Record<string, number>> {
-	const browser = await chromium.launch({ executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium', headless: true, args: chromiumFlags });
+	const browser = await chromium.launch({
+		executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium',
+		headless: true,
+		args: chromiumFlags
+	});
 	try {
 		const context = await browser.newContext({ baseURL: base, viewport: { width: 1600, height: 1000 } });
 		const [name, value] = farm.cookie.split(';')[0].split('=');
@@ -289,7 +377,12 @@ async function gridOverTheWire(base: string, farm: BenchFarm): Promise<Record<st
 		await page.waitForLoadState('networkidle');
 		const transferKb = round(bytes / 1024, 1);
 
-		await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 100, downloadThroughput: (4_000_000 / 8), uploadThroughput: (1_000_000 / 8) });
+		await cdp.send('Network.emulateNetworkConditions', {
+			offline: false,
+			latency: 100,
+			downloadThroughput: 4_000_000 / 8,
+			uploadThroughput: 1_000_000 / 8
+		});
 		const cold = await paint();
 		await cdp.send('Network.setCacheDisabled', { cacheDisabled: false });
 		await paint(); // fills the cache with the page's scripts, styles and fonts

@@ -8,10 +8,27 @@
  *   npx tsx scripts/bench-engine.ts
  */
 import { pathToFileURL } from 'node:url';
-import { type Bed, type Farm, type SeasonPlanInput, type SeasonVariety, addWeeks, planSeason, weeksBetween } from '../src/lib/planning/index';
+import {
+	type Bed,
+	type Farm,
+	type SeasonPlanInput,
+	type SeasonVariety,
+	addWeeks,
+	planSeason,
+	weeksBetween
+} from '../src/lib/planning/index';
 import { median, prng } from './bench-stats';
 
-const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Alliaceae', 'Fabaceae', 'Solanaceae', 'Cucurbitaceae'];
+const FAMILIES = [
+	'Apiaceae',
+	'Amaranthaceae',
+	'Brassicaceae',
+	'Asteraceae',
+	'Alliaceae',
+	'Fabaceae',
+	'Solanaceae',
+	'Cucurbitaceae'
+];
 
 type Season = SeasonPlanInput;
 
@@ -53,7 +70,11 @@ export function makeSeason(varietyCount: number, bedCount: number, seed = 42): S
 			seedPriceCentsPerGram: int(5, 80)
 		};
 		const first = addWeeks('2026-W18', int(0, 4));
-		const targets = Array.from({ length: 30 }, (_, k) => ({ crop: variety.cropId, week: addWeeks(first, k), quantity: int(5, 30) }));
+		const targets = Array.from({ length: 30 }, (_, k) => ({
+			crop: variety.cropId,
+			week: addWeeks(first, k),
+			quantity: int(5, 30)
+		}));
 		return { variety, targets };
 	});
 	const beds: Bed[] = Array.from({ length: bedCount }, (_, i) => ({ id: `bed${i}`, lengthFt: 100 }));
@@ -115,7 +136,10 @@ export async function runEngineBench(): Promise<Record<string, number>> {
 const isMain = process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href;
 if (isMain) {
 	if (process.env.BENCH_ENGINE_VERBOSE) {
-		for (const [v, b] of [[60, 200], [600, 2000]]) {
+		for (const [v, b] of [
+			[60, 200],
+			[600, 2000]
+		]) {
 			const s = planOnce(makeSeason(v, b));
 			console.error(`# ${v} varieties, ${b} beds: ${s.placed} placed pieces, ${s.unplaced} unplaced`);
 		}

@@ -41,24 +41,72 @@ interface BenchFarm {
 	plantings: BenchPlanting[];
 }
 
-const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Solanaceae', 'Cucurbitaceae', 'Fabaceae', 'Amaryllidaceae'];
+const FAMILIES = [
+	'Apiaceae',
+	'Amaranthaceae',
+	'Brassicaceae',
+	'Asteraceae',
+	'Solanaceae',
+	'Cucurbitaceae',
+	'Fabaceae',
+	'Amaryllidaceae'
+];
 const UNITS = ['lb', 'bunch', 'head', 'each'];
 
 export async function createBenchFarm(): Promise<BenchFarm> {
 	const email = uniqueEmail('bench-forecast');
 	const client = new Client();
-	const res = await client.postForm('/signup', { name: 'Bench Planner (invented)', email, password: PASSWORD, farmName: 'Bench Farm (invented, removed after the bench)', latitude: '42', lastSpringFrost: `${YEAR}-05-10`, firstFallFrost: `${YEAR}-10-05` });
+	const res = await client.postForm('/signup', {
+		name: 'Bench Planner (invented)',
+		email,
+		password: PASSWORD,
+		farmName: 'Bench Farm (invented, removed after the bench)',
+		latitude: '42',
+		lastSpringFrost: `${YEAR}-05-10`,
+		firstFallFrost: `${YEAR}-10-05`
+	});
 	if (res.status !== 303) throw new Error(`bench signup answered ${res.status}`);
 	const db = testDb();
 	const user = await db('users').where({ email }).first('id');
 	const farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
 	const rnd = prng(7);
-	await db('crops').insert(Array.from({ length: CROPS }, (_, i) => ({ farm_id: farmId, name: `Bench crop ${i + 1}`, family: FAMILIES[i % FAMILIES.length], harvest_unit: UNITS[i % UNITS.length], frost_tolerance: 'hardy', base_temp_f: 40 })));
+	await db('crops').insert(
+		Array.from({ length: CROPS }, (_, i) => ({
+			farm_id: farmId,
+			name: `Bench crop ${i + 1}`,
+			family: FAMILIES[i % FAMILIES.length],
+			harvest_unit: UNITS[i % UNITS.length],
+			frost_tolerance: 'hardy',
+			base_temp_f: 40
+		}))
+	);
 	const cropIds: number[] = (await db('crops').where({ farm_id: farmId }).orderBy('id').select('id')).map((c) => c.id);
 	const yields = cropIds.map(() => 1 + rnd() * 2);
-	await db('varieties').insert(cropIds.map((id, i) => ({ farm_id: farmId, crop_id: id, name: 'Bench variety', method: 'direct', days_to_maturity: 50, harvest_window_days: 21, yield_per_bed_foot: Math.round(yields[i] * 1000) / 1000, rows_per_bed: 2, in_row_spacing_in: 4, germination_rate: 0.8, seeds_per_gram: 500 })));
-	const varietyIds: number[] = (await db('varieties').where({ farm_id: farmId }).orderBy('crop_id').select('id')).map((v) => v.id);
-	const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: YEAR, name: `${YEAR} bench season`, starts_on: `${YEAR}-01-01`, ends_on: `${YEAR}-12-31` });
+	await db('varieties').insert(
+		cropIds.map((id, i) => ({
+			farm_id: farmId,
+			crop_id: id,
+			name: 'Bench variety',
+			method: 'direct',
+			days_to_maturity: 50,
+			harvest_window_days: 21,
+			yield_per_bed_foot: Math.round(yields[i] * 1000) / 1000,
+			rows_per_bed: 2,
+			in_row_spacing_in: 4,
+			germination_rate: 0.8,
+			seeds_per_gram: 500
+		}))
+	);
+	const varietyIds: number[] = (await db('varieties').where({ farm_id: farmId }).orderBy('crop_id').select('id')).map(
+		(v) => v.id
+	);
+	const [seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: YEAR,
+		name: `${YEAR} bench season`,
+		starts_on: `${YEAR}-01-01`,
+		ends_on: `${YEAR}-12-31`
+	});
 
 	const monday0 = weekStart(FROM);
 	const span = 40 * 7;
@@ -71,16 +119,60 @@ export async function createBenchFarm(): Promise<BenchFarm> {
 		const lengthFt = 10 + Math.floor(rnd() * 19) * 5;
 		const yieldPerFoot = Math.round(yields[c] * 1000) / 1000;
 		plantings.push({ crop: c, first, last, perDay: (lengthFt * yieldPerFoot) / (last - first + 1) });
-		rows.push({ farm_id: farmId, season_id: seasonId, variety_id: varietyIds[c], start_ft: 0, length_ft: lengthFt, rows: 2, in_row_spacing_in: 4, method: 'direct', field_date: addDays(monday0, first - 50), first_harvest: addDays(monday0, first), last_harvest: addDays(monday0, last), status: 'planned' });
+		rows.push({
+			farm_id: farmId,
+			season_id: seasonId,
+			variety_id: varietyIds[c],
+			start_ft: 0,
+			length_ft: lengthFt,
+			rows: 2,
+			in_row_spacing_in: 4,
+			method: 'direct',
+			field_date: addDays(monday0, first - 50),
+			first_harvest: addDays(monday0, first),
+			last_harvest: addDays(monday0, last),
+			status: 'planned'
+		});
 	}
 	for (let i = 0; i < rows.length; i += 500) await db('plantings').insert(rows.slice(i, i + 500));
 
 	const weeks = weeksBetween(FROM, TO);
-	const shares = [await db('share_sizes').insert({ farm_id: farmId, season_id: seasonId, name: 'Bench full', members: 80, first_week: FROM, last_week: TO }), await db('share_sizes').insert({ farm_id: farmId, season_id: seasonId, name: 'Bench half', members: 50, first_week: FROM, last_week: TO })].map((r) => r[0]);
+	const shares = [
+		await db('share_sizes').insert({
+			farm_id: farmId,
+			season_id: seasonId,
+			name: 'Bench full',
+			members: 80,
+			first_week: FROM,
+			last_week: TO
+		}),
+		await db('share_sizes').insert({
+			farm_id: farmId,
+			season_id: seasonId,
+			name: 'Bench half',
+			members: 50,
+			first_week: FROM,
+			last_week: TO
+		})
+	].map((r) => r[0]);
 	const items = [];
-	for (const [s, share] of shares.entries()) for (const [w, week] of weeks.entries()) for (let k = 0; k < 8; k++) { const c = (w * 7 + k * 5 + s) % CROPS; items.push({ share_size_id: share, week, crop_id: cropIds[c], quantity: 1, unit: UNITS[c % UNITS.length] }); }
+	for (const [s, share] of shares.entries())
+		for (const [w, week] of weeks.entries())
+			for (let k = 0; k < 8; k++) {
+				const c = (w * 7 + k * 5 + s) % CROPS;
+				items.push({ share_size_id: share, week, crop_id: cropIds[c], quantity: 1, unit: UNITS[c % UNITS.length] });
+			}
 	for (let i = 0; i < items.length; i += 500) await db('box_items').insert(items.slice(i, i + 500));
-	const channel = weeks.flatMap((week) => cropIds.map((id) => ({ farm_id: farmId, season_id: seasonId, channel: 'market', crop_id: id, week, quantity: 5 + Math.floor(rnd() * 20) })));
+	const channel = weeks.flatMap((week) =>
+		cropIds.map((id) => ({
+			farm_id: farmId,
+			season_id: seasonId,
+			channel: 'market',
+			crop_id: id,
+			week,
+			quantity: 5 + Math.floor(rnd() * 20)
+		}))
+	);
 	for (let i = 0; i < channel.length; i += 500) await db('channel_demand').insert(channel.slice(i, i + 500));
 	return { email, userId: user.id, farmId, seasonId, plantings };
 }
@@ -117,10 +209,15 @@ async function timeServer(b: BenchFarm, runs: number, shape: 'series' | 'rows' =
 		const r = await client.get(url);
 		const body = await r.json();
 		const t = performance.now() - t0;
-		const per = shape === 'series' ? body.series?.length : new Set(body.rows?.map((x: { crop: string }) => x.crop)).size;
-		if (r.status !== 200 || body.crops.length !== CROPS || per !== CROPS) throw new Error(`bench forecast answered ${r.status} with ${body.crops?.length} crops, ${per} with figures`);
+		const per =
+			shape === 'series' ? body.series?.length : new Set(body.rows?.map((x: { crop: string }) => x.crop)).size;
+		if (r.status !== 200 || body.crops.length !== CROPS || per !== CROPS)
+			throw new Error(`bench forecast answered ${r.status} with ${body.crops?.length} crops, ${per} with figures`);
 		if (i >= 2) times.push(t);
-		if (process.env.BENCH_FORECAST_VERBOSE) console.error(`# ${shape}: ${t.toFixed(1)} ms, ${(JSON.stringify(body).length / 1024).toFixed(0)} KiB, server-timing: ${r.headers.get('server-timing')}`);
+		if (process.env.BENCH_FORECAST_VERBOSE)
+			console.error(
+				`# ${shape}: ${t.toFixed(1)} ms, ${(JSON.stringify(body).length / 1024).toFixed(0)} KiB, server-timing: ${r.headers.get('server-timing')}`
+			);
 	}
 	return median(times);
 }
@@ -135,10 +232,18 @@ async function timeChart(b: BenchFarm, runs: number): Promise<number> {
 		for (let i = 0; i < runs + 1; i++) {
 			if (i > 0) await page.evaluate(() => window.dispatchEvent(new Event('furrowcast:plan-changed')));
 			// Wait for this run's response and its render figure.
-			await page.waitForFunction((n) => {
-				const el = document.querySelector('[data-testid="forecast-page"]');
-				return Number(el?.getAttribute('data-fetches')) > n && el?.getAttribute('data-render-ms') !== null && el?.querySelectorAll('[data-testid="forecast-layer"]').length === 60;
-			}, i, { timeout: 60_000 });
+			await page.waitForFunction(
+				(n) => {
+					const el = document.querySelector('[data-testid="forecast-page"]');
+					return (
+						Number(el?.getAttribute('data-fetches')) > n &&
+						el?.getAttribute('data-render-ms') !== null &&
+						el?.querySelectorAll('[data-testid="forecast-layer"]').length === 60
+					);
+				},
+				i,
+				{ timeout: 60_000 }
+			);
 			await page.waitForTimeout(50);
 			const ms = Number(await page.getByTestId('forecast-page').getAttribute('data-render-ms'));
 			if (i > 0) times.push(ms);
@@ -154,7 +259,8 @@ export async function runForecastBench(): Promise<Record<string, number>> {
 	const bench = await createBenchFarm();
 	try {
 		const serverMs = await timeServer(bench, 11);
-		if (process.env.BENCH_FORECAST_VERBOSE) console.error(`# rows shape, median: ${(await timeServer(bench, 11, 'rows')).toFixed(1)} ms`);
+		if (process.env.BENCH_FORECAST_VERBOSE)
+			console.error(`# rows shape, median: ${(await timeServer(bench, 11, 'rows')).toFixed(1)} ms`);
 		const chartMs = await timeChart(bench, 7);
 		for (let i = 0; i < 5; i++) plainSums(bench.plantings);
 		const floor: number[] = [];

@@ -32,26 +32,91 @@ export async function runGridBench(): Promise<Record<string, number>> {
 	const email = `bench-grid-${Date.now().toString(36)}@bench.furrowcast.test`;
 	const password = 'bench-grid-password';
 	let farmId: number | undefined;
-	const browser = await chromium.launch({ executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium', headless: true, args: chromiumFlags });
+	const browser = await chromium.launch({
+		executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium',
+		headless: true,
+		args: chromiumFlags
+	});
 	try {
 		// The bench farm signs up like anyone; its ground and plan are written straight in.
-		const form = new URLSearchParams({ name: 'Bench Grower (invented)', email, password, farmName: 'Bench Farm (invented)', latitude: '42', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05' });
-		const signup = await fetch(`${base}/signup`, { method: 'POST', body: form, headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }, redirect: 'manual' });
+		const form = new URLSearchParams({
+			name: 'Bench Grower (invented)',
+			email,
+			password,
+			farmName: 'Bench Farm (invented)',
+			latitude: '42',
+			lastSpringFrost: '2027-05-10',
+			firstFallFrost: '2027-10-05'
+		});
+		const signup = await fetch(`${base}/signup`, {
+			method: 'POST',
+			body: form,
+			headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
+			redirect: 'manual'
+		});
 		if (signup.status !== 303) throw new Error(`bench sign-up answered ${signup.status}`);
 		const user = await db('users').where({ email }).first('id');
 		farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
 		const [blockId] = await db('blocks').insert({ farm_id: farmId, name: 'Bench block', position: 1 });
 		const bedIds: number[] = [];
-		for (let i = 0; i < 100; i++) bedIds.push((await db('beds').insert({ farm_id: farmId, block_id: blockId, name: `Bench ${i + 1}`, length_ft: 100, position: i }))[0]);
-		const [cropId] = await db('crops').insert({ farm_id: farmId, name: 'Bench carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy' });
-		const [varietyId] = await db('varieties').insert({ farm_id: farmId, crop_id: cropId, name: 'Bench Orange', method: 'direct', days_to_maturity: 70, harvest_window_days: 14, yield_per_bed_foot: 1.5, rows_per_bed: 4, in_row_spacing_in: 1, seeds_per_spot: 1, germination_rate: 0.65, seeds_per_gram: 776 });
-		const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: 'Bench 2027 (invented)', starts_on: '2027-01-01', ends_on: '2027-12-31' });
+		for (let i = 0; i < 100; i++)
+			bedIds.push(
+				(
+					await db('beds').insert({
+						farm_id: farmId,
+						block_id: blockId,
+						name: `Bench ${i + 1}`,
+						length_ft: 100,
+						position: i
+					})
+				)[0]
+			);
+		const [cropId] = await db('crops').insert({
+			farm_id: farmId,
+			name: 'Bench carrot',
+			family: 'Apiaceae',
+			harvest_unit: 'lb',
+			frost_tolerance: 'hardy'
+		});
+		const [varietyId] = await db('varieties').insert({
+			farm_id: farmId,
+			crop_id: cropId,
+			name: 'Bench Orange',
+			method: 'direct',
+			days_to_maturity: 70,
+			harvest_window_days: 14,
+			yield_per_bed_foot: 1.5,
+			rows_per_bed: 4,
+			in_row_spacing_in: 1,
+			seeds_per_spot: 1,
+			germination_rate: 0.65,
+			seeds_per_gram: 776
+		});
+		const [seasonId] = await db('seasons').insert({
+			farm_id: farmId,
+			year: 2027,
+			name: 'Bench 2027 (invented)',
+			starts_on: '2027-01-01',
+			ends_on: '2027-12-31'
+		});
 		const rows = Array.from({ length: ROWS }, (_, i) => {
 			const day = 1 + (i % 28);
 			return {
-				farm_id: farmId, season_id: seasonId, variety_id: varietyId, bed_id: bedIds[i % 100], start_ft: (Math.floor(i / 100) % 5) * 20, length_ft: 20, rows: 4,
-				in_row_spacing_in: 1, seeds_per_spot: 1, method: 'direct', field_date: `2027-0${4 + (Math.floor(i / 500) % 5)}-${String(day).padStart(2, '0')}`,
-				first_harvest: '2027-07-01', last_harvest: '2027-07-14', expected_yield: 30, seeds_needed: 1000
+				farm_id: farmId,
+				season_id: seasonId,
+				variety_id: varietyId,
+				bed_id: bedIds[i % 100],
+				start_ft: (Math.floor(i / 100) % 5) * 20,
+				length_ft: 20,
+				rows: 4,
+				in_row_spacing_in: 1,
+				seeds_per_spot: 1,
+				method: 'direct',
+				field_date: `2027-0${4 + (Math.floor(i / 500) % 5)}-${String(day).padStart(2, '0')}`,
+				first_harvest: '2027-07-01',
+				last_harvest: '2027-07-14',
+				expected_yield: 30,
+				seeds_needed: 1000
 			};
 		});
 		for (let i = 0; i < rows.length; i += 500) await db('plantings').insert(rows.slice(i, i + 500));
@@ -61,14 +126,25 @@ export async function runGridBench(): Promise<Record<string, number>> {
 		await page.goto('/signin');
 		await page.getByLabel('E-mail').fill(email);
 		await page.getByLabel('Password').fill(password);
-		await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/signin')), page.getByRole('button', { name: 'Sign in' }).click()]);
+		await Promise.all([
+			page.waitForURL((u) => !u.pathname.startsWith('/signin')),
+			page.getByRole('button', { name: 'Sign in' }).click()
+		]);
 
 		const json = await (await page.request.get(`/api/seasons/${seasonId}/plantings`)).json();
-		const esc = (s: unknown): string => String(s ?? '').replace(/[&<>]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;' })[c]!);
-		const plain = `<!doctype html><html><body><table><thead><tr><th>Crop</th><th>Variety</th><th>Bed</th><th>Start</th><th>Bed-feet</th><th>Rows</th><th>Spacing</th><th>Field date</th><th>First harvest</th><th>Last harvest</th><th>Yield</th><th>Seeds</th><th>Status</th></tr></thead><tbody>${(json.plantings as Record<string, unknown>[])
-			.map((p, i) => `<tr data-plain="${i}"><td>${esc(p.crop)}</td><td>${esc(p.variety)}</td><td>${esc(p.bed)}</td><td>${p.startFt} ft</td><td>${p.lengthFt} ft</td><td>${p.rows}</td><td>${p.inRowSpacingIn} in</td><td>${p.fieldDate}</td><td>${p.firstHarvest}</td><td>${p.lastHarvest}</td><td>${p.expectedYield} lb</td><td>${p.seedsNeeded} seeds</td><td>${p.status}</td></tr>`)
+		const esc = (s: unknown): string =>
+			String(s ?? '').replace(/[&<>]/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;' })[c]!);
+		const plain = `<!doctype html><html><body><table><thead><tr><th>Crop</th><th>Variety</th><th>Bed</th><th>Start</th><th>Bed-feet</th><th>Rows</th><th>Spacing</th><th>Field date</th><th>First harvest</th><th>Last harvest</th><th>Yield</th><th>Seeds</th><th>Status</th></tr></thead><tbody>${(
+			json.plantings as Record<string, unknown>[]
+		)
+			.map(
+				(p, i) =>
+					`<tr data-plain="${i}"><td>${esc(p.crop)}</td><td>${esc(p.variety)}</td><td>${esc(p.bed)}</td><td>${p.startFt} ft</td><td>${p.lengthFt} ft</td><td>${p.rows}</td><td>${p.inRowSpacingIn} in</td><td>${p.fieldDate}</td><td>${p.firstHarvest}</td><td>${p.lastHarvest}</td><td>${p.expectedYield} lb</td><td>${p.seedsNeeded} seeds</td><td>${p.status}</td></tr>`
+			)
 			.join('')}</tbody></table></body></html>`;
-		await page.route('**/__bench-plain-table', (route) => route.fulfill({ status: 200, contentType: 'text/html', body: plain }));
+		await page.route('**/__bench-plain-table', (route) =>
+			route.fulfill({ status: 200, contentType: 'text/html', body: plain })
+		);
 
 		const paint = async (url: string, selector: string): Promise<number> => {
 			await page.goto('about:blank');

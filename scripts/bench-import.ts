@@ -23,11 +23,20 @@ import { createBenchFarm, removeBenchFarm, PASSWORD } from './bench-export';
 const RUNS = 3;
 const median = (xs: number[]): number => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
-async function upload(client: Client, name: string, bytes: Uint8Array, seasonId: number): Promise<{ token: string; changed: number }> {
+async function upload(
+	client: Client,
+	name: string,
+	bytes: Uint8Array,
+	seasonId: number
+): Promise<{ token: string; changed: number }> {
 	const form = new FormData();
 	form.set('file', new Blob([new Uint8Array(bytes)]), name);
 	form.set('seasonId', String(seasonId));
-	const res = await client.request('/api/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'application/json' } });
+	const res = await client.request('/api/import', {
+		method: 'POST',
+		body: form,
+		headers: { origin: baseUrl(), accept: 'application/json' }
+	});
 	const body = await res.json();
 	if (res.status !== 200) throw new Error(`import answered ${res.status}: ${JSON.stringify(body).slice(0, 400)}`);
 	return { token: body.preview.token, changed: body.preview.changed.length };
@@ -76,11 +85,23 @@ export async function runImportBench(): Promise<Record<string, number>> {
 		// The LibreOffice-saved file: one soffice start, its own profile.
 		const dir = mkdtempSync(join(tmpdir(), 'fc-bench-import-'));
 		writeFileSync(join(dir, 'export.xlsx'), await exported(client, farm.seasonId));
-		const jobs = [{ open: join(dir, 'export.xlsx'), ops: [{ deleteRow: { sheet: 'Plantings', row: 5 } }], save: [{ path: join(dir, 'lo.xlsx'), as: 'xlsx' }] }];
+		const jobs = [
+			{
+				open: join(dir, 'export.xlsx'),
+				ops: [{ deleteRow: { sheet: 'Plantings', row: 5 } }],
+				save: [{ path: join(dir, 'lo.xlsx'), as: 'xlsx' }]
+			}
+		];
 		writeFileSync(join(dir, 'jobs.json'), JSON.stringify(jobs));
-		execFileSync('/usr/bin/python3', [resolve('tests/helpers/lo_batch.py'), mkdtempSync(join(tmpdir(), 'fc-lo-profile-')), join(dir, 'jobs.json')], { timeout: 180_000 });
+		execFileSync(
+			'/usr/bin/python3',
+			[resolve('tests/helpers/lo_batch.py'), mkdtempSync(join(tmpdir(), 'fc-lo-profile-')), join(dir, 'jobs.json')],
+			{ timeout: 180_000 }
+		);
 		const lo = readFileSync(join(dir, 'lo.xlsx'));
-		const pid = Number(readFileSync(join(process.env.FC_PID_DIR ?? '.data/run', `app-${process.env.FC_PORT}.pid`), 'utf8').trim());
+		const pid = Number(
+			readFileSync(join(process.env.FC_PID_DIR ?? '.data/run', `app-${process.env.FC_PORT}.pid`), 'utf8').trim()
+		);
 		global.gc?.();
 		await new Promise((r) => setTimeout(r, 1000));
 		const idle = rssMb(pid);

@@ -29,7 +29,11 @@ export async function runPlanScreenBench(): Promise<Record<string, number>> {
 	const base = process.env.FC_BASE_URL;
 	if (!base) throw new Error('FC_BASE_URL is not set: run through scripts/bench.sh');
 	const db = knex(knexConfig(process.env.FC_DB_NAME));
-	const browser = await chromium.launch({ executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium', headless: true, args: chromiumFlags });
+	const browser = await chromium.launch({
+		executablePath: process.env.FC_CHROMIUM ?? '/usr/bin/chromium',
+		headless: true,
+		args: chromiumFlags
+	});
 	try {
 		const owner = await db('users').where({ email: 'owner@demo.furrowcast.test' }).first('id');
 		const farmId = (await db('farm_members').where({ user_id: owner.id }).first('farm_id')).farm_id as number;
@@ -39,7 +43,10 @@ export async function runPlanScreenBench(): Promise<Record<string, number>> {
 		await page.goto('/signin');
 		await page.getByLabel('E-mail').fill('owner@demo.furrowcast.test');
 		await page.getByLabel('Password').fill('demo-harvest-2027');
-		await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/signin')), page.getByRole('button', { name: 'Sign in' }).click()]);
+		await Promise.all([
+			page.waitForURL((u) => !u.pathname.startsWith('/signin')),
+			page.getByRole('button', { name: 'Sign in' }).click()
+		]);
 
 		const previews: number[] = [];
 		const applies: number[] = [];
@@ -54,7 +61,10 @@ export async function runPlanScreenBench(): Promise<Record<string, number>> {
 			const p = Date.now() - t0;
 			t0 = Date.now();
 			await page.getByRole('button', { name: 'Apply', exact: true }).click();
-			await page.getByTestId('plan-message').filter({ hasText: /^Applied: / }).waitFor();
+			await page
+				.getByTestId('plan-message')
+				.filter({ hasText: /^Applied: / })
+				.waitFor();
 			await frame(page);
 			const a = Date.now() - t0;
 			// The first run warms the server and the browser; it is not counted.

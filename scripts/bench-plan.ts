@@ -19,7 +19,9 @@ export async function runPlanBench(): Promise<Record<string, number>> {
 	let plan = 0;
 	let bound = 0;
 	for (const variety of season.varieties) {
-		const targets = season.targets.filter((t) => t.crop === variety.cropId).map((t) => ({ week: t.week, quantity: t.quantity }));
+		const targets = season.targets
+			.filter((t) => t.crop === variety.cropId)
+			.map((t) => ({ week: t.week, quantity: t.quantity }));
 		const { lp, planBedFootDays } = sizingLp({ variety, targets, farm: season.farm, options: season.options });
 		if (!lp) continue;
 		const result = highs.solve(lp);

@@ -14,7 +14,16 @@ import { Client } from '../tests/helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../tests/helpers/db';
 import { launch, signIn } from '../tests/helpers/browser';
 
-const FAMILIES = ['Apiaceae', 'Amaranthaceae', 'Brassicaceae', 'Asteraceae', 'Solanaceae', 'Cucurbitaceae', 'Fabaceae', 'Amaryllidaceae'];
+const FAMILIES = [
+	'Apiaceae',
+	'Amaranthaceae',
+	'Brassicaceae',
+	'Asteraceae',
+	'Solanaceae',
+	'Cucurbitaceae',
+	'Fabaceae',
+	'Amaryllidaceae'
+];
 const BLOCKS = 4;
 const BEDS_PER_BLOCK = 50;
 const STRIPS = 5;
@@ -32,16 +41,32 @@ function slotDates(k: number): { field: string; last: string } {
 }
 
 function benchLayout(): number {
-	const beds = Array.from({ length: BLOCKS * BEDS_PER_BLOCK }, (_, i) => ({ id: i + 1, blockId: Math.floor(i / BEDS_PER_BLOCK) + 1, name: `B${i + 1}`, lengthFt: 100 }));
+	const beds = Array.from({ length: BLOCKS * BEDS_PER_BLOCK }, (_, i) => ({
+		id: i + 1,
+		blockId: Math.floor(i / BEDS_PER_BLOCK) + 1,
+		name: `B${i + 1}`,
+		lengthFt: 100
+	}));
 	const plantings: TimelinePlanting[] = [];
 	for (const bed of beds)
 		for (let s = 0; s < STRIPS; s++)
 			for (let k = 0; k < SLOTS; k++) {
 				const { field, last } = slotDates(k);
 				plantings.push({
-					id: plantings.length + 1, seasonId: 1, crop: 'Bench crop', variety: 'Bench', family: FAMILIES[plantings.length % FAMILIES.length],
-					bedId: bed.id, startFt: s * 20, lengthFt: 20, method: 'transplant', traySowDate: addDays(field, -28), fieldDate: field,
-					firstHarvest: addDays(field, 26), lastHarvest: last, status: 'planned'
+					id: plantings.length + 1,
+					seasonId: 1,
+					crop: 'Bench crop',
+					variety: 'Bench',
+					family: FAMILIES[plantings.length % FAMILIES.length],
+					bedId: bed.id,
+					startFt: s * 20,
+					lengthFt: 20,
+					method: 'transplant',
+					traySowDate: addDays(field, -28),
+					fieldDate: field,
+					firstHarvest: addDays(field, 26),
+					lastHarvest: last,
+					status: 'planned'
 				});
 			}
 	const blocks = Array.from({ length: BLOCKS }, (_, i) => ({ id: i + 1, name: `Block ${i + 1}`, position: i + 1 }));
@@ -57,27 +82,80 @@ function benchLayout(): number {
 async function makeBenchFarm(): Promise<{ email: string; password: string; farmId: number; seasonId: number }> {
 	const email = uniqueEmail('bench-timeline');
 	const password = 'bench-timeline-pass';
-	const res = await new Client().postForm('/signup', { name: 'Bench', email, password, farmName: 'Bench Rows (invented)', latitude: '42', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05' });
+	const res = await new Client().postForm('/signup', {
+		name: 'Bench',
+		email,
+		password,
+		farmName: 'Bench Rows (invented)',
+		latitude: '42',
+		lastSpringFrost: '2027-05-10',
+		firstFallFrost: '2027-10-05'
+	});
 	if (res.status !== 303) throw new Error(`bench signup answered ${res.status}`);
 	const db = testDb();
 	const user = await db('users').where({ email }).first('id');
 	const farmId: number = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id;
-	const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: '2027 bench season', starts_on: '2027-01-01', ends_on: '2027-12-31' });
+	const [seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2027,
+		name: '2027 bench season',
+		starts_on: '2027-01-01',
+		ends_on: '2027-12-31'
+	});
 	const varietyIds: number[] = [];
 	for (const family of FAMILIES) {
-		const [cropId] = await db('crops').insert({ farm_id: farmId, name: `Bench ${family}`, family, harvest_unit: 'lb', frost_tolerance: 'hardy' });
-		const [v] = await db('varieties').insert({ farm_id: farmId, crop_id: cropId, name: 'Bench', method: 'transplant', days_to_maturity: 26, days_in_tray: 28, harvest_window_days: 14, yield_per_bed_foot: 1, rows_per_bed: 3, in_row_spacing_in: 12, germination_rate: 0.9, seeds_per_gram: 300 });
+		const [cropId] = await db('crops').insert({
+			farm_id: farmId,
+			name: `Bench ${family}`,
+			family,
+			harvest_unit: 'lb',
+			frost_tolerance: 'hardy'
+		});
+		const [v] = await db('varieties').insert({
+			farm_id: farmId,
+			crop_id: cropId,
+			name: 'Bench',
+			method: 'transplant',
+			days_to_maturity: 26,
+			days_in_tray: 28,
+			harvest_window_days: 14,
+			yield_per_bed_foot: 1,
+			rows_per_bed: 3,
+			in_row_spacing_in: 12,
+			germination_rate: 0.9,
+			seeds_per_gram: 300
+		});
 		varietyIds.push(v);
 	}
 	const rows = [];
 	for (let b = 0; b < BLOCKS; b++) {
 		const [blockId] = await db('blocks').insert({ farm_id: farmId, name: `Bench block ${b + 1}`, position: b + 1 });
 		for (let i = 0; i < BEDS_PER_BLOCK; i++) {
-			const [bedId] = await db('beds').insert({ farm_id: farmId, block_id: blockId, name: `BB${b + 1}-${i + 1}`, length_ft: 100, position: i + 1 });
+			const [bedId] = await db('beds').insert({
+				farm_id: farmId,
+				block_id: blockId,
+				name: `BB${b + 1}-${i + 1}`,
+				length_ft: 100,
+				position: i + 1
+			});
 			for (let s = 0; s < STRIPS; s++)
 				for (let k = 0; k < SLOTS; k++) {
 					const { field, last } = slotDates(k);
-					rows.push({ farm_id: farmId, season_id: seasonId, variety_id: varietyIds[rows.length % varietyIds.length], bed_id: bedId, start_ft: s * 20, length_ft: 20, rows: 3, in_row_spacing_in: 12, method: 'transplant', tray_sow_date: addDays(field, -28), field_date: field, first_harvest: addDays(field, 26), last_harvest: last });
+					rows.push({
+						farm_id: farmId,
+						season_id: seasonId,
+						variety_id: varietyIds[rows.length % varietyIds.length],
+						bed_id: bedId,
+						start_ft: s * 20,
+						length_ft: 20,
+						rows: 3,
+						in_row_spacing_in: 12,
+						method: 'transplant',
+						tray_sow_date: addDays(field, -28),
+						field_date: field,
+						first_harvest: addDays(field, 26),
+						last_harvest: last
+					});
 				}
 		}
 	}
@@ -107,7 +185,11 @@ export async function runTimelineBench(): Promise<Record<string, number>> {
 		for (let run = 0; run < 4; run++) {
 			const t0 = performance.now();
 			await page.goto(`/seasons/${farm.seasonId}/beds`);
-			await page.waitForFunction((n) => document.querySelectorAll('[data-testid="bed-bar"]').length >= n, BLOCKS * BEDS_PER_BLOCK * STRIPS * SLOTS, { timeout: 60_000 });
+			await page.waitForFunction(
+				(n) => document.querySelectorAll('[data-testid="bed-bar"]').length >= n,
+				BLOCKS * BEDS_PER_BLOCK * STRIPS * SLOTS,
+				{ timeout: 60_000 }
+			);
 			if (run > 0) pageTimes.push(performance.now() - t0); // first run warms the server
 		}
 		out['timeline.page_5000_ms'] = median(pageTimes);

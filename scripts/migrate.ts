@@ -8,7 +8,11 @@ try {
 	if (command === 'rollback-all' || command === 'fresh') await conn.migrate.rollback(undefined, true);
 	if (command === 'latest' || command === 'fresh') {
 		const [batch, names] = await conn.migrate.latest();
-		console.log(names.length ? `[migrate] ${database}: batch ${batch}, ${names.length} migration(s)` : `[migrate] ${database}: up to date`);
+		console.log(
+			names.length
+				? `[migrate] ${database}: batch ${batch}, ${names.length} migration(s)`
+				: `[migrate] ${database}: up to date`
+		);
 	}
 } catch (error) {
 	console.error(`[migrate] ${database}: ${(error as Error).message}`);

@@ -37,7 +37,8 @@ const baseHeaders = {
 
 // Dynamic text worth compressing. Event streams would stall in a compressor's buffer, and
 // spreadsheets, images and fonts are compressed already.
-const compressible = /^(text\/(html|plain|csv|calendar|css|javascript)|application\/(json|javascript|xml)|image\/svg\+xml)\b/i;
+const compressible =
+	/^(text\/(html|plain|csv|calendar|css|javascript)|application\/(json|javascript|xml)|image\/svg\+xml)\b/i;
 const compress = compression({
 	threshold: 1024,
 	filter: (req, res) => {

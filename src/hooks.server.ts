@@ -29,7 +29,8 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('Referrer-Policy', 'same-origin');
 	response.headers.set('X-Frame-Options', 'DENY');
-	if (!response.headers.has('Content-Security-Policy')) response.headers.set('Content-Security-Policy', "default-src 'none'; frame-ancestors 'none'");
+	if (!response.headers.has('Content-Security-Policy'))
+		response.headers.set('Content-Security-Policy', "default-src 'none'; frame-ancestors 'none'");
 	if (!response.headers.has('Cache-Control')) response.headers.set('Cache-Control', 'no-store');
 	return response;
 };

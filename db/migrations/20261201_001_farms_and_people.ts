@@ -74,7 +74,16 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-	for (const table of ['rate_limits', 'password_resets', 'invites', 'user_sessions', 'farm_members', 'users', 'farm_weekly_temps', 'farms']) {
+	for (const table of [
+		'rate_limits',
+		'password_resets',
+		'invites',
+		'user_sessions',
+		'farm_members',
+		'users',
+		'farm_weekly_temps',
+		'farms'
+	]) {
 		await knex.schema.dropTableIfExists(table);
 	}
 }

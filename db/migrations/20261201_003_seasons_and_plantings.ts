@@ -31,7 +31,9 @@ export async function up(knex: Knex): Promise<void> {
 		t.date('last_harvest').notNullable();
 		t.decimal('expected_yield', 11, 2).notNullable().defaultTo(0);
 		t.integer('seeds_needed').unsigned().notNullable().defaultTo(0);
-		t.enum('status', ['planned', 'sown', 'transplanted', 'harvesting', 'finished', 'failed']).notNullable().defaultTo('planned');
+		t.enum('status', ['planned', 'sown', 'transplanted', 'harvesting', 'finished', 'failed'])
+			.notNullable()
+			.defaultTo('planned');
 		t.date('actual_tray_sow_date').nullable();
 		t.date('actual_field_date').nullable();
 		t.date('actual_first_harvest').nullable();

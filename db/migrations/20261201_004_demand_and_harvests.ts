@@ -51,5 +51,6 @@ export async function up(knex: Knex): Promise<void> {
 }
 
 export async function down(knex: Knex): Promise<void> {
-	for (const table of ['harvest_records', 'channel_demand', 'box_items', 'share_sizes']) await knex.schema.dropTableIfExists(table);
+	for (const table of ['harvest_records', 'channel_demand', 'box_items', 'share_sizes'])
+		await knex.schema.dropTableIfExists(table);
 }

@@ -40,7 +40,13 @@ const keys: PairKey[] = [
 	{ table: 'box_swaps', column: 'to_crop_id', parent: 'crops', onDelete: 'CASCADE' },
 	{ table: 'variety_figure_changes', column: 'variety_id', parent: 'varieties', onDelete: 'CASCADE' },
 	// A calendar feed belongs to a member of the farm: it goes when the membership goes.
-	{ table: 'calendar_feeds', column: 'user_id', parent: 'farm_members', onDelete: 'CASCADE', parentColumns: ['farm_id', 'user_id'] }
+	{
+		table: 'calendar_feeds',
+		column: 'user_id',
+		parent: 'farm_members',
+		onDelete: 'CASCADE',
+		parentColumns: ['farm_id', 'user_id']
+	}
 ];
 
 const fkName = (k: PairKey) => `${k.table}_${k.column}_farm_fk`;
@@ -48,7 +54,20 @@ const indexName = (k: PairKey) => `${k.table}_farm_${k.column}_idx`;
 const uniqueName = (table: string) => `${table}_farm_id_unique`;
 
 // Parents before children, so each key finds its parent's (farm_id, id) already there.
-const order = ['blocks', 'crops', 'seasons', 'beds', 'varieties', 'plantings', 'share_sizes', 'channel_demand', 'harvest_records', 'box_swaps', 'variety_figure_changes', 'calendar_feeds'];
+const order = [
+	'blocks',
+	'crops',
+	'seasons',
+	'beds',
+	'varieties',
+	'plantings',
+	'share_sizes',
+	'channel_demand',
+	'harvest_records',
+	'box_swaps',
+	'variety_figure_changes',
+	'calendar_feeds'
+];
 
 export async function up(knex: Knex): Promise<void> {
 	await knex.schema.alterTable('plantings', (t) => t.dropForeign(['bed_id']));
@@ -62,7 +81,9 @@ export async function up(knex: Knex): Promise<void> {
 		}
 		for (const k of keys.filter((x) => x.table === table)) {
 			const [pa, pb] = k.parentColumns ?? ['farm_id', 'id'];
-			clauses.push(`ADD INDEX ?? (\`farm_id\`, ??), ADD CONSTRAINT ?? FOREIGN KEY (\`farm_id\`, ??) REFERENCES ?? (??, ??) ON DELETE ${k.onDelete}`);
+			clauses.push(
+				`ADD INDEX ?? (\`farm_id\`, ??), ADD CONSTRAINT ?? FOREIGN KEY (\`farm_id\`, ??) REFERENCES ?? (??, ??) ON DELETE ${k.onDelete}`
+			);
 			bindings.push(indexName(k), k.column, fkName(k), k.column, k.parent, pa, pb);
 		}
 		if (clauses.length) await knex.raw(`ALTER TABLE ?? ${clauses.join(', ')}`, [table, ...bindings]);
@@ -78,7 +99,8 @@ async function dropIndexKeepingFarmKey(knex: Knex, table: string, index: string)
 		'SELECT COUNT(DISTINCT index_name) AS n FROM information_schema.statistics WHERE table_schema = DATABASE() AND table_name = ? AND column_name = ? AND seq_in_index = 1 AND index_name <> ?',
 		[table, 'farm_id', index]
 	);
-	if (Number((rows as { n: number }[])[0].n) === 0) await knex.schema.alterTable(table, (t) => t.index(['farm_id'], `${table}_farm_id_foreign`));
+	if (Number((rows as { n: number }[])[0].n) === 0)
+		await knex.schema.alterTable(table, (t) => t.index(['farm_id'], `${table}_farm_id_foreign`));
 	await knex.raw('ALTER TABLE ?? DROP INDEX ??', [table, index]);
 }
 

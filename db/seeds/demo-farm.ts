@@ -134,26 +134,206 @@ export interface DemoCrop {
 // mix, spinach, arugula and dill regrow and are cut again two weeks later; kale, chard and basil
 // are picked about evenly every week of their window.
 export const DEMO_CROPS: readonly DemoCrop[] = [
-	{ name: 'Carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Beet', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Radish', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Head lettuce', family: 'Asteraceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: 80, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Salad mix', family: 'Asteraceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
-	{ name: 'Spinach', family: 'Amaranthaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
-	{ name: 'Arugula', family: 'Brassicaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: 72, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
-	{ name: 'Kale', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'flat', harvest_cut_interval_days: null },
-	{ name: 'Chard', family: 'Amaranthaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'flat', harvest_cut_interval_days: null },
-	{ name: 'Cilantro', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: 75, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Dill', family: 'Apiaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'cuts', harvest_cut_interval_days: 14 },
-	{ name: 'Basil', family: 'Lamiaceae', harvest_unit: 'bunch', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'flat', harvest_cut_interval_days: null },
-	{ name: 'Scallion', family: 'Amaryllidaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Onion', family: 'Amaryllidaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Garlic', family: 'Amaryllidaceae', harvest_unit: 'head', frost_tolerance: 'hardy', heat_limit_f: null, base_temp_f: 40, harvest_curve: 'single', harvest_cut_interval_days: null },
-	{ name: 'Tomato', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
-	{ name: 'Pepper', family: 'Solanaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
-	{ name: 'Cucumber', family: 'Cucurbitaceae', harvest_unit: 'each', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
-	{ name: 'Summer squash', family: 'Cucurbitaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null },
-	{ name: 'Bush bean', family: 'Fabaceae', harvest_unit: 'lb', frost_tolerance: 'tender', heat_limit_f: null, base_temp_f: 50, harvest_curve: 'ramp', harvest_cut_interval_days: null }
+	{
+		name: 'Carrot',
+		family: 'Apiaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Beet',
+		family: 'Amaranthaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Radish',
+		family: 'Brassicaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 75,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Head lettuce',
+		family: 'Asteraceae',
+		harvest_unit: 'head',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 80,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Salad mix',
+		family: 'Asteraceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 75,
+		base_temp_f: 40,
+		harvest_curve: 'cuts',
+		harvest_cut_interval_days: 14
+	},
+	{
+		name: 'Spinach',
+		family: 'Amaranthaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 72,
+		base_temp_f: 40,
+		harvest_curve: 'cuts',
+		harvest_cut_interval_days: 14
+	},
+	{
+		name: 'Arugula',
+		family: 'Brassicaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 72,
+		base_temp_f: 40,
+		harvest_curve: 'cuts',
+		harvest_cut_interval_days: 14
+	},
+	{
+		name: 'Kale',
+		family: 'Brassicaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'flat',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Chard',
+		family: 'Amaranthaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'flat',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Cilantro',
+		family: 'Apiaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: 75,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Dill',
+		family: 'Apiaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'cuts',
+		harvest_cut_interval_days: 14
+	},
+	{
+		name: 'Basil',
+		family: 'Lamiaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'flat',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Scallion',
+		family: 'Amaryllidaceae',
+		harvest_unit: 'bunch',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Onion',
+		family: 'Amaryllidaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Garlic',
+		family: 'Amaryllidaceae',
+		harvest_unit: 'head',
+		frost_tolerance: 'hardy',
+		heat_limit_f: null,
+		base_temp_f: 40,
+		harvest_curve: 'single',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Tomato',
+		family: 'Solanaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'ramp',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Pepper',
+		family: 'Solanaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'ramp',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Cucumber',
+		family: 'Cucurbitaceae',
+		harvest_unit: 'each',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'ramp',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Summer squash',
+		family: 'Cucurbitaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'ramp',
+		harvest_cut_interval_days: null
+	},
+	{
+		name: 'Bush bean',
+		family: 'Fabaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'tender',
+		heat_limit_f: null,
+		base_temp_f: 50,
+		harvest_curve: 'ramp',
+		harvest_cut_interval_days: null
+	}
 ];
 
 export interface DemoVariety {
@@ -178,15 +358,32 @@ export interface DemoVariety {
 	gdd_to_maturity: number | null;
 }
 
-type VarietyFigures = Omit<DemoVariety, 'crop' | 'name' | 'method' | 'days_in_tray' | 'cells_per_tray' | 'seeds_per_packet' | 'gdd_to_maturity'> &
+type VarietyFigures = Omit<
+	DemoVariety,
+	'crop' | 'name' | 'method' | 'days_in_tray' | 'cells_per_tray' | 'seeds_per_packet' | 'gdd_to_maturity'
+> &
 	Partial<Pick<DemoVariety, 'seeds_per_packet' | 'gdd_to_maturity'>>;
 
 /** Direct-sown: no tray; cells_per_tray keeps the column's default, it is never read. */
 function direct(crop: string, name: string, f: VarietyFigures): DemoVariety {
-	return { crop, name, method: 'direct', days_in_tray: 0, cells_per_tray: 128, seeds_per_packet: null, gdd_to_maturity: null, ...f };
+	return {
+		crop,
+		name,
+		method: 'direct',
+		days_in_tray: 0,
+		cells_per_tray: 128,
+		seeds_per_packet: null,
+		gdd_to_maturity: null,
+		...f
+	};
 }
 
-function transplant(crop: string, name: string, tray: { days: number; cells: 72 | 128 | 200 }, f: VarietyFigures): DemoVariety {
+function transplant(
+	crop: string,
+	name: string,
+	tray: { days: number; cells: 72 | 128 | 200 },
+	f: VarietyFigures
+): DemoVariety {
 	return {
 		crop,
 		name,
@@ -205,133 +402,482 @@ function transplant(crop: string, name: string, tray: { days: number; cells: 72 
 // most weeks of a ten-week window.
 export const DEMO_VARIETIES: readonly DemoVariety[] = [
 	direct('Carrot', 'Long Amber', {
-		days_to_maturity: 70, harvest_window_days: 21, yield_per_bed_foot: 2.5, rows_per_bed: 4, in_row_spacing_in: 1,
-		seeds_per_spot: 1, germination_rate: 0.75, seeds_per_gram: 800, seed_price_cents_per_gram: 90, seeds_per_packet: 1500, margin: 0.15
+		days_to_maturity: 70,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 2.5,
+		rows_per_bed: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 1,
+		germination_rate: 0.75,
+		seeds_per_gram: 800,
+		seed_price_cents_per_gram: 90,
+		seeds_per_packet: 1500,
+		margin: 0.15
 	}),
 	direct('Carrot', 'Cellar Stout', {
-		days_to_maturity: 85, harvest_window_days: 35, yield_per_bed_foot: 3.0, rows_per_bed: 4, in_row_spacing_in: 1.5,
-		seeds_per_spot: 1, germination_rate: 0.75, seeds_per_gram: 750, seed_price_cents_per_gram: 70, seeds_per_packet: 1500, margin: 0.15
+		days_to_maturity: 85,
+		harvest_window_days: 35,
+		yield_per_bed_foot: 3.0,
+		rows_per_bed: 4,
+		in_row_spacing_in: 1.5,
+		seeds_per_spot: 1,
+		germination_rate: 0.75,
+		seeds_per_gram: 750,
+		seed_price_cents_per_gram: 70,
+		seeds_per_packet: 1500,
+		margin: 0.15
 	}),
-	transplant('Beet', 'Early Red Ball', { days: 21, cells: 128 }, {
-		days_to_maturity: 40, harvest_window_days: 14, yield_per_bed_foot: 3.0, rows_per_bed: 4, in_row_spacing_in: 6,
-		seeds_per_spot: 3, germination_rate: 0.85, seeds_per_gram: 60, seed_price_cents_per_gram: 25, seeds_per_packet: 250, margin: 0.1
-	}),
+	transplant(
+		'Beet',
+		'Early Red Ball',
+		{ days: 21, cells: 128 },
+		{
+			days_to_maturity: 40,
+			harvest_window_days: 14,
+			yield_per_bed_foot: 3.0,
+			rows_per_bed: 4,
+			in_row_spacing_in: 6,
+			seeds_per_spot: 3,
+			germination_rate: 0.85,
+			seeds_per_gram: 60,
+			seed_price_cents_per_gram: 25,
+			seeds_per_packet: 250,
+			margin: 0.1
+		}
+	),
 	direct('Beet', 'Cellar Garnet', {
-		days_to_maturity: 60, harvest_window_days: 21, yield_per_bed_foot: 3, rows_per_bed: 4, in_row_spacing_in: 3,
-		seeds_per_spot: 1, germination_rate: 0.8, seeds_per_gram: 55, seed_price_cents_per_gram: 20, seeds_per_packet: 300, margin: 0.15
+		days_to_maturity: 60,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 3,
+		rows_per_bed: 4,
+		in_row_spacing_in: 3,
+		seeds_per_spot: 1,
+		germination_rate: 0.8,
+		seeds_per_gram: 55,
+		seed_price_cents_per_gram: 20,
+		seeds_per_packet: 300,
+		margin: 0.15
 	}),
 	direct('Radish', 'Quick Crimson', {
-		days_to_maturity: 28, harvest_window_days: 7, yield_per_bed_foot: 4.0, rows_per_bed: 6, in_row_spacing_in: 1,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 90, seed_price_cents_per_gram: 10, seeds_per_packet: 500, margin: 0.1
+		days_to_maturity: 28,
+		harvest_window_days: 7,
+		yield_per_bed_foot: 4.0,
+		rows_per_bed: 6,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 1,
+		germination_rate: 0.9,
+		seeds_per_gram: 90,
+		seed_price_cents_per_gram: 10,
+		seeds_per_packet: 500,
+		margin: 0.1
 	}),
-	transplant('Radish', 'Pearl Drop', { days: 10, cells: 200 }, {
-		days_to_maturity: 24, harvest_window_days: 7, yield_per_bed_foot: 3.5, rows_per_bed: 5, in_row_spacing_in: 4,
-		seeds_per_spot: 4, germination_rate: 0.9, seeds_per_gram: 85, seed_price_cents_per_gram: 12, seeds_per_packet: 500, margin: 0.1
-	}),
-	transplant('Head lettuce', 'Butter Lantern', { days: 28, cells: 128 }, {
-		days_to_maturity: 42, harvest_window_days: 10, yield_per_bed_foot: 2.7, rows_per_bed: 3, in_row_spacing_in: 12,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 800, seed_price_cents_per_gram: 250, seeds_per_packet: 1000, margin: 0.15
-	}),
-	transplant('Head lettuce', 'Rust Oakleaf', { days: 28, cells: 128 }, {
-		days_to_maturity: 45, harvest_window_days: 10, yield_per_bed_foot: 2.7, rows_per_bed: 3, in_row_spacing_in: 12,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 850, seed_price_cents_per_gram: 220, seeds_per_packet: 1000, margin: 0.15
-	}),
+	transplant(
+		'Radish',
+		'Pearl Drop',
+		{ days: 10, cells: 200 },
+		{
+			days_to_maturity: 24,
+			harvest_window_days: 7,
+			yield_per_bed_foot: 3.5,
+			rows_per_bed: 5,
+			in_row_spacing_in: 4,
+			seeds_per_spot: 4,
+			germination_rate: 0.9,
+			seeds_per_gram: 85,
+			seed_price_cents_per_gram: 12,
+			seeds_per_packet: 500,
+			margin: 0.1
+		}
+	),
+	transplant(
+		'Head lettuce',
+		'Butter Lantern',
+		{ days: 28, cells: 128 },
+		{
+			days_to_maturity: 42,
+			harvest_window_days: 10,
+			yield_per_bed_foot: 2.7,
+			rows_per_bed: 3,
+			in_row_spacing_in: 12,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 800,
+			seed_price_cents_per_gram: 250,
+			seeds_per_packet: 1000,
+			margin: 0.15
+		}
+	),
+	transplant(
+		'Head lettuce',
+		'Rust Oakleaf',
+		{ days: 28, cells: 128 },
+		{
+			days_to_maturity: 45,
+			harvest_window_days: 10,
+			yield_per_bed_foot: 2.7,
+			rows_per_bed: 3,
+			in_row_spacing_in: 12,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 850,
+			seed_price_cents_per_gram: 220,
+			seeds_per_packet: 1000,
+			margin: 0.15
+		}
+	),
 	// A summer crisp type: slower, but holds longer in heat.
-	transplant('Head lettuce', 'Summer Crisp Ridge', { days: 28, cells: 128 }, {
-		days_to_maturity: 50, harvest_window_days: 14, yield_per_bed_foot: 2.6, rows_per_bed: 3, in_row_spacing_in: 12,
-		seeds_per_spot: 1, germination_rate: 0.88, seeds_per_gram: 800, seed_price_cents_per_gram: 240, seeds_per_packet: 1000, margin: 0.15
-	}),
+	transplant(
+		'Head lettuce',
+		'Summer Crisp Ridge',
+		{ days: 28, cells: 128 },
+		{
+			days_to_maturity: 50,
+			harvest_window_days: 14,
+			yield_per_bed_foot: 2.6,
+			rows_per_bed: 3,
+			in_row_spacing_in: 12,
+			seeds_per_spot: 1,
+			germination_rate: 0.88,
+			seeds_per_gram: 800,
+			seed_price_cents_per_gram: 240,
+			seeds_per_packet: 1000,
+			margin: 0.15
+		}
+	),
 	direct('Salad mix', 'Meadow Cut Mix', {
-		days_to_maturity: 30, harvest_window_days: 14, yield_per_bed_foot: 1.0, rows_per_bed: 6, in_row_spacing_in: 0.5,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 800, seed_price_cents_per_gram: 150, seeds_per_packet: 2000, margin: 0.15
+		days_to_maturity: 30,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 1.0,
+		rows_per_bed: 6,
+		in_row_spacing_in: 0.5,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 800,
+		seed_price_cents_per_gram: 150,
+		seeds_per_packet: 2000,
+		margin: 0.15
 	}),
 	direct('Salad mix', 'Autumn Tapestry Mix', {
-		days_to_maturity: 35, harvest_window_days: 14, yield_per_bed_foot: 0.9, rows_per_bed: 6, in_row_spacing_in: 0.5,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 850, seed_price_cents_per_gram: 160, seeds_per_packet: 2000, margin: 0.15
+		days_to_maturity: 35,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 0.9,
+		rows_per_bed: 6,
+		in_row_spacing_in: 0.5,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 850,
+		seed_price_cents_per_gram: 160,
+		seeds_per_packet: 2000,
+		margin: 0.15
 	}),
 	direct('Spinach', 'Broadleaf Dawn', {
-		days_to_maturity: 40, harvest_window_days: 14, yield_per_bed_foot: 0.8, rows_per_bed: 5, in_row_spacing_in: 1.5,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 90, seed_price_cents_per_gram: 15, seeds_per_packet: 500, margin: 0.15
+		days_to_maturity: 40,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 0.8,
+		rows_per_bed: 5,
+		in_row_spacing_in: 1.5,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 90,
+		seed_price_cents_per_gram: 15,
+		seeds_per_packet: 500,
+		margin: 0.15
 	}),
 	direct('Spinach', 'Cold Frame Savoy', {
-		days_to_maturity: 45, harvest_window_days: 21, yield_per_bed_foot: 0.9, rows_per_bed: 5, in_row_spacing_in: 1.5,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 85, seed_price_cents_per_gram: 18, seeds_per_packet: 500, margin: 0.15
+		days_to_maturity: 45,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 0.9,
+		rows_per_bed: 5,
+		in_row_spacing_in: 1.5,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 85,
+		seed_price_cents_per_gram: 18,
+		seeds_per_packet: 500,
+		margin: 0.15
 	}),
 	direct('Arugula', 'Peppery Lace', {
-		days_to_maturity: 30, harvest_window_days: 14, yield_per_bed_foot: 0.75, rows_per_bed: 6, in_row_spacing_in: 1,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 500, seed_price_cents_per_gram: 20, seeds_per_packet: 1000, margin: 0.1
+		days_to_maturity: 30,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 0.75,
+		rows_per_bed: 6,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 1,
+		germination_rate: 0.9,
+		seeds_per_gram: 500,
+		seed_price_cents_per_gram: 20,
+		seeds_per_packet: 1000,
+		margin: 0.1
 	}),
-	transplant('Kale', 'Curled Fog', { days: 35, cells: 72 }, {
-		days_to_maturity: 50, harvest_window_days: 70, yield_per_bed_foot: 8, rows_per_bed: 2, in_row_spacing_in: 18,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 300, seed_price_cents_per_gram: 120, seeds_per_packet: 300, margin: 0.15
-	}),
-	transplant('Kale', 'Slate Leaf', { days: 35, cells: 72 }, {
-		days_to_maturity: 55, harvest_window_days: 56, yield_per_bed_foot: 7, rows_per_bed: 2, in_row_spacing_in: 18,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 280, seed_price_cents_per_gram: 110, seeds_per_packet: 300, margin: 0.15
-	}),
-	transplant('Chard', 'Painted Stem', { days: 28, cells: 128 }, {
-		days_to_maturity: 50, harvest_window_days: 56, yield_per_bed_foot: 8, rows_per_bed: 2, in_row_spacing_in: 12,
-		seeds_per_spot: 1, germination_rate: 0.8, seeds_per_gram: 60, seed_price_cents_per_gram: 30, seeds_per_packet: 250, margin: 0.15
-	}),
+	transplant(
+		'Kale',
+		'Curled Fog',
+		{ days: 35, cells: 72 },
+		{
+			days_to_maturity: 50,
+			harvest_window_days: 70,
+			yield_per_bed_foot: 8,
+			rows_per_bed: 2,
+			in_row_spacing_in: 18,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 300,
+			seed_price_cents_per_gram: 120,
+			seeds_per_packet: 300,
+			margin: 0.15
+		}
+	),
+	transplant(
+		'Kale',
+		'Slate Leaf',
+		{ days: 35, cells: 72 },
+		{
+			days_to_maturity: 55,
+			harvest_window_days: 56,
+			yield_per_bed_foot: 7,
+			rows_per_bed: 2,
+			in_row_spacing_in: 18,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 280,
+			seed_price_cents_per_gram: 110,
+			seeds_per_packet: 300,
+			margin: 0.15
+		}
+	),
+	transplant(
+		'Chard',
+		'Painted Stem',
+		{ days: 28, cells: 128 },
+		{
+			days_to_maturity: 50,
+			harvest_window_days: 56,
+			yield_per_bed_foot: 8,
+			rows_per_bed: 2,
+			in_row_spacing_in: 12,
+			seeds_per_spot: 1,
+			germination_rate: 0.8,
+			seeds_per_gram: 60,
+			seed_price_cents_per_gram: 30,
+			seeds_per_packet: 250,
+			margin: 0.15
+		}
+	),
 	direct('Cilantro', 'Slow Leaf', {
-		days_to_maturity: 45, harvest_window_days: 14, yield_per_bed_foot: 3, rows_per_bed: 4, in_row_spacing_in: 2,
-		seeds_per_spot: 2, germination_rate: 0.75, seeds_per_gram: 70, seed_price_cents_per_gram: 5, seeds_per_packet: 500, margin: 0.15
+		days_to_maturity: 45,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 3,
+		rows_per_bed: 4,
+		in_row_spacing_in: 2,
+		seeds_per_spot: 2,
+		germination_rate: 0.75,
+		seeds_per_gram: 70,
+		seed_price_cents_per_gram: 5,
+		seeds_per_packet: 500,
+		margin: 0.15
 	}),
 	direct('Dill', 'Feather Bouquet', {
-		days_to_maturity: 50, harvest_window_days: 21, yield_per_bed_foot: 3, rows_per_bed: 3, in_row_spacing_in: 4,
-		seeds_per_spot: 2, germination_rate: 0.7, seeds_per_gram: 700, seed_price_cents_per_gram: 10, seeds_per_packet: 500, margin: 0.15
+		days_to_maturity: 50,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 3,
+		rows_per_bed: 3,
+		in_row_spacing_in: 4,
+		seeds_per_spot: 2,
+		germination_rate: 0.7,
+		seeds_per_gram: 700,
+		seed_price_cents_per_gram: 10,
+		seeds_per_packet: 500,
+		margin: 0.15
 	}),
-	transplant('Basil', 'Green Cathedral', { days: 35, cells: 128 }, {
-		days_to_maturity: 30, harvest_window_days: 63, yield_per_bed_foot: 8, rows_per_bed: 3, in_row_spacing_in: 10,
-		seeds_per_spot: 2, germination_rate: 0.85, seeds_per_gram: 650, seed_price_cents_per_gram: 80, seeds_per_packet: 500, margin: 0.15
-	}),
+	transplant(
+		'Basil',
+		'Green Cathedral',
+		{ days: 35, cells: 128 },
+		{
+			days_to_maturity: 30,
+			harvest_window_days: 63,
+			yield_per_bed_foot: 8,
+			rows_per_bed: 3,
+			in_row_spacing_in: 10,
+			seeds_per_spot: 2,
+			germination_rate: 0.85,
+			seeds_per_gram: 650,
+			seed_price_cents_per_gram: 80,
+			seeds_per_packet: 500,
+			margin: 0.15
+		}
+	),
 	// Multi-sown: 5 seeds a cell, planted out as a clump.
-	transplant('Scallion', 'Pencil Green', { days: 42, cells: 128 }, {
-		days_to_maturity: 50, harvest_window_days: 14, yield_per_bed_foot: 5, rows_per_bed: 4, in_row_spacing_in: 4,
-		seeds_per_spot: 5, germination_rate: 0.85, seeds_per_gram: 300, seed_price_cents_per_gram: 60, seeds_per_packet: 1000, margin: 0.1
-	}),
+	transplant(
+		'Scallion',
+		'Pencil Green',
+		{ days: 42, cells: 128 },
+		{
+			days_to_maturity: 50,
+			harvest_window_days: 14,
+			yield_per_bed_foot: 5,
+			rows_per_bed: 4,
+			in_row_spacing_in: 4,
+			seeds_per_spot: 5,
+			germination_rate: 0.85,
+			seeds_per_gram: 300,
+			seed_price_cents_per_gram: 60,
+			seeds_per_packet: 1000,
+			margin: 0.1
+		}
+	),
 	// Sold fresh with tops through late summer; the demo leaves storage onions out, since a
 	// flat harvest window would hold the bed through the months they sit in the barn.
-	transplant('Onion', 'Copper Keeper', { days: 56, cells: 200 }, {
-		days_to_maturity: 100, harvest_window_days: 21, yield_per_bed_foot: 3.5, rows_per_bed: 4, in_row_spacing_in: 4,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 250, seed_price_cents_per_gram: 90, seeds_per_packet: 1000, margin: 0.1
-	}),
+	transplant(
+		'Onion',
+		'Copper Keeper',
+		{ days: 56, cells: 200 },
+		{
+			days_to_maturity: 100,
+			harvest_window_days: 21,
+			yield_per_bed_foot: 3.5,
+			rows_per_bed: 4,
+			in_row_spacing_in: 4,
+			seeds_per_spot: 1,
+			germination_rate: 0.85,
+			seeds_per_gram: 250,
+			seed_price_cents_per_gram: 90,
+			seeds_per_packet: 1000,
+			margin: 0.1
+		}
+	),
 	// Planted as cloves in late fall; a clove weighs ~5 g, hence 0.2 "seeds" per gram.
 	direct('Garlic', 'Hardneck Blush', {
-		days_to_maturity: 240, harvest_window_days: 14, yield_per_bed_foot: 7, rows_per_bed: 4, in_row_spacing_in: 6,
-		seeds_per_spot: 1, germination_rate: 0.95, seeds_per_gram: 0.2, seed_price_cents_per_gram: 3, margin: 0.1
+		days_to_maturity: 240,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 7,
+		rows_per_bed: 4,
+		in_row_spacing_in: 6,
+		seeds_per_spot: 1,
+		germination_rate: 0.95,
+		seeds_per_gram: 0.2,
+		seed_price_cents_per_gram: 3,
+		margin: 0.1
 	}),
-	transplant('Tomato', 'Scarlet Ledger', { days: 49, cells: 72 }, {
-		days_to_maturity: 70, harvest_window_days: 63, yield_per_bed_foot: 8, rows_per_bed: 1, in_row_spacing_in: 18,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 300, seed_price_cents_per_gram: 2500, seeds_per_packet: 25, margin: 0.15,
-		gdd_to_maturity: 1150
-	}),
-	transplant('Tomato', 'Honey Marble', { days: 49, cells: 72 }, {
-		days_to_maturity: 60, harvest_window_days: 70, yield_per_bed_foot: 6, rows_per_bed: 1, in_row_spacing_in: 24,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 320, seed_price_cents_per_gram: 3000, seeds_per_packet: 25, margin: 0.15,
-		gdd_to_maturity: 1000
-	}),
-	transplant('Pepper', 'Ember Bell', { days: 56, cells: 72 }, {
-		days_to_maturity: 75, harvest_window_days: 56, yield_per_bed_foot: 3, rows_per_bed: 2, in_row_spacing_in: 18,
-		seeds_per_spot: 1, germination_rate: 0.8, seeds_per_gram: 160, seed_price_cents_per_gram: 2000, seeds_per_packet: 25, margin: 0.15
-	}),
-	transplant('Cucumber', 'Crisp Rail', { days: 21, cells: 72 }, {
-		days_to_maturity: 50, harvest_window_days: 35, yield_per_bed_foot: 10, rows_per_bed: 1, in_row_spacing_in: 12,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 35, seed_price_cents_per_gram: 400, seeds_per_packet: 30, margin: 0.15,
-		gdd_to_maturity: 850
-	}),
-	transplant('Summer squash', 'Gold Baton', { days: 21, cells: 72 }, {
-		days_to_maturity: 45, harvest_window_days: 35, yield_per_bed_foot: 8, rows_per_bed: 1, in_row_spacing_in: 24,
-		seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 8, seed_price_cents_per_gram: 150, seeds_per_packet: 30, margin: 0.15,
-		gdd_to_maturity: 750
-	}),
+	transplant(
+		'Tomato',
+		'Scarlet Ledger',
+		{ days: 49, cells: 72 },
+		{
+			days_to_maturity: 70,
+			harvest_window_days: 63,
+			yield_per_bed_foot: 8,
+			rows_per_bed: 1,
+			in_row_spacing_in: 18,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 300,
+			seed_price_cents_per_gram: 2500,
+			seeds_per_packet: 25,
+			margin: 0.15,
+			gdd_to_maturity: 1150
+		}
+	),
+	transplant(
+		'Tomato',
+		'Honey Marble',
+		{ days: 49, cells: 72 },
+		{
+			days_to_maturity: 60,
+			harvest_window_days: 70,
+			yield_per_bed_foot: 6,
+			rows_per_bed: 1,
+			in_row_spacing_in: 24,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 320,
+			seed_price_cents_per_gram: 3000,
+			seeds_per_packet: 25,
+			margin: 0.15,
+			gdd_to_maturity: 1000
+		}
+	),
+	transplant(
+		'Pepper',
+		'Ember Bell',
+		{ days: 56, cells: 72 },
+		{
+			days_to_maturity: 75,
+			harvest_window_days: 56,
+			yield_per_bed_foot: 3,
+			rows_per_bed: 2,
+			in_row_spacing_in: 18,
+			seeds_per_spot: 1,
+			germination_rate: 0.8,
+			seeds_per_gram: 160,
+			seed_price_cents_per_gram: 2000,
+			seeds_per_packet: 25,
+			margin: 0.15
+		}
+	),
+	transplant(
+		'Cucumber',
+		'Crisp Rail',
+		{ days: 21, cells: 72 },
+		{
+			days_to_maturity: 50,
+			harvest_window_days: 35,
+			yield_per_bed_foot: 10,
+			rows_per_bed: 1,
+			in_row_spacing_in: 12,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 35,
+			seed_price_cents_per_gram: 400,
+			seeds_per_packet: 30,
+			margin: 0.15,
+			gdd_to_maturity: 850
+		}
+	),
+	transplant(
+		'Summer squash',
+		'Gold Baton',
+		{ days: 21, cells: 72 },
+		{
+			days_to_maturity: 45,
+			harvest_window_days: 35,
+			yield_per_bed_foot: 8,
+			rows_per_bed: 1,
+			in_row_spacing_in: 24,
+			seeds_per_spot: 1,
+			germination_rate: 0.9,
+			seeds_per_gram: 8,
+			seed_price_cents_per_gram: 150,
+			seeds_per_packet: 30,
+			margin: 0.15,
+			gdd_to_maturity: 750
+		}
+	),
 	direct('Bush bean', 'Slender Meadow', {
-		days_to_maturity: 55, harvest_window_days: 21, yield_per_bed_foot: 1.8, rows_per_bed: 2, in_row_spacing_in: 3,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 4, seed_price_cents_per_gram: 2, seeds_per_packet: 250, margin: 0.1
+		days_to_maturity: 55,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 1.8,
+		rows_per_bed: 2,
+		in_row_spacing_in: 3,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 4,
+		seed_price_cents_per_gram: 2,
+		seeds_per_packet: 250,
+		margin: 0.1
 	}),
 	direct('Bush bean', 'Butter Lane Wax', {
-		days_to_maturity: 58, harvest_window_days: 21, yield_per_bed_foot: 1.6, rows_per_bed: 2, in_row_spacing_in: 3,
-		seeds_per_spot: 1, germination_rate: 0.85, seeds_per_gram: 4, seed_price_cents_per_gram: 3, seeds_per_packet: 250, margin: 0.1
+		days_to_maturity: 58,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 1.6,
+		rows_per_bed: 2,
+		in_row_spacing_in: 3,
+		seeds_per_spot: 1,
+		germination_rate: 0.85,
+		seeds_per_gram: 4,
+		seed_price_cents_per_gram: 3,
+		seeds_per_packet: 250,
+		margin: 0.1
 	})
 ];
 
@@ -357,8 +903,22 @@ export interface DemoShareSize {
 }
 
 export const DEMO_SHARE_SIZES: readonly DemoShareSize[] = [
-	{ name: 'Full share', members: 60, first_week: '2027-W24', last_week: '2027-W43', pickup_days: 'Tue, Fri', price_cents: 72_000 },
-	{ name: 'Half share', members: 40, first_week: '2027-W24', last_week: '2027-W43', pickup_days: 'Tue, Fri', price_cents: 42_000 }
+	{
+		name: 'Full share',
+		members: 60,
+		first_week: '2027-W24',
+		last_week: '2027-W43',
+		pickup_days: 'Tue, Fri',
+		price_cents: 72_000
+	},
+	{
+		name: 'Half share',
+		members: 40,
+		first_week: '2027-W24',
+		last_week: '2027-W43',
+		pickup_days: 'Tue, Fri',
+		price_cents: 42_000
+	}
 ];
 
 /**
@@ -507,10 +1067,20 @@ export interface DemoChannelDemand {
 
 export const DEMO_CHANNEL_DEMAND: readonly DemoChannelDemand[] = [
 	...MARKET_RUNS.flatMap((r) =>
-		runWeeks(r).map((w) => ({ channel: 'market' as const, crop: r.crop, week: isoWeekLabel(DEMO_PLAN_YEAR, w), quantity: r.quantity }))
+		runWeeks(r).map((w) => ({
+			channel: 'market' as const,
+			crop: r.crop,
+			week: isoWeekLabel(DEMO_PLAN_YEAR, w),
+			quantity: r.quantity
+		}))
 	),
 	...RESTAURANT_RUNS.flatMap((r) =>
-		runWeeks(r).map((w) => ({ channel: 'restaurant' as const, crop: r.crop, week: isoWeekLabel(DEMO_PLAN_YEAR, w), quantity: r.quantity }))
+		runWeeks(r).map((w) => ({
+			channel: 'restaurant' as const,
+			crop: r.crop,
+			week: isoWeekLabel(DEMO_PLAN_YEAR, w),
+			quantity: r.quantity
+		}))
 	)
 ];
 
@@ -540,60 +1110,144 @@ export interface DemoFallPlanting {
 
 export const DEMO_FALL_PLANTINGS_2026: readonly DemoFallPlanting[] = [
 	{
-		variety: 'Curled Fog', bed: 'N01', start_ft: 0, length_ft: 50,
-		tray_sow_date: '2026-07-06', field_date: '2026-08-10', first_harvest: '2026-09-28', last_harvest: '2026-12-18',
-		status: 'harvesting', actual_tray_sow_date: '2026-07-06', actual_field_date: '2026-08-11', actual_first_harvest: '2026-09-30',
+		variety: 'Curled Fog',
+		bed: 'N01',
+		start_ft: 0,
+		length_ft: 50,
+		tray_sow_date: '2026-07-06',
+		field_date: '2026-08-10',
+		first_harvest: '2026-09-28',
+		last_harvest: '2026-12-18',
+		status: 'harvesting',
+		actual_tray_sow_date: '2026-07-06',
+		actual_field_date: '2026-08-11',
+		actual_first_harvest: '2026-09-30',
 		notes: 'Picked weekly until the hard freezes; row cover on from mid-November.',
-		harvests: [['2026-11-17', 30], ['2026-11-24', 28], ['2026-12-01', 24]]
+		harvests: [
+			['2026-11-17', 30],
+			['2026-11-24', 28],
+			['2026-12-01', 24]
+		]
 	},
 	{
-		variety: 'Cellar Stout', bed: 'N01', start_ft: 50, length_ft: 50,
-		tray_sow_date: null, field_date: '2026-07-27', first_harvest: '2026-10-20', last_harvest: '2026-12-11',
-		status: 'harvesting', actual_tray_sow_date: null, actual_field_date: '2026-07-28', actual_first_harvest: '2026-10-21',
+		variety: 'Cellar Stout',
+		bed: 'N01',
+		start_ft: 50,
+		length_ft: 50,
+		tray_sow_date: null,
+		field_date: '2026-07-27',
+		first_harvest: '2026-10-20',
+		last_harvest: '2026-12-11',
+		status: 'harvesting',
+		actual_tray_sow_date: null,
+		actual_field_date: '2026-07-28',
+		actual_first_harvest: '2026-10-21',
 		notes: 'Left in the ground under straw and cover; dug as the winter share needs them.',
-		harvests: [['2026-11-20', 45], ['2026-11-27', 40], ['2026-12-01', 38]]
+		harvests: [
+			['2026-11-20', 45],
+			['2026-11-27', 40],
+			['2026-12-01', 38]
+		]
 	},
 	{
-		variety: 'Cold Frame Savoy', bed: 'N02', start_ft: 0, length_ft: 100,
-		tray_sow_date: null, field_date: '2026-09-14', first_harvest: '2026-11-09', last_harvest: '2026-12-23',
-		status: 'harvesting', actual_tray_sow_date: null, actual_field_date: '2026-09-14', actual_first_harvest: '2026-11-11',
+		variety: 'Cold Frame Savoy',
+		bed: 'N02',
+		start_ft: 0,
+		length_ft: 100,
+		tray_sow_date: null,
+		field_date: '2026-09-14',
+		first_harvest: '2026-11-09',
+		last_harvest: '2026-12-23',
+		status: 'harvesting',
+		actual_tray_sow_date: null,
+		actual_field_date: '2026-09-14',
+		actual_first_harvest: '2026-11-11',
 		notes: 'Under a low tunnel.',
-		harvests: [['2026-11-16', 9], ['2026-11-23', 12], ['2026-11-30', 10]]
+		harvests: [
+			['2026-11-16', 9],
+			['2026-11-23', 12],
+			['2026-11-30', 10]
+		]
 	},
 	{
-		variety: 'Autumn Tapestry Mix', bed: 'N03', start_ft: 0, length_ft: 50,
-		tray_sow_date: null, field_date: '2026-10-19', first_harvest: '2026-12-07', last_harvest: '2026-12-21',
-		status: 'sown', actual_tray_sow_date: null, actual_field_date: '2026-10-19', actual_first_harvest: null,
+		variety: 'Autumn Tapestry Mix',
+		bed: 'N03',
+		start_ft: 0,
+		length_ft: 50,
+		tray_sow_date: null,
+		field_date: '2026-10-19',
+		first_harvest: '2026-12-07',
+		last_harvest: '2026-12-21',
+		status: 'sown',
+		actual_tray_sow_date: null,
+		actual_field_date: '2026-10-19',
+		actual_first_harvest: null,
 		notes: 'Under a low tunnel; first cut due the week of 7 December.',
 		harvests: []
 	},
 	{
-		variety: 'Peppery Lace', bed: 'N03', start_ft: 50, length_ft: 50,
-		tray_sow_date: null, field_date: '2026-10-05', first_harvest: '2026-11-23', last_harvest: '2026-12-11',
-		status: 'harvesting', actual_tray_sow_date: null, actual_field_date: '2026-10-06', actual_first_harvest: '2026-11-24',
+		variety: 'Peppery Lace',
+		bed: 'N03',
+		start_ft: 50,
+		length_ft: 50,
+		tray_sow_date: null,
+		field_date: '2026-10-05',
+		first_harvest: '2026-11-23',
+		last_harvest: '2026-12-11',
+		status: 'harvesting',
+		actual_tray_sow_date: null,
+		actual_field_date: '2026-10-06',
+		actual_first_harvest: '2026-11-24',
 		notes: null,
 		harvests: [['2026-11-30', 6]]
 	},
 	{
-		variety: 'Butter Lantern', bed: 'N04', start_ft: 0, length_ft: 50,
-		tray_sow_date: '2026-09-07', field_date: '2026-10-05', first_harvest: '2026-11-30', last_harvest: '2026-12-10',
-		status: 'harvesting', actual_tray_sow_date: '2026-09-07', actual_field_date: '2026-10-05', actual_first_harvest: '2026-12-01',
+		variety: 'Butter Lantern',
+		bed: 'N04',
+		start_ft: 0,
+		length_ft: 50,
+		tray_sow_date: '2026-09-07',
+		field_date: '2026-10-05',
+		first_harvest: '2026-11-30',
+		last_harvest: '2026-12-10',
+		status: 'harvesting',
+		actual_tray_sow_date: '2026-09-07',
+		actual_field_date: '2026-10-05',
+		actual_first_harvest: '2026-12-01',
 		notes: 'Short days slowed it by about two weeks.',
 		harvests: [['2026-12-01', 60]]
 	},
 	// Garlic goes in during the fall and is dug the next July: it feeds the 2027 boxes and
 	// holds its beds until then, so the 2027 plan must work around it.
 	{
-		variety: 'Hardneck Blush', bed: 'S12', start_ft: 0, length_ft: 100,
-		tray_sow_date: null, field_date: '2026-10-26', first_harvest: '2027-07-12', last_harvest: '2027-07-25',
-		status: 'sown', actual_tray_sow_date: null, actual_field_date: '2026-10-27', actual_first_harvest: null,
+		variety: 'Hardneck Blush',
+		bed: 'S12',
+		start_ft: 0,
+		length_ft: 100,
+		tray_sow_date: null,
+		field_date: '2026-10-26',
+		first_harvest: '2027-07-12',
+		last_harvest: '2027-07-25',
+		status: 'sown',
+		actual_tray_sow_date: null,
+		actual_field_date: '2026-10-27',
+		actual_first_harvest: null,
 		notes: 'Mulched with straw after planting.',
 		harvests: []
 	},
 	{
-		variety: 'Hardneck Blush', bed: 'S13', start_ft: 0, length_ft: 100,
-		tray_sow_date: null, field_date: '2026-12-03', first_harvest: '2027-07-12', last_harvest: '2027-07-25',
-		status: 'planned', actual_tray_sow_date: null, actual_field_date: null, actual_first_harvest: null,
+		variety: 'Hardneck Blush',
+		bed: 'S13',
+		start_ft: 0,
+		length_ft: 100,
+		tray_sow_date: null,
+		field_date: '2026-12-03',
+		first_harvest: '2027-07-12',
+		last_harvest: '2027-07-25',
+		status: 'planned',
+		actual_tray_sow_date: null,
+		actual_field_date: null,
+		actual_first_harvest: null,
 		notes: 'Second garlic bed, held back by a wet November; plant as soon as the ground allows.',
 		harvests: []
 	}
@@ -616,21 +1270,45 @@ interface VarietyShare {
 
 const VARIETY_PLAN: Readonly<Record<string, readonly VarietyShare[]>> = {
 	// Quick carrots through summer, the storage type for the fall run.
-	Carrot: [{ variety: 'Long Amber', to: 38 }, { variety: 'Cellar Stout', from: 39 }],
-	Beet: [{ variety: 'Early Red Ball', to: 32 }, { variety: 'Cellar Garnet', from: 33 }],
+	Carrot: [
+		{ variety: 'Long Amber', to: 38 },
+		{ variety: 'Cellar Stout', from: 39 }
+	],
+	Beet: [
+		{ variety: 'Early Red Ball', to: 32 },
+		{ variety: 'Cellar Garnet', from: 33 }
+	],
 	// Transplanted radish makes the first markets, before direct-sown beds are ready.
-	Radish: [{ variety: 'Pearl Drop', to: 23 }, { variety: 'Quick Crimson', from: 24 }],
+	Radish: [
+		{ variety: 'Pearl Drop', to: 23 },
+		{ variety: 'Quick Crimson', from: 24 }
+	],
 	// The crisp type covers the hot weeks, when butterheads bolt.
 	'Head lettuce': [
 		{ variety: 'Butter Lantern', to: 27 },
 		{ variety: 'Summer Crisp Ridge', from: 28, to: 35 },
 		{ variety: 'Rust Oakleaf', from: 36 }
 	],
-	'Salad mix': [{ variety: 'Meadow Cut Mix', to: 30 }, { variety: 'Autumn Tapestry Mix', from: 31 }],
-	Spinach: [{ variety: 'Broadleaf Dawn', to: 30 }, { variety: 'Cold Frame Savoy', from: 31 }],
-	Kale: [{ variety: 'Curled Fog', to: 33 }, { variety: 'Slate Leaf', from: 34 }],
-	Tomato: [{ variety: 'Scarlet Ledger', fraction: 0.7 }, { variety: 'Honey Marble', fraction: 0.3 }],
-	'Bush bean': [{ variety: 'Slender Meadow', fraction: 0.6 }, { variety: 'Butter Lane Wax', fraction: 0.4 }]
+	'Salad mix': [
+		{ variety: 'Meadow Cut Mix', to: 30 },
+		{ variety: 'Autumn Tapestry Mix', from: 31 }
+	],
+	Spinach: [
+		{ variety: 'Broadleaf Dawn', to: 30 },
+		{ variety: 'Cold Frame Savoy', from: 31 }
+	],
+	Kale: [
+		{ variety: 'Curled Fog', to: 33 },
+		{ variety: 'Slate Leaf', from: 34 }
+	],
+	Tomato: [
+		{ variety: 'Scarlet Ledger', fraction: 0.7 },
+		{ variety: 'Honey Marble', fraction: 0.3 }
+	],
+	'Bush bean': [
+		{ variety: 'Slender Meadow', fraction: 0.6 },
+		{ variety: 'Butter Lane Wax', fraction: 0.4 }
+	]
 	// Garlic has no entry: the 2027 garlic is already in the ground (planted fall 2026) and goes
 	// in as kept plantings. It is dug in W28–W29, while the shares take it from storage in
 	// W30–W44; a flat harvest window cannot carry it into storage, so those weeks come back as
@@ -711,12 +1389,15 @@ export function defaultPlanDemoInput(): PlanDemoInput {
 }
 
 /** The demo's variety plan in the engine's terms: ids are variety names, crops are crop names. */
-export function demoVarietyPlan(varieties: readonly DemoVariety[] = DEMO_VARIETIES): Record<string, EngineVarietyShare[]> {
+export function demoVarietyPlan(
+	varieties: readonly DemoVariety[] = DEMO_VARIETIES
+): Record<string, EngineVarietyShare[]> {
 	const cropOf = new Map(varieties.map((v) => [v.name, v.crop]));
 	const out: Record<string, EngineVarietyShare[]> = {};
 	for (const [crop, shares] of Object.entries(VARIETY_PLAN)) {
 		// The engine would only warn and leave the share unplanned; a typo in the demo should fail loudly.
-		for (const s of shares) if (cropOf.get(s.variety) !== crop) throw new Error(`demo plan: ${s.variety} is not a variety of ${crop}`);
+		for (const s of shares)
+			if (cropOf.get(s.variety) !== crop) throw new Error(`demo plan: ${s.variety} is not a variety of ${crop}`);
 		out[crop] = shares.map((s) => ({ varietyId: s.variety, fromWeek: s.from, toWeek: s.to, fraction: s.fraction }));
 	}
 	return out;
@@ -739,11 +1420,20 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 		return crop;
 	};
 	const targets = deriveTargets({
-		shareSizes: input.shareSizes.map((s) => ({ id: s.name, members: s.members, firstWeek: s.first_week, lastWeek: s.last_week })),
+		shareSizes: input.shareSizes.map((s) => ({
+			id: s.name,
+			members: s.members,
+			firstWeek: s.first_week,
+			lastWeek: s.last_week
+		})),
 		boxItems: input.boxItems.map((b) => ({ shareSizeId: b.share, week: b.week, crop: b.crop, quantity: b.quantity })),
 		channelDemand: input.channelDemand.map((c) => ({ crop: c.crop, week: c.week, quantity: c.quantity }))
 	});
-	const varieties: SeasonVariety[] = input.varieties.map((v) => ({ ...toEngineVariety(v, cropOf(v)), id: v.name, cropId: v.crop }));
+	const varieties: SeasonVariety[] = input.varieties.map((v) => ({
+		...toEngineVariety(v, cropOf(v)),
+		id: v.name,
+		cropId: v.crop
+	}));
 	// The plantings already in the ground both supply their weeks and hold their bed-feet.
 	const kept: KeptPlanting[] = input.existing.map((p, i) => {
 		const v = varietyByName.get(p.variety);
@@ -801,7 +1491,11 @@ export interface DemoCropSupply {
  * the ground and the plan's, against the targets, over the plan year's weeks. Weeks the plan
  * reports as unreachable (nothing sown after "today" can be ready then) are not counted short.
  */
-export function demoPlanSupply(plan: SeasonPlan, input: PlanDemoInput = defaultPlanDemoInput(), margin = 0.1): DemoCropSupply[] {
+export function demoPlanSupply(
+	plan: SeasonPlan,
+	input: PlanDemoInput = defaultPlanDemoInput(),
+	margin = 0.1
+): DemoCropSupply[] {
 	const cropByName = new Map(input.crops.map((c) => [c.name, c]));
 	const varietyByName = new Map(input.varieties.map((v) => [v.name, v]));
 	const shape = (name: string) => {
@@ -809,19 +1503,41 @@ export function demoPlanSupply(plan: SeasonPlan, input: PlanDemoInput = defaultP
 		if (!v) throw new Error(`demo plan: unknown variety ${name}`);
 		const crop = cropByName.get(v.crop);
 		if (!crop) throw new Error(`demo plan: unknown crop ${v.crop}`);
-		return { crop: v.crop, yieldPerBedFoot: v.yield_per_bed_foot, curve: toEngineVariety(v, crop).harvestCurve, windowDays: v.harvest_window_days };
+		return {
+			crop: v.crop,
+			yieldPerBedFoot: v.yield_per_bed_foot,
+			curve: toEngineVariety(v, crop).harvestCurve,
+			windowDays: v.harvest_window_days
+		};
 	};
 	const plantings = [
-		...plan.plantings.map((p) => ({ ...shape(p.varietyId), firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt })),
-		...input.existing.map((p) => ({ ...shape(p.variety), firstHarvest: p.first_harvest, lastHarvest: p.last_harvest, bedFeet: p.length_ft }))
+		...plan.plantings.map((p) => ({
+			...shape(p.varietyId),
+			firstHarvest: p.firstHarvest,
+			lastHarvest: p.lastHarvest,
+			bedFeet: p.lengthFt
+		})),
+		...input.existing.map((p) => ({
+			...shape(p.variety),
+			firstHarvest: p.first_harvest,
+			lastHarvest: p.last_harvest,
+			bedFeet: p.length_ft
+		}))
 	];
 	const targets = deriveTargets({
-		shareSizes: input.shareSizes.map((s) => ({ id: s.name, members: s.members, firstWeek: s.first_week, lastWeek: s.last_week })),
+		shareSizes: input.shareSizes.map((s) => ({
+			id: s.name,
+			members: s.members,
+			firstWeek: s.first_week,
+			lastWeek: s.last_week
+		})),
 		boxItems: input.boxItems.map((b) => ({ shareSizeId: b.share, week: b.week, crop: b.crop, quantity: b.quantity })),
 		channelDemand: input.channelDemand.map((c) => ({ crop: c.crop, week: c.week, quantity: c.quantity }))
 	});
 	const unreachable = new Set(
-		plan.warnings.filter((w) => w.code === 'unreachable_week').flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
+		plan.warnings
+			.filter((w) => w.code === 'unreachable_week')
+			.flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
 	);
 	const out = new Map<string, DemoCropSupply>();
 	for (const r of forecast(plantings, targets)) {
@@ -829,7 +1545,8 @@ export function demoPlanSupply(plan: SeasonPlan, input: PlanDemoInput = defaultP
 		const c = out.get(r.crop) ?? { crop: r.crop, supply: 0, demand: 0, shortWeeks: [] };
 		c.supply += r.supply;
 		c.demand += r.demand;
-		if (r.demand > 0 && r.supply < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`)) c.shortWeeks.push(r.week);
+		if (r.demand > 0 && r.supply < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`))
+			c.shortWeeks.push(r.week);
 		out.set(r.crop, c);
 	}
 	return [...out.values()].filter((c) => c.demand > 0);
@@ -871,17 +1588,30 @@ export async function removeDemoFarm(knex: Knex): Promise<void> {
 			await trx('blocks').where({ farm_id: farmId }).delete();
 			await trx('farms').where({ id: farmId }).delete();
 		}
-		await trx('users').whereIn('email', DEMO_USERS.map((u) => u.email)).delete();
+		await trx('users')
+			.whereIn(
+				'email',
+				DEMO_USERS.map((u) => u.email)
+			)
+			.delete();
 	});
 }
 
 /** Seed the demo farm unless it is there; `reset` removes it first. */
-export async function ensureDemoFarm(knex: Knex, options: { reset?: boolean } = {}): Promise<{ farmId: number; created: boolean }> {
+export async function ensureDemoFarm(
+	knex: Knex,
+	options: { reset?: boolean } = {}
+): Promise<{ farmId: number; created: boolean }> {
 	if (options.reset) await removeDemoFarm(knex);
 	const existing = await findDemoFarm(knex);
 	if (existing !== null) return { farmId: existing, created: false };
 	// Demo users left without their farm (an interrupted run) would block the unique e-mails.
-	await knex('users').whereIn('email', DEMO_USERS.map((u) => u.email)).delete();
+	await knex('users')
+		.whereIn(
+			'email',
+			DEMO_USERS.map((u) => u.email)
+		)
+		.delete();
 	const { farmId } = await seedDemoFarm(knex);
 	return { farmId, created: true };
 }
@@ -900,18 +1630,20 @@ export interface DemoFarmCounts {
 }
 
 export async function countDemoFarm(knex: Knex, farmId: number): Promise<DemoFarmCounts> {
-	const count = async (q: Knex.QueryBuilder): Promise<number> => Number((await q.count<{ n: number }[]>({ n: '*' }))[0].n);
-	const [beds, crops, varieties, users, boxItems, channelDemand, plantings, unplaced, harvestRecords] = await Promise.all([
-		count(knex('beds').where({ farm_id: farmId })),
-		count(knex('crops').where({ farm_id: farmId })),
-		count(knex('varieties').where({ farm_id: farmId })),
-		count(knex('farm_members').where({ farm_id: farmId })),
-		count(knex('box_items as b').join('share_sizes as s', 's.id', 'b.share_size_id').where('s.farm_id', farmId)),
-		count(knex('channel_demand').where({ farm_id: farmId })),
-		count(knex('plantings').where({ farm_id: farmId })),
-		count(knex('plantings').where({ farm_id: farmId }).whereNull('bed_id')),
-		count(knex('harvest_records').where({ farm_id: farmId }))
-	]);
+	const count = async (q: Knex.QueryBuilder): Promise<number> =>
+		Number((await q.count<{ n: number }[]>({ n: '*' }))[0].n);
+	const [beds, crops, varieties, users, boxItems, channelDemand, plantings, unplaced, harvestRecords] =
+		await Promise.all([
+			count(knex('beds').where({ farm_id: farmId })),
+			count(knex('crops').where({ farm_id: farmId })),
+			count(knex('varieties').where({ farm_id: farmId })),
+			count(knex('farm_members').where({ farm_id: farmId })),
+			count(knex('box_items as b').join('share_sizes as s', 's.id', 'b.share_size_id').where('s.farm_id', farmId)),
+			count(knex('channel_demand').where({ farm_id: farmId })),
+			count(knex('plantings').where({ farm_id: farmId })),
+			count(knex('plantings').where({ farm_id: farmId }).whereNull('bed_id')),
+			count(knex('harvest_records').where({ farm_id: farmId }))
+		]);
 	return { beds, crops, varieties, users, boxItems, channelDemand, plantings, unplaced, harvestRecords };
 }
 
@@ -968,7 +1700,9 @@ export async function seedDemoFarm(knex: Knex): Promise<{ farmId: number }> {
 		const unitOf = new Map(DEMO_CROPS.map((c) => [c.name, c.harvest_unit]));
 
 		await trx('seasons').insert(DEMO_SEASONS.map((s) => ({ farm_id: farmId, ...s })));
-		const seasonRows = await trx('seasons').where({ farm_id: farmId }).select<{ id: number; year: number }[]>('id', 'year');
+		const seasonRows = await trx('seasons')
+			.where({ farm_id: farmId })
+			.select<{ id: number; year: number }[]>('id', 'year');
 		const seasonIds = new Map(seasonRows.map((r) => [String(r.year), Number(r.id)]));
 		const season2026 = need(seasonIds, '2026', 'season');
 		const season2027 = need(seasonIds, String(DEMO_PLAN_YEAR), 'season');

@@ -17,15 +17,26 @@ export function cropFormValues(c: {
 	price: number | null;
 	source: string | null;
 }): Record<string, string> {
-	return Object.fromEntries(Object.entries(cropFields).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])]));
+	return Object.fromEntries(
+		Object.entries(cropFields).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])])
+	);
 }
 
 export function varietyFormValues(v: VarietyView): Record<string, string> {
-	const stored: Record<string, unknown> = { ...v, seedPrice: v.seedPriceCentsPerGram / 100, harvestCurve: v.ownHarvestCurve ?? '' };
+	const stored: Record<string, unknown> = {
+		...v,
+		seedPrice: v.seedPriceCentsPerGram / 100,
+		harvestCurve: v.ownHarvestCurve ?? ''
+	};
 	return Object.fromEntries(Object.entries(varietyFields).map(([k, spec]) => [k, formValue(spec, stored[k])]));
 }
 
-export const newCropValues: Record<string, string> = { harvestUnit: 'lb', frostTolerance: 'hardy', baseTempF: '40', harvestCurve: 'flat' };
+export const newCropValues: Record<string, string> = {
+	harvestUnit: 'lb',
+	frostTolerance: 'hardy',
+	baseTempF: '40',
+	harvestCurve: 'flat'
+};
 export const newVarietyValues: Record<string, string> = {
 	method: 'direct',
 	harvestCurve: '',

@@ -24,7 +24,9 @@ async function navLabels(email: string): Promise<string[]> {
 describe('navigation by role', () => {
 	it('the owner sees every part, settings and team included', async () => {
 		const labels = await navLabels(demo.owner);
-		expect(labels).toEqual(expect.arrayContaining(['This week', 'Seasons', 'Crop library', 'Farm & beds', 'Team', 'Mail (dev)']));
+		expect(labels).toEqual(
+			expect.arrayContaining(['This week', 'Seasons', 'Crop library', 'Farm & beds', 'Team', 'Mail (dev)'])
+		);
 	});
 	it('the crew lead sees the plan but not settings or team', async () => {
 		const labels = await navLabels(demo.crew);
@@ -78,7 +80,10 @@ describe('invite by e-mail', () => {
 		await invitee.goto(link);
 		await invitee.getByLabel('Your name').fill('Invited Crew Lead');
 		await invitee.getByLabel('Choose a password').fill('invited-pass-22');
-		await Promise.all([invitee.waitForURL((u) => u.pathname === '/'), invitee.getByRole('button', { name: 'Join the farm' }).click()]);
+		await Promise.all([
+			invitee.waitForURL((u) => u.pathname === '/'),
+			invitee.getByRole('button', { name: 'Join the farm' }).click()
+		]);
 		await expect(invitee.getByTestId('role').innerText()).resolves.toBe('Crew lead');
 		await invitee.close();
 		await browser.context.clearCookies();

@@ -14,7 +14,11 @@ beforeAll(async () => {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id as number;
 	// The demo's main season: the one with the most plantings.
-	const main = await testDb()('plantings').where({ farm_id: farmId }).groupBy('season_id').orderByRaw('count(*) desc').first('season_id');
+	const main = await testDb()('plantings')
+		.where({ farm_id: farmId })
+		.groupBy('season_id')
+		.orderByRaw('count(*) desc')
+		.first('season_id');
 	seasonId = main.season_id as number;
 });
 afterAll(async () => {
@@ -26,11 +30,14 @@ afterAll(async () => {
 async function watch(page: Page): Promise<string[]> {
 	const seen: string[] = [];
 	page.on('console', (m) => {
-		if (/Content Security Policy/i.test(m.text())) seen.push(`${new URL(page.url()).pathname}: ${m.text().slice(0, 200)}`);
+		if (/Content Security Policy/i.test(m.text()))
+			seen.push(`${new URL(page.url()).pathname}: ${m.text().slice(0, 200)}`);
 	});
 	page.on('pageerror', (e) => seen.push(`${new URL(page.url()).pathname}: page error: ${e.message}`));
 	await page.exposeFunction('__cspViolation', (s: string) => seen.push(`${new URL(page.url()).pathname}: ${s}`));
-	await page.addInitScript(`document.addEventListener('securitypolicyviolation', (e) => window.__cspViolation(e.violatedDirective + ' ' + e.blockedURI));`);
+	await page.addInitScript(
+		`document.addEventListener('securitypolicyviolation', (e) => window.__cspViolation(e.violatedDirective + ' ' + e.blockedURI));`
+	);
 	return seen;
 }
 
@@ -67,7 +74,9 @@ describe('the CSP on every screen', () => {
 		await page.goto(`/seasons/${seasonId}/plantings`);
 		await page.locator('[data-row="0"] [data-col="lengthFt"]').click();
 		await page.keyboard.press('ArrowDown');
-		await expect(page.locator('[data-row="1"] [data-col="lengthFt"]').getAttribute('aria-selected')).resolves.toBe('true');
+		await expect(page.locator('[data-row="1"] [data-col="lengthFt"]').getAttribute('aria-selected')).resolves.toBe(
+			'true'
+		);
 		expect(seen).toEqual([]);
 		await page.close();
 		await browser.context.clearCookies();

@@ -17,11 +17,37 @@ beforeAll(async () => {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 	await testDb()('seasons').where({ farm_id: farmId, year }).delete();
-	[seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year, name: `${year} browser season (invented)`, starts_on: `${year}-01-01`, ends_on: `${year}-12-31` });
+	[seasonId] = await testDb()('seasons').insert({
+		farm_id: farmId,
+		year,
+		name: `${year} browser season (invented)`,
+		starts_on: `${year}-01-01`,
+		ends_on: `${year}-12-31`
+	});
 	carrot = (await testDb()('crops').where({ farm_id: farmId, name: 'Carrot' }).first('id')).id;
-	[shareId] = await testDb()('share_sizes').insert({ farm_id: farmId, season_id: seasonId, name: 'Full share', members: 60, first_week: `${year}-W24`, last_week: `${year}-W26` });
-	await testDb()('box_items').insert({ share_size_id: shareId, week: `${year}-W24`, crop_id: carrot, quantity: 1.5, unit: 'lb' });
-	await testDb()('channel_demand').insert({ farm_id: farmId, season_id: seasonId, channel: 'market', crop_id: carrot, week: `${year}-W24`, quantity: 20 });
+	[shareId] = await testDb()('share_sizes').insert({
+		farm_id: farmId,
+		season_id: seasonId,
+		name: 'Full share',
+		members: 60,
+		first_week: `${year}-W24`,
+		last_week: `${year}-W26`
+	});
+	await testDb()('box_items').insert({
+		share_size_id: shareId,
+		week: `${year}-W24`,
+		crop_id: carrot,
+		quantity: 1.5,
+		unit: 'lb'
+	});
+	await testDb()('channel_demand').insert({
+		farm_id: farmId,
+		season_id: seasonId,
+		channel: 'market',
+		crop_id: carrot,
+		week: `${year}-W24`,
+		quantity: 20
+	});
 });
 afterAll(async () => {
 	await browser.close();
@@ -40,7 +66,10 @@ describe('editing a box quantity', () => {
 
 		await page.getByLabel(`Carrot, ${year}-W24 (lb per box)`).fill('2');
 		// 60 full × 2 lb + 20 lb market = 120 + 20 = 140 lb, marked as not saved yet
-		await page.waitForFunction((id) => (document.querySelector(`[data-testid="${id}"]`) as HTMLElement | null)?.innerText.includes('140'), `target-${carrot}-${year}-W24`);
+		await page.waitForFunction(
+			(id) => (document.querySelector(`[data-testid="${id}"]`) as HTMLElement | null)?.innerText.includes('140'),
+			`target-${carrot}-${year}-W24`
+		);
 		await expect(target.innerText()).resolves.toMatch(/^140\*/);
 
 		await target.getByRole('button').hover();
@@ -50,9 +79,20 @@ describe('editing a box quantity', () => {
 		await expect(tip.innerText()).resolves.toMatch(/Target: .*\s*140 lb/);
 
 		await Promise.all([page.waitForURL(/grid=share/), page.getByRole('button', { name: 'Save Full share' }).click()]);
-		await page.waitForFunction((id) => (document.querySelector(`[data-testid="${id}"]`) as HTMLElement | null)?.innerText.trim() === '140', `target-${carrot}-${year}-W24`);
+		await page.waitForFunction(
+			(id) => (document.querySelector(`[data-testid="${id}"]`) as HTMLElement | null)?.innerText.trim() === '140',
+			`target-${carrot}-${year}-W24`
+		);
 		await expect(target.innerText()).resolves.toBe('140');
-		expect(Number((await testDb()('box_items').where({ share_size_id: shareId, crop_id: carrot, week: `${year}-W24` }).first()).quantity)).toBe(2);
+		expect(
+			Number(
+				(
+					await testDb()('box_items')
+						.where({ share_size_id: shareId, crop_id: carrot, week: `${year}-W24` })
+						.first()
+				).quantity
+			)
+		).toBe(2);
 		await page.close();
 		await browser.context.clearCookies();
 	});

@@ -18,7 +18,11 @@ async function fetches(page: Page): Promise<number> {
 	return Number(await page.getByTestId('forecast-page').getAttribute('data-fetches'));
 }
 async function barValue(page: Page, crop: number, week: string): Promise<number> {
-	return Number(await page.locator(`[data-testid="forecast-layer"][data-crop="${crop}"] [data-testid="forecast-bar"][data-week="${week}"]`).getAttribute('data-value'));
+	return Number(
+		await page
+			.locator(`[data-testid="forecast-layer"][data-crop="${crop}"] [data-testid="forecast-bar"][data-week="${week}"]`)
+			.getAttribute('data-value')
+	);
 }
 
 describe('forecast chart', () => {
@@ -27,7 +31,9 @@ describe('forecast chart', () => {
 		const page = await browser.context.newPage();
 		await signIn(page, f.email, f.password);
 		await page.goto(`/seasons/${f.season2027}/forecast?from=2027-W22&to=2027-W27`);
-		await page.waitForFunction(() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1);
+		await page.waitForFunction(
+			() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1
+		);
 
 		// Four crops with figures (carrot, spinach, kale, chard); W22 … W27 is 6 weeks, one bar each.
 		const layers = page.getByTestId('forecast-layer');
@@ -48,7 +54,9 @@ describe('forecast chart', () => {
 		// Percent of demand: W24 has two crops with demand (carrot, kale), each weighing ½:
 		// carrot 20 ÷ 25 × 100 ÷ 2 = 40; kale 12 ÷ 10 × 100 ÷ 2 = 60; spinach has no demand → 0.
 		await page.getByLabel('% of demand').check();
-		await page.waitForFunction(() => document.querySelector('[data-testid="axis-y"]')?.textContent?.includes('% of demand'));
+		await page.waitForFunction(() =>
+			document.querySelector('[data-testid="axis-y"]')?.textContent?.includes('% of demand')
+		);
 		expect(await barValue(page, f.crops.carrot, '2027-W24')).toBeCloseTo(40, 9);
 		expect(await barValue(page, f.crops.kale, '2027-W24')).toBeCloseTo(60, 9);
 		expect(await barValue(page, f.crops.spinach, '2027-W24')).toBe(0);
@@ -59,21 +67,29 @@ describe('forecast chart', () => {
 		const before = await fetches(page);
 		await testDb()('plantings').where({ id: f.plantings.carrot }).update({ length_ft: 15 });
 		await page.evaluate(() => window.dispatchEvent(new Event('furrowcast:plan-changed')));
-		await page.waitForFunction((n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n, before);
+		await page.waitForFunction(
+			(n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n,
+			before
+		);
 		expect(await barValue(page, f.crops.carrot, '2027-W24')).toBeCloseTo(30, 9);
 
 		// Coming back to the tab refetches too: 20 ft → 40 lb.
 		const again = await fetches(page);
 		await testDb()('plantings').where({ id: f.plantings.carrot }).update({ length_ft: 20 });
 		await page.evaluate(() => window.dispatchEvent(new Event('focus')));
-		await page.waitForFunction((n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n, again);
+		await page.waitForFunction(
+			(n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n,
+			again
+		);
 		expect(await barValue(page, f.crops.carrot, '2027-W24')).toBeCloseTo(40, 9);
 
 		// The same numbers as a table: 4 crop-weeks with figures (all in W24).
 		await page.getByRole('button', { name: 'Table' }).click();
 		const rows = page.getByTestId('forecast-table').locator('tbody tr');
 		await expect(rows.count()).resolves.toBe(4);
-		await expect(page.getByTestId('forecast-table').innerText()).resolves.toMatch(/Carrot \(test\)\s+40\s+25\s+0\s+15\s+lb\s+forecast/);
+		await expect(page.getByTestId('forecast-table').innerText()).resolves.toMatch(
+			/Carrot \(test\)\s+40\s+25\s+0\s+15\s+lb\s+forecast/
+		);
 		await page.close();
 		await browser.context.clearCookies();
 	});
@@ -83,12 +99,19 @@ describe('forecast chart', () => {
 		const page = await browser.context.newPage();
 		await signIn(page, f.email, f.password);
 		await page.goto(`/seasons/${f.season2027}/forecast?from=2027-W24&to=2027-W25`);
-		await page.waitForFunction(() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1);
+		await page.waitForFunction(
+			() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1
+		);
 		const before = await fetches(page);
 		// Amaranthaceae here: spinach and chard.
 		await page.getByLabel('Crop family').selectOption('Amaranthaceae');
-		await page.waitForFunction((n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n, before);
-		const names = await page.getByTestId('forecast-layer').evaluateAll((els) => els.map((e) => e.getAttribute('data-crop-name')));
+		await page.waitForFunction(
+			(n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n,
+			before
+		);
+		const names = await page
+			.getByTestId('forecast-layer')
+			.evaluateAll((els) => els.map((e) => e.getAttribute('data-crop-name')));
 		expect(names).toEqual(['Chard (test)', 'Spinach (test)']);
 		await page.close();
 		await browser.context.clearCookies();
@@ -111,12 +134,18 @@ describe('share boxes', () => {
 		const spinach = full.getByTestId('substitute').filter({ hasText: 'Spinach (test)' });
 		await expect(spinach.getByRole('textbox').inputValue()).resolves.toBe('0.5');
 		await spinach.getByRole('button', { name: /^Swap Carrot \(test\) for Spinach \(test\)/ }).click();
-		await page.waitForFunction((sel) => document.querySelector(sel)?.textContent?.trim() === '100 %', `[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"] [data-testid="box-fill"]`);
+		await page.waitForFunction(
+			(sel) => document.querySelector(sel)?.textContent?.trim() === '100 %',
+			`[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"] [data-testid="box-fill"]`
+		);
 		await expect(page.getByTestId('weeks-filled').innerText()).resolves.toBe('1 of 1 weeks');
 		await expect(page.getByTestId('average-fill').innerText()).resolves.toBe('100 %');
 
 		await page.getByRole('button', { name: /^Undo swap of Carrot \(test\) for Spinach \(test\)/ }).click();
-		await page.waitForFunction((sel) => document.querySelector(sel)?.textContent?.trim() === '90 %', `[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"] [data-testid="box-fill"]`);
+		await page.waitForFunction(
+			(sel) => document.querySelector(sel)?.textContent?.trim() === '90 %',
+			`[data-testid="box"][data-share="${f.shares.full}"][data-week="2027-W24"] [data-testid="box-fill"]`
+		);
 		// Half box back at 80 %; season average (90 + 80) ÷ 2 = 85 %.
 		await expect(page.getByTestId('average-fill').innerText()).resolves.toBe('85 %');
 		await expect(page.locator('[data-testid="swap"][data-undone="true"]').count()).resolves.toBe(1);

@@ -21,7 +21,8 @@ const isoWeekOf = (d: string): string => {
 	const date = new Date(`${d}T12:00:00Z`);
 	return `${getISOWeekYear(date)}-W${String(getISOWeek(date)).padStart(2, '0')}`;
 };
-const day = (d: string, n: number): string => new Date(Date.parse(`${d}T12:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
+const day = (d: string, n: number): string =>
+	new Date(Date.parse(`${d}T12:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 const dateText = (v: unknown): string => (v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10));
 
 beforeAll(async () => {
@@ -30,15 +31,47 @@ beforeAll(async () => {
 	const u = await db('users').where({ email: demo.owner }).first('id');
 	farmId = (await db('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 	// A season of its own, so these edits never touch the demo season other tests read.
-	[seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2033, name: '2033 grid links test (invented)', starts_on: '2033-01-01', ends_on: '2033-12-31' });
-	// A crop of its own with round figures, so the forecast arithmetic below can be done by hand.
-	[cropId] = await db('crops').insert({ farm_id: farmId, name: 'Links test chard (invented)', family: 'Amaranthaceae', harvest_unit: 'lb', frost_tolerance: 'hardy' });
-	const [ownVariety] = await db('varieties').insert({
-		farm_id: farmId, crop_id: cropId, name: 'Links Green (invented)', method: 'direct', days_to_maturity: 50, harvest_window_days: 21,
-		yield_per_bed_foot: 0.5, rows_per_bed: 2, in_row_spacing_in: 6, seeds_per_spot: 1, germination_rate: 0.8, seeds_per_gram: 60
+	[seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2033,
+		name: '2033 grid links test (invented)',
+		starts_on: '2033-01-01',
+		ends_on: '2033-12-31'
 	});
-	const variety = await db('varieties').where({ farm_id: farmId, method: 'direct' }).whereNull('gdd_to_maturity').whereNot({ id: ownVariety }).first('id');
-	const beds = await db('beds as b').join('blocks as k', 'k.id', 'b.block_id').where({ 'b.farm_id': farmId }).where('b.length_ft', '>=', 50).orderBy('b.id').limit(2).select('b.id', 'b.name', 'k.name as block');
+	// A crop of its own with round figures, so the forecast arithmetic below can be done by hand.
+	[cropId] = await db('crops').insert({
+		farm_id: farmId,
+		name: 'Links test chard (invented)',
+		family: 'Amaranthaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy'
+	});
+	const [ownVariety] = await db('varieties').insert({
+		farm_id: farmId,
+		crop_id: cropId,
+		name: 'Links Green (invented)',
+		method: 'direct',
+		days_to_maturity: 50,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 0.5,
+		rows_per_bed: 2,
+		in_row_spacing_in: 6,
+		seeds_per_spot: 1,
+		germination_rate: 0.8,
+		seeds_per_gram: 60
+	});
+	const variety = await db('varieties')
+		.where({ farm_id: farmId, method: 'direct' })
+		.whereNull('gdd_to_maturity')
+		.whereNot({ id: ownVariety })
+		.first('id');
+	const beds = await db('beds as b')
+		.join('blocks as k', 'k.id', 'b.block_id')
+		.where({ 'b.farm_id': farmId })
+		.where('b.length_ft', '>=', 50)
+		.orderBy('b.id')
+		.limit(2)
+		.select('b.id', 'b.name', 'k.name as block');
 	bedX = { id: beds[0].id, label: `${beds[0].block} · ${beds[0].name}` };
 	const owner = await signedIn(demo.owner, demo.password);
 	const post = async (plantings: Record<string, unknown>[]): Promise<number[]> => {
@@ -47,7 +80,15 @@ beforeAll(async () => {
 		return (await res.json()).plantings.map((p: { id: number }) => p.id);
 	};
 	// 60 earlier plantings without a bed: the grid lists by field date, so a and b sit far down.
-	await post(Array.from({ length: 60 }, () => ({ varietyId: variety.id, bedId: null, startFt: 0, lengthFt: 10, fieldDate: '2033-04-04' })));
+	await post(
+		Array.from({ length: 60 }, () => ({
+			varietyId: variety.id,
+			bedId: null,
+			startFt: 0,
+			lengthFt: 10,
+			fieldDate: '2033-04-04'
+		}))
+	);
 	[ids.a, ids.b] = await post([
 		{ varietyId: variety.id, bedId: beds[0].id, startFt: 0, lengthFt: 20, fieldDate: '2033-05-02' },
 		{ varietyId: variety.id, bedId: beds[1].id, startFt: 30, lengthFt: 20, fieldDate: '2033-05-02' }
@@ -110,14 +151,18 @@ describe('the grid and the bed timeline', () => {
 		for (const id of [ids.a, ids.b]) {
 			const bar = page.locator(`[data-testid="bed-bar"][data-planting-id="${id}"]`);
 			await bar.waitFor();
-			await expect(page.locator(`[data-testid="bed-bar"][data-planting-id="${id}"][data-conflict~="overlap"]`).count()).resolves.toBe(1);
+			await expect(
+				page.locator(`[data-testid="bed-bar"][data-planting-id="${id}"][data-conflict~="overlap"]`).count()
+			).resolves.toBe(1);
 		}
 	});
 
 	it('clicking a bar on the timeline lands on the grid with that planting selected', async () => {
 		await page.goto(`/seasons/${seasonId}/beds`);
 		await page.locator(`[data-testid="bed-bar"][data-planting-id="${ids.b}"]`).click();
-		await page.waitForURL((u) => u.pathname === `/seasons/${seasonId}/plantings` && u.searchParams.get('planting') === String(ids.b));
+		await page.waitForURL(
+			(u) => u.pathname === `/seasons/${seasonId}/plantings` && u.searchParams.get('planting') === String(ids.b)
+		);
 		const target = row(ids.b);
 		await target.waitFor();
 		// Far down the grid (after 60 earlier plantings), so it was scrolled to, not just there.
@@ -148,7 +193,9 @@ describe('the grid and the forecast', () => {
 			const res = await page.request.get(`/api/seasons/${seasonId}/forecast?crops=${cropId}`);
 			expect(res.status()).toBe(200);
 			const body = await res.json();
-			return body.rows.find((r: { crop: string; week: string }) => r.crop === String(cropId) && r.week === week)?.supply ?? 0;
+			return (
+				body.rows.find((r: { crop: string; week: string }) => r.crop === String(cropId) && r.week === week)?.supply ?? 0
+			);
 		};
 		const before = await supply();
 		// 20 ft × 0.5 lb/ft = 10 lb over a 21-day window = 3 weeks → 10 ÷ 3 = 3.333 lb a full week.
@@ -158,7 +205,11 @@ describe('the grid and the forecast', () => {
 		await reachRow(ids.c);
 		let told = 0;
 		await page.exposeFunction('__planChanged', () => void told++);
-		await page.evaluate(() => window.addEventListener('furrowcast:plan-changed', () => (window as unknown as { __planChanged: () => void }).__planChanged()));
+		await page.evaluate(() =>
+			window.addEventListener('furrowcast:plan-changed', () =>
+				(window as unknown as { __planChanged: () => void }).__planChanged()
+			)
+		);
 		await typeInto(ids.c, 'lengthFt', '32');
 		await expect(cellOf(ids.c, 'lengthFt').innerText()).resolves.toBe('32 ft');
 		await saved();

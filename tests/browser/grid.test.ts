@@ -16,12 +16,27 @@ beforeAll(async () => {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 	// A season of its own, so these edits never touch the demo season other tests read.
-	[seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year: 2031, name: '2031 grid test (invented)', starts_on: '2031-01-01', ends_on: '2031-12-31' });
-	const variety = await testDb()('varieties').where({ farm_id: farmId, method: 'direct' }).whereNull('gdd_to_maturity').first('id');
+	[seasonId] = await testDb()('seasons').insert({
+		farm_id: farmId,
+		year: 2031,
+		name: '2031 grid test (invented)',
+		starts_on: '2031-01-01',
+		ends_on: '2031-12-31'
+	});
+	const variety = await testDb()('varieties')
+		.where({ farm_id: farmId, method: 'direct' })
+		.whereNull('gdd_to_maturity')
+		.first('id');
 	const bed = await testDb()('beds').where({ farm_id: farmId }).orderBy('length_ft', 'desc').first('id');
 	const owner = await signedIn(demo.owner, demo.password);
 	const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', {
-		plantings: [0, 1, 2, 3].map((i) => ({ varietyId: variety.id, bedId: bed.id, startFt: i * 25, lengthFt: 20, fieldDate: '2031-05-05' }))
+		plantings: [0, 1, 2, 3].map((i) => ({
+			varietyId: variety.id,
+			bedId: bed.id,
+			startFt: i * 25,
+			lengthFt: 20,
+			fieldDate: '2031-05-05'
+		}))
 	});
 	ids = (await res.json()).plantings.map((p: { id: number }) => p.id);
 });

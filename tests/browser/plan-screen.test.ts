@@ -48,10 +48,17 @@ describe('plan screen', () => {
 		await signIn(page, f.email, f.password);
 		await page.goto(`/seasons/${f.season2027}/plan`);
 		// Reachable from the season's tabs.
-		await expect(page.getByRole('navigation', { name: 'Season' }).getByRole('link', { name: 'Plan', exact: true }).getAttribute('aria-current')).resolves.toBe('page');
+		await expect(
+			page
+				.getByRole('navigation', { name: 'Season' })
+				.getByRole('link', { name: 'Plan', exact: true })
+				.getAttribute('aria-current')
+		).resolves.toBe('page');
 		// Crops with demand: carrot (W24: 10 × 2 lb + 5 × 1 lb = 25 lb) and kale (10 × 1 bunch).
 		await expect(page.getByTestId('plan-crop').count()).resolves.toBe(2);
-		await expect(page.locator('[data-testid="plan-crop"]', { hasText: 'Carrot (test)' }).innerText()).resolves.toContain('25 lb over 1 week');
+		await expect(
+			page.locator('[data-testid="plan-crop"]', { hasText: 'Carrot (test)' }).innerText()
+		).resolves.toContain('25 lb over 1 week');
 
 		const before = await plantings();
 		const beforeCounts = await counts();
@@ -104,12 +111,26 @@ describe('plan screen', () => {
 		await expect(page.getByRole('button', { name: 'Apply', exact: true }).isDisabled()).resolves.toBe(true);
 		// And the server refuses that preview's fingerprint even if it is sent anyway.
 		const fingerprint = await page.evaluate(async (id) => {
-			const r = await fetch(`/api/seasons/${id}/plan/preview`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' });
+			const r = await fetch(`/api/seasons/${id}/plan/preview`, {
+				method: 'POST',
+				headers: { 'content-type': 'application/json' },
+				body: '{}'
+			});
 			return ((await r.json()) as { fingerprint: string }).fingerprint;
 		}, f.season2027);
-		await testDb()('plantings').where({ season_id: f.season2027, status: 'planned' }).limit(1).update({ notes: 'edited meanwhile', version: testDb().raw('version + 1') });
+		await testDb()('plantings')
+			.where({ season_id: f.season2027, status: 'planned' })
+			.limit(1)
+			.update({ notes: 'edited meanwhile', version: testDb().raw('version + 1') });
 		const stale = await page.evaluate(
-			async ([id, fp]) => (await fetch(`/api/seasons/${id}/plan/apply`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ fingerprint: fp }) })).status,
+			async ([id, fp]) =>
+				(
+					await fetch(`/api/seasons/${id}/plan/apply`, {
+						method: 'POST',
+						headers: { 'content-type': 'application/json' },
+						body: JSON.stringify({ fingerprint: fp })
+					})
+				).status,
 			[f.season2027, fingerprint] as const
 		);
 		expect(stale).toBe(409);

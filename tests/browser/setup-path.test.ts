@@ -29,7 +29,10 @@ async function signUp(page: Page, email: string, farm: string): Promise<void> {
 }
 
 async function noSidewaysScroll(page: Page): Promise<void> {
-	const { scroll, width } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, width: window.innerWidth }));
+	const { scroll, width } = await page.evaluate(() => ({
+		scroll: document.documentElement.scrollWidth,
+		width: window.innerWidth
+	}));
 	expect(scroll, `${page.url()} is ${scroll}px wide in a ${width}px window`).toBeLessThanOrEqual(width);
 }
 
@@ -38,7 +41,12 @@ describe('set-up path', () => {
 		const page = await browser.context.newPage();
 		const email = uniqueEmail('setup');
 		await signUp(page, email, 'Setup Path Farm (invented)');
-		const farmId = (await testDb()('farm_members as m').join('users as u', 'u.id', 'm.user_id').where('u.email', email).first('m.farm_id')).farm_id;
+		const farmId = (
+			await testDb()('farm_members as m')
+				.join('users as u', 'u.id', 'm.user_id')
+				.where('u.email', email)
+				.first('m.farm_id')
+		).farm_id;
 
 		// 1. Location and frost: the sign-up's answers are there to check; the time zone is typed.
 		await expect.poll(() => page.getByLabel('Last spring frost').inputValue()).toBe('2027-05-12');
@@ -56,7 +64,9 @@ describe('set-up path', () => {
 		await page.getByLabel('Bed width (in)').fill('30');
 		await page.getByLabel('Names start with').fill('N');
 		await page.getByRole('button', { name: 'Add beds' }).click();
-		await expect.poll(() => page.getByRole('status').first().textContent()).toContain('Added 12 beds to North: N1 … N12');
+		await expect
+			.poll(() => page.getByRole('status').first().textContent())
+			.toContain('Added 12 beds to North: N1 … N12');
 		const beds = await testDb()('beds').where({ farm_id: farmId }).orderBy('position');
 		expect(beds.map((b) => b.name)).toEqual(Array.from({ length: 12 }, (_, i) => `N${i + 1}`));
 		expect(beds.every((b) => Number(b.length_ft) === 100 && b.width_in === 30)).toBe(true);
@@ -68,20 +78,32 @@ describe('set-up path', () => {
 
 		// 3. Crops from the starter library.
 		await Promise.all([page.waitForURL('**/setup/crops'), page.getByRole('link', { name: 'Go on to crops' }).click()]);
-		for (const name of ['Carrot', 'Beet', 'Lettuce, head', 'Tomato']) await page.getByRole('checkbox', { name: new RegExp(`^${name} \\(`) }).check();
+		for (const name of ['Carrot', 'Beet', 'Lettuce, head', 'Tomato'])
+			await page.getByRole('checkbox', { name: new RegExp(`^${name} \\(`) }).check();
 		await page.getByRole('button', { name: 'Add ticked crops' }).click();
-		await expect.poll(() => page.getByRole('status').first().textContent()).toMatch(/Added 4 crops with \d+ varieties to your library\./);
+		await expect
+			.poll(() => page.getByRole('status').first().textContent())
+			.toMatch(/Added 4 crops with \d+ varieties to your library\./);
 		const crops = await testDb()('crops').where({ farm_id: farmId }).orderBy('name').pluck('name');
 		expect(crops).toEqual(['Beet', 'Carrot', 'Lettuce, head', 'Tomato']);
-		const carrot = await testDb()('varieties as v').join('crops as c', 'c.id', 'v.crop_id').where({ 'c.farm_id': farmId, 'v.name': 'Carrot, standard' }).first('v.*');
+		const carrot = await testDb()('varieties as v')
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where({ 'c.farm_id': farmId, 'v.name': 'Carrot, standard' })
+			.first('v.*');
 		expect(carrot.source).toContain('Extension');
 		await expect.poll(() => page.getByRole('checkbox', { name: /^Carrot \(/ }).isDisabled()).toBe(true);
 
 		// 4. The first season, then on to its demand.
-		await Promise.all([page.waitForURL('**/setup/season'), page.getByRole('link', { name: 'Go on to the season' }).click()]);
+		await Promise.all([
+			page.waitForURL('**/setup/season'),
+			page.getByRole('link', { name: 'Go on to the season' }).click()
+		]);
 		await page.getByLabel('Year').fill('2027');
 		await page.getByLabel('Name', { exact: true }).fill('First year');
-		await Promise.all([page.waitForURL(/\/seasons\/\d+\/demand$/), page.getByRole('button', { name: 'Create season and enter demand' }).click()]);
+		await Promise.all([
+			page.waitForURL(/\/seasons\/\d+\/demand$/),
+			page.getByRole('button', { name: 'Create season and enter demand' }).click()
+		]);
 		const season = await testDb()('seasons').where({ farm_id: farmId }).first();
 		expect(season).toMatchObject({ year: 2027, name: 'First year' });
 
@@ -102,7 +124,10 @@ describe('set-up path', () => {
 		await noSidewaysScroll(page);
 		await Promise.all([page.waitForURL('**/setup/season'), page.getByRole('link', { name: 'Skip this step' }).click()]);
 		await noSidewaysScroll(page);
-		await Promise.all([page.waitForURL((u) => u.pathname === '/'), page.getByRole('link', { name: 'Skip: finish set-up' }).click()]);
+		await Promise.all([
+			page.waitForURL((u) => u.pathname === '/'),
+			page.getByRole('link', { name: 'Skip: finish set-up' }).click()
+		]);
 		// Nothing set up: "This week" says so and leads back to the set-up path.
 		await expect.poll(() => page.getByTestId('setup-banner').textContent()).toContain('No season yet.');
 
@@ -115,12 +140,18 @@ describe('set-up path', () => {
 		await noSidewaysScroll(page);
 		// Crops later, from the crop library.
 		await page.goto('/crops');
-		await Promise.all([page.waitForURL('**/setup/crops'), page.getByRole('link', { name: 'Add from starter library' }).click()]);
+		await Promise.all([
+			page.waitForURL('**/setup/crops'),
+			page.getByRole('link', { name: 'Add from starter library' }).click()
+		]);
 		// A season later, from Seasons.
 		await page.goto('/seasons');
 		await page.getByLabel('Year').fill('2028');
 		await page.getByRole('textbox', { name: 'Name', exact: true }).fill('Later season');
-		await Promise.all([page.waitForURL(/\/seasons\/\d+$/), page.getByRole('button', { name: 'Create season' }).click()]);
+		await Promise.all([
+			page.waitForURL(/\/seasons\/\d+$/),
+			page.getByRole('button', { name: 'Create season' }).click()
+		]);
 		await page.close();
 	});
 });

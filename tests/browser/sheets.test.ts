@@ -51,7 +51,9 @@ describe('printing the sheets', () => {
 		await expect(page.getByRole('button', { name: 'Send sheets' }).isVisible()).resolves.toBe(false);
 		await expect(page.locator('.print-only').first().isVisible()).resolves.toBe(true);
 		// Black and white: section text is printed black.
-		await expect(page.getByTestId('section-harvest').evaluate((el) => getComputedStyle(el).color)).resolves.toBe('rgb(0, 0, 0)');
+		await expect(page.getByTestId('section-harvest').evaluate((el) => getComputedStyle(el).color)).resolves.toBe(
+			'rgb(0, 0, 0)'
+		);
 
 		// The fixture has one task of each kind in W21 (tray, direct, transplant, harvest): four short
 		// sections, each starting on a new page, so exactly four pages on either paper size.
@@ -70,16 +72,28 @@ describe('printing the sheets', () => {
 		await browser.context.clearCookies();
 	});
 
-	it("a busy week of the demo season: every printed page names its task kind and week, and empty kinds print no page", async () => {
+	it('a busy week of the demo season: every printed page names its task kind and week, and empty kinds print no page', async () => {
 		// 2027-W34 of the invented demo farm: late-summer harvests across many beds run over several pages.
-		const demoSeason = (await testDb()('seasons as s').join('farms as f', 'f.id', 's.farm_id').where('s.year', 2027).orderBy('s.id').first('s.id')).id;
+		const demoSeason = (
+			await testDb()('seasons as s')
+				.join('farms as f', 'f.id', 's.farm_id')
+				.where('s.year', 2027)
+				.orderBy('s.id')
+				.first('s.id')
+		).id;
 		const page = await browser.context.newPage();
 		await signIn(page, 'crew@demo.furrowcast.test', 'demo-harvest-2027');
 		await page.goto(`/seasons/${demoSeason}/week/2027-W34`);
 		await page.emulateMedia({ media: 'print' });
-		const counts = await page.locator('[data-testid^="section-"]').evaluateAll((els) =>
-			els.map((el) => ({ kind: el.getAttribute('data-testid')!.slice(8), title: el.querySelector('h2')!.textContent!.split('·')[0].trim(), empty: el.classList.contains('empty') }))
-		);
+		const counts = await page
+			.locator('[data-testid^="section-"]')
+			.evaluateAll((els) =>
+				els.map((el) => ({
+					kind: el.getAttribute('data-testid')!.slice(8),
+					title: el.querySelector('h2')!.textContent!.split('·')[0].trim(),
+					empty: el.classList.contains('empty')
+				}))
+			);
 		const pdf = await page.pdf({ format: 'Letter' });
 		await page.close();
 		await browser.context.clearCookies();
@@ -88,7 +102,10 @@ describe('printing the sheets', () => {
 		// Source: pdftotext (poppler-utils) reads the printed PDF, page by page.
 		const titles = counts.filter((c) => !c.empty).map((c) => `${c.title} · 2027-W34`);
 		for (const [i, text] of pages.entries()) {
-			expect(titles.some((t) => text.includes(t)), `page ${i + 1} names its kind and week:\n${text.slice(0, 300)}`).toBe(true);
+			expect(
+				titles.some((t) => text.includes(t)),
+				`page ${i + 1} names its kind and week:\n${text.slice(0, 300)}`
+			).toBe(true);
 		}
 		// Each busy kind starts a page of its own; a kind with no tasks takes none and page 1 says so.
 		for (const c of counts) {
@@ -132,12 +149,19 @@ describe('marking a task done on a phone', () => {
 		// The page fits the phone: nothing pushes it wider than the screen.
 		await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(390);
 
-		const today = new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Chicago', year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+		const today = new Intl.DateTimeFormat('en-CA', {
+			timeZone: 'America/Chicago',
+			year: 'numeric',
+			month: '2-digit',
+			day: '2-digit'
+		}).format(new Date());
 		const row = page.getByTestId(`task-direct_sow-${f.p.directCarrot}`);
 		await expect(row.getByLabel('Actual date').inputValue()).resolves.toBe(today);
 		await button.click();
 		await row.getByTestId('done-on').waitFor();
-		const p = await testDb()('plantings').where({ id: f.p.directCarrot }).first('status', 'actual_field_date', 'version');
+		const p = await testDb()('plantings')
+			.where({ id: f.p.directCarrot })
+			.first('status', 'actual_field_date', 'version');
 		expect(p).toEqual({ status: 'sown', actual_field_date: today, version: 2 });
 		await expect(row.getByTestId('done-on').innerText()).resolves.toContain('status sown');
 		await page.close();

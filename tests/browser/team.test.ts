@@ -35,10 +35,20 @@ describe('Team page in Chromium', () => {
 				await expect(page.getByRole('heading', { name: 'People on this farm' }).isVisible()).resolves.toBe(true);
 				await expect(page.getByLabel('Role of Robin Crewlead').inputValue()).resolves.toBe('crew_lead');
 				await expect(page.getByText('not sent').isVisible()).resolves.toBe(true);
-				await expect(page.getByRole('button', { name: /^Resend/ }).first().isVisible()).resolves.toBe(true);
-				const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+				await expect(
+					page
+						.getByRole('button', { name: /^Resend/ })
+						.first()
+						.isVisible()
+				).resolves.toBe(true);
+				const overflow = await page.evaluate(
+					() => document.documentElement.scrollWidth - document.documentElement.clientWidth
+				);
 				expect(overflow).toBeLessThanOrEqual(0);
-				await page.screenshot({ path: join(process.env.FC_SCREENSHOT_DIR ?? tmpdir(), `team-${width}.png`), fullPage: true });
+				await page.screenshot({
+					path: join(process.env.FC_SCREENSHOT_DIR ?? tmpdir(), `team-${width}.png`),
+					fullPage: true
+				});
 			} finally {
 				await browser.close();
 			}
@@ -54,9 +64,13 @@ describe('Team page in Chromium', () => {
 			await page.getByLabel('Role of Robin Crewlead').selectOption('share_manager');
 			const row = page.locator('li', { has: page.getByLabel('Role of Robin Crewlead') });
 			await Promise.all([page.waitForURL(/changed=/), row.getByRole('button', { name: 'Change role' }).click()]);
-			await expect(page.getByRole('status').filter({ hasText: "Robin Crewlead's role is changed" }).isVisible()).resolves.toBe(true);
+			await expect(
+				page.getByRole('status').filter({ hasText: "Robin Crewlead's role is changed" }).isVisible()
+			).resolves.toBe(true);
 			const user = await testDb()('users').where({ email: memberEmail }).first('id');
-			expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: user.id }).first('role')).role).toBe('share_manager');
+			expect(
+				(await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: user.id }).first('role')).role
+			).toBe('share_manager');
 			expect((await member.get('/api/me')).status).toBe(401);
 		} finally {
 			await browser.close();

@@ -36,12 +36,17 @@ describe('export and re-import through the pages', () => {
 		await signIn(page, demo.owner, demo.password);
 		await page.goto(`/seasons/${demoSeasonId}/transfer`);
 		await expect(page.getByRole('heading', { name: 'Export & import' }).isVisible()).resolves.toBe(true);
-		const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download workbook (.xlsx)' }).click()]);
+		const [download] = await Promise.all([
+			page.waitForEvent('download'),
+			page.getByRole('link', { name: 'Download workbook (.xlsx)' }).click()
+		]);
 		expect(download.suggestedFilename()).toMatch(/^furrowcast-wrenfield-market-garden-invented-demo-2027\.xlsx$/);
 		saved = join(dir, download.suggestedFilename());
 		await download.saveAs(saved);
 		// The page read the stream itself and says how much came.
-		await expect(page.getByTestId('export-done').innerText()).resolves.toMatch(/Workbook ready: [\d,]+ KB, [\d,]+ rows/);
+		await expect(page.getByTestId('export-done').innerText()).resolves.toMatch(
+			/Workbook ready: [\d,]+ KB, [\d,]+ rows/
+		);
 		const wb = await loadWorkbook(readFileSync(saved));
 		const plantings = wb.getWorksheet('Plantings')!;
 		expect(plantings.rowCount - 1).toBe(await count('plantings', { season_id: demoSeasonId }));
@@ -61,12 +66,18 @@ describe('export and re-import through the pages', () => {
 		await page.getByLabel('Latitude (° N, negative for south)').fill('42.5');
 		await page.getByLabel('Last spring frost').fill('2027-05-10');
 		await page.getByLabel('First fall frost').fill('2027-10-05');
-		await Promise.all([page.waitForURL(/\/(settings|setup)/), page.getByRole('button', { name: /sign up|create/i }).click()]);
+		await Promise.all([
+			page.waitForURL(/\/(settings|setup)/),
+			page.getByRole('button', { name: /sign up|create/i }).click()
+		]);
 
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' }).click();
 		await page.waitForURL(/\/import$/);
 		await page.getByLabel('Workbook or CSV file').setInputFiles(saved);
-		await Promise.all([page.waitForURL(/\/seasons\/\d+\/transfer\?imported=1/), page.getByRole('button', { name: 'Import' }).click()]);
+		await Promise.all([
+			page.waitForURL(/\/seasons\/\d+\/transfer\?imported=1/),
+			page.getByRole('button', { name: 'Import' }).click()
+		]);
 		const n = await count('plantings', { season_id: demoSeasonId });
 		await expect(page.getByTestId('import-summary').innerText()).resolves.toContain(`Imported ${n} plantings`);
 
@@ -122,8 +133,13 @@ describe('export and re-import through the pages', () => {
 		await page.setViewportSize({ width: 390, height: 844 });
 		await page.screenshot({ path: '/tmp/fc-import-preview-390.png', fullPage: true });
 		const before = await count('plantings', { season_id: season });
-		await Promise.all([page.waitForURL(/\/transfer\?updated=1/), page.getByRole('button', { name: 'Apply these changes' }).click()]);
-		await expect(page.getByTestId('update-summary').innerText()).resolves.toBe('Season updated from the file: 0 added, 1 changed, 1 removed.');
+		await Promise.all([
+			page.waitForURL(/\/transfer\?updated=1/),
+			page.getByRole('button', { name: 'Apply these changes' }).click()
+		]);
+		await expect(page.getByTestId('update-summary').innerText()).resolves.toBe(
+			'Season updated from the file: 0 added, 1 changed, 1 removed.'
+		);
 		expect(await count('plantings', { season_id: season })).toBe(before - 1);
 		await page.close();
 		await browser.context.clearCookies();

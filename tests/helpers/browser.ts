@@ -44,7 +44,10 @@ export async function signIn(page: Page, email: string, password: string): Promi
 	await page.goto('/signin');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
-	await Promise.all([page.waitForURL((url) => !url.pathname.startsWith('/signin')), page.getByRole('button', { name: 'Sign in' }).click()]);
+	await Promise.all([
+		page.waitForURL((url) => !url.pathname.startsWith('/signin')),
+		page.getByRole('button', { name: 'Sign in' }).click()
+	]);
 }
 
 export type { Browser, BrowserContext, Page };

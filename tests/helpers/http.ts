@@ -41,7 +41,11 @@ export class Client {
 	/** POST a form to a page action ('/signin' or '/settings?/farm'). */
 	postForm(path: string, fields: Record<string, string | number>): Promise<Response> {
 		const body = new URLSearchParams(Object.entries(fields).map(([k, v]) => [k, String(v)]));
-		return this.request(path, { method: 'POST', body, headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
+		return this.request(path, {
+			method: 'POST',
+			body,
+			headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }
+		});
 	}
 
 	json(path: string, method: string, payload?: unknown): Promise<Response> {
@@ -63,5 +67,8 @@ export async function signedIn(email: string, password: string): Promise<Client>
 
 /** A page's HTML with the character references decoded, to compare against plain messages. */
 export async function html(res: Response): Promise<string> {
-	return (await res.text()).replace(/&(lt|gt|amp|quot|#39|#x27);/g, (_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'", '#x27': "'" })[e] ?? '');
+	return (await res.text()).replace(
+		/&(lt|gt|amp|quot|#39|#x27);/g,
+		(_, e: string) => ({ lt: '<', gt: '>', amp: '&', quot: '"', '#39': "'", '#x27': "'" })[e] ?? ''
+	);
 }

@@ -40,10 +40,15 @@ export function actionNames(source: string): string[] {
 /** The HTTP methods a +server.ts exports. */
 export function exportedMethods(source: string): string[] {
 	const found = new Set<string>();
-	for (const m of source.matchAll(/export\s+(?:const|async\s+function|function)\s+([A-Za-z]+)\b/g)) if (METHODS.includes(m[1])) found.add(m[1]);
+	for (const m of source.matchAll(/export\s+(?:const|async\s+function|function)\s+([A-Za-z]+)\b/g))
+		if (METHODS.includes(m[1])) found.add(m[1]);
 	for (const m of source.matchAll(/export\s*\{([^}]*)\}/g)) {
 		for (const part of m[1].split(',')) {
-			const name = part.trim().split(/\s+as\s+/).pop() ?? '';
+			const name =
+				part
+					.trim()
+					.split(/\s+as\s+/)
+					.pop() ?? '';
 			if (METHODS.includes(name)) found.add(name);
 		}
 	}
@@ -55,16 +60,21 @@ export function listRoutes(root = join(process.cwd(), 'src', 'routes')): RouteEn
 	for (const file of walk(root).sort()) {
 		const base = file.split(sep).pop() ?? '';
 		const routeId = relative(root, file).split(sep).slice(0, -1).join('/') || '.';
-		const add = (what: string) => entries.push({ key: `${routeId} ${what}`, routeId, what, file: relative(process.cwd(), file) });
+		const add = (what: string) =>
+			entries.push({ key: `${routeId} ${what}`, routeId, what, file: relative(process.cwd(), file) });
 		if (base === '+page.svelte') add('page');
-		else if (base === '+page.server.ts') for (const name of actionNames(readFileSync(file, 'utf8'))) add(`action:${name}`);
+		else if (base === '+page.server.ts')
+			for (const name of actionNames(readFileSync(file, 'utf8'))) add(`action:${name}`);
 		else if (base === '+server.ts') for (const method of exportedMethods(readFileSync(file, 'utf8'))) add(method);
 	}
 	// A +page.server.ts without a +page.svelte (signout) still answers GET through its load.
 	for (const file of walk(root)) {
 		if (!file.endsWith(`${sep}+page.server.ts`)) continue;
 		const routeId = relative(root, file).split(sep).slice(0, -1).join('/') || '.';
-		if (/export const load\b/.test(readFileSync(file, 'utf8')) && !entries.some((e) => e.routeId === routeId && e.what === 'page')) {
+		if (
+			/export const load\b/.test(readFileSync(file, 'utf8')) &&
+			!entries.some((e) => e.routeId === routeId && e.what === 'page')
+		) {
 			entries.push({ key: `${routeId} page`, routeId, what: 'page', file: relative(process.cwd(), file) });
 		}
 	}

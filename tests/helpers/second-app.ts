@@ -25,16 +25,31 @@ export interface SecondApp {
 export async function startSecondApp(change: Record<string, string | undefined>): Promise<SecondApp> {
 	const host = process.env.FC_HOST ?? '127.0.0.1';
 	const port = await freePort();
-	const env: NodeJS.ProcessEnv = { ...process.env, PORT: String(port), HOST: host, ORIGIN: `http://${host}:${port}`, SHUTDOWN_TIMEOUT: '1' };
+	const env: NodeJS.ProcessEnv = {
+		...process.env,
+		PORT: String(port),
+		HOST: host,
+		ORIGIN: `http://${host}:${port}`,
+		SHUTDOWN_TIMEOUT: '1'
+	};
 	for (const [k, v] of Object.entries(change)) {
 		if (v === undefined) delete env[k];
 		else env[k] = v;
 	}
-	const app: ChildProcess = spawn('node', ['scripts/serve.js', process.env.FC_BUILD_DIR ?? 'build'], { env, stdio: 'ignore' });
+	const app: ChildProcess = spawn('node', ['scripts/serve.js', process.env.FC_BUILD_DIR ?? 'build'], {
+		env,
+		stdio: 'ignore'
+	});
 	const base = `http://${host}:${port}`;
 	for (let i = 0; i < 80; i++) {
 		if (app.exitCode !== null) break;
-		if (await fetch(`${base}/signin`).then(() => true, () => false)) return { base, stop: () => app.kill('SIGTERM') };
+		if (
+			await fetch(`${base}/signin`).then(
+				() => true,
+				() => false
+			)
+		)
+			return { base, stop: () => app.kill('SIGTERM') };
 		await new Promise((r) => setTimeout(r, 250));
 	}
 	app.kill('SIGTERM');

@@ -39,7 +39,8 @@ const order: Who[] = ['anon', 'other', 'crew', 'share', 'owner'];
 async function probe(client: Client, row: AccessRow, url: string): Promise<Response> {
 	const what = row.key.split(' ').pop() ?? '';
 	if (what === 'page') return client.get(url);
-	if (what.startsWith('action:')) return client.postForm(url, Object.fromEntries(Object.entries(row.body ?? {}).map(([k, v]) => [k, String(v)])));
+	if (what.startsWith('action:'))
+		return client.postForm(url, Object.fromEntries(Object.entries(row.body ?? {}).map(([k, v]) => [k, String(v)])));
 	if (what === 'GET') return client.get(url);
 	return client.json(url, what, row.body ?? {});
 }
@@ -72,14 +73,20 @@ describe('every row holds against the running app', () => {
 				wanted[who] = row.expect[who];
 				// A page that sends a visitor to sign in must name sign-in, not anywhere else.
 				if (who === 'anon' && res.status === 303 && row.expect.anon === 303 && !row.key.startsWith('signout')) {
-					expect(res.headers.get('location') ?? '', `${row.key}: where no session is sent (${baseUrl()}${url})`).toMatch(/^\/signin/);
+					expect(
+						res.headers.get('location') ?? '',
+						`${row.key}: where no session is sent (${baseUrl()}${url})`
+					).toMatch(/^\/signin/);
 				}
 			}
 			const ok = (who: Who) => {
 				const w = row.expect[who];
 				return Array.isArray(w) ? w.includes(seen[who]) : w === seen[who];
 			};
-			expect(order.filter((w) => !ok(w)).map((w) => `${w}: got ${seen[w]}, want ${JSON.stringify(wanted[w])}`), row.key).toEqual([]);
+			expect(
+				order.filter((w) => !ok(w)).map((w) => `${w}: got ${seen[w]}, want ${JSON.stringify(wanted[w])}`),
+				row.key
+			).toEqual([]);
 		});
 	}
 });

@@ -9,7 +9,15 @@ import { demo } from '../helpers/env';
 afterAll(closeTestDb);
 
 function signUpFields(email: string): Record<string, string> {
-	return { name: 'Test Grower', email, password: 'long-enough-pass', farmName: 'Test Plot (invented)', latitude: '44.5', lastSpringFrost: '2027-05-15', firstFallFrost: '2027-10-01' };
+	return {
+		name: 'Test Grower',
+		email,
+		password: 'long-enough-pass',
+		farmName: 'Test Plot (invented)',
+		latitude: '44.5',
+		lastSpringFrost: '2027-05-15',
+		firstFallFrost: '2027-10-01'
+	};
 }
 
 describe('sign-up', () => {
@@ -51,7 +59,12 @@ describe('sign-up', () => {
 		['common password', { password: 'password12' }, 'password', 'This is a commonly used password.'],
 		['ten spaces', { password: '          ' }, 'password', 'A password of only spaces is too easy to guess.'],
 		['repeated letters', { password: 'aaaaaaaaaa' }, 'password', 'Repeated characters like "aaa" are easy to guess.'],
-		['impossible date', { lastSpringFrost: '2027-02-30' }, 'lastSpringFrost', 'Last spring frost is not a real calendar date.']
+		[
+			'impossible date',
+			{ lastSpringFrost: '2027-02-30' },
+			'lastSpringFrost',
+			'Last spring frost is not a real calendar date.'
+		]
 	];
 	for (const [what, change, field, message] of bad) {
 		it(`refuses ${what} with a message at the ${field} field, writing nothing`, async () => {
@@ -99,7 +112,9 @@ describe('sign-in and sign-out', () => {
 		for (let i = 0; i < 6; i++) await new Client().postForm('/signin', { email, password: 'wrong-password' });
 		const res = await new Client().postForm('/signin', { email, password: 'long-enough-pass' });
 		expect(res.status).toBe(429);
-		expect(await html(res)).toMatch(/Too many wrong passwords for this account in a row\. Wait \d+ seconds?, then try again/);
+		expect(await html(res)).toMatch(
+			/Too many wrong passwords for this account in a row\. Wait \d+ seconds?, then try again/
+		);
 	});
 });
 
@@ -123,12 +138,18 @@ describe('password reset by e-mail', () => {
 		const mail = await waitForMail(email);
 		expect(mail.subject).toContain('Reset your Furrowcast password');
 		const link = new URL(firstLink(mail, '/reset/'));
-		const done = await new Client().postForm(link.pathname, { password: 'a-brand-new-pass', confirm: 'a-brand-new-pass' });
+		const done = await new Client().postForm(link.pathname, {
+			password: 'a-brand-new-pass',
+			confirm: 'a-brand-new-pass'
+		});
 		expect(done.status).toBe(303);
 		expect(done.headers.get('location')).toBe('/signin?reset=1');
 		await expect(signedIn(email, 'a-brand-new-pass')).resolves.toBeInstanceOf(Client);
 		// The link works once.
-		const again = await new Client().postForm(link.pathname, { password: 'another-new-pass', confirm: 'another-new-pass' });
+		const again = await new Client().postForm(link.pathname, {
+			password: 'another-new-pass',
+			confirm: 'another-new-pass'
+		});
 		expect(again.status).toBe(400);
 	});
 

@@ -27,7 +27,9 @@ afterAll(async () => {
 });
 
 async function fresh(): Promise<{ id: number; version: number }> {
-	const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', { plantings: [{ varietyId, lengthFt: 10, fieldDate: '2027-05-03' }] });
+	const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', {
+		plantings: [{ varietyId, lengthFt: 10, fieldDate: '2027-05-03' }]
+	});
 	expect(res.status).toBe(201);
 	const p = (await res.json()).plantings[0];
 	ids.push(p.id);
@@ -51,7 +53,9 @@ describe('planting dates', () => {
 	}
 
 	it('POST fieldDate 9999-12-31: 400 naming plantings.0.fieldDate', async () => {
-		const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', { plantings: [{ varietyId, lengthFt: 10, fieldDate: '9999-12-31' }] });
+		const res = await owner.json(`/api/seasons/${seasonId}/plantings`, 'POST', {
+			plantings: [{ varietyId, lengthFt: 10, fieldDate: '9999-12-31' }]
+		});
 		expect(res.status).toBe(400);
 		expect(Object.keys((await res.json()).errors)).toEqual(['plantings.0.fieldDate']);
 	});
@@ -70,18 +74,27 @@ describe('planting dates', () => {
 			expect(Object.keys((await res.json()).errors), `${field} ${value}`).toEqual([field]);
 		}
 		// A harvest before the planting went into the field is refused too.
-		const early = await crew.json(`/api/plantings/${p.id}`, 'PATCH', { version: p.version, actualFieldDate: '2026-11-20', actualFirstHarvest: '2026-11-10' });
+		const early = await crew.json(`/api/plantings/${p.id}`, 'PATCH', {
+			version: p.version,
+			actualFieldDate: '2026-11-20',
+			actualFirstHarvest: '2026-11-10'
+		});
 		expect(early.status).toBe(400);
 		expect(Object.keys((await early.json()).errors)).toEqual(['actualFirstHarvest']);
-		const ok = await crew.json(`/api/plantings/${p.id}`, 'PATCH', { version: p.version, actualFieldDate: '2026-11-20' });
+		const ok = await crew.json(`/api/plantings/${p.id}`, 'PATCH', {
+			version: p.version,
+			actualFieldDate: '2026-11-20'
+		});
 		expect(ok.status).toBe(200);
 	});
 
 	it("the season's pages and APIs still answer 200 for every role afterwards", async () => {
 		const share = await signedIn(demo.share, demo.password);
 		for (const client of [owner, crew, share]) {
-			for (const path of ['forecast', 'boxes', 'export', 'harvests/results']) expect((await client.get(`/api/seasons/${seasonId}/${path}`)).status, path).toBe(200);
-			for (const path of ['beds', 'boxes', 'results', 'forecast']) expect((await client.get(`/seasons/${seasonId}/${path}`)).status, path).toBe(200);
+			for (const path of ['forecast', 'boxes', 'export', 'harvests/results'])
+				expect((await client.get(`/api/seasons/${seasonId}/${path}`)).status, path).toBe(200);
+			for (const path of ['beds', 'boxes', 'results', 'forecast'])
+				expect((await client.get(`/seasons/${seasonId}/${path}`)).status, path).toBe(200);
 		}
 	});
 });

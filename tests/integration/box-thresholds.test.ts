@@ -16,13 +16,20 @@ beforeAll(async () => {
 });
 
 type Sub = { crop: string; quantity: number; fromQuantity: number; byValue: boolean; covers: boolean };
-type Box = { shareSizeId: string; week: string; fillable: boolean; items: { crop: string; short: boolean; perBox: number }[]; substitutes: Record<string, Sub[]> };
+type Box = {
+	shareSizeId: string;
+	week: string;
+	fillable: boolean;
+	items: { crop: string; short: boolean; perBox: number }[];
+	substitutes: Record<string, Sub[]>;
+};
 async function box(share: number): Promise<Box> {
 	const res = await f.client.get(`/api/seasons/${f.season2027}/boxes`);
 	expect(res.status).toBe(200);
 	return ((await res.json()).boxes as Box[]).find((b) => b.shareSizeId === String(share) && b.week === '2027-W24')!;
 }
-const shortFill = async (): Promise<number> => (await testDb()('farms').where({ id: f.farmId }).first('box_short_fill_pct')).box_short_fill_pct;
+const shortFill = async (): Promise<number> =>
+	(await testDb()('farms').where({ id: f.farmId }).first('box_short_fill_pct')).box_short_fill_pct;
 
 describe('short threshold', () => {
 	it('starts at 95 %, where an 80 % carrot is short', async () => {
@@ -37,7 +44,9 @@ describe('short threshold', () => {
 		const full = await box(f.shares.full);
 		expect(full.items.find((i) => i.crop === String(f.crops.carrot))!.short).toBe(false);
 		expect(full.fillable).toBe(true);
-		expect(await html(await f.client.get(`/seasons/${f.season2027}/boxes`))).toContain('flagged short under 80 % filled');
+		expect(await html(await f.client.get(`/seasons/${f.season2027}/boxes`))).toContain(
+			'flagged short under 80 % filled'
+		);
 		await f.client.postForm(`/seasons/${f.season2027}/boxes?/shortFill`, { shortFillPct: '95' });
 	});
 
@@ -50,14 +59,22 @@ describe('short threshold', () => {
 		}
 	});
 
-	it('is the share manager\'s and owner\'s to set, not the crew lead\'s', async () => {
+	it("is the share manager's and owner's to set, not the crew lead's", async () => {
 		const crew = await signedIn(demo.crew, demo.password);
-		const season = await testDb()('seasons as s').join('farm_members as m', 'm.farm_id', 's.farm_id').join('users as u', 'u.id', 'm.user_id').where('u.email', demo.crew).first('s.id', 's.farm_id');
+		const season = await testDb()('seasons as s')
+			.join('farm_members as m', 'm.farm_id', 's.farm_id')
+			.join('users as u', 'u.id', 'm.user_id')
+			.where('u.email', demo.crew)
+			.first('s.id', 's.farm_id');
 		expect((await crew.postForm(`/seasons/${season.id}/boxes?/shortFill`, { shortFillPct: '60' })).status).toBe(403);
-		expect((await testDb()('farms').where({ id: season.farm_id }).first('box_short_fill_pct')).box_short_fill_pct).toBe(95);
+		expect((await testDb()('farms').where({ id: season.farm_id }).first('box_short_fill_pct')).box_short_fill_pct).toBe(
+			95
+		);
 		const share = await signedIn(demo.share, demo.password);
 		expect((await share.postForm(`/seasons/${season.id}/boxes?/shortFill`, { shortFillPct: '90' })).status).toBe(303);
-		expect((await testDb()('farms').where({ id: season.farm_id }).first('box_short_fill_pct')).box_short_fill_pct).toBe(90);
+		expect((await testDb()('farms').where({ id: season.farm_id }).first('box_short_fill_pct')).box_short_fill_pct).toBe(
+			90
+		);
 		await share.postForm(`/seasons/${season.id}/boxes?/shortFill`, { shortFillPct: '95' });
 	});
 });
@@ -72,12 +89,22 @@ describe('swaps across units, by value', () => {
 		// Half share, 5 members: carrot short 5 lb → 1 lb a box wanted = $2.00 → 0.67 bunch → 1 bunch (whole bunches);
 		// chard surplus 8 bunches ÷ 5 = 1 a box at most. One bunch = $3.00 = 1.5 lb, capped at the 1 lb the box holds.
 		const priced = await box(f.shares.half);
-		expect(priced.substitutes[String(f.crops.carrot)].find((s) => s.crop === String(f.crops.chard))).toMatchObject({ quantity: 1, fromQuantity: 1, byValue: true, covers: true });
+		expect(priced.substitutes[String(f.crops.carrot)].find((s) => s.crop === String(f.crops.chard))).toMatchObject({
+			quantity: 1,
+			fromQuantity: 1,
+			byValue: true,
+			covers: true
+		});
 	});
 
 	it('records the confirmed quantity and puts it in the box', async () => {
 		const res = await f.client.json(`/api/seasons/${f.season2027}/boxes/swaps`, 'POST', {
-			shareSizeId: f.shares.half, week: '2027-W24', fromCropId: f.crops.carrot, toCropId: f.crops.chard, quantity: 1, toQuantity: 2
+			shareSizeId: f.shares.half,
+			week: '2027-W24',
+			fromCropId: f.crops.carrot,
+			toCropId: f.crops.chard,
+			quantity: 1,
+			toQuantity: 2
 		});
 		expect(res.status).toBe(201);
 		const { id } = await res.json();

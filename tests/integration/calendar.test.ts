@@ -29,12 +29,19 @@ interface Parsed {
 	cal: InstanceType<typeof ICAL.Component>;
 	events: InstanceType<typeof ICAL.Event>[];
 }
-async function fetchFeed(path: string): Promise<{ status: number; text: string; type: string | null; parsed?: Parsed }> {
+async function fetchFeed(
+	path: string
+): Promise<{ status: number; text: string; type: string | null; parsed?: Parsed }> {
 	const res = await new Client().get(path, { headers: { accept: 'text/calendar' } });
 	const text = await res.text();
 	if (res.status !== 200) return { status: res.status, text, type: res.headers.get('content-type') };
 	const cal = new ICAL.Component(ICAL.parse(text));
-	return { status: 200, text, type: res.headers.get('content-type'), parsed: { cal, events: cal.getAllSubcomponents('vevent').map((v) => new ICAL.Event(v)) } };
+	return {
+		status: 200,
+		text,
+		type: res.headers.get('content-type'),
+		parsed: { cal, events: cal.getAllSubcomponents('vevent').map((v) => new ICAL.Event(v)) }
+	};
 }
 
 describe('the crew lead feed', () => {
@@ -59,10 +66,18 @@ describe('the crew lead feed', () => {
 		expect(sow.startDate.toString()).toBe('2027-05-25');
 		expect(sow.endDate.toString()).toBe('2027-05-26');
 		expect(sow.uid).toBe(`planting-${f.p.directCarrot}-direct_sow@furrowcast`);
-		expect(events.find((e) => e.uid === `planting-${f.p.trayLettuce}-tray_sow@furrowcast`)!.summary).toBe('Sow in trays: Lettuce · Test Butterhead (East E1)');
-		expect(events.find((e) => e.uid === `planting-${f.p.trayLettuce}-tray_sow@furrowcast`)!.startDate.toString()).toBe('2027-05-27');
-		expect(events.find((e) => e.uid === `planting-${f.p.transplantLettuce}-transplant@furrowcast`)!.startDate.toString()).toBe('2027-05-26');
-		expect(events.find((e) => e.uid === `planting-${f.p.harvestCarrot}-harvest@furrowcast`)!.startDate.toString()).toBe('2027-05-24');
+		expect(events.find((e) => e.uid === `planting-${f.p.trayLettuce}-tray_sow@furrowcast`)!.summary).toBe(
+			'Sow in trays: Lettuce · Test Butterhead (East E1)'
+		);
+		expect(events.find((e) => e.uid === `planting-${f.p.trayLettuce}-tray_sow@furrowcast`)!.startDate.toString()).toBe(
+			'2027-05-27'
+		);
+		expect(
+			events.find((e) => e.uid === `planting-${f.p.transplantLettuce}-transplant@furrowcast`)!.startDate.toString()
+		).toBe('2027-05-26');
+		expect(events.find((e) => e.uid === `planting-${f.p.harvestCarrot}-harvest@furrowcast`)!.startDate.toString()).toBe(
+			'2027-05-24'
+		);
 		// Four plantings: 2 direct (sow + harvest each) and 2 transplants (trays + transplant + harvest) = 10 events.
 		expect(events).toHaveLength(10);
 	});
@@ -103,13 +118,19 @@ describe('feeds by role and farm', () => {
 		expect(weeks).toHaveLength(11);
 		const w21 = weeks.find((e) => e.summary === 'Farm-share week 2027-W21')!;
 		// ISO 2027-W21 runs Mon 24 May to Sun 30 May; DTEND is exclusive, so the Monday after.
-		expect([w21.startDate.toString(), w21.endDate.toString(), w21.startDate.isDate]).toEqual(['2027-05-24', '2027-05-31', true]);
+		expect([w21.startDate.toString(), w21.endDate.toString(), w21.startDate.isDate]).toEqual([
+			'2027-05-24',
+			'2027-05-31',
+			true
+		]);
 		expect(w21.description).toContain('Test box (10 members, pick-up Thu): Carrot 1.5 lb');
 	});
 	it('the owner feed holds only this farm: a planting of another farm never appears', async () => {
 		const path = await newFeed(f.owner);
 		const { events } = (await fetchFeed(path)).parsed!;
-		const ours = new Set((await testDb()('plantings').where({ farm_id: f.farmId }).select('id')).map((r) => r.id as number));
+		const ours = new Set(
+			(await testDb()('plantings').where({ farm_id: f.farmId }).select('id')).map((r) => r.id as number)
+		);
 		for (const e of events) expect(ours.has(Number(/^planting-(\d+)-/.exec(e.uid)![1]))).toBe(true);
 		expect(events).toHaveLength(10);
 	});
@@ -155,7 +176,10 @@ describe('the feed as a second, independent reader sees it (node-ical)', () => {
 		};
 		const before = await read();
 		const p = await testDb()('plantings').where({ id: f.p.directCarrot }).first('version');
-		const res = await f.owner.json(`/api/plantings/${f.p.directCarrot}`, 'PATCH', { version: p.version, fieldDate: '2027-05-27' });
+		const res = await f.owner.json(`/api/plantings/${f.p.directCarrot}`, 'PATCH', {
+			version: p.version,
+			fieldDate: '2027-05-27'
+		});
 		expect(res.status).toBe(200);
 		const after = await read();
 		expect(new Date(after.start).toISOString().slice(0, 10)).toBe('2027-05-27');
@@ -164,13 +188,34 @@ describe('the feed as a second, independent reader sees it (node-ical)', () => {
 	});
 
 	it('covers the current seasons by default; a past test season comes in only when chosen', async () => {
-		const [old] = await testDb()('seasons').insert({ farm_id: f.farmId, year: 2019, name: 'Trial 2019', starts_on: '2019-01-01', ends_on: '2019-12-31' });
+		const [old] = await testDb()('seasons').insert({
+			farm_id: f.farmId,
+			year: 2019,
+			name: 'Trial 2019',
+			starts_on: '2019-01-01',
+			ends_on: '2019-12-31'
+		});
 		const one = await testDb()('plantings').where({ id: f.p.directCarrot }).first();
-		const [oldPlanting] = await testDb()('plantings').insert({ ...one, id: undefined, season_id: old, field_date: '2019-05-01', first_harvest: '2019-07-01', last_harvest: '2019-07-14', version: 1 });
+		const [oldPlanting] = await testDb()('plantings').insert({
+			...one,
+			id: undefined,
+			season_id: old,
+			field_date: '2019-05-01',
+			first_harvest: '2019-07-01',
+			last_harvest: '2019-07-14',
+			version: 1
+		});
 		const uid = `planting-${oldPlanting}-direct_sow@furrowcast`;
 		expect(ical.sync.parseICS((await fetchFeed(path)).text)[uid]).toBeUndefined();
-		const body = new URLSearchParams([['season', String(old)], ['season', String(f.seasonId)]]);
-		const res = await f.owner.request('/calendar?/seasons', { method: 'POST', body, headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
+		const body = new URLSearchParams([
+			['season', String(old)],
+			['season', String(f.seasonId)]
+		]);
+		const res = await f.owner.request('/calendar?/seasons', {
+			method: 'POST',
+			body,
+			headers: { origin: baseUrl(), accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }
+		});
 		expect(res.status).toBe(303);
 		expect(ical.sync.parseICS((await fetchFeed(path)).text)[uid]).toBeDefined();
 		// Back to "the current seasons": the trial season leaves the feed again.

@@ -13,7 +13,15 @@ let farmId: number;
 async function newFarm(tag: string): Promise<{ client: Client; farmId: number }> {
 	const client = new Client();
 	const email = uniqueEmail(tag);
-	const res = await client.postForm('/signup', { name: 'Library Keeper', email, password: 'long-enough-pass', farmName: 'Library Farm (invented)', latitude: '44', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-01' });
+	const res = await client.postForm('/signup', {
+		name: 'Library Keeper',
+		email,
+		password: 'long-enough-pass',
+		farmName: 'Library Farm (invented)',
+		latitude: '44',
+		lastSpringFrost: '2027-05-10',
+		firstFallFrost: '2027-10-01'
+	});
 	if (res.status !== 303) throw new Error(`sign-up answered ${res.status}`);
 	const u = await testDb()('users').where({ email }).first('id');
 	return { client, farmId: (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id };
@@ -24,15 +32,40 @@ beforeAll(async () => {
 });
 
 const crop = {
-	name: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', frostTolerance: 'hardy', heatLimitF: '', baseTempF: '40', harvestCurve: 'flat', cutIntervalDays: '',
-	storageWeeks: '', storageLossPct: '', price: '2.50', source: 'test'
+	name: 'Carrot',
+	family: 'Apiaceae',
+	harvestUnit: 'lb',
+	frostTolerance: 'hardy',
+	heatLimitF: '',
+	baseTempF: '40',
+	harvestCurve: 'flat',
+	cutIntervalDays: '',
+	storageWeeks: '',
+	storageLossPct: '',
+	price: '2.50',
+	source: 'test'
 };
 // Figures of a direct-sown carrot. Source: University of Illinois Extension vegetable guide
 // (22,000 seeds per ounce within its 18,000–25,000, 70 days within 65–75); 22,000 ÷ 28.349523125 = 776.03 seeds/g.
 const variety = {
-	name: 'Carrot, standard', method: 'direct', daysToMaturity: '70', daysInTray: '0', harvestWindowDays: '14', yieldPerBedFoot: '2.4', rows: '4',
-	inRowSpacingIn: '1', seedsPerSpot: '1', germinationRate: '65', seedsPerGram: '776.03', seedPrice: '0.35', seedsPerPacket: '', cellsPerTray: '128',
-	margin: '10', harvestCurve: '', gddToMaturity: '', source: 'test'
+	name: 'Carrot, standard',
+	method: 'direct',
+	daysToMaturity: '70',
+	daysInTray: '0',
+	harvestWindowDays: '14',
+	yieldPerBedFoot: '2.4',
+	rows: '4',
+	inRowSpacingIn: '1',
+	seedsPerSpot: '1',
+	germinationRate: '65',
+	seedsPerGram: '776.03',
+	seedPrice: '0.35',
+	seedsPerPacket: '',
+	cellsPerTray: '128',
+	margin: '10',
+	harvestCurve: '',
+	gddToMaturity: '',
+	source: 'test'
 };
 
 async function cropId(name: string): Promise<number> {
@@ -80,12 +113,25 @@ describe('crops', () => {
 
 	it('edits a crop, and archives and brings it back', async () => {
 		const id = await cropId('Carrot');
-		const res = await owner.postForm(`/crops/${id}?/save`, { ...crop, heatLimitF: '85', price: '3', harvestCurve: 'cuts', cutIntervalDays: '21', storageWeeks: '30', storageLossPct: '2' });
+		const res = await owner.postForm(`/crops/${id}?/save`, {
+			...crop,
+			heatLimitF: '85',
+			price: '3',
+			harvestCurve: 'cuts',
+			cutIntervalDays: '21',
+			storageWeeks: '30',
+			storageLossPct: '2'
+		});
 		expect(res.status).toBe(200);
 		const row = await testDb()('crops').where({ id }).first();
 		expect(Number(row.heat_limit_f)).toBe(85);
 		expect(row.price_cents_per_unit).toBe(300);
-		expect([row.harvest_curve, row.harvest_cut_interval_days, row.storage_weeks, Number(row.storage_loss_per_week)]).toEqual(['cuts', 21, 30, 0.02]);
+		expect([
+			row.harvest_curve,
+			row.harvest_cut_interval_days,
+			row.storage_weeks,
+			Number(row.storage_loss_per_week)
+		]).toEqual(['cuts', 21, 30, 0.02]);
 		const bad = await owner.postForm(`/crops/${id}?/save`, { ...crop, harvestCurve: 'wavy' });
 		expect(bad.status).toBe(400);
 		expect(await html(bad)).toContain('id="crop-harvestCurve-error"');
@@ -163,14 +209,30 @@ describe('varieties', () => {
 
 	it('refuses to delete a variety that plantings use, saying why, and deletes one nobody uses', async () => {
 		const v = await testDb()('varieties').where({ farm_id: farmId, name: 'Carrot, standard' }).first();
-		const [seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year: 2031, name: 'Library test 2031', starts_on: '2031-01-01', ends_on: '2031-12-31' });
+		const [seasonId] = await testDb()('seasons').insert({
+			farm_id: farmId,
+			year: 2031,
+			name: 'Library test 2031',
+			starts_on: '2031-01-01',
+			ends_on: '2031-12-31'
+		});
 		await testDb()('plantings').insert({
-			farm_id: farmId, season_id: seasonId, variety_id: v.id, length_ft: 50, rows: 4, in_row_spacing_in: 1, method: 'direct',
-			field_date: '2031-04-20', first_harvest: '2031-06-29', last_harvest: '2031-07-12'
+			farm_id: farmId,
+			season_id: seasonId,
+			variety_id: v.id,
+			length_ft: 50,
+			rows: 4,
+			in_row_spacing_in: 1,
+			method: 'direct',
+			field_date: '2031-04-20',
+			first_harvest: '2031-06-29',
+			last_harvest: '2031-07-12'
 		});
 		const res = await owner.postForm(`/crops/${v.crop_id}/varieties/${v.id}?/delete`, {});
 		expect(res.status).toBe(409);
-		expect(await html(res)).toContain('Carrot, standard cannot be deleted: 1 planting uses it (Library test 2031). Archive it instead');
+		expect(await html(res)).toContain(
+			'Carrot, standard cannot be deleted: 1 planting uses it (Library test 2031). Archive it instead'
+		);
 		expect(await count('varieties', { id: v.id })).toBe(1);
 
 		const id = await cropId('Carrot');
@@ -188,7 +250,11 @@ describe('who may edit', () => {
 		const page = await html(await crew.get('/crops'));
 		expect(page).toContain('Crop library');
 		expect(page).not.toContain('href="/crops/new"');
-		const demoCrop = await testDb()('crops as c').join('farm_members as m', 'm.farm_id', 'c.farm_id').join('users as u', 'u.id', 'm.user_id').where('u.email', demo.crew).first('c.id', 'c.farm_id');
+		const demoCrop = await testDb()('crops as c')
+			.join('farm_members as m', 'm.farm_id', 'c.farm_id')
+			.join('users as u', 'u.id', 'm.user_id')
+			.where('u.email', demo.crew)
+			.first('c.id', 'c.farm_id');
 		expect((await crew.get(`/crops/${demoCrop.id}`)).status).toBe(200);
 		const before = await testDb()('crops').where({ id: demoCrop.id }).first();
 		expect((await crew.postForm(`/crops/${demoCrop.id}?/save`, { ...crop, name: 'Renamed by crew' })).status).toBe(403);
@@ -197,7 +263,7 @@ describe('who may edit', () => {
 		expect(await testDb()('crops').where({ id: demoCrop.id }).first()).toEqual(before);
 	});
 
-	it('answers 404 for another farm\'s crop and variety, and changes nothing there', async () => {
+	it("answers 404 for another farm's crop and variety, and changes nothing there", async () => {
 		const other = await newFarm('library-other');
 		const id = await cropId('Carrot');
 		const v = await testDb()('varieties').where({ crop_id: id }).first('id');

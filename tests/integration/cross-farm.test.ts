@@ -32,21 +32,38 @@ describe('the import page action', () => {
 		form.set('file', new Blob([plan]), 'plan.csv');
 		form.set('sheet', 'Plantings');
 		form.set('seasonId', String(demoSeasonId));
-		const res = await other.client.request('/import?/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'text/html' } });
+		const res = await other.client.request('/import?/import', {
+			method: 'POST',
+			body: form,
+			headers: { origin: baseUrl(), accept: 'text/html' }
+		});
 		expect(res.status).toBe(404);
 		expect(await html(res)).toContain('seasonId');
 		expect(await count('plantings', { season_id: demoSeasonId })).toBe(before);
-		const stray = await testDb()('plantings as p').join('seasons as s', 's.id', 'p.season_id').whereRaw('s.farm_id <> p.farm_id').count({ n: '*' });
+		const stray = await testDb()('plantings as p')
+			.join('seasons as s', 's.id', 'p.season_id')
+			.whereRaw('s.farm_id <> p.farm_id')
+			.count({ n: '*' });
 		expect(Number(stray[0].n)).toBe(0);
 	});
 
 	it('still imports into a season of its own farm', async () => {
-		const [own] = await testDb()('seasons').insert({ farm_id: other.farmId, year: 2029, name: 'Own season', starts_on: '2029-01-01', ends_on: '2029-12-31' });
+		const [own] = await testDb()('seasons').insert({
+			farm_id: other.farmId,
+			year: 2029,
+			name: 'Own season',
+			starts_on: '2029-01-01',
+			ends_on: '2029-12-31'
+		});
 		const form = new FormData();
 		form.set('file', new Blob([plan.replaceAll('2027', '2029')]), 'plan.csv');
 		form.set('sheet', 'Plantings');
 		form.set('seasonId', String(own));
-		const res = await other.client.request('/import?/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'text/html' } });
+		const res = await other.client.request('/import?/import', {
+			method: 'POST',
+			body: form,
+			headers: { origin: baseUrl(), accept: 'text/html' }
+		});
 		expect(res.status).toBe(303);
 		expect(await count('plantings', { season_id: own, farm_id: other.farmId })).toBe(1);
 	});
@@ -68,8 +85,19 @@ describe('the schema refuses rows that point across farms', () => {
 		const theirPlanting = await db('plantings').where({ farm_id: demoFarmId }).first('id');
 		const theirShare = await db('share_sizes').where({ farm_id: demoFarmId }).first('id');
 		const planting = (over: Record<string, unknown>) => ({
-			farm_id: other.farmId, season_id: mySeason.id, variety_id: mine.id, bed_id: myBed.id, start_ft: 0, length_ft: 10, rows: 2, in_row_spacing_in: 6,
-			method: 'direct', field_date: '2027-05-01', first_harvest: '2027-07-01', last_harvest: '2027-07-14', ...over
+			farm_id: other.farmId,
+			season_id: mySeason.id,
+			variety_id: mine.id,
+			bed_id: myBed.id,
+			start_ft: 0,
+			length_ft: 10,
+			rows: 2,
+			in_row_spacing_in: 6,
+			method: 'direct',
+			field_date: '2027-05-01',
+			first_harvest: '2027-07-01',
+			last_harvest: '2027-07-14',
+			...over
 		});
 		// The well-formed row goes in, so each refusal below is the farm mismatch alone.
 		const [okId] = await db('plantings').insert(planting({}));
@@ -78,21 +106,68 @@ describe('the schema refuses rows that point across farms', () => {
 		await refused(db('plantings').insert(planting({ season_id: demoSeasonId })));
 		await refused(db('plantings').insert(planting({ variety_id: theirs.id })));
 		await refused(db('plantings').insert(planting({ bed_id: theirBed.id })));
-		await refused(db('harvest_records').insert({ farm_id: other.farmId, planting_id: theirPlanting.id, harvested_on: '2027-07-02', quantity: 1, unit: 'lb' }));
-		await refused(db('share_sizes').insert({ farm_id: other.farmId, season_id: demoSeasonId, name: 'Stray', members: 1, first_week: '2027-W20', last_week: '2027-W30' }));
-		await refused(db('channel_demand').insert({ farm_id: other.farmId, season_id: mySeason.id, channel: 'market', crop_id: theirs.crop_id, week: '2027-W22', quantity: 1 }));
 		await refused(
-			db('box_swaps').insert({ farm_id: other.farmId, season_id: mySeason.id, share_size_id: theirShare.id, week: '2027-W22', from_crop_id: mine.crop_id, to_crop_id: mine.crop_id, quantity: 1 })
+			db('harvest_records').insert({
+				farm_id: other.farmId,
+				planting_id: theirPlanting.id,
+				harvested_on: '2027-07-02',
+				quantity: 1,
+				unit: 'lb'
+			})
+		);
+		await refused(
+			db('share_sizes').insert({
+				farm_id: other.farmId,
+				season_id: demoSeasonId,
+				name: 'Stray',
+				members: 1,
+				first_week: '2027-W20',
+				last_week: '2027-W30'
+			})
+		);
+		await refused(
+			db('channel_demand').insert({
+				farm_id: other.farmId,
+				season_id: mySeason.id,
+				channel: 'market',
+				crop_id: theirs.crop_id,
+				week: '2027-W22',
+				quantity: 1
+			})
+		);
+		await refused(
+			db('box_swaps').insert({
+				farm_id: other.farmId,
+				season_id: mySeason.id,
+				share_size_id: theirShare.id,
+				week: '2027-W22',
+				from_crop_id: mine.crop_id,
+				to_crop_id: mine.crop_id,
+				quantity: 1
+			})
 		);
 		await refused(
 			db('varieties').insert({
-				farm_id: other.farmId, crop_id: theirs.crop_id, name: 'Stray', method: 'direct', days_to_maturity: 50, harvest_window_days: 14, yield_per_bed_foot: 1,
-				rows_per_bed: 2, in_row_spacing_in: 2, germination_rate: 0.8, seeds_per_gram: 100
+				farm_id: other.farmId,
+				crop_id: theirs.crop_id,
+				name: 'Stray',
+				method: 'direct',
+				days_to_maturity: 50,
+				harvest_window_days: 14,
+				yield_per_bed_foot: 1,
+				rows_per_bed: 2,
+				in_row_spacing_in: 2,
+				germination_rate: 0.8,
+				seeds_per_gram: 100
 			})
 		);
-		await refused(db('beds').insert({ farm_id: other.farmId, block_id: theirBed.block_id, name: 'Stray', length_ft: 10 }));
+		await refused(
+			db('beds').insert({ farm_id: other.farmId, block_id: theirBed.block_id, name: 'Stray', length_ft: 10 })
+		);
 		// And an existing row cannot be moved across either.
-		await refused(db('plantings').where({ farm_id: demoFarmId, id: theirPlanting.id }).update({ season_id: mySeason.id }));
+		await refused(
+			db('plantings').where({ farm_id: demoFarmId, id: theirPlanting.id }).update({ season_id: mySeason.id })
+		);
 	});
 
 	it('removing a bed keeps its plantings, off any bed', async () => {
@@ -103,7 +178,12 @@ describe('the schema refuses rows that point across farms', () => {
 		const res = await other.client.postForm('/settings?/deleteBed', { id: bed.id });
 		expect(res.status).toBeLessThan(400);
 		expect(await count('beds', { id: bed.id })).toBe(0);
-		const after = await db('plantings').whereIn('id', on.map((r) => r.id)).select('bed_id');
+		const after = await db('plantings')
+			.whereIn(
+				'id',
+				on.map((r) => r.id)
+			)
+			.select('bed_id');
 		expect(after.map((r) => r.bed_id)).toEqual(on.map(() => null));
 	});
 });

@@ -29,13 +29,23 @@ function upload(text: string, mode: 'merge' | 'replace'): Promise<Response> {
 	const form = new FormData();
 	form.set('file', new Blob([text], { type: 'text/csv' }), 'demand.csv');
 	form.set('mode', mode);
-	return share.request(`${base()}/upload`, { method: 'POST', body: form, headers: { origin: process.env.FC_BASE_URL!, accept: 'application/json' } });
+	return share.request(`${base()}/upload`, {
+		method: 'POST',
+		body: form,
+		headers: { origin: process.env.FC_BASE_URL!, accept: 'application/json' }
+	});
 }
 
 describe('the demand CSV download', () => {
 	it('escapes every cell that would start a formula, and uploads again unchanged', async () => {
 		for (const name of [hostile, ...others]) {
-			const res = await share.json(`${base()}/share-sizes`, 'POST', { name, members: 10, firstWeek: '2033-W24', lastWeek: '2033-W30', price: 100 });
+			const res = await share.json(`${base()}/share-sizes`, 'POST', {
+				name,
+				members: 10,
+				firstWeek: '2033-W24',
+				lastWeek: '2033-W30',
+				price: 100
+			});
 			expect(res.status).toBe(201);
 		}
 		const rows = [hostile, ...others].map((n, i) => Papa.unparse([[n, 'Carrot', `2033-W2${4 + i}`, '1.5', 'lb']]));

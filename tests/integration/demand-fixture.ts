@@ -14,8 +14,16 @@ export async function demandSeason(year: number): Promise<DemandFixture> {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id as number;
 	await testDb()('seasons').where({ farm_id: farmId, year }).delete();
-	const [seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year, name: `${year} test season (invented)`, starts_on: `${year}-01-01`, ends_on: `${year}-12-31` });
-	const crops = new Map<string, number>((await testDb()('crops').where({ farm_id: farmId }).select('id', 'name')).map((c) => [c.name, c.id]));
+	const [seasonId] = await testDb()('seasons').insert({
+		farm_id: farmId,
+		year,
+		name: `${year} test season (invented)`,
+		starts_on: `${year}-01-01`,
+		ends_on: `${year}-12-31`
+	});
+	const crops = new Map<string, number>(
+		(await testDb()('crops').where({ farm_id: farmId }).select('id', 'name')).map((c) => [c.name, c.id])
+	);
 	return {
 		farmId,
 		seasonId,

@@ -23,7 +23,14 @@ afterAll(async () => {
 });
 
 const page = () => `/seasons/${fx.seasonId}/demand`;
-const shareForm = { name: 'Full share', members: '60', firstWeek: '2034-W24', lastWeek: '2034-W27', pickupDays: 'Tue', price: '720.00' };
+const shareForm = {
+	name: 'Full share',
+	members: '60',
+	firstWeek: '2034-W24',
+	lastWeek: '2034-W27',
+	pickupDays: 'Tue',
+	price: '720.00'
+};
 let fullId = 0;
 
 describe('opening the page', () => {
@@ -65,7 +72,13 @@ describe('share size forms', () => {
 		expect(res.headers.get('location')).toBe(page());
 		const row = await testDb()('share_sizes').where({ season_id: fx.seasonId }).first();
 		fullId = row.id;
-		expect(row).toMatchObject({ members: 60, first_week: '2034-W24', last_week: '2034-W27', pickup_days: 'Tue', price_cents: 72_000 });
+		expect(row).toMatchObject({
+			members: 60,
+			first_week: '2034-W24',
+			last_week: '2034-W27',
+			pickup_days: 'Tue',
+			price_cents: 72_000
+		});
 	});
 	it('a taken name: 400 naming name', async () => {
 		const res = await share.postForm(`${page()}?/addShare`, shareForm);
@@ -73,7 +86,9 @@ describe('share size forms', () => {
 		expect(await html(res)).toContain('This season already has a share size named Full share.');
 	});
 	it('save changes it; an unknown id answers 404', async () => {
-		expect((await share.postForm(`${page()}?/saveShare`, { ...shareForm, id: fullId, members: '55' })).status).toBe(303);
+		expect((await share.postForm(`${page()}?/saveShare`, { ...shareForm, id: fullId, members: '55' })).status).toBe(
+			303
+		);
 		expect((await testDb()('share_sizes').where({ id: fullId }).first()).members).toBe(55);
 		expect((await share.postForm(`${page()}?/saveShare`, { ...shareForm, id: 999999 })).status).toBe(404);
 		await share.postForm(`${page()}?/saveShare`, { ...shareForm, id: fullId });
@@ -83,7 +98,15 @@ describe('share size forms', () => {
 describe('the grid form', () => {
 	const grid = () => `share:${fullId}`;
 	it('crew lead: 403', async () => {
-		expect((await crew.postForm(`${page()}?/saveGrid`, { grid: grid(), [`q.${carrot}.2034-W24`]: '1', [`u.${carrot}`]: 'lb' })).status).toBe(403);
+		expect(
+			(
+				await crew.postForm(`${page()}?/saveGrid`, {
+					grid: grid(),
+					[`q.${carrot}.2034-W24`]: '1',
+					[`u.${carrot}`]: 'lb'
+				})
+			).status
+		).toBe(403);
 	});
 	it('bad cells: 400 naming each by crop and week; nothing written', async () => {
 		const res = await share.postForm(`${page()}?/saveGrid`, {
@@ -103,17 +126,31 @@ describe('the grid form', () => {
 		expect(await count('box_items', { share_size_id: fullId })).toBe(0);
 	});
 	it('good cells: 303 back to the grid; the add row and an emptied cell work too', async () => {
-		let res = await share.postForm(`${page()}?/saveGrid`, { grid: grid(), [`u.${carrot}`]: 'lb', [`q.${carrot}.2034-W24`]: '1.5', [`q.${carrot}.2034-W25`]: '', newCrop: kale, 'n.2034-W24': '1' });
+		let res = await share.postForm(`${page()}?/saveGrid`, {
+			grid: grid(),
+			[`u.${carrot}`]: 'lb',
+			[`q.${carrot}.2034-W24`]: '1.5',
+			[`q.${carrot}.2034-W25`]: '',
+			newCrop: kale,
+			'n.2034-W24': '1'
+		});
 		expect(res.status).toBe(303);
 		expect(res.headers.get('location')).toBe(`${page()}?grid=${encodeURIComponent(grid())}`);
-		const rows = await testDb()('box_items').where({ share_size_id: fullId }).orderBy('crop_id').select('crop_id', 'week', 'quantity', 'unit');
+		const rows = await testDb()('box_items')
+			.where({ share_size_id: fullId })
+			.orderBy('crop_id')
+			.select('crop_id', 'week', 'quantity', 'unit');
 		expect(rows.map((r) => ({ ...r, quantity: Number(r.quantity) }))).toEqual(
 			[
 				{ crop_id: carrot, week: '2034-W24', quantity: 1.5, unit: 'lb' },
 				{ crop_id: kale, week: '2034-W24', quantity: 1, unit: 'bunch' }
 			].sort((a, b) => a.crop_id - b.crop_id)
 		);
-		res = await share.postForm(`${page()}?/saveGrid`, { grid: 'market', [`u.${carrot}`]: 'lb', [`q.${carrot}.2034-W24`]: '20' });
+		res = await share.postForm(`${page()}?/saveGrid`, {
+			grid: 'market',
+			[`u.${carrot}`]: 'lb',
+			[`q.${carrot}.2034-W24`]: '20'
+		});
 		expect(res.status).toBe(303);
 		// The targets table, Carrot W24: 60 full × 1.5 lb + 20 lb market = 90 + 20 = 110 lb
 		const text = await html(await crew.get(page()));
@@ -137,7 +174,10 @@ describe('the grid form', () => {
 		expect((await share.postForm(`${page()}?/saveGrid`, form('20', '15'))).status).toBe(303);
 		// A second editor, on a page drawn before that save (W25 still empty there), changes W24 to 25.
 		expect((await share.postForm(`${page()}?/saveGrid`, form('25', ''))).status).toBe(303);
-		const rows = await testDb()('channel_demand').where({ season_id: fx.seasonId, channel: 'market', crop_id: carrot }).orderBy('week').select('week', 'quantity');
+		const rows = await testDb()('channel_demand')
+			.where({ season_id: fx.seasonId, channel: 'market', crop_id: carrot })
+			.orderBy('week')
+			.select('week', 'quantity');
 		// W24 carries the second editor's change, W25 the first one's: neither save undid the other.
 		expect(rows.map((r) => [r.week, Number(r.quantity)])).toEqual([
 			['2034-W24', 25],
@@ -145,11 +185,30 @@ describe('the grid form', () => {
 		]);
 	});
 	it('copy a week: bad range 400 naming the field, good range 303', async () => {
-		const bad = await share.postForm(`${page()}?/copyWeek`, { grid: grid(), fromWeek: '2034-W24', toFirst: '2034-W25', toLast: '2034-W40' });
+		const bad = await share.postForm(`${page()}?/copyWeek`, {
+			grid: grid(),
+			fromWeek: '2034-W24',
+			toFirst: '2034-W25',
+			toLast: '2034-W40'
+		});
 		expect(bad.status).toBe(400);
 		expect(await html(bad)).toContain("2034-W40 is outside Full share's distribution weeks 2034-W24–2034-W27.");
-		expect((await crew.postForm(`${page()}?/copyWeek`, { grid: grid(), fromWeek: '2034-W24', toFirst: '2034-W25', toLast: '2034-W27' })).status).toBe(403);
-		const res = await share.postForm(`${page()}?/copyWeek`, { grid: grid(), fromWeek: '2034-W24', toFirst: '2034-W25', toLast: '2034-W27' });
+		expect(
+			(
+				await crew.postForm(`${page()}?/copyWeek`, {
+					grid: grid(),
+					fromWeek: '2034-W24',
+					toFirst: '2034-W25',
+					toLast: '2034-W27'
+				})
+			).status
+		).toBe(403);
+		const res = await share.postForm(`${page()}?/copyWeek`, {
+			grid: grid(),
+			fromWeek: '2034-W24',
+			toFirst: '2034-W25',
+			toLast: '2034-W27'
+		});
 		expect(res.status).toBe(303);
 		// 2 crops × (W24 + 3 copied weeks) = 8 cells
 		expect(await count('box_items', { share_size_id: fullId })).toBe(8);

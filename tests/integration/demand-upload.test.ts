@@ -13,8 +13,22 @@ let crew: Client;
 let fullId: number;
 beforeAll(async () => {
 	fx = await demandSeason(2032);
-	[fullId] = await testDb()('share_sizes').insert({ farm_id: fx.farmId, season_id: fx.seasonId, name: 'Full share', members: 60, first_week: '2032-W24', last_week: '2032-W30' });
-	await testDb()('share_sizes').insert({ farm_id: fx.farmId, season_id: fx.seasonId, name: 'Half share', members: 40, first_week: '2032-W24', last_week: '2032-W30' });
+	[fullId] = await testDb()('share_sizes').insert({
+		farm_id: fx.farmId,
+		season_id: fx.seasonId,
+		name: 'Full share',
+		members: 60,
+		first_week: '2032-W24',
+		last_week: '2032-W30'
+	});
+	await testDb()('share_sizes').insert({
+		farm_id: fx.farmId,
+		season_id: fx.seasonId,
+		name: 'Half share',
+		members: 40,
+		first_week: '2032-W24',
+		last_week: '2032-W30'
+	});
 	[share, crew] = await Promise.all([signedIn(demo.share, demo.password), signedIn(demo.crew, demo.password)]);
 });
 afterAll(async () => {
@@ -24,15 +38,29 @@ afterAll(async () => {
 
 const path = () => `/api/seasons/${fx.seasonId}/demand/upload`;
 
-function post(client: Client, file: Blob | null, name: string, extra: Record<string, string> = {}, to = path()): Promise<Response> {
+function post(
+	client: Client,
+	file: Blob | null,
+	name: string,
+	extra: Record<string, string> = {},
+	to = path()
+): Promise<Response> {
 	const form = new FormData();
 	if (file) form.set('file', file, name);
 	for (const [k, v] of Object.entries(extra)) form.set(k, v);
-	return client.request(to, { method: 'POST', body: form, headers: { origin: process.env.FC_BASE_URL!, accept: 'application/json' } });
+	return client.request(to, {
+		method: 'POST',
+		body: form,
+		headers: { origin: process.env.FC_BASE_URL!, accept: 'application/json' }
+	});
 }
 const csv = (text: string) => new Blob([text], { type: 'text/csv' });
 async function written(): Promise<number> {
-	const boxes = await testDb()('box_items as b').join('share_sizes as s', 's.id', 'b.share_size_id').where('s.season_id', fx.seasonId).count({ n: '*' }).first();
+	const boxes = await testDb()('box_items as b')
+		.join('share_sizes as s', 's.id', 'b.share_size_id')
+		.where('s.season_id', fx.seasonId)
+		.count({ n: '*' })
+		.first();
 	return (await count('channel_demand', { season_id: fx.seasonId })) + Number(boxes?.n ?? 0);
 }
 
@@ -51,7 +79,9 @@ const badCsv = [
 
 describe('who may upload', () => {
 	it('no session 401; crew lead 403; nothing written', async () => {
-		expect((await post(new Client(), csv('channel,crop,week,quantity\nmarket,Carrot,2032-W24,5'), 'd.csv')).status).toBe(401);
+		expect(
+			(await post(new Client(), csv('channel,crop,week,quantity\nmarket,Carrot,2032-W24,5'), 'd.csv')).status
+		).toBe(401);
 		expect((await post(crew, csv('channel,crop,week,quantity\nmarket,Carrot,2032-W24,5'), 'd.csv')).status).toBe(403);
 		expect(await written()).toBe(0);
 	});
@@ -108,7 +138,11 @@ describe('a bad file is refused whole', () => {
 		const JSZip = (await import('jszip')).default;
 		const zip = new JSZip();
 		zip.file('notes.txt', 'not a spreadsheet');
-		const res = await post(share, new Blob([new Uint8Array(await zip.generateAsync({ type: 'uint8array' }))]), 'demand.xlsx');
+		const res = await post(
+			share,
+			new Blob([new Uint8Array(await zip.generateAsync({ type: 'uint8array' }))]),
+			'demand.xlsx'
+		);
 		expect(res.status).toBe(400);
 		const body = await res.json();
 		expect(JSON.stringify(body)).toMatch(/not an \.xlsx workbook/);
@@ -134,7 +168,19 @@ describe('a bad file is refused whole', () => {
 
 describe('a good file', () => {
 	it('CSV: every row written; the targets come out as worked by hand', async () => {
-		const res = await post(share, csv(['channel,crop,week,quantity,unit', 'Full share,Carrot,2032-W24,1.5,lb', 'Half share,Carrot,2032-W24,0.75,', 'market,Carrot,2032-W24,20,lb', 'restaurant,Kale,2032-W30,6,bunch'].join('\r\n')), 'demand.csv');
+		const res = await post(
+			share,
+			csv(
+				[
+					'channel,crop,week,quantity,unit',
+					'Full share,Carrot,2032-W24,1.5,lb',
+					'Half share,Carrot,2032-W24,0.75,',
+					'market,Carrot,2032-W24,20,lb',
+					'restaurant,Kale,2032-W30,6,bunch'
+				].join('\r\n')
+			),
+			'demand.csv'
+		);
 		expect(res.status).toBe(200);
 		expect(await res.json()).toEqual({ ok: true, rows: 4, set: 4, cleared: 0 });
 		const demand = await (await crew.get(`/api/seasons/${fx.seasonId}/demand`)).json();
@@ -152,7 +198,11 @@ describe('a good file', () => {
 		]);
 		const book = XLSX.utils.book_new();
 		XLSX.utils.book_append_sheet(book, sheet, 'Demand');
-		const res = await post(share, new Blob([XLSX.write(book, { type: 'array', bookType: 'xlsx' }) as ArrayBuffer]), 'demand.xlsx');
+		const res = await post(
+			share,
+			new Blob([XLSX.write(book, { type: 'array', bookType: 'xlsx' }) as ArrayBuffer]),
+			'demand.xlsx'
+		);
 		expect(res.status).toBe(200);
 		expect(await res.json()).toEqual({ ok: true, rows: 2, set: 1, cleared: 1 });
 		const demand = await (await share.get(`/api/seasons/${fx.seasonId}/demand`)).json();
@@ -161,10 +211,14 @@ describe('a good file', () => {
 		expect(demand.targets).toHaveLength(2);
 	});
 	it('replace: the file becomes the whole demand', async () => {
-		const res = await post(share, csv('channel,crop,week,quantity\nmarket,Kale,2032-W26,9'), 'demand.csv', { mode: 'replace' });
+		const res = await post(share, csv('channel,crop,week,quantity\nmarket,Kale,2032-W26,9'), 'demand.csv', {
+			mode: 'replace'
+		});
 		expect(res.status).toBe(200);
 		expect(await written()).toBe(1);
-		const bad = await post(share, csv('channel,crop,week,quantity\nmarket,Kale,2032-W26,9'), 'demand.csv', { mode: 'wipe' });
+		const bad = await post(share, csv('channel,crop,week,quantity\nmarket,Kale,2032-W26,9'), 'demand.csv', {
+			mode: 'wipe'
+		});
 		expect(bad.status).toBe(400);
 		expect(Object.keys((await bad.json()).errors)).toEqual(['mode']);
 	});
@@ -176,7 +230,11 @@ describe('the upload form on the page', () => {
 		const before = await written();
 		const form = new FormData();
 		form.set('file', csv(badCsv), 'demand.csv');
-		const res = await share.request(page, { method: 'POST', body: form, headers: { origin: process.env.FC_BASE_URL!, accept: 'text/html' } });
+		const res = await share.request(page, {
+			method: 'POST',
+			body: form,
+			headers: { origin: process.env.FC_BASE_URL!, accept: 'text/html' }
+		});
 		expect(res.status).toBe(400);
 		const text = await html(res);
 		expect(text).toContain('The file was refused whole; nothing was written. 9 problems');
@@ -184,6 +242,14 @@ describe('the upload form on the page', () => {
 		expect(await written()).toBe(before);
 		const again = new FormData();
 		again.set('file', csv('channel,crop,week,quantity\nmarket,Kale,2032-W26,1'), 'demand.csv');
-		expect((await crew.request(page, { method: 'POST', body: again, headers: { origin: process.env.FC_BASE_URL!, accept: 'text/html' } })).status).toBe(403);
+		expect(
+			(
+				await crew.request(page, {
+					method: 'POST',
+					body: again,
+					headers: { origin: process.env.FC_BASE_URL!, accept: 'text/html' }
+				})
+			).status
+		).toBe(403);
 	});
 });

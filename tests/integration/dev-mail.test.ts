@@ -14,8 +14,13 @@ async function signUpFarm(tag: string): Promise<{ client: Client; email: string 
 	const email = uniqueEmail(tag);
 	const client = new Client();
 	const res = await client.postForm('/signup', {
-		name: 'Curious Grower', email, password: 'copper-kettle-orchard-41', farmName: 'Stray Field (invented)', latitude: '42',
-		lastSpringFrost: '2027-04-28', firstFallFrost: '2027-10-12'
+		name: 'Curious Grower',
+		email,
+		password: 'copper-kettle-orchard-41',
+		farmName: 'Stray Field (invented)',
+		latitude: '42',
+		lastSpringFrost: '2027-04-28',
+		firstFallFrost: '2027-10-12'
 	});
 	expect(res.status).toBe(303);
 	return { client, email };
@@ -73,12 +78,22 @@ describe('Mail (dev) outside demo mode', () => {
 		app = await startSecondApp({ FC_DEMO_MODE: undefined });
 		const base = app.base;
 		const body = new URLSearchParams({ email: demo.owner, password: demo.password });
-		const signin = await fetch(`${base}/signin`, { method: 'POST', body, redirect: 'manual', headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' } });
+		const signin = await fetch(`${base}/signin`, {
+			method: 'POST',
+			body,
+			redirect: 'manual',
+			headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }
+		});
 		expect(signin.status).toBe(303);
-		const cookie = signin.headers.getSetCookie().map((c) => c.split(';')[0]).join('; ');
+		const cookie = signin.headers
+			.getSetCookie()
+			.map((c) => c.split(';')[0])
+			.join('; ');
 		const mail = await fetch(`${base}/dev/mail`, { headers: { cookie, accept: 'text/html' }, redirect: 'manual' });
 		expect(mail.status).toBe(404);
-		const home = await (await fetch(`${base}/`, { headers: { cookie, accept: 'text/html' }, redirect: 'manual' })).text();
+		const home = await (
+			await fetch(`${base}/`, { headers: { cookie, accept: 'text/html' }, redirect: 'manual' })
+		).text();
 		expect(home).toContain('Team');
 		expect(home).not.toContain('Mail (dev)');
 		expect(home).not.toContain('href="/dev/mail"');

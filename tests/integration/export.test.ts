@@ -69,7 +69,9 @@ describe('who may export', () => {
 describe('the response', () => {
 	it('is an .xlsx attachment with a file name, and says how many rows it streams', () => {
 		expect(headers.get('content-type')).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
-		expect(headers.get('content-disposition')).toMatch(/^attachment; filename="furrowcast-testbrook-export-invented-2027\.xlsx"$/);
+		expect(headers.get('content-disposition')).toMatch(
+			/^attachment; filename="furrowcast-testbrook-export-invented-2027\.xlsx"$/
+		);
 		// 6 season rows + 4 plantings + 2 seed rows + tasks + forecast + 3 crop rows + 3 beds: at least 18.
 		expect(Number(headers.get('x-furrowcast-rows'))).toBeGreaterThanOrEqual(18);
 		expect(Number(headers.get('x-furrowcast-estimated-bytes'))).toBeGreaterThan(bytes.length / 4);
@@ -92,10 +94,16 @@ describe('read with exceljs', () => {
 	});
 	it('units stand in the headers', () => {
 		const head = (name: string): unknown[] => (wb.getWorksheet(name)!.getRow(1).values as unknown[]).slice(1);
-		expect(head('Plantings')).toEqual(expect.arrayContaining(['Start (ft)', 'Length (ft)', 'In-row spacing (in)', 'Field date', 'Seeds needed (seeds)']));
-		expect(head('Seed order')).toEqual(expect.arrayContaining(['Seeds (seeds)', 'Seed (g)', 'Packets', 'Cost ($)', 'Bed-feet (ft)']));
+		expect(head('Plantings')).toEqual(
+			expect.arrayContaining(['Start (ft)', 'Length (ft)', 'In-row spacing (in)', 'Field date', 'Seeds needed (seeds)'])
+		);
+		expect(head('Seed order')).toEqual(
+			expect.arrayContaining(['Seeds (seeds)', 'Seed (g)', 'Packets', 'Cost ($)', 'Bed-feet (ft)'])
+		);
 		expect(head('Beds')).toEqual(expect.arrayContaining(['Length (ft)', 'Width (in)']));
-		expect(head('Crops & varieties')).toEqual(expect.arrayContaining(['Heat limit (°F)', 'Days to maturity (d)', 'Germination (%)', 'Seed price ($/g)']));
+		expect(head('Crops & varieties')).toEqual(
+			expect.arrayContaining(['Heat limit (°F)', 'Days to maturity (d)', 'Germination (%)', 'Seed price ($/g)'])
+		);
 	});
 	it('plantings: dates are dates, numbers are numbers, one row per planting', async () => {
 		const rows = rowsOf('Plantings');
@@ -119,17 +127,36 @@ describe('read with exceljs', () => {
 		// P1: 50 ft × 12 in ÷ 1 in = 600 spots a row × 4 rows = 2,400; seeds = ceil(2,400 ÷ 0.75 × 1.15) = 3,680; 3,680 ÷ 800 = 4.6 g → 414 ¢.
 		// P2: 25 ft → 1,200 spots; ceil(1,200 ÷ 0.75 × 1.15) = 1,840 seeds; 2.3 g → 207 ¢.
 		// Σ 5,520 seeds, 6.9 g, $6.21; packets ceil(5,520 ÷ 1,500) = 4; 75 bed-feet.
-		expect(amber).toMatchObject({ Plantings: 2, 'Bed-feet (ft)': 75, 'Seeds (seeds)': 5520, 'Seed (g)': 6.9, Packets: 4, 'Price ($/g)': 0.9, 'Cost ($)': 6.21, Cells: null });
+		expect(amber).toMatchObject({
+			Plantings: 2,
+			'Bed-feet (ft)': 75,
+			'Seeds (seeds)': 5520,
+			'Seed (g)': 6.9,
+			Packets: 4,
+			'Price ($/g)': 0.9,
+			'Cost ($)': 6.21,
+			Cells: null
+		});
 		const butter = rows.find((r) => r.Variety === 'Test Butter')!;
 		// P3: 40 ft × 12 ÷ 12 = 40 a row × 3 = 120 plants; cells ceil(120 ÷ 0.9 × 1.15) = ceil(153.3) = 154; trays ceil(154 ÷ 128) = 2;
 		//     154 seeds ÷ 800 = 0.1925 g, rounded up to 0.20 g → 50 ¢.
 		// P4 (failed, still sown): 60 plants; cells ceil(76.7) = 77; 1 tray; 77 ÷ 800 = 0.096 → 0.10 g → 25 ¢.
 		// The order is rounded once, at the end, not planting by planting: Σ 231 seeds ÷ 800 = 0.28875 g, up to 0.29 g;
 		// cost 0.29 g × $2.50 = $0.725 → $0.73; 231 cells, 3 trays; packets ceil(231 ÷ 1,000) = 1.
-		expect(butter).toMatchObject({ Plantings: 2, 'Seeds (seeds)': 231, Packets: 1, 'Cost ($)': 0.73, Cells: 231, Trays: 3 });
+		expect(butter).toMatchObject({
+			Plantings: 2,
+			'Seeds (seeds)': 231,
+			Packets: 1,
+			'Cost ($)': 0.73,
+			Cells: 231,
+			Trays: 3
+		});
 		expect(butter['Seed (g)']).toBeCloseTo(0.29, 10);
 		// The sheet's own columns add up on every row: cost = grams × price per gram, to the cent.
-		for (const r of rows) expect(Math.abs(Number(r['Cost ($)']) - Number(r['Seed (g)']) * Number(r['Price ($/g)']))).toBeLessThanOrEqual(0.005 + 1e-9);
+		for (const r of rows)
+			expect(Math.abs(Number(r['Cost ($)']) - Number(r['Seed (g)']) * Number(r['Price ($/g)']))).toBeLessThanOrEqual(
+				0.005 + 1e-9
+			);
 		const cost = wb.getWorksheet('Seed order')!.getRow(1).values as unknown[];
 		const costCol = cost.indexOf('Cost ($)');
 		expect(wb.getWorksheet('Seed order')!.getRow(2).getCell(costCol).numFmt).toContain('$');
@@ -138,13 +165,23 @@ describe('read with exceljs', () => {
 		const rows = rowsOf('Weekly tasks');
 		const find = (week: string, task: string) => rows.filter((r) => r['Week (ISO)'] === week && r.Task === task);
 		// Tray sowing of P3 on Mon 15 Mar 2027 = day 74, 70 days after 4 Jan → W11: 154 cells in 2 trays.
-		expect(find('2027-W11', 'Tray sowing')).toEqual([expect.objectContaining({ Crop: 'Head lettuce', Quantity: 154, Unit: 'cells', Trays: 2 })]);
-		expect((find('2027-W11', 'Tray sowing')[0]['Week starts (date)'] as Date).toISOString().slice(0, 10)).toBe('2027-03-15');
+		expect(find('2027-W11', 'Tray sowing')).toEqual([
+			expect.objectContaining({ Crop: 'Head lettuce', Quantity: 154, Unit: 'cells', Trays: 2 })
+		]);
+		expect((find('2027-W11', 'Tray sowing')[0]['Week starts (date)'] as Date).toISOString().slice(0, 10)).toBe(
+			'2027-03-15'
+		);
 		// P3 transplanted Mon 12 Apr (W15), 120 plants; P1 sown Mon 19 Apr (W16), 3,680 seeds, 4.6 g.
-		expect(find('2027-W15', 'Transplanting')).toEqual([expect.objectContaining({ Bed: 'E2', Quantity: 120, Unit: 'plants' })]);
-		expect(find('2027-W16', 'Direct sowing')).toEqual([expect.objectContaining({ Bed: 'E1', Quantity: 3680, Unit: 'seeds', 'Seed (g)': 4.6 })]);
+		expect(find('2027-W15', 'Transplanting')).toEqual([
+			expect.objectContaining({ Bed: 'E2', Quantity: 120, Unit: 'plants' })
+		]);
+		expect(find('2027-W16', 'Direct sowing')).toEqual([
+			expect.objectContaining({ Bed: 'E1', Quantity: 3680, Unit: 'seeds', 'Seed (g)': 4.6 })
+		]);
 		// P3 harvest Wed 26 May – Fri 4 Jun, 108 heads over 10 days = 10.8 a day: W21 gets 26–30 May = 5 days = 54; W22 gets 31 May–4 Jun = 54.
-		expect(find('2027-W21', 'Harvest')).toEqual([expect.objectContaining({ Crop: 'Head lettuce', Quantity: 54, Unit: 'head' })]);
+		expect(find('2027-W21', 'Harvest')).toEqual([
+			expect.objectContaining({ Crop: 'Head lettuce', Quantity: 54, Unit: 'head' })
+		]);
 		expect(find('2027-W22', 'Harvest')).toEqual([expect.objectContaining({ Quantity: 54 })]);
 		// The failed P4 gives no work at all (its tray sowing would be W12).
 		expect(find('2027-W12', 'Tray sowing')).toEqual([]);
@@ -153,15 +190,36 @@ describe('read with exceljs', () => {
 		const rows = rowsOf('Forecast');
 		const at = (crop: string, week: string) => rows.find((r) => r.Crop === crop && r['Week (ISO)'] === week);
 		// Lettuce W21: 40 ft × 2.7 heads = 108 over 10 days → 54 in W21 against market 60: 6 short.
-		expect(at('Head lettuce', '2027-W21')).toMatchObject({ 'Planned harvest': 54, Demand: 60, Shortfall: 6, Surplus: 0, Unit: 'head' });
+		expect(at('Head lettuce', '2027-W21')).toMatchObject({
+			'Planned harvest': 54,
+			Demand: 60,
+			Shortfall: 6,
+			Surplus: 0,
+			Unit: 'head'
+		});
 		expect(at('Head lettuce', '2027-W22')).toMatchObject({ 'Planned harvest': 54, Demand: 0, Surplus: 54 });
 		// Carrot W27: P1 gives 50 × 2.5 = 125 lb over 21 days, 7 in W27 → 41.67 lb; share 10 members × 2 lb = 20 → 21.67 over.
-		expect(at('Carrot', '2027-W27')).toMatchObject({ 'Planned harvest': 41.67, Demand: 20, Shortfall: 0, Surplus: 21.67 });
+		expect(at('Carrot', '2027-W27')).toMatchObject({
+			'Planned harvest': 41.67,
+			Demand: 20,
+			Shortfall: 0,
+			Surplus: 21.67
+		});
 	});
 	it('crops and varieties, with a crop that has no variety yet, and beds', () => {
 		const crops = rowsOf('Crops & varieties');
-		expect(crops.map((r) => `${r.Crop}/${r.Variety}`)).toEqual(['Carrot/Test Amber', 'Garlic/null', 'Head lettuce/Test Butter']);
-		expect(crops[2]).toMatchObject({ 'Germination (%)': 0.9, 'Seed price ($/g)': 2.5, 'Cells per tray': 128, 'Heat limit (°F)': 80, 'Degree days to maturity (°F·d)': 900 });
+		expect(crops.map((r) => `${r.Crop}/${r.Variety}`)).toEqual([
+			'Carrot/Test Amber',
+			'Garlic/null',
+			'Head lettuce/Test Butter'
+		]);
+		expect(crops[2]).toMatchObject({
+			'Germination (%)': 0.9,
+			'Seed price ($/g)': 2.5,
+			'Cells per tray': 128,
+			'Heat limit (°F)': 80,
+			'Degree days to maturity (°F·d)': 900
+		});
 		const beds = rowsOf('Beds');
 		expect(beds).toEqual([
 			{ Block: 'East', 'Block order': 1, Bed: 'E1', 'Walking order': 1, 'Length (ft)': 100, 'Width (in)': 30 },
@@ -204,7 +262,9 @@ describe('read with SheetJS (a second, independent reader)', () => {
 	});
 	it('every sheet XML holds a frozen pane below row 1', () => {
 		// SheetJS does not parse panes; its raw view of the zip does show the sheet XML.
-		const files = (sj as unknown as { files: Record<string, { content?: Uint8Array; _data?: { getContent(): Uint8Array } }> }).files;
+		const files = (
+			sj as unknown as { files: Record<string, { content?: Uint8Array; _data?: { getContent(): Uint8Array } }> }
+		).files;
 		const sheetXml = Object.keys(files).filter((k) => /xl\/worksheets\/sheet\d+\.xml$/.test(k));
 		expect(sheetXml).toHaveLength(sheetNames.length);
 		for (const k of sheetXml) {

@@ -18,7 +18,15 @@ beforeAll(async () => {
 });
 
 const url = (season: number, q = ''): string => `/api/seasons/${season}/forecast${q}`;
-type Row = { crop: string; week: string; supply: number; demand: number; shortfall: number; surplus: number; actual: boolean };
+type Row = {
+	crop: string;
+	week: string;
+	supply: number;
+	demand: number;
+	shortfall: number;
+	surplus: number;
+	actual: boolean;
+};
 
 describe('who may read the forecast', () => {
 	it('no session: 401', async () => {
@@ -72,7 +80,8 @@ describe('the figures', () => {
 		expect(out.weeks).toHaveLength(53);
 		expect(out.weeks[0]).toBe('2026-W53');
 		expect(out.crops.map((c: { id: string }) => Number(c.id)).sort()).toEqual(Object.values(f.crops).sort());
-		const at = (crop: number, week: string): Row => out.rows.find((r: Row) => r.crop === String(crop) && r.week === week);
+		const at = (crop: number, week: string): Row =>
+			out.rows.find((r: Row) => r.crop === String(crop) && r.week === week);
 		// Carrot W24: 10 ft × 2 lb = 20 lb (the failed 100 ft adds nothing); demand 10 × 2 + 5 × 1 = 25 → 5 short.
 		expect(at(f.crops.carrot, '2027-W24')).toMatchObject({ demand: 25, actual: false });
 		expect(at(f.crops.carrot, '2027-W24').supply).toBeCloseTo(20, 9);
@@ -92,7 +101,9 @@ describe('the figures', () => {
 	});
 
 	it('logged harvests replace the forecast for past weeks', async () => {
-		const out = await (await f.client.get(url(f.season2026, `?crops=${f.crops.carrot}&from=2026-W47&to=2026-W48`))).json();
+		const out = await (
+			await f.client.get(url(f.season2026, `?crops=${f.crops.carrot}&from=2026-W47&to=2026-W48`))
+		).json();
 		// 50 ft × 2 lb = 100 lb over 14 days → 50 lb a week. W47 (16–22 Nov) had 31 lb logged: 31 replaces 50.
 		// W48 (23–29 Nov) is past too but has nothing logged, so it keeps the 50 lb forecast.
 		expect(out.rows.map((r: Row) => [r.week, Math.round(r.supply * 1e6) / 1e6, r.actual])).toEqual([
@@ -116,12 +127,16 @@ describe('the figures', () => {
 		expect(carrot.demand).toEqual([0, 25, 0]);
 		expect(carrot.actual).toEqual([]);
 		// Every row of the rows shape is one non-null entry, with the same supply and demand.
-		const back = out.series.flatMap((s: S) => out.weeks.flatMap((w: string, i: number) => (s.supply[i] === null ? [] : [[s.crop, w, s.supply[i], s.demand[i]]])));
+		const back = out.series.flatMap((s: S) =>
+			out.weeks.flatMap((w: string, i: number) => (s.supply[i] === null ? [] : [[s.crop, w, s.supply[i], s.demand[i]]]))
+		);
 		expect(back).toEqual(rows.map((r) => [r.crop, r.week, r.supply, r.demand]));
 	});
 
 	it('shape=series marks logged weeks by index', async () => {
-		const out = await (await f.client.get(url(f.season2026, `?crops=${f.crops.carrot}&from=2026-W47&to=2026-W48&shape=series`))).json();
+		const out = await (
+			await f.client.get(url(f.season2026, `?crops=${f.crops.carrot}&from=2026-W47&to=2026-W48&shape=series`))
+		).json();
 		// W47 (index 0) had 31 lb logged; W48 (index 1) keeps the 50 lb forecast.
 		expect(out.series).toHaveLength(1);
 		expect(out.series[0].supply.map((x: number) => Math.round(x * 1e6) / 1e6)).toEqual([31, 50]);

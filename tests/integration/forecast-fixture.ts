@@ -46,7 +46,16 @@ export async function makeForecastFarm(tag: string): Promise<ForecastFarm> {
 	const farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
 
 	const crop = async (name: string, family: string, unit: string): Promise<number> =>
-		(await db('crops').insert({ farm_id: farmId, name, family, harvest_unit: unit, frost_tolerance: 'hardy', base_temp_f: 40 }))[0];
+		(
+			await db('crops').insert({
+				farm_id: farmId,
+				name,
+				family,
+				harvest_unit: unit,
+				frost_tolerance: 'hardy',
+				base_temp_f: 40
+			})
+		)[0];
 	const crops = {
 		carrot: await crop('Carrot (test)', 'Apiaceae', 'lb'),
 		spinach: await crop('Spinach (test)', 'Amaranthaceae', 'lb'),
@@ -56,18 +65,61 @@ export async function makeForecastFarm(tag: string): Promise<ForecastFarm> {
 	const variety = async (cropId: number, yieldPerBedFoot: number): Promise<number> =>
 		(
 			await db('varieties').insert({
-				farm_id: farmId, crop_id: cropId, name: 'Test variety', method: 'direct', days_to_maturity: 50, harvest_window_days: 7,
-				yield_per_bed_foot: yieldPerBedFoot, rows_per_bed: 2, in_row_spacing_in: 4, germination_rate: 0.8, seeds_per_gram: 500
+				farm_id: farmId,
+				crop_id: cropId,
+				name: 'Test variety',
+				method: 'direct',
+				days_to_maturity: 50,
+				harvest_window_days: 7,
+				yield_per_bed_foot: yieldPerBedFoot,
+				rows_per_bed: 2,
+				in_row_spacing_in: 4,
+				germination_rate: 0.8,
+				seeds_per_gram: 500
 			})
 		)[0];
-	const v = { carrot: await variety(crops.carrot, 2), spinach: await variety(crops.spinach, 2), kale: await variety(crops.kale, 1), chard: await variety(crops.chard, 1) };
-	const [season2027] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: '2027 test season', starts_on: '2027-01-01', ends_on: '2027-12-31' });
-	const [season2026] = await db('seasons').insert({ farm_id: farmId, year: 2026, name: '2026 test season', starts_on: '2026-01-01', ends_on: '2026-12-31' });
-	const planting = async (seasonId: number, varietyId: number, lengthFt: number, first: string, last: string, status = 'planned'): Promise<number> =>
+	const v = {
+		carrot: await variety(crops.carrot, 2),
+		spinach: await variety(crops.spinach, 2),
+		kale: await variety(crops.kale, 1),
+		chard: await variety(crops.chard, 1)
+	};
+	const [season2027] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2027,
+		name: '2027 test season',
+		starts_on: '2027-01-01',
+		ends_on: '2027-12-31'
+	});
+	const [season2026] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2026,
+		name: '2026 test season',
+		starts_on: '2026-01-01',
+		ends_on: '2026-12-31'
+	});
+	const planting = async (
+		seasonId: number,
+		varietyId: number,
+		lengthFt: number,
+		first: string,
+		last: string,
+		status = 'planned'
+	): Promise<number> =>
 		(
 			await db('plantings').insert({
-				farm_id: farmId, season_id: seasonId, variety_id: varietyId, start_ft: 0, length_ft: lengthFt, rows: 2, in_row_spacing_in: 4,
-				method: 'direct', field_date: '2027-04-20', first_harvest: first, last_harvest: last, status
+				farm_id: farmId,
+				season_id: seasonId,
+				variety_id: varietyId,
+				start_ft: 0,
+				length_ft: lengthFt,
+				rows: 2,
+				in_row_spacing_in: 4,
+				method: 'direct',
+				field_date: '2027-04-20',
+				first_harvest: first,
+				last_harvest: last,
+				status
 			})
 		)[0];
 	const plantings = {
@@ -78,15 +130,42 @@ export async function makeForecastFarm(tag: string): Promise<ForecastFarm> {
 	await planting(season2027, v.spinach, 5, '2027-06-14', '2027-06-20');
 	await planting(season2027, v.kale, 12, '2027-06-14', '2027-06-20');
 	await planting(season2027, v.chard, 8, '2027-06-14', '2027-06-20');
-	await db('harvest_records').insert({ farm_id: farmId, planting_id: plantings.fall, harvested_on: '2026-11-18', quantity: 31, unit: 'lb', recorded_by: user.id });
+	await db('harvest_records').insert({
+		farm_id: farmId,
+		planting_id: plantings.fall,
+		harvested_on: '2026-11-18',
+		quantity: 31,
+		unit: 'lb',
+		recorded_by: user.id
+	});
 
 	const share = async (name: string, members: number): Promise<number> =>
-		(await db('share_sizes').insert({ farm_id: farmId, season_id: season2027, name, members, first_week: '2027-W24', last_week: '2027-W25' }))[0];
+		(
+			await db('share_sizes').insert({
+				farm_id: farmId,
+				season_id: season2027,
+				name,
+				members,
+				first_week: '2027-W24',
+				last_week: '2027-W25'
+			})
+		)[0];
 	const shares = { full: await share('Full (test)', 10), half: await share('Half (test)', 5) };
 	await db('box_items').insert([
 		{ share_size_id: shares.full, week: '2027-W24', crop_id: crops.carrot, quantity: 2, unit: 'lb' },
 		{ share_size_id: shares.full, week: '2027-W24', crop_id: crops.kale, quantity: 1, unit: 'bunch' },
 		{ share_size_id: shares.half, week: '2027-W24', crop_id: crops.carrot, quantity: 1, unit: 'lb' }
 	]);
-	return { client, email, password: FIXTURE_PASSWORD, userId: user.id, farmId, season2027, season2026, crops, shares, plantings };
+	return {
+		client,
+		email,
+		password: FIXTURE_PASSWORD,
+		userId: user.id,
+		farmId,
+		season2027,
+		season2026,
+		crops,
+		shares,
+		plantings
+	};
 }

@@ -14,7 +14,13 @@ afterAll(closeTestDb);
 async function newAccount(tag: string): Promise<string> {
 	const email = uniqueEmail(tag);
 	const res = await new Client().postForm('/signup', {
-		name: 'Reset Tester', email, password: 'long-enough-pass', farmName: 'Reset Plot (invented)', latitude: '44', lastSpringFrost: '2027-05-15', firstFallFrost: '2027-10-01'
+		name: 'Reset Tester',
+		email,
+		password: 'long-enough-pass',
+		farmName: 'Reset Plot (invented)',
+		latitude: '44',
+		lastSpringFrost: '2027-05-15',
+		firstFallFrost: '2027-10-01'
 	});
 	expect(res.status).toBe(303);
 	return email;
@@ -24,13 +30,20 @@ async function newAccount(tag: string): Promise<string> {
 async function mailsTo(email: string): Promise<{ subject: string; text: string }[]> {
 	const dir = process.env.FC_MAIL_DIR!;
 	const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith('.json')).sort();
-	const all = await Promise.all(names.map(async (n) => JSON.parse(await readFile(join(dir, n), 'utf8')) as { to: string[]; subject: string; text: string }));
+	const all = await Promise.all(
+		names.map(
+			async (n) => JSON.parse(await readFile(join(dir, n), 'utf8')) as { to: string[]; subject: string; text: string }
+		)
+	);
 	return all.filter((m) => m.to.includes(email));
 }
 
 /** A page's text with the one address it echoes (and the per-response CSP nonce) taken out, to compare two answers. */
 async function answer(res: Response, email: string): Promise<string> {
-	return (await html(res)).split(email).join('ADDRESS').replace(/nonce="[^"]*"/g, 'nonce=""');
+	return (await html(res))
+		.split(email)
+		.join('ADDRESS')
+		.replace(/nonce="[^"]*"/g, 'nonce=""');
 }
 
 const ask = (email: string) => new Client().postForm('/forgot', { email });
@@ -86,8 +99,14 @@ describe('reset links', () => {
 		expect(second.pathname).not.toBe(first.pathname);
 		const user = await testDb()('users').where({ email }).first('id');
 		expect(await count('password_resets', { user_id: user.id, used_at: null })).toBe(1);
-		expect((await new Client().postForm(first.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' })).status).toBe(400);
-		expect((await new Client().postForm(second.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' })).status).toBe(303);
+		expect(
+			(await new Client().postForm(first.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' }))
+				.status
+		).toBe(400);
+		expect(
+			(await new Client().postForm(second.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' }))
+				.status
+		).toBe(303);
 	});
 
 	it('at most 3 reset mails an hour per account, while the answer stays the same', async () => {
@@ -108,7 +127,13 @@ describe('sign-up with an address that has an account', () => {
 	it('says "check your e-mail" as the reset page does, writes nothing, and mails the holder a note', async () => {
 		const before = await count('farms');
 		const res = await new Client().postForm('/signup', {
-			name: 'Someone', email: demo.crew, password: 'long-enough-pass', farmName: 'Copycat (invented)', latitude: '44', lastSpringFrost: '2027-05-15', firstFallFrost: '2027-10-01'
+			name: 'Someone',
+			email: demo.crew,
+			password: 'long-enough-pass',
+			farmName: 'Copycat (invented)',
+			latitude: '44',
+			lastSpringFrost: '2027-05-15',
+			firstFallFrost: '2027-10-01'
 		});
 		expect(res.status).toBe(200);
 		const page = await html(res);
@@ -119,7 +144,9 @@ describe('sign-up with an address that has an account', () => {
 		const until = Date.now() + 10_000;
 		let notes: { subject: string }[] = [];
 		while (Date.now() < until && notes.length === 0) {
-			notes = (await mailsTo(demo.crew)).filter((m) => m.subject === 'Someone tried to create a Furrowcast farm with your address');
+			notes = (await mailsTo(demo.crew)).filter(
+				(m) => m.subject === 'Someone tried to create a Furrowcast farm with your address'
+			);
 			if (notes.length === 0) await new Promise((r) => setTimeout(r, 100));
 		}
 		expect(notes).toHaveLength(1);

@@ -24,25 +24,51 @@ describe('sign-in form', () => {
 		expect(page).toContain('Password is required.');
 	});
 	it('names an over-long password', async () => {
-		await expectFieldError(await new Client().postForm('/signin', { email: demo.owner, password: 'x'.repeat(201) }), 'password', 'Password must be at most 200 characters.');
+		await expectFieldError(
+			await new Client().postForm('/signin', { email: demo.owner, password: 'x'.repeat(201) }),
+			'password',
+			'Password must be at most 200 characters.'
+		);
 	});
 });
 
 describe('forgotten password form', () => {
 	it('names a malformed e-mail and sends nothing', async () => {
-		await expectFieldError(await new Client().postForm('/forgot', { email: 'owner at farm' }), 'email', 'Enter a valid e-mail address');
+		await expectFieldError(
+			await new Client().postForm('/forgot', { email: 'owner at farm' }),
+			'email',
+			'Enter a valid e-mail address'
+		);
 	});
 });
 
 describe('reset form', () => {
 	it('names a short password and a mismatch, and the link still works afterwards', async () => {
 		const email = uniqueEmail('resetform');
-		await new Client().postForm('/signup', { name: 'Reset Form', email, password: 'long-enough-pass', farmName: 'Reset Farm (invented)', latitude: '44', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-01' });
+		await new Client().postForm('/signup', {
+			name: 'Reset Form',
+			email,
+			password: 'long-enough-pass',
+			farmName: 'Reset Farm (invented)',
+			latitude: '44',
+			lastSpringFrost: '2027-05-10',
+			firstFallFrost: '2027-10-01'
+		});
 		await new Client().postForm('/forgot', { email });
 		const path = new URL(firstLink(await waitForMail(email), '/reset/')).pathname;
-		await expectFieldError(await new Client().postForm(path, { password: 'short', confirm: 'short' }), 'password', 'Password must be at least 10 characters.');
-		await expectFieldError(await new Client().postForm(path, { password: 'long-enough-1', confirm: 'long-enough-2' }), 'confirm', 'The two passwords differ.');
-		expect((await new Client().postForm(path, { password: 'long-enough-3', confirm: 'long-enough-3' })).status).toBe(303);
+		await expectFieldError(
+			await new Client().postForm(path, { password: 'short', confirm: 'short' }),
+			'password',
+			'Password must be at least 10 characters.'
+		);
+		await expectFieldError(
+			await new Client().postForm(path, { password: 'long-enough-1', confirm: 'long-enough-2' }),
+			'confirm',
+			'The two passwords differ.'
+		);
+		expect((await new Client().postForm(path, { password: 'long-enough-3', confirm: 'long-enough-3' })).status).toBe(
+			303
+		);
 	});
 });
 
@@ -52,9 +78,21 @@ describe('invite acceptance form', () => {
 		const email = uniqueEmail('acceptform');
 		await owner.postForm('/team?/invite', { email, role: 'crew_lead' });
 		const path = new URL(firstLink(await waitForMail(email), '/invite/')).pathname;
-		await expectFieldError(await new Client().postForm(path, { name: '', password: 'long-enough-pass' }), 'name', 'Your name is required.');
-		await expectFieldError(await new Client().postForm(path, { name: '<img src=x onerror=alert(1)>', password: 'long-enough-pass' }), 'name', 'Your name may not contain < or >.');
-		await expectFieldError(await new Client().postForm(path, { name: 'N'.repeat(121), password: 'long-enough-pass' }), 'name', 'Your name must be at most 120 characters.');
+		await expectFieldError(
+			await new Client().postForm(path, { name: '', password: 'long-enough-pass' }),
+			'name',
+			'Your name is required.'
+		);
+		await expectFieldError(
+			await new Client().postForm(path, { name: '<img src=x onerror=alert(1)>', password: 'long-enough-pass' }),
+			'name',
+			'Your name may not contain < or >.'
+		);
+		await expectFieldError(
+			await new Client().postForm(path, { name: 'N'.repeat(121), password: 'long-enough-pass' }),
+			'name',
+			'Your name must be at most 120 characters.'
+		);
 		expect(await count('users', { email })).toBe(0);
 		expect((await testDb()('invites').where({ email }).first('accepted_at')).accepted_at).toBeNull();
 	});
@@ -64,11 +102,31 @@ describe('new block form', () => {
 	it('names an empty, a duplicate and an over-long block name', async () => {
 		const owner = new Client();
 		const email = uniqueEmail('blockform');
-		await owner.postForm('/signup', { name: 'Block Form', email, password: 'long-enough-pass', farmName: 'Block Farm (invented)', latitude: '44', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-01' });
-		await expectFieldError(await owner.postForm('/settings?/addBlock', { name: '' }), 'name', 'Block name is required.');
+		await owner.postForm('/signup', {
+			name: 'Block Form',
+			email,
+			password: 'long-enough-pass',
+			farmName: 'Block Farm (invented)',
+			latitude: '44',
+			lastSpringFrost: '2027-05-10',
+			firstFallFrost: '2027-10-01'
+		});
+		await expectFieldError(
+			await owner.postForm('/settings?/addBlock', { name: '' }),
+			'name',
+			'Block name is required.'
+		);
 		expect((await owner.postForm('/settings?/addBlock', { name: 'West' })).status).toBe(303);
-		await expectFieldError(await owner.postForm('/settings?/addBlock', { name: 'West' }), 'name', 'A block named "West" already exists.');
-		await expectFieldError(await owner.postForm('/settings?/addBlock', { name: 'W'.repeat(61) }), 'name', 'Block name must be at most 60 characters.');
+		await expectFieldError(
+			await owner.postForm('/settings?/addBlock', { name: 'West' }),
+			'name',
+			'A block named "West" already exists.'
+		);
+		await expectFieldError(
+			await owner.postForm('/settings?/addBlock', { name: 'W'.repeat(61) }),
+			'name',
+			'Block name must be at most 60 characters.'
+		);
 		const u = await testDb()('users').where({ email }).first('id');
 		const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 		expect(await count('blocks', { farm_id: farmId })).toBe(1);

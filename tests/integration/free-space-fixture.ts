@@ -29,7 +29,13 @@ export async function makeFreeSpaceFarm(tag: string): Promise<FreeSpaceFarm> {
 	const password = 'free-space-pass-27';
 	const client = new Client();
 	const res = await client.postForm('/signup', {
-		name: 'Free Space Tester', email, password, farmName: 'Lane End Plots (invented)', latitude: '43', lastSpringFrost: '2027-05-05', firstFallFrost: '2027-10-10'
+		name: 'Free Space Tester',
+		email,
+		password,
+		farmName: 'Lane End Plots (invented)',
+		latitude: '43',
+		lastSpringFrost: '2027-05-05',
+		firstFallFrost: '2027-10-10'
 	});
 	if (res.status !== 303) throw new Error(`signup answered ${res.status}`);
 	const db = testDb();
@@ -40,15 +46,47 @@ export async function makeFreeSpaceFarm(tag: string): Promise<FreeSpaceFarm> {
 	const [a1] = await db('beds').insert({ farm_id: farmId, block_id: west, name: 'A1', length_ft: 100, position: 1 });
 	const [a2] = await db('beds').insert({ farm_id: farmId, block_id: west, name: 'A2', length_ft: 50, position: 2 });
 	const [e1] = await db('beds').insert({ farm_id: farmId, block_id: east, name: 'E1', length_ft: 80, position: 1 });
-	const [cropId] = await db('crops').insert({ farm_id: farmId, name: 'Beet', family: 'Amaranthaceae', harvest_unit: 'lb', frost_tolerance: 'hardy' });
-	const [varietyId] = await db('varieties').insert({
-		farm_id: farmId, crop_id: cropId, name: 'Invented Red', method: 'direct', days_to_maturity: 55, harvest_window_days: 21,
-		yield_per_bed_foot: 1.5, rows_per_bed: 4, in_row_spacing_in: 3, germination_rate: 0.8, seeds_per_gram: 55
+	const [cropId] = await db('crops').insert({
+		farm_id: farmId,
+		name: 'Beet',
+		family: 'Amaranthaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy'
 	});
-	const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: '2027 season', starts_on: '2027-01-01', ends_on: '2027-12-31' });
+	const [varietyId] = await db('varieties').insert({
+		farm_id: farmId,
+		crop_id: cropId,
+		name: 'Invented Red',
+		method: 'direct',
+		days_to_maturity: 55,
+		harvest_window_days: 21,
+		yield_per_bed_foot: 1.5,
+		rows_per_bed: 4,
+		in_row_spacing_in: 3,
+		germination_rate: 0.8,
+		seeds_per_gram: 55
+	});
+	const [seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2027,
+		name: '2027 season',
+		starts_on: '2027-01-01',
+		ends_on: '2027-12-31'
+	});
 	const row = (bed: number, start: number, length: number, field: string, last: string, status = 'planned') => ({
-		farm_id: farmId, season_id: seasonId, variety_id: varietyId, bed_id: bed, start_ft: start, length_ft: length, rows: 4,
-		in_row_spacing_in: 3, method: 'direct', field_date: field, first_harvest: last, last_harvest: last, status
+		farm_id: farmId,
+		season_id: seasonId,
+		variety_id: varietyId,
+		bed_id: bed,
+		start_ft: start,
+		length_ft: length,
+		rows: 4,
+		in_row_spacing_in: 3,
+		method: 'direct',
+		field_date: field,
+		first_harvest: last,
+		last_harvest: last,
+		status
 	});
 	await db('plantings').insert([
 		row(a1, 0, 30, '2027-04-01', '2027-05-20'),

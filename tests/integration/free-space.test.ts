@@ -72,8 +72,19 @@ describe('free space', () => {
 		expect(out.turnaroundDays).toBe(7);
 		expect(out.bedsChecked).toBe(3);
 		expect(out.beds.map((b: { bed: string }) => b.bed)).toEqual(['A1', 'A2']);
-		expect(out.beds[0]).toMatchObject({ bedId: farm.beds.a1, block: 'West', ranges: [{ startFt: 30, endFt: 60, lengthFt: 30 }], freeFt: 30, longestFt: 30 });
-		expect(out.beds[1]).toMatchObject({ bedId: farm.beds.a2, ranges: [{ startFt: 0, endFt: 50, lengthFt: 50 }], freeFt: 50, longestFt: 50 });
+		expect(out.beds[0]).toMatchObject({
+			bedId: farm.beds.a1,
+			block: 'West',
+			ranges: [{ startFt: 30, endFt: 60, lengthFt: 30 }],
+			freeFt: 30,
+			longestFt: 30
+		});
+		expect(out.beds[1]).toMatchObject({
+			bedId: farm.beds.a2,
+			ranges: [{ startFt: 0, endFt: 50, lengthFt: 50 }],
+			freeFt: 50,
+			longestFt: 50
+		});
 	});
 	it('minFt=40 leaves only A2', async () => {
 		const out = await (await farm.client.get(url(farm.seasonId, 'from=2027-W20&to=2027-W23&minFt=40'))).json();
@@ -92,7 +103,9 @@ describe('free space', () => {
 		expect(out.beds.reduce((n: number, b: { freeFt: number }) => n + b.freeFt, 0)).toBe(150);
 	});
 	it('block=East checks E1 only, and it is full', async () => {
-		const out = await (await farm.client.get(url(farm.seasonId, `from=2027-W20&to=2027-W23&block=${farm.blocks.east}`))).json();
+		const out = await (
+			await farm.client.get(url(farm.seasonId, `from=2027-W20&to=2027-W23&block=${farm.blocks.east}`))
+		).json();
 		expect(out.bedsChecked).toBe(1);
 		expect(out.beds).toEqual([]);
 	});

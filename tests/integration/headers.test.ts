@@ -38,7 +38,11 @@ beforeAll(async () => {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id as number;
 	// The demo's main season: the one with the most plantings.
-	const main = await testDb()('plantings').where({ farm_id: farmId }).groupBy('season_id').orderByRaw('count(*) desc').first('season_id');
+	const main = await testDb()('plantings')
+		.where({ farm_id: farmId })
+		.groupBy('season_id')
+		.orderByRaw('count(*) desc')
+		.first('season_id');
 	seasonId = main.season_id as number;
 	// A built script the sign-in page links to: served from disk by adapter-node's static handler.
 	const page = (await get('/signin')).body.toString('utf8');

@@ -24,7 +24,8 @@ beforeAll(async () => {
 
 async function farmRows(farmId: number): Promise<Record<string, number>> {
 	const out: Record<string, number> = {};
-	for (const t of ['crops', 'varieties', 'blocks', 'beds', 'seasons', 'plantings']) out[t] = await count(t, { farm_id: farmId });
+	for (const t of ['crops', 'varieties', 'blocks', 'beds', 'seasons', 'plantings'])
+		out[t] = await count(t, { farm_id: farmId });
 	return out;
 }
 const nothing = { crops: 0, varieties: 0, blocks: 0, beds: 0, seasons: 0, plantings: 0 };
@@ -45,10 +46,14 @@ describe('who may import', () => {
 		const crew = await signedIn(demo.crew, demo.password);
 		const form = new FormData();
 		form.set('file', new Blob([new Uint8Array(demoFile)]), 'plan.xlsx');
-		const res = await crew.request(`/seasons/${demoSeasonId}/transfer?/import`, { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'text/html' } });
+		const res = await crew.request(`/seasons/${demoSeasonId}/transfer?/import`, {
+			method: 'POST',
+			body: form,
+			headers: { origin: baseUrl(), accept: 'text/html' }
+		});
 		expect(res.status).toBe(403);
 	});
-	it("a season of another farm answers 404", async () => {
+	it('a season of another farm answers 404', async () => {
 		const other = await signUpFarm('import-404');
 		const res = await upload(other.client, 'plan.xlsx', demoFile, { seasonId: String(demoSeasonId) });
 		expect(res.status).toBe(404);
@@ -64,7 +69,11 @@ describe('round trip: the demo season into an empty farm', () => {
 		expect(res.status).toBe(201);
 		const out = await res.json();
 		const season = await testDb()('seasons').where({ farm_id: fresh.farmId, year: 2027 }).first();
-		expect(out).toMatchObject({ seasonId: season.id, seasonCreated: true, plantings: await count('plantings', { season_id: demoSeasonId }) });
+		expect(out).toMatchObject({
+			seasonId: season.id,
+			seasonCreated: true,
+			plantings: await count('plantings', { season_id: demoSeasonId })
+		});
 		expect(season.name).toBe('2027 season');
 		expect([season.starts_on, season.ends_on]).toEqual(['2027-01-01', '2027-12-31']);
 
@@ -95,7 +104,12 @@ describe('round trip: the demo season into an empty farm', () => {
 		expect(again.status).toBe(400);
 		const body = await again.json();
 		expect(body.errors).toHaveLength(4);
-		expect(body.errors[0]).toMatchObject({ sheet: 'Plantings', row: 2, header: 'Planting id', message: expect.stringMatching(/No planting with id \d+ in this season/) });
+		expect(body.errors[0]).toMatchObject({
+			sheet: 'Plantings',
+			row: 2,
+			header: 'Planting id',
+			message: expect.stringMatching(/No planting with id \d+ in this season/)
+		});
 		expect(await farmRows(target.farmId)).toEqual(before);
 	});
 
@@ -103,10 +117,16 @@ describe('round trip: the demo season into an empty farm', () => {
 		const fresh = await signUpFarm('roundtrip-page');
 		const form = new FormData();
 		form.set('file', new Blob([new Uint8Array(demoFile)]), 'plan.xlsx');
-		const res = await fresh.client.request('/import?/import', { method: 'POST', body: form, headers: { origin: baseUrl(), accept: 'text/html' } });
+		const res = await fresh.client.request('/import?/import', {
+			method: 'POST',
+			body: form,
+			headers: { origin: baseUrl(), accept: 'text/html' }
+		});
 		expect(res.status).toBe(303);
 		const season = await testDb()('seasons').where({ farm_id: fresh.farmId, year: 2027 }).first('id');
-		expect(res.headers.get('location')).toMatch(new RegExp(`^/seasons/${season.id}/transfer\\?imported=1&.*plantings=\\d+`));
+		expect(res.headers.get('location')).toMatch(
+			new RegExp(`^/seasons/${season.id}/transfer\\?imported=1&.*plantings=\\d+`)
+		);
 	});
 });
 
@@ -130,26 +150,53 @@ describe('a bad workbook is refused whole, every bad cell named', () => {
 		const res = await upload(fresh.client, 'bad.xlsx', bad);
 		expect(res.status).toBe(400);
 		const body = await res.json();
-		const cells = body.errors.map((e: { sheet: string; row: number; column: string }) => `${e.sheet}!${e.column}${e.row}`);
-		expect(cells).toEqual(
-			expect.arrayContaining(['Plantings!F3', 'Plantings!L4', 'Plantings!B5', 'Plantings!D6', 'Plantings!S7', 'Beds!E2', 'Crops & varieties!C2', 'Crops & varieties!P3'])
+		const cells = body.errors.map(
+			(e: { sheet: string; row: number; column: string }) => `${e.sheet}!${e.column}${e.row}`
 		);
-		expect(body.errors.find((e: { column: string; row: number }) => e.column === 'L' && e.row === 4).message).toMatch(/not a real calendar date/);
-		expect(body.errors.find((e: { column: string; row: number }) => e.column === 'F' && e.row === 3).header).toBe('Length (ft)');
+		expect(cells).toEqual(
+			expect.arrayContaining([
+				'Plantings!F3',
+				'Plantings!L4',
+				'Plantings!B5',
+				'Plantings!D6',
+				'Plantings!S7',
+				'Beds!E2',
+				'Crops & varieties!C2',
+				'Crops & varieties!P3'
+			])
+		);
+		expect(body.errors.find((e: { column: string; row: number }) => e.column === 'L' && e.row === 4).message).toMatch(
+			/not a real calendar date/
+		);
+		expect(body.errors.find((e: { column: string; row: number }) => e.column === 'F' && e.row === 3).header).toBe(
+			'Length (ft)'
+		);
 		expect(body.message).toMatch(/^Nothing was imported/);
 		expect(await farmRows(fresh.farmId)).toEqual(nothing);
 	});
 	it('a missing column is named once, at the header row', async () => {
 		const wb = await loadWorkbook(demoFile);
 		wb.getWorksheet('Beds')!.getCell('E1').value = 'Size';
-		const res = await upload((await signUpFarm('import-col')).client, 'bad.xlsx', Buffer.from(await wb.xlsx.writeBuffer()));
+		const res = await upload(
+			(await signUpFarm('import-col')).client,
+			'bad.xlsx',
+			Buffer.from(await wb.xlsx.writeBuffer())
+		);
 		expect(res.status).toBe(400);
-		expect((await res.json()).errors).toEqual([expect.objectContaining({ sheet: 'Beds', row: 1, header: 'Length (ft)', message: expect.stringMatching(/missing/) })]);
+		expect((await res.json()).errors).toEqual([
+			expect.objectContaining({
+				sheet: 'Beds',
+				row: 1,
+				header: 'Length (ft)',
+				message: expect.stringMatching(/missing/)
+			})
+		]);
 	});
 });
 
 describe('CSV', () => {
-	const beds = 'Block,Block order,Bed,Walking order,Length (ft),Width (in)\nEast,1,E1,1,100,30\nEast,1,E2,2,80,30\nHill,2,H1,1,50,\n';
+	const beds =
+		'Block,Block order,Bed,Walking order,Length (ft),Width (in)\nEast,1,E1,1,100,30\nEast,1,E2,2,80,30\nHill,2,H1,1,50,\n';
 	it('beds from a CSV: blocks and beds created', async () => {
 		const fresh = await signUpFarm('csv-beds');
 		const res = await upload(fresh.client, 'beds.csv', beds);
@@ -164,7 +211,11 @@ describe('CSV', () => {
 	});
 	it('bad CSV rows named by row and column; nothing written', async () => {
 		const fresh = await signUpFarm('csv-bad');
-		const res = await upload(fresh.client, 'beds.csv', 'Block,Bed,Length (ft),Width (in)\nEast,E1,100,30\n,E2,abc,30\nEast,E1,50,0\n');
+		const res = await upload(
+			fresh.client,
+			'beds.csv',
+			'Block,Bed,Length (ft),Width (in)\nEast,E1,100,30\n,E2,abc,30\nEast,E1,50,0\n'
+		);
 		expect(res.status).toBe(400);
 		const cells = (await res.json()).errors.map((e: { row: number; column: string }) => `${e.column}${e.row}`);
 		// Row 3: no block (A), length not a number (C); row 4: E1 again (B), width 0 (D).
@@ -174,18 +225,37 @@ describe('CSV', () => {
 	it('crops and plantings from CSV, into a season named by the upload', async () => {
 		const fresh = await signUpFarm('csv-plan');
 		await writeHandPlan(fresh.farmId);
-		const [season2] = await testDb()('seasons').insert({ farm_id: fresh.farmId, year: 2028, name: 'Next year', starts_on: '2028-01-01', ends_on: '2028-12-31' });
-		const crops = 'Crop,Family,Harvest unit,Frost tolerance,Variety,Method,Days to maturity (d),Harvest window (d),Yield per bed-foot (harvest units),Rows per bed,In-row spacing (in),Germination (%),Seeds per gram (seeds/g),Seed price ($/g)\nBeet,Amaranthaceae,Bunch,hardy,Test Ruby,direct,55,21,3,4,3,80%,55,$0.20\n';
+		const [season2] = await testDb()('seasons').insert({
+			farm_id: fresh.farmId,
+			year: 2028,
+			name: 'Next year',
+			starts_on: '2028-01-01',
+			ends_on: '2028-12-31'
+		});
+		const crops =
+			'Crop,Family,Harvest unit,Frost tolerance,Variety,Method,Days to maturity (d),Harvest window (d),Yield per bed-foot (harvest units),Rows per bed,In-row spacing (in),Germination (%),Seeds per gram (seeds/g),Seed price ($/g)\nBeet,Amaranthaceae,Bunch,hardy,Test Ruby,direct,55,21,3,4,3,80%,55,$0.20\n';
 		expect((await upload(fresh.client, 'crops.csv', crops)).status).toBe(201);
 		const v = await testDb()('varieties').where({ farm_id: fresh.farmId, name: 'Test Ruby' }).first();
-		expect([Number(v.germination_rate), v.seed_price_cents_per_gram, Number(v.margin), v.cells_per_tray]).toEqual([0.8, 20, 0.1, 128]);
-		const plan = 'Crop,Variety,Bed,Start (ft),Length (ft),Rows,In-row spacing (in),Method,Field date,First harvest (date),Last harvest (date)\nBeet,Test Ruby,W1,0,50,4,3,direct,2028-04-10,2028-06-05,2028-06-25\n';
+		expect([Number(v.germination_rate), v.seed_price_cents_per_gram, Number(v.margin), v.cells_per_tray]).toEqual([
+			0.8, 20, 0.1, 128
+		]);
+		const plan =
+			'Crop,Variety,Bed,Start (ft),Length (ft),Rows,In-row spacing (in),Method,Field date,First harvest (date),Last harvest (date)\nBeet,Test Ruby,W1,0,50,4,3,direct,2028-04-10,2028-06-05,2028-06-25\n';
 		const noSeason = await upload(fresh.client, 'plan.csv', plan);
 		expect(noSeason.status).toBe(400);
 		expect((await noSeason.json()).errors[0].sheet).toBe('Season');
 		const res = await upload(fresh.client, 'plan.csv', plan, { seasonId: String(season2) });
 		expect(res.status).toBe(201);
-		expect(await planOf(fresh.farmId, season2)).toEqual([expect.objectContaining({ crop: 'Beet', variety: 'Test Ruby', bed: 'W1', length_ft: 50, field_date: '2028-04-10', status: 'planned' })]);
+		expect(await planOf(fresh.farmId, season2)).toEqual([
+			expect.objectContaining({
+				crop: 'Beet',
+				variety: 'Test Ruby',
+				bed: 'W1',
+				length_ft: 50,
+				field_date: '2028-04-10',
+				status: 'planned'
+			})
+		]);
 	});
 });
 
@@ -198,7 +268,15 @@ describe('size and type', () => {
 	it('over 5 MB: 413, naming the limit', async () => {
 		const big = new Uint8Array(5 * 1024 * 1024 + 10);
 		big.set([0x50, 0x4b, 0x03, 0x04]);
-		const res = await owner.request('/api/import', { method: 'POST', body: (() => { const f = new FormData(); f.set('file', new Blob([big]), 'big.xlsx'); return f; })(), headers: { origin: baseUrl(), accept: 'application/json' } });
+		const res = await owner.request('/api/import', {
+			method: 'POST',
+			body: (() => {
+				const f = new FormData();
+				f.set('file', new Blob([big]), 'big.xlsx');
+				return f;
+			})(),
+			headers: { origin: baseUrl(), accept: 'application/json' }
+		});
 		expect(res.status).toBe(413);
 		expect((await res.json()).message).toMatch(/5 MB/);
 	});
@@ -213,7 +291,11 @@ describe('size and type', () => {
 	it('no file, or a zip that is no workbook: 400', async () => {
 		const empty = new FormData();
 		empty.set('sheet', 'Beds');
-		const res = await owner.request('/api/import', { method: 'POST', body: empty, headers: { origin: baseUrl(), accept: 'application/json' } });
+		const res = await owner.request('/api/import', {
+			method: 'POST',
+			body: empty,
+			headers: { origin: baseUrl(), accept: 'application/json' }
+		});
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors[0].header).toBe('file');
 		expect((await upload(owner, 'broken.xlsx', new Uint8Array([0x50, 0x4b, 0x03, 0x04, 1, 2, 3]))).status).toBe(400);

@@ -48,7 +48,9 @@ describe('invites', () => {
 		const email = uniqueEmail('late');
 		await owner.postForm('/team?/invite', { email, role: 'crew_lead' });
 		const link = new URL(firstLink(await waitForMail(email), '/invite/'));
-		await testDb()('invites').where({ email }).update({ expires_at: new Date(Date.now() - 60_000) });
+		await testDb()('invites')
+			.where({ email })
+			.update({ expires_at: new Date(Date.now() - 60_000) });
 		const res = await new Client().postForm(link.pathname, { name: 'Too Late', password: 'invited-pass-1' });
 		expect(res.status).toBe(400);
 		expect(await html(res)).toContain('This invite link has expired.');

@@ -9,7 +9,10 @@ const conn = knex(knexConfig(database));
 afterAll(() => conn.destroy());
 
 async function tables(): Promise<string[]> {
-	const [rows] = await conn.raw('SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ? ORDER BY table_name', [database]);
+	const [rows] = await conn.raw(
+		'SELECT table_name AS t FROM information_schema.tables WHERE table_schema = ? ORDER BY table_name',
+		[database]
+	);
 	return (rows as { t: string }[]).map((r) => r.t).filter((t) => !t.startsWith('knex_'));
 }
 
@@ -30,7 +33,24 @@ describe('migrations', () => {
 		await conn.migrate.latest();
 		const first = await tables();
 		const firstColumns = await columns();
-		for (const t of ['farms', 'users', 'farm_members', 'user_sessions', 'invites', 'password_resets', 'blocks', 'beds', 'crops', 'varieties', 'seasons', 'plantings', 'share_sizes', 'box_items', 'channel_demand', 'harvest_records']) {
+		for (const t of [
+			'farms',
+			'users',
+			'farm_members',
+			'user_sessions',
+			'invites',
+			'password_resets',
+			'blocks',
+			'beds',
+			'crops',
+			'varieties',
+			'seasons',
+			'plantings',
+			'share_sizes',
+			'box_items',
+			'channel_demand',
+			'harvest_records'
+		]) {
 			expect(first).toContain(t);
 		}
 
@@ -53,7 +73,10 @@ describe('migrations', () => {
 	});
 
 	it('have the plantings carry a version for optimistic concurrency', async () => {
-		const [rows] = await conn.raw("SELECT column_default FROM information_schema.columns WHERE table_schema = ? AND table_name = 'plantings' AND column_name = 'version'", [database]);
+		const [rows] = await conn.raw(
+			"SELECT column_default FROM information_schema.columns WHERE table_schema = ? AND table_name = 'plantings' AND column_name = 'version'",
+			[database]
+		);
 		expect((rows as { column_default: string }[])[0]?.column_default).toBe('1');
 	});
 });

@@ -37,7 +37,15 @@ describe('who may plan', () => {
 	});
 	it("another farm's owner: 404 for this farm's season", async () => {
 		const other = new Client();
-		await other.postForm('/signup', { name: 'Other', email: uniqueEmail('plan'), password: 'long-enough-pass', farmName: 'Elsewhere (invented)', latitude: '41', lastSpringFrost: '2027-05-01', firstFallFrost: '2027-10-01' });
+		await other.postForm('/signup', {
+			name: 'Other',
+			email: uniqueEmail('plan'),
+			password: 'long-enough-pass',
+			farmName: 'Elsewhere (invented)',
+			latitude: '41',
+			lastSpringFrost: '2027-05-01',
+			firstFallFrost: '2027-10-01'
+		});
 		expect((await other.json(apply(), 'POST', {})).status).toBe(404);
 	});
 });
@@ -60,7 +68,11 @@ describe('bad input names the field', () => {
 		});
 	}
 	it('a body that is not JSON -> 400', async () => {
-		const res = await owner.request(preview(), { method: 'POST', body: '{not json', headers: { origin: process.env.FC_BASE_URL!, 'content-type': 'application/json' } });
+		const res = await owner.request(preview(), {
+			method: 'POST',
+			body: '{not json',
+			headers: { origin: process.env.FC_BASE_URL!, 'content-type': 'application/json' }
+		});
 		expect(res.status).toBe(400);
 	});
 });
@@ -71,11 +83,18 @@ describe('preview', () => {
 		// overlap, and days from field date through last harvest plus the farm's turnaround days.
 		const { turnaround_days: turnaround } = await testDb()('farms').where({ id: farmId }).first('turnaround_days');
 		const season = await testDb()('seasons').where({ id: seasonId }).first('starts_on', 'ends_on');
-		const day = (d: string | Date): number => Date.parse(`${String(d instanceof Date ? d.toISOString() : d).slice(0, 10)}T00:00:00Z`) / 86_400_000;
+		const day = (d: string | Date): number =>
+			Date.parse(`${String(d instanceof Date ? d.toISOString() : d).slice(0, 10)}T00:00:00Z`) / 86_400_000;
 		const others = (
-			await testDb()('plantings').where({ farm_id: farmId }).whereNot({ season_id: seasonId }).whereNotNull('bed_id').whereNot({ status: 'failed' })
+			await testDb()('plantings')
+				.where({ farm_id: farmId })
+				.whereNot({ season_id: seasonId })
+				.whereNotNull('bed_id')
+				.whereNot({ status: 'failed' })
 				.select('id', 'bed_id', 'start_ft', 'length_ft', 'field_date', 'last_harvest')
-		).filter((o) => day(o.field_date) <= day(season.ends_on) && day(o.last_harvest) + turnaround >= day(season.starts_on));
+		).filter(
+			(o) => day(o.field_date) <= day(season.ends_on) && day(o.last_harvest) + turnaround >= day(season.starts_on)
+		);
 		// The invented demo's 2026 garlic is dug in July 2027.
 		expect(others.length).toBeGreaterThan(0);
 		const res = await owner.json(preview(), 'POST', {});
@@ -83,11 +102,20 @@ describe('preview', () => {
 		const out = await res.json();
 		const placed = out.plantings.filter((p: { bedId: string | null }) => p.bedId !== null);
 		expect(placed.length).toBeGreaterThan(20);
-		for (const p of placed as { key: string; bedId: string; startFt: number; lengthFt: number; fieldDate: string; lastHarvest: string }[]) {
+		for (const p of placed as {
+			key: string;
+			bedId: string;
+			startFt: number;
+			lengthFt: number;
+			fieldDate: string;
+			lastHarvest: string;
+		}[]) {
 			for (const o of others) {
 				if (String(o.bed_id) !== p.bedId) continue;
-				const feet = p.startFt < Number(o.start_ft) + Number(o.length_ft) && Number(o.start_ft) < p.startFt + p.lengthFt;
-				const days = day(p.fieldDate) <= day(o.last_harvest) + turnaround && day(o.field_date) <= day(p.lastHarvest) + turnaround;
+				const feet =
+					p.startFt < Number(o.start_ft) + Number(o.length_ft) && Number(o.start_ft) < p.startFt + p.lengthFt;
+				const days =
+					day(p.fieldDate) <= day(o.last_harvest) + turnaround && day(o.field_date) <= day(p.lastHarvest) + turnaround;
 				expect(feet && days, `${p.key} in bed ${p.bedId} overlaps planting ${o.id} of another season`).toBe(false);
 			}
 		}
@@ -99,32 +127,76 @@ describe('preview', () => {
 		expect(res.status).toBe(200);
 		const out = await res.json();
 		expect(out.plantings.length).toBeGreaterThan(20);
-		expect(await testDb()('plantings').where({ season_id: seasonId }).select('id', 'version').orderBy('id')).toEqual(before);
+		expect(await testDb()('plantings').where({ season_id: seasonId }).select('id', 'version').orderBy('id')).toEqual(
+			before
+		);
 
 		// Check the proposal independently: targets derived here from the rows in the database,
 		// supply from the proposal (placed and unplaced alike), shortfall as the engine reported it.
 		const shares = await testDb()('share_sizes').where({ season_id: seasonId });
-		const items = await testDb()('box_items').whereIn('share_size_id', shares.map((s) => s.id));
+		const items = await testDb()('box_items').whereIn(
+			'share_size_id',
+			shares.map((s) => s.id)
+		);
 		const channels = await testDb()('channel_demand').where({ season_id: seasonId });
 		const targets = deriveTargets({
-			shareSizes: shares.map((s) => ({ id: String(s.id), members: s.members, firstWeek: s.first_week, lastWeek: s.last_week })),
-			boxItems: items.map((i) => ({ shareSizeId: String(i.share_size_id), week: i.week, crop: String(i.crop_id), quantity: Number(i.quantity) })),
+			shareSizes: shares.map((s) => ({
+				id: String(s.id),
+				members: s.members,
+				firstWeek: s.first_week,
+				lastWeek: s.last_week
+			})),
+			boxItems: items.map((i) => ({
+				shareSizeId: String(i.share_size_id),
+				week: i.week,
+				crop: String(i.crop_id),
+				quantity: Number(i.quantity)
+			})),
 			channelDemand: channels.map((c) => ({ crop: String(c.crop_id), week: c.week, quantity: Number(c.quantity) }))
 		});
-		const kept = await testDb()('plantings as p').join('varieties as v', 'v.id', 'p.variety_id').where('p.season_id', seasonId).whereNotIn('p.status', ['planned', 'failed']).select('v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot');
-		const yieldOf = new Map((await testDb()('varieties').where({ farm_id: farmId })).map((v) => [String(v.id), Number(v.yield_per_bed_foot)]));
+		const kept = await testDb()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.where('p.season_id', seasonId)
+			.whereNotIn('p.status', ['planned', 'failed'])
+			.select('v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot');
+		const yieldOf = new Map(
+			(await testDb()('varieties').where({ farm_id: farmId })).map((v) => [String(v.id), Number(v.yield_per_bed_foot)])
+		);
 		const supply = forecast(
 			[
-				...out.plantings.map((p: { cropId: string; varietyId: string; firstHarvest: string; lastHarvest: string; lengthFt: number; harvestWindowDays: number; curve?: HarvestCurve }) => ({
-					crop: p.cropId, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt, yieldPerBedFoot: yieldOf.get(p.varietyId)!,
-					// A harvest cut short at the last target week yields its share of the variety's window.
-					windowDays: p.harvestWindowDays, curve: p.curve
-				})),
-				...kept.map((k) => ({ crop: String(k.crop_id), firstHarvest: k.first_harvest, lastHarvest: k.last_harvest, bedFeet: Number(k.length_ft), yieldPerBedFoot: Number(k.yield_per_bed_foot) }))
+				...out.plantings.map(
+					(p: {
+						cropId: string;
+						varietyId: string;
+						firstHarvest: string;
+						lastHarvest: string;
+						lengthFt: number;
+						harvestWindowDays: number;
+						curve?: HarvestCurve;
+					}) => ({
+						crop: p.cropId,
+						firstHarvest: p.firstHarvest,
+						lastHarvest: p.lastHarvest,
+						bedFeet: p.lengthFt,
+						yieldPerBedFoot: yieldOf.get(p.varietyId)!,
+						// A harvest cut short at the last target week yields its share of the variety's window.
+						windowDays: p.harvestWindowDays,
+						curve: p.curve
+					})
+				),
+				...kept.map((k) => ({
+					crop: String(k.crop_id),
+					firstHarvest: k.first_harvest,
+					lastHarvest: k.last_harvest,
+					bedFeet: Number(k.length_ft),
+					yieldPerBedFoot: Number(k.yield_per_bed_foot)
+				}))
 			],
 			targets
 		);
-		const reported = new Map<string, number>(out.shortfall.map((s: { crop: string; week: string; quantity: number }) => [`${s.crop} ${s.week}`, s.quantity]));
+		const reported = new Map<string, number>(
+			out.shortfall.map((s: { crop: string; week: string; quantity: number }) => [`${s.crop} ${s.week}`, s.quantity])
+		);
 		let weeksChecked = 0;
 		for (const row of supply) {
 			if (row.demand === 0) continue;
@@ -138,9 +210,15 @@ describe('preview', () => {
 
 describe('apply', () => {
 	it('keeps a sown planting untouched, replaces the planned ones, and reports what changed', async () => {
-		const sown = await testDb()('plantings').where({ season_id: seasonId, status: 'planned' }).whereNotNull('bed_id').orderBy('field_date').first();
+		const sown = await testDb()('plantings')
+			.where({ season_id: seasonId, status: 'planned' })
+			.whereNotNull('bed_id')
+			.orderBy('field_date')
+			.first();
 		await testDb()('plantings').where({ id: sown.id }).update({ status: 'sown', actual_field_date: sown.field_date });
-		const keptBefore = await count('plantings', { season_id: seasonId }) - (await count('plantings', { season_id: seasonId, status: 'planned' }));
+		const keptBefore =
+			(await count('plantings', { season_id: seasonId })) -
+			(await count('plantings', { season_id: seasonId, status: 'planned' }));
 		const plannedBefore = await testDb()('plantings').where({ season_id: seasonId, status: 'planned' }).pluck('id');
 
 		const res = await owner.json(apply(), 'POST', {});
@@ -151,10 +229,23 @@ describe('apply', () => {
 
 		const after = await testDb()('plantings').where({ season_id: seasonId });
 		expect(after.length).toBe(out.kept + out.added);
-		expect(after.find((p) => p.id === sown.id)).toMatchObject({ status: 'sown', bed_id: sown.bed_id, start_ft: sown.start_ft, version: sown.version });
+		expect(after.find((p) => p.id === sown.id)).toMatchObject({
+			status: 'sown',
+			bed_id: sown.bed_id,
+			start_ft: sown.start_ft,
+			version: sown.version
+		});
 		expect(after.some((p) => plannedBefore.includes(p.id))).toBe(false);
 		// The new plan works around the kept planting: no new planting shares its bed-feet and dates.
-		const clash = after.filter((p) => p.id !== sown.id && p.bed_id === sown.bed_id && p.field_date <= sown.last_harvest && p.last_harvest >= sown.field_date && Number(p.start_ft) < Number(sown.start_ft) + Number(sown.length_ft) && Number(p.start_ft) + Number(p.length_ft) > Number(sown.start_ft));
+		const clash = after.filter(
+			(p) =>
+				p.id !== sown.id &&
+				p.bed_id === sown.bed_id &&
+				p.field_date <= sown.last_harvest &&
+				p.last_harvest >= sown.field_date &&
+				Number(p.start_ft) < Number(sown.start_ft) + Number(sown.length_ft) &&
+				Number(p.start_ft) + Number(p.length_ft) > Number(sown.start_ft)
+		);
 		expect(clash).toEqual([]);
 	});
 });

@@ -19,10 +19,17 @@ beforeAll(async () => {
 	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 	seasonId = (await testDb()('seasons').where({ farm_id: farmId, year: 2027 }).first('id')).id;
 	// A direct-sown variety with no degree-day figure, so the dates below are calendar arithmetic.
-	const v = await testDb()('varieties').where({ farm_id: farmId, method: 'direct' }).whereNull('gdd_to_maturity').first();
+	const v = await testDb()('varieties')
+		.where({ farm_id: farmId, method: 'direct' })
+		.whereNull('gdd_to_maturity')
+		.first();
 	varietyId = v.id;
 	bedId = (await testDb()('beds').where({ farm_id: farmId }).first('id')).id;
-	[owner, crew, share] = await Promise.all([signedIn(demo.owner, demo.password), signedIn(demo.crew, demo.password), signedIn(demo.share, demo.password)]);
+	[owner, crew, share] = await Promise.all([
+		signedIn(demo.owner, demo.password),
+		signedIn(demo.crew, demo.password),
+		signedIn(demo.share, demo.password)
+	]);
 });
 afterAll(async () => {
 	if (made.length) await testDb()('plantings').whereIn('id', made).delete();
@@ -32,8 +39,12 @@ afterAll(async () => {
 const list = () => `/api/seasons/${seasonId}/plantings`;
 const one = (id: number) => `/api/plantings/${id}`;
 
-async function createOne(over: Record<string, unknown> = {}): Promise<{ id: number; version: number; [k: string]: unknown }> {
-	const res = await owner.json(list(), 'POST', { plantings: [{ varietyId, bedId, startFt: 0, lengthFt: 20, fieldDate: '2027-06-07', ...over }] });
+async function createOne(
+	over: Record<string, unknown> = {}
+): Promise<{ id: number; version: number; [k: string]: unknown }> {
+	const res = await owner.json(list(), 'POST', {
+		plantings: [{ varietyId, bedId, startFt: 0, lengthFt: 20, fieldDate: '2027-06-07', ...over }]
+	});
 	expect(res.status).toBe(201);
 	const p = (await res.json()).plantings[0];
 	made.push(p.id);
@@ -41,7 +52,7 @@ async function createOne(over: Record<string, unknown> = {}): Promise<{ id: numb
 }
 
 describe('GET /api/seasons/[id]/plantings', () => {
-	it('answers 401 without a session and 404 for a season that is not this farm\'s', async () => {
+	it("answers 401 without a session and 404 for a season that is not this farm's", async () => {
 		expect((await new Client().get(list())).status).toBe(401);
 		expect((await owner.get('/api/seasons/999999/plantings')).status).toBe(404);
 	});
@@ -83,13 +94,17 @@ describe('POST /api/seasons/[id]/plantings', () => {
 		expect(Object.keys(body.errors).sort()).toEqual(['plantings.1.lengthFt', 'plantings.2.fieldDate']);
 		expect((await testDb()('plantings').where({ season_id: seasonId }).count({ n: '*' }))[0].n).toBe(before);
 	});
-	it('refuses another farm\'s bed as a 400 on bedId', async () => {
-		const res = await owner.json(list(), 'POST', { plantings: [{ varietyId, bedId: 999999, lengthFt: 10, fieldDate: '2027-05-03' }] });
+	it("refuses another farm's bed as a 400 on bedId", async () => {
+		const res = await owner.json(list(), 'POST', {
+			plantings: [{ varietyId, bedId: 999999, lengthFt: 10, fieldDate: '2027-05-03' }]
+		});
 		expect(res.status).toBe(400);
 		expect((await res.json()).errors).toHaveProperty(['plantings.0.bedId']);
 	});
-	it('is the owner\'s: a crew lead gets 403', async () => {
-		expect((await crew.json(list(), 'POST', { plantings: [{ varietyId, lengthFt: 10, fieldDate: '2027-05-03' }] })).status).toBe(403);
+	it("is the owner's: a crew lead gets 403", async () => {
+		expect(
+			(await crew.json(list(), 'POST', { plantings: [{ varietyId, lengthFt: 10, fieldDate: '2027-05-03' }] })).status
+		).toBe(403);
 	});
 });
 
@@ -116,7 +131,12 @@ describe('PATCH /api/plantings/[id]', () => {
 	});
 	it('lets a crew lead set status, actual dates and notes, but not bed-feet or crop', async () => {
 		const p = await createOne();
-		const ok = await crew.json(one(p.id), 'PATCH', { version: 1, status: 'sown', actualFieldDate: '2026-11-30', notes: 'sown early' });
+		const ok = await crew.json(one(p.id), 'PATCH', {
+			version: 1,
+			status: 'sown',
+			actualFieldDate: '2026-11-30',
+			notes: 'sown early'
+		});
 		expect(ok.status).toBe(200);
 		const no = await crew.json(one(p.id), 'PATCH', { version: 2, lengthFt: 5, varietyId });
 		expect(no.status).toBe(403);
@@ -136,10 +156,18 @@ describe('PATCH /api/plantings/[id]', () => {
 		expect((await owner.json(one(999999999), 'PATCH', { version: 1, notes: 'x' })).status).toBe(404);
 		expect((await new Client().json(one(p.id), 'PATCH', { version: 1 })).status).toBe(401);
 	});
-	it('answers 404 to another farm\'s owner', async () => {
+	it("answers 404 to another farm's owner", async () => {
 		const p = await createOne();
 		const other = new Client();
-		await other.postForm('/signup', { name: 'Grid Tenant', email: uniqueEmail('grid'), password: 'long-enough-pass', farmName: 'Grid Farm (invented)', latitude: '40', lastSpringFrost: '2027-04-20', firstFallFrost: '2027-10-20' });
+		await other.postForm('/signup', {
+			name: 'Grid Tenant',
+			email: uniqueEmail('grid'),
+			password: 'long-enough-pass',
+			farmName: 'Grid Farm (invented)',
+			latitude: '40',
+			lastSpringFrost: '2027-04-20',
+			firstFallFrost: '2027-10-20'
+		});
 		expect((await other.json(one(p.id), 'PATCH', { version: 1, notes: 'x' })).status).toBe(404);
 		expect((await other.json(one(p.id), 'DELETE')).status).toBe(404);
 	});
@@ -156,9 +184,11 @@ describe('DELETE /api/plantings/[id]', () => {
 });
 
 describe('/api/me/prefs/grid', () => {
-	it('keeps each user\'s column widths and hidden columns, and refuses a bad width', async () => {
+	it("keeps each user's column widths and hidden columns, and refuses a bad width", async () => {
 		expect((await new Client().get('/api/me/prefs/grid')).status).toBe(401);
-		expect((await crew.json('/api/me/prefs/grid', 'PUT', { widths: { notes: 320 }, hidden: ['trays'] })).status).toBe(204);
+		expect((await crew.json('/api/me/prefs/grid', 'PUT', { widths: { notes: 320 }, hidden: ['trays'] })).status).toBe(
+			204
+		);
 		expect(await (await crew.get('/api/me/prefs/grid')).json()).toEqual({ widths: { notes: 320 }, hidden: ['trays'] });
 		expect(await (await share.get('/api/me/prefs/grid')).json()).toEqual({ widths: {}, hidden: [] });
 		const bad = await crew.json('/api/me/prefs/grid', 'PUT', { widths: { notes: 5 }, hidden: [] });

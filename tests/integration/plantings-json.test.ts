@@ -16,13 +16,44 @@ beforeAll(async () => {
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id as number;
 	await testDb()('seasons').where({ farm_id: farmId, year: 2034 }).delete();
-	[seasonId] = await testDb()('seasons').insert({ farm_id: farmId, year: 2034, name: '2034 JSON test season (invented)', starts_on: '2034-01-01', ends_on: '2034-12-31' });
+	[seasonId] = await testDb()('seasons').insert({
+		farm_id: farmId,
+		year: 2034,
+		name: '2034 JSON test season (invented)',
+		starts_on: '2034-01-01',
+		ends_on: '2034-12-31'
+	});
 	const variety = await testDb()('varieties').where({ farm_id: farmId }).first('id');
 	const bed = await testDb()('beds').where({ farm_id: farmId }).first('id');
-	const row = { farm_id: farmId, season_id: seasonId, variety_id: variety.id, length_ft: 30, rows: 3, in_row_spacing_in: 2.5, method: 'direct', first_harvest: '2034-07-01', last_harvest: '2034-07-14', expected_yield: 12.25, seeds_needed: 800 };
-	ids.push((await testDb()('plantings').insert({ ...row, bed_id: bed.id, start_ft: 12.5, field_date: '2034-05-02' }))[0]);
+	const row = {
+		farm_id: farmId,
+		season_id: seasonId,
+		variety_id: variety.id,
+		length_ft: 30,
+		rows: 3,
+		in_row_spacing_in: 2.5,
+		method: 'direct',
+		first_harvest: '2034-07-01',
+		last_harvest: '2034-07-14',
+		expected_yield: 12.25,
+		seeds_needed: 800
+	};
+	ids.push(
+		(await testDb()('plantings').insert({ ...row, bed_id: bed.id, start_ft: 12.5, field_date: '2034-05-02' }))[0]
+	);
 	ids.push((await testDb()('plantings').insert({ ...row, bed_id: null, field_date: '2034-05-01', notes: null }))[0]);
-	ids.push((await testDb()('plantings').insert({ ...row, bed_id: bed.id, start_ft: 60, field_date: '2034-05-03', status: 'sown', actual_field_date: '2034-05-04' }))[0]);
+	ids.push(
+		(
+			await testDb()('plantings').insert({
+				...row,
+				bed_id: bed.id,
+				start_ft: 60,
+				field_date: '2034-05-03',
+				status: 'sown',
+				actual_field_date: '2034-05-04'
+			})
+		)[0]
+	);
 });
 afterAll(async () => {
 	await testDb()('plantings').whereIn('id', ids).delete();
@@ -58,7 +89,13 @@ describe('GET /api/seasons/{id}/plantings', () => {
 		const placed = rows.find((r) => r.id === ids[0])!;
 		// Decimals come as JSON numbers, not strings (the PATCH worked expected yield out again).
 		expect(typeof placed.expectedYield).toBe('number');
-		expect(placed).toMatchObject({ startFt: 12.5, lengthFt: 30, inRowSpacingIn: 2.5, fieldDate: '2034-05-02', notes: notes[0] });
+		expect(placed).toMatchObject({
+			startFt: 12.5,
+			lengthFt: 30,
+			inRowSpacingIn: 2.5,
+			fieldDate: '2034-05-02',
+			notes: notes[0]
+		});
 		expect(typeof placed.bed).toBe('string');
 		expect(rows.find((r) => r.id === ids[1])).toMatchObject({ bedId: null, bed: null, block: null, notes: notes[1] });
 		expect(rows.find((r) => r.id === ids[2])).toMatchObject({ status: 'sown', actualFieldDate: '2034-05-04' });

@@ -25,8 +25,23 @@ beforeAll(async () => {
 		['2026-04-20', '2026-06-22', 35]
 	];
 	for (const [field, first, q] of rows) {
-		const id = await addPlanting(own.farmId, seasonId, { varietyId: own.carrot.varietyId, bedId: own.bedIds[0], lengthFt: 10, fieldDate: field, firstHarvest: '2026-06-05', lastHarvest: '2026-06-18', expectedYield: 20, status: 'finished' });
-		await testDb()('harvest_records').insert({ farm_id: own.farmId, planting_id: id, harvested_on: first, quantity: q, unit: 'lb' });
+		const id = await addPlanting(own.farmId, seasonId, {
+			varietyId: own.carrot.varietyId,
+			bedId: own.bedIds[0],
+			lengthFt: 10,
+			fieldDate: field,
+			firstHarvest: '2026-06-05',
+			lastHarvest: '2026-06-18',
+			expectedYield: 20,
+			status: 'finished'
+		});
+		await testDb()('harvest_records').insert({
+			farm_id: own.farmId,
+			planting_id: id,
+			harvested_on: first,
+			quantity: q,
+			unit: 'lb'
+		});
 		await testDb()('plantings').where({ id }).update({ actual_first_harvest: first });
 	}
 });
@@ -69,7 +84,14 @@ describe('use these figures', () => {
 		expect(Number(v.yield_per_bed_foot)).toBe(3);
 		expect(v.days_to_maturity).toBe(62);
 		const change = await testDb()('variety_figure_changes').where({ variety_id: own.carrot.varietyId }).first();
-		expect(change).toMatchObject({ old_days_to_maturity: 60, new_days_to_maturity: 62, yield_plantings: 3, dtm_plantings: 3, changed_by: own.userId, undone_at: null });
+		expect(change).toMatchObject({
+			old_days_to_maturity: 60,
+			new_days_to_maturity: 62,
+			yield_plantings: 3,
+			dtm_plantings: 3,
+			changed_by: own.userId,
+			undone_at: null
+		});
 		expect(Number(change.old_yield_per_bed_foot)).toBe(2);
 		expect((await own.owner.postForm(`${results()}?/undoFigures`, { changeId: change.id })).status).toBe(303);
 		const back = await testDb()('varieties').where({ id: own.carrot.varietyId }).first();
@@ -87,18 +109,60 @@ describe('copy a season into the next year', () => {
 		copyFarm = await harvestFarm('copy');
 		src = await addSeason(copyFarm.farmId, 2026);
 		// Carrots (Apiaceae) held bed N1 all year.
-		await addPlanting(copyFarm.farmId, src, { varietyId: copyFarm.carrot.varietyId, bedId: copyFarm.bedIds[0], lengthFt: 50, fieldDate: '2026-04-20', firstHarvest: '2026-06-19', lastHarvest: '2026-07-02', expectedYield: 100, status: 'finished' });
+		await addPlanting(copyFarm.farmId, src, {
+			varietyId: copyFarm.carrot.varietyId,
+			bedId: copyFarm.bedIds[0],
+			lengthFt: 50,
+			fieldDate: '2026-04-20',
+			firstHarvest: '2026-06-19',
+			lastHarvest: '2026-07-02',
+			expectedYield: 100,
+			status: 'finished'
+		});
 		// A planting in week 53: Tue 2026-12-29 = 2026-W53-2.
-		w53 = await addPlanting(copyFarm.farmId, src, { varietyId: copyFarm.carrot.varietyId, bedId: copyFarm.bedIds[0], lengthFt: 50, fieldDate: '2026-12-29', firstHarvest: '2027-02-27', lastHarvest: '2027-03-12', expectedYield: 100 });
+		w53 = await addPlanting(copyFarm.farmId, src, {
+			varietyId: copyFarm.carrot.varietyId,
+			bedId: copyFarm.bedIds[0],
+			lengthFt: 50,
+			fieldDate: '2026-12-29',
+			firstHarvest: '2027-02-27',
+			lastHarvest: '2027-03-12',
+			expectedYield: 100
+		});
 		// Frost-tender basil sown Tue 2026-05-05, before the 10 May frost date.
-		frosty = await addPlanting(copyFarm.farmId, src, { varietyId: copyFarm.basil.varietyId, bedId: copyFarm.bedIds[1], lengthFt: 20, fieldDate: '2026-05-05', firstHarvest: '2026-06-14', lastHarvest: '2026-07-11', expectedYield: 20, status: 'harvesting' });
-		await testDb()('plantings').where({ id: frosty }).update({ actual_field_date: '2026-05-06', actual_first_harvest: '2026-06-15' });
-		const [share] = await testDb()('share_sizes').insert({ farm_id: copyFarm.farmId, season_id: src, name: 'Full', members: 10, first_week: '2026-W24', last_week: '2026-W53' });
+		frosty = await addPlanting(copyFarm.farmId, src, {
+			varietyId: copyFarm.basil.varietyId,
+			bedId: copyFarm.bedIds[1],
+			lengthFt: 20,
+			fieldDate: '2026-05-05',
+			firstHarvest: '2026-06-14',
+			lastHarvest: '2026-07-11',
+			expectedYield: 20,
+			status: 'harvesting'
+		});
+		await testDb()('plantings')
+			.where({ id: frosty })
+			.update({ actual_field_date: '2026-05-06', actual_first_harvest: '2026-06-15' });
+		const [share] = await testDb()('share_sizes').insert({
+			farm_id: copyFarm.farmId,
+			season_id: src,
+			name: 'Full',
+			members: 10,
+			first_week: '2026-W24',
+			last_week: '2026-W53'
+		});
 		await testDb()('box_items').insert([
 			{ share_size_id: share, week: '2026-W52', crop_id: copyFarm.carrot.cropId, quantity: 1, unit: 'lb' },
 			{ share_size_id: share, week: '2026-W53', crop_id: copyFarm.carrot.cropId, quantity: 2, unit: 'lb' }
 		]);
-		await testDb()('channel_demand').insert({ farm_id: copyFarm.farmId, season_id: src, channel: 'market', crop_id: copyFarm.carrot.cropId, week: '2026-W30', quantity: 15 });
+		await testDb()('channel_demand').insert({
+			farm_id: copyFarm.farmId,
+			season_id: src,
+			channel: 'market',
+			crop_id: copyFarm.carrot.cropId,
+			week: '2026-W30',
+			quantity: 15
+		});
 	});
 	const api = () => `/api/seasons/${src}/copy`;
 
@@ -128,7 +192,12 @@ describe('copy a season into the next year', () => {
 		expect(rows[0].first_harvest).toBe('2027-06-25');
 		for (const r of rows) {
 			expect(r.status).toBe('planned');
-			expect([r.actual_field_date, r.actual_first_harvest, r.actual_last_harvest, r.actual_tray_sow_date]).toEqual([null, null, null, null]);
+			expect([r.actual_field_date, r.actual_first_harvest, r.actual_last_harvest, r.actual_tray_sow_date]).toEqual([
+				null,
+				null,
+				null,
+				null
+			]);
 		}
 		// Apiaceae held N1 and basil (Lamiaceae) N2: next year each goes elsewhere, with room to spare.
 		const carrots = rows.filter((r) => r.variety_id === copyFarm.carrot.varietyId);
@@ -158,11 +227,29 @@ describe("next season works around last fall's plantings still in the beds", () 
 		const farm = await harvestFarm('copy-held');
 		const src = await addSeason(farm.farmId, 2026);
 		for (const bedId of farm.bedIds) {
-			await addPlanting(farm.farmId, src, { varietyId: farm.carrot.varietyId, bedId, lengthFt: 100, fieldDate: '2026-10-20', firstHarvest: '2027-06-01', lastHarvest: '2027-07-15', expectedYield: 200, status: 'sown' });
+			await addPlanting(farm.farmId, src, {
+				varietyId: farm.carrot.varietyId,
+				bedId,
+				lengthFt: 100,
+				fieldDate: '2026-10-20',
+				firstHarvest: '2027-06-01',
+				lastHarvest: '2027-07-15',
+				expectedYield: 200,
+				status: 'sown'
+			});
 		}
 		// Tue 21 Apr 2026 (W17-2) moves to W17-2 of 2027, Tue 27 Apr, harvesting into June 2027:
 		// every bed is still under the fall carrots then.
-		await addPlanting(farm.farmId, src, { varietyId: farm.basil.varietyId, bedId: farm.bedIds[0], lengthFt: 20, fieldDate: '2026-04-21', firstHarvest: '2026-06-01', lastHarvest: '2026-06-28', expectedYield: 20, status: 'finished' });
+		await addPlanting(farm.farmId, src, {
+			varietyId: farm.basil.varietyId,
+			bedId: farm.bedIds[0],
+			lengthFt: 20,
+			fieldDate: '2026-04-21',
+			firstHarvest: '2026-06-01',
+			lastHarvest: '2026-06-28',
+			expectedYield: 20,
+			status: 'finished'
+		});
 		const res = await farm.owner.json(`/api/seasons/${src}/copy`, 'POST', {});
 		expect(res.status).toBe(201);
 		const { report } = await res.json();

@@ -47,10 +47,18 @@ describe('owner-only pages and actions', () => {
 		}
 		it(`${who} cannot post the farm settings form`, async () => {
 			const client = await signedIn(who, demo.password);
-			const before = await testDb()('farms as f').join('farm_members as m', 'm.farm_id', 'f.id').join('users as u', 'u.id', 'm.user_id').where('u.email', who).first('f.name');
+			const before = await testDb()('farms as f')
+				.join('farm_members as m', 'm.farm_id', 'f.id')
+				.join('users as u', 'u.id', 'm.user_id')
+				.where('u.email', who)
+				.first('f.name');
 			const res = await client.postForm('/settings?/farm', { name: 'Renamed by the wrong role' });
 			expect(res.status).toBe(403);
-			const after = await testDb()('farms as f').join('farm_members as m', 'm.farm_id', 'f.id').join('users as u', 'u.id', 'm.user_id').where('u.email', who).first('f.name');
+			const after = await testDb()('farms as f')
+				.join('farm_members as m', 'm.farm_id', 'f.id')
+				.join('users as u', 'u.id', 'm.user_id')
+				.where('u.email', who)
+				.first('f.name');
 			expect(after.name).toBe(before.name);
 		});
 	}
@@ -64,12 +72,23 @@ describe('tenancy', () => {
 	it("a user of another farm never sees the demo farm's season or plantings", async () => {
 		const email = uniqueEmail('tenant');
 		const other = new Client();
-		const res = await other.postForm('/signup', { name: 'Other Grower', email, password: 'long-enough-pass', farmName: 'Other Farm (invented)', latitude: '40', lastSpringFrost: '2027-04-20', firstFallFrost: '2027-10-20' });
+		const res = await other.postForm('/signup', {
+			name: 'Other Grower',
+			email,
+			password: 'long-enough-pass',
+			farmName: 'Other Farm (invented)',
+			latitude: '40',
+			lastSpringFrost: '2027-04-20',
+			firstFallFrost: '2027-10-20'
+		});
 		expect(res.status).toBe(303);
 		expect((await other.get(`/api/seasons/${demoSeasonId}/plantings`)).status).toBe(404);
 		expect((await other.get(`/seasons/${demoSeasonId}`)).status).toBe(404);
 		const crops = await html(await other.get('/crops'));
-		const demoCrop = await testDb()('crops as c').join('seasons as s', 's.farm_id', 'c.farm_id').where('s.id', demoSeasonId).first('c.name');
+		const demoCrop = await testDb()('crops as c')
+			.join('seasons as s', 's.farm_id', 'c.farm_id')
+			.where('s.id', demoSeasonId)
+			.first('c.name');
 		expect(crops).not.toContain(`<strong>${demoCrop.name}</strong>`);
 		const overview = await html(await other.get('/?week=2027-W30'));
 		expect(overview).toContain('Nothing to harvest this week.');
@@ -82,12 +101,30 @@ describe('tenancy', () => {
 	});
 
 	it("an owner cannot edit or delete another farm's bed", async () => {
-		const demoBed = await testDb()('beds as b').join('seasons as s', 's.farm_id', 'b.farm_id').where('s.id', demoSeasonId).first('b.id', 'b.name', 'b.block_id');
+		const demoBed = await testDb()('beds as b')
+			.join('seasons as s', 's.farm_id', 'b.farm_id')
+			.where('s.id', demoSeasonId)
+			.first('b.id', 'b.name', 'b.block_id');
 		const other = new Client();
-		await other.postForm('/signup', { name: 'Third Grower', email: uniqueEmail('tenant2'), password: 'long-enough-pass', farmName: 'Third Farm (invented)', latitude: '40', lastSpringFrost: '2027-04-20', firstFallFrost: '2027-10-20' });
+		await other.postForm('/signup', {
+			name: 'Third Grower',
+			email: uniqueEmail('tenant2'),
+			password: 'long-enough-pass',
+			farmName: 'Third Farm (invented)',
+			latitude: '40',
+			lastSpringFrost: '2027-04-20',
+			firstFallFrost: '2027-10-20'
+		});
 		const del = await other.postForm('/settings?/deleteBed', { id: demoBed.id });
 		expect(del.status).toBe(404);
-		const edit = await other.postForm('/settings?/saveBed', { id: demoBed.id, name: 'Taken', blockId: demoBed.block_id, lengthFt: 10, widthIn: 30, position: 0 });
+		const edit = await other.postForm('/settings?/saveBed', {
+			id: demoBed.id,
+			name: 'Taken',
+			blockId: demoBed.block_id,
+			lengthFt: 10,
+			widthIn: 30,
+			position: 0
+		});
 		expect(edit.status).toBe(400);
 		expect(await html(edit)).toContain("Choose one of this farm's blocks.");
 		expect((await testDb()('beds').where({ id: demoBed.id }).first('name')).name).toBe(demoBed.name);

@@ -12,7 +12,15 @@ let farmId: number;
 beforeAll(async () => {
 	owner = new Client();
 	const email = uniqueEmail('seasons');
-	await owner.postForm('/signup', { name: 'Season Keeper', email, password: 'long-enough-pass', farmName: 'Seasons Farm (invented)', latitude: '42', lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05' });
+	await owner.postForm('/signup', {
+		name: 'Season Keeper',
+		email,
+		password: 'long-enough-pass',
+		farmName: 'Seasons Farm (invented)',
+		latitude: '42',
+		lastSpringFrost: '2027-05-10',
+		firstFallFrost: '2027-10-05'
+	});
 	const u = await testDb()('users').where({ email }).first('id');
 	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 });
@@ -53,17 +61,47 @@ describe('seasons page', () => {
 		const s = await seasonOf(2027);
 		await testDb()('blocks').insert({ farm_id: farmId, name: 'Copy block', position: 1 });
 		const block = await testDb()('blocks').where({ farm_id: farmId, name: 'Copy block' }).first('id');
-		await testDb()('beds').insert({ farm_id: farmId, block_id: block.id, name: 'C1', length_ft: 100, width_in: 30, position: 1 });
-		await testDb()('crops').insert({ farm_id: farmId, name: 'Radish', family: 'Brassicaceae', harvest_unit: 'bunch', frost_tolerance: 'hardy' });
+		await testDb()('beds').insert({
+			farm_id: farmId,
+			block_id: block.id,
+			name: 'C1',
+			length_ft: 100,
+			width_in: 30,
+			position: 1
+		});
+		await testDb()('crops').insert({
+			farm_id: farmId,
+			name: 'Radish',
+			family: 'Brassicaceae',
+			harvest_unit: 'bunch',
+			frost_tolerance: 'hardy'
+		});
 		const crop = await testDb()('crops').where({ farm_id: farmId, name: 'Radish' }).first('id');
 		const [varietyId] = await testDb()('varieties').insert({
-			farm_id: farmId, crop_id: crop.id, name: 'Radish, round', method: 'direct', days_to_maturity: 25, harvest_window_days: 7, yield_per_bed_foot: 4,
-			rows_per_bed: 4, in_row_spacing_in: 1, germination_rate: 0.85, seeds_per_gram: 88
+			farm_id: farmId,
+			crop_id: crop.id,
+			name: 'Radish, round',
+			method: 'direct',
+			days_to_maturity: 25,
+			harvest_window_days: 7,
+			yield_per_bed_foot: 4,
+			rows_per_bed: 4,
+			in_row_spacing_in: 1,
+			germination_rate: 0.85,
+			seeds_per_gram: 88
 		});
 		await testDb()('plantings').insert(
 			[0, 1].map((i) => ({
-				farm_id: farmId, season_id: s.id, variety_id: varietyId, length_ft: 20, rows: 4, in_row_spacing_in: 1, method: 'direct',
-				field_date: `2027-04-0${5 + i}`, first_harvest: '2027-05-03', last_harvest: '2027-05-09'
+				farm_id: farmId,
+				season_id: s.id,
+				variety_id: varietyId,
+				length_ft: 20,
+				rows: 4,
+				in_row_spacing_in: 1,
+				method: 'direct',
+				field_date: `2027-04-0${5 + i}`,
+				first_harvest: '2027-05-03',
+				last_harvest: '2027-05-09'
 			}))
 		);
 		const res = await owner.postForm('/seasons?/copy', { from: String(s.id) });
@@ -115,10 +153,19 @@ describe('seasons page', () => {
 		let page = await html(await owner.get('/seasons'));
 		expect(page).not.toContain('data-testid="plan-stale"');
 		// Demand changes through the demand API: a share size and what goes in its box.
-		const add = await owner.json(`/api/seasons/${s.id}/demand/share-sizes`, 'POST', { name: 'Full', members: 10, firstWeek: '2027-W24', lastWeek: '2027-W30', price: '0' });
+		const add = await owner.json(`/api/seasons/${s.id}/demand/share-sizes`, 'POST', {
+			name: 'Full',
+			members: 10,
+			firstWeek: '2027-W24',
+			lastWeek: '2027-W30',
+			price: '0'
+		});
 		expect(add.status).toBeLessThan(300);
 		const share = await testDb()('share_sizes').where({ season_id: s.id, name: 'Full' }).first('id');
-		const cells = await owner.json(`/api/seasons/${s.id}/demand/cells`, 'PATCH', { grid: `share:${share.id}`, cells: [{ crop: radish.id, week: '2027-W25', quantity: 1, unit: 'bunch' }] });
+		const cells = await owner.json(`/api/seasons/${s.id}/demand/cells`, 'PATCH', {
+			grid: `share:${share.id}`,
+			cells: [{ crop: radish.id, week: '2027-W25', quantity: 1, unit: 'bunch' }]
+		});
 		expect(cells.status).toBe(200);
 		expect((await seasonOf(2027)).demand_changed_at).not.toBeNull();
 		page = await html(await owner.get('/seasons'));
@@ -139,14 +186,20 @@ describe('seasons page', () => {
 		const before = await count('seasons');
 		expect((await crew.postForm('/seasons?/create', { year: '2040', name: 'Crew season' })).status).toBe(403);
 		const share = await signedIn(demo.share, demo.password);
-		const demoSeason = await testDb()('seasons as s').join('farm_members as m', 'm.farm_id', 's.farm_id').join('users as u', 'u.id', 'm.user_id').where('u.email', demo.share).first('s.id', 's.name');
-		expect((await share.postForm('/seasons?/rename', { id: String(demoSeason.id), name: 'Share renamed' })).status).toBe(403);
+		const demoSeason = await testDb()('seasons as s')
+			.join('farm_members as m', 'm.farm_id', 's.farm_id')
+			.join('users as u', 'u.id', 'm.user_id')
+			.where('u.email', demo.share)
+			.first('s.id', 's.name');
+		expect(
+			(await share.postForm('/seasons?/rename', { id: String(demoSeason.id), name: 'Share renamed' })).status
+		).toBe(403);
 		expect((await share.postForm('/seasons?/archive', { id: String(demoSeason.id) })).status).toBe(403);
 		expect(await count('seasons')).toBe(before);
 		expect((await testDb()('seasons').where({ id: demoSeason.id }).first('name')).name).toBe(demoSeason.name);
 	});
 
-	it('answers 404 when the owner of another farm renames or archives this farm\'s season', async () => {
+	it("answers 404 when the owner of another farm renames or archives this farm's season", async () => {
 		const s = await seasonOf(2027);
 		const stranger = await signedIn(demo.owner, demo.password);
 		expect((await stranger.postForm('/seasons?/rename', { id: String(s.id), name: 'Taken' })).status).toBe(404);

@@ -65,7 +65,9 @@ describe('demo farm seed', () => {
 		expect(farm.first_fall_frost).toBe('2027-10-05');
 		expect(Number(farm.bed_foot_increment)).toBe(1);
 		expect(Number(farm.turnaround_days)).toBe(7);
-		const temps = (await db('farm_weekly_temps').where({ farm_id: farmId }).orderBy('week_number')).map((t) => Number(t.mean_temp_f));
+		const temps = (await db('farm_weekly_temps').where({ farm_id: farmId }).orderBy('week_number')).map((t) =>
+			Number(t.mean_temp_f)
+		);
 		expect(temps).toHaveLength(53);
 		expect(Math.min(...temps)).toBeCloseTo(22, 0);
 		expect(Math.max(...temps)).toBeCloseTo(72, 0);
@@ -87,7 +89,8 @@ describe('demo farm seed', () => {
 		expect(crops.length).toBeGreaterThanOrEqual(18);
 		expect(crops.length).toBeLessThanOrEqual(22);
 		const byName = new Map(crops.map((c) => [c.name, c]));
-		for (const name of ['Carrot', 'Beet', 'Radish', 'Spinach', 'Kale', 'Tomato', 'Basil']) expect(byName.has(name)).toBe(true);
+		for (const name of ['Carrot', 'Beet', 'Radish', 'Spinach', 'Kale', 'Tomato', 'Basil'])
+			expect(byName.has(name)).toBe(true);
 		for (const name of ['Spinach', 'Radish', 'Cilantro']) {
 			expect(Number(byName.get(name).heat_limit_f)).toBeGreaterThanOrEqual(70);
 			expect(Number(byName.get(name).heat_limit_f)).toBeLessThanOrEqual(75);
@@ -108,7 +111,10 @@ describe('demo farm seed', () => {
 	});
 
 	it('has three users, one per role, who can sign in with the demo password', async () => {
-		const members = await db('farm_members as m').join('users as u', 'u.id', 'm.user_id').where('m.farm_id', farmId).select('u.email', 'u.password_hash', 'm.role');
+		const members = await db('farm_members as m')
+			.join('users as u', 'u.id', 'm.user_id')
+			.where('m.farm_id', farmId)
+			.select('u.email', 'u.password_hash', 'm.role');
 		expect(members).toHaveLength(3);
 		expect(members.map((m) => m.role).sort()).toEqual(['crew_lead', 'owner', 'share_manager']);
 		expect(members.map((m) => m.email).sort()).toEqual(DEMO_USERS.map((u) => u.email).sort());
@@ -121,7 +127,11 @@ describe('demo farm seed', () => {
 		expect(shares.map((s) => s.name)).toEqual(['Full share', 'Half share']);
 		expect(shares.map((s) => s.members)).toEqual([60, 40]);
 		expect(shares.every((s) => s.first_week === '2027-W24' && s.last_week === '2027-W43')).toBe(true);
-		const items = await db('box_items as b').join('crops as c', 'c.id', 'b.crop_id').join('share_sizes as s', 's.id', 'b.share_size_id').where('s.season_id', season).select('b.*', 'c.harvest_unit', 's.name as share');
+		const items = await db('box_items as b')
+			.join('crops as c', 'c.id', 'b.crop_id')
+			.join('share_sizes as s', 's.id', 'b.share_size_id')
+			.where('s.season_id', season)
+			.select('b.*', 'c.harvest_unit', 's.name as share');
 		expect(items.length).toBeGreaterThan(100);
 		expect(items.every((i) => i.unit === i.harvest_unit)).toBe(true);
 		expect(items.every((i) => i.week >= '2027-W24' && i.week <= '2027-W43')).toBe(true);
@@ -213,7 +223,8 @@ describe('demo farm seed', () => {
 
 	it('never puts two plantings on the same bed-feet at the same time (turnaround included)', async () => {
 		const rows = await db<PlantingRow>('plantings').where({ farm_id: farmId }).whereNotNull('bed_id');
-		const addDays = (d: string, n: number): string => new Date(Date.parse(`${d}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
+		const addDays = (d: string, n: number): string =>
+			new Date(Date.parse(`${d}T00:00:00Z`) + n * 86_400_000).toISOString().slice(0, 10);
 		const clashes: string[] = [];
 		const byBed = new Map<number | null, PlantingRow[]>();
 		for (const p of rows) byBed.set(p.bed_id, [...(byBed.get(p.bed_id) ?? []), p]);
@@ -222,7 +233,9 @@ describe('demo farm seed', () => {
 				for (let j = i + 1; j < list.length; j++) {
 					const a = list[i];
 					const b = list[j];
-					const feet = Number(a.start_ft) < Number(b.start_ft) + Number(b.length_ft) && Number(b.start_ft) < Number(a.start_ft) + Number(a.length_ft);
+					const feet =
+						Number(a.start_ft) < Number(b.start_ft) + Number(b.length_ft) &&
+						Number(b.start_ft) < Number(a.start_ft) + Number(a.length_ft);
 					const time = a.field_date <= addDays(b.last_harvest, 7) && b.field_date <= addDays(a.last_harvest, 7);
 					if (feet && time) clashes.push(`${a.id}×${b.id}`);
 				}
@@ -248,11 +261,21 @@ describe('demo farm seed', () => {
 		const out = execFileSync('npx', ['tsx', 'scripts/seed.ts', DATABASE], { encoding: 'utf8', env: process.env });
 		expect(out).toMatch(/reused existing demo farm/);
 		expect(await count(db('farms').where({ name: DEMO_FARM.name }))).toBe(1);
-		expect(await count(db('users').whereIn('email', DEMO_USERS.map((u) => u.email)))).toBe(3);
+		expect(
+			await count(
+				db('users').whereIn(
+					'email',
+					DEMO_USERS.map((u) => u.email)
+				)
+			)
+		).toBe(3);
 	});
 
 	it('--reset replaces the demo farm with a fresh one, still only one', async () => {
-		const out = execFileSync('npx', ['tsx', 'scripts/seed.ts', DATABASE, '--reset'], { encoding: 'utf8', env: process.env });
+		const out = execFileSync('npx', ['tsx', 'scripts/seed.ts', DATABASE, '--reset'], {
+			encoding: 'utf8',
+			env: process.env
+		});
 		expect(out).toMatch(/reset and seeded/);
 		const fresh = await findDemoFarm(db);
 		expect(fresh).not.toBe(farmId);

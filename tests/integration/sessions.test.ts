@@ -29,7 +29,9 @@ describe('session limits', () => {
 
 	it('ends a session left idle past its expiry', async () => {
 		const { client, id } = await newSession();
-		await testDb()('user_sessions').where({ id }).update({ expires_at: new Date(Date.now() - 1000) });
+		await testDb()('user_sessions')
+			.where({ id })
+			.update({ expires_at: new Date(Date.now() - 1000) });
 		expect((await client.get('/api/me')).status).toBe(401);
 	});
 
@@ -37,7 +39,9 @@ describe('session limits', () => {
 		const { client, id } = await newSession();
 		// Began 6 days 23 hours ago; 5 hours left of its idle span, so this request renews it.
 		const began = new Date(Date.now() - 7 * day + hour);
-		await testDb()('user_sessions').where({ id }).update({ created_at: began, expires_at: new Date(Date.now() + 5 * hour) });
+		await testDb()('user_sessions')
+			.where({ id })
+			.update({ created_at: began, expires_at: new Date(Date.now() + 5 * hour) });
 		expect((await client.get('/api/me')).status).toBe(200);
 		const row = await testDb()('user_sessions').where({ id }).first('expires_at');
 		// Lucia alone would set now + 12 h; the lifetime ends at began + 7 days, an hour from now.
@@ -51,14 +55,18 @@ describe('session limits', () => {
 
 	it('ends a session past its absolute lifetime however recently it was used', async () => {
 		const { client, id } = await newSession();
-		await testDb()('user_sessions').where({ id }).update({ created_at: new Date(Date.now() - 7 * day - 60_000), expires_at: new Date(Date.now() + 11 * hour) });
+		await testDb()('user_sessions')
+			.where({ id })
+			.update({ created_at: new Date(Date.now() - 7 * day - 60_000), expires_at: new Date(Date.now() + 11 * hour) });
 		expect((await client.get('/api/me')).status).toBe(401);
 		expect(await count('user_sessions', { id })).toBe(0);
 	});
 
 	it('keeps a session within both limits', async () => {
 		const { client, id } = await newSession();
-		await testDb()('user_sessions').where({ id }).update({ created_at: new Date(Date.now() - 6 * day) });
+		await testDb()('user_sessions')
+			.where({ id })
+			.update({ created_at: new Date(Date.now() - 6 * day) });
 		expect((await client.get('/api/me')).status).toBe(200);
 		expect(await count('user_sessions', { id })).toBe(1);
 	});

@@ -10,12 +10,29 @@ let farmId: number;
 beforeAll(async () => {
 	owner = new Client();
 	const email = uniqueEmail('settings');
-	await owner.postForm('/signup', { name: 'Bed Keeper', email, password: 'long-enough-pass', farmName: 'Settings Farm (invented)', latitude: '43', lastSpringFrost: '2027-05-01', firstFallFrost: '2027-10-10' });
+	await owner.postForm('/signup', {
+		name: 'Bed Keeper',
+		email,
+		password: 'long-enough-pass',
+		farmName: 'Settings Farm (invented)',
+		latitude: '43',
+		lastSpringFrost: '2027-05-01',
+		firstFallFrost: '2027-10-10'
+	});
 	const u = await testDb()('users').where({ email }).first('id');
 	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
 });
 
-const farmFields = { name: 'Settings Farm (invented)', timeZone: 'America/Chicago', latitude: '43.1', unitSystem: 'imperial', lastSpringFrost: '2027-05-03', firstFallFrost: '2027-10-12', bedFootIncrement: '10', turnaroundDays: '5' };
+const farmFields = {
+	name: 'Settings Farm (invented)',
+	timeZone: 'America/Chicago',
+	latitude: '43.1',
+	unitSystem: 'imperial',
+	lastSpringFrost: '2027-05-03',
+	firstFallFrost: '2027-10-12',
+	bedFootIncrement: '10',
+	turnaroundDays: '5'
+};
 
 describe('farm settings', () => {
 	it('saves the farm', async () => {
@@ -52,19 +69,44 @@ describe('blocks and beds', () => {
 	it('adds a block and a bed, edits it, refuses a duplicate name and a bad length, removes it', async () => {
 		expect((await owner.postForm('/settings?/addBlock', { name: 'East' })).status).toBe(303);
 		const block = await testDb()('blocks').where({ farm_id: farmId, name: 'East' }).first('id');
-		const add = await owner.postForm('/settings?/saveBed', { name: 'E1', blockId: block.id, lengthFt: '100', widthIn: '30', position: '1' });
+		const add = await owner.postForm('/settings?/saveBed', {
+			name: 'E1',
+			blockId: block.id,
+			lengthFt: '100',
+			widthIn: '30',
+			position: '1'
+		});
 		expect(add.status).toBe(303);
 		const bed = await testDb()('beds').where({ farm_id: farmId, name: 'E1' }).first();
 		expect(Number(bed.length_ft)).toBe(100);
 
-		const edit = await owner.postForm('/settings?/saveBed', { id: bed.id, name: 'E1', blockId: block.id, lengthFt: '80', widthIn: '30', position: '1' });
+		const edit = await owner.postForm('/settings?/saveBed', {
+			id: bed.id,
+			name: 'E1',
+			blockId: block.id,
+			lengthFt: '80',
+			widthIn: '30',
+			position: '1'
+		});
 		expect(edit.status).toBe(303);
 		expect(Number((await testDb()('beds').where({ id: bed.id }).first('length_ft')).length_ft)).toBe(80);
 
-		const dup = await owner.postForm('/settings?/saveBed', { name: 'E1', blockId: block.id, lengthFt: '50', widthIn: '30', position: '2' });
+		const dup = await owner.postForm('/settings?/saveBed', {
+			name: 'E1',
+			blockId: block.id,
+			lengthFt: '50',
+			widthIn: '30',
+			position: '2'
+		});
 		expect(dup.status).toBe(400);
 		expect(await html(dup)).toContain('A bed named "E1" already exists on this farm.');
-		const badLength = await owner.postForm('/settings?/saveBed', { name: 'E2', blockId: block.id, lengthFt: 'long', widthIn: '30', position: '2' });
+		const badLength = await owner.postForm('/settings?/saveBed', {
+			name: 'E2',
+			blockId: block.id,
+			lengthFt: 'long',
+			widthIn: '30',
+			position: '2'
+		});
 		expect(badLength.status).toBe(400);
 		expect(await html(badLength)).toContain('Length (ft) must be a number.');
 		expect(await count('beds', { farm_id: farmId })).toBe(1);

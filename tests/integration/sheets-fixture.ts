@@ -21,7 +21,15 @@ export interface SheetFarm {
 async function signUp(tag: string, farmName: string): Promise<{ email: string; client: Client; farmId: number }> {
 	const email = uniqueEmail(tag);
 	const client = new Client();
-	const res = await client.postForm('/signup', { name: `Test ${tag}`, email, password: PASSWORD, farmName, latitude: '41.5', lastSpringFrost: '2027-05-01', firstFallFrost: '2027-10-15' });
+	const res = await client.postForm('/signup', {
+		name: `Test ${tag}`,
+		email,
+		password: PASSWORD,
+		farmName,
+		latitude: '41.5',
+		lastSpringFrost: '2027-05-01',
+		firstFallFrost: '2027-10-15'
+	});
 	if (res.status !== 303) throw new Error(`sign-up of ${tag} answered ${res.status}`);
 	const user = await testDb()('users').where({ email }).first('id');
 	const m = await testDb()('farm_members').where({ user_id: user.id }).first('farm_id');
@@ -29,7 +37,11 @@ async function signUp(tag: string, farmName: string): Promise<{ email: string; c
 }
 
 /** A person who belongs to `farmId` only, in `role`, signed in. */
-async function member(tag: string, farmId: number, role: 'crew_lead' | 'share_manager'): Promise<{ email: string; client: Client }> {
+async function member(
+	tag: string,
+	farmId: number,
+	role: 'crew_lead' | 'share_manager'
+): Promise<{ email: string; client: Client }> {
 	const { email, farmId: own } = await signUp(tag, `Throwaway farm of ${tag} (invented)`);
 	const user = await testDb()('users').where({ email }).first('id');
 	await testDb()('farm_members').where({ user_id: user.id, farm_id: own }).delete();
@@ -43,39 +55,160 @@ export async function makeSheetFarm(timeZone = 'America/Chicago'): Promise<Sheet
 	const farmId = owner.farmId;
 	await db('farms').where({ id: farmId }).update({ time_zone: timeZone });
 	const [blockId] = await db('blocks').insert({ farm_id: farmId, name: 'East', position: 1 });
-	const [bedE1] = await db('beds').insert({ farm_id: farmId, block_id: blockId, name: 'E1', length_ft: 100, width_in: 30, position: 1 });
-	const [bedE2] = await db('beds').insert({ farm_id: farmId, block_id: blockId, name: 'E2', length_ft: 100, width_in: 30, position: 2 });
-	const [carrot] = await db('crops').insert({ farm_id: farmId, name: 'Carrot', family: 'Apiaceae', harvest_unit: 'lb', frost_tolerance: 'hardy', base_temp_f: 40 });
-	const [lettuce] = await db('crops').insert({ farm_id: farmId, name: 'Lettuce', family: 'Asteraceae', harvest_unit: 'head', frost_tolerance: 'hardy', base_temp_f: 40 });
+	const [bedE1] = await db('beds').insert({
+		farm_id: farmId,
+		block_id: blockId,
+		name: 'E1',
+		length_ft: 100,
+		width_in: 30,
+		position: 1
+	});
+	const [bedE2] = await db('beds').insert({
+		farm_id: farmId,
+		block_id: blockId,
+		name: 'E2',
+		length_ft: 100,
+		width_in: 30,
+		position: 2
+	});
+	const [carrot] = await db('crops').insert({
+		farm_id: farmId,
+		name: 'Carrot',
+		family: 'Apiaceae',
+		harvest_unit: 'lb',
+		frost_tolerance: 'hardy',
+		base_temp_f: 40
+	});
+	const [lettuce] = await db('crops').insert({
+		farm_id: farmId,
+		name: 'Lettuce',
+		family: 'Asteraceae',
+		harvest_unit: 'head',
+		frost_tolerance: 'hardy',
+		base_temp_f: 40
+	});
 	const [nantes] = await db('varieties').insert({
-		farm_id: farmId, crop_id: carrot, name: 'Test Nantes', method: 'direct', days_to_maturity: 70, days_in_tray: 0, harvest_window_days: 14,
-		yield_per_bed_foot: 1.5, rows_per_bed: 4, in_row_spacing_in: 1, seeds_per_spot: 2, germination_rate: 0.65, seeds_per_gram: 776.03, cells_per_tray: 128, margin: 0.1
+		farm_id: farmId,
+		crop_id: carrot,
+		name: 'Test Nantes',
+		method: 'direct',
+		days_to_maturity: 70,
+		days_in_tray: 0,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 1.5,
+		rows_per_bed: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 2,
+		germination_rate: 0.65,
+		seeds_per_gram: 776.03,
+		cells_per_tray: 128,
+		margin: 0.1
 	});
 	const [butter] = await db('varieties').insert({
-		farm_id: farmId, crop_id: lettuce, name: 'Test Butterhead', method: 'transplant', days_to_maturity: 45, days_in_tray: 28, harvest_window_days: 14,
-		yield_per_bed_foot: 3, rows_per_bed: 3, in_row_spacing_in: 12, seeds_per_spot: 1, germination_rate: 0.9, seeds_per_gram: 800, cells_per_tray: 72, margin: 0.1
+		farm_id: farmId,
+		crop_id: lettuce,
+		name: 'Test Butterhead',
+		method: 'transplant',
+		days_to_maturity: 45,
+		days_in_tray: 28,
+		harvest_window_days: 14,
+		yield_per_bed_foot: 3,
+		rows_per_bed: 3,
+		in_row_spacing_in: 12,
+		seeds_per_spot: 1,
+		germination_rate: 0.9,
+		seeds_per_gram: 800,
+		cells_per_tray: 72,
+		margin: 0.1
 	});
-	const [seasonId] = await db('seasons').insert({ farm_id: farmId, year: 2027, name: '2027 test season', starts_on: '2027-01-01', ends_on: '2027-12-31' });
+	const [seasonId] = await db('seasons').insert({
+		farm_id: farmId,
+		year: 2027,
+		name: '2027 test season',
+		starts_on: '2027-01-01',
+		ends_on: '2027-12-31'
+	});
 	const common = { farm_id: farmId, season_id: seasonId, seeds_per_spot: 1 };
 	const [directCarrot] = await db('plantings').insert({
-		...common, variety_id: nantes, bed_id: bedE2, start_ft: 0, length_ft: 60, rows: 4, in_row_spacing_in: 1, seeds_per_spot: 2, method: 'direct',
-		field_date: '2027-05-25', first_harvest: '2027-08-03', last_harvest: '2027-08-16', expected_yield: 90
+		...common,
+		variety_id: nantes,
+		bed_id: bedE2,
+		start_ft: 0,
+		length_ft: 60,
+		rows: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 2,
+		method: 'direct',
+		field_date: '2027-05-25',
+		first_harvest: '2027-08-03',
+		last_harvest: '2027-08-16',
+		expected_yield: 90
 	});
 	const [transplantLettuce] = await db('plantings').insert({
-		...common, variety_id: butter, bed_id: bedE1, start_ft: 10, length_ft: 50, rows: 3, in_row_spacing_in: 12, method: 'transplant',
-		tray_sow_date: '2027-04-27', field_date: '2027-05-26', first_harvest: '2027-07-10', last_harvest: '2027-07-23', expected_yield: 150, status: 'sown'
+		...common,
+		variety_id: butter,
+		bed_id: bedE1,
+		start_ft: 10,
+		length_ft: 50,
+		rows: 3,
+		in_row_spacing_in: 12,
+		method: 'transplant',
+		tray_sow_date: '2027-04-27',
+		field_date: '2027-05-26',
+		first_harvest: '2027-07-10',
+		last_harvest: '2027-07-23',
+		expected_yield: 150,
+		status: 'sown'
 	});
 	const [trayLettuce] = await db('plantings').insert({
-		...common, variety_id: butter, bed_id: bedE1, start_ft: 60, length_ft: 40, rows: 3, in_row_spacing_in: 12, method: 'transplant',
-		tray_sow_date: '2027-05-27', field_date: '2027-06-24', first_harvest: '2027-08-08', last_harvest: '2027-08-21', expected_yield: 120
+		...common,
+		variety_id: butter,
+		bed_id: bedE1,
+		start_ft: 60,
+		length_ft: 40,
+		rows: 3,
+		in_row_spacing_in: 12,
+		method: 'transplant',
+		tray_sow_date: '2027-05-27',
+		field_date: '2027-06-24',
+		first_harvest: '2027-08-08',
+		last_harvest: '2027-08-21',
+		expected_yield: 120
 	});
 	const [harvestCarrot] = await db('plantings').insert({
-		...common, variety_id: nantes, bed_id: bedE2, start_ft: 60, length_ft: 40, rows: 4, in_row_spacing_in: 1, seeds_per_spot: 2, method: 'direct',
-		field_date: '2027-03-15', first_harvest: '2027-05-24', last_harvest: '2027-06-06', expected_yield: 70, status: 'sown'
+		...common,
+		variety_id: nantes,
+		bed_id: bedE2,
+		start_ft: 60,
+		length_ft: 40,
+		rows: 4,
+		in_row_spacing_in: 1,
+		seeds_per_spot: 2,
+		method: 'direct',
+		field_date: '2027-03-15',
+		first_harvest: '2027-05-24',
+		last_harvest: '2027-06-06',
+		expected_yield: 70,
+		status: 'sown'
 	});
-	const [shareId] = await db('share_sizes').insert({ farm_id: farmId, season_id: seasonId, name: 'Test box', members: 10, first_week: '2027-W20', last_week: '2027-W30', pickup_days: 'Thu' });
+	const [shareId] = await db('share_sizes').insert({
+		farm_id: farmId,
+		season_id: seasonId,
+		name: 'Test box',
+		members: 10,
+		first_week: '2027-W20',
+		last_week: '2027-W30',
+		pickup_days: 'Thu'
+	});
 	await db('box_items').insert({ share_size_id: shareId, week: WEEK, crop_id: carrot, quantity: 1.5, unit: 'lb' });
-	await db('channel_demand').insert({ farm_id: farmId, season_id: seasonId, channel: 'market', crop_id: carrot, week: WEEK, quantity: 8 });
+	await db('channel_demand').insert({
+		farm_id: farmId,
+		season_id: seasonId,
+		channel: 'market',
+		crop_id: carrot,
+		week: WEEK,
+		quantity: 8
+	});
 
 	const crew = await member('sheet-crew', farmId, 'crew_lead');
 	const share = await member('sheet-share', farmId, 'share_manager');

@@ -18,7 +18,9 @@ beforeAll(async () => {
 });
 
 function ofFarmToday(timeZone: string): string {
-	return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(new Date());
+	return new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(
+		new Date()
+	);
 }
 
 describe('the sheet of a week', () => {
@@ -65,7 +67,15 @@ describe('the sheet of a week', () => {
 	});
 	it("another farm's season is a 404", async () => {
 		const other = new Client();
-		await other.postForm('/signup', { name: 'Other', email: uniqueEmail('sheet-other'), password: 'sheet-test-password', farmName: 'Other (invented)', latitude: '40', lastSpringFrost: '2027-04-20', firstFallFrost: '2027-10-20' });
+		await other.postForm('/signup', {
+			name: 'Other',
+			email: uniqueEmail('sheet-other'),
+			password: 'sheet-test-password',
+			farmName: 'Other (invented)',
+			latitude: '40',
+			lastSpringFrost: '2027-04-20',
+			firstFallFrost: '2027-10-20'
+		});
 		expect((await other.get(sheetPath)).status).toBe(404);
 		expect((await other.get(`${sheetPath}/sheets.xlsx`)).status).toBe(404);
 	});
@@ -74,7 +84,8 @@ describe('the sheet of a week', () => {
 		// are common practice (no published source); the note defers to local heat-safety rules.
 		const setNormal = async (meanF: number | null): Promise<void> => {
 			await testDb()('farm_weekly_temps').where({ farm_id: f.farmId, week_number: 21 }).delete();
-			if (meanF !== null) await testDb()('farm_weekly_temps').insert({ farm_id: f.farmId, week_number: 21, mean_temp_f: meanF });
+			if (meanF !== null)
+				await testDb()('farm_weekly_temps').insert({ farm_id: f.farmId, week_number: 21, mean_temp_f: meanF });
 		};
 		try {
 			await setNormal(77);
@@ -103,12 +114,20 @@ describe('the sheet of a week', () => {
 });
 
 describe('marking tasks done', () => {
-	const done = (client: Client, plantingId: number, kind: string, date: string, extra: Record<string, string | number> = {}) =>
-		client.postForm(`${sheetPath}?/done`, { plantingId, kind, date, ...extra });
+	const done = (
+		client: Client,
+		plantingId: number,
+		kind: string,
+		date: string,
+		extra: Record<string, string | number> = {}
+	) => client.postForm(`${sheetPath}?/done`, { plantingId, kind, date, ...extra });
 
 	it('the crew lead marks a direct sowing done: status sown, actual date set, version bumped', async () => {
 		const before = await testDb()('plantings').where({ id: f.p.directCarrot }).first('version', 'status');
-		const res = await done(f.crew, f.p.directCarrot, 'direct_sow', '2026-11-30', { version: before.version, note: 'soil dry, watered in' });
+		const res = await done(f.crew, f.p.directCarrot, 'direct_sow', '2026-11-30', {
+			version: before.version,
+			note: 'soil dry, watered in'
+		});
 		expect(res.status).toBe(303);
 		const after = await testDb()('plantings').where({ id: f.p.directCarrot }).first();
 		expect(before.status).toBe('planned');
@@ -119,7 +138,9 @@ describe('marking tasks done', () => {
 	});
 	it('the owner marks a transplanting and a harvest start; a stale version is refused with 409', async () => {
 		const t = await testDb()('plantings').where({ id: f.p.transplantLettuce }).first('version');
-		expect((await done(f.owner, f.p.transplantLettuce, 'transplant', '2026-12-01', { version: t.version })).status).toBe(303);
+		expect(
+			(await done(f.owner, f.p.transplantLettuce, 'transplant', '2026-12-01', { version: t.version })).status
+		).toBe(303);
 		const lettuce = await testDb()('plantings').where({ id: f.p.transplantLettuce }).first();
 		expect([lettuce.status, lettuce.actual_field_date]).toEqual(['transplanted', '2026-12-01']);
 
@@ -133,7 +154,11 @@ describe('marking tasks done', () => {
 	it('finishing a harvest sets finished and the last harvest date', async () => {
 		expect((await done(f.crew, f.p.harvestCarrot, 'finish', '2026-12-01')).status).toBe(303);
 		const carrot = await testDb()('plantings').where({ id: f.p.harvestCarrot }).first();
-		expect([carrot.status, carrot.actual_first_harvest, carrot.actual_last_harvest]).toEqual(['finished', '2026-12-01', '2026-12-01']);
+		expect([carrot.status, carrot.actual_first_harvest, carrot.actual_last_harvest]).toEqual([
+			'finished',
+			'2026-12-01',
+			'2026-12-01'
+		]);
 	});
 	it('a tray sowing marks the planting sown with the actual tray date', async () => {
 		expect((await done(f.crew, f.p.trayLettuce, 'tray_sow', '2026-11-29')).status).toBe(303);
@@ -171,7 +196,12 @@ describe('marking tasks done', () => {
 		const enhanced = await new Client().request(`${sheetPath}?/done`, {
 			method: 'POST',
 			body: new URLSearchParams({ plantingId: String(f.p.directCarrot), kind: 'direct_sow', date: '2026-11-30' }),
-			headers: { origin: process.env.FC_BASE_URL!, accept: 'application/json', 'x-sveltekit-action': 'true', 'content-type': 'application/x-www-form-urlencoded' }
+			headers: {
+				origin: process.env.FC_BASE_URL!,
+				accept: 'application/json',
+				'x-sveltekit-action': 'true',
+				'content-type': 'application/x-www-form-urlencoded'
+			}
 		});
 		expect(JSON.parse(await enhanced.text()).type).toBe('redirect');
 	});
@@ -211,7 +241,17 @@ describe('the sheets by e-mail', () => {
 		const direct = wb.getWorksheet('Direct sowing')!;
 		expect(direct.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 });
 		const headers = (direct.getRow(1).values as unknown[]).slice(1);
-		expect(headers).toEqual(expect.arrayContaining(['From (ft)', 'To (ft)', 'In-row spacing (in)', 'Seed (g)', 'Seeds', 'Actual date', 'Notes']));
+		expect(headers).toEqual(
+			expect.arrayContaining([
+				'From (ft)',
+				'To (ft)',
+				'In-row spacing (in)',
+				'Seed (g)',
+				'Seeds',
+				'Actual date',
+				'Notes'
+			])
+		);
 		const col = (h: string) => headers.indexOf(h) + 1;
 		const row = direct.getRow(2);
 		expect(row.getCell(col('Crop')).value).toBe('Carrot');
@@ -226,9 +266,20 @@ describe('the sheets by e-mail', () => {
 		expect(sj.SheetNames).toEqual(['Tray sowing', 'Direct sowing', 'Transplanting']);
 		const tray = XLSX.utils.sheet_to_json<Record<string, unknown>>(sj.Sheets['Tray sowing']);
 		expect(tray).toHaveLength(1);
-		expect(tray[0]).toMatchObject({ Crop: 'Lettuce', Variety: 'Test Butterhead', Cells: expected.trayCells, Trays: expected.trayTrays, 'Seed (g)': expected.trayGrams });
+		expect(tray[0]).toMatchObject({
+			Crop: 'Lettuce',
+			Variety: 'Test Butterhead',
+			Cells: expected.trayCells,
+			Trays: expected.trayTrays,
+			'Seed (g)': expected.trayGrams
+		});
 		const transplant = XLSX.utils.sheet_to_json<Record<string, unknown>>(sj.Sheets['Transplanting']);
-		expect(transplant[0]).toMatchObject({ 'Block · bed': 'East · bed E1', 'From (ft)': 10, 'To (ft)': 60, Plants: expected.transplantPlants });
+		expect(transplant[0]).toMatchObject({
+			'Block · bed': 'East · bed E1',
+			'From (ft)': 10,
+			'To (ft)': 60,
+			Plants: expected.transplantPlants
+		});
 		expect(direct.getRow(2).getCell(col('Notes')).border?.bottom?.style).toBe('thin');
 	});
 	it('sends to the farm crew leads and owners when asked', async () => {

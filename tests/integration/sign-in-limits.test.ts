@@ -17,7 +17,13 @@ const password = 'long-enough-pass';
 async function newAccount(tag: string): Promise<string> {
 	const email = uniqueEmail(tag);
 	const res = await new Client().postForm('/signup', {
-		name: 'Limit Tester', email, password, farmName: 'Limit Plot (invented)', latitude: '44', lastSpringFrost: '2027-05-15', firstFallFrost: '2027-10-01'
+		name: 'Limit Tester',
+		email,
+		password,
+		farmName: 'Limit Plot (invented)',
+		latitude: '44',
+		lastSpringFrost: '2027-05-15',
+		firstFallFrost: '2027-10-01'
 	});
 	expect(res.status).toBe(303);
 	return email;
@@ -33,7 +39,9 @@ describe('per account (default limits: 5 free failures, then 1 s doubling to 1 m
 		const early = await signIn(email, password);
 		expect(early.status).toBe(429);
 		expect(early.headers.get('retry-after')).toBe('1');
-		expect(await html(early)).toContain('Too many wrong passwords for this account in a row. Wait 1 second, then try again');
+		expect(await html(early)).toContain(
+			'Too many wrong passwords for this account in a row. Wait 1 second, then try again'
+		);
 		await pause(1100);
 		expect((await signIn(email, 'wrong-password')).status).toBe(400);
 		const twice = await signIn(email, password);
@@ -52,7 +60,9 @@ describe('per account (default limits: 5 free failures, then 1 s doubling to 1 m
 		expect((await signIn(email, password)).status).toBe(429);
 		expect((await new Client().postForm('/forgot', { email })).status).toBe(200);
 		const link = new URL(firstLink(await waitForMail(email), '/reset/'));
-		expect((await new Client().postForm(link.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' })).status).toBe(303);
+		expect(
+			(await new Client().postForm(link.pathname, { password: 'fresh-reset-pass', confirm: 'fresh-reset-pass' })).status
+		).toBe(303);
 		expect((await signIn(email, 'fresh-reset-pass')).status).toBe(303);
 	});
 
@@ -66,7 +76,9 @@ describe('per account (default limits: 5 free failures, then 1 s doubling to 1 m
 
 describe('behind a proxy: per client address from ADDRESS_HEADER, and the account cap', () => {
 	let second: SecondApp;
-	let app: { postForm(path: string, fields: Record<string, string>, headers: Record<string, string>): Promise<Response> };
+	let app: {
+		postForm(path: string, fields: Record<string, string>, headers: Record<string, string>): Promise<Response>;
+	};
 	beforeAll(async () => {
 		second = await startSecondApp({
 			ADDRESS_HEADER: 'x-real-ip',
@@ -82,7 +94,12 @@ describe('behind a proxy: per client address from ADDRESS_HEADER, and the accoun
 					method: 'POST',
 					body: new URLSearchParams(fields),
 					redirect: 'manual',
-					headers: { origin: second.base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded', ...headers }
+					headers: {
+						origin: second.base,
+						accept: 'text/html',
+						'content-type': 'application/x-www-form-urlencoded',
+						...headers
+					}
 				})
 		};
 	});
@@ -97,7 +114,11 @@ describe('behind a proxy: per client address from ADDRESS_HEADER, and the accoun
 		let owner = address();
 		while (owner === guesser) owner = address();
 		for (let i = 0; i < 4; i++) {
-			const res = await app.postForm('/signin', { email: uniqueEmail(`guess${i}`), password: 'wrong-password' }, from(guesser));
+			const res = await app.postForm(
+				'/signin',
+				{ email: uniqueEmail(`guess${i}`), password: 'wrong-password' },
+				from(guesser)
+			);
 			expect(res.status).toBe(400);
 		}
 		const blocked = await app.postForm('/signin', { email: demo.owner, password: demo.password }, from(guesser));
@@ -125,11 +146,19 @@ describe('behind a proxy: per client address from ADDRESS_HEADER, and the accoun
 
 	it('throttles reset requests and sign-ups per address, saying so', async () => {
 		const ip = from(address());
-		for (let i = 0; i < 2; i++) expect((await app.postForm('/forgot', { email: uniqueEmail('f') }, ip)).status).toBe(200);
+		for (let i = 0; i < 2; i++)
+			expect((await app.postForm('/forgot', { email: uniqueEmail('f') }, ip)).status).toBe(200);
 		const third = await app.postForm('/forgot', { email: uniqueEmail('f') }, ip);
 		expect(third.status).toBe(429);
 		expect(await html(third)).toContain('Too many reset requests from your network address.');
-		const fields = { name: 'Throttle', password, farmName: 'T (invented)', latitude: '44', lastSpringFrost: '2027-05-15', firstFallFrost: '2027-10-01' };
+		const fields = {
+			name: 'Throttle',
+			password,
+			farmName: 'T (invented)',
+			latitude: '44',
+			lastSpringFrost: '2027-05-15',
+			firstFallFrost: '2027-10-01'
+		};
 		expect((await app.postForm('/signup', { ...fields, email: uniqueEmail('su') }, ip)).status).toBe(303);
 		const again = await app.postForm('/signup', { ...fields, email: uniqueEmail('su') }, ip);
 		expect(again.status).toBe(429);

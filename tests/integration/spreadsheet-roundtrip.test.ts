@@ -57,13 +57,27 @@ beforeAll(async () => {
 	header = (ws.getRow(1).values as unknown[]).slice(1).map(String);
 	const col = (h: string): number => header.indexOf(h) + 1;
 	plantingCount = ws.actualRowCount - 1;
-	const rows: { row: number; id: number; lengthFt: number; seeds: number; yield: number; crop: string; variety: string; method: string }[] = [];
+	const rows: {
+		row: number;
+		id: number;
+		lengthFt: number;
+		seeds: number;
+		yield: number;
+		crop: string;
+		variety: string;
+		method: string;
+	}[] = [];
 	ws.eachRow((r, n) => {
 		if (n === 1) return;
 		rows.push({
-			row: n, id: Number(r.getCell(col('Planting id')).value), lengthFt: Number(r.getCell(col('Length (ft)')).value),
-			seeds: Number(r.getCell(col('Seeds needed (seeds)')).value), yield: Number(r.getCell(col('Expected yield')).value),
-			crop: String(r.getCell(col('Crop')).value), variety: String(r.getCell(col('Variety')).value), method: String(r.getCell(col('Method')).value)
+			row: n,
+			id: Number(r.getCell(col('Planting id')).value),
+			lengthFt: Number(r.getCell(col('Length (ft)')).value),
+			seeds: Number(r.getCell(col('Seeds needed (seeds)')).value),
+			yield: Number(r.getCell(col('Expected yield')).value),
+			crop: String(r.getCell(col('Crop')).value),
+			variety: String(r.getCell(col('Variety')).value),
+			method: String(r.getCell(col('Method')).value)
 		});
 	});
 	// A direct-sown planting of at least 30 ft whose seeds need a thousands separator when shown.
@@ -131,7 +145,9 @@ describe('a workbook LibreOffice saved (finding: one upload took the server down
 		const ws = big.addWorksheet('Plantings');
 		ws.addRow(header);
 		for (let i = 0; i < 20_001; i++) ws.addRow(['Carrot', 'x', null, null, 0, 10]);
-		const res = await upload(farm.client, 'big.xlsx', Buffer.from(await big.xlsx.writeBuffer()), { seasonId: String(seasonId) });
+		const res = await upload(farm.client, 'big.xlsx', Buffer.from(await big.xlsx.writeBuffer()), {
+			seasonId: String(seasonId)
+		});
 		expect(res.status).toBe(413);
 		expect((await res.json()).message).toMatch(/more than 20,000 rows/);
 	});
@@ -165,14 +181,18 @@ describe('numbers as the CSV shows them (finding: "1,000" was stored as 1)', () 
 		const res = await upload(farm.client, 'beds.csv', csv, { sheet: 'Beds' });
 		expect(res.status).toBe(400);
 		const body = await res.json();
-		expect(body.errors).toEqual([expect.objectContaining({ sheet: 'Beds', row: 2, column: 'C', header: 'Length (ft)' })]);
+		expect(body.errors).toEqual([
+			expect.objectContaining({ sheet: 'Beds', row: 2, column: 'C', header: 'Length (ft)' })
+		]);
 		expect(body.errors[0].message).toMatch(/could be 1,000 or 1/);
 	});
 });
 
 describe('updating a season from its own edited export', () => {
 	it('refuses a field date outside the season, naming the row', async () => {
-		const res = await upload(farm.client, 'next-year.xlsx', readFileSync(file('next-year.xlsx')), { seasonId: String(seasonId) });
+		const res = await upload(farm.client, 'next-year.xlsx', readFileSync(file('next-year.xlsx')), {
+			seasonId: String(seasonId)
+		});
 		expect(res.status).toBe(400);
 		const body = await res.json();
 		expect(body.errors).toEqual([expect.objectContaining({ sheet: 'Plantings', row: 3, header: 'Field date' })]);
@@ -180,7 +200,9 @@ describe('updating a season from its own edited export', () => {
 	});
 
 	it('flags a row pasted twice and leaves the copy out', async () => {
-		const res = await upload(farm.client, 'pasted-twice.xlsx', readFileSync(file('pasted-twice.xlsx')), { seasonId: String(seasonId) });
+		const res = await upload(farm.client, 'pasted-twice.xlsx', readFileSync(file('pasted-twice.xlsx')), {
+			seasonId: String(seasonId)
+		});
 		expect(res.status).toBe(200);
 		const { preview } = await res.json();
 		// Both pasted rows carry row 2's id: they are exact copies of row 2.
@@ -193,9 +215,13 @@ describe('updating a season from its own edited export', () => {
 	});
 
 	it('a stale preview is refused (409) and writes nothing', async () => {
-		const res = await upload(farm.client, 'edited.xlsx', readFileSync(file('edited.xlsx')), { seasonId: String(seasonId) });
+		const res = await upload(farm.client, 'edited.xlsx', readFileSync(file('edited.xlsx')), {
+			seasonId: String(seasonId)
+		});
 		const { preview } = await res.json();
-		await testDb()('plantings').where({ id: notesRow.id }).update({ version: testDb().raw('version + 1') });
+		await testDb()('plantings')
+			.where({ id: notesRow.id })
+			.update({ version: testDb().raw('version + 1') });
 		const before = await testDb()('plantings').where({ season_id: seasonId }).count({ n: '*' }).first();
 		const out = await apply(preview.token);
 		expect(out.status).toBe(409);
@@ -203,10 +229,14 @@ describe('updating a season from its own edited export', () => {
 	});
 
 	it('applies in one go on confirmation, and an edited length works out seeds and yield again', async () => {
-		const res = await upload(farm.client, 'edited.xlsx', readFileSync(file('edited.xlsx')), { seasonId: String(seasonId) });
+		const res = await upload(farm.client, 'edited.xlsx', readFileSync(file('edited.xlsx')), {
+			seasonId: String(seasonId)
+		});
 		const { preview } = await res.json();
 		const change = preview.changed.find((c: { id: number }) => c.id === editRow.id);
-		expect(change.changes.map((f: { field: string }) => f.field)).toEqual(expect.arrayContaining(['lengthFt', 'seedsNeeded', 'expectedYield']));
+		expect(change.changes.map((f: { field: string }) => f.field)).toEqual(
+			expect.arrayContaining(['lengthFt', 'seedsNeeded', 'expectedYield'])
+		);
 		const out = await apply(preview.token);
 		expect(out.status).toBe(200);
 		expect(await out.json()).toMatchObject({ added: 0, changed: 2, removed: 1 });
@@ -277,7 +307,9 @@ async function sheetXml(bytes: Buffer, name: string): Promise<string> {
 	const book = await zip.file('xl/workbook.xml')!.async('string');
 	const rels = await zip.file('xl/_rels/workbook.xml.rels')!.async('string');
 	const rid = new RegExp(`<sheet [^>]*name="${name}"[^>]*r:id="([^"]+)"`).exec(book)![1];
-	const target = new RegExp(`Id="${rid}"[^>]*Target="([^"]+)"`).exec(rels)?.[1] ?? new RegExp(`Target="([^"]+)"[^>]*Id="${rid}"`).exec(rels)![1];
+	const target =
+		new RegExp(`Id="${rid}"[^>]*Target="([^"]+)"`).exec(rels)?.[1] ??
+		new RegExp(`Target="([^"]+)"[^>]*Id="${rid}"`).exec(rels)![1];
 	return zip.file(`xl/${target.replace(/^\/?xl\//, '')}`)!.async('string');
 }
 
@@ -286,5 +318,14 @@ async function varietyFigures(farmId: number): Promise<Record<string, unknown>[]
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy(['c.name', 'v.name'])
-		.select('c.name as crop', 'v.name', 'v.seeds_per_packet', 'v.germination_rate', 'v.margin', 'v.seed_price_cents_per_gram', 'v.seeds_per_gram', 'v.gdd_to_maturity');
+		.select(
+			'c.name as crop',
+			'v.name',
+			'v.seeds_per_packet',
+			'v.germination_rate',
+			'v.margin',
+			'v.seed_price_cents_per_gram',
+			'v.seeds_per_gram',
+			'v.gdd_to_maturity'
+		);
 }

@@ -39,14 +39,16 @@ beforeAll(async () => {
 });
 
 describe('changing a role', () => {
-	it('takes effect at once and ends the member\'s sessions on this farm', async () => {
+	it("takes effect at once and ends the member's sessions on this farm", async () => {
 		const m = await addMember(farm, 'crew_lead', 'role');
 		expect((await m.client.get('/api/me')).status).toBe(200);
 		expect(await sessionsOf(m.userId)).toBe(1);
 		const res = await farm.client.postForm('/team?/role', { userId: m.userId, role: 'share_manager' });
 		expect(res.status).toBe(303);
 		expect(res.headers.get('location')).toMatch(/^\/team\?changed=/);
-		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe('share_manager');
+		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe(
+			'share_manager'
+		);
 		expect(await sessionsOf(m.userId)).toBe(0);
 		expect((await m.client.get('/api/me')).status).toBe(401);
 		// Signing in again gives the new role.
@@ -59,7 +61,9 @@ describe('changing a role', () => {
 		const res = await farm.client.postForm('/team?/role', { userId: m.userId, role: 'admin' });
 		expect(res.status).toBe(400);
 		expect(await html(res)).toContain('Choose a role: owner, crew lead or share manager.');
-		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe('crew_lead');
+		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe(
+			'crew_lead'
+		);
 		expect(await sessionsOf(m.userId)).toBe(1);
 	});
 });
@@ -78,7 +82,7 @@ describe('removing a member', () => {
 		expect(await html(page)).toContain('is no longer on this farm and was signed out.');
 	});
 
-	it('leaves a member\'s sessions on another farm alone', async () => {
+	it("leaves a member's sessions on another farm alone", async () => {
 		const other = await signUpFarm('team-other');
 		const m = await addMember(farm, 'crew_lead', 'twofarms');
 		// The same person joins a second farm through its invite (proving the account's password).
@@ -86,7 +90,9 @@ describe('removing a member', () => {
 		expect(sent.status).toBe(303);
 		const link = new URL(firstLink(await waitForMail(m.email), '/invite/'));
 		const elsewhere = new Client();
-		expect((await elsewhere.postForm(link.pathname, { name: 'Member twofarms', password: 'member-pass-for-tests' })).status).toBe(303);
+		expect(
+			(await elsewhere.postForm(link.pathname, { name: 'Member twofarms', password: 'member-pass-for-tests' })).status
+		).toBe(303);
 		expect((await (await elsewhere.get('/api/me')).json()).farm.id).toBe(other.farmId);
 
 		expect((await farm.client.postForm('/team?/remove', { userId: m.userId })).status).toBe(303);
@@ -107,7 +113,9 @@ describe('removing a member', () => {
 		const m = await addMember(farm, 'crew_lead', 'notowner');
 		expect((await m.client.postForm('/team?/remove', { userId: ownerId })).status).toBe(403);
 		expect((await m.client.postForm('/team?/role', { userId: m.userId, role: 'owner' })).status).toBe(403);
-		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe('crew_lead');
+		expect((await testDb()('farm_members').where({ farm_id: farm.farmId, user_id: m.userId }).first('role')).role).toBe(
+			'crew_lead'
+		);
 		expect((await new Client().postForm('/team?/remove', { userId: ownerId })).status).toBe(303);
 		expect(await count('farm_members', { farm_id: farm.farmId, user_id: ownerId })).toBe(1);
 	});
@@ -122,7 +130,9 @@ describe('the last owner', () => {
 		expect(await html(remove)).toContain('A farm needs at least one owner');
 		const demote = await lone.client.postForm('/team?/role', { userId: loneId, role: 'crew_lead' });
 		expect(demote.status).toBe(409);
-		expect((await testDb()('farm_members').where({ farm_id: lone.farmId, user_id: loneId }).first('role')).role).toBe('owner');
+		expect((await testDb()('farm_members').where({ farm_id: lone.farmId, user_id: loneId }).first('role')).role).toBe(
+			'owner'
+		);
 
 		const second = await addMember(lone, 'owner', 'second-owner');
 		// Both owners demote each other at the same moment: one wins, the farm keeps an owner.
@@ -188,7 +198,10 @@ describe('invites whose mail fails', () => {
 		}
 		expect(newLink.pathname).not.toBe(oldLink.pathname);
 		expect(await html(await new Client().get(oldLink.pathname))).toContain('This invite link is not valid.');
-		expect((await new Client().postForm(newLink.pathname, { name: 'Resent Person', password: 'member-pass-for-tests' })).status).toBe(303);
+		expect(
+			(await new Client().postForm(newLink.pathname, { name: 'Resent Person', password: 'member-pass-for-tests' }))
+				.status
+		).toBe(303);
 	});
 
 	it("another farm's invite cannot be resent or withdrawn", async () => {

@@ -37,7 +37,10 @@ describe('with the database down', () => {
 	it('signing in answers 503 too, not 500', async () => {
 		const body = new URLSearchParams({ email: demo.owner, password: demo.password });
 		const res = await fetch(`${base}/signin`, {
-			method: 'POST', body, redirect: 'manual', headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }
+			method: 'POST',
+			body,
+			redirect: 'manual',
+			headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' }
 		});
 		expect(res.status).toBe(503);
 		expect(await res.text()).toContain('briefly unavailable');

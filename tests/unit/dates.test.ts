@@ -8,9 +8,18 @@ import { isoWeek, weekStart } from '$lib/planning/iso-week';
 
 describe('one date rule', () => {
 	it('takes real calendar dates in 1900–2200 and refuses the rest, naming the field', () => {
-		for (const ok of ['1900-01-01', '2027-06-01', '2028-02-29', '2000-02-29', '2200-12-31']) expect(dateProblem('Field date', ok), ok).toBeNull();
+		for (const ok of ['1900-01-01', '2027-06-01', '2028-02-29', '2000-02-29', '2200-12-31'])
+			expect(dateProblem('Field date', ok), ok).toBeNull();
 		// Source: ISO 8601 / Gregorian calendar: 1900 and 2100 are not leap years, 2000 is.
-		for (const bad of ['1900-02-29', '2100-02-29', '2027-02-29', '2027-04-31', '2027-13-01', '2027-00-10', '2027-06-00'])
+		for (const bad of [
+			'1900-02-29',
+			'2100-02-29',
+			'2027-02-29',
+			'2027-04-31',
+			'2027-13-01',
+			'2027-00-10',
+			'2027-06-00'
+		])
 			expect(dateProblem('Field date', bad), bad).toBe('Field date is not a real calendar date.');
 		for (const far of ['0999-06-01', '0000-01-01', '0001-05-01', '1899-12-31', '2201-01-01', '9999-12-31'])
 			expect(dateProblem('Field date', far), far).toBe('Field date must be between 1900 and 2200.');
@@ -21,11 +30,16 @@ describe('one date rule', () => {
 	it('agrees with date-fns on which strings are real dates (any year 1900–2200)', () => {
 		// Source: date-fns parse() with 'yyyy-MM-dd' and isValid(), a general-purpose reference library.
 		fc.assert(
-			fc.property(fc.integer({ min: 1900, max: 2200 }), fc.integer({ min: 0, max: 13 }), fc.integer({ min: 0, max: 32 }), (y, m, d) => {
-				const s = `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`;
-				const ref = isValid(parse(s, 'yyyy-MM-dd', new Date(2000, 0, 1)));
-				expect(dateProblem('D', s) === null, s).toBe(ref);
-			}),
+			fc.property(
+				fc.integer({ min: 1900, max: 2200 }),
+				fc.integer({ min: 0, max: 13 }),
+				fc.integer({ min: 0, max: 32 }),
+				(y, m, d) => {
+					const s = `${y}-${String(m).padStart(2, '0')}-${String(d).padStart(2, '0')}`;
+					const ref = isValid(parse(s, 'yyyy-MM-dd', new Date(2000, 0, 1)));
+					expect(dateProblem('D', s) === null, s).toBe(ref);
+				}
+			),
 			{ numRuns: 2000 }
 		);
 	});

@@ -3,7 +3,13 @@
 import { describe, expect, it } from 'vitest';
 import { deriveTargets, deriveTargetsWithNotes, explainTargets, type TargetInput } from '../../src/lib/planning';
 import { cellsSchema, shareSizeSchema, isoWeekField, uploadRowSchema } from '../../src/lib/schemas/demand';
-import { engineInput, explainCell, gridWeeks, withEdits, type PageDemand } from '../../src/routes/(app)/seasons/[id]/demand/demand-page';
+import {
+	engineInput,
+	explainCell,
+	gridWeeks,
+	withEdits,
+	type PageDemand
+} from '../../src/routes/(app)/seasons/[id]/demand/demand-page';
 
 const input: TargetInput = {
 	shareSizes: [
@@ -98,15 +104,32 @@ describe('the demand page', () => {
 		]);
 	});
 	it("shows a share size's weeks, and a channel the span of the shares", () => {
-		expect(gridWeeks(page, 'share:2', { first: '2026-W53', last: '2027-W52' })).toEqual(['2027-W24', '2027-W25', '2027-W26']);
-		expect(gridWeeks(page, 'market', { first: '2026-W53', last: '2027-W52' })).toEqual(['2027-W24', '2027-W25', '2027-W26']);
+		expect(gridWeeks(page, 'share:2', { first: '2026-W53', last: '2027-W52' })).toEqual([
+			'2027-W24',
+			'2027-W25',
+			'2027-W26'
+		]);
+		expect(gridWeeks(page, 'market', { first: '2026-W53', last: '2027-W52' })).toEqual([
+			'2027-W24',
+			'2027-W25',
+			'2027-W26'
+		]);
 		// 2026-W53 … 2027-W52: 1 + 52 weeks. Source: ISO 8601 (2026 has 53 weeks; 2027-12-31 is 2027-W52-5)
-		expect(gridWeeks({ ...page, shareSizes: [], channelDemand: [] }, 'market', { first: '2026-W53', last: '2027-W52' })).toHaveLength(53);
+		expect(
+			gridWeeks({ ...page, shareSizes: [], channelDemand: [] }, 'market', { first: '2026-W53', last: '2027-W52' })
+		).toHaveLength(53);
 	});
 });
 
 describe('demand schemas', () => {
-	const share = { name: 'Full', members: '60', firstWeek: '2027-W24', lastWeek: '2027-W43', pickupDays: ['Fri', 'Tue'], price: '720' };
+	const share = {
+		name: 'Full',
+		members: '60',
+		firstWeek: '2027-W24',
+		lastWeek: '2027-W43',
+		pickupDays: ['Fri', 'Tue'],
+		price: '720'
+	};
 	it('keeps money in whole cents without float drift', () => {
 		// 720 dollars = 72,000 cents; 0.29 dollars = 29 cents (0.29 × 100 in floating point is 28.999…)
 		expect(shareSizeSchema.parse(share).price).toBe(72_000);
@@ -123,10 +146,20 @@ describe('demand schemas', () => {
 		expect(isoWeekField('w').safeParse('2027-W00').success).toBe(false);
 	});
 	it('checks grid cells and upload rows', () => {
-		expect(cellsSchema.safeParse({ grid: 'share:3', cells: [{ crop: 1, week: '2027-W24', quantity: '', unit: 'lb' }] }).data?.cells[0].quantity).toBeNull();
-		const bad = cellsSchema.safeParse({ grid: 'share:3', cells: [{ crop: 1, week: '2027-W24', quantity: -1, unit: 'kg' }] });
+		expect(
+			cellsSchema.safeParse({ grid: 'share:3', cells: [{ crop: 1, week: '2027-W24', quantity: '', unit: 'lb' }] }).data
+				?.cells[0].quantity
+		).toBeNull();
+		const bad = cellsSchema.safeParse({
+			grid: 'share:3',
+			cells: [{ crop: 1, week: '2027-W24', quantity: -1, unit: 'kg' }]
+		});
 		expect(bad.error?.issues.map((i) => i.path.join('.')).sort()).toEqual(['cells.0.quantity', 'cells.0.unit']);
-		expect(uploadRowSchema.parse({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: '20', unit: ' Bunch ' })).toEqual({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: 20, unit: 'bunch' });
-		expect(uploadRowSchema.parse({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: '20', unit: '' }).unit).toBeUndefined();
+		expect(
+			uploadRowSchema.parse({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: '20', unit: ' Bunch ' })
+		).toEqual({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: 20, unit: 'bunch' });
+		expect(
+			uploadRowSchema.parse({ channel: 'market', crop: 'Kale', week: '2027-W30', quantity: '20', unit: '' }).unit
+		).toBeUndefined();
 	});
 });

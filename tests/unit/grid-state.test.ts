@@ -7,19 +7,81 @@ import type { GridVariety } from '../../src/lib/plantings/derive';
 import type { PlantingView } from '../../src/lib/types';
 
 const carrot: GridVariety = {
-	id: 1, cropId: 1, crop: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', frostTolerance: 'hardy', heatLimitF: null, baseTempF: 40,
-	name: 'Invented Orange', method: 'direct', daysToMaturity: 70, daysInTray: 0, harvestWindowDays: 14, yieldPerBedFoot: 1.5,
-	rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, germinationRate: 0.65, seedsPerGram: 776.03, seedPriceCentsPerGram: 0,
-	seedsPerPacket: null, cellsPerTray: 128, margin: 0.1, gddToMaturity: null
+	id: 1,
+	cropId: 1,
+	crop: 'Carrot',
+	family: 'Apiaceae',
+	harvestUnit: 'lb',
+	frostTolerance: 'hardy',
+	heatLimitF: null,
+	baseTempF: 40,
+	name: 'Invented Orange',
+	method: 'direct',
+	daysToMaturity: 70,
+	daysInTray: 0,
+	harvestWindowDays: 14,
+	yieldPerBedFoot: 1.5,
+	rows: 4,
+	inRowSpacingIn: 1,
+	seedsPerSpot: 2,
+	germinationRate: 0.65,
+	seedsPerGram: 776.03,
+	seedPriceCentsPerGram: 0,
+	seedsPerPacket: null,
+	cellsPerTray: 128,
+	margin: 0.1,
+	gddToMaturity: null
 };
-const lettuce: GridVariety = { ...carrot, id: 2, cropId: 2, crop: 'Lettuce', family: 'Asteraceae', harvestUnit: 'head', name: 'Invented Green', method: 'transplant', daysToMaturity: 30, daysInTray: 28, inRowSpacingIn: 12, rows: 3, seedsPerSpot: 1, germinationRate: 0.9 };
+const lettuce: GridVariety = {
+	...carrot,
+	id: 2,
+	cropId: 2,
+	crop: 'Lettuce',
+	family: 'Asteraceae',
+	harvestUnit: 'head',
+	name: 'Invented Green',
+	method: 'transplant',
+	daysToMaturity: 30,
+	daysInTray: 28,
+	inRowSpacingIn: 12,
+	rows: 3,
+	seedsPerSpot: 1,
+	germinationRate: 0.9
+};
 
 function planting(id: number, over: Partial<PlantingView> = {}): PlantingView {
 	return {
-		id, seasonId: 1, varietyId: 1, variety: 'Invented Orange', crop: 'Carrot', family: 'Apiaceae', harvestUnit: 'lb', bedId: 10, bed: 'B1', block: 'North',
-		blockPosition: 1, bedPosition: 1, startFt: 0, lengthFt: 60, rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, method: 'direct', traySowDate: null,
-		fieldDate: '2026-04-20', firstHarvest: '2026-06-29', lastHarvest: '2026-07-12', expectedYield: 90, seedsNeeded: 9748, status: 'planned', notes: null, version: 1,
-		actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null,
+		id,
+		seasonId: 1,
+		varietyId: 1,
+		variety: 'Invented Orange',
+		crop: 'Carrot',
+		family: 'Apiaceae',
+		harvestUnit: 'lb',
+		bedId: 10,
+		bed: 'B1',
+		block: 'North',
+		blockPosition: 1,
+		bedPosition: 1,
+		startFt: 0,
+		lengthFt: 60,
+		rows: 4,
+		inRowSpacingIn: 1,
+		seedsPerSpot: 2,
+		method: 'direct',
+		traySowDate: null,
+		fieldDate: '2026-04-20',
+		firstHarvest: '2026-06-29',
+		lastHarvest: '2026-07-12',
+		expectedYield: 90,
+		seedsNeeded: 9748,
+		status: 'planned',
+		notes: null,
+		version: 1,
+		actualTraySowDate: null,
+		actualFieldDate: null,
+		actualFirstHarvest: null,
+		actualLastHarvest: null,
 		...over
 	};
 }
@@ -28,10 +90,20 @@ class FakeApi implements GridApi {
 	calls: { kind: string; id?: number; body: unknown }[] = [];
 	answer: (kind: string, id: number | undefined, body: unknown) => ApiAnswer = (kind, id, body) =>
 		kind === 'create'
-			? { status: 201, body: { plantings: (body as Record<string, unknown>[]).map((b, i) => planting(100 + i, b as Partial<PlantingView>)) } }
+			? {
+					status: 201,
+					body: {
+						plantings: (body as Record<string, unknown>[]).map((b, i) => planting(100 + i, b as Partial<PlantingView>))
+					}
+				}
 			: kind === 'remove'
 				? { status: 204, body: null }
-				: { status: 200, body: { planting: planting(id!, { ...(body as object), version: (body as { version: number }).version + 1 }) } };
+				: {
+						status: 200,
+						body: {
+							planting: planting(id!, { ...(body as object), version: (body as { version: number }).version + 1 })
+						}
+					};
 	async patch(id: number, body: Record<string, unknown>): Promise<ApiAnswer> {
 		this.calls.push({ kind: 'patch', id, body });
 		return this.answer('patch', id, body);
@@ -46,10 +118,26 @@ class FakeApi implements GridApi {
 	}
 }
 
-function grid(plantings = [planting(1), planting(2, { startFt: 60, lengthFt: 40, fieldDate: '2026-05-04' })], role: 'owner' | 'crew_lead' | 'share_manager' = 'owner') {
+function grid(
+	plantings = [planting(1), planting(2, { startFt: 60, lengthFt: 40, fieldDate: '2026-05-04' })],
+	role: 'owner' | 'crew_lead' | 'share_manager' = 'owner'
+) {
 	const api = new FakeApi();
 	const g = new GridState(
-		{ plantings, varieties: [carrot, lettuce], beds: [{ id: 10, name: 'B1', blockId: 1, blockName: 'North', lengthFt: 100 }], farm: { lastSpringFrost: '2026-05-10', firstFallFrost: '2026-10-05', latitude: 42, turnaroundDays: 7, bedFootIncrement: 5 }, role, seasonId: 1 },
+		{
+			plantings,
+			varieties: [carrot, lettuce],
+			beds: [{ id: 10, name: 'B1', blockId: 1, blockName: 'North', lengthFt: 100 }],
+			farm: {
+				lastSpringFrost: '2026-05-10',
+				firstFallFrost: '2026-10-05',
+				latitude: 42,
+				turnaroundDays: 7,
+				bedFootIncrement: 5
+			},
+			role,
+			seasonId: 1
+		},
 		api,
 		{ debounceMs: 60_000 }
 	);
@@ -77,7 +165,20 @@ describe('editing a cell', () => {
 		expect(g.rows[0].derived?.lastHarvest).toBe('2026-07-23');
 	});
 	it('an edit gives the view a new item for the edited row only, and filters still apply after', () => {
-		const { g } = grid([planting(1), planting(2, { startFt: 60, lengthFt: 40 }), planting(3, { varietyId: 2, variety: 'Invented Green', crop: 'Lettuce', method: 'transplant', startFt: 0, lengthFt: 30, bedId: null, bed: null })]);
+		const { g } = grid([
+			planting(1),
+			planting(2, { startFt: 60, lengthFt: 40 }),
+			planting(3, {
+				varietyId: 2,
+				variety: 'Invented Green',
+				crop: 'Lettuce',
+				method: 'transplant',
+				startFt: 0,
+				lengthFt: 30,
+				bedId: null,
+				bed: null
+			})
+		]);
 		const before = g.view.items;
 		g.moveTo(1, col(g, 'lengthFt'));
 		g.beginEdit('35');
@@ -97,7 +198,7 @@ describe('editing a cell', () => {
 		expect(g.view.rows.map((r) => r.values.lengthFt)).toEqual([60, 35, 30]);
 	});
 
-	it('keeps an invalid entry in its cell with the schema\'s message, changing nothing', () => {
+	it("keeps an invalid entry in its cell with the schema's message, changing nothing", () => {
 		const { g } = grid();
 		g.moveTo(0, col(g, 'rows'));
 		g.beginEdit('2.5');
@@ -139,7 +240,7 @@ describe('undo, redo and fill down', () => {
 		g.redo();
 		expect(g.rows[0].values.startFt).toBe(21);
 	});
-	it('fills the top row\'s bed-feet into the rows below', () => {
+	it("fills the top row's bed-feet into the rows below", () => {
 		const { g } = grid([planting(1), planting(2, { lengthFt: 20 }), planting(3, { lengthFt: 25 })]);
 		g.moveTo(0, col(g, 'lengthFt'));
 		g.moveTo(2, col(g, 'lengthFt'), true);
@@ -183,7 +284,13 @@ describe('paste', () => {
 		expect(g.paste('6/24/2026').bad).toEqual([]);
 		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
 		const p = g.paste('6/7/2026');
-		expect(p.notes).toEqual([expect.objectContaining({ row: 1, column: 'Field date', message: expect.stringMatching(/read as 7 June 2026 \(month\/day\/year, as en-US/) })]);
+		expect(p.notes).toEqual([
+			expect.objectContaining({
+				row: 1,
+				column: 'Field date',
+				message: expect.stringMatching(/read as 7 June 2026 \(month\/day\/year, as en-US/)
+			})
+		]);
 		// Nothing is saved until the reading is confirmed.
 		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
 		g.confirmPaste();
@@ -222,11 +329,18 @@ describe('the save queue', () => {
 		expect(g.rows[0].version).toBe(2);
 		expect(g.save.status).toBe('saved');
 	});
-	it('on 409 shows whose change won and keeps the user\'s edit to re-apply', async () => {
+	it("on 409 shows whose change won and keeps the user's edit to re-apply", async () => {
 		const { g, api } = grid();
 		api.answer = (kind, id, body) =>
 			kind === 'patch' && (body as { version: number }).version === 1
-				? { status: 409, body: { message: 'Pat saved first', changedBy: 'Pat', current: planting(1, { version: 2, notes: 'theirs', updatedBy: 'Pat' }) } }
+				? {
+						status: 409,
+						body: {
+							message: 'Pat saved first',
+							changedBy: 'Pat',
+							current: planting(1, { version: 2, notes: 'theirs', updatedBy: 'Pat' })
+						}
+					}
 				: { status: 200, body: { planting: planting(id!, { ...(body as object), version: 3 }) } };
 		g.moveTo(0, col(g, 'notes'));
 		g.beginEdit('mine');
@@ -251,7 +365,10 @@ describe('the save queue', () => {
 		await g.save.flush();
 		expect(g.save.status).toBe('failed');
 		expect(g.save.pending).toBe(1);
-		api.answer = (_k, id, body) => ({ status: 200, body: { planting: planting(id!, { ...(body as object), version: 2 }) } });
+		api.answer = (_k, id, body) => ({
+			status: 200,
+			body: { planting: planting(id!, { ...(body as object), version: 2 }) }
+		});
 		await g.save.retry();
 		expect(g.save.status).toBe('saved');
 		expect(api.calls).toHaveLength(2);
@@ -271,7 +388,11 @@ describe('the save queue', () => {
 
 describe('grouping', () => {
 	it('totals bed-feet, seed grams and yield per group', () => {
-		const { g } = grid([planting(1), planting(2, { varietyId: 2, method: 'transplant', lengthFt: 20 }), planting(3, { lengthFt: 30, startFt: 60 })]);
+		const { g } = grid([
+			planting(1),
+			planting(2, { varietyId: 2, method: 'transplant', lengthFt: 20 }),
+			planting(3, { lengthFt: 30, startFt: 60 })
+		]);
 		g.groupBy = 'crop';
 		const groups = g.view.items.filter((i) => i.kind === 'group');
 		expect(groups.map((x) => x.kind === 'group' && x.label)).toEqual(['Carrot', 'Lettuce']);

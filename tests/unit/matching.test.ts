@@ -73,7 +73,9 @@ describe('matchBoxes', () => {
 
 	it('agrees with checkBoxes on which boxes fill', () => {
 		const checks = checkBoxes(rows, demand);
-		expect(checks.map((c) => [c.week, c.shareSizeId, c.fillable])).toEqual(boxes.map((b) => [b.week, b.shareSizeId, b.fillable]));
+		expect(checks.map((c) => [c.week, c.shareSizeId, c.fillable])).toEqual(
+			boxes.map((b) => [b.week, b.shareSizeId, b.fillable])
+		);
 	});
 
 	it('summarises the season', () => {
@@ -100,18 +102,27 @@ describe('suggestSubstitutes', () => {
 		// (a multiple of the 0.25 lb step, under the 2 lb in the box). Spinach surplus 10 lb ÷ 10 = 1 lb
 		// a box at most → 0.5 lb, and 10 × 0.5 = 5 lb covers the shortfall. Chard and kale are bunches: left out.
 		const carrot = full24.items.find((i) => i.crop === 'carrot')!;
-		expect(suggestSubstitutes(rows, full24, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.5, fromQuantity: 0.5, byValue: false, surplus: 10, covers: true }]);
+		expect(suggestSubstitutes(rows, full24, carrot, unitOf)).toEqual([
+			{ crop: 'spinach', quantity: 0.5, fromQuantity: 0.5, byValue: false, surplus: 10, covers: true }
+		]);
 		// Through the half share: 5 lb ÷ 5 members = 1 lb, the whole item; spinach 10 ÷ 5 = 2 lb at most → 1 lb.
-		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf)).toEqual([{ crop: 'spinach', quantity: 1, fromQuantity: 1, byValue: false, surplus: 10, covers: true }]);
+		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf)).toEqual([
+			{ crop: 'spinach', quantity: 1, fromQuantity: 1, byValue: false, surplus: 10, covers: true }
+		]);
 	});
 
 	it('cuts the quantity to what the surplus gives every member, and says when it does not cover', () => {
 		// Spinach only 3 lb in surplus: 3 ÷ 10 = 0.3 → 0.25 lb per box (step 0.25, rounded down);
 		// 10 × 0.25 = 2.5 lb < 5 lb short → does not cover.
-		const lean = forecastFromSupply(supply.map((s) => (s.crop === 'spinach' ? { ...s, quantity: 3 } : s)), deriveTargets(demand));
+		const lean = forecastFromSupply(
+			supply.map((s) => (s.crop === 'spinach' ? { ...s, quantity: 3 } : s)),
+			deriveTargets(demand)
+		);
 		const box = matchBoxes(lean, demand)[0];
 		const carrot = box.items.find((i) => i.crop === 'carrot')!;
-		expect(suggestSubstitutes(lean, box, carrot, unitOf)).toEqual([{ crop: 'spinach', quantity: 0.25, fromQuantity: 0.25, byValue: false, surplus: 3, covers: false }]);
+		expect(suggestSubstitutes(lean, box, carrot, unitOf)).toEqual([
+			{ crop: 'spinach', quantity: 0.25, fromQuantity: 0.25, byValue: false, surplus: 3, covers: false }
+		]);
 		expect(swapStep('bunch')).toBe(1);
 	});
 
@@ -133,9 +144,20 @@ describe('suggestSubstitutes', () => {
 		// Half share, 5 members: carrot wanted 1 lb a box = $2.00 → 0.67 bunch → 1 bunch; chard 8 ÷ 5 = 1.6 → 1 a box.
 		// One bunch ($3.00) replaces $3.00 of carrot = 1.5 lb, capped at the 1 lb in the box; 5 × 1 = 5 lb covers the 5 lb short.
 		const half = suggestSubstitutes(rows, half24, half24.items[0], unitOf, 3, priceOf);
-		expect(half.find((s) => s.crop === 'chard')).toEqual({ crop: 'chard', quantity: 1, fromQuantity: 1, byValue: true, surplus: 8, covers: true });
+		expect(half.find((s) => s.crop === 'chard')).toEqual({
+			crop: 'chard',
+			quantity: 1,
+			fromQuantity: 1,
+			byValue: true,
+			surplus: 8,
+			covers: true
+		});
 		// Without a price on either crop, no crop of another unit is offered.
-		expect(suggestSubstitutes(rows, half24, half24.items[0], unitOf, 3, (c) => (c === 'chard' ? undefined : prices[c])).map((s) => s.crop)).toEqual(['spinach']);
+		expect(
+			suggestSubstitutes(rows, half24, half24.items[0], unitOf, 3, (c) => (c === 'chard' ? undefined : prices[c])).map(
+				(s) => s.crop
+			)
+		).toEqual(['spinach']);
 	});
 });
 
@@ -150,18 +172,29 @@ describe('short threshold', () => {
 		expect(at80.short).toBe(false);
 		expect(matchBoxes(rows, demand, { shortBelow: 0.8 })[0].fillable).toBe(true);
 		// A 99 % fill is not flagged under 95 %: 24.75 lb of 25.
-		const nearly = forecastFromSupply(supply.map((s) => (s.crop === 'carrot' ? { ...s, quantity: 24.75 } : s)), deriveTargets(demand));
-		expect(matchBoxes(nearly, demand, { shortBelow: 0.95 })[0].items.find((i) => i.crop === 'carrot')!.short).toBe(false);
+		const nearly = forecastFromSupply(
+			supply.map((s) => (s.crop === 'carrot' ? { ...s, quantity: 24.75 } : s)),
+			deriveTargets(demand)
+		);
+		expect(matchBoxes(nearly, demand, { shortBelow: 0.95 })[0].items.find((i) => i.crop === 'carrot')!.short).toBe(
+			false
+		);
 		expect(matchBoxes(nearly, demand)[0].items.find((i) => i.crop === 'carrot')!.short).toBe(true);
 	});
 });
 
 describe('applySwaps', () => {
 	it('moves the swapped quantity, and the fill follows', () => {
-		const swapped = applySwaps(demand, [{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 0.5 }]);
+		const swapped = applySwaps(demand, [
+			{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 0.5 }
+		]);
 		const full24 = swapped.boxItems.filter((b) => b.shareSizeId === 'full' && b.week === '2027-W24');
 		// 2 − 0.5 = 1.5 lb carrot; 0.5 lb spinach added; kale unchanged.
-		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([['carrot', 1.5], ['kale', 1], ['spinach', 0.5]]);
+		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([
+			['carrot', 1.5],
+			['kale', 1],
+			['spinach', 0.5]
+		]);
 		const boxes = matchBoxes(rowsFor(swapped), swapped);
 		// Carrot demand = 10 × 1.5 + 5 × 1 = 20 lb = supply → fill 1; spinach 10 × 0.5 = 5 lb ≤ 10 → 1.
 		// Full box W24 = mean(1, 1, 1) = 1, half box W24 = 1 (carrot now fully supplied).
@@ -173,18 +206,31 @@ describe('applySwaps', () => {
 
 	it('swaps into a crop of another unit by the confirmed quantity, in proportion to what moved', () => {
 		// 1 lb carrot out of the half box, 1 bunch chard in (the quantity the share manager confirmed).
-		const swapped = applySwaps(demand, [{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 1, toQuantity: 1 }]);
-		expect(swapped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([['chard', 1]]);
+		const swapped = applySwaps(demand, [
+			{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 1, toQuantity: 1 }
+		]);
+		expect(swapped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([
+			['chard', 1]
+		]);
 		// Asking 2 lb → 2 bunches from a box holding 1 lb moves 1 lb, so 1 bunch (2 × 1 ÷ 2) arrives.
-		const capped = applySwaps(demand, [{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 2, toQuantity: 2 }]);
-		expect(capped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([['chard', 1]]);
+		const capped = applySwaps(demand, [
+			{ shareSizeId: 'half', week: '2027-W24', fromCrop: 'carrot', toCrop: 'chard', quantity: 2, toQuantity: 2 }
+		]);
+		expect(capped.boxItems.filter((b) => b.shareSizeId === 'half').map((b) => [b.crop, b.quantity])).toEqual([
+			['chard', 1]
+		]);
 	});
 
 	it('never moves more than the box holds', () => {
 		// Asking for 5 lb of a 2 lb item moves 2 lb: carrot leaves the box, spinach 2 lb arrives.
-		const swapped = applySwaps(demand, [{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 5 }]);
+		const swapped = applySwaps(demand, [
+			{ shareSizeId: 'full', week: '2027-W24', fromCrop: 'carrot', toCrop: 'spinach', quantity: 5 }
+		]);
 		const full24 = swapped.boxItems.filter((b) => b.shareSizeId === 'full' && b.week === '2027-W24');
-		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([['kale', 1], ['spinach', 2]]);
+		expect(full24.map((b) => [b.crop, b.quantity]).sort()).toEqual([
+			['kale', 1],
+			['spinach', 2]
+		]);
 	});
 });
 
@@ -210,14 +256,21 @@ describe('supplyWithActuals', () => {
 		expect([...actual].map((k) => k.split('\u0000').join(' '))).toEqual(['carrot 2027-W24']);
 	});
 	it('counts harvests of a planting that is no longer forecast', () => {
-		const { supply: s } = supplyWithActuals([], [{ key: 'p9', crop: 'beet', date: '2027-06-15', quantity: 4 }], '2027-W30');
+		const { supply: s } = supplyWithActuals(
+			[],
+			[{ key: 'p9', crop: 'beet', date: '2027-06-15', quantity: 4 }],
+			'2027-W30'
+		);
 		expect(s).toEqual([{ crop: 'beet', week: '2027-W24', quantity: 4 }]);
 	});
 	it('feeds forecast(): the same totals as forecasting the plantings directly', () => {
 		// No actuals: W24 = 14 + 7 = 21, W25 = 14, as forecast() gives.
 		const direct = forecast(plantings, []);
 		const via = forecastFromSupply(supplyWithActuals(plantings, [], '2027-W01').supply, []);
-		expect(via.map((r) => [r.week, Math.round(r.supply * 1e9) / 1e9])).toEqual([['2027-W24', 21], ['2027-W25', 14]]);
+		expect(via.map((r) => [r.week, Math.round(r.supply * 1e9) / 1e9])).toEqual([
+			['2027-W24', 21],
+			['2027-W25', 14]
+		]);
 		expect(direct.map((r) => r.week)).toEqual(via.map((r) => r.week));
 	});
 });
@@ -234,7 +287,16 @@ describe('forecastFromWeeklySupply (the forecast route joins supply with targets
 			{ crop: 'kale', week: '2027-W24', quantity: 12 }
 		];
 		const rows = forecastFromWeeklySupply(weekly, deriveTargets(demand));
-		expect(rows.map((r) => [r.crop, r.week, Math.round(r.supply * 1e9) / 1e9, r.demand, Math.round(r.shortfall * 1e9) / 1e9, Math.round(r.surplus * 1e9) / 1e9])).toEqual([
+		expect(
+			rows.map((r) => [
+				r.crop,
+				r.week,
+				Math.round(r.supply * 1e9) / 1e9,
+				r.demand,
+				Math.round(r.shortfall * 1e9) / 1e9,
+				Math.round(r.surplus * 1e9) / 1e9
+			])
+		).toEqual([
 			['carrot', '2027-W24', 20, 25, 5, 0],
 			['kale', '2027-W24', 12, 10, 0, 2],
 			['kale', '2027-W25', 0, 10, 10, 0],
@@ -247,10 +309,15 @@ describe('forecastFromWeeklySupply (the forecast route joins supply with targets
 			{ crop: `c${i % 3}`, week: `2027-W${String(20 + i).padStart(2, '0')}`, quantity: q },
 			{ crop: `c${(i + 1) % 3}`, week: '2027-W30', quantity: q * 3 }
 		]);
-		const targets = [{ crop: 'c1', week: '2027-W30', quantity: 0.7 }, { crop: 'c9', week: '2027-W01', quantity: 0 }];
+		const targets = [
+			{ crop: 'c1', week: '2027-W30', quantity: 0.7 },
+			{ crop: 'c9', week: '2027-W01', quantity: 0 }
+		];
 		expect(forecastFromWeeklySupply(odd, targets)).toEqual(forecastFromSupply(odd, targets));
 	});
 	it('refuses a negative target naming it, as forecast() does', () => {
-		expect(() => forecastFromWeeklySupply([], [{ crop: 'kale', week: '2027-W24', quantity: -1 }])).toThrow(/targets\[0\]\.quantity/);
+		expect(() => forecastFromWeeklySupply([], [{ crop: 'kale', week: '2027-W24', quantity: -1 }])).toThrow(
+			/targets\[0\]\.quantity/
+		);
 	});
 });

@@ -13,7 +13,11 @@ describe('a file written in one locale reads back as the numbers it shows', () =
 		it(`${locale}: the decimal mark is found from the file, every value reads back exactly`, () => {
 			fc.assert(
 				fc.property(fc.array(fc.integer({ min: 0, max: 99_999_999 }), { minLength: 1, maxLength: 30 }), (cents) => {
-					const nf = new Intl.NumberFormat(locale, { minimumFractionDigits: 2, maximumFractionDigits: 2, useGrouping: true });
+					const nf = new Intl.NumberFormat(locale, {
+						minimumFractionDigits: 2,
+						maximumFractionDigits: 2,
+						useGrouping: true
+					});
 					const texts = [...cents.map((c) => nf.format(c / 100)), nf.format(1.5)];
 					expect(detectDecimal(texts)).toBe(mark);
 					texts.forEach((t, i) => {

@@ -22,7 +22,9 @@ describe('new password strength', () => {
 
 	it('keeps the length rules, with their own messages', () => {
 		expect(newPassword.safeParse('short').error?.issues[0].message).toBe('Password must be at least 10 characters.');
-		expect(newPassword.safeParse('x'.repeat(201)).error?.issues[0].message).toBe('Password must be at most 200 characters.');
+		expect(newPassword.safeParse('x'.repeat(201)).error?.issues[0].message).toBe(
+			'Password must be at most 200 characters.'
+		);
 	});
 
 	it('accepts the demo password and a few unrelated words', () => {

@@ -5,7 +5,10 @@ import { describe, expect, it } from 'vitest';
 import { starterCrops } from '../../src/lib/server/starter-library';
 import { cropFields, cropSchema, formValue, varietyFields, varietySchema } from '../../src/lib/schemas/crop';
 
-const asForm = (fields: Record<string, Parameters<typeof formValue>[0]>, values: Record<string, unknown>): Record<string, string> =>
+const asForm = (
+	fields: Record<string, Parameters<typeof formValue>[0]>,
+	values: Record<string, unknown>
+): Record<string, string> =>
 	Object.fromEntries(Object.entries(fields).map(([k, spec]) => [k, formValue(spec, values[k])]));
 
 describe('starter library', () => {
@@ -17,7 +20,7 @@ describe('starter library', () => {
 		expect(new Set(starterCrops.map((c) => c.key)).size).toBe(starterCrops.length);
 	});
 
-	it('passes the crop library\'s own schemas, crop and variety, and keeps every figure through the form', () => {
+	it("passes the crop library's own schemas, crop and variety, and keeps every figure through the form", () => {
 		for (const c of starterCrops) {
 			const crop = cropSchema.safeParse(asForm(cropFields, { harvestCurve: 'flat', ...c, price: null }));
 			expect(crop.success, `${c.name}: ${JSON.stringify(crop.error?.issues)}`).toBe(true);
@@ -56,7 +59,15 @@ describe('starter library', () => {
 
 	it('keeps handbook days to maturity inside the published ranges', () => {
 		// Source: University of Illinois Extension vegetable guide; Kansas State MF-315 (ranges as in the table).
-		const ranges: Record<string, [number, number]> = { carrot: [65, 75], beet: [52, 70], radish: [22, 28], spinach: [45, 45], kale: [50, 60], bean: [51, 58], onion: [90, 110] };
+		const ranges: Record<string, [number, number]> = {
+			carrot: [65, 75],
+			beet: [52, 70],
+			radish: [22, 28],
+			spinach: [45, 45],
+			kale: [50, 60],
+			bean: [51, 58],
+			onion: [90, 110]
+		};
 		for (const [key, [lo, hi]] of Object.entries(ranges)) {
 			const c = starterCrops.find((x) => x.key === key)!;
 			const direct = c.varieties.filter((v) => v.method === 'direct' || key === 'kale' || key === 'onion');

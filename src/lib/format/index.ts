@@ -24,7 +24,11 @@ const numberFormats = new Map<string, Intl.NumberFormat>();
 function nf(max: number, min = 0): Intl.NumberFormat {
 	const key = `${min}-${max}`;
 	let f = numberFormats.get(key);
-	if (!f) numberFormats.set(key, (f = new Intl.NumberFormat(LOCALE, { maximumFractionDigits: max, minimumFractionDigits: min })));
+	if (!f)
+		numberFormats.set(
+			key,
+			(f = new Intl.NumberFormat(LOCALE, { maximumFractionDigits: max, minimumFractionDigits: min }))
+		);
 	return f;
 }
 
@@ -174,9 +178,29 @@ export function formatDateTime(at: string | Date, timeZone: string): string {
 	const d = typeof at === 'string' ? new Date(at) : at;
 	if (Number.isNaN(d.getTime())) return '–';
 	try {
-		return new Intl.DateTimeFormat('en-GB', { timeZone, weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hour12: false }).format(d);
+		return new Intl.DateTimeFormat('en-GB', {
+			timeZone,
+			weekday: 'short',
+			day: 'numeric',
+			month: 'short',
+			year: 'numeric',
+			hour: '2-digit',
+			minute: '2-digit',
+			hour12: false
+		}).format(d);
 	} catch {
-		return new Intl.DateTimeFormat('en-GB', { timeZone: 'UTC', weekday: 'short', day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', hour12: false }).format(d) + ' UTC';
+		return (
+			new Intl.DateTimeFormat('en-GB', {
+				timeZone: 'UTC',
+				weekday: 'short',
+				day: 'numeric',
+				month: 'short',
+				year: 'numeric',
+				hour: '2-digit',
+				minute: '2-digit',
+				hour12: false
+			}).format(d) + ' UTC'
+		);
 	}
 }
 
@@ -184,5 +208,11 @@ export function formatDateTime(at: string | Date, timeZone: string): string {
 export function formatDay(date: string, withYear = false): string {
 	const d = new Date(`${date}T12:00:00Z`);
 	if (Number.isNaN(d.getTime())) return date;
-	return new Intl.DateTimeFormat('en-GB', { timeZone: 'UTC', weekday: 'short', day: 'numeric', month: 'short', ...(withYear ? { year: 'numeric' } : {}) }).format(d);
+	return new Intl.DateTimeFormat('en-GB', {
+		timeZone: 'UTC',
+		weekday: 'short',
+		day: 'numeric',
+		month: 'short',
+		...(withYear ? { year: 'numeric' } : {})
+	}).format(d);
 }

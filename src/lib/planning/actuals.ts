@@ -122,7 +122,18 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	});
 
 	const plantings: PlantingActual[] = input.plantings.map((p) => {
-		const rows = forecast([{ crop: p.crop, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.bedFeet, yieldPerBedFoot: p.yieldPerBedFoot }], []);
+		const rows = forecast(
+			[
+				{
+					crop: p.crop,
+					firstHarvest: p.firstHarvest,
+					lastHarvest: p.lastHarvest,
+					bedFeet: p.bedFeet,
+					yieldPerBedFoot: p.yieldPerBedFoot
+				}
+			],
+			[]
+		);
 		const soFar = rows.filter((r) => weekStart(r.week) < currentMonday).reduce((n, r) => n + r.supply, 0);
 		const logged = loggedByPlanting.get(p.key) ?? 0;
 		const first = p.actualFirstHarvest ?? firstLogged.get(p.key) ?? null;
@@ -143,22 +154,38 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	});
 
 	const supply = forecast(
-		input.plantings.map((p) => ({ crop: p.crop, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.bedFeet, yieldPerBedFoot: p.yieldPerBedFoot })),
+		input.plantings.map((p) => ({
+			crop: p.crop,
+			firstHarvest: p.firstHarvest,
+			lastHarvest: p.lastHarvest,
+			bedFeet: p.bedFeet,
+			yieldPerBedFoot: p.yieldPerBedFoot
+		})),
 		[]
 	);
 	const cells = new Map<string, { crop: string; week: string; forecast: number; logged: number }>();
-	for (const r of supply) cells.set(`${r.crop}|${r.week}`, { crop: r.crop, week: r.week, forecast: r.supply, logged: 0 });
+	for (const r of supply)
+		cells.set(`${r.crop}|${r.week}`, { crop: r.crop, week: r.week, forecast: r.supply, logged: 0 });
 	for (const [k, q] of loggedByCropWeek) {
 		const [crop, week] = k.split('|');
 		const c = cells.get(k) ?? { crop, week, forecast: 0, logged: 0 };
 		c.logged += q;
 		cells.set(k, c);
 	}
-	const sorted = [...cells.values()].sort((a, b) => (a.crop === b.crop ? (a.week < b.week ? -1 : 1) : a.crop < b.crop ? -1 : 1));
+	const sorted = [...cells.values()].sort((a, b) =>
+		a.crop === b.crop ? (a.week < b.week ? -1 : 1) : a.crop < b.crop ? -1 : 1
+	);
 
 	const crops = new Map<string, CropActual>();
 	for (const c of sorted) {
-		const t = crops.get(c.crop) ?? { crop: c.crop, forecastSoFar: 0, loggedSoFar: 0, ratio: null, forecastRest: 0, adjustedRest: 0 };
+		const t = crops.get(c.crop) ?? {
+			crop: c.crop,
+			forecastSoFar: 0,
+			loggedSoFar: 0,
+			ratio: null,
+			forecastRest: 0,
+			adjustedRest: 0
+		};
 		if (weekStart(c.week) < currentMonday) {
 			t.forecastSoFar += c.forecast;
 			t.loggedSoFar += c.logged;
@@ -172,7 +199,12 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	const weeks: CropWeekActual[] = sorted.map((c) => {
 		const past = weekStart(c.week) < currentMonday;
 		const ratio = crops.get(c.crop)!.ratio;
-		return { ...c, pctOfForecast: c.forecast > 0 ? (c.logged / c.forecast) * 100 : null, past, adjusted: past ? null : c.forecast * (ratio ?? 1) };
+		return {
+			...c,
+			pctOfForecast: c.forecast > 0 ? (c.logged / c.forecast) * 100 : null,
+			past,
+			adjusted: past ? null : c.forecast * (ratio ?? 1)
+		};
 	});
 
 	const vars = new Map<string, { crop: string; feet: number; logged: number; n: number; dtm: number[] }>();

@@ -18,7 +18,11 @@ export interface BedConflict {
  * turnaroundDays]. Each overlap is reported on both plantings. Per bed, a sweep
  * in field-date order compares a planting only with those still in the ground.
  */
-export function checkBedConflicts(plantings: BedPlanting[], beds: Bed[], turnaroundDays = DEFAULT_TURNAROUND_DAYS): BedConflict[] {
+export function checkBedConflicts(
+	plantings: BedPlanting[],
+	beds: Bed[],
+	turnaroundDays = DEFAULT_TURNAROUND_DAYS
+): BedConflict[] {
 	requireNonNegativeInteger('turnaroundDays', turnaroundDays);
 	const bedById = new Map(beds.map((b) => [b.id, b]));
 	const out: BedConflict[] = [];

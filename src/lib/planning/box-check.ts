@@ -33,5 +33,7 @@ export function checkBoxes(rows: ForecastRow[], input: TargetInput): BoxCheck[] 
 			box.short.push({ crop: item.crop, fillRatio: fill });
 		}
 	}
-	return [...boxes.values()].sort((a, b) => (a.week < b.week ? -1 : a.week > b.week ? 1 : a.shareSizeId < b.shareSizeId ? -1 : 1));
+	return [...boxes.values()].sort((a, b) =>
+		a.week < b.week ? -1 : a.week > b.week ? 1 : a.shareSizeId < b.shareSizeId ? -1 : 1
+	);
 }

@@ -8,7 +8,6 @@ import { PlanningInputError, itemField } from './errors';
  */
 export type DayNumber = number;
 
-
 export function daysFromCivil(year: number, month: number, day: number): DayNumber {
 	const y = month <= 2 ? year - 1 : year;
 	const era = Math.floor(y / 400);
@@ -77,7 +76,8 @@ export function toDayNumber(date: string | Date, field = 'date'): DayNumber {
 	const m1 = digit(date, 6);
 	const d0 = digit(date, 8);
 	const d1 = digit(date, 9);
-	if ((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1) < 0) throw new PlanningInputError(field, `must be a YYYY-MM-DD date (got ${date})`);
+	if ((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1) < 0)
+		throw new PlanningInputError(field, `must be a YYYY-MM-DD date (got ${date})`);
 	const year = y0 * 1000 + y1 * 100 + y2 * 10 + y3;
 	const month = m0 * 10 + m1;
 	const day = d0 * 10 + d1;

@@ -58,7 +58,15 @@ function dayLengthAt(latitude: number, doy: number): number {
 
 /** An empty record for effectiveDaysInto to fill. */
 export function blankDtm(): EffectiveDtm {
-	return { days: 0, source: 'variety', varietyDays: 0, dayLengthHours: 0, thresholdHours: 0, allowanceDays: 0, warnings: [] };
+	return {
+		days: 0,
+		source: 'variety',
+		varietyDays: 0,
+		dayLengthHours: 0,
+		thresholdHours: 0,
+		allowanceDays: 0,
+		warnings: []
+	};
 }
 
 /**
@@ -66,7 +74,12 @@ export function blankDtm(): EffectiveDtm {
  * before): season planning reuses one record per variety instead of making one per
  * succession. A caller that keeps `out.warnings` must take it before the next call.
  */
-export function effectiveDaysInto(out: EffectiveDtm, variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
+export function effectiveDaysInto(
+	out: EffectiveDtm,
+	variety: Variety,
+	firstHarvest: DayNumber,
+	ctx: DtmContext
+): EffectiveDtm {
 	const dl = dayLengthAt(ctx.latitude, dayOfYearOfDay(firstHarvest));
 	if (out.warnings.length > 0) out.warnings = [];
 	const warnings = out.warnings;

@@ -9,11 +9,13 @@ import { PlanningInputError } from './errors';
 export type EmergenceTable = readonly (readonly [soilTempF: number, days: number])[];
 
 export function emergenceDays(table: EmergenceTable, soilTempF: number): number | null {
-	if (!Array.isArray(table) || table.length === 0) throw new PlanningInputError('table', 'needs at least one (soil °F, days) point');
+	if (!Array.isArray(table) || table.length === 0)
+		throw new PlanningInputError('table', 'needs at least one (soil °F, days) point');
 	if (!Number.isFinite(soilTempF)) throw new PlanningInputError('soilTempF', 'must be a number');
 	const points = [...table].sort((a, b) => a[0] - b[0]);
 	for (const [i, [t, d]] of points.entries()) {
-		if (!Number.isFinite(t) || !(d > 0)) throw new PlanningInputError(`table[${i}]`, 'must be a soil °F and a positive number of days');
+		if (!Number.isFinite(t) || !(d > 0))
+			throw new PlanningInputError(`table[${i}]`, 'must be a soil °F and a positive number of days');
 	}
 	if (soilTempF < points[0][0] || soilTempF > points[points.length - 1][0]) return null;
 	for (let i = 1; i < points.length; i++) {

@@ -34,13 +34,35 @@ export function explainSeed(input: SeedNeedInput): ExplainStep[] {
 				unit: 'cells',
 				formula: `ceil(${r.spots} plants ÷ ${pct(input.germinationRate)} germination × (1 + ${pct(input.margin)} margin))`
 			},
-			{ label: 'trays', value: r.trays, unit: 'trays', formula: `ceil(${r.cells} cells ÷ ${input.cellsPerTray} per tray)` },
+			{
+				label: 'trays',
+				value: r.trays,
+				unit: 'trays',
+				formula: `ceil(${r.cells} cells ÷ ${input.cellsPerTray} per tray)`
+			},
 			{ label: 'seeds', value: r.seeds, unit: 'seeds', formula: `${r.cells} cells × ${input.seedsPerSpot} per cell` }
 		);
 	}
-	steps.push({ label: 'seed weight', value: r.grams, unit: 'g', formula: `${r.seeds} seeds ÷ ${input.seedsPerGram} per g, rounded up to 0.01 g` });
-	if (r.packets !== undefined) steps.push({ label: 'packets', value: r.packets, unit: 'packets', formula: `ceil(${r.seeds} ÷ ${input.seedsPerPacket} seeds per packet)` });
-	if (r.costCents !== undefined) steps.push({ label: 'seed cost', value: r.costCents, unit: '¢', formula: `${r.grams} g × ${input.seedPriceCentsPerGram} ¢/g` });
+	steps.push({
+		label: 'seed weight',
+		value: r.grams,
+		unit: 'g',
+		formula: `${r.seeds} seeds ÷ ${input.seedsPerGram} per g, rounded up to 0.01 g`
+	});
+	if (r.packets !== undefined)
+		steps.push({
+			label: 'packets',
+			value: r.packets,
+			unit: 'packets',
+			formula: `ceil(${r.seeds} ÷ ${input.seedsPerPacket} seeds per packet)`
+		});
+	if (r.costCents !== undefined)
+		steps.push({
+			label: 'seed cost',
+			value: r.costCents,
+			unit: '¢',
+			formula: `${r.grams} g × ${input.seedPriceCentsPerGram} ¢/g`
+		});
 	return steps;
 }
 
@@ -66,7 +88,12 @@ export function explainDates(s: Succession): ExplainStep[] {
 			formula: `CBM model (Forsythe et al. 1995); threshold ${d.thresholdHours} h`
 		});
 		if (d.source === 'short_day') {
-			steps.push({ label: 'short-day allowance', value: d.allowanceDays, unit: 'days', formula: `day length under ${d.thresholdHours} h at maturity` });
+			steps.push({
+				label: 'short-day allowance',
+				value: d.allowanceDays,
+				unit: 'days',
+				formula: `day length under ${d.thresholdHours} h at maturity`
+			});
 		}
 		steps.push({ label: 'effective days to maturity', value: d.days, unit: 'days' });
 	}
@@ -77,9 +104,17 @@ export function explainDates(s: Succession): ExplainStep[] {
 	});
 	if (s.traySowDate !== undefined) {
 		const trayDays = daysBetween(s.traySowDate, s.fieldDate);
-		steps.push({ label: 'tray sowing', value: formatWeekDate(s.traySowDate), formula: `transplant date − ${trayDays} days in tray` });
+		steps.push({
+			label: 'tray sowing',
+			value: formatWeekDate(s.traySowDate),
+			formula: `transplant date − ${trayDays} days in tray`
+		});
 	}
-	steps.push({ label: 'last harvest', value: formatWeekDate(s.lastHarvest), formula: `first harvest + ${s.harvestWindowDays} − 1 days` });
+	steps.push({
+		label: 'last harvest',
+		value: formatWeekDate(s.lastHarvest),
+		formula: `first harvest + ${s.harvestWindowDays} − 1 days`
+	});
 	return steps;
 }
 
@@ -95,7 +130,11 @@ export function explainBedFeet(s: Succession): ExplainStep[] {
 		{ label: `peak target (${b.peakWeek})`, value: b.peakQuantity, formula: `largest need among ${s.weeks.join(', ')}` }
 	];
 	if (b.peakWeekDays < 7) {
-		steps.push({ label: 'supply per bed-foot that week', value: Number(b.peakSupplyPerFt.toFixed(4)), formula: `window covers only ${b.peakWeekDays} days of the week` });
+		steps.push({
+			label: 'supply per bed-foot that week',
+			value: Number(b.peakSupplyPerFt.toFixed(4)),
+			formula: `window covers only ${b.peakWeekDays} days of the week`
+		});
 	}
 	steps.push(
 		{
@@ -105,7 +144,11 @@ export function explainBedFeet(s: Succession): ExplainStep[] {
 			formula: `${b.peakQuantity} ÷ ${Number(b.peakSupplyPerFt.toFixed(4))} per ft × (1 + ${b.margin} margin)`
 		},
 		{ label: 'bed-feet', value: s.bedFeet, unit: 'ft', formula: `rounded up to a multiple of ${b.increment} ft` },
-		{ label: 'weekly yield', value: Number(s.weeklyYield.toFixed(3)), formula: `${s.bedFeet} ft × ${Number(b.weeklyYieldPerFt.toFixed(4))} per ft per week` }
+		{
+			label: 'weekly yield',
+			value: Number(s.weeklyYield.toFixed(3)),
+			formula: `${s.bedFeet} ft × ${Number(b.weeklyYieldPerFt.toFixed(4))} per ft per week`
+		}
 	);
 	return steps;
 }

@@ -70,7 +70,8 @@ export function harvestWindow(p: ForecastPlanting, field = 'planting'): Window {
 	if (b < a) throw new PlanningInputError(`${field}.lastHarvest`, 'is before firstHarvest');
 	let perDay: number;
 	let n = b - a + 1;
-	if (p.windowDays !== undefined && p.windowDays > n) n = requirePositive(`${field}.windowDays`, Math.floor(p.windowDays));
+	if (p.windowDays !== undefined && p.windowDays > n)
+		n = requirePositive(`${field}.windowDays`, Math.floor(p.windowDays));
 	if (p.bedFeet !== undefined && p.yieldPerBedFoot !== undefined) {
 		requireNonNegative(`${field}.bedFeet`, p.bedFeet);
 		requireNonNegative(`${field}.yieldPerBedFoot`, p.yieldPerBedFoot);
@@ -137,7 +138,10 @@ export function forecastFromWeeklySupply(weekly: CropWeekQuantity[], targets: Cr
 }
 
 /** One row per crop and week with supply or demand, sorted by crop then week. */
-function rowsOf(supply: Map<string, Map<DayNumber, number>>, demand: Map<string, Map<DayNumber, number>>): ForecastRow[] {
+function rowsOf(
+	supply: Map<string, Map<DayNumber, number>>,
+	demand: Map<string, Map<DayNumber, number>>
+): ForecastRow[] {
 	const weekName = new Map<DayNumber, string>();
 	const nameOf = (m: DayNumber): string => {
 		let s = weekName.get(m);
@@ -153,7 +157,14 @@ function rowsOf(supply: Map<string, Map<DayNumber, number>>, demand: Map<string,
 		for (const m of mondays) {
 			const s = sm?.get(m) ?? 0;
 			const d = dm?.get(m) ?? 0;
-			rows.push({ crop, week: nameOf(m), supply: s, demand: d, shortfall: Math.max(0, d - s), surplus: Math.max(0, s - d) });
+			rows.push({
+				crop,
+				week: nameOf(m),
+				supply: s,
+				demand: d,
+				shortfall: Math.max(0, d - s),
+				surplus: Math.max(0, s - d)
+			});
 		}
 	}
 	return rows;

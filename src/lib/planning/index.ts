@@ -42,7 +42,13 @@ export {
 	type SuccessionBasis,
 	sizingLp
 } from './successions';
-export { type HarvestCurve, type HarvestCurveShape, cumulativeWeights, dailyWeights, validateCurve } from './harvest-curve';
+export {
+	type HarvestCurve,
+	type HarvestCurveShape,
+	cumulativeWeights,
+	dailyWeights,
+	validateCurve
+} from './harvest-curve';
 export type { Bed, BedPlanting } from './bed-types';
 export {
 	placePlantings,

@@ -1,5 +1,13 @@
 import { PlanningInputError, itemField } from './errors';
-import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber, toDayNumber, weekdayOf, yearOfDay } from './day-number';
+import {
+	type DayNumber,
+	civilFromDays,
+	daysFromCivil,
+	fromDayNumber,
+	toDayNumber,
+	weekdayOf,
+	yearOfDay
+} from './day-number';
 
 /**
  * ISO 8601 weeks: weeks start on Monday and week 1 is the week holding the
@@ -21,7 +29,8 @@ function pad2(n: number): string {
  * makes parses again and sorts as text. A year outside 0–9999 has no such key: refused.
  */
 export function yearKey(year: number): string {
-	if (!Number.isInteger(year) || year < 0 || year > 9999) throw new PlanningInputError('week', `year ${year} cannot be written as a four-digit ISO week key`);
+	if (!Number.isInteger(year) || year < 0 || year > 9999)
+		throw new PlanningInputError('week', `year ${year} cannot be written as a four-digit ISO week key`);
 	return String(year).padStart(4, '0');
 }
 

@@ -109,19 +109,41 @@ export function matchBoxes(rows: ForecastRow[], input: TargetInput, opts: { shor
 		if (!share || item.week < share.firstWeek || item.week > share.lastWeek || item.quantity <= 0) continue;
 		const k = key(item.week, item.shareSizeId);
 		let box = boxes.get(k);
-		if (!box) boxes.set(k, (box = { shareSizeId: share.id, week: item.week, members: share.members, items: [], fill: 1, fillable: true }));
+		if (!box)
+			boxes.set(
+				k,
+				(box = { shareSizeId: share.id, week: item.week, members: share.members, items: [], fill: 1, fillable: true })
+			);
 		const row = byCropWeek.get(key(item.crop, item.week));
 		const supply = row?.supply ?? 0;
 		const demand = row?.demand ?? share.members * item.quantity;
 		const fill = demand > 0 ? Math.min(1, supply / demand) : 1;
-		box.items.push({ crop: item.crop, perBox: item.quantity, need: share.members * item.quantity, supply, demand, fill, short: fill < shortBelow - EPS });
+		box.items.push({
+			crop: item.crop,
+			perBox: item.quantity,
+			need: share.members * item.quantity,
+			supply,
+			demand,
+			fill,
+			short: fill < shortBelow - EPS
+		});
 	}
 	const out = [...boxes.values()];
 	for (const b of out) {
 		b.fill = b.items.reduce((t, i) => t + i.fill, 0) / b.items.length;
 		b.fillable = b.items.every((i) => !i.short);
 	}
-	return out.sort((a, b) => (a.week < b.week ? -1 : a.week > b.week ? 1 : a.shareSizeId < b.shareSizeId ? -1 : a.shareSizeId > b.shareSizeId ? 1 : 0));
+	return out.sort((a, b) =>
+		a.week < b.week
+			? -1
+			: a.week > b.week
+				? 1
+				: a.shareSizeId < b.shareSizeId
+					? -1
+					: a.shareSizeId > b.shareSizeId
+						? 1
+						: 0
+	);
 }
 
 /**
@@ -158,7 +180,14 @@ export function suggestSubstitutes(
 		if (toUnit === unit) {
 			const quantity = tidy(Math.min(want, most));
 			if (quantity <= 0) continue;
-			out.push({ crop: r.crop, quantity, fromQuantity: quantity, byValue: false, surplus: r.surplus, covers: box.members * quantity >= shortfall - EPS });
+			out.push({
+				crop: r.crop,
+				quantity,
+				fromQuantity: quantity,
+				byValue: false,
+				surplus: r.surplus,
+				covers: box.members * quantity >= shortfall - EPS
+			});
 			continue;
 		}
 		const toPrice = priceOf(r.crop);
@@ -167,10 +196,25 @@ export function suggestSubstitutes(
 		const quantity = tidy(Math.min(most, Math.max(toStep, Math.round((want * fromPrice) / toPrice / toStep) * toStep)));
 		if (quantity <= 0) continue;
 		// What that quantity is worth in the short item, rounded down to its step and at most what the box holds.
-		const fromQuantity = tidy(Math.min(item.perBox, Math.max(step, Math.floor((quantity * toPrice) / fromPrice / step + EPS) * step)));
-		out.push({ crop: r.crop, quantity, fromQuantity, byValue: true, surplus: r.surplus, covers: box.members * fromQuantity >= shortfall - EPS });
+		const fromQuantity = tidy(
+			Math.min(item.perBox, Math.max(step, Math.floor((quantity * toPrice) / fromPrice / step + EPS) * step))
+		);
+		out.push({
+			crop: r.crop,
+			quantity,
+			fromQuantity,
+			byValue: true,
+			surplus: r.surplus,
+			covers: box.members * fromQuantity >= shortfall - EPS
+		});
 	}
-	out.sort((a, b) => Number(b.covers) - Number(a.covers) || Number(a.byValue) - Number(b.byValue) || b.surplus - a.surplus || (a.crop < b.crop ? -1 : 1));
+	out.sort(
+		(a, b) =>
+			Number(b.covers) - Number(a.covers) ||
+			Number(a.byValue) - Number(b.byValue) ||
+			b.surplus - a.surplus ||
+			(a.crop < b.crop ? -1 : 1)
+	);
 	return out.slice(0, limit);
 }
 
@@ -197,7 +241,9 @@ export function summarizeMatching(boxes: MatchedBox[], rows: ForecastRow[]): Mat
 		weeks: weekOk.size,
 		weeksFilled: [...weekOk.values()].filter(Boolean).length,
 		averageFill: boxes.length ? boxes.reduce((t, b) => t + b.fill, 0) / boxes.length : 1,
-		surplusByCrop: [...surplus].map(([crop, s]) => ({ crop, surplus: s })).sort((a, b) => b.surplus - a.surplus || (a.crop < b.crop ? -1 : 1))
+		surplusByCrop: [...surplus]
+			.map(([crop, s]) => ({ crop, surplus: s }))
+			.sort((a, b) => b.surplus - a.surplus || (a.crop < b.crop ? -1 : 1))
 	};
 }
 
@@ -215,7 +261,11 @@ export interface ActualHarvest {
  * of its forecast share. Plantings with nothing logged keep their forecast. Returns the supply
  * and which crop-weeks hold actual figures.
  */
-export function supplyWithActuals(plantings: ForecastPlanting[], actuals: ActualHarvest[], beforeWeek: string): { supply: CropWeekQuantity[]; actual: Set<string> } {
+export function supplyWithActuals(
+	plantings: ForecastPlanting[],
+	actuals: ActualHarvest[],
+	beforeWeek: string
+): { supply: CropWeekQuantity[]; actual: Set<string> } {
 	const logged = new Map<string, { crop: string; week: string; quantity: number }>();
 	for (const a of actuals) {
 		const week = isoWeek(a.date);

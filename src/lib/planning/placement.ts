@@ -1,7 +1,13 @@
 import { BedIndex } from './bed-index';
 import { type FlatOccupancies, firstGap, gap, instant, instantGap } from './bed-gaps';
 import { type Bed, type BedPlanting, DEFAULT_TURNAROUND_DAYS, FT_EPSILON } from './bed-types';
-import { PlanningInputError, itemField, requireNonNegativeInteger, requirePositive, requirePositiveItem } from './errors';
+import {
+	PlanningInputError,
+	itemField,
+	requireNonNegativeInteger,
+	requirePositive,
+	requirePositiveItem
+} from './errors';
 import { toDayNumber, toDayNumberItem } from './day-number';
 import type { WarningCode } from './types';
 
@@ -156,7 +162,11 @@ function validateBeds(beds: Bed[]): Map<string, number> {
  * single bed has room it may be split into pieces across beds; what still does
  * not fit is listed in `unplaced` with the reason. Fixed plantings are obstacles.
  */
-export function placePlantings(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): PlacementResult {
+export function placePlantings(
+	plantings: PlacementRequest[],
+	beds: Bed[],
+	options: PlacementOptions = {}
+): PlacementResult {
 	const p = placeIndexed(plantings, beds, options);
 	const placed: PlacedRange[] = p.placedFrom.map((from, i) => ({
 		plantingKey: plantings[from].key,
@@ -217,22 +227,42 @@ export interface PlacementSetup {
 export function preparePlacement(beds: Bed[], options: PlacementOptions = {}): PlacementSetup {
 	const bedIndexById = validateBeds(beds);
 	const turnaround =
-		options.turnaroundDays === undefined ? DEFAULT_TURNAROUND_DAYS : requireNonNegativeInteger('options.turnaroundDays', options.turnaroundDays);
+		options.turnaroundDays === undefined
+			? DEFAULT_TURNAROUND_DAYS
+			: requireNonNegativeInteger('options.turnaroundDays', options.turnaroundDays);
 	const allowSplit = options.allowSplit ?? true;
 	const minPiece = options.minPieceFt === undefined ? 10 : requirePositive('options.minPieceFt', options.minPieceFt);
 	const prev = options.previousFamilyByBed ?? {};
 	const placer = new Placer(beds, prev);
-	const result: IndexedPlacement = { placedFrom: [], placedBed: [], placedStart: [], placedLength: [], unplaced: [], unplacedFrom: [], warnings: [], noteFrom: [] };
+	const result: IndexedPlacement = {
+		placedFrom: [],
+		placedBed: [],
+		placedStart: [],
+		placedLength: [],
+		unplaced: [],
+		unplacedFrom: [],
+		warnings: [],
+		noteFrom: []
+	};
 
 	for (const f of options.fixed ?? []) {
 		const b = bedIndexById.get(f.bedId);
 		if (b === undefined) {
-			result.warnings.push({ plantingKey: f.key, code: 'unknown_bed', message: `Fixed planting ${f.key} names unknown bed ${f.bedId}; ignored as an obstacle.` });
+			result.warnings.push({
+				plantingKey: f.key,
+				code: 'unknown_bed',
+				message: `Fixed planting ${f.key} names unknown bed ${f.bedId}; ignored as an obstacle.`
+			});
 			result.noteFrom.push(-1);
 			continue;
 		}
 		const s = toDayNumber(f.fieldDate, `fixed ${f.key}.fieldDate`);
-		placer.states[b].occ.push(s, toDayNumber(f.lastHarvest, `fixed ${f.key}.lastHarvest`) + turnaround + 1, f.startFt, f.startFt + f.lengthFt);
+		placer.states[b].occ.push(
+			s,
+			toDayNumber(f.lastHarvest, `fixed ${f.key}.lastHarvest`) + turnaround + 1,
+			f.startFt,
+			f.startFt + f.lengthFt
+		);
 	}
 	const maxBedFt = beds.reduce((m, b) => Math.max(m, b.lengthFt), 0);
 	return { beds, placer, turnaround, allowSplit, minPiece, maxBedFt, result };
@@ -242,7 +272,11 @@ export function preparePlacement(beds: Bed[], options: PlacementOptions = {}): P
  * placePlantings with request indices instead of keys (see IndexedPlacement), so a
  * caller finds its own record for each range without a lookup by key.
  */
-export function placeIndexed(plantings: PlacementRequest[], beds: Bed[], options: PlacementOptions = {}): IndexedPlacement {
+export function placeIndexed(
+	plantings: PlacementRequest[],
+	beds: Bed[],
+	options: PlacementOptions = {}
+): IndexedPlacement {
 	const setup = preparePlacement(beds, options);
 	const jobs: PlacementJobs = {
 		count: plantings.length,
@@ -275,7 +309,8 @@ export function placeJobs(setup: PlacementSetup, jobs: PlacementJobs): IndexedPl
 	const ends: number[] = new Array<number>(n).fill(0);
 	for (let i = 0; i < n; i++) {
 		requirePositiveItem('plantings', i, 'bedFeet', jobs.bedFeet[i]);
-		if (jobs.lastDays[i] < jobs.fieldDays[i]) throw new PlanningInputError(itemField('plantings', i, 'lastHarvest'), 'is before the field date');
+		if (jobs.lastDays[i] < jobs.fieldDays[i])
+			throw new PlanningInputError(itemField('plantings', i, 'lastHarvest'), 'is before the field date');
 		ends[i] = jobs.lastDays[i] + setup.turnaround + 1;
 	}
 	const order = byFieldDay(jobs.fieldDays);
@@ -365,12 +400,18 @@ function placeOne(jobs: PlacementJobs, order: number, s: number, e: number, ctx:
 	}
 	for (let k = 0; k < count; k++) {
 		placed(result, order, pieceBed[k], pieceFrom[k], pieceTo[k] - pieceFrom[k]);
-		if (placer.heldFamily(pieceBed[k], family)) note(ctx, order, rotationNote(jobs.keyOf(order), family, beds[pieceBed[k]].id));
+		if (placer.heldFamily(pieceBed[k], family))
+			note(ctx, order, rotationNote(jobs.keyOf(order), family, beds[pieceBed[k]].id));
 	}
 	if (count > 1) {
 		let list = '';
-		for (let k = 0; k < count; k++) list += `${k > 0 ? ', ' : ''}${beds[pieceBed[k]].id} ${pieceTo[k] - pieceFrom[k]} ft`;
-		note(ctx, order, { plantingKey: jobs.keyOf(order), code: 'split_across_beds', message: `${bedFeet} ft split into ${count} pieces: ${list}.` });
+		for (let k = 0; k < count; k++)
+			list += `${k > 0 ? ', ' : ''}${beds[pieceBed[k]].id} ${pieceTo[k] - pieceFrom[k]} ft`;
+		note(ctx, order, {
+			plantingKey: jobs.keyOf(order),
+			code: 'split_across_beds',
+			message: `${bedFeet} ft split into ${count} pieces: ${list}.`
+		});
 	}
 }
 

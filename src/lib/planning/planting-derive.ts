@@ -64,8 +64,14 @@ function contextOf(farm: DeriveFarm): Context {
 	if (!c) {
 		c = {
 			farm,
-			temps: farm.weeklyMeanTempF && Object.keys(farm.weeklyMeanTempF).length > 0 ? makeTempLookup(farm.weeklyMeanTempF) : undefined,
-			frost: { last: toDayNumber(farm.lastSpringFrost, 'farm.lastSpringFrost'), first: toDayNumber(farm.firstFallFrost, 'farm.firstFallFrost') }
+			temps:
+				farm.weeklyMeanTempF && Object.keys(farm.weeklyMeanTempF).length > 0
+					? makeTempLookup(farm.weeklyMeanTempF)
+					: undefined,
+			frost: {
+				last: toDayNumber(farm.lastSpringFrost, 'farm.lastSpringFrost'),
+				first: toDayNumber(farm.firstFallFrost, 'farm.firstFallFrost')
+			}
 		};
 		contexts.set(farm, c);
 	}
@@ -89,7 +95,12 @@ export function seedInputOf(p: DeriveInput, v: Variety): SeedNeedInput {
 }
 
 /** Dates, yield, seed, frost/heat warnings and the explanation of one planting. Throws PlanningInputError on bad input. */
-export function derivePlanting(p: DeriveInput, v: Variety, farm: DeriveFarm, opts: { explain?: boolean } = {}): DerivedPlanting {
+export function derivePlanting(
+	p: DeriveInput,
+	v: Variety,
+	farm: DeriveFarm,
+	opts: { explain?: boolean } = {}
+): DerivedPlanting {
 	const ctx = contextOf(farm);
 	const field = toDayNumber(p.fieldDate, 'fieldDate');
 	const dtmCtx = {
@@ -113,7 +124,14 @@ export function derivePlanting(p: DeriveInput, v: Variety, farm: DeriveFarm, opt
 	const weeklyYield = Math.round((expectedYield / (v.harvestWindowDays / 7)) * 100) / 100;
 	const seedInput = seedInputOf(p, v);
 	const seed = seedNeed(seedInput);
-	const warnings = [...dtm.warnings, ...successionWarnings(v, field, first, last, { lastSpringFrost: ctx.frost.last, firstFallFrost: ctx.frost.first, temps: ctx.temps })];
+	const warnings = [
+		...dtm.warnings,
+		...successionWarnings(v, field, first, last, {
+			lastSpringFrost: ctx.frost.last,
+			firstFallFrost: ctx.frost.first,
+			temps: ctx.temps
+		})
+	];
 	const fieldLabel = p.method === 'direct' ? 'sowing date' : 'transplant date';
 	const out: DerivedPlanting = {
 		traySowDate: tray === null ? null : fromDayNumber(tray),
@@ -132,16 +150,48 @@ export function derivePlanting(p: DeriveInput, v: Variety, farm: DeriveFarm, opt
 		{ label: fieldLabel, value: formatWeekDate(p.fieldDate), formula: 'as entered' },
 		{ label: 'days to maturity (variety)', value: dtm.varietyDays, unit: 'days' },
 		dtm.source === 'gdd' && dtm.gdd
-			? { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `degree days: Σ max(0, weekly mean − ${dtm.gdd.baseF} °F) = ${dtm.gdd.accumulated.toFixed(1)} ≥ ${dtm.gdd.required}` }
+			? {
+					label: 'effective days to maturity',
+					value: dtm.days,
+					unit: 'days',
+					formula: `degree days: Σ max(0, weekly mean − ${dtm.gdd.baseF} °F) = ${dtm.gdd.accumulated.toFixed(1)} ≥ ${dtm.gdd.required}`
+				}
 			: dtm.source === 'short_day'
-				? { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `${dtm.varietyDays} + ${dtm.allowanceDays} short-day allowance (day length ${dtm.dayLengthHours.toFixed(2)} h < ${dtm.thresholdHours} h at first harvest)` }
-				: { label: 'effective days to maturity', value: dtm.days, unit: 'days', formula: `variety figure (day length ${dtm.dayLengthHours.toFixed(2)} h at first harvest)` },
-		{ label: 'first harvest', value: formatWeekDate(fromDayNumber(first)), formula: `${fieldLabel} + ${dtm.days} days` },
-		{ label: 'last harvest', value: formatWeekDate(fromDayNumber(last)), formula: `first harvest + ${v.harvestWindowDays} − 1 days` }
+				? {
+						label: 'effective days to maturity',
+						value: dtm.days,
+						unit: 'days',
+						formula: `${dtm.varietyDays} + ${dtm.allowanceDays} short-day allowance (day length ${dtm.dayLengthHours.toFixed(2)} h < ${dtm.thresholdHours} h at first harvest)`
+					}
+				: {
+						label: 'effective days to maturity',
+						value: dtm.days,
+						unit: 'days',
+						formula: `variety figure (day length ${dtm.dayLengthHours.toFixed(2)} h at first harvest)`
+					},
+		{
+			label: 'first harvest',
+			value: formatWeekDate(fromDayNumber(first)),
+			formula: `${fieldLabel} + ${dtm.days} days`
+		},
+		{
+			label: 'last harvest',
+			value: formatWeekDate(fromDayNumber(last)),
+			formula: `first harvest + ${v.harvestWindowDays} − 1 days`
+		}
 	];
-	if (tray !== null) explain.push({ label: 'tray sowing', value: formatWeekDate(fromDayNumber(tray)), formula: `transplant date − ${v.daysInTray ?? 0} days in tray` });
+	if (tray !== null)
+		explain.push({
+			label: 'tray sowing',
+			value: formatWeekDate(fromDayNumber(tray)),
+			formula: `transplant date − ${v.daysInTray ?? 0} days in tray`
+		});
 	explain.push(
-		{ label: 'expected yield', value: expectedYield, formula: `${p.lengthFt} ft × ${v.yieldPerBedFoot} per bed-foot over the window` },
+		{
+			label: 'expected yield',
+			value: expectedYield,
+			formula: `${p.lengthFt} ft × ${v.yieldPerBedFoot} per bed-foot over the window`
+		},
 		{ label: 'weekly yield', value: weeklyYield, formula: `${expectedYield} ÷ (${v.harvestWindowDays} days ÷ 7)` },
 		...explainSeed(seedInput)
 	);
@@ -160,11 +210,22 @@ export interface ConflictRow {
 }
 
 /** Overlap and past-the-bed-end conflicts, keyed by planting id as a string. */
-export function plantingConflicts(rows: ConflictRow[], beds: { id: number | string; lengthFt: number }[], turnaroundDays: number): Map<string, BedConflict[]> {
+export function plantingConflicts(
+	rows: ConflictRow[],
+	beds: { id: number | string; lengthFt: number }[],
+	turnaroundDays: number
+): Map<string, BedConflict[]> {
 	const bp: BedPlanting[] = [];
 	for (const r of rows) {
 		if (r.bedId === null) continue;
-		bp.push({ key: String(r.id), bedId: String(r.bedId), startFt: r.startFt, lengthFt: r.lengthFt, fieldDate: r.fieldDate, lastHarvest: r.lastHarvest });
+		bp.push({
+			key: String(r.id),
+			bedId: String(r.bedId),
+			startFt: r.startFt,
+			lengthFt: r.lengthFt,
+			fieldDate: r.fieldDate,
+			lastHarvest: r.lastHarvest
+		});
 	}
 	const bedList: Bed[] = beds.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt }));
 	const out = new Map<string, BedConflict[]>();

@@ -30,9 +30,11 @@ export function inPlanOrder<T extends Dated>(first: T[], second: T[]): T[] {
 	let i = 0;
 	let j = 0;
 	while (i < first.length || j < second.length) {
-		out.push(j >= second.length || (i < first.length && first[i].fieldDate <= second[j].fieldDate) ? first[i++] : second[j++]);
+		out.push(
+			j >= second.length || (i < first.length && first[i].fieldDate <= second[j].fieldDate) ? first[i++] : second[j++]
+		);
 	}
-	for (let a = 0; a < out.length; ) {
+	for (let a = 0; a < out.length;) {
 		let b = a + 1;
 		while (b < out.length && out[b].fieldDate === out[a].fieldDate) b++;
 		if (b - a > 1) {
@@ -88,7 +90,12 @@ export function pieceRanks(count: number): number[] {
  * would not all be exact (past 2^53), for the caller to sort another way. (One typed
  * array, for the native numeric sort.)
  */
-export function byDayThenRank<T>(items: T[], day: ArrayLike<number>, rank: ArrayLike<number>, rankCount: number): T[] | null {
+export function byDayThenRank<T>(
+	items: T[],
+	day: ArrayLike<number>,
+	rank: ArrayLike<number>,
+	rankCount: number
+): T[] | null {
 	const n = items.length;
 	if (n === 0) return [];
 	let lo = Infinity;

@@ -42,7 +42,13 @@ export function shiftPlantingDates(d: PlantingDates): PlantingDates & { shiftDay
 	const field = nextYearDate(d.fieldDate);
 	const shift = toDayNumber(field) - toDayNumber(d.fieldDate);
 	const move = (x: string): string => fromDayNumber(toDayNumber(x) + shift);
-	return { traySowDate: d.traySowDate ? move(d.traySowDate) : null, fieldDate: field, firstHarvest: move(d.firstHarvest), lastHarvest: move(d.lastHarvest), shiftDays: shift };
+	return {
+		traySowDate: d.traySowDate ? move(d.traySowDate) : null,
+		fieldDate: field,
+		firstHarvest: move(d.firstHarvest),
+		lastHarvest: move(d.lastHarvest),
+		shiftDays: shift
+	};
 }
 
 /** A frost date (month and day) in another calendar year; 29 February becomes 28 February. */
@@ -62,14 +68,25 @@ export interface CheckFarm {
  * Frost and heat checks of a planting on its own dates, with the farm's frost dates taken in
  * the calendar year of the field date (the farm keeps one pair of dates, not one per season).
  */
-export function frostHeatChecks(variety: Pick<Variety, 'frostTender' | 'heatLimitF'>, d: PlantingDates, farm: CheckFarm): PlanningWarning[] {
+export function frostHeatChecks(
+	variety: Pick<Variety, 'frostTender' | 'heatLimitF'>,
+	d: PlantingDates,
+	farm: CheckFarm
+): PlanningWarning[] {
 	const year = civilFromDays(toDayNumber(d.fieldDate)).year;
-	const temps = farm.weeklyMeanTempF && Object.keys(farm.weeklyMeanTempF).length ? makeTempLookup(farm.weeklyMeanTempF) : undefined;
-	return successionWarnings(variety as Variety, toDayNumber(d.fieldDate), toDayNumber(d.firstHarvest), toDayNumber(d.lastHarvest), {
-		lastSpringFrost: toDayNumber(sameDayIn(year, farm.lastSpringFrost)),
-		firstFallFrost: toDayNumber(sameDayIn(year, farm.firstFallFrost)),
-		temps
-	});
+	const temps =
+		farm.weeklyMeanTempF && Object.keys(farm.weeklyMeanTempF).length ? makeTempLookup(farm.weeklyMeanTempF) : undefined;
+	return successionWarnings(
+		variety as Variety,
+		toDayNumber(d.fieldDate),
+		toDayNumber(d.firstHarvest),
+		toDayNumber(d.lastHarvest),
+		{
+			lastSpringFrost: toDayNumber(sameDayIn(year, farm.lastSpringFrost)),
+			firstFallFrost: toDayNumber(sameDayIn(year, farm.firstFallFrost)),
+			temps
+		}
+	);
 }
 
 export interface CheckChange {

@@ -152,7 +152,10 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	const succPrefix: string[] = [];
 	const succNumber: number[] = [];
 	const keyOf = (i: number): string => `${succPrefix[i]}#${succNumber[i]}`;
-	const datesOf = (i: number): { fieldDate: string; lastHarvest: string } => ({ fieldDate: fromDayNumber(jobs.fieldDays[i]), lastHarvest: fromDayNumber(jobs.lastDays[i]) });
+	const datesOf = (i: number): { fieldDate: string; lastHarvest: string } => ({
+		fieldDate: fromDayNumber(jobs.fieldDays[i]),
+		lastHarvest: fromDayNumber(jobs.lastDays[i])
+	});
 	const jobs: PlacementJobs = { count: 0, keyOf, datesOf, bedFeet: [], fieldDays: [], lastDays: [], families: [] };
 	const plannedVariety: SeasonVariety[] = [];
 	// Share of its window's yield each succession picks (under 1 when its harvest ends early).
@@ -172,9 +175,17 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 
 	targetsByCrop.forEach((cropTargets, cropId) => {
 		const planShares = input.varietyPlan?.[cropId];
-		const shares: VarietyShare[] = planShares ?? byCrop.get(cropId)?.slice(0, 1).map((v) => ({ varietyId: v.id })) ?? [];
+		const shares: VarietyShare[] =
+			planShares ??
+			byCrop
+				.get(cropId)
+				?.slice(0, 1)
+				.map((v) => ({ varietyId: v.id })) ??
+			[];
 		if (shares.length === 0) {
-			const message = planShares ? 'The variety plan gives this crop no variety, so its targets cannot be planned.' : 'No variety of this crop is in the library, so its targets cannot be planned.';
+			const message = planShares
+				? 'The variety plan gives this crop no variety, so its targets cannot be planned.'
+				: 'No variety of this crop is in the library, so its targets cannot be planned.';
 			warnings.push({ code: 'no_variety', cropId, message, weeks: cropTargets.map((t) => t.week) });
 			const k = fromKept.get(cropId);
 			for (const t of cropTargets) {
@@ -190,7 +201,11 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 		shares.forEach((share, i) => {
 			const variety = varietyById.get(share.varietyId);
 			if (!variety || variety.cropId !== cropId) {
-				warnings.push({ code: 'no_variety', cropId, message: `Variety ${share.varietyId} is not a variety of this crop; its share of the targets is left unplanned.` });
+				warnings.push({
+					code: 'no_variety',
+					cropId,
+					message: `Variety ${share.varietyId} is not a variety of this crop; its share of the targets is left unplanned.`
+				});
 				return;
 			}
 			const fraction = share.fraction ?? 1;
@@ -219,29 +234,33 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			prefixes.add(keyPrefix);
 			const start = planned;
 			const mine: ForecastPlanting[] | undefined = shares.length > 1 ? [] : undefined;
-			const result = planSuccessionRuns({ variety, targets: weekly, supplied, farm: input.farm, options: { ...input.options, keyPrefix } }, temps, (r) => {
-				mine?.push({
-					crop: cropId,
-					firstHarvest: fromDayNumber(r.start),
-					lastHarvest: fromDayNumber(r.lastHarvest),
-					bedFeet: r.bedFeet,
-					yieldPerBedFoot: variety.yieldPerBedFoot,
-					curve: variety.harvestCurve,
-					windowDays: variety.harvestWindowDays
-				});
-				yieldShares.push(r.yieldShare);
-				succPrefix.push(keyPrefix);
-				succNumber.push(r.index + 1);
-				jobs.bedFeet.push(r.bedFeet);
-				jobs.fieldDays.push(r.fieldDay);
-				jobs.lastDays.push(r.lastHarvest);
-				jobs.families.push(variety.family);
-				plannedVariety.push(variety);
-				firstDays.push(r.start);
-				trayDays.push(r.trayDay ?? -Infinity);
-				if (r.warnings.length > 0) dtmWarnings.set(planned, r.warnings);
-				planned++;
-			});
+			const result = planSuccessionRuns(
+				{ variety, targets: weekly, supplied, farm: input.farm, options: { ...input.options, keyPrefix } },
+				temps,
+				(r) => {
+					mine?.push({
+						crop: cropId,
+						firstHarvest: fromDayNumber(r.start),
+						lastHarvest: fromDayNumber(r.lastHarvest),
+						bedFeet: r.bedFeet,
+						yieldPerBedFoot: variety.yieldPerBedFoot,
+						curve: variety.harvestCurve,
+						windowDays: variety.harvestWindowDays
+					});
+					yieldShares.push(r.yieldShare);
+					succPrefix.push(keyPrefix);
+					succNumber.push(r.index + 1);
+					jobs.bedFeet.push(r.bedFeet);
+					jobs.fieldDays.push(r.fieldDay);
+					jobs.lastDays.push(r.lastHarvest);
+					jobs.families.push(variety.family);
+					plannedVariety.push(variety);
+					firstDays.push(r.start);
+					trayDays.push(r.trayDay ?? -Infinity);
+					if (r.warnings.length > 0) dtmWarnings.set(planned, r.warnings);
+					planned++;
+				}
+			);
 			if (planned > start) groups.push({ prefix: keyPrefix, start, count: planned - start });
 			// This share's harvest outside its own weeks feeds the shares planned after it.
 			if (mine && mine.length > 0) {
@@ -260,18 +279,35 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			.map((t) => ({ crop: cropId, week: t.week, quantity: t.quantity * Math.max(0, 1 - (carried.get(t.week) ?? 0)) }))
 			.filter((t) => t.quantity > 1e-9);
 		if (uncarried.length) {
-			warnings.push({ code: 'no_variety', cropId, message: `The variety plan leaves part of the target in ${uncarried.map((t) => t.week).join(', ')} to no variety.`, weeks: uncarried.map((t) => t.week) });
+			warnings.push({
+				code: 'no_variety',
+				cropId,
+				message: `The variety plan leaves part of the target in ${uncarried.map((t) => t.week).join(', ')} to no variety.`,
+				weeks: uncarried.map((t) => t.week)
+			});
 			shortfall.push(...uncarried);
 		}
 	});
 
 	const fixed: BedPlanting[] = kept
 		.filter((k): k is KeptPlanting & { bedId: string } => k.bedId !== null)
-		.map((k): BedPlanting => ({ key: k.key, bedId: k.bedId, startFt: k.startFt, lengthFt: k.lengthFt, fieldDate: k.fieldDate, lastHarvest: k.lastHarvest, family: k.family }))
+		.map((k): BedPlanting => ({
+			key: k.key,
+			bedId: k.bedId,
+			startFt: k.startFt,
+			lengthFt: k.lengthFt,
+			fieldDate: k.fieldDate,
+			lastHarvest: k.lastHarvest,
+			family: k.family
+		}))
 		.concat(input.obstacles ?? []);
 	jobs.count = planned;
 	const placement = placeJobs(
-		preparePlacement(input.beds, { turnaroundDays: input.options?.turnaroundDays, fixed, previousFamilyByBed: input.previousFamilyByBed }),
+		preparePlacement(input.beds, {
+			turnaroundDays: input.options?.turnaroundDays,
+			fixed,
+			previousFamilyByBed: input.previousFamilyByBed
+		}),
 		jobs
 	);
 	// Placement notes by the succession they are about; notes about kept plantings (e.g. one naming an unknown bed) belong to the season's warnings.
@@ -290,7 +326,16 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 
 	const seedMargin = input.options?.seedMargin ?? 0.1;
 	// One seed input, refilled for each piece: seedNeed keeps none of it.
-	const seedIn: SeedNeedInput = { method: 'direct', bedFeet: 0, rows: 0, inRowSpacingIn: 0, seedsPerSpot: 0, germinationRate: 0, seedsPerGram: 0, margin: 0 };
+	const seedIn: SeedNeedInput = {
+		method: 'direct',
+		bedFeet: 0,
+		rows: 0,
+		inRowSpacingIn: 0,
+		seedsPerSpot: 0,
+		germinationRate: 0,
+		seedsPerGram: 0,
+		margin: 0
+	};
 	// Seed for a piece of bed: a planting split over two beds needs seed for each.
 	const seedFor = (v: SeasonVariety, lengthFt: number): SeedNeed => {
 		seedIn.method = v.method;
@@ -330,13 +375,33 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	// The frost and heat warnings of every succession, against the farm's frost dates (which
 	// planning has checked by now, if there is any succession) and weekly temperatures.
 	const facts: SeasonFacts | undefined =
-		planned === 0 ? undefined : { lastSpringFrost: toDayNumber(input.farm.lastSpringFrost), firstFallFrost: toDayNumber(input.farm.firstFallFrost), temps };
+		planned === 0
+			? undefined
+			: {
+					lastSpringFrost: toDayNumber(input.farm.lastSpringFrost),
+					firstFallFrost: toDayNumber(input.farm.firstFallFrost),
+					temps
+				};
 	// A succession's own warnings: the days-to-maturity ones, then its frost and heat ones.
 	const ownWarnings = (from: number): PlanningWarning[] => {
-		const own = successionWarnings(plannedVariety[from], jobs.fieldDays[from], firstDays[from], jobs.lastDays[from], facts!);
+		const own = successionWarnings(
+			plannedVariety[from],
+			jobs.fieldDays[from],
+			firstDays[from],
+			jobs.lastDays[from],
+			facts!
+		);
 		return withDtmWarnings(dtmWarnings.get(from) ?? [], own);
 	};
-	const proposal = (from: number, key: string, bedId: string | null, startFt: number, lengthFt: number, own: PlanningWarning[], unplacedReason: string | null): ProposedPlanting => {
+	const proposal = (
+		from: number,
+		key: string,
+		bedId: string | null,
+		startFt: number,
+		lengthFt: number,
+		own: PlanningWarning[],
+		unplacedReason: string | null
+	): ProposedPlanting => {
 		const v = plannedVariety[from];
 		return {
 			key,
@@ -376,7 +441,15 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 		if (first >= 0) {
 			for (let k = 0; k < pieceCount[from]; k++) {
 				const i = first + k;
-				all[n] = proposal(from, k === 0 ? key : `${key}/${k + 1}`, input.beds[placedBed[i]].id, placedStart[i], placedLength[i], own, null);
+				all[n] = proposal(
+					from,
+					k === 0 ? key : `${key}/${k + 1}`,
+					input.beds[placedBed[i]].id,
+					placedStart[i],
+					placedLength[i],
+					own,
+					null
+				);
 				fromOf[n] = from;
 				pieceOf[n++] = k;
 			}
@@ -387,7 +460,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	}
 	// Plan order; where the key ranks do not hold (a '#' in a variety id), one sort by date and key.
 	const plantings = planOrder(all, fromOf, pieceOf, maxPieces, jobs.fieldDays, groups) ?? inPlanOrder(all, []);
-	for (const u of placement.unplaced) warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
+	for (const u of placement.unplaced)
+		warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
 	return { plantings, shortfall, warnings };
 }
 
@@ -426,4 +500,3 @@ function planOrder(
 function filled<T>(n: number, fill: T): T[] {
 	return new Array<T>(n).fill(fill);
 }
-

@@ -1,10 +1,4 @@
-import {
-	PlanningInputError,
-	requireNonNegative,
-	requirePositive,
-	requirePositiveInteger,
-	requireRate
-} from './errors';
+import { PlanningInputError, requireNonNegative, requirePositive, requirePositiveInteger, requireRate } from './errors';
 import { ceilSafe, ceilToPlaces, floorSafe } from './numbers';
 import type { SowingMethod } from './types';
 
@@ -51,7 +45,8 @@ export function validateSeedInput(input: SeedNeedInput): number {
 	requireRate('germinationRate', input.germinationRate);
 	requirePositive('seedsPerGram', input.seedsPerGram);
 	requireNonNegative('margin', input.margin);
-	if (input.seedPriceCentsPerGram !== undefined) requireNonNegative('seedPriceCentsPerGram', input.seedPriceCentsPerGram);
+	if (input.seedPriceCentsPerGram !== undefined)
+		requireNonNegative('seedPriceCentsPerGram', input.seedPriceCentsPerGram);
 	if (input.seedsPerPacket !== undefined) requirePositive('seedsPerPacket', input.seedsPerPacket);
 	let cellsPerTray = input.cellsPerTray ?? 1;
 	if (input.method === 'transplant') {

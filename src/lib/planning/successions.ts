@@ -1,7 +1,19 @@
-import { PlanningInputError, requireLatitude, requireNonNegative, requireNonNegativeItem, requirePositive } from './errors';
+import {
+	PlanningInputError,
+	requireLatitude,
+	requireNonNegative,
+	requireNonNegativeItem,
+	requirePositive
+} from './errors';
 import { type HarvestCurve, cumulativeWeights, shareOfDays } from './harvest-curve';
 import { type DayNumber, fromDayNumber, toDayNumber, yearOfDay } from './day-number';
-import { type DtmContext, type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity } from './effective-dtm';
+import {
+	type DtmContext,
+	type EffectiveDtm,
+	blankDtm,
+	effectiveDaysInto,
+	effectiveDaysToMaturity
+} from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
 import { successionWarnings } from './plan-warnings';
@@ -119,13 +131,22 @@ interface ResolvedOptions {
 	dtm: DtmContext;
 }
 
-function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: PlanningWarning[], temps?: TempLookup): ResolvedOptions {
+function resolveOptions(
+	v: Variety,
+	farm: Farm,
+	o: PlanOptions,
+	warnings: PlanningWarning[],
+	temps?: TempLookup
+): ResolvedOptions {
 	const fullWeeks = Math.floor(v.harvestWindowDays / 7);
 	const maxInterval = Math.max(1, fullWeeks);
 	let interval = 1;
 	if (o.intervalWeeks !== undefined) {
 		if (!Number.isInteger(o.intervalWeeks) || o.intervalWeeks < 1 || o.intervalWeeks > 4) {
-			throw new PlanningInputError('options.intervalWeeks', `must be a whole number of weeks from 1 to 4 (got ${o.intervalWeeks})`);
+			throw new PlanningInputError(
+				'options.intervalWeeks',
+				`must be a whole number of weeks from 1 to 4 (got ${o.intervalWeeks})`
+			);
 		}
 		interval = o.intervalWeeks;
 		if (interval > maxInterval) {
@@ -139,8 +160,10 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
 		}
 	}
 	const margin = o.margin === undefined ? 0.1 : requireNonNegative('options.margin', o.margin);
-	const increment = o.bedFootIncrement === undefined ? 1 : requirePositive('options.bedFootIncrement', o.bedFootIncrement);
-	const seedMargin = v.margin ?? (o.seedMargin === undefined ? 0.1 : requireNonNegative('options.seedMargin', o.seedMargin));
+	const increment =
+		o.bedFootIncrement === undefined ? 1 : requirePositive('options.bedFootIncrement', o.bedFootIncrement);
+	const seedMargin =
+		v.margin ?? (o.seedMargin === undefined ? 0.1 : requireNonNegative('options.seedMargin', o.seedMargin));
 	return {
 		interval,
 		stepWeeks: interval,
@@ -148,14 +171,20 @@ function resolveOptions(v: Variety, farm: Farm, o: PlanOptions, warnings: Planni
 		increment,
 		seedMargin,
 		today: o.today === undefined ? undefined : toDayNumber(o.today, 'options.today'),
-		earliestField: o.earliestFieldDate === undefined ? undefined : toDayNumber(o.earliestFieldDate, 'options.earliestFieldDate'),
+		earliestField:
+			o.earliestFieldDate === undefined ? undefined : toDayNumber(o.earliestFieldDate, 'options.earliestFieldDate'),
 		dtm: {
 			latitude: requireLatitude('farm.latitude', farm.latitude),
 			shortDayAllowanceDays:
-				o.shortDayAllowanceDays === undefined ? 14 : requireNonNegative('options.shortDayAllowanceDays', o.shortDayAllowanceDays),
+				o.shortDayAllowanceDays === undefined
+					? 14
+					: requireNonNegative('options.shortDayAllowanceDays', o.shortDayAllowanceDays),
 			shortDayThresholdHours:
-				o.shortDayThresholdHours === undefined ? 10 : requireNonNegative('options.shortDayThresholdHours', o.shortDayThresholdHours),
-			gddWalkLimitDays: o.gddWalkLimitDays === undefined ? 365 : requirePositive('options.gddWalkLimitDays', o.gddWalkLimitDays),
+				o.shortDayThresholdHours === undefined
+					? 10
+					: requireNonNegative('options.shortDayThresholdHours', o.shortDayThresholdHours),
+			gddWalkLimitDays:
+				o.gddWalkLimitDays === undefined ? 365 : requirePositive('options.gddWalkLimitDays', o.gddWalkLimitDays),
 			temps: farm.weeklyMeanTempF ? (temps ?? makeTempLookup(farm.weeklyMeanTempF)) : undefined
 		}
 	};
@@ -310,7 +339,9 @@ function planRuns<T>(
 	const lastFrostOfYear = (year: number): DayNumber => {
 		if (year !== frostYear) {
 			frostYear = year;
-			frostDay = toDayNumber(`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`);
+			frostDay = toDayNumber(
+				`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`
+			);
 		}
 		return frostDay;
 	};
@@ -451,8 +482,23 @@ function planRuns<T>(
 	}
 
 	const run: SuccessionRun = {
-		prefix, index: 0, start: 0, yieldShare: 1, fieldDay: 0, trayDay: undefined, lastHarvest: 0, bedFeet: 0, rawFeet: 0, firstWeek: 0, endWeek: 0,
-		warnings: [], dtm: scratchDtm ?? blankDtm(), peakMonday: 0, peakQ: 0, peakPerFt: 0, peakDays: 0
+		prefix,
+		index: 0,
+		start: 0,
+		yieldShare: 1,
+		fieldDay: 0,
+		trayDay: undefined,
+		lastHarvest: 0,
+		bedFeet: 0,
+		rawFeet: 0,
+		firstWeek: 0,
+		endWeek: 0,
+		warnings: [],
+		dtm: scratchDtm ?? blankDtm(),
+		peakMonday: 0,
+		peakQ: 0,
+		peakPerFt: 0,
+		peakDays: 0
 	};
 	// The target weeks (indices into mondays) each succession's harvest reaches. A harvest that
 	// would run past the last target week ends with that week: the bed is free sooner, and the
@@ -477,7 +523,9 @@ function planRuns<T>(
 		run.rawFeet = cand.raw;
 		run.firstWeek = firstWeek;
 		run.endWeek = endWeek;
-		run.warnings = detail ? withDtmWarnings(cand.dtmWarnings, successionWarnings(v, cand.fieldDay, start, lastHarvest, facts)) : cand.dtmWarnings;
+		run.warnings = detail
+			? withDtmWarnings(cand.dtmWarnings, successionWarnings(v, cand.fieldDay, start, lastHarvest, facts))
+			: cand.dtmWarnings;
 		if (cand.dtm) run.dtm = cand.dtm;
 		run.peakMonday = base + 7 * cand.sizedOn;
 		run.peakQ = target[cand.sizedOn];
@@ -507,7 +555,11 @@ function planRuns<T>(
 		});
 	}
 	if (short.length > 0) {
-		warnings.push({ code: 'supply_short', message: `Planned supply falls short of target in ${short.join(', ')}.`, weeks: short });
+		warnings.push({
+			code: 'supply_short',
+			message: `Planned supply falls short of target in ${short.join(', ')}.`,
+			weeks: short
+		});
 	}
 	return { items, shortfall, warnings, interval: o.interval };
 }
@@ -591,7 +643,13 @@ export function withDtmWarnings(dtmWarnings: PlanningWarning[], own: PlanningWar
  */
 export function sizingLp(input: PlanInput): { lp: string; planBedFootDays: number; variables: number } {
 	let problem: SizingProblem | undefined;
-	const plan = planRuns(input, undefined, false, (run) => ({ start: run.start, feet: run.bedFeet, field: run.fieldDay }), (p) => (problem = p));
+	const plan = planRuns(
+		input,
+		undefined,
+		false,
+		(run) => ({ start: run.start, feet: run.bedFeet, field: run.fieldDay }),
+		(p) => (problem = p)
+	);
 	const H = input.variety.harvestWindowDays;
 	let planBedFootDays = 0;
 	for (const r of plan.items) planBedFootDays += r.feet * (r.start + H - r.field);

@@ -99,7 +99,11 @@ export function checkSupply(
 		}
 	}
 	if (short.length > 0) {
-		warnings.push({ code: 'supply_short', message: `Planned supply falls short of target in ${short.join(', ')}.`, weeks: short });
+		warnings.push({
+			code: 'supply_short',
+			message: `Planned supply falls short of target in ${short.join(', ')}.`,
+			weeks: short
+		});
 	}
 	shortfall.sort((x, y) => (x.week < y.week ? -1 : x.week > y.week ? 1 : 0));
 }

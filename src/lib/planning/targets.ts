@@ -74,7 +74,11 @@ export function deriveTargetsWithNotes(input: TargetInput): { targets: CropWeekQ
 	for (const item of input.boxItems) {
 		const share = shares.get(item.shareSizeId);
 		if (!share) {
-			notes.push({ code: 'unknown_share_size', message: `Box item for ${item.crop} in ${item.week} names unknown share size ${item.shareSizeId}.`, item });
+			notes.push({
+				code: 'unknown_share_size',
+				message: `Box item for ${item.crop} in ${item.week} names unknown share size ${item.shareSizeId}.`,
+				item
+			});
 			continue;
 		}
 		if (!inWeeks(item.week, share)) {
@@ -88,7 +92,9 @@ export function deriveTargetsWithNotes(input: TargetInput): { targets: CropWeekQ
 		add(item.crop, item.week, share.members * item.quantity);
 	}
 	for (const c of input.channelDemand) add(c.crop, c.week, c.quantity);
-	const targets = [...sums.values()].sort((a, b) => (a.crop < b.crop ? -1 : a.crop > b.crop ? 1 : a.week < b.week ? -1 : a.week > b.week ? 1 : 0));
+	const targets = [...sums.values()].sort((a, b) =>
+		a.crop < b.crop ? -1 : a.crop > b.crop ? 1 : a.week < b.week ? -1 : a.week > b.week ? 1 : 0
+	);
 	return { targets, notes };
 }
 
@@ -105,12 +111,20 @@ export function explainTargets(input: TargetInput, crop: string, week: string): 
 		if (item.crop !== crop || item.week !== week) continue;
 		const share = shares.get(item.shareSizeId);
 		if (!share || !inWeeks(week, share)) {
-			steps.push({ label: `${item.shareSizeId} box (not distributing in ${week})`, value: 0, formula: 'outside distribution weeks' });
+			steps.push({
+				label: `${item.shareSizeId} box (not distributing in ${week})`,
+				value: 0,
+				formula: 'outside distribution weeks'
+			});
 			continue;
 		}
 		const q = share.members * item.quantity;
 		total += q;
-		steps.push({ label: `${share.id} shares`, value: q, formula: `${share.members} members × ${item.quantity} per box` });
+		steps.push({
+			label: `${share.id} shares`,
+			value: q,
+			formula: `${share.members} members × ${item.quantity} per box`
+		});
 	}
 	for (const c of input.channelDemand) {
 		if (c.crop !== crop || c.week !== week) continue;

@@ -34,7 +34,12 @@ export interface DeriveRow {
 }
 
 /** Derived figures, or the engine's complaint (field and message) when the row cannot be worked out. */
-export function deriveRow(row: DeriveRow, variety: GridVariety, farm: GridFarm, explain = false): { ok: true; value: DerivedPlanting } | { ok: false; field: string; message: string } {
+export function deriveRow(
+	row: DeriveRow,
+	variety: GridVariety,
+	farm: GridFarm,
+	explain = false
+): { ok: true; value: DerivedPlanting } | { ok: false; field: string; message: string } {
 	try {
 		return { ok: true, value: derivePlanting(row, engineVariety(variety), farm, { explain }) };
 	} catch (e) {

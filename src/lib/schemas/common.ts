@@ -38,9 +38,15 @@ export function dateProblem(label: string, v: string): string | null {
 	const year = Number(v.slice(0, 4));
 	const month = Number(v.slice(5, 7));
 	const day = Number(v.slice(8, 10));
-	const real = month >= 1 && month <= 12 && day >= 1 && day <= new Date(Date.UTC(2000, month, 0)).getUTCDate() && (month !== 2 || day < 29 || leap(year));
+	const real =
+		month >= 1 &&
+		month <= 12 &&
+		day >= 1 &&
+		day <= new Date(Date.UTC(2000, month, 0)).getUTCDate() &&
+		(month !== 2 || day < 29 || leap(year));
 	if (!real) return `${label} is not a real calendar date.`;
-	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR) return `${label} must be between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
+	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR)
+		return `${label} must be between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
 	return null;
 }
 
@@ -57,7 +63,8 @@ export const isoDate = (label: string) =>
 /** A planting's dates (planned or actual) lie within its season's year ± 1. */
 export function seasonDateProblem(label: string, v: string, seasonYear: number): string | null {
 	const year = Number(v.slice(0, 4));
-	if (Math.abs(year - seasonYear) > 1) return `${label} must be within ${seasonYear - 1}–${seasonYear + 1}, the ${seasonYear} season's year ± 1.`;
+	if (Math.abs(year - seasonYear) > 1)
+		return `${label} must be within ${seasonYear - 1}–${seasonYear + 1}, the ${seasonYear} season's year ± 1.`;
 	return null;
 }
 
@@ -65,7 +72,8 @@ export function seasonDateProblem(label: string, v: string, seasonYear: number):
 export function isoWeekProblem(label: string, v: string): string | null {
 	if (!/^\d{4}-W\d{2}$/.test(v)) return `${label} must be an ISO week like 2027-W24.`;
 	const year = Number(v.slice(0, 4));
-	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR) return `${label} must be a week between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
+	if (year < DATE_MIN_YEAR || year > DATE_MAX_YEAR)
+		return `${label} must be a week between ${DATE_MIN_YEAR} and ${DATE_MAX_YEAR}.`;
 	const week = Number(v.slice(6));
 	// ISO 8601: a year has 53 weeks when 28 December falls in week 53 (its 1 January or, in a
 	// leap year, 31 December is a Thursday); otherwise 52.
@@ -89,13 +97,20 @@ export const isoWeekKey = (label: string) =>
  * A typed or pasted number as text: "1,000" and "1.000" could each be one thousand or one, so
  * they are refused with both readings named; "1,5", "1.5", "1,000.5" and "1 000" read one way.
  */
-export function numberFromText(label: string, v: string, ctx: { addIssue(issue: { code: 'custom'; message: string }): void }): unknown {
+export function numberFromText(
+	label: string,
+	v: string,
+	ctx: { addIssue(issue: { code: 'custom'; message: string }): void }
+): unknown {
 	if (v.trim() === '') return undefined;
 	const read = parseNumberText(v);
 	if (read.kind === 'number') return read.value;
 	if (read.kind === 'ambiguous') {
 		const [a, b] = read.readings;
-		ctx.addIssue({ code: 'custom', message: `${label}: "${v.trim()}" could be ${a.toLocaleString('en-US')} or ${String(b)}; write it without a thousands separator.` });
+		ctx.addIssue({
+			code: 'custom',
+			message: `${label}: "${v.trim()}" could be ${a.toLocaleString('en-US')} or ${String(b)}; write it without a thousands separator.`
+		});
 		return z.NEVER;
 	}
 	return Number.NaN;
@@ -106,7 +121,9 @@ export const numberField = (label: string, min: number, max: number, opts: { int
 	z.preprocess(
 		(v, ctx) => (typeof v === 'string' ? numberFromText(label, v, ctx) : v),
 		z
-			.number({ error: (issue) => (issue.input === undefined ? `${label} is required.` : `${label} must be a number.`) })
+			.number({
+				error: (issue) => (issue.input === undefined ? `${label} is required.` : `${label} must be a number.`)
+			})
 			.refine((n) => Number.isFinite(n), `${label} must be a number.`)
 			.refine((n) => !opts.int || Number.isInteger(n), `${label} must be a whole number.`)
 			.refine((n) => n >= min, `${label} must be at least ${min}.`)
@@ -119,12 +136,25 @@ export const numberField = (label: string, min: number, max: number, opts: { int
  */
 export const moneyCents = (label: string, maxDollars = 1_000_000) =>
 	z.preprocess(
-		(v) => (typeof v === 'number' ? (Number.isFinite(v) ? String(v) : 'not a number') : typeof v === 'string' ? v.trim().replace(/^\$\s*/, '').replace(/,/g, '') : v),
+		(v) =>
+			typeof v === 'number'
+				? Number.isFinite(v)
+					? String(v)
+					: 'not a number'
+				: typeof v === 'string'
+					? v
+							.trim()
+							.replace(/^\$\s*/, '')
+							.replace(/,/g, '')
+					: v,
 		z
 			.string({ error: `${label} is required.` })
 			.min(1, `${label} is required.`)
 			.regex(/^\d{1,9}(\.\d+)?$/, `${label} must be an amount like 0.29 or 720.00.`)
-			.refine((s) => (s.split('.')[1] ?? '').replace(/0+$/, '').length <= 2, `${label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`)
+			.refine(
+				(s) => (s.split('.')[1] ?? '').replace(/0+$/, '').length <= 2,
+				`${label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`
+			)
 			.refine((s) => Number(s.split('.')[0]) <= maxDollars, `${label} must be at most ${maxDollars}.`)
 			// Whole and fraction parts separately, so 0.29 never becomes 28 cents through float rounding.
 			.transform((s) => {

@@ -39,7 +39,12 @@ export type FieldSpec = NumberSpec | TextSpec | ChoiceSpec;
 
 export const cropFields = {
 	name: { kind: 'text', label: 'Crop name', help: 'As the crew says it, e.g. "Carrot".', max: 80 },
-	family: { kind: 'text', label: 'Botanical family', help: 'For rotation and colour, e.g. Apiaceae, Brassicaceae.', max: 40 },
+	family: {
+		kind: 'text',
+		label: 'Botanical family',
+		help: 'For rotation and colour, e.g. Apiaceae, Brassicaceae.',
+		max: 40
+	},
 	harvestUnit: {
 		kind: 'choice',
 		label: 'Harvest unit',
@@ -75,7 +80,7 @@ export const cropFields = {
 	harvestCurve: {
 		kind: 'choice',
 		label: 'Harvest curve',
-		help: 'How a planting\'s yield spreads over its harvest window; a variety may differ.',
+		help: "How a planting's yield spreads over its harvest window; a variety may differ.",
 		options: [
 			{ value: 'flat', label: 'even over the window' },
 			{ value: 'ramp', label: 'rises, peaks, tails off (fruiting crops)' },
@@ -83,8 +88,26 @@ export const cropFields = {
 			{ value: 'cuts', label: 'several cuts (cut-and-come-again)' }
 		]
 	},
-	cutIntervalDays: { kind: 'number', label: 'Days between cuts', unit: 'days', help: 'For several cuts; blank for the usual interval.', min: 1, max: 120, int: true, optional: true },
-	storageWeeks: { kind: 'number', label: 'Keeps in store', unit: 'weeks', help: 'For a storage crop (garlic, onions, squash); blank if sold fresh.', min: 0, max: 52, int: true, optional: true },
+	cutIntervalDays: {
+		kind: 'number',
+		label: 'Days between cuts',
+		unit: 'days',
+		help: 'For several cuts; blank for the usual interval.',
+		min: 1,
+		max: 120,
+		int: true,
+		optional: true
+	},
+	storageWeeks: {
+		kind: 'number',
+		label: 'Keeps in store',
+		unit: 'weeks',
+		help: 'For a storage crop (garlic, onions, squash); blank if sold fresh.',
+		min: 0,
+		max: 52,
+		int: true,
+		optional: true
+	},
 	storageLossPct: {
 		kind: 'number',
 		label: 'Loss in store',
@@ -107,7 +130,13 @@ export const cropFields = {
 		optional: true,
 		step: '0.01'
 	},
-	source: { kind: 'text', label: 'Source', help: 'Where these figures come from (handbook, extension guide, own records).', max: 500, optional: true }
+	source: {
+		kind: 'text',
+		label: 'Source',
+		help: 'Where these figures come from (handbook, extension guide, own records).',
+		max: 500,
+		optional: true
+	}
 } as const satisfies Record<string, FieldSpec>;
 
 export const varietyFields = {
@@ -127,8 +156,24 @@ export const varietyFields = {
 		max: 400,
 		int: true
 	},
-	daysInTray: { kind: 'number', label: 'Days in tray', unit: 'days', help: 'From tray sowing to transplanting; 0 for direct-sown.', min: 0, max: 200, int: true },
-	harvestWindowDays: { kind: 'number', label: 'Harvest window', unit: 'days', help: 'How long one planting keeps giving harvests.', min: 1, max: 365, int: true },
+	daysInTray: {
+		kind: 'number',
+		label: 'Days in tray',
+		unit: 'days',
+		help: 'From tray sowing to transplanting; 0 for direct-sown.',
+		min: 0,
+		max: 200,
+		int: true
+	},
+	harvestWindowDays: {
+		kind: 'number',
+		label: 'Harvest window',
+		unit: 'days',
+		help: 'How long one planting keeps giving harvests.',
+		min: 1,
+		max: 365,
+		int: true
+	},
 	yieldPerBedFoot: {
 		kind: 'number',
 		label: 'Yield',
@@ -138,9 +183,33 @@ export const varietyFields = {
 		max: 100_000,
 		step: 'any'
 	},
-	rows: { kind: 'number', label: 'Rows per bed', unit: 'rows', help: 'Rows across one bed.', min: 1, max: 50, int: true },
-	inRowSpacingIn: { kind: 'number', label: 'In-row spacing', unit: 'in', help: 'Between spots along a row.', min: 0.1, max: 240, step: 'any' },
-	seedsPerSpot: { kind: 'number', label: 'Seeds per spot', unit: 'seeds', help: 'More than 1 for multi-sowing (onions, beets).', min: 1, max: 50, int: true },
+	rows: {
+		kind: 'number',
+		label: 'Rows per bed',
+		unit: 'rows',
+		help: 'Rows across one bed.',
+		min: 1,
+		max: 50,
+		int: true
+	},
+	inRowSpacingIn: {
+		kind: 'number',
+		label: 'In-row spacing',
+		unit: 'in',
+		help: 'Between spots along a row.',
+		min: 0.1,
+		max: 240,
+		step: 'any'
+	},
+	seedsPerSpot: {
+		kind: 'number',
+		label: 'Seeds per spot',
+		unit: 'seeds',
+		help: 'More than 1 for multi-sowing (onions, beets).',
+		min: 1,
+		max: 50,
+		int: true
+	},
 	germinationRate: {
 		kind: 'number',
 		label: 'Germination',
@@ -151,15 +220,58 @@ export const varietyFields = {
 		scale: 100,
 		step: 'any'
 	},
-	seedsPerGram: { kind: 'number', label: 'Seeds per gram', unit: 'seeds/g', help: 'Seed count in one gram (seeds per ounce ÷ 28.35).', min: 0.01, max: 10_000_000, step: 'any' },
-	seedPrice: { kind: 'number', label: 'Seed price', unit: '$ per g', help: 'For the seed order; 0 if unknown.', min: 0, max: 10_000, step: '0.01', money: true },
-	seedsPerPacket: { kind: 'number', label: 'Seeds per packet', unit: 'seeds', help: 'To count packets; blank to order by weight.', min: 1, max: 10_000_000, int: true, optional: true },
-	cellsPerTray: { kind: 'number', label: 'Cells per tray', unit: 'cells', help: 'Tray size for transplants, e.g. 72 or 128.', min: 1, max: 2000, int: true },
-	margin: { kind: 'number', label: 'Extra margin', unit: '%', help: 'Extra seed and bed space on top of the target, for losses.', min: 0, max: 100, scale: 100, step: 'any' },
+	seedsPerGram: {
+		kind: 'number',
+		label: 'Seeds per gram',
+		unit: 'seeds/g',
+		help: 'Seed count in one gram (seeds per ounce ÷ 28.35).',
+		min: 0.01,
+		max: 10_000_000,
+		step: 'any'
+	},
+	seedPrice: {
+		kind: 'number',
+		label: 'Seed price',
+		unit: '$ per g',
+		help: 'For the seed order; 0 if unknown.',
+		min: 0,
+		max: 10_000,
+		step: '0.01',
+		money: true
+	},
+	seedsPerPacket: {
+		kind: 'number',
+		label: 'Seeds per packet',
+		unit: 'seeds',
+		help: 'To count packets; blank to order by weight.',
+		min: 1,
+		max: 10_000_000,
+		int: true,
+		optional: true
+	},
+	cellsPerTray: {
+		kind: 'number',
+		label: 'Cells per tray',
+		unit: 'cells',
+		help: 'Tray size for transplants, e.g. 72 or 128.',
+		min: 1,
+		max: 2000,
+		int: true
+	},
+	margin: {
+		kind: 'number',
+		label: 'Extra margin',
+		unit: '%',
+		help: 'Extra seed and bed space on top of the target, for losses.',
+		min: 0,
+		max: 100,
+		scale: 100,
+		step: 'any'
+	},
 	harvestCurve: {
 		kind: 'choice',
 		label: 'Harvest curve',
-		help: 'Leave as the crop\'s, or give this variety its own.',
+		help: "Leave as the crop's, or give this variety its own.",
 		options: [
 			{ value: '', label: 'as the crop' },
 			{ value: 'flat', label: 'even over the window' },
@@ -186,7 +298,10 @@ const blank = (v: unknown): boolean => v === undefined || v === null || (typeof 
 function numberSchema(s: NumberSpec) {
 	const plain = numberField(s.label, s.min, s.max, { int: s.int });
 	const base = s.money
-		? plain.refine((n) => Math.abs(n * 100 - Math.round(n * 100)) < 1e-6, `${s.label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`)
+		? plain.refine(
+				(n) => Math.abs(n * 100 - Math.round(n * 100)) < 1e-6,
+				`${s.label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`
+			)
 		: plain;
 	const scaled = s.scale ? base.transform((n) => n / s.scale!) : base;
 	return s.optional ? z.preprocess((v) => (blank(v) ? null : v), scaled.nullable()) : scaled;
@@ -194,7 +309,10 @@ function numberSchema(s: NumberSpec) {
 
 function fieldSchema(s: FieldSpec) {
 	if (s.kind === 'number') return numberSchema(s);
-	if (s.kind === 'text') return s.optional ? z.preprocess((v) => (blank(v) ? null : v), plainText(s.label, s.max).nullable()) : plainText(s.label, s.max);
+	if (s.kind === 'text')
+		return s.optional
+			? z.preprocess((v) => (blank(v) ? null : v), plainText(s.label, s.max).nullable())
+			: plainText(s.label, s.max);
 	const values = s.options.map((o) => o.value) as [string, ...string[]];
 	return z.enum(values, { error: `${s.label}: choose ${values.join(' or ')}.` });
 }
@@ -211,7 +329,9 @@ type Out<S> = S extends NumberSpec
 type Parsed<T extends Record<string, FieldSpec>> = { [K in keyof T]: Out<T[K]> };
 
 function schemaOf<T extends Record<string, FieldSpec>>(fields: T) {
-	return z.object(Object.fromEntries(Object.entries(fields).map(([k, s]) => [k, fieldSchema(s)]))) as unknown as z.ZodType<Parsed<T>>;
+	return z.object(
+		Object.fromEntries(Object.entries(fields).map(([k, s]) => [k, fieldSchema(s)]))
+	) as unknown as z.ZodType<Parsed<T>>;
 }
 
 export const cropSchema = schemaOf(cropFields);
@@ -240,6 +360,7 @@ export function unitLabel(spec: FieldSpec, harvestUnit: string): string {
 /** How a stored value shows in its form field (fractions as percents, cents as money). */
 export function formValue(spec: FieldSpec, value: unknown): string {
 	if (value === null || value === undefined) return '';
-	if (spec.kind === 'number' && spec.scale && typeof value === 'number') return String(Math.round(value * spec.scale * 1000) / 1000);
+	if (spec.kind === 'number' && spec.scale && typeof value === 'number')
+		return String(Math.round(value * spec.scale * 1000) / 1000);
 	return String(value);
 }

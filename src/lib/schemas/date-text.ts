@@ -3,17 +3,33 @@
 // de-DE). The order comes from Intl (CLDR data), never from a guess; a date whose day and month
 // could swap is read the locale's way and said so.
 
-export type DateText =
-	| { ok: true; iso: string; note?: string }
-	| { ok: false; message: string };
+export type DateText = { ok: true; iso: string; note?: string } | { ok: false; message: string };
 
-const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+const MONTHS = [
+	'January',
+	'February',
+	'March',
+	'April',
+	'May',
+	'June',
+	'July',
+	'August',
+	'September',
+	'October',
+	'November',
+	'December'
+];
 
 /** 'mdy', 'dmy' or 'ymd': the order of the numeric date fields in the locale's short date. */
 export function dateOrder(locale: string): 'mdy' | 'dmy' | 'ymd' {
 	try {
-		const parts = new Intl.DateTimeFormat(locale, { year: 'numeric', month: 'numeric', day: 'numeric' }).formatToParts(new Date(Date.UTC(2028, 5, 24)));
-		const order = parts.filter((p) => p.type === 'day' || p.type === 'month' || p.type === 'year').map((p) => p.type[0]).join('');
+		const parts = new Intl.DateTimeFormat(locale, { year: 'numeric', month: 'numeric', day: 'numeric' }).formatToParts(
+			new Date(Date.UTC(2028, 5, 24))
+		);
+		const order = parts
+			.filter((p) => p.type === 'day' || p.type === 'month' || p.type === 'year')
+			.map((p) => p.type[0])
+			.join('');
 		return order === 'mdy' || order === 'dmy' || order === 'ymd' ? order : 'ymd';
 	} catch {
 		return 'ymd';
@@ -42,8 +58,11 @@ export function readDateText(text: string, locale: string): DateText {
 	const year = (n: number): number => (n < 100 ? 2000 + n : n);
 	const [y, mo, d] = order === 'mdy' ? [year(c), a, b] : order === 'dmy' ? [year(c), b, a] : [year(a), b, c];
 	const v = real(y, mo, d);
-	if (!v) return { ok: false, message: `${t} is not a real date when read as ${how} (${locale}); write it as YYYY-MM-DD.` };
+	if (!v)
+		return { ok: false, message: `${t} is not a real date when read as ${how} (${locale}); write it as YYYY-MM-DD.` };
 	// Day and month both 12 or under, and different: the other order is a date too. Say which was read.
 	const other = order !== 'ymd' && a <= 12 && b <= 12 && a !== b;
-	return other ? { ok: true, iso: v, note: `read as ${d} ${MONTHS[mo - 1]} ${y} (${how}, as ${locale} writes dates)` } : { ok: true, iso: v };
+	return other
+		? { ok: true, iso: v, note: `read as ${d} ${MONTHS[mo - 1]} ${y} (${how}, as ${locale} writes dates)` }
+		: { ok: true, iso: v };
 }

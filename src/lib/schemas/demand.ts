@@ -20,16 +20,29 @@ export const shareSizeSchema = z
 		firstWeek: isoWeekField('First week'),
 		lastWeek: isoWeekField('Last week'),
 		pickupDays: z
-			.preprocess((v) => (v === undefined || v === null || v === '' ? [] : typeof v === 'string' ? v.split(/[,\s]+/).filter(Boolean) : v), z.array(z.enum(pickupDayNames, { error: 'Pickup days must be among Mon, Tue, Wed, Thu, Fri, Sat, Sun.' })))
+			.preprocess(
+				(v) =>
+					v === undefined || v === null || v === ''
+						? []
+						: typeof v === 'string'
+							? v.split(/[,\s]+/).filter(Boolean)
+							: v,
+				z.array(z.enum(pickupDayNames, { error: 'Pickup days must be among Mon, Tue, Wed, Thu, Fri, Sat, Sun.' }))
+			)
 			.transform((days) => pickupDayNames.filter((d) => days.includes(d))),
 		price: moneyCents('Price', 10_000_000)
 	})
 	.strict()
-	.refine((v) => v.lastWeek >= v.firstWeek, { message: 'Last week must not be before the first week.', path: ['lastWeek'] });
+	.refine((v) => v.lastWeek >= v.firstWeek, {
+		message: 'Last week must not be before the first week.',
+		path: ['lastWeek']
+	});
 export type ShareSizeInput = z.infer<typeof shareSizeSchema>;
 
 /** Which editable table a cell belongs to: a share size's boxes, or a channel. */
-export const gridSchema = z.union([z.string().regex(/^share:\d+$/), z.enum(channels)], { error: 'Grid must be share:<id>, market or restaurant.' });
+export const gridSchema = z.union([z.string().regex(/^share:\d+$/), z.enum(channels)], {
+	error: 'Grid must be share:<id>, market or restaurant.'
+});
 export type GridKey = z.infer<typeof gridSchema>;
 
 export const cellSchema = z
@@ -37,7 +50,10 @@ export const cellSchema = z
 		crop: numberField('Crop', 1, Number.MAX_SAFE_INTEGER, { int: true }),
 		week: isoWeekField('Week'),
 		// Empty (null) or 0 clears the cell.
-		quantity: z.preprocess((v) => (v === '' || v === undefined ? null : v), numberField('Quantity', 0, 100_000).nullable()),
+		quantity: z.preprocess(
+			(v) => (v === '' || v === undefined ? null : v),
+			numberField('Quantity', 0, 100_000).nullable()
+		),
 		unit: z.enum(harvestUnits, { error: 'Unit must be lb, bunch, head or each.' }),
 		// What the cell held when the editor opened it (empty: nothing). A cell sent unchanged from
 		// that is left as it is now, so a save never undoes what someone else saved meanwhile.
@@ -62,7 +78,10 @@ export const copyWeekSchema = z
 		toLast: isoWeekField('Last week of the range')
 	})
 	.strict()
-	.refine((v) => v.toLast >= v.toFirst, { message: 'The range must end on or after its first week.', path: ['toLast'] });
+	.refine((v) => v.toLast >= v.toFirst, {
+		message: 'The range must end on or after its first week.',
+		path: ['toLast']
+	});
 export type CopyWeekInput = z.infer<typeof copyWeekSchema>;
 
 /**
@@ -76,7 +95,10 @@ export const uploadRowSchema = z.object({
 	crop: plainText('crop', 80),
 	week: isoWeekField('week'),
 	quantity: numberField('quantity', 0, 100_000),
-	unit: z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(harvestUnits, { error: 'unit must be lb, bunch, head or each (or empty).' }).optional())
+	unit: z.preprocess(
+		(v) => (typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim().toLowerCase() : v),
+		z.enum(harvestUnits, { error: 'unit must be lb, bunch, head or each (or empty).' }).optional()
+	)
 });
 export type UploadRow = z.infer<typeof uploadRowSchema>;
 

@@ -53,7 +53,13 @@ export const bulkBedsSchema = z.object({
 	count: numberField('Number of beds', 1, 200, { int: true }),
 	lengthFt: numberField('Length (ft)', 1, 2000),
 	widthIn: numberField('Width (in)', 6, 240, { int: true }),
-	prefix: z.preprocess((v) => (typeof v === 'string' ? v.trim() : v), z.string().max(20, 'Name start must be at most 20 characters.').refine((v) => !/[<>]/.test(v), 'Name start may not contain < or >.')),
+	prefix: z.preprocess(
+		(v) => (typeof v === 'string' ? v.trim() : v),
+		z
+			.string()
+			.max(20, 'Name start must be at most 20 characters.')
+			.refine((v) => !/[<>]/.test(v), 'Name start may not contain < or >.')
+	),
 	firstNumber: numberField('First number', 0, 100_000, { int: true })
 });
 export type BulkBedsInput = z.infer<typeof bulkBedsSchema>;
@@ -67,4 +73,7 @@ export const locationSchema = z
 		lastSpringFrost: isoDate('Last spring frost'),
 		firstFallFrost: isoDate('First fall frost')
 	})
-	.refine((v) => v.lastSpringFrost < v.firstFallFrost, { message: 'First fall frost must come after the last spring frost.', path: ['firstFallFrost'] });
+	.refine((v) => v.lastSpringFrost < v.firstFallFrost, {
+		message: 'First fall frost must come after the last spring frost.',
+		path: ['firstFallFrost']
+	});

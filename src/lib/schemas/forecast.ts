@@ -31,7 +31,10 @@ export type ForecastQuery = z.infer<typeof forecastQuerySchema>;
 const idField = (label: string) =>
 	z.preprocess(
 		(v) => (typeof v === 'string' && /^\s*\d+\s*$/.test(v) ? Number(v) : v),
-		z.number({ error: `${label} must be an id.` }).int(`${label} must be an id.`).positive(`${label} must be an id.`)
+		z
+			.number({ error: `${label} must be an id.` })
+			.int(`${label} must be an id.`)
+			.positive(`${label} must be an id.`)
 	);
 
 export const swapSchema = z
@@ -42,12 +45,19 @@ export const swapSchema = z
 		toCropId: idField('toCropId'),
 		quantity: z.preprocess(
 			(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.')) : v),
-			z.number({ error: 'quantity must be a number.' }).positive('quantity must be above 0.').max(10_000, 'quantity must be at most 10,000.')
+			z
+				.number({ error: 'quantity must be a number.' })
+				.positive('quantity must be above 0.')
+				.max(10_000, 'quantity must be at most 10,000.')
 		),
 		// For a substitute of another unit: how much of it goes in per box, as the share manager confirmed it.
 		toQuantity: z.preprocess(
 			(v) => (v === '' || v === null ? undefined : typeof v === 'string' ? Number(v.trim().replace(',', '.')) : v),
-			z.number({ error: 'toQuantity must be a number.' }).positive('toQuantity must be above 0.').max(10_000, 'toQuantity must be at most 10,000.').optional()
+			z
+				.number({ error: 'toQuantity must be a number.' })
+				.positive('toQuantity must be above 0.')
+				.max(10_000, 'toQuantity must be at most 10,000.')
+				.optional()
 		)
 	})
 	.strict()
@@ -59,6 +69,10 @@ export type SwapInput = z.infer<typeof swapSchema>;
 export const shortFillSchema = z.object({
 	shortFillPct: z.preprocess(
 		(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v.trim().replace(',', '.')) : v),
-		z.number({ error: 'Short below must be a number.' }).int('Short below must be a whole percent.').min(50, 'Short below must be at least 50 %.').max(100, 'Short below must be at most 100 %.')
+		z
+			.number({ error: 'Short below must be a number.' })
+			.int('Short below must be a whole percent.')
+			.min(50, 'Short below must be at least 50 %.')
+			.max(100, 'Short below must be at most 100 %.')
 	)
 });

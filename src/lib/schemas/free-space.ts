@@ -18,7 +18,8 @@ export const freeSpaceQuerySchema = z
 	.superRefine((q, ctx) => {
 		// Only compare once both weeks parse; each bad week already has its own message.
 		try {
-			if (weekStart(q.to) < weekStart(q.from)) ctx.addIssue({ code: 'custom', path: ['to'], message: 'To week must not be before the from week.' });
+			if (weekStart(q.to) < weekStart(q.from))
+				ctx.addIssue({ code: 'custom', path: ['to'], message: 'To week must not be before the from week.' });
 		} catch {
 			/* reported at the field */
 		}

@@ -19,9 +19,17 @@ export const maxPerRecord: Record<HarvestUnit, number> = { lb: 5000, bunch: 3000
 const unit = z.enum(harvestUnits, { error: 'Unit must be one of lb, bunch, head or each.' });
 const optionalNotes = z.preprocess(
 	(v) => (typeof v === 'string' && v.trim() === '' ? undefined : v),
-	z.string().trim().max(500, 'Notes must be at most 500 characters.').refine((v) => !/[<>]/.test(v), 'Notes may not contain < or >.').optional()
+	z
+		.string()
+		.trim()
+		.max(500, 'Notes must be at most 500 characters.')
+		.refine((v) => !/[<>]/.test(v), 'Notes may not contain < or >.')
+		.optional()
 );
-const who = z.preprocess((v) => (typeof v === 'string' && v.trim() === '' ? undefined : v), z.string().trim().max(40, 'Who must be a member of the farm.').optional());
+const who = z.preprocess(
+	(v) => (typeof v === 'string' && v.trim() === '' ? undefined : v),
+	z.string().trim().max(40, 'Who must be a member of the farm.').optional()
+);
 const flag = z.preprocess((v) => v === true || v === 'on' || v === 'true' || v === '1', z.boolean());
 
 const fields = {
@@ -40,8 +48,14 @@ const fields = {
 /** Quantity above zero, with at most two decimals, and within the unit's plausible maximum. */
 function checkQuantity(v: { quantity: number; unit: HarvestUnit }, ctx: z.RefinementCtx): void {
 	if (!(v.quantity > 0)) ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'Quantity must be more than 0.' });
-	else if (v.quantity > maxPerRecord[v.unit]) ctx.addIssue({ code: 'custom', path: ['quantity'], message: `Quantity of ${v.quantity} ${v.unit} is more than one harvest can hold (at most ${maxPerRecord[v.unit].toLocaleString('en-US')} ${v.unit} a record): check the figure.` });
-	else if (Math.abs(Math.round(v.quantity * 100) - v.quantity * 100) > 1e-6) ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'Quantity takes at most two decimals.' });
+	else if (v.quantity > maxPerRecord[v.unit])
+		ctx.addIssue({
+			code: 'custom',
+			path: ['quantity'],
+			message: `Quantity of ${v.quantity} ${v.unit} is more than one harvest can hold (at most ${maxPerRecord[v.unit].toLocaleString('en-US')} ${v.unit} a record): check the figure.`
+		});
+	else if (Math.abs(Math.round(v.quantity * 100) - v.quantity * 100) > 1e-6)
+		ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'Quantity takes at most two decimals.' });
 }
 
 export const harvestSchema = z.strictObject(fields).superRefine(checkQuantity);
@@ -49,17 +63,28 @@ export type HarvestInput = z.infer<typeof harvestSchema>;
 
 /** An edit: every field but the planting may change. */
 export const harvestPatchSchema = z
-	.strictObject({ harvestedOn: fields.harvestedOn, quantity: fields.quantity, unit, harvestedBy: who, notes: optionalNotes })
+	.strictObject({
+		harvestedOn: fields.harvestedOn,
+		quantity: fields.quantity,
+		unit,
+		harvestedBy: who,
+		notes: optionalNotes
+	})
 	.superRefine(checkQuantity);
 export type HarvestPatch = z.infer<typeof harvestPatchSchema>;
 
 /** A morning's sheet from the keyboard table: rows share the date and who, all or none saved. */
 export const harvestBatchSchema = z.strictObject({
-	records: z.array(harvestSchema, { error: 'Records must be a list.' }).min(1, 'Enter at least one row.').max(200, 'At most 200 rows at once.')
+	records: z
+		.array(harvestSchema, { error: 'Records must be a list.' })
+		.min(1, 'Enter at least one row.')
+		.max(200, 'At most 200 rows at once.')
 });
 export type HarvestBatch = z.infer<typeof harvestBatchSchema>;
 
 /** "Use these figures" for one variety (owner, results page). */
-export const varietyFiguresSchema = z.strictObject({ varietyId: numberField('Variety', 1, 2 ** 31 - 1, { int: true }) });
+export const varietyFiguresSchema = z.strictObject({
+	varietyId: numberField('Variety', 1, 2 ** 31 - 1, { int: true })
+});
 /** Undo one recorded change of variety figures. */
 export const figureChangeSchema = z.strictObject({ changeId: numberField('Change', 1, 2 ** 31 - 1, { int: true }) });

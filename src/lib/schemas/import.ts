@@ -14,8 +14,14 @@ export type ImportableSheet = (typeof importableSheets)[number];
 /** The upload's fields besides the file: which season receives plantings, what a CSV holds. */
 export const importOptionsSchema = z
 	.object({
-		seasonId: z.preprocess((v) => (v === '' || v === null ? undefined : v), numberField('Season', 1, 2 ** 31 - 1, { int: true }).optional()),
-		sheet: z.preprocess((v) => (v === '' || v === null ? undefined : v), z.enum(importableSheets, { error: `Sheet must be one of ${importableSheets.join(', ')}.` }).optional())
+		seasonId: z.preprocess(
+			(v) => (v === '' || v === null ? undefined : v),
+			numberField('Season', 1, 2 ** 31 - 1, { int: true }).optional()
+		),
+		sheet: z.preprocess(
+			(v) => (v === '' || v === null ? undefined : v),
+			z.enum(importableSheets, { error: `Sheet must be one of ${importableSheets.join(', ')}.` }).optional()
+		)
 	})
 	.strict();
 export type ImportOptions = z.infer<typeof importOptionsSchema>;
@@ -23,15 +29,20 @@ export type ImportOptions = z.infer<typeof importOptionsSchema>;
 const blank = (v: unknown): boolean => v === null || v === undefined || (typeof v === 'string' && v.trim() === '');
 const orUndefined = (v: unknown): unknown => (blank(v) ? undefined : v);
 
-const text = (label: string, max: number) => z.preprocess((v) => (typeof v === 'number' ? String(v) : v), plainText(label, max));
+const text = (label: string, max: number) =>
+	z.preprocess((v) => (typeof v === 'number' ? String(v) : v), plainText(label, max));
 const optionalText = (label: string, max: number) =>
 	z.preprocess((v) => (blank(v) ? null : typeof v === 'number' ? String(v) : v), plainText(label, max).nullable());
 
 /** Case and spacing do not matter in a choice cell: "Direct", " direct " and "DIRECT" agree. */
 const choice = <T extends readonly [string, ...string[]]>(label: string, options: T) =>
-	z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(options, { error: `${label} must be one of ${options.join(', ')}.` }));
+	z.preprocess(
+		(v) => (typeof v === 'string' ? v.trim().toLowerCase() : v),
+		z.enum(options, { error: `${label} must be one of ${options.join(', ')}.` })
+	);
 
-const required = (label: string, min: number, max: number, opts: { int?: boolean } = {}) => z.preprocess(orUndefined, numberField(label, min, max, opts));
+const required = (label: string, min: number, max: number, opts: { int?: boolean } = {}) =>
+	z.preprocess(orUndefined, numberField(label, min, max, opts));
 const optional = (label: string, min: number, max: number, opts: { int?: boolean } = {}) =>
 	z.preprocess((v) => (blank(v) ? null : v), numberField(label, min, max, opts).nullable());
 const withDefault = (label: string, min: number, max: number, fallback: number, opts: { int?: boolean } = {}) =>
@@ -43,11 +54,13 @@ const EXCEL_EPOCH_DAYS = 25569;
 /** A date cell: a real date, an Excel day number, or 'YYYY-MM-DD' text. */
 function dateValue(v: unknown): unknown {
 	if (v instanceof Date) return Number.isNaN(v.getTime()) ? 'invalid' : v.toISOString().slice(0, 10);
-	if (typeof v === 'number' && v > 20_000 && v < 80_000) return new Date(Math.round((v - EXCEL_EPOCH_DAYS) * 86_400_000)).toISOString().slice(0, 10);
+	if (typeof v === 'number' && v > 20_000 && v < 80_000)
+		return new Date(Math.round((v - EXCEL_EPOCH_DAYS) * 86_400_000)).toISOString().slice(0, 10);
 	return typeof v === 'string' ? v.trim() : v;
 }
 const date = (label: string) => z.preprocess(dateValue, isoDate(label));
-const optionalDate = (label: string) => z.preprocess((v) => (blank(v) ? null : dateValue(v)), isoDate(label).nullable());
+const optionalDate = (label: string) =>
+	z.preprocess((v) => (blank(v) ? null : dateValue(v)), isoDate(label).nullable());
 
 /** A rate: 0.85 as a number (a cell formatted as percent holds that), or "85%" / "85 %" as text. */
 function rateValue(v: unknown): unknown {
@@ -56,7 +69,10 @@ function rateValue(v: unknown): unknown {
 	return t.endsWith('%') ? Number(t.slice(0, -1).trim().replace(',', '.')) / 100 : t;
 }
 const rate = (label: string, min: number, fallback?: number) =>
-	z.preprocess((v) => (blank(v) ? fallback : rateValue(v)), numberField(`${label} (a fraction such as 0.85, or 85%)`, min, 1));
+	z.preprocess(
+		(v) => (blank(v) ? fallback : rateValue(v)),
+		numberField(`${label} (a fraction such as 0.85, or 85%)`, min, 1)
+	);
 
 /** Money in dollars ("$0.90", "0.90" or 0.9) to whole cents, as the database keeps it. */
 const cents = (label: string) => z.preprocess((v) => (blank(v) ? '0' : v), moneyCents(label, 10_000));
@@ -93,7 +109,10 @@ export const varietyRowSchema = z.object({
 
 export const bedRowSchema = z.object({
 	block: text('Block', 60),
-	blockPosition: z.preprocess((v) => (blank(v) ? null : v), numberField('Block order', 0, 10_000, { int: true }).nullable()),
+	blockPosition: z.preprocess(
+		(v) => (blank(v) ? null : v),
+		numberField('Block order', 0, 10_000, { int: true }).nullable()
+	),
 	bed: text('Bed', 60),
 	position: withDefault('Walking order', 0, 100_000, 0, { int: true }),
 	lengthFt: required('Length', 0.5, 10_000),
@@ -116,12 +135,18 @@ export const plantingRowSchema = z.object({
 	lastHarvest: date('Last harvest'),
 	expectedYield: withDefault('Expected yield', 0, 1_000_000_000, 0),
 	seedsNeeded: withDefault('Seeds needed', 0, 2 ** 31 - 1, 0, { int: true }),
-	status: z.preprocess((v) => (blank(v) ? 'planned' : typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(plantingStatuses, { error: `Status must be one of ${plantingStatuses.join(', ')}.` })),
+	status: z.preprocess(
+		(v) => (blank(v) ? 'planned' : typeof v === 'string' ? v.trim().toLowerCase() : v),
+		z.enum(plantingStatuses, { error: `Status must be one of ${plantingStatuses.join(', ')}.` })
+	),
 	actualTraySowDate: optionalDate('Actual tray sowing'),
 	actualFieldDate: optionalDate('Actual field date'),
 	actualFirstHarvest: optionalDate('Actual first harvest'),
 	actualLastHarvest: optionalDate('Actual last harvest'),
-	notes: z.preprocess((v) => (blank(v) ? null : String(v).trim()), z.string().max(2000, 'Notes must be at most 2000 characters.').nullable()),
+	notes: z.preprocess(
+		(v) => (blank(v) ? null : String(v).trim()),
+		z.string().max(2000, 'Notes must be at most 2000 characters.').nullable()
+	),
 	id: optional('Planting id', 1, 2 ** 31 - 1, { int: true })
 });
 
@@ -150,6 +175,12 @@ export interface ImportIssue {
 }
 
 export function describeIssue(i: ImportIssue): string {
-	const at = [i.sheet, i.row !== null ? `row ${i.row}` : null, i.column ? `column ${i.column}${i.header ? ` (${i.header})` : ''}` : null].filter(Boolean).join(', ');
+	const at = [
+		i.sheet,
+		i.row !== null ? `row ${i.row}` : null,
+		i.column ? `column ${i.column}${i.header ? ` (${i.header})` : ''}` : null
+	]
+		.filter(Boolean)
+		.join(', ');
 	return `${at}: ${i.message}`;
 }

@@ -54,9 +54,16 @@ function readWith(t: string, decimal: DecimalMark): number | null {
 	const groups = whole.split(group);
 	// Groups: the first of 1–3 digits, the last of 3, those between of 3 (or 2, as in 12,34,567).
 	const middle = groups.slice(1, -1);
-	if (groups.length > 1 && (!/^\d{1,3}$/.test(groups[0]) || !/^\d{3}$/.test(groups[groups.length - 1]) || middle.some((g) => !/^\d{2,3}$/.test(g)))) return null;
+	if (
+		groups.length > 1 &&
+		(!/^\d{1,3}$/.test(groups[0]) ||
+			!/^\d{3}$/.test(groups[groups.length - 1]) ||
+			middle.some((g) => !/^\d{2,3}$/.test(g)))
+	)
+		return null;
 	const digits = groups.join('');
-	if (!/^\d*$/.test(digits) || (frac !== undefined && !/^\d+$/.test(frac)) || (digits === '' && frac === undefined)) return null;
+	if (!/^\d*$/.test(digits) || (frac !== undefined && !/^\d+$/.test(frac)) || (digits === '' && frac === undefined))
+		return null;
 	return Number(`${digits || '0'}${frac !== undefined ? `.${frac}` : ''}`);
 }
 

@@ -36,7 +36,10 @@ export function editableFields(role: Role): readonly PlantingField[] {
 export const plantingCreateSchema = z
 	.object(
 		Object.fromEntries(
-			plantingFieldNames.map((f) => [f, fieldSpec(f).initial === undefined ? plantingFields[f] : plantingFields[f].optional()])
+			plantingFieldNames.map((f) => [
+				f,
+				fieldSpec(f).initial === undefined ? plantingFields[f] : plantingFields[f].optional()
+			])
 		)
 	)
 	.strict() as unknown as z.ZodType<PlantingCreate>;
@@ -44,13 +47,21 @@ export type PlantingCreate = Pick<PlantingValues, RequiredField> & Partial<Omit<
 
 /** POST body: one row, or many (a paste); errors name `plantings.<row>.<field>`. */
 export const plantingBatchSchema = z
-	.object({ plantings: z.array(plantingCreateSchema).min(1, 'Send at least one planting.').max(5000, 'At most 5000 plantings at once.') })
+	.object({
+		plantings: z
+			.array(plantingCreateSchema)
+			.min(1, 'Send at least one planting.')
+			.max(5000, 'At most 5000 plantings at once.')
+	})
 	.strict();
 
 /** PATCH body: the version the edit was made on, and any editable fields. */
 export const plantingPatchSchema = z
 	.object({
-		version: z.number({ error: 'version is required (the version your edit was made on).' }).int('version must be a whole number.').positive('version must be positive.'),
+		version: z
+			.number({ error: 'version is required (the version your edit was made on).' })
+			.int('version must be a whole number.')
+			.positive('version must be positive.'),
 		...Object.fromEntries(plantingFieldNames.map((f) => [f, plantingFields[f].optional()]))
 	})
 	.strict() as unknown as z.ZodType<{ version: number } & Partial<PlantingValues>>;
@@ -61,13 +72,22 @@ export type CellCheck = { ok: true; value: unknown; note?: string } | { ok: fals
 /** Validates one cell's typed or pasted text with the field's own schema. */
 export function checkCell(field: PlantingField, raw: unknown): CellCheck {
 	const r = plantingFields[field].safeParse(raw);
-	return r.success ? { ok: true, value: r.data } : { ok: false, message: r.error.issues[0]?.message ?? 'Invalid value.' };
+	return r.success
+		? { ok: true, value: r.data }
+		: { ok: false, message: r.error.issues[0]?.message ?? 'Invalid value.' };
 }
 
 /** Column widths (px) and hidden columns of the grid, kept per user. */
 export const gridPrefsSchema = z
 	.object({
-		widths: z.record(z.string().regex(/^[a-zA-Z]{1,40}$/, 'column ids are letters'), z.number().int('widths are whole pixels').min(40, 'widths are at least 40 px').max(800, 'widths are at most 800 px')),
+		widths: z.record(
+			z.string().regex(/^[a-zA-Z]{1,40}$/, 'column ids are letters'),
+			z
+				.number()
+				.int('widths are whole pixels')
+				.min(40, 'widths are at least 40 px')
+				.max(800, 'widths are at most 800 px')
+		),
 		hidden: z.array(z.string().regex(/^[a-zA-Z]{1,40}$/, 'column ids are letters')).max(60)
 	})
 	.strict();

@@ -41,7 +41,21 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 			// A failed planting gave nothing by definition; the forecast page leaves it out too.
 			.whereNot('p.status', 'failed')
-			.select('p.id', 'p.variety_id', 'v.crop_id', 'p.length_ft', 'p.expected_yield', 'v.yield_per_bed_foot', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.actual_field_date', 'p.actual_first_harvest', 'p.status', 'b.name as bed'),
+			.select(
+				'p.id',
+				'p.variety_id',
+				'v.crop_id',
+				'p.length_ft',
+				'p.expected_yield',
+				'v.yield_per_bed_foot',
+				'p.field_date',
+				'p.first_harvest',
+				'p.last_harvest',
+				'p.actual_field_date',
+				'p.actual_first_harvest',
+				'p.status',
+				'b.name as bed'
+			),
 		db()('harvest_records as h')
 			.join('plantings as p', 'p.id', 'h.planting_id')
 			.join('varieties as v', 'v.id', 'p.variety_id')
@@ -51,7 +65,19 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 			// A harvest in another unit cannot be added to the crop's figures (the log refuses them now).
 			.andWhereRaw('h.unit = c.harvest_unit')
 			.select('h.planting_id', 'h.harvested_on', 'h.quantity'),
-		db()('varieties as v').join('crops as c', 'c.id', 'v.crop_id').where('v.farm_id', farmId).select('v.id', 'v.name', 'v.crop_id', 'v.yield_per_bed_foot', 'v.days_to_maturity', 'c.name as crop', 'c.family', 'c.harvest_unit'),
+		db()('varieties as v')
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where('v.farm_id', farmId)
+			.select(
+				'v.id',
+				'v.name',
+				'v.crop_id',
+				'v.yield_per_bed_foot',
+				'v.days_to_maturity',
+				'c.name as crop',
+				'c.family',
+				'c.harvest_unit'
+			),
 		listChanges(farmId, seasonId)
 	]);
 	const result = actualsAgainstPlan({
@@ -63,7 +89,8 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 			bedFeet: Number(p.length_ft),
 			// As planned: the yield stored with the planting when it was planned, so taking over a
 			// variety's observed figure changes future plans, not this season's forecast.
-			yieldPerBedFoot: Number(p.length_ft) > 0 ? Number(p.expected_yield) / Number(p.length_ft) : Number(p.yield_per_bed_foot),
+			yieldPerBedFoot:
+				Number(p.length_ft) > 0 ? Number(p.expected_yield) / Number(p.length_ft) : Number(p.yield_per_bed_foot),
 			fieldDate: p.field_date,
 			firstHarvest: p.first_harvest,
 			lastHarvest: p.last_harvest,
@@ -71,12 +98,21 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 			actualFirstHarvest: p.actual_first_harvest,
 			finished: p.status === 'finished'
 		})),
-		harvests: harvests.map((h) => ({ plantingKey: String(h.planting_id), date: h.harvested_on, quantity: Number(h.quantity) }))
+		harvests: harvests.map((h) => ({
+			plantingKey: String(h.planting_id),
+			date: h.harvested_on,
+			quantity: Number(h.quantity)
+		}))
 	});
 	const names: ResultNames = { crops: {}, varieties: {}, plantings: {} };
 	for (const v of varieties) {
 		names.crops[String(v.crop_id)] = { name: v.crop, family: v.family, unit: v.harvest_unit };
-		names.varieties[String(v.id)] = { name: v.name, cropId: String(v.crop_id), yieldPerBedFoot: Number(v.yield_per_bed_foot), daysToMaturity: v.days_to_maturity };
+		names.varieties[String(v.id)] = {
+			name: v.name,
+			cropId: String(v.crop_id),
+			yieldPerBedFoot: Number(v.yield_per_bed_foot),
+			daysToMaturity: v.days_to_maturity
+		};
 	}
 	for (const p of plantings) names.plantings[String(p.id)] = { bed: p.bed, fieldDate: p.field_date, status: p.status };
 	return { currentWeek: isoWeek(today), result, names, changes };
@@ -111,19 +147,30 @@ export type FigureResult = { ok: true; change: FigureChange } | { ok: false; sta
  * Takes a variety's observed figures from this season into the crop library. Only a figure
  * with at least MIN_PLANTINGS_FOR_FIGURES plantings behind it is taken; the other keeps its value.
  */
-export async function useFigures(farmId: number, seasonId: number, varietyId: number, userId: string): Promise<FigureResult> {
+export async function useFigures(
+	farmId: number,
+	seasonId: number,
+	varietyId: number,
+	userId: string
+): Promise<FigureResult> {
 	const { result } = await seasonActuals(farmId, seasonId);
 	const obs = result.varieties.find((v) => v.variety === String(varietyId));
 	const yieldOk = !!obs && obs.yieldPlantings >= MIN_PLANTINGS_FOR_FIGURES && obs.observedYieldPerBedFoot !== null;
-	const dtmOk = !!obs && obs.dtmPlantings >= MIN_PLANTINGS_FOR_FIGURES && obs.observedDtm !== null && obs.observedDtm > 0;
+	const dtmOk =
+		!!obs && obs.dtmPlantings >= MIN_PLANTINGS_FOR_FIGURES && obs.observedDtm !== null && obs.observedDtm > 0;
 	const id = await db().transaction(async (trx) => {
-		const v = await trx('varieties').where({ id: varietyId, farm_id: farmId }).forUpdate().first('yield_per_bed_foot', 'days_to_maturity');
+		const v = await trx('varieties')
+			.where({ id: varietyId, farm_id: farmId })
+			.forUpdate()
+			.first('yield_per_bed_foot', 'days_to_maturity');
 		if (!v) return 'not_found' as const;
 		if (!yieldOk && !dtmOk) return 'too_few' as const;
 		// Three decimals, as the column keeps them.
 		const newYield = yieldOk ? Math.round(obs!.observedYieldPerBedFoot! * 1000) / 1000 : Number(v.yield_per_bed_foot);
 		const newDtm = dtmOk ? obs!.observedDtm! : v.days_to_maturity;
-		await trx('varieties').where({ id: varietyId, farm_id: farmId }).update({ yield_per_bed_foot: newYield, days_to_maturity: newDtm });
+		await trx('varieties')
+			.where({ id: varietyId, farm_id: farmId })
+			.update({ yield_per_bed_foot: newYield, days_to_maturity: newDtm });
 		const [cid] = await trx('variety_figure_changes').insert({
 			farm_id: farmId,
 			variety_id: varietyId,
@@ -139,21 +186,47 @@ export async function useFigures(farmId: number, seasonId: number, varietyId: nu
 		return cid as number;
 	});
 	if (id === 'not_found') return { ok: false, status: 404, message: 'No such variety on this farm.' };
-	if (id === 'too_few') return { ok: false, status: 400, message: `Fewer than ${MIN_PLANTINGS_FOR_FIGURES} plantings stand behind this variety's figures this season.` };
+	if (id === 'too_few')
+		return {
+			ok: false,
+			status: 400,
+			message: `Fewer than ${MIN_PLANTINGS_FOR_FIGURES} plantings stand behind this variety's figures this season.`
+		};
 	return { ok: true, change: (await listChanges(farmId, seasonId)).find((c) => c.id === id)! };
 }
 
 /** Puts a variety's figures back as they were before a change, unless it was edited since (409). */
-export async function undoFigures(farmId: number, seasonId: number, changeId: number, userId: string): Promise<FigureResult> {
+export async function undoFigures(
+	farmId: number,
+	seasonId: number,
+	changeId: number,
+	userId: string
+): Promise<FigureResult> {
 	const out = await db().transaction(async (trx) => {
-		const c = await trx('variety_figure_changes').where({ id: changeId, farm_id: farmId, season_id: seasonId }).forUpdate().first();
+		const c = await trx('variety_figure_changes')
+			.where({ id: changeId, farm_id: farmId, season_id: seasonId })
+			.forUpdate()
+			.first();
 		if (!c) return { ok: false, status: 404, message: 'No such change of variety figures.' } as const;
 		if (c.undone_at) return { ok: false, status: 409, message: 'This change was already undone.' } as const;
-		const v = await trx('varieties').where({ id: c.variety_id, farm_id: farmId }).forUpdate().first('yield_per_bed_foot', 'days_to_maturity');
-		if (!v || Number(v.yield_per_bed_foot) !== Number(c.new_yield_per_bed_foot) || v.days_to_maturity !== c.new_days_to_maturity) {
-			return { ok: false, status: 409, message: 'The variety was changed since; edit it in the crop library instead.' } as const;
+		const v = await trx('varieties')
+			.where({ id: c.variety_id, farm_id: farmId })
+			.forUpdate()
+			.first('yield_per_bed_foot', 'days_to_maturity');
+		if (
+			!v ||
+			Number(v.yield_per_bed_foot) !== Number(c.new_yield_per_bed_foot) ||
+			v.days_to_maturity !== c.new_days_to_maturity
+		) {
+			return {
+				ok: false,
+				status: 409,
+				message: 'The variety was changed since; edit it in the crop library instead.'
+			} as const;
 		}
-		await trx('varieties').where({ id: c.variety_id, farm_id: farmId }).update({ yield_per_bed_foot: c.old_yield_per_bed_foot, days_to_maturity: c.old_days_to_maturity });
+		await trx('varieties')
+			.where({ id: c.variety_id, farm_id: farmId })
+			.update({ yield_per_bed_foot: c.old_yield_per_bed_foot, days_to_maturity: c.old_days_to_maturity });
 		await trx('variety_figure_changes').where({ id: changeId }).update({ undone_at: trx.fn.now(), undone_by: userId });
 		return { ok: true } as const;
 	});

@@ -22,13 +22,27 @@ export async function parseBody<S extends z.ZodType>(event: RequestEvent, schema
 		try {
 			body = JSON.parse(text);
 		} catch {
-			return { ok: false, response: json({ message: 'The body is not valid JSON.', errors: { _body: 'not valid JSON' } }, { status: 400 }) };
+			return {
+				ok: false,
+				response: json({ message: 'The body is not valid JSON.', errors: { _body: 'not valid JSON' } }, { status: 400 })
+			};
 		}
 	}
 	const parsed = schema.safeParse(body);
 	if (!parsed.success) {
 		const errors = fieldErrors(parsed.error);
-		return { ok: false, response: json({ message: `Invalid input: ${Object.entries(errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors }, { status: 400 }) };
+		return {
+			ok: false,
+			response: json(
+				{
+					message: `Invalid input: ${Object.entries(errors)
+						.map(([k, v]) => `${k}: ${v}`)
+						.join('; ')}`,
+					errors
+				},
+				{ status: 400 }
+			)
+		};
 	}
 	return { ok: true, data: parsed.data };
 }

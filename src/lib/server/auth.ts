@@ -46,7 +46,10 @@ function positiveSetting(name: string, fallback: number): number {
 
 /** The idle timeout in hours and the absolute lifetime in milliseconds. */
 export function sessionLimits(): { idleHours: number; maxMs: number } {
-	return { idleHours: positiveSetting('FC_SESSION_IDLE_HOURS', 12), maxMs: positiveSetting('FC_SESSION_MAX_DAYS', 7) * 86_400_000 };
+	return {
+		idleHours: positiveSetting('FC_SESSION_IDLE_HOURS', 12),
+		maxMs: positiveSetting('FC_SESSION_MAX_DAYS', 7) * 86_400_000
+	};
 }
 
 function createLucia() {
@@ -87,14 +90,24 @@ function setSessionCookie(cookies: Cookies, url: URL, session: Session): void {
 	const cookie = lucia().createSessionCookie(session.id);
 	// The cookie lives as long as the session may: never past the absolute lifetime.
 	const expires = session.expiresAt;
-	cookies.set(cookie.name, cookie.value, { ...cookie.attributes, expires, maxAge: undefined, path: '/', httpOnly: true, secure: cookieIsSecure(url) });
+	cookies.set(cookie.name, cookie.value, {
+		...cookie.attributes,
+		expires,
+		maxAge: undefined,
+		path: '/',
+		httpOnly: true,
+		secure: cookieIsSecure(url)
+	});
 }
 
 /**
  * Checks the session cookie's session. Lucia ends idle sessions and renews used ones; past the
  * absolute lifetime the session ends whatever its use, and a renewal never reaches beyond it.
  */
-export async function validateSessionCookie(cookies: Cookies, url: URL): Promise<{ session: Session; user: User } | null> {
+export async function validateSessionCookie(
+	cookies: Cookies,
+	url: URL
+): Promise<{ session: Session; user: User } | null> {
 	const sessionId = cookies.get(lucia().sessionCookieName);
 	if (!sessionId) return null;
 	const { session, user } = await lucia().validateSession(sessionId);
@@ -122,10 +135,19 @@ export async function validateSessionCookie(cookies: Cookies, url: URL): Promise
 /** Ends a user's sessions at once: on the farm given (and those with no farm), or all of them. */
 export async function endSessionsOf(userId: string, farmId?: number): Promise<void> {
 	if (farmId === undefined) await lucia().invalidateUserSessions(userId);
-	else await sessionPool().execute('DELETE FROM user_sessions WHERE user_id = ? AND (farm_id = ? OR farm_id IS NULL)', [userId, farmId]);
+	else
+		await sessionPool().execute('DELETE FROM user_sessions WHERE user_id = ? AND (farm_id = ? OR farm_id IS NULL)', [
+			userId,
+			farmId
+		]);
 }
 
 export function clearSessionCookie(cookies: Cookies, url: URL): void {
 	const cookie = lucia().createBlankSessionCookie();
-	cookies.set(cookie.name, cookie.value, { ...cookie.attributes, path: '/', httpOnly: true, secure: cookieIsSecure(url) });
+	cookies.set(cookie.name, cookie.value, {
+		...cookie.attributes,
+		path: '/',
+		httpOnly: true,
+		secure: cookieIsSecure(url)
+	});
 }

@@ -6,8 +6,16 @@ import type { Knex } from 'knex';
 import { db } from './db';
 
 /** Narrows a query on `plantings as p` to placed plantings in the ground at some time in [from, to] (turnaround counted). */
-export function holdingBedIn(q: Knex.QueryBuilder, from: string, to: string, turnaroundDays: number): Knex.QueryBuilder {
-	return q.whereNotNull('p.bed_id').andWhere('p.field_date', '<=', to).andWhere('p.last_harvest', '>=', addDays(from, -turnaroundDays));
+export function holdingBedIn(
+	q: Knex.QueryBuilder,
+	from: string,
+	to: string,
+	turnaroundDays: number
+): Knex.QueryBuilder {
+	return q
+		.whereNotNull('p.bed_id')
+		.andWhere('p.field_date', '<=', to)
+		.andWhere('p.last_harvest', '>=', addDays(from, -turnaroundDays));
 }
 
 /**
@@ -15,7 +23,13 @@ export function holdingBedIn(q: Knex.QueryBuilder, from: string, to: string, tur
  * harvest plus the turnaround on or after `from`), other than those of `exceptSeasonId`, as the
  * engine's obstacles. The bed timeline counts the same plantings.
  */
-export async function bedHolders(farmId: number, from: string, to: string, turnaroundDays: number, exceptSeasonId?: number): Promise<BedPlanting[]> {
+export async function bedHolders(
+	farmId: number,
+	from: string,
+	to: string,
+	turnaroundDays: number,
+	exceptSeasonId?: number
+): Promise<BedPlanting[]> {
 	const q = db()('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
@@ -23,7 +37,15 @@ export async function bedHolders(farmId: number, from: string, to: string, turna
 		.whereNot('p.status', 'failed');
 	holdingBedIn(q, from, to, turnaroundDays);
 	if (exceptSeasonId !== undefined) q.whereNot('p.season_id', exceptSeasonId);
-	const rows = await q.select('p.id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.last_harvest', 'c.family');
+	const rows = await q.select(
+		'p.id',
+		'p.bed_id',
+		'p.start_ft',
+		'p.length_ft',
+		'p.field_date',
+		'p.last_harvest',
+		'c.family'
+	);
 	return rows.map((p) => ({
 		key: `planting#${p.id}`,
 		bedId: String(p.bed_id),

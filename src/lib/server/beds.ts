@@ -37,7 +37,7 @@ export class BedInputError extends Error {
 
 async function assertBlockOfFarm(farmId: number, blockId: number): Promise<void> {
 	const block = await db()('blocks').where({ id: blockId, farm_id: farmId }).first('id');
-	if (!block) throw new BedInputError('blockId', 'Choose one of this farm\'s blocks.');
+	if (!block) throw new BedInputError('blockId', "Choose one of this farm's blocks.");
 }
 
 async function assertNameFree(farmId: number, name: string, exceptId?: number): Promise<void> {
@@ -79,13 +79,16 @@ export async function update(farmId: number, bedId: number, input: BedInput): Pr
 export async function remove(farmId: number, bedId: number): Promise<boolean> {
 	// The plantings come off the bed first: the (farm_id, bed_id) key would take them with it.
 	return db().transaction(async (trx) => {
-		await trx('plantings').where({ farm_id: farmId, bed_id: bedId }).update({ bed_id: null, version: trx.raw('version + 1') });
+		await trx('plantings')
+			.where({ farm_id: farmId, bed_id: bedId })
+			.update({ bed_id: null, version: trx.raw('version + 1') });
 		return (await trx('beds').where({ id: bedId, farm_id: farmId }).delete()) > 0;
 	});
 }
 
 export async function createBlock(farmId: number, name: string): Promise<number> {
-	if (await db()('blocks').where({ farm_id: farmId, name }).first('id')) throw new BedInputError('name', `A block named "${name}" already exists.`);
+	if (await db()('blocks').where({ farm_id: farmId, name }).first('id'))
+		throw new BedInputError('name', `A block named "${name}" already exists.`);
 	const max = await db()('blocks').where({ farm_id: farmId }).max('position as p').first();
 	const [id] = await db()('blocks').insert({ farm_id: farmId, name, position: Number(max?.p ?? 0) + 1 });
 	return id;

@@ -59,7 +59,20 @@ export async function listSwaps(farmId: number, seasonId: number): Promise<SwapV
 		.leftJoin('users as x', 'x.id', 'w.undone_by')
 		.where({ 'w.farm_id': farmId, 'w.season_id': seasonId })
 		.orderBy('w.id', 'desc')
-		.select('w.id', 'w.share_size_id', 's.name as share', 'w.week', 'w.from_crop_id', 'w.to_crop_id', 'w.quantity', 'w.to_quantity', 'u.name as created_by', 'w.created_at', 'w.undone_at', 'x.name as undone_by');
+		.select(
+			'w.id',
+			'w.share_size_id',
+			's.name as share',
+			'w.week',
+			'w.from_crop_id',
+			'w.to_crop_id',
+			'w.quantity',
+			'w.to_quantity',
+			'u.name as created_by',
+			'w.created_at',
+			'w.undone_at',
+			'x.name as undone_by'
+		);
 	return rows.map((r) => ({
 		id: r.id,
 		shareSizeId: String(r.share_size_id),
@@ -84,7 +97,9 @@ export async function boxSettings(farmId: number): Promise<{ shortFillPct: numbe
 	]);
 	return {
 		shortFillPct: Number(farm?.box_short_fill_pct ?? 95),
-		prices: Object.fromEntries(crops.map((c: { id: number; price_cents_per_unit: number }) => [String(c.id), c.price_cents_per_unit / 100]))
+		prices: Object.fromEntries(
+			crops.map((c: { id: number; price_cents_per_unit: number }) => [String(c.id), c.price_cents_per_unit / 100])
+		)
 	};
 }
 
@@ -105,7 +120,9 @@ export async function matching(farmId: number, season: Season): Promise<BoxMatch
 	const boxes = matchBoxes(f.rows, f.demand, { shortBelow: settings.shortFillPct / 100 }).map((b) => ({
 		...b,
 		shareName: names.get(b.shareSizeId) ?? b.shareSizeId,
-		substitutes: Object.fromEntries(b.items.filter((i) => i.short).map((i) => [i.crop, suggestSubstitutes(f.rows, b, i, unitOf, 3, priceOf)]))
+		substitutes: Object.fromEntries(
+			b.items.filter((i) => i.short).map((i) => [i.crop, suggestSubstitutes(f.rows, b, i, unitOf, 3, priceOf)])
+		)
 	}));
 	const inSeason = f.rows.filter((r) => r.week >= f.weeks[0] && r.week <= f.weeks[f.weeks.length - 1]);
 	return {
@@ -126,28 +143,57 @@ export type SwapResult = { ok: true; id: number } | { ok: false; errors: Record<
  * the share size is this season's, the week one of its distribution weeks, the box holds at
  * least `quantity` of fromCrop, and both crops are the farm's with the same harvest unit.
  */
-export async function createSwap(farmId: number, seasonId: number, userId: string, input: SwapInput): Promise<SwapResult> {
+export async function createSwap(
+	farmId: number,
+	seasonId: number,
+	userId: string,
+	input: SwapInput
+): Promise<SwapResult> {
 	return db().transaction(async (trx): Promise<SwapResult> => {
-		const share = await trx('share_sizes').where({ id: input.shareSizeId, farm_id: farmId, season_id: seasonId }).first('id', 'first_week', 'last_week');
+		const share = await trx('share_sizes')
+			.where({ id: input.shareSizeId, farm_id: farmId, season_id: seasonId })
+			.first('id', 'first_week', 'last_week');
 		if (!share) return { ok: false, errors: { shareSizeId: 'no such share size in this season.' } };
-		if (input.week < share.first_week || input.week > share.last_week) return { ok: false, errors: { week: `the share is handed out ${share.first_week}–${share.last_week}.` } };
-		const crops = await trx('crops').where({ farm_id: farmId }).whereIn('id', [input.fromCropId, input.toCropId]).select('id', 'harvest_unit');
+		if (input.week < share.first_week || input.week > share.last_week)
+			return { ok: false, errors: { week: `the share is handed out ${share.first_week}–${share.last_week}.` } };
+		const crops = await trx('crops')
+			.where({ farm_id: farmId })
+			.whereIn('id', [input.fromCropId, input.toCropId])
+			.select('id', 'harvest_unit');
 		const from = crops.find((c) => c.id === input.fromCropId);
 		const to = crops.find((c) => c.id === input.toCropId);
 		if (!from) return { ok: false, errors: { fromCropId: 'no such crop on this farm.' } };
 		if (!to) return { ok: false, errors: { toCropId: 'no such crop on this farm.' } };
 		// A crop of another unit goes in by the quantity the share manager confirmed (sized by value).
 		if (from.harvest_unit !== to.harvest_unit && input.toQuantity === undefined) {
-			return { ok: false, errors: { toQuantity: `is needed: the substitute is counted in ${to.harvest_unit}, the box item in ${from.harvest_unit}.` } };
+			return {
+				ok: false,
+				errors: {
+					toQuantity: `is needed: the substitute is counted in ${to.harvest_unit}, the box item in ${from.harvest_unit}.`
+				}
+			};
 		}
 		// Lock this box's items and swaps so two swaps at once cannot both take the same quantity.
-		const items = await trx('box_items').where({ share_size_id: share.id, week: input.week }).forUpdate().select('crop_id', 'quantity');
-		const swaps = await trx('box_swaps').where({ share_size_id: share.id, week: input.week }).whereNull('undone_at').orderBy('id').forUpdate().select('from_crop_id', 'to_crop_id', 'quantity', 'to_quantity');
+		const items = await trx('box_items')
+			.where({ share_size_id: share.id, week: input.week })
+			.forUpdate()
+			.select('crop_id', 'quantity');
+		const swaps = await trx('box_swaps')
+			.where({ share_size_id: share.id, week: input.week })
+			.whereNull('undone_at')
+			.orderBy('id')
+			.forUpdate()
+			.select('from_crop_id', 'to_crop_id', 'quantity', 'to_quantity');
 		const box = applySwaps(
 			{
 				shareSizes: [],
 				channelDemand: [],
-				boxItems: items.map((i) => ({ shareSizeId: 's', week: input.week, crop: String(i.crop_id), quantity: Number(i.quantity) }))
+				boxItems: items.map((i) => ({
+					shareSizeId: 's',
+					week: input.week,
+					crop: String(i.crop_id),
+					quantity: Number(i.quantity)
+				}))
 			},
 			swaps.map((s) => ({
 				shareSizeId: 's',
@@ -160,7 +206,8 @@ export async function createSwap(farmId: number, seasonId: number, userId: strin
 		);
 		const held = box.boxItems.find((i) => i.crop === String(input.fromCropId))?.quantity ?? 0;
 		if (held <= 0) return { ok: false, errors: { fromCropId: `is not in this box in ${input.week}.` } };
-		if (input.quantity > held + 1e-9) return { ok: false, errors: { quantity: `the box holds ${held} ${from.harvest_unit} of it.` } };
+		if (input.quantity > held + 1e-9)
+			return { ok: false, errors: { quantity: `the box holds ${held} ${from.harvest_unit} of it.` } };
 		const [id] = await trx('box_swaps').insert({
 			farm_id: farmId,
 			season_id: seasonId,
@@ -169,7 +216,10 @@ export async function createSwap(farmId: number, seasonId: number, userId: strin
 			from_crop_id: input.fromCropId,
 			to_crop_id: input.toCropId,
 			quantity: input.quantity,
-			to_quantity: from.harvest_unit !== to.harvest_unit || (input.toQuantity !== undefined && input.toQuantity !== input.quantity) ? input.toQuantity : null,
+			to_quantity:
+				from.harvest_unit !== to.harvest_unit || (input.toQuantity !== undefined && input.toQuantity !== input.quantity)
+					? input.toQuantity
+					: null,
 			created_by: userId
 		});
 		return { ok: true, id };
@@ -180,9 +230,14 @@ export type UndoResult = 'undone' | 'missing' | 'already_undone';
 
 /** Marks a swap undone (it stays on record). */
 export async function undoSwap(farmId: number, seasonId: number, swapId: number, userId: string): Promise<UndoResult> {
-	const swap = await db()('box_swaps').where({ id: swapId, farm_id: farmId, season_id: seasonId }).first('id', 'undone_at');
+	const swap = await db()('box_swaps')
+		.where({ id: swapId, farm_id: farmId, season_id: seasonId })
+		.first('id', 'undone_at');
 	if (!swap) return 'missing';
 	if (swap.undone_at) return 'already_undone';
-	const n = await db()('box_swaps').where({ id: swapId }).whereNull('undone_at').update({ undone_at: db().fn.now(), undone_by: userId });
+	const n = await db()('box_swaps')
+		.where({ id: swapId })
+		.whereNull('undone_at')
+		.update({ undone_at: db().fn.now(), undone_by: userId });
 	return n ? 'undone' : 'already_undone';
 }

@@ -17,9 +17,20 @@ export interface FeedStatus {
 export async function createFeed(farmId: number, userId: string): Promise<string> {
 	const { token, hash } = newToken();
 	await db().transaction(async (trx) => {
-		const last = await trx('calendar_feeds').where({ farm_id: farmId, user_id: userId }).orderBy('id', 'desc').first('season_ids');
-		await trx('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
-		await trx('calendar_feeds').insert({ farm_id: farmId, user_id: userId, token_hash: hash, season_ids: last?.season_ids ?? null });
+		const last = await trx('calendar_feeds')
+			.where({ farm_id: farmId, user_id: userId })
+			.orderBy('id', 'desc')
+			.first('season_ids');
+		await trx('calendar_feeds')
+			.where({ farm_id: farmId, user_id: userId })
+			.whereNull('revoked_at')
+			.update({ revoked_at: new Date() });
+		await trx('calendar_feeds').insert({
+			farm_id: farmId,
+			user_id: userId,
+			token_hash: hash,
+			season_ids: last?.season_ids ?? null
+		});
 	});
 	return token;
 }
@@ -29,7 +40,10 @@ export async function createFeed(farmId: number, userId: string): Promise<string
  * to come; with none to come, the latest. Test and past seasons are left out unless chosen.
  */
 export async function currentSeasonIds(farmId: number, today: string): Promise<number[]> {
-	const all: { id: number; starts_on: string; ends_on: string }[] = await db()('seasons').where({ farm_id: farmId }).orderBy('starts_on').select('id', 'starts_on', 'ends_on');
+	const all: { id: number; starts_on: string; ends_on: string }[] = await db()('seasons')
+		.where({ farm_id: farmId })
+		.orderBy('starts_on')
+		.select('id', 'starts_on', 'ends_on');
 	const running = all.filter((x) => x.starts_on <= today && x.ends_on >= today);
 	if (running.length) return running.map((x) => x.id);
 	const coming = all.filter((x) => x.starts_on > today);
@@ -39,7 +53,10 @@ export async function currentSeasonIds(farmId: number, today: string): Promise<n
 
 /** The seasons the user's open feed covers as chosen, or null for "the current ones". */
 export async function chosenSeasons(farmId: number, userId: string): Promise<number[] | null> {
-	const r = await db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).orderBy('id', 'desc').first('season_ids');
+	const r = await db()('calendar_feeds')
+		.where({ farm_id: farmId, user_id: userId })
+		.orderBy('id', 'desc')
+		.first('season_ids');
 	if (!r?.season_ids) return null;
 	try {
 		const ids: unknown = JSON.parse(r.season_ids);
@@ -51,19 +68,35 @@ export async function chosenSeasons(farmId: number, userId: string): Promise<num
 
 /** Sets the seasons of the user's feeds on this farm (only the farm's own seasons; null = current ones). */
 export async function chooseSeasons(farmId: number, userId: string, ids: number[] | null): Promise<void> {
-	const own = ids === null ? null : ((await db()('seasons').where({ farm_id: farmId }).whereIn('id', ids).pluck('id')) as number[]);
-	await db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ season_ids: own === null ? null : JSON.stringify(own.sort((a, b) => a - b)) });
+	const own =
+		ids === null
+			? null
+			: ((await db()('seasons').where({ farm_id: farmId }).whereIn('id', ids).pluck('id')) as number[]);
+	await db()('calendar_feeds')
+		.where({ farm_id: farmId, user_id: userId })
+		.whereNull('revoked_at')
+		.update({ season_ids: own === null ? null : JSON.stringify(own.sort((a, b) => a - b)) });
 }
 
 /** Revokes the user's feed on this farm; returns how many feeds were open. */
 export async function revokeFeed(farmId: number, userId: string): Promise<number> {
-	return db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+	return db()('calendar_feeds')
+		.where({ farm_id: farmId, user_id: userId })
+		.whereNull('revoked_at')
+		.update({ revoked_at: new Date() });
 }
 
 export async function feedStatus(farmId: number, userId: string): Promise<FeedStatus | null> {
-	const r = await db()('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').orderBy('id', 'desc').first('created_at', 'last_fetched_at');
+	const r = await db()('calendar_feeds')
+		.where({ farm_id: farmId, user_id: userId })
+		.whereNull('revoked_at')
+		.orderBy('id', 'desc')
+		.first('created_at', 'last_fetched_at');
 	if (!r) return null;
-	return { createdAt: new Date(r.created_at).toISOString(), lastFetchedAt: r.last_fetched_at ? new Date(r.last_fetched_at).toISOString() : null };
+	return {
+		createdAt: new Date(r.created_at).toISOString(),
+		lastFetchedAt: r.last_fetched_at ? new Date(r.last_fetched_at).toISOString() : null
+	};
 }
 
 export interface Feed {
@@ -97,7 +130,10 @@ export async function findFeed(token: string): Promise<Feed | null> {
 	}
 	seasonIds ??= await currentSeasonIds(r.farm_id, todayIn(r.time_zone));
 	// Best effort: when a feed was last read, shown on its page; a failure here must not fail the feed.
-	await db()('calendar_feeds').where({ id: r.id }).update({ last_fetched_at: new Date() }).catch(() => undefined);
+	await db()('calendar_feeds')
+		.where({ id: r.id })
+		.update({ last_fetched_at: new Date() })
+		.catch(() => undefined);
 	return { farmId: r.farm_id, farmName: r.name, timeZone: r.time_zone, userId: r.user_id, role: r.role, seasonIds };
 }
 
@@ -115,7 +151,12 @@ const byRole: Record<Role, readonly Kind[]> = {
 	crew_lead: ['tray_sow', 'direct_sow', 'transplant', 'harvest'],
 	share_manager: ['harvest']
 };
-const verb: Record<Kind, string> = { tray_sow: 'Sow in trays', direct_sow: 'Direct sow', transplant: 'Transplant', harvest: 'Harvest starts' };
+const verb: Record<Kind, string> = {
+	tray_sow: 'Sow in trays',
+	direct_sow: 'Direct sow',
+	transplant: 'Transplant',
+	harvest: 'Harvest starts'
+};
 
 /** The feed's calendar as RFC 5545 text. */
 export async function feedCalendar(feed: Feed, url: string): Promise<string> {
@@ -139,7 +180,27 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 		.whereIn('p.season_id', feed.seasonIds ?? [])
 		.whereNot('p.status', 'failed')
 		.orderBy('p.id')
-		.select('p.id', 'p.method', 'p.tray_sow_date', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.start_ft', 'p.length_ft', 'p.rows', 'p.in_row_spacing_in', 'p.expected_yield', 'p.status', 'p.updated_at', 'p.version', 'v.name as variety', 'c.name as crop', 'c.harvest_unit', 'b.name as bed', 'k.name as block');
+		.select(
+			'p.id',
+			'p.method',
+			'p.tray_sow_date',
+			'p.field_date',
+			'p.first_harvest',
+			'p.last_harvest',
+			'p.start_ft',
+			'p.length_ft',
+			'p.rows',
+			'p.in_row_spacing_in',
+			'p.expected_yield',
+			'p.status',
+			'p.updated_at',
+			'p.version',
+			'v.name as variety',
+			'c.name as crop',
+			'c.harvest_unit',
+			'b.name as bed',
+			'k.name as block'
+		);
 	for (const p of plantings) {
 		const start = Number(p.start_ft);
 		const end = start + Number(p.length_ft);
@@ -152,7 +213,10 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 		];
 		for (const [kind, date] of tasks) {
 			if (!date || !kinds.includes(kind)) continue;
-			const details = kind === 'harvest' ? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${Number(p.expected_yield)} ${p.harvest_unit} in all.` : `${p.rows} rows at ${Number(p.in_row_spacing_in)} in.`;
+			const details =
+				kind === 'harvest'
+					? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${Number(p.expected_yield)} ${p.harvest_unit} in all.`
+					: `${p.rows} rows at ${Number(p.in_row_spacing_in)} in.`;
 			cal.createEvent({
 				// Stable across fetches, so a calendar app updates the event instead of adding another.
 				id: `planting-${p.id}-${kind}@furrowcast`,
@@ -191,13 +255,24 @@ export function rfc5545(text: string): string {
 /** One week-long all-day event per farm-share distribution week, with each share size's box. */
 async function addShareWeeks(cal: ReturnType<typeof ical>, farmId: number, seasonIds: number[]): Promise<void> {
 	const [shares, items] = await Promise.all([
-		db()('share_sizes').where({ farm_id: farmId }).whereIn('season_id', seasonIds).orderBy(['season_id', 'name']).select('id', 'season_id', 'name', 'members', 'first_week', 'last_week', 'pickup_days'),
-		db()('box_items as i').join('share_sizes as s', 's.id', 'i.share_size_id').join('crops as c', 'c.id', 'i.crop_id').where('s.farm_id', farmId).orderBy('c.name').select('i.share_size_id', 'i.week', 'c.name as crop', 'i.quantity', 'i.unit')
+		db()('share_sizes')
+			.where({ farm_id: farmId })
+			.whereIn('season_id', seasonIds)
+			.orderBy(['season_id', 'name'])
+			.select('id', 'season_id', 'name', 'members', 'first_week', 'last_week', 'pickup_days'),
+		db()('box_items as i')
+			.join('share_sizes as s', 's.id', 'i.share_size_id')
+			.join('crops as c', 'c.id', 'i.crop_id')
+			.where('s.farm_id', farmId)
+			.orderBy('c.name')
+			.select('i.share_size_id', 'i.week', 'c.name as crop', 'i.quantity', 'i.unit')
 	]);
 	const weeks = new Map<string, string[]>();
 	for (const s of shares) {
 		for (const week of weeksBetween(s.first_week, s.last_week)) {
-			const box = items.filter((i) => i.share_size_id === s.id && i.week === week).map((i) => `${i.crop} ${Number(i.quantity)} ${i.unit}`);
+			const box = items
+				.filter((i) => i.share_size_id === s.id && i.week === week)
+				.map((i) => `${i.crop} ${Number(i.quantity)} ${i.unit}`);
 			const line = `${s.name} (${s.members} members${s.pickup_days ? `, pick-up ${s.pickup_days}` : ''}): ${box.join(', ') || 'no box contents yet'}`;
 			const key = `${s.season_id}|${week}`;
 			weeks.set(key, [...(weeks.get(key) ?? []), line]);

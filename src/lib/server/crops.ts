@@ -14,8 +14,18 @@ export async function listVarieties(farmId: number, conn: Knex = db()): Promise<
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where('v.farm_id', farmId)
 		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])
-		.select('v.*', 'c.name as crop', 'c.family', 'c.harvest_unit', 'c.frost_tolerance', 'c.heat_limit_f', 'c.base_temp_f',
-			'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days', 'c.archived_at as crop_archived_at');
+		.select(
+			'v.*',
+			'c.name as crop',
+			'c.family',
+			'c.harvest_unit',
+			'c.frost_tolerance',
+			'c.heat_limit_f',
+			'c.base_temp_f',
+			'c.harvest_curve as crop_harvest_curve',
+			'c.harvest_cut_interval_days',
+			'c.archived_at as crop_archived_at'
+		);
 	return rows.map((r) => ({
 		id: r.id,
 		cropId: r.crop_id,
@@ -65,7 +75,8 @@ export function curveOf(shape: unknown, cutIntervalDays?: unknown): HarvestCurve
 	const s = shapeOf(shape);
 	if (s === 'flat') return undefined;
 	const out: HarvestCurve = { shape: s };
-	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0) out.intervalDays = Number(cutIntervalDays);
+	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0)
+		out.intervalDays = Number(cutIntervalDays);
 	return out;
 }
 
@@ -133,7 +144,12 @@ export async function listCrops(farmId: number, opts: { archived?: boolean } = {
 	const q = db()('crops').where({ farm_id: farmId }).orderBy('name');
 	if (!opts.archived) q.whereNull('archived_at');
 	const [rows, varieties] = await Promise.all([q.select<CropRow[]>('*'), listVarieties(farmId)]);
-	return rows.map((r) => toCrop(r, varieties.filter((v) => opts.archived || !v.archived)));
+	return rows.map((r) =>
+		toCrop(
+			r,
+			varieties.filter((v) => opts.archived || !v.archived)
+		)
+	);
 }
 
 export async function getCrop(farmId: number, cropId: number): Promise<CropView | null> {
@@ -173,12 +189,17 @@ function cropColumns(input: CropInput) {
 	};
 }
 
-export async function createCrop(farmId: number, input: CropInput, trx: Knex | Knex.Transaction = db()): Promise<number> {
+export async function createCrop(
+	farmId: number,
+	input: CropInput,
+	trx: Knex | Knex.Transaction = db()
+): Promise<number> {
 	try {
 		const [id] = await trx('crops').insert({ farm_id: farmId, ...cropColumns(input) });
 		return id;
 	} catch (e) {
-		if (isDuplicate(e)) throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
+		if (isDuplicate(e))
+			throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
 		throw e;
 	}
 }
@@ -195,7 +216,11 @@ export async function updateCrop(farmId: number, cropId: number, input: CropInpu
 			const [box, channel, logged] = await Promise.all([
 				trx('box_items').where({ crop_id: cropId }).first('id'),
 				trx('channel_demand').where({ farm_id: farmId, crop_id: cropId }).first('id'),
-				trx('harvest_records as h').join('plantings as p', 'p.id', 'h.planting_id').join('varieties as v', 'v.id', 'p.variety_id').where('v.crop_id', cropId).first('h.id')
+				trx('harvest_records as h')
+					.join('plantings as p', 'p.id', 'h.planting_id')
+					.join('varieties as v', 'v.id', 'p.variety_id')
+					.where('v.crop_id', cropId)
+					.first('h.id')
 			]);
 			if (box || channel || logged) {
 				throw new LibraryInputError(
@@ -207,7 +232,8 @@ export async function updateCrop(farmId: number, cropId: number, input: CropInpu
 		try {
 			await trx('crops').where({ farm_id: farmId, id: cropId }).update(cropColumns(input));
 		} catch (e) {
-			if (isDuplicate(e)) throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
+			if (isDuplicate(e))
+				throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
 			throw e;
 		}
 		return true;
@@ -215,7 +241,11 @@ export async function updateCrop(farmId: number, cropId: number, input: CropInpu
 }
 
 export async function setCropArchived(farmId: number, cropId: number, archived: boolean): Promise<boolean> {
-	return (await db()('crops').where({ farm_id: farmId, id: cropId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
+	return (
+		(await db()('crops')
+			.where({ farm_id: farmId, id: cropId })
+			.update({ archived_at: archived ? db().fn.now() : null })) > 0
+	);
 }
 
 function varietyColumns(input: VarietyInput) {
@@ -241,13 +271,20 @@ function varietyColumns(input: VarietyInput) {
 	};
 }
 
-export async function createVariety(farmId: number, cropId: number, input: VarietyInput, trx: Knex | Knex.Transaction = db()): Promise<number> {
-	if (!(await trx('crops').where({ farm_id: farmId, id: cropId }).first('id'))) throw new LibraryInputError('_form', 'That crop is not in this farm\'s library.', 404);
+export async function createVariety(
+	farmId: number,
+	cropId: number,
+	input: VarietyInput,
+	trx: Knex | Knex.Transaction = db()
+): Promise<number> {
+	if (!(await trx('crops').where({ farm_id: farmId, id: cropId }).first('id')))
+		throw new LibraryInputError('_form', "That crop is not in this farm's library.", 404);
 	try {
 		const [id] = await trx('varieties').insert({ farm_id: farmId, crop_id: cropId, ...varietyColumns(input) });
 		return id;
 	} catch (e) {
-		if (isDuplicate(e)) throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
+		if (isDuplicate(e))
+			throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
 		throw e;
 	}
 }
@@ -257,16 +294,22 @@ export async function updateVariety(farmId: number, varietyId: number, input: Va
 	try {
 		return (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update(varietyColumns(input))) > 0;
 	} catch (e) {
-		if (isDuplicate(e)) throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
+		if (isDuplicate(e))
+			throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
 		throw e;
 	}
 }
 
 export async function setVarietyArchived(farmId: number, varietyId: number, archived: boolean): Promise<boolean> {
-	return (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
+	return (
+		(await db()('varieties')
+			.where({ farm_id: farmId, id: varietyId })
+			.update({ archived_at: archived ? db().fn.now() : null })) > 0
+	);
 }
 
-export type RemoveResult = { ok: true } | { ok: false; status: 404 } | { ok: false; status: 409; plantings: number; seasons: string[] };
+export type RemoveResult =
+	{ ok: true } | { ok: false; status: 404 } | { ok: false; status: 409; plantings: number; seasons: string[] };
 
 /** Deletes a variety no planting uses; one that plantings use is refused with how many and where. */
 export async function removeVariety(farmId: number, varietyId: number): Promise<RemoveResult> {
@@ -279,7 +322,13 @@ export async function removeVariety(farmId: number, varietyId: number): Promise<
 			.groupBy('s.id', 's.name')
 			.select('s.name')
 			.count({ n: '*' });
-		if (used.length) return { ok: false, status: 409, plantings: used.reduce((a, u) => a + Number(u.n), 0), seasons: used.map((u) => u.name) } as const;
+		if (used.length)
+			return {
+				ok: false,
+				status: 409,
+				plantings: used.reduce((a, u) => a + Number(u.n), 0),
+				seasons: used.map((u) => u.name)
+			} as const;
 		await trx('variety_figure_changes').where({ farm_id: farmId, variety_id: varietyId }).delete();
 		await trx('varieties').where({ farm_id: farmId, id: varietyId }).delete();
 		return { ok: true } as const;
@@ -312,7 +361,12 @@ export async function addStarterCrops(farmId: number, picked: StarterCrop[]): Pr
 				trx
 			);
 			for (const sv of varieties) {
-				await createVariety(farmId, cropId, { ...sv, harvestCurve: '', seedPrice: 0, seedsPerPacket: null, gddToMaturity: null }, trx);
+				await createVariety(
+					farmId,
+					cropId,
+					{ ...sv, harvestCurve: '', seedPrice: 0, seedsPerPacket: null, gddToMaturity: null },
+					trx
+				);
 				out.varieties++;
 			}
 			out.crops.push(c.name);

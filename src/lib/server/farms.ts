@@ -33,27 +33,35 @@ export async function get(farmId: number): Promise<Farm> {
 }
 
 export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<void> {
-	await db()('farms').where({ id: farmId }).update({
-		name: input.name,
-		time_zone: input.timeZone,
-		latitude: input.latitude,
-		unit_system: input.unitSystem,
-		...(input.currency ? { currency: input.currency } : {}),
-		last_spring_frost: input.lastSpringFrost,
-		first_fall_frost: input.firstFallFrost,
-		bed_foot_increment: input.bedFootIncrement,
-		turnaround_days: input.turnaroundDays
-	});
+	await db()('farms')
+		.where({ id: farmId })
+		.update({
+			name: input.name,
+			time_zone: input.timeZone,
+			latitude: input.latitude,
+			unit_system: input.unitSystem,
+			...(input.currency ? { currency: input.currency } : {}),
+			last_spring_frost: input.lastSpringFrost,
+			first_fall_frost: input.firstFallFrost,
+			bed_foot_increment: input.bedFootIncrement,
+			turnaround_days: input.turnaroundDays
+		});
 }
 
 /** Normal weekly mean temperatures keyed by ISO week number (1-53). */
 export async function weeklyTemps(farmId: number): Promise<Record<number, number>> {
-	const rows: { week_number: number; mean_temp_f: number }[] = await db()('farm_weekly_temps').where({ farm_id: farmId }).select('week_number', 'mean_temp_f');
+	const rows: { week_number: number; mean_temp_f: number }[] = await db()('farm_weekly_temps')
+		.where({ farm_id: farmId })
+		.select('week_number', 'mean_temp_f');
 	return Object.fromEntries(rows.map((r) => [r.week_number, Number(r.mean_temp_f)]));
 }
 
 /** What the farm chose for display: unit system, currency and time zone. */
 export async function displayPrefs(farmId: number): Promise<import('$lib/format').DisplayPrefs> {
 	const r = await db()('farms').where({ id: farmId }).first('unit_system', 'currency', 'time_zone');
-	return { unitSystem: r?.unit_system === 'metric' ? 'metric' : 'imperial', currency: r?.currency ?? 'USD', timeZone: r?.time_zone ?? 'UTC' };
+	return {
+		unitSystem: r?.unit_system === 'metric' ? 'metric' : 'imperial',
+		currency: r?.currency ?? 'USD',
+		timeZone: r?.time_zone ?? 'UTC'
+	};
 }

@@ -47,7 +47,10 @@ export interface SeasonForecast {
 }
 
 export async function listCrops(farmId: number): Promise<ForecastCrop[]> {
-	const rows = await db()('crops').where({ farm_id: farmId }).orderBy('name').select('id', 'name', 'family', 'harvest_unit');
+	const rows = await db()('crops')
+		.where({ farm_id: farmId })
+		.orderBy('name')
+		.select('id', 'name', 'family', 'harvest_unit');
 	return rows.map((c) => ({ id: String(c.id), name: c.name, family: c.family, unit: c.harvest_unit }));
 }
 
@@ -90,8 +93,16 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 			.where('p.last_harvest', '>=', season.startsOn)
 			.whereNot('p.status', 'failed')
 			.select(
-				'p.id', 'v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot', 'v.harvest_window_days',
-				'v.harvest_curve', 'c.harvest_curve as crop_harvest_curve', 'c.harvest_cut_interval_days'
+				'p.id',
+				'v.crop_id',
+				'p.first_harvest',
+				'p.last_harvest',
+				'p.length_ft',
+				'v.yield_per_bed_foot',
+				'v.harvest_window_days',
+				'v.harvest_curve',
+				'c.harvest_curve as crop_harvest_curve',
+				'c.harvest_cut_interval_days'
 			),
 		db()('harvest_records as h')
 			.join('plantings as p', 'p.id', 'h.planting_id')
@@ -119,7 +130,12 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	}));
 	const { supply, actual } = supplyWithActuals(
 		forecastPlantings,
-		harvests.map((h) => ({ key: `p${h.planting_id}`, crop: String(h.crop_id), date: h.harvested_on, quantity: Number(h.quantity) })),
+		harvests.map((h) => ({
+			key: `p${h.planting_id}`,
+			crop: String(h.crop_id),
+			date: h.harvested_on,
+			quantity: Number(h.quantity)
+		})),
 		currentWeek
 	);
 	const demand = applySwaps(input, swaps);
@@ -151,7 +167,12 @@ export function toSeries(rows: SeasonForecastRow[], weeks: string[]): ForecastSe
 	let s: ForecastSeries | undefined;
 	for (const r of rows) {
 		if (s?.crop !== r.crop) {
-			s = { crop: r.crop, supply: new Array<number | null>(weeks.length).fill(null), demand: new Array<number>(weeks.length).fill(0), actual: [] };
+			s = {
+				crop: r.crop,
+				supply: new Array<number | null>(weeks.length).fill(null),
+				demand: new Array<number>(weeks.length).fill(0),
+				actual: []
+			};
 			out.push(s);
 		}
 		const i = index.get(r.week)!;

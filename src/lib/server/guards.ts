@@ -34,7 +34,10 @@ function requireRole(event: RequestEvent, ...allowed: readonly Role[]): Viewer {
 	const viewer = requireUser(event);
 	if (!allowed.includes(viewer.farm.role)) {
 		const who = allowed.map((r) => roleLabels[r].toLowerCase()).join(' or ');
-		error(403, `Only the farm's ${who} may do this; you are signed in as ${roleLabels[viewer.farm.role].toLowerCase()}.`);
+		error(
+			403,
+			`Only the farm's ${who} may do this; you are signed in as ${roleLabels[viewer.farm.role].toLowerCase()}.`
+		);
 	}
 	return viewer;
 }

@@ -72,7 +72,22 @@ export async function plantingOptions(farmId: number, seasonId: number, today: s
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.whereNot('p.status', 'failed')
 		.orderBy([{ column: 'c.name' }, { column: 'p.first_harvest' }, { column: 'p.id' }])
-		.select('p.id', 'c.name as crop', 'v.name as variety', 'c.family', 'c.harvest_unit', 'b.name as bed', 'k.name as block', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.status', 'p.actual_first_harvest');
+		.select(
+			'p.id',
+			'c.name as crop',
+			'v.name as variety',
+			'c.family',
+			'c.harvest_unit',
+			'b.name as bed',
+			'k.name as block',
+			'p.start_ft',
+			'p.length_ft',
+			'p.field_date',
+			'p.first_harvest',
+			'p.last_harvest',
+			'p.status',
+			'p.actual_first_harvest'
+		);
 	return rows.map((r) => ({
 		id: r.id,
 		crop: r.crop,
@@ -100,7 +115,19 @@ function baseList(farmId: number, seasonId: number) {
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.leftJoin('users as u', 'u.id', 'h.recorded_by')
 		.where({ 'h.farm_id': farmId, 'p.season_id': seasonId })
-		.select('h.id', 'h.planting_id', 'c.name as crop', 'v.name as variety', 'b.name as bed', 'h.harvested_on', 'h.quantity', 'h.unit', 'h.recorded_by', 'u.name as who', 'h.notes');
+		.select(
+			'h.id',
+			'h.planting_id',
+			'c.name as crop',
+			'v.name as variety',
+			'b.name as bed',
+			'h.harvested_on',
+			'h.quantity',
+			'h.unit',
+			'h.recorded_by',
+			'u.name as who',
+			'h.notes'
+		);
 }
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -121,7 +148,12 @@ function toView(r: any): HarvestView {
 }
 
 export async function list(farmId: number, seasonId: number): Promise<HarvestView[]> {
-	return (await baseList(farmId, seasonId).orderBy([{ column: 'h.harvested_on', order: 'desc' }, { column: 'h.id', order: 'desc' }])).map(toView);
+	return (
+		await baseList(farmId, seasonId).orderBy([
+			{ column: 'h.harvested_on', order: 'desc' },
+			{ column: 'h.id', order: 'desc' }
+		])
+	).map(toView);
 }
 
 export async function get(farmId: number, seasonId: number, id: number): Promise<HarvestView | null> {
@@ -161,14 +193,29 @@ interface PlantingFacts {
 	version: number;
 }
 
-async function plantingFacts(trx: Knex.Transaction, farmId: number, seasonId: number, ids: number[]): Promise<Map<number, PlantingFacts>> {
+async function plantingFacts(
+	trx: Knex.Transaction,
+	farmId: number,
+	seasonId: number,
+	ids: number[]
+): Promise<Map<number, PlantingFacts>> {
 	const rows = await trx('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.whereIn('p.id', ids)
 		.forUpdate()
-		.select('p.id', 'c.harvest_unit', 'c.name as crop', 'p.field_date', 'p.actual_field_date', 'p.status', 'p.actual_first_harvest', 'p.actual_last_harvest', 'p.version');
+		.select(
+			'p.id',
+			'c.harvest_unit',
+			'c.name as crop',
+			'p.field_date',
+			'p.actual_field_date',
+			'p.status',
+			'p.actual_first_harvest',
+			'p.actual_last_harvest',
+			'p.version'
+		);
 	return new Map(
 		rows.map((r) => [
 			r.id,
@@ -187,19 +234,44 @@ async function plantingFacts(trx: Knex.Transaction, farmId: number, seasonId: nu
 	);
 }
 
-function checkAgainst(p: PlantingFacts, v: { harvestedOn: string; unit: string }, prefix: string, errors: FieldErrors, today: string): void {
+function checkAgainst(
+	p: PlantingFacts,
+	v: { harvestedOn: string; unit: string },
+	prefix: string,
+	errors: FieldErrors,
+	today: string
+): void {
 	if (v.unit !== p.unit) errors[`${prefix}unit`] = `${p.crop} is harvested in ${p.unit}, not ${v.unit}.`;
-	if (v.harvestedOn < p.fieldDate) errors[`${prefix}harvestedOn`] = `Date ${v.harvestedOn} is before this planting went into the field (${p.fieldDate}).`;
+	if (v.harvestedOn < p.fieldDate)
+		errors[`${prefix}harvestedOn`] =
+			`Date ${v.harvestedOn} is before this planting went into the field (${p.fieldDate}).`;
 	// A day's grace past the farm's today, for a clock or time zone a little off.
-	else if (v.harvestedOn > addDays(today, 1)) errors[`${prefix}harvestedOn`] = `Date ${v.harvestedOn} is in the future (today is ${today}).`;
+	else if (v.harvestedOn > addDays(today, 1))
+		errors[`${prefix}harvestedOn`] = `Date ${v.harvestedOn} is in the future (today is ${today}).`;
 }
 
 async function memberIds(trx: Knex.Transaction, farmId: number): Promise<Set<string>> {
-	return new Set((await trx('farm_members').where({ farm_id: farmId }).select('user_id')).map((r) => r.user_id as string));
+	return new Set(
+		(await trx('farm_members').where({ farm_id: farmId }).select('user_id')).map((r) => r.user_id as string)
+	);
 }
 
-function recordValues(r: { planting_id: number; harvested_on: string; quantity: number | string; unit: string; recorded_by: string | null; notes: string | null }): Record<string, unknown> {
-	return { plantingId: r.planting_id, harvestedOn: r.harvested_on, quantity: Number(r.quantity), unit: r.unit, harvestedBy: r.recorded_by, notes: r.notes };
+function recordValues(r: {
+	planting_id: number;
+	harvested_on: string;
+	quantity: number | string;
+	unit: string;
+	recorded_by: string | null;
+	notes: string | null;
+}): Record<string, unknown> {
+	return {
+		plantingId: r.planting_id,
+		harvestedOn: r.harvested_on,
+		quantity: Number(r.quantity),
+		unit: r.unit,
+		harvestedBy: r.recorded_by,
+		notes: r.notes
+	};
 }
 
 /**
@@ -208,10 +280,22 @@ function recordValues(r: { planting_id: number; harvested_on: string; quantity: 
  * harvesting; `finishOn` closes its window. A finished planting's last harvest never stands
  * before its latest record.
  */
-async function syncPlanting(trx: Knex.Transaction, farmId: number, plantingId: number, finishOn?: string, removedOn?: string): Promise<void> {
-	const cur = await trx('plantings').where({ id: plantingId, farm_id: farmId }).first('status', 'actual_first_harvest', 'actual_last_harvest', 'version');
+async function syncPlanting(
+	trx: Knex.Transaction,
+	farmId: number,
+	plantingId: number,
+	finishOn?: string,
+	removedOn?: string
+): Promise<void> {
+	const cur = await trx('plantings')
+		.where({ id: plantingId, farm_id: farmId })
+		.first('status', 'actual_first_harvest', 'actual_last_harvest', 'version');
 	if (!cur) return;
-	const span = await trx('harvest_records').where({ planting_id: plantingId }).min({ first: 'harvested_on' }).max({ last: 'harvested_on' }).first();
+	const span = await trx('harvest_records')
+		.where({ planting_id: plantingId })
+		.min({ first: 'harvested_on' })
+		.max({ last: 'harvested_on' })
+		.first();
 	const first: string | null = span?.first ?? null;
 	const last: string | null = span?.last ?? null;
 	const next: Record<string, unknown> = {};
@@ -226,7 +310,10 @@ async function syncPlanting(trx: Knex.Transaction, farmId: number, plantingId: n
 		next.actual_last_harvest = last;
 	}
 	const changed = Object.entries(next).some(([k, v]) => (cur as Record<string, unknown>)[k] !== v);
-	if (changed) await trx('plantings').where({ id: plantingId, farm_id: farmId }).update({ ...next, version: cur.version + 1, updated_at: trx.fn.now() });
+	if (changed)
+		await trx('plantings')
+			.where({ id: plantingId, farm_id: farmId })
+			.update({ ...next, version: cur.version + 1, updated_at: trx.fn.now() });
 }
 
 export type WriteResult<T> = { ok: true; value: T } | { ok: false; status: 400 | 404; errors: FieldErrors };
@@ -235,7 +322,13 @@ export type WriteResult<T> = { ok: true; value: T } | { ok: false; status: 400 |
  * Logs one or more records (a phone entry, or a morning's sheet) in one transaction: every
  * row or none. Errors are keyed by field, with `records.{i}.` in front for a batch.
  */
-export async function create(farmId: number, seasonId: number, actorId: string, inputs: HarvestInput[], batch = false): Promise<WriteResult<HarvestView[]>> {
+export async function create(
+	farmId: number,
+	seasonId: number,
+	actorId: string,
+	inputs: HarvestInput[],
+	batch = false
+): Promise<WriteResult<HarvestView[]>> {
 	const today = await farmToday(farmId);
 	return db().transaction(async (trx) => {
 		const facts = await plantingFacts(trx, farmId, seasonId, [...new Set(inputs.map((i) => i.plantingId))]);
@@ -246,19 +339,38 @@ export async function create(farmId: number, seasonId: number, actorId: string, 
 			const p = facts.get(input.plantingId);
 			if (!p) errors[`${prefix}plantingId`] = 'Choose a planting of this season.';
 			else checkAgainst(p, input, prefix, errors, today);
-			if (input.harvestedBy && !members.has(input.harvestedBy)) errors[`${prefix}harvestedBy`] = 'Who must be a member of the farm.';
+			if (input.harvestedBy && !members.has(input.harvestedBy))
+				errors[`${prefix}harvestedBy`] = 'Who must be a member of the farm.';
 		});
 		if (Object.keys(errors).length) return { ok: false, status: 400, errors } as const;
 		const ids: number[] = [];
 		for (const input of inputs) {
-			const row = { farm_id: farmId, planting_id: input.plantingId, harvested_on: input.harvestedOn, quantity: input.quantity, unit: input.unit, recorded_by: input.harvestedBy ?? actorId, notes: input.notes ?? null };
+			const row = {
+				farm_id: farmId,
+				planting_id: input.plantingId,
+				harvested_on: input.harvestedOn,
+				quantity: input.quantity,
+				unit: input.unit,
+				recorded_by: input.harvestedBy ?? actorId,
+				notes: input.notes ?? null
+			};
 			const [id] = await trx('harvest_records').insert(row);
 			ids.push(id);
-			await trx('harvest_audit').insert({ farm_id: farmId, harvest_id: id, planting_id: input.plantingId, action: 'create', changed_by: actorId, new_values: JSON.stringify(recordValues(row)) });
+			await trx('harvest_audit').insert({
+				farm_id: farmId,
+				harvest_id: id,
+				planting_id: input.plantingId,
+				action: 'create',
+				changed_by: actorId,
+				new_values: JSON.stringify(recordValues(row))
+			});
 		}
 		const finishing = new Map<number, string>();
-		for (const input of inputs) if (input.finished) finishing.set(input.plantingId, [finishing.get(input.plantingId) ?? '', input.harvestedOn].sort().at(-1)!);
-		for (const pid of new Set(inputs.map((i) => i.plantingId))) await syncPlanting(trx, farmId, pid, finishing.get(pid));
+		for (const input of inputs)
+			if (input.finished)
+				finishing.set(input.plantingId, [finishing.get(input.plantingId) ?? '', input.harvestedOn].sort().at(-1)!);
+		for (const pid of new Set(inputs.map((i) => i.plantingId)))
+			await syncPlanting(trx, farmId, pid, finishing.get(pid));
 		const views = (await baseList(farmId, seasonId).transacting(trx).whereIn('h.id', ids)).map(toView);
 		const order = new Map(ids.map((id, i) => [id, i]));
 		views.sort((a, b) => order.get(a.id)! - order.get(b.id)!);
@@ -274,7 +386,13 @@ async function lockRecord(trx: Knex.Transaction, farmId: number, seasonId: numbe
 		.first('h.*');
 }
 
-export async function update(farmId: number, seasonId: number, id: number, actorId: string, patch: HarvestPatch): Promise<WriteResult<HarvestView>> {
+export async function update(
+	farmId: number,
+	seasonId: number,
+	id: number,
+	actorId: string,
+	patch: HarvestPatch
+): Promise<WriteResult<HarvestView>> {
 	const today = await farmToday(farmId);
 	return db().transaction(async (trx) => {
 		const cur = await lockRecord(trx, farmId, seasonId, id);
@@ -282,9 +400,16 @@ export async function update(farmId: number, seasonId: number, id: number, actor
 		const p = (await plantingFacts(trx, farmId, seasonId, [cur.planting_id])).get(cur.planting_id)!;
 		const errors: FieldErrors = {};
 		checkAgainst(p, patch, '', errors, today);
-		if (patch.harvestedBy && !(await memberIds(trx, farmId)).has(patch.harvestedBy)) errors.harvestedBy = 'Who must be a member of the farm.';
+		if (patch.harvestedBy && !(await memberIds(trx, farmId)).has(patch.harvestedBy))
+			errors.harvestedBy = 'Who must be a member of the farm.';
 		if (Object.keys(errors).length) return { ok: false, status: 400, errors } as const;
-		const next = { harvested_on: patch.harvestedOn, quantity: patch.quantity, unit: patch.unit, recorded_by: patch.harvestedBy ?? cur.recorded_by, notes: patch.notes ?? null };
+		const next = {
+			harvested_on: patch.harvestedOn,
+			quantity: patch.quantity,
+			unit: patch.unit,
+			recorded_by: patch.harvestedBy ?? cur.recorded_by,
+			notes: patch.notes ?? null
+		};
 		await trx('harvest_records').where({ id, farm_id: farmId }).update(next);
 		await trx('harvest_audit').insert({
 			farm_id: farmId,
@@ -296,7 +421,10 @@ export async function update(farmId: number, seasonId: number, id: number, actor
 			new_values: JSON.stringify(recordValues({ ...cur, ...next }))
 		});
 		await syncPlanting(trx, farmId, cur.planting_id, undefined, cur.harvested_on);
-		return { ok: true, value: toView(await baseList(farmId, seasonId).transacting(trx).andWhere('h.id', id).first()) } as const;
+		return {
+			ok: true,
+			value: toView(await baseList(farmId, seasonId).transacting(trx).andWhere('h.id', id).first())
+		} as const;
 	});
 }
 
@@ -306,7 +434,14 @@ export async function remove(farmId: number, seasonId: number, id: number, actor
 		const cur = await lockRecord(trx, farmId, seasonId, id);
 		if (!cur) return false;
 		await trx('harvest_records').where({ id, farm_id: farmId }).delete();
-		await trx('harvest_audit').insert({ farm_id: farmId, harvest_id: id, planting_id: cur.planting_id, action: 'delete', changed_by: actorId, old_values: JSON.stringify(recordValues(cur)) });
+		await trx('harvest_audit').insert({
+			farm_id: farmId,
+			harvest_id: id,
+			planting_id: cur.planting_id,
+			action: 'delete',
+			changed_by: actorId,
+			old_values: JSON.stringify(recordValues(cur))
+		});
 		await syncPlanting(trx, farmId, cur.planting_id, undefined, cur.harvested_on);
 		return true;
 	});

@@ -25,7 +25,13 @@ export interface Attachment {
 	contentType?: string;
 }
 
-export async function sendMail(message: { to: string; subject: string; text: string; html?: string; attachments?: Attachment[] }): Promise<void> {
+export async function sendMail(message: {
+	to: string;
+	subject: string;
+	text: string;
+	html?: string;
+	attachments?: Attachment[];
+}): Promise<void> {
 	await transport().sendMail({ from: env.FC_MAIL_FROM ?? 'Furrowcast <no-reply@furrowcast.test>', ...message });
 }
 
@@ -59,7 +65,9 @@ export async function farmMailboxes(farmId: number): Promise<Set<string>> {
 	const members: { email: string }[] = await d('farm_members as m')
 		.join('users as u', 'u.id', 'm.user_id')
 		.where('m.farm_id', farmId)
-		.whereNotExists(d('farm_members as o').whereRaw('o.user_id = m.user_id').whereNot('o.farm_id', farmId).select(d.raw('1')))
+		.whereNotExists(
+			d('farm_members as o').whereRaw('o.user_id = m.user_id').whereNot('o.farm_id', farmId).select(d.raw('1'))
+		)
 		.select('u.email');
 	const invitees: { email: string }[] = await d('invites as i')
 		.where('i.farm_id', farmId)
@@ -71,7 +79,10 @@ export async function farmMailboxes(farmId: number): Promise<Set<string>> {
 		.whereNot('farm_id', farmId)
 		.whereNull('accepted_at')
 		.where('expires_at', '>', new Date())
-		.whereIn('email', [...members, ...invitees].map((r) => r.email))
+		.whereIn(
+			'email',
+			[...members, ...invitees].map((r) => r.email)
+		)
 		.select('email');
 	const shared = new Set(others.map((r) => r.email.toLowerCase()));
 	return new Set([...members, ...invitees].map((r) => r.email.toLowerCase()).filter((e) => !shared.has(e)));
@@ -81,14 +92,22 @@ export async function farmMailboxes(farmId: number): Promise<Set<string>> {
 export async function listStoredMail(mailboxes: Set<string>, limit = 100): Promise<StoredMail[]> {
 	const dir = env.FC_MAIL_DIR;
 	if (!dir) return [];
-	const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith('.json')).sort().reverse();
+	const names = (await readdir(dir).catch(() => [] as string[]))
+		.filter((n) => n.endsWith('.json'))
+		.sort()
+		.reverse();
 	const out: StoredMail[] = [];
 	// Read newest first until `limit` messages for this farm are found (the folder is small in demo use).
 	for (const name of names) {
 		if (out.length >= limit) break;
-		const raw = JSON.parse(await readFile(join(dir, name), 'utf8')) as StoredMail & { attachments: { contentBase64?: string }[] };
+		const raw = JSON.parse(await readFile(join(dir, name), 'utf8')) as StoredMail & {
+			attachments: { contentBase64?: string }[];
+		};
 		if (raw.to.length === 0 || !raw.to.every((t) => mailboxes.has(t.toLowerCase()))) continue;
-		out.push({ ...raw, attachments: raw.attachments.map(({ filename, contentType, size }) => ({ filename, contentType, size })) } as StoredMail);
+		out.push({
+			...raw,
+			attachments: raw.attachments.map(({ filename, contentType, size }) => ({ filename, contentType, size }))
+		} as StoredMail);
 	}
 	return out;
 }

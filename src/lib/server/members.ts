@@ -28,12 +28,20 @@ export interface Member {
 }
 
 export async function listMembers(farmId: number): Promise<Member[]> {
-	const rows: { user_id: string; name: string; email: string; role: Role; created_at: Date }[] = await db()('farm_members as m')
+	const rows: { user_id: string; name: string; email: string; role: Role; created_at: Date }[] = await db()(
+		'farm_members as m'
+	)
 		.join('users as u', 'u.id', 'm.user_id')
 		.where('m.farm_id', farmId)
 		.select('m.user_id', 'u.name', 'u.email', 'm.role', 'm.created_at')
 		.orderBy('u.name');
-	return rows.map((r) => ({ userId: r.user_id, name: r.name, email: r.email, role: r.role, since: r.created_at.toISOString().slice(0, 10) }));
+	return rows.map((r) => ({
+		userId: r.user_id,
+		name: r.name,
+		email: r.email,
+		role: r.role,
+		since: r.created_at.toISOString().slice(0, 10)
+	}));
 }
 
 export class LastOwnerError extends Error {
@@ -41,7 +49,7 @@ export class LastOwnerError extends Error {
 		super(
 			what === 'remove'
 				? 'A farm needs at least one owner: make someone else owner before removing the last one.'
-				: 'A farm needs at least one owner: make someone else owner before changing the last owner\'s role.'
+				: "A farm needs at least one owner: make someone else owner before changing the last owner's role."
 		);
 	}
 }
@@ -53,15 +61,22 @@ export class LastOwnerError extends Error {
  */
 export async function changeMember(farmId: number, userId: string, role: Role | null): Promise<boolean> {
 	return db().transaction(async (trx) => {
-		const rows: { user_id: string; role: Role }[] = await trx('farm_members').where({ farm_id: farmId }).forUpdate().select('user_id', 'role');
+		const rows: { user_id: string; role: Role }[] = await trx('farm_members')
+			.where({ farm_id: farmId })
+			.forUpdate()
+			.select('user_id', 'role');
 		const target = rows.find((r) => r.user_id === userId);
 		if (!target) return false;
 		const owners = rows.filter((r) => r.role === 'owner');
-		if (target.role === 'owner' && role !== 'owner' && owners.length <= 1) throw new LastOwnerError(role === null ? 'remove' : 'demote');
+		if (target.role === 'owner' && role !== 'owner' && owners.length <= 1)
+			throw new LastOwnerError(role === null ? 'remove' : 'demote');
 		if (role === null) {
 			await trx('farm_members').where({ farm_id: farmId, user_id: userId }).delete();
 			// Their calendar link for this farm stops too (it checks membership, but a re-invite should not revive it).
-			await trx('calendar_feeds').where({ farm_id: farmId, user_id: userId }).whereNull('revoked_at').update({ revoked_at: new Date() });
+			await trx('calendar_feeds')
+				.where({ farm_id: farmId, user_id: userId })
+				.whereNull('revoked_at')
+				.update({ revoked_at: new Date() });
 		} else await trx('farm_members').where({ farm_id: farmId, user_id: userId }).update({ role });
 		return true;
 	});

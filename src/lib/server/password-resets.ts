@@ -11,13 +11,21 @@ export async function createPasswordReset(userId: string): Promise<string> {
 	const { token, hash } = newToken();
 	await db().transaction(async (trx) => {
 		await trx('password_resets').where({ user_id: userId }).whereNull('used_at').delete();
-		await trx('password_resets').insert({ token_hash: hash, user_id: userId, expires_at: new Date(Date.now() + 3_600_000) });
+		await trx('password_resets').insert({
+			token_hash: hash,
+			user_id: userId,
+			expires_at: new Date(Date.now() + 3_600_000)
+		});
 	});
 	return token;
 }
 
 export async function findPasswordReset(token: string): Promise<{ userId: string } | null> {
-	const row = await db()('password_resets').where({ token_hash: hashToken(token) }).whereNull('used_at').where('expires_at', '>', new Date()).first('user_id');
+	const row = await db()('password_resets')
+		.where({ token_hash: hashToken(token) })
+		.whereNull('used_at')
+		.where('expires_at', '>', new Date())
+		.first('user_id');
 	return row ? { userId: row.user_id } : null;
 }
 
@@ -32,7 +40,9 @@ export async function completePasswordReset(token: string, password: string): Pr
 			.first('r.user_id', 'u.email');
 		if (!row) return null;
 		await setPassword(trx, row.user_id, password);
-		await trx('password_resets').where({ token_hash: hashToken(token) }).update({ used_at: new Date() });
+		await trx('password_resets')
+			.where({ token_hash: hashToken(token) })
+			.update({ used_at: new Date() });
 		return row;
 	});
 	if (!done) return null;

@@ -20,9 +20,16 @@ export class PlanConflictError extends Error {
  * every planting's id, version and status (so a grid edit or a sowing counts), and the weekly
  * targets. Two previews of the same state have the same fingerprint.
  */
-export async function planFingerprint(farmId: number, seasonId: number, trx?: Knex.Transaction, demandDigest?: string): Promise<string> {
+export async function planFingerprint(
+	farmId: number,
+	seasonId: number,
+	trx?: Knex.Transaction,
+	demandDigest?: string
+): Promise<string> {
 	const q = trx ?? db();
-	const season: { plan_version: number } | undefined = await q('seasons').where({ farm_id: farmId, id: seasonId }).first('plan_version');
+	const season: { plan_version: number } | undefined = await q('seasons')
+		.where({ farm_id: farmId, id: seasonId })
+		.first('plan_version');
 	const rows: { id: number; version: number; status: string }[] = await q('plantings')
 		.where({ farm_id: farmId, season_id: seasonId })
 		.orderBy('id')
@@ -45,7 +52,13 @@ function sqlTime(v: unknown): unknown {
 // `demandDigest`: the demand hash, taken by apply together with the demand it plans from. Under the lock,
 // work must stay on `trx`: planting edits queue behind the season lock holding pool connections, and
 // asking the pool for another one could wait on them until the lock wait times out.
-export async function lockForApply(trx: Knex.Transaction, farmId: number, seasonId: number, expected: string | undefined, demandDigest?: string): Promise<void> {
+export async function lockForApply(
+	trx: Knex.Transaction,
+	farmId: number,
+	seasonId: number,
+	expected: string | undefined,
+	demandDigest?: string
+): Promise<void> {
 	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
 	if (expected === undefined) return;
 	if ((await planFingerprint(farmId, seasonId, trx, demandDigest)) !== expected) {
@@ -66,13 +79,22 @@ export async function snapshotPlanned(trx: Knex.Transaction, ids: number[]): Pro
 /** After the inserts: keeps the snapshot and the added ids, bumps the counter, stamps the time. */
 export async function recordApply(
 	trx: Knex.Transaction,
-	a: { farmId: number; seasonId: number; userId: string; options: unknown; replaced: Record<string, unknown>[]; demandDigest?: string }
+	a: {
+		farmId: number;
+		seasonId: number;
+		userId: string;
+		options: unknown;
+		replaced: Record<string, unknown>[];
+		demandDigest?: string;
+	}
 ): Promise<void> {
 	const season: { plan_applied_at: Date | null; plan_demand_hash: string | null } = await trx('seasons')
 		.where({ farm_id: a.farmId, id: a.seasonId })
 		.first('plan_applied_at', 'plan_demand_hash');
 	// Everything still planned in the season now is what this apply added (the rest is kept work).
-	const added = (await trx('plantings').where({ farm_id: a.farmId, season_id: a.seasonId, status: 'planned' }).select('id')).map((r) => r.id as number);
+	const added = (
+		await trx('plantings').where({ farm_id: a.farmId, season_id: a.seasonId, status: 'planned' }).select('id')
+	).map((r) => r.id as number);
 	await trx('plan_applies').insert({
 		farm_id: a.farmId,
 		season_id: a.seasonId,
@@ -85,10 +107,25 @@ export async function recordApply(
 	});
 	await trx('seasons')
 		.where({ farm_id: a.farmId, id: a.seasonId })
-		.update({ plan_version: trx.raw('plan_version + 1'), plan_applied_at: trx.fn.now(), plan_demand_hash: a.demandDigest ?? (await demandHash(a.farmId, a.seasonId)) });
+		.update({
+			plan_version: trx.raw('plan_version + 1'),
+			plan_applied_at: trx.fn.now(),
+			plan_demand_hash: a.demandDigest ?? (await demandHash(a.farmId, a.seasonId))
+		});
 	// Only the last apply can be undone; older snapshots are kept a while as history, then dropped.
-	const old = await trx('plan_applies').where({ season_id: a.seasonId }).orderBy('id', 'desc').offset(10).limit(1000).select('id');
-	if (old.length) await trx('plan_applies').whereIn('id', old.map((r) => r.id)).delete();
+	const old = await trx('plan_applies')
+		.where({ season_id: a.seasonId })
+		.orderBy('id', 'desc')
+		.offset(10)
+		.limit(1000)
+		.select('id');
+	if (old.length)
+		await trx('plan_applies')
+			.whereIn(
+				'id',
+				old.map((r) => r.id)
+			)
+			.delete();
 }
 
 export interface LastApply {
@@ -125,15 +162,30 @@ export async function lastApply(farmId: number, seasonId: number): Promise<LastA
  * last apply was already undone, or when a planting it added has since been sown or harvested
  * (undoing would throw that work away).
  */
-export async function undoLastApply(farmId: number, seasonId: number, userId: string): Promise<{ restored: number; removed: number }> {
+export async function undoLastApply(
+	farmId: number,
+	seasonId: number,
+	userId: string
+): Promise<{ restored: number; removed: number }> {
 	return db().transaction(async (trx) => {
 		await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
-		const last = await trx('plan_applies').where({ farm_id: farmId, season_id: seasonId }).orderBy('id', 'desc').first();
-		if (!last || last.undone_at) throw new PlanConflictError('There is no apply to undo: the last one was already undone, or none was made.', 'nothing_to_undo');
+		const last = await trx('plan_applies')
+			.where({ farm_id: farmId, season_id: seasonId })
+			.orderBy('id', 'desc')
+			.first();
+		if (!last || last.undone_at)
+			throw new PlanConflictError(
+				'There is no apply to undo: the last one was already undone, or none was made.',
+				'nothing_to_undo'
+			);
 		const addedIds = JSON.parse(last.added_ids) as number[];
 		const replaced = JSON.parse(last.replaced) as Record<string, unknown>[];
 		const present: { id: number; status: string }[] = addedIds.length
-			? await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).whereIn('id', addedIds).forUpdate().select('id', 'status')
+			? await trx('plantings')
+					.where({ farm_id: farmId, season_id: seasonId })
+					.whereIn('id', addedIds)
+					.forUpdate()
+					.select('id', 'status')
 			: [];
 		const moved = present.filter((p) => p.status !== 'planned');
 		if (moved.length) {
@@ -142,14 +194,36 @@ export async function undoLastApply(farmId: number, seasonId: number, userId: st
 				'moved_on'
 			);
 		}
-		const harvested = present.length ? await trx('harvest_records').whereIn('planting_id', present.map((p) => p.id)).count({ n: '*' }).first() : { n: 0 };
-		if (Number(harvested?.n ?? 0) > 0) throw new PlanConflictError('Harvests are logged against plantings this apply made; undoing would delete them.', 'moved_on');
-		if (present.length) await trx('plantings').whereIn('id', present.map((p) => p.id)).delete();
+		const harvested = present.length
+			? await trx('harvest_records')
+					.whereIn(
+						'planting_id',
+						present.map((p) => p.id)
+					)
+					.count({ n: '*' })
+					.first()
+			: { n: 0 };
+		if (Number(harvested?.n ?? 0) > 0)
+			throw new PlanConflictError(
+				'Harvests are logged against plantings this apply made; undoing would delete them.',
+				'moved_on'
+			);
+		if (present.length)
+			await trx('plantings')
+				.whereIn(
+					'id',
+					present.map((p) => p.id)
+				)
+				.delete();
 		for (let i = 0; i < replaced.length; i += 500) await trx('plantings').insert(replaced.slice(i, i + 500));
 		await trx('plan_applies').where({ id: last.id }).update({ undone_at: trx.fn.now(), undone_by: userId });
 		await trx('seasons')
 			.where({ farm_id: farmId, id: seasonId })
-			.update({ plan_version: trx.raw('plan_version + 1'), plan_applied_at: last.previous_applied_at, plan_demand_hash: last.previous_demand_hash });
+			.update({
+				plan_version: trx.raw('plan_version + 1'),
+				plan_applied_at: last.previous_applied_at,
+				plan_demand_hash: last.previous_demand_hash
+			});
 		return { restored: replaced.length, removed: present.length };
 	});
 }

@@ -28,13 +28,21 @@ export async function planScreenData(farmId: number, season: Season): Promise<Pl
 	const [input, varieties, crops, freshness, last, counts] = await Promise.all([
 		targetInput(farmId, season.id),
 		listVarieties(farmId),
-		db()('crops').where({ farm_id: farmId }).orderBy('name').select('id', 'name', 'harvest_unit') as Promise<{ id: number; name: string; harvest_unit: string }[]>,
+		db()('crops').where({ farm_id: farmId }).orderBy('name').select('id', 'name', 'harvest_unit') as Promise<
+			{ id: number; name: string; harvest_unit: string }[]
+		>,
 		planFreshness(farmId, season.id),
 		lastApply(farmId, season.id),
-		db()('plantings').where({ farm_id: farmId, season_id: season.id }).select('status').count({ n: '*' }).groupBy('status') as Promise<{ status: string; n: number }[]>
+		db()('plantings')
+			.where({ farm_id: farmId, season_id: season.id })
+			.select('status')
+			.count({ n: '*' })
+			.groupBy('status') as Promise<{ status: string; n: number }[]>
 	]);
 	const byCrop = new Map<string, { week: string; quantity: number }[]>();
-	for (const t of deriveTargets(input)) if (t.quantity > 0) (byCrop.get(t.crop) ?? byCrop.set(t.crop, []).get(t.crop)!).push({ week: t.week, quantity: t.quantity });
+	for (const t of deriveTargets(input))
+		if (t.quantity > 0)
+			(byCrop.get(t.crop) ?? byCrop.set(t.crop, []).get(t.crop)!).push({ week: t.week, quantity: t.quantity });
 	const planCrops: PlanCrop[] = crops
 		.filter((c) => byCrop.has(String(c.id)))
 		.map((c) => ({
@@ -44,9 +52,21 @@ export async function planScreenData(farmId: number, season: Season): Promise<Pl
 			targets: byCrop.get(String(c.id))!.sort((a, b) => a.week.localeCompare(b.week)),
 			varieties: varieties
 				.filter((v) => v.cropId === c.id)
-				.map((v) => ({ id: v.id, name: v.name, method: v.method, daysToMaturity: v.daysToMaturity, harvestWindowDays: v.harvestWindowDays }))
+				.map((v) => ({
+					id: v.id,
+					name: v.name,
+					method: v.method,
+					daysToMaturity: v.daysToMaturity,
+					harvestWindowDays: v.harvestWindowDays
+				}))
 		}));
 	const total = counts.reduce((s, r) => s + Number(r.n), 0);
 	const planned = Number(counts.find((r) => r.status === 'planned')?.n ?? 0);
-	return { crops: planCrops, otherCrops: crops.length - planCrops.length, freshness, lastApply: last, plantings: { total, planned } };
+	return {
+		crops: planCrops,
+		otherCrops: crops.length - planCrops.length,
+		freshness,
+		lastApply: last,
+		plantings: { total, planned }
+	};
 }

@@ -73,15 +73,39 @@ interface Row {
 	yield_per_bed_foot: number;
 }
 
-type Shape = { varietyId: number; bedId: number | null; startFt: number; lengthFt: number; fieldDate: string; method: string; rows: number; spacing: number; perSpot: number };
+type Shape = {
+	varietyId: number;
+	bedId: number | null;
+	startFt: number;
+	lengthFt: number;
+	fieldDate: string;
+	method: string;
+	rows: number;
+	spacing: number;
+	perSpot: number;
+};
 const shapeKey = (s: Shape): string =>
-	[s.varietyId, s.bedId ?? '-', Number(s.startFt).toFixed(1), Number(s.lengthFt).toFixed(1), s.fieldDate, s.method, s.rows, Number(s.spacing).toFixed(2), s.perSpot].join('|');
+	[
+		s.varietyId,
+		s.bedId ?? '-',
+		Number(s.startFt).toFixed(1),
+		Number(s.lengthFt).toFixed(1),
+		s.fieldDate,
+		s.method,
+		s.rows,
+		Number(s.spacing).toFixed(2),
+		s.perSpot
+	].join('|');
 
 function emptyTotals(): Totals {
 	return { plantings: 0, bedFeet: 0, seeds: 0, grams: 0, trays: 0, costCents: 0 };
 }
 
-function addTo(t: Totals, p: { method: 'direct' | 'transplant'; lengthFt: number; rows: number; inRowSpacingIn: number; seedsPerSpot: number }, v: VarietyView | undefined): void {
+function addTo(
+	t: Totals,
+	p: { method: 'direct' | 'transplant'; lengthFt: number; rows: number; inRowSpacingIn: number; seedsPerSpot: number },
+	v: VarietyView | undefined
+): void {
 	t.plantings += 1;
 	t.bedFeet += p.lengthFt;
 	if (!v) return;
@@ -103,34 +127,88 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 			.where({ 'p.farm_id': farmId, 'p.season_id': season.id })
 			.orderBy(['p.field_date', 'p.id'])
 			.select(
-				'p.id', 'p.variety_id', 'v.crop_id', 'p.status', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.rows', 'p.in_row_spacing_in',
-				'p.seeds_per_spot', 'p.method', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.yield_per_bed_foot'
+				'p.id',
+				'p.variety_id',
+				'v.crop_id',
+				'p.status',
+				'p.bed_id',
+				'p.start_ft',
+				'p.length_ft',
+				'p.rows',
+				'p.in_row_spacing_in',
+				'p.seeds_per_spot',
+				'p.method',
+				'p.field_date',
+				'p.first_harvest',
+				'p.last_harvest',
+				'v.yield_per_bed_foot'
 			) as Promise<Row[]>,
 		listVarieties(farmId),
 		targetInput(farmId, season.id),
-		db()('crops').where({ farm_id: farmId }).select('id', 'harvest_unit') as Promise<{ id: number; harvest_unit: string }[]>
+		db()('crops').where({ farm_id: farmId }).select('id', 'harvest_unit') as Promise<
+			{ id: number; harvest_unit: string }[]
+		>
 	]);
 	const varietyById = new Map(varieties.map((v) => [v.id, v]));
 	const existing = (r: Row): ChangeRow => ({
-		id: r.id, cropId: r.crop_id, varietyId: r.variety_id, status: r.status, bedId: r.bed_id, startFt: Number(r.start_ft), lengthFt: Number(r.length_ft),
-		fieldDate: r.field_date, firstHarvest: r.first_harvest, lastHarvest: r.last_harvest, method: r.method, reason: null
+		id: r.id,
+		cropId: r.crop_id,
+		varietyId: r.variety_id,
+		status: r.status,
+		bedId: r.bed_id,
+		startFt: Number(r.start_ft),
+		lengthFt: Number(r.length_ft),
+		fieldDate: r.field_date,
+		firstHarvest: r.first_harvest,
+		lastHarvest: r.last_harvest,
+		method: r.method,
+		reason: null
 	});
 	const proposed = (p: ProposedPlanting): ChangeRow => ({
-		id: null, cropId: Number(p.cropId), varietyId: Number(p.varietyId), status: 'planned', bedId: p.bedId === null ? null : Number(p.bedId),
-		startFt: p.startFt, lengthFt: p.lengthFt, fieldDate: p.fieldDate, firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, method: p.method,
+		id: null,
+		cropId: Number(p.cropId),
+		varietyId: Number(p.varietyId),
+		status: 'planned',
+		bedId: p.bedId === null ? null : Number(p.bedId),
+		startFt: p.startFt,
+		lengthFt: p.lengthFt,
+		fieldDate: p.fieldDate,
+		firstHarvest: p.firstHarvest,
+		lastHarvest: p.lastHarvest,
+		method: p.method,
 		reason: p.unplacedReason
 	});
 
 	// Planned rows the plan would recreate identically are "unchanged"; each matches at most once.
 	const pool = new Map<string, Row[]>();
 	for (const r of rows.filter((r) => r.status === 'planned')) {
-		const k = shapeKey({ varietyId: r.variety_id, bedId: r.bed_id, startFt: r.start_ft, lengthFt: r.length_ft, fieldDate: r.field_date, method: r.method, rows: r.rows, spacing: r.in_row_spacing_in, perSpot: r.seeds_per_spot });
+		const k = shapeKey({
+			varietyId: r.variety_id,
+			bedId: r.bed_id,
+			startFt: r.start_ft,
+			lengthFt: r.length_ft,
+			fieldDate: r.field_date,
+			method: r.method,
+			rows: r.rows,
+			spacing: r.in_row_spacing_in,
+			perSpot: r.seeds_per_spot
+		});
 		(pool.get(k) ?? pool.set(k, []).get(k)!).push(r);
 	}
 	const unchanged: ChangeRow[] = [];
 	const added: ChangeRow[] = [];
 	for (const p of result.plan.plantings) {
-		const k = shapeKey({ varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), startFt: p.startFt, lengthFt: p.lengthFt, fieldDate: p.fieldDate, method: p.method, rows: p.rows, spacing: p.inRowSpacingIn, perSpot: p.seedsPerSpot });
+		const k = shapeKey({
+			varietyId: Number(p.varietyId),
+			bedId: p.bedId === null ? null : Number(p.bedId),
+			startFt: p.startFt,
+			lengthFt: p.lengthFt,
+			fieldDate: p.fieldDate,
+			method: p.method,
+			rows: p.rows,
+			spacing: p.inRowSpacingIn,
+			perSpot: p.seedsPerSpot
+		});
 		const match = pool.get(k)?.shift();
 		if (match) unchanged.push(existing(match));
 		else added.push(proposed(p));
@@ -141,7 +219,13 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 	// Totals: every planting that is not failed, now and after the apply.
 	const before = emptyTotals();
 	const after = emptyTotals();
-	const seedShape = (r: Row) => ({ method: r.method, lengthFt: Number(r.length_ft), rows: r.rows, inRowSpacingIn: Number(r.in_row_spacing_in), seedsPerSpot: r.seeds_per_spot });
+	const seedShape = (r: Row) => ({
+		method: r.method,
+		lengthFt: Number(r.length_ft),
+		rows: r.rows,
+		inRowSpacingIn: Number(r.in_row_spacing_in),
+		seedsPerSpot: r.seeds_per_spot
+	});
 	for (const r of rows) {
 		if (r.status === 'failed') continue;
 		addTo(before, seedShape(r), varietyById.get(r.variety_id));
@@ -160,14 +244,35 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 	// Supply against demand per crop with demand or supply, over the weeks where either is.
 	const targets = deriveTargets(input);
 	const asForecast = (crop: number, first: string, last: string, feet: number, perFoot: number): ForecastPlanting => ({
-		crop: String(crop), firstHarvest: first, lastHarvest: last, bedFeet: feet, yieldPerBedFoot: perFoot
+		crop: String(crop),
+		firstHarvest: first,
+		lastHarvest: last,
+		bedFeet: feet,
+		yieldPerBedFoot: perFoot
 	});
 	const live = rows.filter((r) => r.status !== 'failed');
-	const beforeRows = forecast(live.map((r) => asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))), targets);
+	const beforeRows = forecast(
+		live.map((r) =>
+			asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))
+		),
+		targets
+	);
 	const afterRows = forecast(
 		[
-			...live.filter((r) => r.status !== 'planned').map((r) => asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))),
-			...result.plan.plantings.map((p) => asForecast(Number(p.cropId), p.firstHarvest, p.lastHarvest, p.lengthFt, varietyById.get(Number(p.varietyId))?.yieldPerBedFoot ?? 0))
+			...live
+				.filter((r) => r.status !== 'planned')
+				.map((r) =>
+					asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))
+				),
+			...result.plan.plantings.map((p) =>
+				asForecast(
+					Number(p.cropId),
+					p.firstHarvest,
+					p.lastHarvest,
+					p.lengthFt,
+					varietyById.get(Number(p.varietyId))?.yieldPerBedFoot ?? 0
+				)
+			)
 		],
 		targets
 	);
@@ -179,13 +284,23 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 		const m = byCrop.get(c) ?? byCrop.set(c, new Map()).get(c)!;
 		return m.get(week) ?? m.set(week, { demand: 0, before: 0, after: 0 }).get(week)!;
 	};
-	for (const r of beforeRows) if (r.week >= seasonFirst && r.week <= seasonLast) Object.assign(cell(r.crop, r.week), { demand: r.demand, before: r.supply });
-	for (const r of afterRows) if (r.week >= seasonFirst && r.week <= seasonLast) Object.assign(cell(r.crop, r.week), { demand: r.demand, after: r.supply });
+	for (const r of beforeRows)
+		if (r.week >= seasonFirst && r.week <= seasonLast)
+			Object.assign(cell(r.crop, r.week), { demand: r.demand, before: r.supply });
+	for (const r of afterRows)
+		if (r.week >= seasonFirst && r.week <= seasonLast)
+			Object.assign(cell(r.crop, r.week), { demand: r.demand, after: r.supply });
 	const balance: CropBalance[] = [...byCrop.entries()]
 		.filter(([, weeks]) => [...weeks.values()].some((w) => w.demand > 0))
 		.map(([cropId, weeks]) => {
 			const list = [...weeks.keys()].sort();
-			return { cropId, weeks: list, demand: list.map((w) => weeks.get(w)!.demand), before: list.map((w) => weeks.get(w)!.before), after: list.map((w) => weeks.get(w)!.after) };
+			return {
+				cropId,
+				weeks: list,
+				demand: list.map((w) => weeks.get(w)!.demand),
+				before: list.map((w) => weeks.get(w)!.before),
+				after: list.map((w) => weeks.get(w)!.after)
+			};
 		})
 		.sort((a, b) => a.cropId - b.cropId);
 

@@ -39,12 +39,29 @@ type ExistingPlanting = {
 	family: string;
 };
 
-function seasonPlantings(executor: Knex | Knex.Transaction, farmId: number, seasonId: number): Promise<ExistingPlanting[]> {
+function seasonPlantings(
+	executor: Knex | Knex.Transaction,
+	farmId: number,
+	seasonId: number
+): Promise<ExistingPlanting[]> {
 	return executor('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-		.select('p.id', 'p.status', 'p.variety_id', 'p.bed_id', 'p.start_ft', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'v.crop_id', 'v.yield_per_bed_foot', 'c.family');
+		.select(
+			'p.id',
+			'p.status',
+			'p.variety_id',
+			'p.bed_id',
+			'p.start_ft',
+			'p.length_ft',
+			'p.field_date',
+			'p.first_harvest',
+			'p.last_harvest',
+			'v.crop_id',
+			'v.yield_per_bed_foot',
+			'c.family'
+		);
 }
 
 /** Everything the engine needs except the season's own plantings. */
@@ -73,11 +90,18 @@ async function gatherInputs(farmId: number, season: Season) {
 
 /** Runs the engine over the season as it stands; writes nothing. */
 export async function preview(farmId: number, season: Season, request: PlanRequest): Promise<PlanPreview> {
-	const [inputs, existing] = await Promise.all([gatherInputs(farmId, season), seasonPlantings(db(), farmId, season.id)]);
+	const [inputs, existing] = await Promise.all([
+		gatherInputs(farmId, season),
+		seasonPlantings(db(), farmId, season.id)
+	]);
 	return planFrom(inputs, existing, request);
 }
 
-function planFrom(inputs: Awaited<ReturnType<typeof gatherInputs>>, existing: ExistingPlanting[], request: PlanRequest): PlanPreview {
+function planFrom(
+	inputs: Awaited<ReturnType<typeof gatherInputs>>,
+	existing: ExistingPlanting[],
+	request: PlanRequest
+): PlanPreview {
 	const { farm, temps, varieties, bedList, demand, obstacles, otherSeasons } = inputs;
 	const engineVarieties = new Map(varieties.map((v) => [String(v.id), toEngineVariety(v)]));
 	const { targets, notes } = deriveTargetsWithNotes(demand);
@@ -131,7 +155,12 @@ function planFrom(inputs: Awaited<ReturnType<typeof gatherInputs>>, existing: Ex
 		kept,
 		obstacles,
 		varietyPlan: request.varietyPlan
-			? Object.fromEntries(Object.entries(request.varietyPlan).map(([crop, shares]) => [crop, shares.map((s) => ({ ...s, varietyId: String(s.varietyId) }))]))
+			? Object.fromEntries(
+					Object.entries(request.varietyPlan).map(([crop, shares]) => [
+						crop,
+						shares.map((s) => ({ ...s, varietyId: String(s.varietyId) }))
+					])
+				)
 			: undefined,
 		options: {
 			intervalWeeks: request.intervalWeeks,
@@ -185,13 +214,22 @@ export async function apply(
 		// then finds its planned row replaced. Planning from rows read before the lock could plant a kept
 		// planting twice.
 		await lockForApply(trx, farmId, seasonId, expected, demandDigest);
-		const rows: { id: number; status: string }[] = await trx('plantings').where({ farm_id: farmId, season_id: seasonId }).forUpdate().select('id', 'status');
+		const rows: { id: number; status: string }[] = await trx('plantings')
+			.where({ farm_id: farmId, season_id: seasonId })
+			.forUpdate()
+			.select('id', 'status');
 		const result = planFrom(inputs, await seasonPlantings(trx, farmId, seasonId), request);
 		const plannedIds = rows.filter((r) => r.status === 'planned').map((r) => r.id);
 		const replaced = await snapshotPlanned(trx, plannedIds);
 		if (plannedIds.length) await trx('plantings').whereIn('id', plannedIds).delete();
 		const inserts = result.plan.plantings.map((p) =>
-			plantingRow(p, { farmId, seasonId, varietyId: Number(p.varietyId), bedId: p.bedId === null ? null : Number(p.bedId), updatedBy: userId })
+			plantingRow(p, {
+				farmId,
+				seasonId,
+				varietyId: Number(p.varietyId),
+				bedId: p.bedId === null ? null : Number(p.bedId),
+				updatedBy: userId
+			})
 		);
 		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
 		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced, demandDigest });

@@ -42,7 +42,10 @@ const fields: [string, string][] = [
 	['actualLastHarvest', 'p.actual_last_harvest'],
 	['updatedBy', 'u.name'],
 	// ISO 8601 in UTC whatever the session's time zone: seconds since the epoch added to 1970-01-01.
-	['updatedAt', "DATE_FORMAT('1970-01-01 00:00:00' + INTERVAL UNIX_TIMESTAMP(p.updated_at) SECOND, '%Y-%m-%dT%H:%i:%s.000Z')"]
+	[
+		'updatedAt',
+		"DATE_FORMAT('1970-01-01 00:00:00' + INTERVAL UNIX_TIMESTAMP(p.updated_at) SECOND, '%Y-%m-%dT%H:%i:%s.000Z')"
+	]
 ];
 // CAST … AS CHAR: plain text, which the driver passes on as it is (a JSON column it would parse).
 const rowJson = `CAST(JSON_OBJECT(${fields.map(([k, sql]) => `'${k}', ${sql}`).join(', ')}) AS CHAR)`;

@@ -3,7 +3,14 @@ import { db } from './db';
 import type { Knex } from 'knex';
 import type { Role } from '$lib/roles';
 import { editableFields, type PlantingCreate, type PlantingField, type PlantingPatch } from '$lib/schemas/planting';
-import { fieldSpec, fromColumns, initialValue, plantingFieldNames, toColumns, type PlantingValues } from '$lib/plantings/fields';
+import {
+	fieldSpec,
+	fromColumns,
+	initialValue,
+	plantingFieldNames,
+	toColumns,
+	type PlantingValues
+} from '$lib/plantings/fields';
 import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
@@ -26,10 +33,24 @@ function base(farmId: number) {
 		.where('p.farm_id', farmId)
 		.select(
 			...plantingFieldNames.map((f) => `p.${fieldSpec(f).column}`),
-			'p.id', 'p.season_id', 'v.name as variety', 'c.name as crop', 'c.family', 'c.harvest_unit',
-			'b.name as bed', 'k.name as block', 'k.position as block_position', 'b.position as bed_position',
-			'p.tray_sow_date', 'p.first_harvest', 'p.last_harvest', 'p.expected_yield', 'p.seeds_needed', 'p.version',
-			'u.name as updated_by_name', 'p.updated_at'
+			'p.id',
+			'p.season_id',
+			'v.name as variety',
+			'c.name as crop',
+			'c.family',
+			'c.harvest_unit',
+			'b.name as bed',
+			'k.name as block',
+			'k.position as block_position',
+			'b.position as bed_position',
+			'p.tray_sow_date',
+			'p.first_harvest',
+			'p.last_harvest',
+			'p.expected_yield',
+			'p.seeds_needed',
+			'p.version',
+			'u.name as updated_by_name',
+			'p.updated_at'
 		);
 }
 
@@ -80,7 +101,11 @@ function toView(r: JoinedRow): PlantingView {
 }
 
 export async function listForSeason(farmId: number, seasonId: number): Promise<PlantingView[]> {
-	return (await base(farmId).andWhere('p.season_id', seasonId).orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])).map(toView);
+	return (
+		await base(farmId)
+			.andWhere('p.season_id', seasonId)
+			.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
+	).map(toView);
 }
 
 export interface WeekTasks {
@@ -96,7 +121,11 @@ export async function tasksForWeek(farmId: number, monday: string, sunday: strin
 	const [tray, field, harvest] = await Promise.all([
 		base(farmId).whereBetween('p.tray_sow_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy('c.name'),
 		base(farmId).whereBetween('p.field_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy(walking),
-		base(farmId).where('p.first_harvest', '<=', sunday).andWhere('p.last_harvest', '>=', monday).whereNotIn('p.status', ['failed', 'finished']).orderBy(walking)
+		base(farmId)
+			.where('p.first_harvest', '<=', sunday)
+			.andWhere('p.last_harvest', '>=', monday)
+			.whereNotIn('p.status', ['failed', 'finished'])
+			.orderBy(walking)
 	]);
 	const fieldViews = field.map(toView);
 	return {
@@ -119,10 +148,21 @@ export interface GridContext {
 
 /** Everything the grid needs to recalculate rows in the browser the way the server will. */
 export async function gridContext(farmId: number): Promise<GridContext> {
-	const [farm, temps, varieties, beds] = await Promise.all([farmsData.get(farmId), farmsData.weeklyTemps(farmId), listVarieties(farmId), bedsData.list(farmId)]);
+	const [farm, temps, varieties, beds] = await Promise.all([
+		farmsData.get(farmId),
+		farmsData.weeklyTemps(farmId),
+		listVarieties(farmId),
+		bedsData.list(farmId)
+	]);
 	return {
 		varieties,
-		beds: beds.map((b) => ({ id: b.id, name: b.name, blockId: b.blockId, blockName: b.blockName, lengthFt: b.lengthFt })),
+		beds: beds.map((b) => ({
+			id: b.id,
+			name: b.name,
+			blockId: b.blockId,
+			blockName: b.blockName,
+			lengthFt: b.lengthFt
+		})),
 		farm: {
 			lastSpringFrost: farm.lastSpringFrost,
 			firstFallFrost: farm.firstFallFrost,
@@ -145,10 +185,16 @@ export async function getOne(farmId: number, id: number, trx?: Knex.Transaction)
 export type FieldErrors = Record<string, string>;
 
 /** The row as stored, with derived columns recomputed; errors keyed by field. */
-function buildRow(values: PlantingValues, variety: GridVariety | undefined, ctx: GridContext, prefix: string): { row?: Record<string, unknown>; errors: FieldErrors } {
+function buildRow(
+	values: PlantingValues,
+	variety: GridVariety | undefined,
+	ctx: GridContext,
+	prefix: string
+): { row?: Record<string, unknown>; errors: FieldErrors } {
 	const errors: FieldErrors = {};
-	if (!variety) errors[`${prefix}varietyId`] = 'Choose one of this farm\'s varieties.';
-	if (values.bedId !== null && !ctx.beds.some((b) => b.id === values.bedId)) errors[`${prefix}bedId`] = 'Choose one of this farm\'s beds.';
+	if (!variety) errors[`${prefix}varietyId`] = "Choose one of this farm's varieties.";
+	if (values.bedId !== null && !ctx.beds.some((b) => b.id === values.bedId))
+		errors[`${prefix}bedId`] = "Choose one of this farm's beds.";
 	if (!variety || Object.keys(errors).length) return { errors };
 	const d = deriveRow(values, variety, ctx.farm);
 	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
@@ -187,7 +233,10 @@ export interface DateLimits {
 
 export async function dateLimits(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<DateLimits | null> {
 	const q = trx ?? db();
-	const row = await q('seasons as s').join('farms as f', 'f.id', 's.farm_id').where({ 's.id': seasonId, 's.farm_id': farmId }).first('s.year', 'f.time_zone');
+	const row = await q('seasons as s')
+		.join('farms as f', 'f.id', 's.farm_id')
+		.where({ 's.id': seasonId, 's.farm_id': farmId })
+		.first('s.year', 'f.time_zone');
 	return row ? { seasonYear: Number(row.year), today: todayIn(row.time_zone) } : null;
 }
 
@@ -197,7 +246,12 @@ export async function dateLimits(farmId: number, seasonId: number, trx?: Knex.Tr
  * the planting went into the field, the last not before the first. Only the fields being
  * written are judged, so an old row's odd value does not block an unrelated edit.
  */
-export function plantingDateErrors(values: Partial<Record<DateField, string | null>>, written: readonly string[], limits: DateLimits, prefix = ''): DateErrors {
+export function plantingDateErrors(
+	values: Partial<Record<DateField, string | null>>,
+	written: readonly string[],
+	limits: DateLimits,
+	prefix = ''
+): DateErrors {
 	const errors: DateErrors = {};
 	const field = values.actualFieldDate ?? values.fieldDate ?? null;
 	for (const f of Object.keys(dateLabels) as DateField[]) {
@@ -207,7 +261,9 @@ export function plantingDateErrors(values: Partial<Record<DateField, string | nu
 		const problem =
 			seasonDateProblem(label, v, limits.seasonYear) ??
 			(actualFields.includes(f) && v > limits.today ? `${label} cannot be after today (${limits.today}).` : null) ??
-			((f === 'actualFirstHarvest' || f === 'actualLastHarvest') && field && v < field ? `${label} cannot be before the planting went into the field (${field}).` : null) ??
+			((f === 'actualFirstHarvest' || f === 'actualLastHarvest') && field && v < field
+				? `${label} cannot be before the planting went into the field (${field}).`
+				: null) ??
 			(f === 'actualLastHarvest' && values.actualFirstHarvest && v < values.actualFirstHarvest
 				? `${label} cannot be before the actual first harvest (${values.actualFirstHarvest}).`
 				: null);
@@ -219,7 +275,12 @@ export function plantingDateErrors(values: Partial<Record<DateField, string | nu
 export type CreateResult = { ok: true; plantings: PlantingView[] } | { ok: false; errors: FieldErrors };
 
 /** New rows (one, or a whole paste) in one transaction: all of them or none. */
-export async function create(farmId: number, seasonId: number, userId: string, inputs: PlantingCreate[]): Promise<CreateResult> {
+export async function create(
+	farmId: number,
+	seasonId: number,
+	userId: string,
+	inputs: PlantingCreate[]
+): Promise<CreateResult> {
 	const ctx = await gridContext(farmId);
 	const limits = await dateLimits(farmId, seasonId);
 	if (!limits) return { ok: false, errors: { seasonId: 'No such season on this farm.' } };
@@ -229,7 +290,12 @@ export async function create(farmId: number, seasonId: number, userId: string, i
 	inputs.forEach((input, i) => {
 		const v = byId.get(input.varietyId);
 		const values = withDefaults(input, v);
-		const dateErrors = plantingDateErrors(values as Partial<Record<DateField, string | null>>, Object.keys(input), limits, `plantings.${i}.`);
+		const dateErrors = plantingDateErrors(
+			values as Partial<Record<DateField, string | null>>,
+			Object.keys(input),
+			limits,
+			`plantings.${i}.`
+		);
 		Object.assign(errors, dateErrors);
 		if (Object.keys(dateErrors).length) return;
 		const built = buildRow(values, v, ctx, `plantings.${i}.`);
@@ -257,7 +323,12 @@ export type UpdateResult =
 	| { kind: 'invalid'; errors: FieldErrors };
 
 /** An edit made on `patch.version`; a stale version is refused with the row as it now stands. */
-export async function update(farmId: number, id: number, user: { id: string; role: Role }, patch: PlantingPatch): Promise<UpdateResult> {
+export async function update(
+	farmId: number,
+	id: number,
+	user: { id: string; role: Role },
+	patch: PlantingPatch
+): Promise<UpdateResult> {
 	const { version, ...changes } = patch;
 	const allowed = editableFields(user.role);
 	const refused = Object.keys(changes).filter((f) => !allowed.includes(f as PlantingField));
@@ -275,9 +346,16 @@ export async function update(farmId: number, id: number, user: { id: string; rol
 		const limits = await dateLimits(farmId, cur.season_id, trx);
 		const dateErrors = limits ? plantingDateErrors(values, Object.keys(changes), limits) : {};
 		if (Object.keys(dateErrors).length) return { kind: 'invalid', errors: dateErrors } as const;
-		const built = buildRow(values, ctx.varieties.find((v) => v.id === values.varietyId), ctx, '');
+		const built = buildRow(
+			values,
+			ctx.varieties.find((v) => v.id === values.varietyId),
+			ctx,
+			''
+		);
 		if (!built.row) return { kind: 'invalid', errors: built.errors } as const;
-		await trx('plantings').where({ id, farm_id: farmId }).update({ ...built.row, version: version + 1, updated_by: user.id, updated_at: trx.fn.now() });
+		await trx('plantings')
+			.where({ id, farm_id: farmId })
+			.update({ ...built.row, version: version + 1, updated_by: user.id, updated_at: trx.fn.now() });
 		return { kind: 'ok', planting: (await getOne(farmId, id, trx))! } as const;
 	});
 }

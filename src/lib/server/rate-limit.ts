@@ -75,8 +75,16 @@ interface Limits {
 let limits: Limits | undefined;
 function get(): Limits {
 	limits ??= {
-		signInAccount: new GrowingDelay('signin_account', setting('FC_SIGNIN_ACCOUNT_FREE', 5), setting('FC_SIGNIN_ACCOUNT_MAX_WAIT', 60)),
-		signInAddress: new GrowingDelay('signin_address', setting('FC_SIGNIN_ADDRESS_FREE', 20), setting('FC_SIGNIN_ADDRESS_MAX_WAIT', 900)),
+		signInAccount: new GrowingDelay(
+			'signin_account',
+			setting('FC_SIGNIN_ACCOUNT_FREE', 5),
+			setting('FC_SIGNIN_ACCOUNT_MAX_WAIT', 60)
+		),
+		signInAddress: new GrowingDelay(
+			'signin_address',
+			setting('FC_SIGNIN_ADDRESS_FREE', 20),
+			setting('FC_SIGNIN_ADDRESS_MAX_WAIT', 900)
+		),
 		forgotAccount: limiter('forgot_account', setting('FC_FORGOT_ACCOUNT_LIMIT', 3), hour),
 		forgotAddress: limiter('forgot_address', setting('FC_FORGOT_ADDRESS_LIMIT', 10), hour),
 		signUpAddress: limiter('signup_address', setting('FC_SIGNUP_ADDRESS_LIMIT', 10), hour)
@@ -98,7 +106,10 @@ export type SignInWait = { by: 'account' | 'address'; ms: number } | null;
 
 /** Whether this sign-in must wait, and because of which count (the longer wait when both). */
 export async function signInWait(email: string, address: string): Promise<SignInWait> {
-	const [account, byAddress] = await Promise.all([get().signInAccount.waitMs(accountKey(email)), get().signInAddress.waitMs(address)]);
+	const [account, byAddress] = await Promise.all([
+		get().signInAccount.waitMs(accountKey(email)),
+		get().signInAddress.waitMs(address)
+	]);
 	if (account === 0 && byAddress === 0) return null;
 	return byAddress >= account ? { by: 'address', ms: byAddress } : { by: 'account', ms: account };
 }

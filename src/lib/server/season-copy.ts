@@ -50,7 +50,8 @@ export type CopyResult = { ok: true; report: CopyReport } | { ok: false; status:
 
 function seasonDates(s: Season, year: number): { startsOn: string; endsOn: string } {
 	// A calendar-year season stays one; any other span moves like the plantings do.
-	if (s.startsOn === `${s.year}-01-01` && s.endsOn === `${s.year}-12-31`) return { startsOn: `${year}-01-01`, endsOn: `${year}-12-31` };
+	if (s.startsOn === `${s.year}-01-01` && s.endsOn === `${s.year}-12-31`)
+		return { startsOn: `${year}-01-01`, endsOn: `${year}-12-31` };
 	return { startsOn: nextYearDate(s.startsOn), endsOn: nextYearDate(s.endsOn) };
 }
 
@@ -75,9 +76,17 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 	const bedName = new Map(bedList.map((b) => [b.id, `${b.blockName} · ${b.name}`]));
 
 	const moved = plantings.map((p) => {
-		const old = { traySowDate: p.tray_sow_date, fieldDate: p.field_date, firstHarvest: p.first_harvest, lastHarvest: p.last_harvest };
+		const old = {
+			traySowDate: p.tray_sow_date,
+			fieldDate: p.field_date,
+			firstHarvest: p.first_harvest,
+			lastHarvest: p.last_harvest
+		};
 		const next = shiftPlantingDates(old);
-		const facts = { frostTender: p.frost_tolerance === 'tender', heatLimitF: p.heat_limit_f === null ? undefined : Number(p.heat_limit_f) };
+		const facts = {
+			frostTender: p.frost_tolerance === 'tender',
+			heatLimitF: p.heat_limit_f === null ? undefined : Number(p.heat_limit_f)
+		};
 		const change = compareChecks(frostHeatChecks(facts, old, checkFarm), frostHeatChecks(facts, next, checkFarm));
 		return { p, old, next, change };
 	});
@@ -94,7 +103,13 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 	const dates = seasonDates(source, year);
 	const fixed = await bedHolders(farmId, dates.startsOn, dates.endsOn, farm.turnaroundDays);
 	const placement = placePlantings(
-		moved.map(({ p, next }) => ({ key: String(p.id), bedFeet: Number(p.length_ft), fieldDate: next.fieldDate, lastHarvest: next.lastHarvest, family: p.family })),
+		moved.map(({ p, next }) => ({
+			key: String(p.id),
+			bedFeet: Number(p.length_ft),
+			fieldDate: next.fieldDate,
+			lastHarvest: next.lastHarvest,
+			family: p.family
+		})),
 		bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),
 		// Kept whole: splitting would change the planting's rows, seed and yield per piece.
 		{ turnaroundDays: farm.turnaroundDays, previousFamilyByBed, fixed, allowSplit: false }
@@ -104,10 +119,20 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 
 	return db().transaction(async (trx) => {
 		if (await trx('seasons').where({ farm_id: farmId, year }).first('id')) {
-			return { ok: false, status: 409, message: `This farm already has a ${year} season; copying would mix two plans.` } as const;
+			return {
+				ok: false,
+				status: 409,
+				message: `This farm already has a ${year} season; copying would mix two plans.`
+			} as const;
 		}
 		const name = `${year} season`;
-		const [seasonId] = await trx('seasons').insert({ farm_id: farmId, year, name, starts_on: dates.startsOn, ends_on: dates.endsOn });
+		const [seasonId] = await trx('seasons').insert({
+			farm_id: farmId,
+			year,
+			name,
+			starts_on: dates.startsOn,
+			ends_on: dates.endsOn
+		});
 
 		const rows = moved.map(({ p, next }) => {
 			const at = placedBy.get(String(p.id));
@@ -124,7 +149,11 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 				last_harvest: next.lastHarvest,
 				expected_yield: p.expected_yield,
 				seeds_needed: p.seeds_needed,
-				notes: reason ? `Not placed: ${reason}` : p.notes && !String(p.notes).startsWith('Not placed:') ? p.notes : null,
+				notes: reason
+					? `Not placed: ${reason}`
+					: p.notes && !String(p.notes).startsWith('Not placed:')
+						? p.notes
+						: null,
 				updated_by: userId
 			};
 		});
@@ -135,7 +164,16 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 		let boxItems = 0;
 		let dropped = 0;
 		for (const s of shares) {
-			const [sid] = await trx('share_sizes').insert({ farm_id: farmId, season_id: seasonId, name: s.name, members: s.members, first_week: nextYearWeek(s.first_week), last_week: nextYearWeek(s.last_week), pickup_days: s.pickup_days, price_cents: s.price_cents });
+			const [sid] = await trx('share_sizes').insert({
+				farm_id: farmId,
+				season_id: seasonId,
+				name: s.name,
+				members: s.members,
+				first_week: nextYearWeek(s.first_week),
+				last_week: nextYearWeek(s.last_week),
+				pickup_days: s.pickup_days,
+				price_cents: s.price_cents
+			});
 			const items = await trx('box_items').where({ share_size_id: s.id }).orderBy('week');
 			const seen = new Set<string>();
 			for (const i of items) {
@@ -146,7 +184,13 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 					continue;
 				}
 				seen.add(`${week}|${i.crop_id}`);
-				await trx('box_items').insert({ share_size_id: sid, week, crop_id: i.crop_id, quantity: i.quantity, unit: i.unit });
+				await trx('box_items').insert({
+					share_size_id: sid,
+					week,
+					crop_id: i.crop_id,
+					quantity: i.quantity,
+					unit: i.unit
+				});
 				boxItems++;
 			}
 		}
@@ -161,7 +205,14 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 				continue;
 			}
 			seen.add(key);
-			await trx('channel_demand').insert({ farm_id: farmId, season_id: seasonId, channel: c.channel, crop_id: c.crop_id, week, quantity: c.quantity });
+			await trx('channel_demand').insert({
+				farm_id: farmId,
+				season_id: seasonId,
+				channel: c.channel,
+				crop_id: c.crop_id,
+				week,
+				quantity: c.quantity
+			});
 			channelDemand++;
 		}
 

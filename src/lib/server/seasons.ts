@@ -15,10 +15,24 @@ export interface Season {
 	archivedAt?: string | null;
 }
 
-type SeasonRow = { id: number; year: number; name: string; starts_on: string; ends_on: string; archived_at: Date | null };
+type SeasonRow = {
+	id: number;
+	year: number;
+	name: string;
+	starts_on: string;
+	ends_on: string;
+	archived_at: Date | null;
+};
 const columns = ['id', 'year', 'name', 'starts_on', 'ends_on', 'archived_at'] as const;
 function toSeason(r: SeasonRow): Season {
-	return { id: r.id, year: r.year, name: r.name, startsOn: r.starts_on, endsOn: r.ends_on, archivedAt: r.archived_at === null ? null : new Date(r.archived_at).toISOString() };
+	return {
+		id: r.id,
+		year: r.year,
+		name: r.name,
+		startsOn: r.starts_on,
+		endsOn: r.ends_on,
+		archivedAt: r.archived_at === null ? null : new Date(r.archived_at).toISOString()
+	};
 }
 
 /** Every season of the farm, newest first; archived ones only when asked for. */
@@ -44,8 +58,14 @@ export async function shareSeasonLock(trx: Knex.Transaction, farmId: number, sea
 }
 
 /** The same, found from a planting (no lock when the planting is not the farm's). */
-export async function shareSeasonLockOfPlanting(trx: Knex.Transaction, farmId: number, plantingId: number): Promise<void> {
-	const row: { season_id: number } | undefined = await trx('plantings').where({ id: plantingId, farm_id: farmId }).first('season_id');
+export async function shareSeasonLockOfPlanting(
+	trx: Knex.Transaction,
+	farmId: number,
+	plantingId: number
+): Promise<void> {
+	const row: { season_id: number } | undefined = await trx('plantings')
+		.where({ id: plantingId, farm_id: farmId })
+		.first('season_id');
 	if (row) await shareSeasonLock(trx, farmId, row.season_id);
 }
 
@@ -76,17 +96,25 @@ export async function demandHash(farmId: number, seasonId: number): Promise<stri
 }
 
 export async function planFreshness(farmId: number, seasonId: number): Promise<PlanFreshness> {
-	const r: { plan_applied_at: Date | null; demand_changed_at: Date | null; plan_demand_hash: string | null } | undefined = await db()('seasons')
-		.where({ farm_id: farmId, id: seasonId })
-		.first('plan_applied_at', 'demand_changed_at', 'plan_demand_hash');
+	const r:
+		{ plan_applied_at: Date | null; demand_changed_at: Date | null; plan_demand_hash: string | null } | undefined =
+		await db()('seasons')
+			.where({ farm_id: farmId, id: seasonId })
+			.first('plan_applied_at', 'demand_changed_at', 'plan_demand_hash');
 	if (!r) return { planAppliedAt: null, demandChangedAt: null, demandChangedSincePlan: false };
 	const changed = r.plan_demand_hash !== null && (await demandHash(farmId, seasonId)) !== r.plan_demand_hash;
-	return { planAppliedAt: iso(r.plan_applied_at), demandChangedAt: iso(r.demand_changed_at), demandChangedSincePlan: changed };
+	return {
+		planAppliedAt: iso(r.plan_applied_at),
+		demandChangedAt: iso(r.demand_changed_at),
+		demandChangedSincePlan: changed
+	};
 }
 
 /** Records that the season's demand was written now (inside the writer's transaction when given). */
 export async function markDemandChanged(farmId: number, seasonId: number, trx?: Knex.Transaction): Promise<void> {
-	await (trx ?? db())('seasons').where({ farm_id: farmId, id: seasonId }).update({ demand_changed_at: (trx ?? db()).fn.now() });
+	await (trx ?? db())('seasons')
+		.where({ farm_id: farmId, id: seasonId })
+		.update({ demand_changed_at: (trx ?? db()).fn.now() });
 }
 
 // ---- The seasons page: start, rename, archive -------------------------------------------------
@@ -102,7 +130,9 @@ export async function listSummaries(farmId: number): Promise<SeasonSummary[]> {
 		db()('seasons').where({ farm_id: farmId }).orderBy('year', 'desc').select(columns),
 		db()('plantings').where({ farm_id: farmId }).groupBy('season_id').select('season_id').count({ n: '*' })
 	]);
-	const bySeason = new Map((counts as { season_id: number; n: number | string }[]).map((c) => [Number(c.season_id), Number(c.n)]));
+	const bySeason = new Map(
+		(counts as { season_id: number; n: number | string }[]).map((c) => [Number(c.season_id), Number(c.n)])
+	);
 	return Promise.all(
 		rows.map(async (r: SeasonRow) => {
 			const s = toSeason(r);
@@ -131,7 +161,13 @@ export async function create(farmId: number, input: { year: number; name: string
 		throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
 	}
 	try {
-		const [id] = await db()('seasons').insert({ farm_id: farmId, year: input.year, name: input.name, starts_on: `${input.year}-01-01`, ends_on: `${input.year}-12-31` });
+		const [id] = await db()('seasons').insert({
+			farm_id: farmId,
+			year: input.year,
+			name: input.name,
+			starts_on: `${input.year}-01-01`,
+			ends_on: `${input.year}-12-31`
+		});
 		return id;
 	} catch (e) {
 		if (isDuplicate(e)) throw new SeasonInputError('year', `This farm already has a ${input.year} season.`, 409);
@@ -145,5 +181,9 @@ export async function rename(farmId: number, seasonId: number, name: string): Pr
 
 /** Archives (or brings back) a season; its plantings and demand stay as they are. */
 export async function setArchived(farmId: number, seasonId: number, archived: boolean): Promise<boolean> {
-	return (await db()('seasons').where({ farm_id: farmId, id: seasonId }).update({ archived_at: archived ? db().fn.now() : null })) > 0;
+	return (
+		(await db()('seasons')
+			.where({ farm_id: farmId, id: seasonId })
+			.update({ archived_at: archived ? db().fn.now() : null })) > 0
+	);
 }

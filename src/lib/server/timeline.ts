@@ -3,7 +3,14 @@
 // farm whose time in the ground touches the window, not only the season's own.
 import { addDays, checkBedConflicts, formatWeekDate, freeSpace, weekStart, type BedPlanting } from '$lib/planning';
 import type { FreeSpaceQuery } from '$lib/schemas/free-space';
-import type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting } from '$lib/timeline-types';
+import type {
+	FreeBed,
+	FreeSpaceAnswer,
+	TimelineBed,
+	TimelineData,
+	TimelineFlag,
+	TimelinePlanting
+} from '$lib/timeline-types';
 import { db } from './db';
 import { holdingBedIn } from './bed-holders';
 import * as bedData from './beds';
@@ -13,8 +20,20 @@ import type { Season } from './seasons';
 export type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting };
 
 const columns = [
-	'p.id', 'p.season_id', 'v.name as variety', 'c.name as crop', 'c.family', 'p.bed_id', 'p.start_ft', 'p.length_ft',
-	'p.method', 'p.tray_sow_date', 'p.field_date', 'p.first_harvest', 'p.last_harvest', 'p.status'
+	'p.id',
+	'p.season_id',
+	'v.name as variety',
+	'c.name as crop',
+	'c.family',
+	'p.bed_id',
+	'p.start_ft',
+	'p.length_ft',
+	'p.method',
+	'p.tray_sow_date',
+	'p.field_date',
+	'p.first_harvest',
+	'p.last_harvest',
+	'p.status'
 ];
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
@@ -38,7 +57,13 @@ function toPlanting(r: any): TimelinePlanting {
 }
 
 /** The season's plantings, plus other seasons' placed plantings that hold a bed in [from, to]. */
-async function plantingsTouching(farmId: number, seasonId: number | null, from: string, to: string, turnaroundDays: number): Promise<TimelinePlanting[]> {
+async function plantingsTouching(
+	farmId: number,
+	seasonId: number | null,
+	from: string,
+	to: string,
+	turnaroundDays: number
+): Promise<TimelinePlanting[]> {
 	const rows = await db()('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
@@ -56,7 +81,15 @@ async function plantingsTouching(farmId: number, seasonId: number | null, from: 
 function enginePlantings(list: TimelinePlanting[]): BedPlanting[] {
 	return list
 		.filter((p) => p.bedId !== null && p.status !== 'failed')
-		.map((p) => ({ key: String(p.id), bedId: String(p.bedId), startFt: p.startFt, lengthFt: p.lengthFt, fieldDate: p.fieldDate, lastHarvest: p.lastHarvest, family: p.family }));
+		.map((p) => ({
+			key: String(p.id),
+			bedId: String(p.bedId),
+			startFt: p.startFt,
+			lengthFt: p.lengthFt,
+			fieldDate: p.fieldDate,
+			lastHarvest: p.lastHarvest,
+			family: p.family
+		}));
 }
 
 function engineBeds(beds: TimelineBed[]): { id: string; lengthFt: number; blockId: string }[] {
@@ -68,8 +101,17 @@ function ft(a: number, b: number): string {
 }
 
 export async function loadTimeline(farmId: number, season: Season, blockId: number | null): Promise<TimelineData> {
-	const [farm, blocks, allBeds] = await Promise.all([farms.get(farmId), bedData.listBlocks(farmId), bedData.list(farmId)]);
-	const beds: TimelineBed[] = allBeds.map((b) => ({ id: b.id, blockId: b.blockId, name: b.name, lengthFt: b.lengthFt }));
+	const [farm, blocks, allBeds] = await Promise.all([
+		farms.get(farmId),
+		bedData.listBlocks(farmId),
+		bedData.list(farmId)
+	]);
+	const beds: TimelineBed[] = allBeds.map((b) => ({
+		id: b.id,
+		blockId: b.blockId,
+		name: b.name,
+		lengthFt: b.lengthFt
+	}));
 	const all = await plantingsTouching(farmId, season.id, season.startsOn, season.endsOn, farm.turnaroundDays);
 	const byId = new Map(all.map((p) => [String(p.id), p]));
 	const bedName = new Map(beds.map((b) => [String(b.id), b]));
@@ -81,10 +123,18 @@ export async function loadTimeline(farmId: number, season: Season, blockId: numb
 		let flag: TimelineFlag;
 		if (c.code === 'overlap') {
 			const o = byId.get(c.withKey ?? '');
-			const other = o ? `${o.crop} · ${o.variety} (${ft(o.startFt, o.startFt + o.lengthFt)}, ${formatWeekDate(o.fieldDate)} to ${formatWeekDate(o.lastHarvest)})` : 'another planting';
-			flag = { code: 'overlap', message: `Overlaps ${other} in bed ${bed?.name ?? ''}, counting ${farm.turnaroundDays} turnaround days.` };
+			const other = o
+				? `${o.crop} · ${o.variety} (${ft(o.startFt, o.startFt + o.lengthFt)}, ${formatWeekDate(o.fieldDate)} to ${formatWeekDate(o.lastHarvest)})`
+				: 'another planting';
+			flag = {
+				code: 'overlap',
+				message: `Overlaps ${other} in bed ${bed?.name ?? ''}, counting ${farm.turnaroundDays} turnaround days.`
+			};
 		} else {
-			flag = { code: 'past-end', message: `Runs past the end of bed ${bed?.name ?? ''} (${ft(0, bed?.lengthFt ?? 0)}).` };
+			flag = {
+				code: 'past-end',
+				message: `Runs past the end of bed ${bed?.name ?? ''} (${ft(0, bed?.lengthFt ?? 0)}).`
+			};
 		}
 		(flags[p.id] ??= []).push(flag);
 	}
@@ -133,5 +183,14 @@ export async function freeSpaceFor(farmId: number, query: FreeSpaceQuery): Promi
 			longestFt: ranges.reduce((m, r) => Math.max(m, r.lengthFt), 0)
 		});
 	});
-	return { from: query.from, to: query.to, fromDate, toDate, minFt, turnaroundDays: farm.turnaroundDays, bedsChecked: beds.length, beds: out };
+	return {
+		from: query.from,
+		to: query.to,
+		fromDate,
+		toDate,
+		minFt,
+		turnaroundDays: farm.turnaroundDays,
+		bedsChecked: beds.length,
+		beds: out
+	};
 }

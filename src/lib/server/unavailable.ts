@@ -3,21 +3,41 @@
 // HTML page or, for the JSON API, as JSON; never a bare "Internal Error" 500.
 import { json, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
 
-export const UNAVAILABLE_MESSAGE = "The farm's data is briefly unavailable (the database is not answering). Nothing was lost; try again in a minute.";
+export const UNAVAILABLE_MESSAGE =
+	"The farm's data is briefly unavailable (the database is not answering). Nothing was lost; try again in a minute.";
 const RETRY_AFTER_SECONDS = '30';
 
 // Connection-level failures of mysql2 / knex: the database is not there, not what the request asked.
-const codes = new Set(['ECONNREFUSED', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', 'EHOSTUNREACH', 'ENOTFOUND', 'PROTOCOL_CONNECTION_LOST', 'ER_CON_COUNT_ERROR', 'ER_SERVER_SHUTDOWN']);
+const codes = new Set([
+	'ECONNREFUSED',
+	'ECONNRESET',
+	'EPIPE',
+	'ETIMEDOUT',
+	'EHOSTUNREACH',
+	'ENOTFOUND',
+	'PROTOCOL_CONNECTION_LOST',
+	'ER_CON_COUNT_ERROR',
+	'ER_SERVER_SHUTDOWN'
+]);
 // 1040 too many connections, 1053 server shutdown, 2002/2003 cannot connect, 2006 gone away, 2013 lost.
 const errnos = new Set([1040, 1053, 2002, 2003, 2006, 2013]);
 
 /** True when `err` (or what caused it) says the database could not be reached. */
 export function isDatabaseUnavailable(err: unknown): boolean {
-	for (let e = err as { code?: unknown; errno?: unknown; message?: unknown; cause?: unknown; name?: unknown } | null, depth = 0; e && depth < 5; e = e.cause as typeof e, depth++) {
+	for (
+		let e = err as { code?: unknown; errno?: unknown; message?: unknown; cause?: unknown; name?: unknown } | null,
+			depth = 0;
+		e && depth < 5;
+		e = e.cause as typeof e, depth++
+	) {
 		if (typeof e.code === 'string' && codes.has(e.code)) return true;
 		if (typeof e.errno === 'number' && errnos.has(e.errno)) return true;
 		if (e.name === 'KnexTimeoutError') return true;
-		if (typeof e.message === 'string' && /Timeout acquiring a connection|connect ECONNREFUSED|Connection lost: The server closed/.test(e.message)) return true;
+		if (
+			typeof e.message === 'string' &&
+			/Timeout acquiring a connection|connect ECONNREFUSED|Connection lost: The server closed/.test(e.message)
+		)
+			return true;
 	}
 	return false;
 }
@@ -26,7 +46,9 @@ export function isDatabaseUnavailable(err: unknown): boolean {
 const seen = new WeakSet<object>();
 
 function wantsJson(event: RequestEvent): boolean {
-	return event.url.pathname.startsWith('/api/') || (event.request.headers.get('accept') ?? '').includes('application/json');
+	return (
+		event.url.pathname.startsWith('/api/') || (event.request.headers.get('accept') ?? '').includes('application/json')
+	);
 }
 
 function page(): Response {
@@ -34,11 +56,23 @@ function page(): Response {
 <title>Briefly unavailable · Furrowcast</title></head><body style="font-family: system-ui, sans-serif; max-width: 36rem; margin: 4rem auto; padding: 0 1rem">
 <p>Error 503</p><h1>The farm's data is briefly unavailable</h1><p data-testid="error-message">${UNAVAILABLE_MESSAGE}</p>
 <p><a href="">Try again</a></p></body></html>`;
-	return new Response(html, { status: 503, headers: { 'content-type': 'text/html; charset=utf-8', 'retry-after': RETRY_AFTER_SECONDS, 'cache-control': 'no-store', 'x-content-type-options': 'nosniff' } });
+	return new Response(html, {
+		status: 503,
+		headers: {
+			'content-type': 'text/html; charset=utf-8',
+			'retry-after': RETRY_AFTER_SECONDS,
+			'cache-control': 'no-store',
+			'x-content-type-options': 'nosniff'
+		}
+	});
 }
 
 function unavailable(event: RequestEvent): Response {
-	if (wantsJson(event)) return json({ message: UNAVAILABLE_MESSAGE }, { status: 503, headers: { 'retry-after': RETRY_AFTER_SECONDS, 'cache-control': 'no-store' } });
+	if (wantsJson(event))
+		return json(
+			{ message: UNAVAILABLE_MESSAGE },
+			{ status: 503, headers: { 'retry-after': RETRY_AFTER_SECONDS, 'cache-control': 'no-store' } }
+		);
 	return page();
 }
 

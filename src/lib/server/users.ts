@@ -22,11 +22,19 @@ export class DuplicateEmailError extends Error {
 	}
 }
 
-async function insertUser(trx: Knex.Transaction, input: { email: string; name: string; password: string }): Promise<string> {
+async function insertUser(
+	trx: Knex.Transaction,
+	input: { email: string; name: string; password: string }
+): Promise<string> {
 	const existing = await trx('users').where({ email: input.email.toLowerCase() }).first('id');
 	if (existing) throw new DuplicateEmailError();
 	const id = randomUUID();
-	await trx('users').insert({ id, email: input.email.toLowerCase(), name: input.name, password_hash: await hashPassword(input.password) });
+	await trx('users').insert({
+		id,
+		email: input.email.toLowerCase(),
+		name: input.name,
+		password_hash: await hashPassword(input.password)
+	});
 	return id;
 }
 
@@ -57,16 +65,23 @@ export async function createInvitedUser(
 	trx: Knex.Transaction,
 	input: { email: string; name: string; password: string; farmId: number; role: Role }
 ): Promise<string> {
-	const existing: { id: string; password_hash: string } | undefined = await trx('users').where({ email: input.email.toLowerCase() }).first('id', 'password_hash');
+	const existing: { id: string; password_hash: string } | undefined = await trx('users')
+		.where({ email: input.email.toLowerCase() })
+		.first('id', 'password_hash');
 	// An existing account joins the farm once its owner proves it with the account's password.
 	if (existing && !(await verifyPassword(existing.password_hash, input.password))) {
 		throw new Error('An account with this e-mail exists: enter its current password to join.');
 	}
 	const userId = existing ? existing.id : await insertUser(trx, input);
-	await trx('farm_members').insert({ farm_id: input.farmId, user_id: userId, role: input.role }).onConflict(['farm_id', 'user_id']).merge(['role']);
+	await trx('farm_members')
+		.insert({ farm_id: input.farmId, user_id: userId, role: input.role })
+		.onConflict(['farm_id', 'user_id'])
+		.merge(['role']);
 	return userId;
 }
 
 export async function setPassword(trx: Knex.Transaction, userId: string, password: string): Promise<void> {
-	await trx('users').where({ id: userId }).update({ password_hash: await hashPassword(password) });
+	await trx('users')
+		.where({ id: userId })
+		.update({ password_hash: await hashPassword(password) });
 }

@@ -4,7 +4,10 @@
 import type { FieldErrors } from '$lib/schemas/common';
 import { db } from './db';
 
-export async function varietyPlanErrors(farmId: number, varietyPlan: Record<string, { varietyId: number }[]> | undefined): Promise<FieldErrors | null> {
+export async function varietyPlanErrors(
+	farmId: number,
+	varietyPlan: Record<string, { varietyId: number }[]> | undefined
+): Promise<FieldErrors | null> {
 	if (!varietyPlan || Object.keys(varietyPlan).length === 0) return null;
 	const ids = [...new Set(Object.values(varietyPlan).flatMap((shares) => shares.map((s) => s.varietyId)))];
 	const crops = Object.keys(varietyPlan).map(Number);
@@ -23,7 +26,8 @@ export async function varietyPlanErrors(farmId: number, varietyPlan: Record<stri
 		shares.forEach((s, i) => {
 			const of = cropOf.get(s.varietyId);
 			if (of === undefined) errors[`varietyPlan.${crop}.${i}.varietyId`] = `No variety ${s.varietyId} on this farm.`;
-			else if (of !== Number(crop)) errors[`varietyPlan.${crop}.${i}.varietyId`] = `Variety ${s.varietyId} is not a variety of crop ${crop}.`;
+			else if (of !== Number(crop))
+				errors[`varietyPlan.${crop}.${i}.varietyId`] = `Variety ${s.varietyId} is not a variety of crop ${crop}.`;
 		});
 	}
 	return Object.keys(errors).length ? errors : null;

@@ -96,7 +96,13 @@ function zipEntry(bytes: Uint8Array, wanted: string, maxBytes = 4 * 1024 * 1024)
 }
 
 const attr = (tag: string, name: string): string | undefined => new RegExp(`\\b${name}="([^"]*)"`).exec(tag)?.[1];
-const xmlText = (s: string): string => s.replace(/&quot;/g, '"').replace(/&apos;/g, "'").replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&amp;/g, '&');
+const xmlText = (s: string): string =>
+	s
+		.replace(/&quot;/g, '"')
+		.replace(/&apos;/g, "'")
+		.replace(/&lt;/g, '<')
+		.replace(/&gt;/g, '>')
+		.replace(/&amp;/g, '&');
 
 /**
  * Sheet names by worksheet part number ("3" for xl/worksheets/sheet3.xml), read from the
@@ -142,13 +148,17 @@ function inReadingOrder(bytes: Uint8Array): Buffer[] | null {
 	for (let n = view.getUint16(eocd + 10, true); n > 0; n--) {
 		if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50) return null;
 		const nameLength = view.getUint16(at + 28, true);
-		entries.push({ name: new TextDecoder().decode(bytes.subarray(at + 46, at + 46 + nameLength)).replace(/^\//, ''), offset: view.getUint32(at + 42, true) });
+		entries.push({
+			name: new TextDecoder().decode(bytes.subarray(at + 46, at + 46 + nameLength)).replace(/^\//, ''),
+			offset: view.getUint32(at + 42, true)
+		});
 		at += 46 + nameLength + view.getUint16(at + 30, true) + view.getUint16(at + 32, true);
 	}
 	const byOffset = [...entries].sort((a, b) => a.offset - b.offset);
 	const end = new Map(byOffset.map((e, i) => [e.name, i + 1 < byOffset.length ? byOffset[i + 1].offset : directory]));
 	const rank = (name: string): number =>
-		['xl/_rels/workbook.xml.rels', 'xl/workbook.xml', 'xl/sharedStrings.xml', 'xl/styles.xml'].indexOf(name) + 1 || (name.startsWith('xl/worksheets/') ? 6 : 5);
+		['xl/_rels/workbook.xml.rels', 'xl/workbook.xml', 'xl/sharedStrings.xml', 'xl/styles.xml'].indexOf(name) + 1 ||
+		(name.startsWith('xl/worksheets/') ? 6 : 5);
 	const ordered = [...entries].sort((a, b) => rank(a.name) - rank(b.name) || a.offset - b.offset);
 	const buf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 	return ordered.map((e) => buf.subarray(e.offset, Math.max(e.offset, end.get(e.name)!)));
@@ -181,7 +191,10 @@ export async function readXlsxSheets(
 	if (!zip) throw new XlsxRefused('The file is not an .xlsx workbook (its zip directory could not be read).', 400);
 	if (zip.bytes > limits.maxUnpackedBytes) {
 		const mb = (n: number): string => `${Math.ceil(n / 1024 / 1024)} MB`;
-		throw new XlsxRefused(`The workbook unpacks to ${mb(zip.bytes)}; at most ${mb(limits.maxUnpackedBytes)} is read.`, 413);
+		throw new XlsxRefused(
+			`The workbook unpacks to ${mb(zip.bytes)}; at most ${mb(limits.maxUnpackedBytes)} is read.`,
+			413
+		);
 	}
 	const names = sheetNames(bytes);
 	const out = new Map<string, XlsxRow[]>();
@@ -230,14 +243,25 @@ export async function readXlsxSheets(
 				cells += filled;
 				rows.push({ row: row.number, values });
 				if (rows.length > limits.maxRows) {
-					throw new XlsxRefused(`Sheet "${name}" has more than ${limits.maxRows.toLocaleString('en-US')} rows; at most that many are read at once.`, 413, name, row.number);
+					throw new XlsxRefused(
+						`Sheet "${name}" has more than ${limits.maxRows.toLocaleString('en-US')} rows; at most that many are read at once.`,
+						413,
+						name,
+						row.number
+					);
 				}
 				if (cells > limits.maxCells) {
-					throw new XlsxRefused(`The workbook holds more than ${limits.maxCells.toLocaleString('en-US')} filled cells; at most that many are read at once.`, 413, name, row.number);
+					throw new XlsxRefused(
+						`The workbook holds more than ${limits.maxCells.toLocaleString('en-US')} filled cells; at most that many are read at once.`,
+						413,
+						name,
+						row.number
+					);
 				}
 			}
 		}
-		if (position === 0) throw new XlsxRefused('The file is a zip archive but not an .xlsx workbook: it holds no sheet.', 400);
+		if (position === 0)
+			throw new XlsxRefused('The file is a zip archive but not an .xlsx workbook: it holds no sheet.', 400);
 	} catch (err) {
 		input.destroy();
 		if (err instanceof XlsxRefused) throw err;

@@ -12,8 +12,28 @@ import { actualsAgainstPlan, PlanningInputError } from '../../../src/lib/plannin
 const input = {
 	currentWeek: '2026-W25',
 	plantings: [
-		{ key: 'A', crop: 'carrot', variety: 'nantes', bedFeet: 10, yieldPerBedFoot: 2, fieldDate: '2026-04-02', firstHarvest: '2026-06-01', lastHarvest: '2026-06-14', actualFieldDate: '2026-04-05', finished: true },
-		{ key: 'B', crop: 'carrot', variety: 'nantes', bedFeet: 10, yieldPerBedFoot: 2, fieldDate: '2026-04-16', firstHarvest: '2026-06-15', lastHarvest: '2026-06-28' }
+		{
+			key: 'A',
+			crop: 'carrot',
+			variety: 'nantes',
+			bedFeet: 10,
+			yieldPerBedFoot: 2,
+			fieldDate: '2026-04-02',
+			firstHarvest: '2026-06-01',
+			lastHarvest: '2026-06-14',
+			actualFieldDate: '2026-04-05',
+			finished: true
+		},
+		{
+			key: 'B',
+			crop: 'carrot',
+			variety: 'nantes',
+			bedFeet: 10,
+			yieldPerBedFoot: 2,
+			fieldDate: '2026-04-16',
+			firstHarvest: '2026-06-15',
+			lastHarvest: '2026-06-28'
+		}
 	],
 	harvests: [
 		{ plantingKey: 'A', date: '2026-06-03', quantity: 6 },
@@ -85,7 +105,18 @@ describe('actualsAgainstPlan, worked example', () => {
 		// logged 4 lb in W23 and 7 lb in W24: ratio (4 + 7) ÷ (5 + 7) = 11/12; W25 adjusted 2 × 11/12 = 1.8333.
 		const r = actualsAgainstPlan({
 			currentWeek: '2026-W25',
-			plantings: [{ key: 'x', crop: 'c', variety: 'v', bedFeet: 7, yieldPerBedFoot: 2, fieldDate: '2026-04-01', firstHarvest: '2026-06-03', lastHarvest: '2026-06-16' }],
+			plantings: [
+				{
+					key: 'x',
+					crop: 'c',
+					variety: 'v',
+					bedFeet: 7,
+					yieldPerBedFoot: 2,
+					fieldDate: '2026-04-01',
+					firstHarvest: '2026-06-03',
+					lastHarvest: '2026-06-16'
+				}
+			],
 			harvests: [
 				{ plantingKey: 'x', date: '2026-06-05', quantity: 4 },
 				{ plantingKey: 'x', date: '2026-06-09', quantity: 7 }
@@ -103,7 +134,9 @@ describe('actualsAgainstPlan, worked example', () => {
 	});
 
 	it('a harvest of an unknown planting names the field', () => {
-		expect(() => actualsAgainstPlan({ ...input, harvests: [{ plantingKey: 'Z', date: '2026-06-03', quantity: 1 }] })).toThrow(PlanningInputError);
+		expect(() =>
+			actualsAgainstPlan({ ...input, harvests: [{ plantingKey: 'Z', date: '2026-06-03', quantity: 1 }] })
+		).toThrow(PlanningInputError);
 		try {
 			actualsAgainstPlan({ ...input, harvests: [{ plantingKey: 'Z', date: '2026-06-03', quantity: 1 }] });
 		} catch (e) {

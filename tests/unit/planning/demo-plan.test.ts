@@ -20,7 +20,9 @@ describe('demo season plan fits demand', () => {
 	});
 
 	it('supply ÷ demand at most 1.30 for every crop without a ramp curve', () => {
-		const over = crops.filter((c) => !RAMP.has(c.crop) && c.supply / c.demand > 1.3).map((c) => `${c.crop} ${(c.supply / c.demand).toFixed(2)}`);
+		const over = crops
+			.filter((c) => !RAMP.has(c.crop) && c.supply / c.demand > 1.3)
+			.map((c) => `${c.crop} ${(c.supply / c.demand).toFixed(2)}`);
 		expect(over).toEqual([]);
 	});
 });

@@ -3,9 +3,30 @@ import { emergenceDays, PlanningInputError, type EmergenceTable } from '../../..
 
 // Source: Knott's Handbook for Vegetable Growers, after Harrington & Minges (1954), also in
 // Oregon State Extension: days to emergence by soil temperature (°F → days).
-const parsnip: EmergenceTable = [[32, 172], [41, 57], [50, 27], [59, 19], [68, 14], [77, 15]];
-const carrot: EmergenceTable = [[41, 51], [50, 17], [59, 10], [68, 7], [77, 6], [86, 6]];
-const spinach: EmergenceTable = [[32, 63], [41, 23], [50, 12], [59, 7], [68, 6], [77, 5]];
+const parsnip: EmergenceTable = [
+	[32, 172],
+	[41, 57],
+	[50, 27],
+	[59, 19],
+	[68, 14],
+	[77, 15]
+];
+const carrot: EmergenceTable = [
+	[41, 51],
+	[50, 17],
+	[59, 10],
+	[68, 7],
+	[77, 6],
+	[86, 6]
+];
+const spinach: EmergenceTable = [
+	[32, 63],
+	[41, 23],
+	[50, 12],
+	[59, 7],
+	[68, 6],
+	[77, 5]
+];
 
 describe('emergenceDays', () => {
 	it('gives the table value at a tabulated soil temperature', () => {

@@ -21,4 +21,5 @@ export function variety(over: Partial<Variety>): Variety {
 	};
 }
 
-export const targetsFor = (weeks: string[], quantity: number): { week: string; quantity: number }[] => weeks.map((week) => ({ week, quantity }));
+export const targetsFor = (weeks: string[], quantity: number): { week: string; quantity: number }[] =>
+	weeks.map((week) => ({ week, quantity }));

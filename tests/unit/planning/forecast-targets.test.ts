@@ -50,7 +50,14 @@ describe('deriveTargets', () => {
 
 describe('forecast', () => {
 	// 60 ft × 1.5 lb = 90 lb over 14 days (Wed 1 Jul – Tue 14 Jul 2026) = 6.428… lb a day
-	const carrots = { key: 'carrot#1', crop: 'carrot', firstHarvest: '2026-07-01', harvestWindowDays: 14, bedFeet: 60, yieldPerBedFoot: 1.5 };
+	const carrots = {
+		key: 'carrot#1',
+		crop: 'carrot',
+		firstHarvest: '2026-07-01',
+		harvestWindowDays: 14,
+		bedFeet: 60,
+		yieldPerBedFoot: 1.5
+	};
 	const targets = [
 		{ crop: 'carrot', week: '2026-W27', quantity: 40 },
 		{ crop: 'carrot', week: '2026-W28', quantity: 40 },
@@ -89,7 +96,10 @@ describe('forecast', () => {
 	});
 
 	it('checks whether each share box can be filled', () => {
-		const rows = forecast([{ crop: 'carrot', firstHarvest: '2026-06-15', lastHarvest: '2026-06-21', weeklyYield: 100 }], deriveTargets(demand));
+		const rows = forecast(
+			[{ crop: 'carrot', firstHarvest: '2026-06-15', lastHarvest: '2026-06-21', weeklyYield: 100 }],
+			deriveTargets(demand)
+		);
 		// W25: carrot 100 of 135 (74 %), beet 0 of 60 → neither box fills
 		const boxes = checkBoxes(rows, demand);
 		expect(boxes.map((b) => [b.shareSizeId, b.fillable])).toEqual([

@@ -15,7 +15,13 @@ const beds: Bed[] = [
 	{ id: 'b1', lengthFt: 100 },
 	{ id: 'b2', lengthFt: 100 }
 ];
-const req = (key: string, bedFeet: number, fieldDate: string, lastHarvest: string, family?: string): PlacementRequest => ({
+const req = (
+	key: string,
+	bedFeet: number,
+	fieldDate: string,
+	lastHarvest: string,
+	family?: string
+): PlacementRequest => ({
 	key,
 	bedFeet,
 	fieldDate,
@@ -57,7 +63,10 @@ describe('placePlantings', () => {
 	it('keeps a family off the beds it held last season when another has room', () => {
 		const previousFamilyByBed = { b1: ['Apiaceae'] };
 		const r = placePlantings(
-			[req('carrot1', 80, '2026-04-20', '2026-07-12', 'Apiaceae'), req('carrot2', 80, '2026-04-21', '2026-07-12', 'Apiaceae')],
+			[
+				req('carrot1', 80, '2026-04-20', '2026-07-12', 'Apiaceae'),
+				req('carrot2', 80, '2026-04-21', '2026-07-12', 'Apiaceae')
+			],
 			beds,
 			{ previousFamilyByBed }
 		);
@@ -70,8 +79,14 @@ describe('placePlantings', () => {
 	});
 
 	it('works around fixed plantings', () => {
-		const fixed: BedPlanting[] = [{ key: 'garlic', bedId: 'b1', startFt: 0, lengthFt: 50, fieldDate: '2025-10-20', lastHarvest: '2026-07-15' }];
-		const r = placePlantings([req('A', 60, '2026-05-01', '2026-06-30'), req('B', 50, '2026-05-01', '2026-06-30')], beds, { fixed });
+		const fixed: BedPlanting[] = [
+			{ key: 'garlic', bedId: 'b1', startFt: 0, lengthFt: 50, fieldDate: '2025-10-20', lastHarvest: '2026-07-15' }
+		];
+		const r = placePlantings(
+			[req('A', 60, '2026-05-01', '2026-06-30'), req('B', 50, '2026-05-01', '2026-06-30')],
+			beds,
+			{ fixed }
+		);
 		expect(r.placed).toEqual([
 			{ plantingKey: 'A', bedId: 'b2', startFt: 0, lengthFt: 60 },
 			{ plantingKey: 'B', bedId: 'b1', startFt: 50, lengthFt: 50 }
@@ -93,7 +108,11 @@ describe('placePlantings', () => {
 	it('never splits a piece under minPieceFt: 25 ft into an 18 ft gap goes 15 + 10, not 18 + 7', () => {
 		// b1 has 18 ft free (82 ft held), b2 has 10 ft free (90 ft held): a 25 ft planting must split.
 		const r = placePlantings(
-			[req('X', 82, '2026-05-01', '2026-06-30'), req('Y', 90, '2026-05-01', '2026-06-30'), req('A', 25, '2026-05-02', '2026-06-30')],
+			[
+				req('X', 82, '2026-05-01', '2026-06-30'),
+				req('Y', 90, '2026-05-01', '2026-06-30'),
+				req('A', 25, '2026-05-02', '2026-06-30')
+			],
 			beds,
 			{ minPieceFt: 10 }
 		);
@@ -105,14 +124,24 @@ describe('placePlantings', () => {
 	it('property: no piece of a split planting is under minPieceFt', () => {
 		fc.assert(
 			fc.property(
-				fc.array(fc.record({ feet: fc.integer({ min: 1, max: 180 }), day: fc.integer({ min: 0, max: 60 }), len: fc.integer({ min: 10, max: 90 }) }), { minLength: 1, maxLength: 25 }),
+				fc.array(
+					fc.record({
+						feet: fc.integer({ min: 1, max: 180 }),
+						day: fc.integer({ min: 0, max: 60 }),
+						len: fc.integer({ min: 10, max: 90 })
+					}),
+					{ minLength: 1, maxLength: 25 }
+				),
 				fc.integer({ min: 2, max: 30 }),
 				(ps, minPieceFt) => {
-					const reqs = ps.map((p, i) => req(`p${i}`, p.feet, addDays('2026-04-01', p.day), addDays('2026-04-01', p.day + p.len)));
+					const reqs = ps.map((p, i) =>
+						req(`p${i}`, p.feet, addDays('2026-04-01', p.day), addDays('2026-04-01', p.day + p.len))
+					);
 					const r = placePlantings(reqs, [...beds, { id: 'b3', lengthFt: 60 }], { minPieceFt });
 					const byKey = new Map<string, number[]>();
 					for (const p of r.placed) byKey.set(p.plantingKey, [...(byKey.get(p.plantingKey) ?? []), p.lengthFt]);
-					for (const pieces of byKey.values()) if (pieces.length > 1) for (const l of pieces) expect(l).toBeGreaterThanOrEqual(minPieceFt - 1e-9);
+					for (const pieces of byKey.values())
+						if (pieces.length > 1) for (const l of pieces) expect(l).toBeGreaterThanOrEqual(minPieceFt - 1e-9);
 				}
 			),
 			{ numRuns: 200 }
@@ -120,15 +149,27 @@ describe('placePlantings', () => {
 	});
 
 	it('rolls back pieces when even split there is not room, and says how much was free', () => {
-		const r = placePlantings([req('A', 150, '2026-05-01', '2026-06-30'), req('B', 120, '2026-05-02', '2026-06-30')], beds);
+		const r = placePlantings(
+			[req('A', 150, '2026-05-01', '2026-06-30'), req('B', 120, '2026-05-02', '2026-06-30')],
+			beds
+		);
 		expect(r.placed.filter((p) => p.plantingKey === 'B')).toEqual([]);
 		expect(r.unplaced).toEqual([{ plantingKey: 'B', reason: expect.stringMatching(/only 50 ft is free/) }]);
 		// the rolled-back pieces left room for a later 50 ft planting
 		const r2 = placePlantings(
-			[req('A', 150, '2026-05-01', '2026-06-30'), req('B', 120, '2026-05-02', '2026-06-30'), req('C', 50, '2026-05-03', '2026-06-30')],
+			[
+				req('A', 150, '2026-05-01', '2026-06-30'),
+				req('B', 120, '2026-05-02', '2026-06-30'),
+				req('C', 50, '2026-05-03', '2026-06-30')
+			],
 			beds
 		);
-		expect(r2.placed.find((p) => p.plantingKey === 'C')).toEqual({ plantingKey: 'C', bedId: 'b2', startFt: 50, lengthFt: 50 });
+		expect(r2.placed.find((p) => p.plantingKey === 'C')).toEqual({
+			plantingKey: 'C',
+			bedId: 'b2',
+			startFt: 50,
+			lengthFt: 50
+		});
 	});
 
 	it('rejects bad input', () => {
@@ -139,7 +180,14 @@ describe('placePlantings', () => {
 });
 
 describe('checkBedConflicts', () => {
-	const p = (key: string, bedId: string, startFt: number, lengthFt: number, fieldDate: string, lastHarvest: string): BedPlanting => ({
+	const p = (
+		key: string,
+		bedId: string,
+		startFt: number,
+		lengthFt: number,
+		fieldDate: string,
+		lastHarvest: string
+	): BedPlanting => ({
 		key,
 		bedId,
 		startFt,

@@ -28,7 +28,10 @@ describe('properties', () => {
 					method: fc.constantFrom('direct' as const, 'transplant' as const)
 				}),
 				fc.integer({ min: 10, max: 40 }),
-				fc.array(fc.oneof(fc.constant(0), fc.double({ min: 0.1, max: 500, noNaN: true })), { minLength: 1, maxLength: 25 }),
+				fc.array(fc.oneof(fc.constant(0), fc.double({ min: 0.1, max: 500, noNaN: true })), {
+					minLength: 1,
+					maxLength: 25
+				}),
 				fc.option(fc.integer({ min: 1, max: 4 }), { nil: undefined }),
 				fc.double({ min: 0, max: 0.5, noNaN: true }),
 				fc.constantFrom(1, 2.5, 5, 10),
@@ -44,7 +47,12 @@ describe('properties', () => {
 						options: { intervalWeeks, margin, bedFootIncrement }
 					});
 					expect(plan.shortfall).toEqual([]);
-					const supply = new Map(forecast(plan.successions.map((s) => ({ ...s, crop: 'x' })), []).map((r) => [r.week, r.supply]));
+					const supply = new Map(
+						forecast(
+							plan.successions.map((s) => ({ ...s, crop: 'x' })),
+							[]
+						).map((r) => [r.week, r.supply])
+					);
 					for (const t of targets) {
 						expect(supply.get(t.week) ?? 0).toBeGreaterThanOrEqual(t.quantity * (1 - 1e-9));
 					}
@@ -59,13 +67,24 @@ describe('properties', () => {
 			fc.property(fc.integer({ min: 30, max: 120 }), fc.integer({ min: 0, max: 90 }), (dtm, lateDays) => {
 				const v = variety({ daysToMaturity: dtm, harvestWindowDays: 14, yieldPerBedFoot: 1 });
 				const targets = Array.from({ length: 20 }, (_, i) => ({ week: addWeeks('2026-W15', i), quantity: 10 + i }));
-				const plan = planSuccessions({ variety: v, targets, farm: farm42, options: { earliestFieldDate: addDays('2026-02-01', lateDays) } });
+				const plan = planSuccessions({
+					variety: v,
+					targets,
+					farm: farm42,
+					options: { earliestFieldDate: addDays('2026-02-01', lateDays) }
+				});
 				const short = new Set(plan.shortfall.map((s) => s.week));
-				const supply = new Map(forecast(plan.successions.map((s) => ({ ...s, crop: 'x' })), []).map((r) => [r.week, r.supply]));
+				const supply = new Map(
+					forecast(
+						plan.successions.map((s) => ({ ...s, crop: 'x' })),
+						[]
+					).map((r) => [r.week, r.supply])
+				);
 				for (const t of targets) {
 					if (!short.has(t.week)) expect(supply.get(t.week) ?? 0).toBeGreaterThanOrEqual(t.quantity * (1 - 1e-9));
 				}
-				for (const s of plan.successions) expect(dayNum(s.fieldDate)).toBeGreaterThanOrEqual(dayNum(addDays('2026-02-01', lateDays)));
+				for (const s of plan.successions)
+					expect(dayNum(s.fieldDate)).toBeGreaterThanOrEqual(dayNum(addDays('2026-02-01', lateDays)));
 			}),
 			{ numRuns: 200 }
 		);
@@ -97,7 +116,12 @@ describe('properties', () => {
 						return { key: `fixed${i}`, bedId: bed.id, startFt: 0, lengthFt, ...toDates(p) };
 					});
 					const requests = reqs.map((p, i) => ({ key: `p${i}`, bedFeet: p.feet, family: p.family, ...toDates(p) }));
-					const r = placePlantings(requests, beds, { turnaroundDays, allowSplit, fixed, previousFamilyByBed: { b0: ['A'] } });
+					const r = placePlantings(requests, beds, {
+						turnaroundDays,
+						allowSplit,
+						fixed,
+						previousFamilyByBed: { b0: ['A'] }
+					});
 					// every planting is either wholly placed or listed unplaced, never both, never dropped
 					const placedFeet = new Map<string, number>();
 					for (const p of r.placed) placedFeet.set(p.plantingKey, (placedFeet.get(p.plantingKey) ?? 0) + p.lengthFt);
@@ -110,7 +134,14 @@ describe('properties', () => {
 					const placedAsPlantings: BedPlanting[] = r.placed.map((p, i) => {
 						const q = byKey.get(p.plantingKey);
 						if (!q) throw new Error(`placed an unknown planting ${p.plantingKey}`);
-						return { key: `${p.plantingKey}/${i}`, bedId: p.bedId, startFt: p.startFt, lengthFt: p.lengthFt, fieldDate: q.fieldDate, lastHarvest: q.lastHarvest };
+						return {
+							key: `${p.plantingKey}/${i}`,
+							bedId: p.bedId,
+							startFt: p.startFt,
+							lengthFt: p.lengthFt,
+							fieldDate: q.fieldDate,
+							lastHarvest: q.lastHarvest
+						};
 					});
 					const all = [...fixed, ...placedAsPlantings];
 					// brute-force pairwise check, independent of the engine's sweep
@@ -124,8 +155,10 @@ describe('properties', () => {
 							// fixed obstacles are given, not placed: they may overlap each other
 							if (a.bedId !== b.bedId || (a.key.startsWith('fixed') && b.key.startsWith('fixed'))) continue;
 							const timeOverlap =
-								dayNum(a.fieldDate) <= dayNum(b.lastHarvest) + turnaroundDays && dayNum(b.fieldDate) <= dayNum(a.lastHarvest) + turnaroundDays;
-							const feetOverlap = a.startFt < b.startFt + b.lengthFt - 1e-9 && b.startFt < a.startFt + a.lengthFt - 1e-9;
+								dayNum(a.fieldDate) <= dayNum(b.lastHarvest) + turnaroundDays &&
+								dayNum(b.fieldDate) <= dayNum(a.lastHarvest) + turnaroundDays;
+							const feetOverlap =
+								a.startFt < b.startFt + b.lengthFt - 1e-9 && b.startFt < a.startFt + a.lengthFt - 1e-9;
 							expect(timeOverlap && feetOverlap).toBe(false);
 						}
 					}

@@ -1,6 +1,15 @@
 // Next season's dates: the same ISO week and weekday a year on, week 53 landing in week 52.
 import { describe, expect, it } from 'vitest';
-import { compareChecks, frostHeatChecks, isoWeek, isoWeekday, nextYearDate, nextYearWeek, sameDayIn, shiftPlantingDates } from '../../../src/lib/planning';
+import {
+	compareChecks,
+	frostHeatChecks,
+	isoWeek,
+	isoWeekday,
+	nextYearDate,
+	nextYearWeek,
+	sameDayIn,
+	shiftPlantingDates
+} from '../../../src/lib/planning';
 
 describe('nextYearDate', () => {
 	// Source: ISO 8601, as listed in REFERENCES.md: 2026-12-28 = 2026-W53-1, 2027-01-03 = 2026-W53-7,
@@ -33,8 +42,19 @@ describe('nextYearDate', () => {
 describe('shiftPlantingDates', () => {
 	it('moves by the field date and keeps the distances', () => {
 		// Field 2026-12-21 (W52-1) → 2027-W52-1 = 2027-12-27: +371 days. Harvest 2027-01-18 + 371 = 2028-01-24.
-		const s = shiftPlantingDates({ traySowDate: '2026-11-23', fieldDate: '2026-12-21', firstHarvest: '2027-01-18', lastHarvest: '2027-01-31' });
-		expect(s).toEqual({ traySowDate: '2027-11-29', fieldDate: '2027-12-27', firstHarvest: '2028-01-24', lastHarvest: '2028-02-06', shiftDays: 371 });
+		const s = shiftPlantingDates({
+			traySowDate: '2026-11-23',
+			fieldDate: '2026-12-21',
+			firstHarvest: '2027-01-18',
+			lastHarvest: '2027-01-31'
+		});
+		expect(s).toEqual({
+			traySowDate: '2027-11-29',
+			fieldDate: '2027-12-27',
+			firstHarvest: '2028-01-24',
+			lastHarvest: '2028-02-06',
+			shiftDays: 371
+		});
 	});
 });
 

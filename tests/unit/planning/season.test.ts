@@ -2,7 +2,14 @@
 // comments, never by asking the engine; the varieties, targets and beds are INVENTED demo numbers,
 // chosen so the arithmetic stays round, not figures to plant by.
 import { describe, expect, it } from 'vitest';
-import { type Bed, type KeptPlanting, type SeasonPlanInput, type SeasonVariety, planSeason, seedNeed } from '../../../src/lib/planning/index';
+import {
+	type Bed,
+	type KeptPlanting,
+	type SeasonPlanInput,
+	type SeasonVariety,
+	planSeason,
+	seedNeed
+} from '../../../src/lib/planning/index';
 import { farm42 } from './fixtures';
 
 /**
@@ -50,7 +57,13 @@ const options = { margin: 0, bedFootIncrement: 5 };
 
 describe('planSeason', () => {
 	it('plans one direct-sown crop with a flat target over 4 weeks and lays it into 2 beds', () => {
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24, 25, 26, 27], 50), options });
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: weekly('crop', [24, 25, 26, 27], 50),
+			options
+		});
 		// 50 units a week ÷ (1 unit per bed-foot per 7-day week) = 50 ft per succession.
 		// Each holds its feet from field date to last harvest + 7 turnaround days (the engine default;
 		// common practice (no published source)): the first holds 19 Apr–21 Jun, the fourth starts
@@ -68,10 +81,21 @@ describe('planSeason', () => {
 			['2026-05-10', '2026-06-29', '2026-07-05']
 		]);
 		// Yield over the window: 50 ft × 1 = 50 per planting.
-		expect(plan.plantings.every((p) => p.expectedYield === 50 && p.cropId === 'crop' && p.varietyId === 'v' && p.bedId !== null)).toBe(true);
+		expect(
+			plan.plantings.every(
+				(p) => p.expectedYield === 50 && p.cropId === 'crop' && p.varietyId === 'v' && p.bedId !== null
+			)
+		).toBe(true);
 		// Seed for 50 ft: 50 × 12 in ÷ 6 in = 100 spots × 1 row × 1 seed ÷ 0.8 germination × 1.25 margin = 156.25 → 157 seeds,
 		// 157 ÷ 100 seeds a gram = 1.57 g (invented seed figures).
-		expect(plan.plantings[0].seed).toMatchObject({ spotsPerRow: 100, spots: 100, seeds: 157, grams: 1.57, cells: 0, trays: 0 });
+		expect(plan.plantings[0].seed).toMatchObject({
+			spotsPerRow: 100,
+			spots: 100,
+			seeds: 157,
+			grams: 1.57,
+			cells: 0,
+			trays: 0
+		});
 		expect(plan.plantings[0].traySowDate).toBeNull();
 		expect(plan.shortfall).toEqual([]);
 		expect(plan.warnings).toEqual([]);
@@ -81,9 +105,26 @@ describe('planSeason', () => {
 		// Kept: 30 ft of the crop harvesting 8–21 Jun (14 days, W24 and W25) at 2 units per foot
 		// (invented): 30 × 2 = 60 units spread flat over 14 days = 30 a week in W24 and in W25.
 		const kept: KeptPlanting[] = [
-			{ key: 'kept', cropId: 'crop', bedId: 'b1', startFt: 0, lengthFt: 30, fieldDate: '2026-04-10', firstHarvest: '2026-06-08', lastHarvest: '2026-06-21', yieldPerBedFoot: 2 }
+			{
+				key: 'kept',
+				cropId: 'crop',
+				bedId: 'b1',
+				startFt: 0,
+				lengthFt: 30,
+				fieldDate: '2026-04-10',
+				firstHarvest: '2026-06-08',
+				lastHarvest: '2026-06-21',
+				yieldPerBedFoot: 2
+			}
 		];
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24, 25, 26, 27], 50), kept, options });
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: weekly('crop', [24, 25, 26, 27], 50),
+			kept,
+			options
+		});
 		// Left to plan: W24 50 − 30 = 20, W25 20, W26 50, W27 50 → 20, 20, 50, 50 ft = 140 ft, not 4 × 50 = 200 ft.
 		expect(plan.plantings.map((p) => p.lengthFt)).toEqual([20, 20, 50, 50]);
 		expect(plan.plantings.reduce((sum, p) => sum + p.lengthFt, 0)).toBe(140);
@@ -104,11 +145,29 @@ describe('planSeason', () => {
 		// Garlic (another crop, so it supplies none of these targets) holds all of b1 from
 		// 20 Oct 2025 to 15 Jul 2026, plus 7 turnaround days: b1 is busy through 22 Jul.
 		const kept: KeptPlanting[] = [
-			{ key: 'garlic', cropId: 'garlic', family: 'Amaryllidaceae', bedId: 'b1', startFt: 0, lengthFt: 100, fieldDate: '2025-10-20', firstHarvest: '2026-07-01', lastHarvest: '2026-07-15', yieldPerBedFoot: 7 }
+			{
+				key: 'garlic',
+				cropId: 'garlic',
+				family: 'Amaryllidaceae',
+				bedId: 'b1',
+				startFt: 0,
+				lengthFt: 100,
+				fieldDate: '2025-10-20',
+				firstHarvest: '2026-07-01',
+				lastHarvest: '2026-07-15',
+				yieldPerBedFoot: 7
+			}
 		];
 		// W24 (first harvest 8 Jun, field 19 Apr) and W38: Mon 14 Sep = 8 Jun + 14 weeks; field date
 		// 14 Sep − 50 days = 26 Jul, after b1 is free; last harvest 14 Sep + 6 = 20 Sep.
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: [...weekly('crop', [24], 50), ...weekly('crop', [38], 50)], kept, options });
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: [...weekly('crop', [24], 50), ...weekly('crop', [38], 50)],
+			kept,
+			options
+		});
 		expect(plan.plantings.map((p) => [p.fieldDate, p.bedId, p.startFt, p.lengthFt])).toEqual([
 			['2026-04-19', 'b2', 0, 50],
 			// First fit goes by bed order: b1 is free again by 26 Jul, so it comes before b2.
@@ -120,13 +179,38 @@ describe('planSeason', () => {
 	it("places around another season's planting (an obstacle) without counting its harvest", () => {
 		// The same crop, but of another season: it holds b1 0–100 from 1 Apr to 14 Jun 2026
 		// (+ 7 turnaround days: busy through 21 Jun), and supplies nothing to this plan.
-		const obstacles = [{ key: 'planting#7', bedId: 'b1', startFt: 0, lengthFt: 100, fieldDate: '2026-04-01', lastHarvest: '2026-06-14', family: 'Apiaceae' }];
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 50), obstacles, options });
+		const obstacles = [
+			{
+				key: 'planting#7',
+				bedId: 'b1',
+				startFt: 0,
+				lengthFt: 100,
+				fieldDate: '2026-04-01',
+				lastHarvest: '2026-06-14',
+				family: 'Apiaceae'
+			}
+		];
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: weekly('crop', [24], 50),
+			obstacles,
+			options
+		});
 		// W24 is still planned in full: 50 ÷ 1 per foot = 50 ft, field date 19 Apr, in b2 since b1 is held.
-		expect(plan.plantings.map((p) => [p.key, p.fieldDate, p.bedId, p.startFt, p.lengthFt])).toEqual([['v@w1#1', '2026-04-19', 'b2', 0, 50]]);
+		expect(plan.plantings.map((p) => [p.key, p.fieldDate, p.bedId, p.startFt, p.lengthFt])).toEqual([
+			['v@w1#1', '2026-04-19', 'b2', 0, 50]
+		]);
 		expect(plan.shortfall).toEqual([]);
 		// Without the obstacle the same planting takes b1, the first bed.
-		const free = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 50), options });
+		const free = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: weekly('crop', [24], 50),
+			options
+		});
 		expect(free.plantings.map((p) => p.bedId)).toEqual(['b1']);
 	});
 
@@ -138,7 +222,12 @@ describe('planSeason', () => {
 			varieties,
 			beds: twoBeds,
 			targets: weekly('lettuce', [24, 25, 26, 27], 50),
-			varietyPlan: { lettuce: [{ varietyId: 'early', toWeek: 25 }, { varietyId: 'late', fromWeek: 26 }] },
+			varietyPlan: {
+				lettuce: [
+					{ varietyId: 'early', toWeek: 25 },
+					{ varietyId: 'late', fromWeek: 26 }
+				]
+			},
 			options
 		});
 		// early: W24, W25 at 50 ÷ 1 = 50 ft each; late: W26, W27 at 50 ÷ 2 = 25 ft each.
@@ -162,7 +251,12 @@ describe('planSeason', () => {
 			varieties,
 			beds: twoBeds,
 			targets: weekly('tomato', [24], 50),
-			varietyPlan: { tomato: [{ varietyId: 'red', fraction: 0.6 }, { varietyId: 'gold', fraction: 0.4 }] },
+			varietyPlan: {
+				tomato: [
+					{ varietyId: 'red', fraction: 0.6 },
+					{ varietyId: 'gold', fraction: 0.4 }
+				]
+			},
 			options
 		});
 		// 50 × 0.6 = 30 ft of red, 50 × 0.4 = 20 ft of gold, same dates. Red is laid first (plan
@@ -177,7 +271,9 @@ describe('planSeason', () => {
 		const targets = weekly('okra', [24, 25], 10);
 		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets, options });
 		expect(plan.plantings).toEqual([]);
-		expect(plan.warnings).toEqual([expect.objectContaining({ code: 'no_variety', cropId: 'okra', weeks: ['2026-W24', '2026-W25'] })]);
+		expect(plan.warnings).toEqual([
+			expect.objectContaining({ code: 'no_variety', cropId: 'okra', weeks: ['2026-W24', '2026-W25'] })
+		]);
 		expect(plan.shortfall).toEqual([
 			{ crop: 'okra', week: '2026-W24', quantity: 10 },
 			{ crop: 'okra', week: '2026-W25', quantity: 10 }
@@ -187,10 +283,23 @@ describe('planSeason', () => {
 	it('keeps an oversize planting with no bed, the reason, and a not_placed warning', () => {
 		// 250 a week ÷ 1 per foot = 250 ft against a single 100-ft bed: not whole, and split into
 		// pieces of at least 10 ft only 100 ft is free, so it stays unplaced (the 100 ft is given back).
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: [{ id: 'b1', lengthFt: 100 }], targets: weekly('crop', [24], 250), options });
-		const reason = 'No bed has 250 ft free from field date 2026-04-19 to 7 days after last harvest 2026-06-14, and split across beds only 100 ft is free in pieces of 10 ft or more.';
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: [{ id: 'b1', lengthFt: 100 }],
+			targets: weekly('crop', [24], 250),
+			options
+		});
+		const reason =
+			'No bed has 250 ft free from field date 2026-04-19 to 7 days after last harvest 2026-06-14, and split across beds only 100 ft is free in pieces of 10 ft or more.';
 		expect(plan.plantings).toHaveLength(1);
-		expect(plan.plantings[0]).toMatchObject({ key: 'v@w1#1', bedId: null, startFt: 0, lengthFt: 250, unplacedReason: reason });
+		expect(plan.plantings[0]).toMatchObject({
+			key: 'v@w1#1',
+			bedId: null,
+			startFt: 0,
+			lengthFt: 250,
+			unplacedReason: reason
+		});
 		// Seed is still sized for the whole 250 ft: 500 spots ÷ 0.8 × 1.25 = 781.25 → 782 seeds.
 		expect(plan.plantings[0].seed.seeds).toBe(782);
 		expect(plan.warnings).toContainEqual({ code: 'not_placed', key: 'v@w1#1', message: `Not placed: ${reason}` });
@@ -212,17 +321,36 @@ describe('planSeason', () => {
 		// And the same as seedNeed asked for each piece's own length.
 		for (const p of plan.plantings) {
 			expect(p.seed).toEqual(
-				seedNeed({ method: 'direct', bedFeet: p.lengthFt, rows: 1, inRowSpacingIn: 6, seedsPerSpot: 1, germinationRate: 0.8, seedsPerGram: 100, margin: 0.25 })
+				seedNeed({
+					method: 'direct',
+					bedFeet: p.lengthFt,
+					rows: 1,
+					inRowSpacingIn: 6,
+					seedsPerSpot: 1,
+					germinationRate: 0.8,
+					seedsPerGram: 100,
+					margin: 0.25
+				})
 			);
-			expect(p.warnings).toContainEqual({ code: 'split_across_beds', message: '100 ft split into 2 pieces: b1 60 ft, b2 40 ft.' });
+			expect(p.warnings).toContainEqual({
+				code: 'split_across_beds',
+				message: '100 ft split into 2 pieces: b1 60 ft, b2 40 ft.'
+			});
 		}
 	});
 });
 
 describe('planSeason never drops a target silently', () => {
-	it('puts the weeks of a share naming another crop\'s variety into shortfall', () => {
+	it("puts the weeks of a share naming another crop's variety into shortfall", () => {
 		const other = v({ id: 'beet-a', cropId: 'beet' });
-		const plan = planSeason({ farm: farm42, varieties: [v(), other], beds: twoBeds, targets: weekly('crop', [24], 20), varietyPlan: { crop: [{ varietyId: 'beet-a' }] }, options });
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v(), other],
+			beds: twoBeds,
+			targets: weekly('crop', [24], 20),
+			varietyPlan: { crop: [{ varietyId: 'beet-a' }] },
+			options
+		});
 		// The only share is invalid, so all 20 units of W24 are carried by no variety.
 		expect(plan.plantings).toEqual([]);
 		expect(plan.shortfall).toEqual([{ crop: 'crop', week: '2026-W24', quantity: 20 }]);
@@ -238,7 +366,12 @@ describe('planSeason never drops a target silently', () => {
 			beds: twoBeds,
 			targets: weekly('crop', [24, 25, 26], 20),
 			// a carries W24 whole; b carries 60 % of W26; nobody carries W25.
-			varietyPlan: { crop: [{ varietyId: 'a', toWeek: 24 }, { varietyId: 'b', fromWeek: 26, fraction: 0.6 }] },
+			varietyPlan: {
+				crop: [
+					{ varietyId: 'a', toWeek: 24 },
+					{ varietyId: 'b', fromWeek: 26, fraction: 0.6 }
+				]
+			},
 			options
 		});
 		// Left unplanned: W25 all 20 units; W26 20 × (1 − 0.6) = 8 units.
@@ -261,7 +394,12 @@ describe('planSeason never drops a target silently', () => {
 			varieties: [v({ id: 'a' })],
 			beds: twoBeds,
 			targets: weekly('crop', [24], 40),
-			varietyPlan: { crop: [{ varietyId: 'a', fraction: 0.5 }, { varietyId: 'a', fraction: 0.5 }] },
+			varietyPlan: {
+				crop: [
+					{ varietyId: 'a', fraction: 0.5 },
+					{ varietyId: 'a', fraction: 0.5 }
+				]
+			},
 			options
 		});
 		// 40 × 0.5 = 20 units each: two plantings of 20 ft, 40 ft in all, nothing short.
@@ -271,8 +409,27 @@ describe('planSeason never drops a target silently', () => {
 	});
 
 	it("keeps placement's notes about kept plantings", () => {
-		const kept: KeptPlanting = { key: 'old', cropId: 'other', bedId: 'nope', startFt: 0, lengthFt: 10, fieldDate: '2026-04-01', firstHarvest: '2026-05-01', lastHarvest: '2026-05-10', yieldPerBedFoot: 1 };
-		const plan = planSeason({ farm: farm42, varieties: [v()], beds: twoBeds, targets: weekly('crop', [24], 10), kept: [kept], options });
-		expect(plan.warnings).toEqual(expect.arrayContaining([expect.objectContaining({ code: 'unknown_bed', key: 'old' })]));
+		const kept: KeptPlanting = {
+			key: 'old',
+			cropId: 'other',
+			bedId: 'nope',
+			startFt: 0,
+			lengthFt: 10,
+			fieldDate: '2026-04-01',
+			firstHarvest: '2026-05-01',
+			lastHarvest: '2026-05-10',
+			yieldPerBedFoot: 1
+		};
+		const plan = planSeason({
+			farm: farm42,
+			varieties: [v()],
+			beds: twoBeds,
+			targets: weekly('crop', [24], 10),
+			kept: [kept],
+			options
+		});
+		expect(plan.warnings).toEqual(
+			expect.arrayContaining([expect.objectContaining({ code: 'unknown_bed', key: 'old' })])
+		);
 	});
 });

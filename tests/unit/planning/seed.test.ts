@@ -27,7 +27,15 @@ describe('seed need: worked examples', () => {
 		// common practice (no published source): 60–70 % germination counts as good for carrots → 65 %
 		// Source: University of Illinois Extension vegetable guide: carrot 18,000–25,000 seeds/oz → low end 18,000
 		const r = seedNeed(
-			direct({ bedFeet: 100, rows: 4, inRowSpacingIn: 1, seedsPerSpot: 2, germinationRate: 0.65, margin: 0.1, seedsPerGram: seedsPerOzToPerGram(18_000) })
+			direct({
+				bedFeet: 100,
+				rows: 4,
+				inRowSpacingIn: 1,
+				seedsPerSpot: 2,
+				germinationRate: 0.65,
+				margin: 0.1,
+				seedsPerGram: seedsPerOzToPerGram(18_000)
+			})
 		);
 		// spots per row = 100 ft × 12 in ÷ 1 in = 1,200; × 4 rows = 4,800
 		expect(r.spotsPerRow).toBe(1200);
@@ -45,7 +53,17 @@ describe('seed need: worked examples', () => {
 		// common practice (no published source): radish and beet in spots of three seeds every two inches
 		// Source: University of Illinois Extension vegetable guide: beet 1,500–2,200 seeds/oz → 1,500
 		const r = seedNeed(
-			direct({ bedFeet: 50, rows: 3, inRowSpacingIn: 2, seedsPerSpot: 3, germinationRate: 0.8, margin: 0.1, seedsPerGram: seedsPerOzToPerGram(1500), seedsPerPacket: 1000, seedPriceCentsPerGram: 12 })
+			direct({
+				bedFeet: 50,
+				rows: 3,
+				inRowSpacingIn: 2,
+				seedsPerSpot: 3,
+				germinationRate: 0.8,
+				margin: 0.1,
+				seedsPerGram: seedsPerOzToPerGram(1500),
+				seedsPerPacket: 1000,
+				seedPriceCentsPerGram: 12
+			})
 		);
 		// spots per row = 50 × 12 ÷ 2 = 300; × 3 rows = 900
 		expect(r.spots).toBe(900);
@@ -121,7 +139,8 @@ describe('seed need: worked examples', () => {
 	it('needs 7/6 as much seed at 60 % germination as at 70 %', () => {
 		// common practice (no published source): 60–70 % germination counts as good for carrots and parsnips
 		// common practice (no published source): parsnips two seeds every two inches
-		const at = (g: number): number => seedNeed(direct({ bedFeet: 300, inRowSpacingIn: 2, seedsPerSpot: 2, germinationRate: g })).seeds;
+		const at = (g: number): number =>
+			seedNeed(direct({ bedFeet: 300, inRowSpacingIn: 2, seedsPerSpot: 2, germinationRate: g })).seeds;
 		// 1,800 spots × 2 = 3,600 seeds; ÷ 0.7 = 5,142.9 → 5,143; ÷ 0.6 = 6,000
 		expect(at(0.7)).toBe(5143);
 		expect(at(0.6)).toBe(6000);
@@ -167,8 +186,17 @@ interface HandbookCase {
 
 function engineOzBand(c: HandbookCase): [number, number] {
 	const oz = (germinationRate: number, margin: number, perOz: number): number =>
-		seedNeed(direct({ bedFeet: 100, rows: 1, inRowSpacingIn: c.spacingIn, seedsPerSpot: c.seedsPerSpot, germinationRate, margin, seedsPerGram: perOz / G_PER_OZ }))
-			.grams / G_PER_OZ;
+		seedNeed(
+			direct({
+				bedFeet: 100,
+				rows: 1,
+				inRowSpacingIn: c.spacingIn,
+				seedsPerSpot: c.seedsPerSpot,
+				germinationRate,
+				margin,
+				seedsPerGram: perOz / G_PER_OZ
+			})
+		).grams / G_PER_OZ;
 	return [oz(1, 0, c.seedsPerOz[1]), oz(c.minGermination, 0.1, c.seedsPerOz[0])];
 }
 
@@ -176,13 +204,34 @@ describe('seed per 100 ft of row against the handbook', () => {
 	// Source: University of Illinois Extension vegetable guide; Kansas State MF-315; Oregon State Extension (Harrington)
 	const agree: HandbookCase[] = [
 		// common practice (no published source): carrots two seeds an inch, thinned to one
-		{ crop: 'carrot', spacingIn: 1, seedsPerSpot: 2, minGermination: 0.55, seedsPerOz: [18_000, 25_000], ozPer100ft: [0.25, 0.5] },
+		{
+			crop: 'carrot',
+			spacingIn: 1,
+			seedsPerSpot: 2,
+			minGermination: 0.55,
+			seedsPerOz: [18_000, 25_000],
+			ozPer100ft: [0.25, 0.5]
+		},
 		// common practice (no published source): beet in spots of three seeds every two inches
 		{ crop: 'beet', spacingIn: 2, seedsPerSpot: 3, minGermination: 0.65, seedsPerOz: [1500, 2200], ozPer100ft: [1, 1] },
 		// common practice (no published source): radish in spots of three seeds every two inches
-		{ crop: 'radish', spacingIn: 2, seedsPerSpot: 3, minGermination: 0.75, seedsPerOz: [2500, 2500], ozPer100ft: [1, 1] },
+		{
+			crop: 'radish',
+			spacingIn: 2,
+			seedsPerSpot: 3,
+			minGermination: 0.75,
+			seedsPerOz: [2500, 2500],
+			ozPer100ft: [1, 1]
+		},
 		// common practice (no published source): leafy greens a seed every half inch
-		{ crop: 'spinach', spacingIn: 0.5, seedsPerSpot: 1, minGermination: 0.6, seedsPerOz: [2800, 2800], ozPer100ft: [1, 1] }
+		{
+			crop: 'spinach',
+			spacingIn: 0.5,
+			seedsPerSpot: 1,
+			minGermination: 0.6,
+			seedsPerOz: [2800, 2800],
+			ozPer100ft: [1, 1]
+		}
 	];
 
 	it.each(agree)('$crop: the handbook allowance falls inside the engine band', (c) => {
@@ -198,11 +247,35 @@ describe('seed per 100 ft of row against the handbook', () => {
 	// (grams for ounces is ×28, inches for feet ×12).
 	const disagree: (HandbookCase & { handbookHigher: boolean })[] = [
 		// common practice (no published source): parsnips two seeds every two inches; handbook ½ oz (Source: as carrot; seed-supplier tables)
-		{ crop: 'parsnip', spacingIn: 2, seedsPerSpot: 2, minGermination: 0.6, seedsPerOz: [7200, 12_000], ozPer100ft: [0.5, 0.5], handbookHigher: true },
+		{
+			crop: 'parsnip',
+			spacingIn: 2,
+			seedsPerSpot: 2,
+			minGermination: 0.6,
+			seedsPerOz: [7200, 12_000],
+			ozPer100ft: [0.5, 0.5],
+			handbookHigher: true
+		},
 		// common practice (no published source): leafy greens a seed every half inch; handbook lettuce ¼ oz — thinned to a wider stand
-		{ crop: 'leaf lettuce', spacingIn: 0.5, seedsPerSpot: 1, minGermination: 0.8, seedsPerOz: [25_000, 25_000], ozPer100ft: [0.25, 0.25], handbookHigher: true },
+		{
+			crop: 'leaf lettuce',
+			spacingIn: 0.5,
+			seedsPerSpot: 1,
+			minGermination: 0.8,
+			seedsPerOz: [25_000, 25_000],
+			ozPer100ft: [0.25, 0.25],
+			handbookHigher: true
+		},
 		// Source: seed-supplier growing tables: arugula 13,000–15,400 seeds/oz, ≈ 3 g per 100 ft; half-inch salad spacing is denser
-		{ crop: 'arugula', spacingIn: 0.5, seedsPerSpot: 1, minGermination: 0.8, seedsPerOz: [13_000, 15_400], ozPer100ft: [3 / G_PER_OZ, 3 / G_PER_OZ], handbookHigher: false }
+		{
+			crop: 'arugula',
+			spacingIn: 0.5,
+			seedsPerSpot: 1,
+			minGermination: 0.8,
+			seedsPerOz: [13_000, 15_400],
+			ozPer100ft: [3 / G_PER_OZ, 3 / G_PER_OZ],
+			handbookHigher: false
+		}
 	];
 
 	it.each(disagree)('$crop: engine and handbook differ in the stated direction, within a factor of 3', (c) => {

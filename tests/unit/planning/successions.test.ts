@@ -85,13 +85,17 @@ describe('planSuccessions: carrots, 40 lb a week for 6 weeks', () => {
 		// spots = 60 ft × 12 in ÷ 1 in = 720 per row × 4 rows = 2,880
 		// seeds = ceil(2,880 × 2 ÷ 0.65 × 1.1) = ceil(9,747.69) = 9,748
 		// grams = 9,748 ÷ (22,000 ÷ 28.349523125 = 776.0271 per g) = 12.5614 → 12.57 g
-		for (const s of plan.successions) expect(s.seed).toMatchObject({ spots: 2880, seeds: 9748, grams: 12.57, cells: 0, trays: 0 });
+		for (const s of plan.successions)
+			expect(s.seed).toMatchObject({ spots: 2880, seeds: 9748, grams: 12.57, cells: 0, trays: 0 });
 	});
 
 	it('forecasts 45 lb each week against the 40 lb target', () => {
 		// 60 ft × 1.5 lb ÷ 14 days × 7 days = 45 lb in every week of every window; 45 − 40 = 5 lb surplus
 		const targets = targetsFor(weeksBetween('2026-W27', '2026-W32'), 40).map((t) => ({ ...t, crop: 'carrot' }));
-		const rows = forecast(plan.successions.map((s) => ({ ...s, crop: 'carrot' })), targets);
+		const rows = forecast(
+			plan.successions.map((s) => ({ ...s, crop: 'carrot' })),
+			targets
+		);
 		expect(rows.map((r) => r.week)).toEqual(weeksBetween('2026-W27', '2026-W32'));
 		for (const r of rows) {
 			expect(r.supply).toBeCloseTo(45, 9);
@@ -107,7 +111,10 @@ describe('planSuccessions: carrots, 40 lb a week for 6 weeks', () => {
 		expect(feet.find((x) => x.label === 'bed-feet before rounding')?.value).toBe(58.667);
 		const dates = explainDates(s);
 		expect(dates[0]).toMatchObject({ label: 'first harvest', value: 'W27 · Mon 29 Jun' });
-		expect(dates.find((x) => x.label === 'sowing date')).toMatchObject({ value: 'W17 · Mon 20 Apr', formula: 'first harvest − 70 days' });
+		expect(dates.find((x) => x.label === 'sowing date')).toMatchObject({
+			value: 'W17 · Mon 20 Apr',
+			formula: 'first harvest − 70 days'
+		});
 		const all = explainPlanting(s, carrot);
 		expect(all.find((x) => x.label === 'seeds')?.value).toBe(9748);
 	});
@@ -136,7 +143,12 @@ describe('planSuccessions: transplants', () => {
 		expect(plan.successions).toHaveLength(3);
 		const s = plan.successions[0];
 		// W20 = Mon 11 May 2026; transplant = 11 May − 45 d = 27 Mar; tray = 27 Mar − 28 d = 27 Feb (Feb 2026 has 28 days)
-		expect(s).toMatchObject({ firstHarvest: '2026-05-11', fieldDate: '2026-03-27', traySowDate: '2026-02-27', lastHarvest: '2026-05-17' });
+		expect(s).toMatchObject({
+			firstHarvest: '2026-05-11',
+			fieldDate: '2026-03-27',
+			traySowDate: '2026-02-27',
+			lastHarvest: '2026-05-17'
+		});
 		// weekly yield per ft = 2 ÷ (7 ÷ 7) = 2; bed-feet = 100 ÷ 2 × 1.1 = 55 (exactly, despite 55.000000000000007 in floating point)
 		expect(s.bedFeet).toBe(55);
 		// plants = 55 × 3 = 165; cells = ceil(165 ÷ 0.9 × 1.1) = ceil(201.67) = 202; trays = ceil(202 ÷ 128) = 2
@@ -180,7 +192,11 @@ describe('planSuccessions: short days', () => {
 	it.each([42, 45])('adds 14 days to a crop maturing in mid-November at %i° N', (latitude) => {
 		// Source: Forsythe et al. (1995) CBM model — day length on 16 Nov is under 10 h at 42–45° N
 		expect(dayLengthHours(latitude, '2026-11-16')).toBeLessThan(10);
-		const plan = planSuccessions({ variety: spinach, targets: targetsFor(['2026-W47'], 10), farm: { ...farm42, latitude } });
+		const plan = planSuccessions({
+			variety: spinach,
+			targets: targetsFor(['2026-W47'], 10),
+			farm: { ...farm42, latitude }
+		});
 		const s = plan.successions[0];
 		// W47 = Mon 16 Nov; 45 + 14 = 59 days back: 31 to 16 Oct, 28 more → 18 Sep
 		expect(s.firstHarvest).toBe('2026-11-16');
@@ -194,8 +210,12 @@ describe('planSuccessions: short days', () => {
 		expect(summer.successions[0].basis.dtm).toMatchObject({ source: 'variety', days: 45 });
 		// 26 Oct at 42° N: about 10.66 h — over 10 h, under 11 h
 		const oct = (shortDayThresholdHours?: number) =>
-			planSuccessions({ variety: spinach, targets: targetsFor(['2026-W44'], 10), farm: farm42, options: { shortDayThresholdHours, shortDayAllowanceDays: 10 } })
-				.successions[0].basis.dtm.days;
+			planSuccessions({
+				variety: spinach,
+				targets: targetsFor(['2026-W44'], 10),
+				farm: farm42,
+				options: { shortDayThresholdHours, shortDayAllowanceDays: 10 }
+			}).successions[0].basis.dtm.days;
 		expect(oct()).toBe(45);
 		expect(oct(11)).toBe(55);
 	});
@@ -207,7 +227,11 @@ describe('planSuccessions: degree days', () => {
 
 	it('walks back at a constant temperature: 400 GDD at 20 a day is 20 days', () => {
 		const v = variety({ baseTempF: 40, gddToMaturity: 400, daysToMaturity: 60 });
-		const plan = planSuccessions({ variety: v, targets: targetsFor(['2026-W30'], 10), farm: { ...farm42, weeklyMeanTempF: constant(60) } });
+		const plan = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W30'], 10),
+			farm: { ...farm42, weeklyMeanTempF: constant(60) }
+		});
 		// mean 60 °F − base 40 °F = 20 GDD a day; 400 ÷ 20 = 20 days; W30 = Mon 20 Jul → 30 Jun
 		expect(plan.successions[0].basis.dtm).toMatchObject({ source: 'gdd', days: 20 });
 		expect(plan.successions[0].fieldDate).toBe('2026-06-30');
@@ -216,7 +240,11 @@ describe('planSuccessions: degree days', () => {
 	it('walks back through weeks of different means', () => {
 		const temps = { ...constant(50), '2026-W29': 55 };
 		const v = variety({ baseTempF: 40, gddToMaturity: 400, daysToMaturity: 60 });
-		const plan = planSuccessions({ variety: v, targets: targetsFor(['2026-W30'], 10), farm: { ...farm42, weeklyMeanTempF: temps } });
+		const plan = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W30'], 10),
+			farm: { ...farm42, weeklyMeanTempF: temps }
+		});
 		// 13–19 Jul (W29): 7 days × (55 − 40) = 105; need 295 more at (50 − 40) = 10 a day:
 		// 29 days give 290 < 295, the 30th reaches 300 → 7 + 30 = 37 days; 20 Jul − 37 d = 13 Jun
 		expect(plan.successions[0].basis.dtm.days).toBe(37);
@@ -229,18 +257,32 @@ describe('planSuccessions: degree days', () => {
 		// Source: Oklahoma State University GDD calculator notes (base 40 °F for cool-season crops such as peas)
 		// 65 − 40 = 25 a day; 1,250 ÷ 25 = 50 days
 		const peas = variety({ crop: 'pea', baseTempF: 40, gddToMaturity: 1250, daysToMaturity: 60 });
-		const plan = planSuccessions({ variety: peas, targets: targetsFor(['2026-W26'], 10), farm: { ...farm42, weeklyMeanTempF: { W01: 0, ...Object.fromEntries(weeks.map((w) => [w.slice(5), 65])) } } });
+		const plan = planSuccessions({
+			variety: peas,
+			targets: targetsFor(['2026-W26'], 10),
+			farm: { ...farm42, weeklyMeanTempF: { W01: 0, ...Object.fromEntries(weeks.map((w) => [w.slice(5), 65])) } }
+		});
 		expect(plan.successions[0].basis.dtm).toMatchObject({ source: 'gdd', days: 50 });
 	});
 
 	it('warns and falls back to calendar days when the requirement is never met or data is missing', () => {
 		const v = variety({ baseTempF: 40, gddToMaturity: 400, daysToMaturity: 60 });
 		// every week of every year at the base temperature (undated "Www" keys): 0 GDD a day for the whole 365-day walk
-		const everyYear40 = Object.fromEntries(Array.from({ length: 53 }, (_, i) => [`W${String(i + 1).padStart(2, '0')}`, 40]));
-		const cold = planSuccessions({ variety: v, targets: targetsFor(['2026-W30'], 10), farm: { ...farm42, weeklyMeanTempF: everyYear40 } });
+		const everyYear40 = Object.fromEntries(
+			Array.from({ length: 53 }, (_, i) => [`W${String(i + 1).padStart(2, '0')}`, 40])
+		);
+		const cold = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W30'], 10),
+			farm: { ...farm42, weeklyMeanTempF: everyYear40 }
+		});
 		expect(cold.successions[0].basis.dtm).toMatchObject({ source: 'variety', days: 60 });
 		expect(cold.successions[0].warnings.map((w) => w.code)).toEqual(['gdd_not_met']);
-		const gap = planSuccessions({ variety: v, targets: targetsFor(['2026-W30'], 10), farm: { ...farm42, weeklyMeanTempF: { '2026-W29': 60 } } });
+		const gap = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W30'], 10),
+			farm: { ...farm42, weeklyMeanTempF: { '2026-W29': 60 } }
+		});
 		expect(gap.successions[0].warnings.map((w) => w.code)).toEqual(['gdd_data_missing']);
 	});
 });
@@ -251,7 +293,11 @@ describe('planSuccessions: heat', () => {
 
 	it.each(['spinach', 'radish'])('warns when %s harvests in a week whose mean is above its 70 °F limit', (crop) => {
 		const v = variety({ crop, heatLimitF: 70, harvestWindowDays: 14 });
-		const plan = planSuccessions({ variety: v, targets: targetsFor(['2026-W24', '2026-W25'], 10), farm: { ...farm42, weeklyMeanTempF: temps } });
+		const plan = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W24', '2026-W25'], 10),
+			farm: { ...farm42, weeklyMeanTempF: temps }
+		});
 		const heat = plan.successions[0].warnings.filter((w) => w.code === 'heat_in_harvest');
 		expect(heat).toHaveLength(1);
 		expect(heat[0].weeks).toEqual(['2026-W25']);
@@ -261,7 +307,11 @@ describe('planSuccessions: heat', () => {
 		// Source: Texas A&M AgriLife, Cilantro in the Garden (bolts above 85 °F) — higher than the common-practice 65–70 °F: sources disagree
 		const v = variety({ crop: 'cilantro', heatLimitF: 85, harvestWindowDays: 7 });
 		const run = (t: Record<string, number>) =>
-			planSuccessions({ variety: v, targets: targetsFor(['2026-W25'], 5), farm: { ...farm42, weeklyMeanTempF: t } }).successions[0].warnings.map((w) => w.code);
+			planSuccessions({
+				variety: v,
+				targets: targetsFor(['2026-W25'], 5),
+				farm: { ...farm42, weeklyMeanTempF: t }
+			}).successions[0].warnings.map((w) => w.code);
 		expect(run(temps)).toEqual([]);
 		expect(run({ '2026-W25': 86 })).toEqual(['heat_in_harvest']);
 	});
@@ -283,16 +333,32 @@ describe('planSuccessions: reach, gaps and intervals', () => {
 	});
 
 	it('counts tray days against "today" for transplants', () => {
-		const v = variety({ method: 'transplant', daysToMaturity: 40, daysInTray: 30, cellsPerTray: 72, harvestWindowDays: 7 });
+		const v = variety({
+			method: 'transplant',
+			daysToMaturity: 40,
+			daysInTray: 30,
+			cellsPerTray: 72,
+			harvestWindowDays: 7
+		});
 		// W24 = 8 Jun: transplant 29 Apr, tray 30 Mar — before today (1 Apr). W25: tray 6 Apr.
-		const plan = planSuccessions({ variety: v, targets: targetsFor(['2026-W24', '2026-W25'], 10), farm: farm42, options: { today: '2026-04-01' } });
+		const plan = planSuccessions({
+			variety: v,
+			targets: targetsFor(['2026-W24', '2026-W25'], 10),
+			farm: farm42,
+			options: { today: '2026-04-01' }
+		});
 		expect(plan.shortfall.map((s) => s.week)).toEqual(['2026-W24']);
 		expect(plan.successions[0].traySowDate).toBe('2026-04-06');
 	});
 
 	it('splits rather than leave weeks bare when the interval is longer than the window', () => {
 		const v = variety({ harvestWindowDays: 7, yieldPerBedFoot: 1 });
-		const plan = planSuccessions({ variety: v, targets: targetsFor(weeksBetween('2026-W20', '2026-W25'), 10), farm: farm42, options: { intervalWeeks: 3 } });
+		const plan = planSuccessions({
+			variety: v,
+			targets: targetsFor(weeksBetween('2026-W20', '2026-W25'), 10),
+			farm: farm42,
+			options: { intervalWeeks: 3 }
+		});
 		expect(plan.intervalWeeks).toBe(1);
 		expect(plan.warnings.map((w) => w.code)).toEqual(['interval_shortened']);
 		expect(plan.successions).toHaveLength(6);
@@ -305,9 +371,14 @@ describe('planSuccessions: reach, gaps and intervals', () => {
 		const v = variety({ harvestWindowDays: 5, yieldPerBedFoot: 1 });
 		const plan = planSuccessions({ variety: v, targets: targetsFor(['2026-W20', '2026-W21'], 20), farm: farm42 });
 		expect(plan.successions.map((s) => s.bedFeet)).toEqual([22, 22]);
-		const rows = forecast(plan.successions.map((s) => ({ ...s, crop: 'radish' })), []);
+		const rows = forecast(
+			plan.successions.map((s) => ({ ...s, crop: 'radish' })),
+			[]
+		);
 		expect(rows.map((r) => r.supply)).toEqual([22, 22]);
-		expect(explainBedFeet(plan.successions[0]).some((x) => x.formula === 'window covers only 5 days of the week')).toBe(true);
+		expect(explainBedFeet(plan.successions[0]).some((x) => x.formula === 'window covers only 5 days of the week')).toBe(
+			true
+		);
 	});
 
 	it('sums duplicate weeks and sizes each succession on what its weeks still lack', () => {
@@ -333,7 +404,14 @@ describe('planSuccessions: reach, gaps and intervals', () => {
 
 	it('parsnips: a long season from a summer sowing', () => {
 		// common practice (no published source): parsnips take 110–140 days to mature
-		const parsnip = variety({ crop: 'parsnip', daysToMaturity: 120, harvestWindowDays: 28, germinationRate: 0.65, inRowSpacingIn: 2, seedsPerSpot: 2 });
+		const parsnip = variety({
+			crop: 'parsnip',
+			daysToMaturity: 120,
+			harvestWindowDays: 28,
+			germinationRate: 0.65,
+			inRowSpacingIn: 2,
+			seedsPerSpot: 2
+		});
 		const plan = planSuccessions({ variety: parsnip, targets: targetsFor(['2026-W44'], 50), farm: farm42 });
 		const s = plan.successions[0];
 		// W44 = Mon 26 Oct (10.66 h of day at 42° N: no short-day allowance); 26 Oct − 120 d = 28 Jun

@@ -63,15 +63,19 @@ const key = (crop: string, week: string): string => `${crop}\u0000${week}`;
 export function buildSeries(rows: ForecastApiRow[], crops: ChartCrop[], weeks: string[], mode: ChartMode): Series {
 	const byKey = new Map(rows.map((r) => [key(r.crop, r.week), r]));
 	// Family by family, so each family's colour sits together in the stack.
-	const ordered = [...crops].sort((a, b) => (a.family === b.family ? a.name.localeCompare(b.name) : a.family.localeCompare(b.family)));
+	const ordered = [...crops].sort((a, b) =>
+		a.family === b.family ? a.name.localeCompare(b.name) : a.family.localeCompare(b.family)
+	);
 	const withDemand = weeks.map((w) => ordered.filter((c) => (byKey.get(key(c.id, w))?.demand ?? 0) > 0).length);
 	const value = (c: ChartCrop, w: string, i: number): number => {
 		const r = byKey.get(key(c.id, w));
 		if (!r) return 0;
 		if (mode === 'quantity') return r.supply;
-		return r.demand > 0 ? (r.supply / r.demand) * 100 / withDemand[i] : 0;
+		return r.demand > 0 ? ((r.supply / r.demand) * 100) / withDemand[i] : 0;
 	};
-	const table = weeks.map((w, i) => Object.fromEntries(ordered.map((c) => [c.id, value(c, w, i)])) as Record<string, number>);
+	const table = weeks.map(
+		(w, i) => Object.fromEntries(ordered.map((c) => [c.id, value(c, w, i)])) as Record<string, number>
+	);
 	const stacked = stack<Record<string, number>>().keys(ordered.map((c) => c.id))(table);
 	const shades = new Map<string, number>();
 	const layers: Layer[] = ordered.map((crop, j) => {
@@ -99,8 +103,8 @@ export function buildSeries(rows: ForecastApiRow[], crops: ChartCrop[], weeks: s
 				surplus += r.surplus;
 				shortfall += r.shortfall;
 			} else if (r.demand > 0) {
-				surplus += (r.surplus / r.demand) * 100 / withDemand[i];
-				shortfall += (r.shortfall / r.demand) * 100 / withDemand[i];
+				surplus += ((r.surplus / r.demand) * 100) / withDemand[i];
+				shortfall += ((r.shortfall / r.demand) * 100) / withDemand[i];
 			}
 		}
 		return { week, surplus, shortfall };
@@ -109,7 +113,14 @@ export function buildSeries(rows: ForecastApiRow[], crops: ChartCrop[], weeks: s
 	const max = Math.max(1, ...tops, ...demand.map((d) => d.value ?? 0));
 	const units = [...new Set(ordered.map((c) => c.unit))].sort();
 	const mixedUnits = mode === 'quantity' && units.length > 1;
-	const unitLabel = mode === 'percent' ? '% of demand' : units.length === 1 ? units[0] : units.length ? `mixed units (${units.join(', ')})` : 'units';
+	const unitLabel =
+		mode === 'percent'
+			? '% of demand'
+			: units.length === 1
+				? units[0]
+				: units.length
+					? `mixed units (${units.join(', ')})`
+					: 'units';
 	return { mode, weeks, layers, demand, balance, max, unitLabel, mixedUnits };
 }
 

@@ -54,7 +54,11 @@ function unitOf(row: GridRow, l: Lookups): string {
 const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
 	varietyId: [
 		{
-			id: 'crop', label: 'Crop', field: 'varietyId', kind: 'select', width: 120,
+			id: 'crop',
+			label: 'Crop',
+			field: 'varietyId',
+			kind: 'select',
+			width: 120,
 			show: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '?',
 			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
 			text: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
@@ -66,7 +70,11 @@ const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
 			}
 		},
 		{
-			id: 'variety', label: 'Variety', field: 'varietyId', kind: 'select', width: 140,
+			id: 'variety',
+			label: 'Variety',
+			field: 'varietyId',
+			kind: 'select',
+			width: 140,
 			show: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '?',
 			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
 			text: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
@@ -78,31 +86,66 @@ const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
 	],
 	bedId: [
 		{
-			id: 'bed', label: 'Bed', field: 'bedId', kind: 'select', width: 130,
-			show: (r, l) => (r.values.bedId === null ? 'not placed' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '?'),
-			sortValue: (r, l) => (r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
-			text: (r, l) => (r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : ''),
-			options: (_r, l) => [{ label: 'not placed', value: '' }, ...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))]
+			id: 'bed',
+			label: 'Bed',
+			field: 'bedId',
+			kind: 'select',
+			width: 130,
+			show: (r, l) =>
+				r.values.bedId === null
+					? 'not placed'
+					: l.bedById.get(r.values.bedId)
+						? bedLabel(l.bedById.get(r.values.bedId)!)
+						: '?',
+			sortValue: (r, l) =>
+				r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '',
+			text: (r, l) =>
+				r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '',
+			options: (_r, l) => [
+				{ label: 'not placed', value: '' },
+				...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))
+			]
 		}
 	],
 	method: [
 		{
-			id: 'method', label: 'Method', field: 'method', kind: 'select', width: 96,
-			show: (r) => r.values.method, sortValue: (r) => r.values.method, text: (r) => r.values.method,
-			options: () => [{ label: 'direct', value: 'direct' }, { label: 'transplant', value: 'transplant' }]
+			id: 'method',
+			label: 'Method',
+			field: 'method',
+			kind: 'select',
+			width: 96,
+			show: (r) => r.values.method,
+			sortValue: (r) => r.values.method,
+			text: (r) => r.values.method,
+			options: () => [
+				{ label: 'direct', value: 'direct' },
+				{ label: 'transplant', value: 'transplant' }
+			]
 		}
 	],
 	fieldDate: [
 		{
-			id: 'fieldDate', label: 'Field date', field: 'fieldDate', kind: 'date', width: 140,
-			show: (r) => wd(r.values.fieldDate), sortValue: (r) => r.values.fieldDate, text: (r) => r.values.fieldDate
+			id: 'fieldDate',
+			label: 'Field date',
+			field: 'fieldDate',
+			kind: 'date',
+			width: 140,
+			show: (r) => wd(r.values.fieldDate),
+			sortValue: (r) => r.values.fieldDate,
+			text: (r) => r.values.fieldDate
 		}
 	]
 };
 
 const statusColumn: GridColumn = {
-	id: 'status', label: 'Status', field: 'status', kind: 'select', width: 104,
-	show: (r) => r.values.status, sortValue: (r) => plantingStatuses.indexOf(r.values.status), text: (r) => r.values.status,
+	id: 'status',
+	label: 'Status',
+	field: 'status',
+	kind: 'select',
+	width: 104,
+	show: (r) => r.values.status,
+	sortValue: (r) => plantingStatuses.indexOf(r.values.status),
+	text: (r) => r.values.status,
 	options: () => plantingStatuses.map((s) => ({ label: s, value: s }))
 };
 
@@ -118,7 +161,9 @@ function plainColumn(f: PlantingField): GridColumn[] {
 }
 
 const fieldColumns = (edit: 'plan' | 'record'): GridColumn[] =>
-	plantingFieldNames.filter((f) => f !== 'status' && fieldSpec(f).edit === edit).flatMap((f) => ownColumns[f] ?? plainColumn(f));
+	plantingFieldNames
+		.filter((f) => f !== 'status' && fieldSpec(f).edit === edit)
+		.flatMap((f) => ownColumns[f] ?? plainColumn(f));
 
 // The plan's fields, the status, the engine's figures, then the record of what happened.
 export const columns: GridColumn[] = [
@@ -129,13 +174,42 @@ export const columns: GridColumn[] = [
 	derivedDate('lastHarvest', 'Last harvest', (r) => r.derived?.lastHarvest ?? null),
 	derivedNum('weeklyYield', 'Weekly yield', (r) => r.derived?.weeklyYield, unitOf, 96),
 	derivedNum('totalYield', 'Total yield', (r) => r.derived?.expectedYield, unitOf, 96),
-	derivedNum('seeds', 'Seeds', (r) => r.derived?.seed.seeds, () => 'seeds', 96),
-	derivedNum('grams', 'Seed', (r) => r.derived?.seed.grams, () => 'g', 80),
-	derivedNum('cells', 'Cells', (r) => (r.values.method === 'transplant' ? r.derived?.seed.cells : undefined), () => 'cells', 84),
-	derivedNum('trays', 'Trays', (r) => (r.values.method === 'transplant' ? r.derived?.seed.trays : undefined), () => 'trays', 72),
+	derivedNum(
+		'seeds',
+		'Seeds',
+		(r) => r.derived?.seed.seeds,
+		() => 'seeds',
+		96
+	),
+	derivedNum(
+		'grams',
+		'Seed',
+		(r) => r.derived?.seed.grams,
+		() => 'g',
+		80
+	),
+	derivedNum(
+		'cells',
+		'Cells',
+		(r) => (r.values.method === 'transplant' ? r.derived?.seed.cells : undefined),
+		() => 'cells',
+		84
+	),
+	derivedNum(
+		'trays',
+		'Trays',
+		(r) => (r.values.method === 'transplant' ? r.derived?.seed.trays : undefined),
+		() => 'trays',
+		72
+	),
 	{
-		id: 'warnings', label: 'Warnings', kind: 'text', width: 160,
-		show: (r) => warningLabels(r).join(', '), sortValue: (r) => warningLabels(r).length, text: (r) => warningLabels(r).join(', ')
+		id: 'warnings',
+		label: 'Warnings',
+		kind: 'text',
+		width: 160,
+		show: (r) => warningLabels(r).join(', '),
+		sortValue: (r) => warningLabels(r).length,
+		text: (r) => warningLabels(r).join(', ')
 	},
 	...fieldColumns('record')
 ];
@@ -162,16 +236,44 @@ export function warningLabels(r: GridRow): string[] {
 
 function num(id: string, label: string, unit: string, width: number, field: PlantingField): GridColumn {
 	const get = (r: GridRow): number => r.values[field] as number;
-	return { id, label, field, kind: 'number', width, numeric: true, show: (r) => counted(get(r), unit), sortValue: get, text: (r) => String(get(r)) };
+	return {
+		id,
+		label,
+		field,
+		kind: 'number',
+		width,
+		numeric: true,
+		show: (r) => counted(get(r), unit),
+		sortValue: get,
+		text: (r) => String(get(r))
+	};
 }
 
 function derivedDate(id: string, label: string, get: (r: GridRow) => string | null): GridColumn {
-	return { id, label, kind: 'date', width: 140, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
+	return {
+		id,
+		label,
+		kind: 'date',
+		width: 140,
+		show: (r) => wd(get(r)),
+		sortValue: (r) => get(r) ?? '',
+		text: (r) => get(r) ?? ''
+	};
 }
 
-function derivedNum(id: string, label: string, get: (r: GridRow) => number | undefined, unit: (r: GridRow, l: Lookups) => string, width: number): GridColumn {
+function derivedNum(
+	id: string,
+	label: string,
+	get: (r: GridRow) => number | undefined,
+	unit: (r: GridRow, l: Lookups) => string,
+	width: number
+): GridColumn {
 	return {
-		id, label, kind: 'number', width, numeric: true,
+		id,
+		label,
+		kind: 'number',
+		width,
+		numeric: true,
 		show: (r, l) => (get(r) === undefined ? '' : counted(get(r)!, unit(r, l))),
 		sortValue: (r) => get(r) ?? -1,
 		text: (r) => (get(r) === undefined ? '' : String(get(r)))
@@ -180,7 +282,16 @@ function derivedNum(id: string, label: string, get: (r: GridRow) => number | und
 
 function dateCol(id: string, label: string, field: PlantingField, width: number): GridColumn {
 	const get = (r: GridRow): string | null => r.values[field] as string | null;
-	return { id, label, field, kind: 'date', width, show: (r) => wd(get(r)), sortValue: (r) => get(r) ?? '', text: (r) => get(r) ?? '' };
+	return {
+		id,
+		label,
+		field,
+		kind: 'date',
+		width,
+		show: (r) => wd(get(r)),
+		sortValue: (r) => get(r) ?? '',
+		text: (r) => get(r) ?? ''
+	};
 }
 
 export const columnById = new Map(columns.map((c) => [c.id, c]));
@@ -201,7 +312,9 @@ export function readCell(col: GridColumn, text: string, row: GridRow, l: Lookups
 	}
 	if (col.id === 'variety') {
 		const crop = l.varietyById.get(row.values.varietyId)?.crop;
-		const v = l.varieties.find((x) => x.name.toLowerCase() === low && x.crop === crop) ?? l.varieties.find((x) => x.name.toLowerCase() === low);
+		const v =
+			l.varieties.find((x) => x.name.toLowerCase() === low && x.crop === crop) ??
+			l.varieties.find((x) => x.name.toLowerCase() === low);
 		return v ? { ok: true, value: v.id } : { ok: false, message: `No variety named "${t}" in the crop library.` };
 	}
 	if (col.id === 'bed') {

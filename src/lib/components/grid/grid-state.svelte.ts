@@ -41,7 +41,8 @@ export interface Change {
 	before: unknown;
 	after: unknown;
 }
-type UndoEntry = { kind: 'cells'; changes: Change[] } | { kind: 'add'; rows: GridRow[] } | { kind: 'remove'; rows: GridRow[] };
+type UndoEntry =
+	{ kind: 'cells'; changes: Change[] } | { kind: 'add'; rows: GridRow[] } | { kind: 'remove'; rows: GridRow[] };
 
 export interface BadCell {
 	/** 1-based row number as the user sees it, and the column's label. */
@@ -80,7 +81,15 @@ class RowBox {
 
 export class GridState {
 	rows = $state.raw<GridRow[]>([]);
-	filters = $state<Filters>({ crop: '', bedId: '', block: '', status: '', fromWeek: '', toWeek: '', warningsOnly: false });
+	filters = $state<Filters>({
+		crop: '',
+		bedId: '',
+		block: '',
+		status: '',
+		fromWeek: '',
+		toWeek: '',
+		warningsOnly: false
+	});
 	sort = $state<{ col: string; desc: boolean } | null>(null);
 	groupBy = $state<GroupBy>('none');
 	hidden = $state<string[]>([]);
@@ -174,7 +183,16 @@ export class GridState {
 	/** Conflicts recalculated for the given beds only (all beds when null): an edit touches one or two. */
 	private withConflicts(rows: GridRow[], beds: Set<number | null> | null): GridRow[] {
 		const affected = beds === null ? rows : rows.filter((r) => beds.has(r.values.bedId));
-		const input = affected.filter((r) => r.derived).map((r) => ({ id: r.key, bedId: r.values.bedId, startFt: r.values.startFt, lengthFt: r.values.lengthFt, fieldDate: r.values.fieldDate, lastHarvest: r.derived!.lastHarvest }));
+		const input = affected
+			.filter((r) => r.derived)
+			.map((r) => ({
+				id: r.key,
+				bedId: r.values.bedId,
+				startFt: r.values.startFt,
+				lengthFt: r.values.lengthFt,
+				fieldDate: r.values.fieldDate,
+				lastHarvest: r.derived!.lastHarvest
+			}));
 		const found = plantingConflicts(input, this.lookups.beds, this.farm.turnaroundDays);
 		return rows.map((r) => {
 			if (beds !== null && !beds.has(r.values.bedId)) return r;
@@ -209,24 +227,34 @@ export class GridState {
 		const to = f.toWeek ? safeWeekStart(f.toWeek) : null;
 		const toEnd = to ? addDays(to, 6) : null;
 		const filtered = !!(f.crop || f.bedId || f.block || f.status || f.warningsOnly || from || toEnd);
-		let rows = !filtered ? this.rows : this.rows.filter((r) => {
-			const v = l.varietyById.get(r.values.varietyId);
-			if (f.crop && v?.crop !== f.crop) return false;
-			if (f.bedId && String(r.values.bedId ?? '') !== f.bedId) return false;
-			if (f.block && (r.values.bedId === null || l.bedById.get(r.values.bedId)?.blockName !== f.block)) return false;
-			if (f.status && r.values.status !== f.status) return false;
-			if (f.warningsOnly && warningLabels(r).length === 0) return false;
-			// In the ground during the weeks: field date up to last harvest overlaps the range.
-			const end = r.derived?.lastHarvest ?? r.values.fieldDate;
-			if (from && end < from) return false;
-			if (toEnd && r.values.fieldDate > toEnd) return false;
-			return true;
-		});
+		let rows = !filtered
+			? this.rows
+			: this.rows.filter((r) => {
+					const v = l.varietyById.get(r.values.varietyId);
+					if (f.crop && v?.crop !== f.crop) return false;
+					if (f.bedId && String(r.values.bedId ?? '') !== f.bedId) return false;
+					if (f.block && (r.values.bedId === null || l.bedById.get(r.values.bedId)?.blockName !== f.block))
+						return false;
+					if (f.status && r.values.status !== f.status) return false;
+					if (f.warningsOnly && warningLabels(r).length === 0) return false;
+					// In the ground during the weeks: field date up to last harvest overlaps the range.
+					const end = r.derived?.lastHarvest ?? r.values.fieldDate;
+					if (from && end < from) return false;
+					if (toEnd && r.values.fieldDate > toEnd) return false;
+					return true;
+				});
 		const s = this.sort;
 		const col = s ? allColumns.find((c) => c.id === s.col) : undefined;
 		const group = this.groupBy;
 		const groupKey = (r: GridRow): string =>
-			group === 'bed' ? (r.values.bedId === null ? '~not placed' : (() => { const b = l.bedById.get(r.values.bedId!); return b ? bedLabel(b) : '?'; })()) : (l.varietyById.get(r.values.varietyId)?.crop ?? '?');
+			group === 'bed'
+				? r.values.bedId === null
+					? '~not placed'
+					: (() => {
+							const b = l.bedById.get(r.values.bedId!);
+							return b ? bedLabel(b) : '?';
+						})()
+				: (l.varietyById.get(r.values.varietyId)?.crop ?? '?');
 		if (col || group !== 'none') {
 			const keyed = rows.map((r) => ({ r, g: group === 'none' ? '' : groupKey(r), v: col ? col.sortValue(r, l) : 0 }));
 			keyed.sort((a, b) => (a.g < b.g ? -1 : a.g > b.g ? 1 : 0) || (col ? cmp(a.v, b.v) * (s!.desc ? -1 : 1) : 0));
@@ -351,11 +379,18 @@ export class GridState {
 		const col = this.focusColumn();
 		if (!row || !col) return false;
 		if (!this.canEdit(row, col)) {
-			this.message = col.field ? `${col.label} is read-only for your role.` : `${col.label} is worked out from the other columns.`;
+			this.message = col.field
+				? `${col.label} is read-only for your role.`
+				: `${col.label} is worked out from the other columns.`;
 			return false;
 		}
 		const err = col.field ? row.errors[col.field] : undefined;
-		this.editing = { key: row.key, col: col.id, text: initial ?? err?.text ?? col.text?.(row, this.lookups) ?? '', typed: initial !== undefined };
+		this.editing = {
+			key: row.key,
+			col: col.id,
+			text: initial ?? err?.text ?? col.text?.(row, this.lookups) ?? '',
+			typed: initial !== undefined
+		};
 		return true;
 	}
 
@@ -369,7 +404,7 @@ export class GridState {
 		if (!e) return true;
 		const row = this.row(e.key);
 		const col = allColumns.find((c) => c.id === e.col);
-		if (!row || !col?.field) return (this.editing = null), true;
+		if (!row || !col?.field) return ((this.editing = null), true);
 		const check = readCell(col, e.text, row, this.lookups);
 		if (!check.ok) {
 			this.replaceRows([{ ...row, errors: { ...row.errors, [col.field]: { text: e.text, message: check.message } } }]);
@@ -401,7 +436,8 @@ export class GridState {
 			if (c.field === 'bedId') oldBeds.push(cur.values.bedId);
 			byRow.set(c.key, { ...cur, values, errors });
 			if (before !== c.value) changes.push({ key: c.key, field: c.field, before, after: c.value });
-			if (c.field === 'varietyId' && values.method !== cur.values.method) changes.push({ key: c.key, field: 'method', before: cur.values.method, after: values.method });
+			if (c.field === 'varietyId' && values.method !== cur.values.method)
+				changes.push({ key: c.key, field: 'method', before: cur.values.method, after: values.method });
 		}
 		if (byRow.size === 0) return [];
 		this.replaceRows([...byRow.values()], oldBeds);
@@ -436,7 +472,11 @@ export class GridState {
 
 	private replay(e: UndoEntry, backwards: boolean): void {
 		if (e.kind === 'cells') {
-			const list = (backwards ? [...e.changes].reverse() : e.changes).map((c) => ({ key: c.key, field: c.field, value: backwards ? c.before : c.after }));
+			const list = (backwards ? [...e.changes].reverse() : e.changes).map((c) => ({
+				key: c.key,
+				field: c.field,
+				value: backwards ? c.before : c.after
+			}));
 			this.applyChanges(list, false);
 		} else if ((e.kind === 'add') === backwards) this.dropRows(e.rows.map((r) => r.key));
 		else this.insertRows(e.rows.map((r) => ({ ...r, id: null, version: 0 })));
@@ -456,16 +496,29 @@ export class GridState {
 
 	private dropRows(keys: string[]): void {
 		const gone = keys.map((k) => this.row(k)).filter((r): r is GridRow => !!r);
-		this.setRows(this.withConflicts(this.rows.filter((r) => !keys.includes(r.key)), new Set(gone.map((r) => r.values.bedId))));
+		this.setRows(
+			this.withConflicts(
+				this.rows.filter((r) => !keys.includes(r.key)),
+				new Set(gone.map((r) => r.values.bedId))
+			)
+		);
 		for (const r of gone) this.save.markRemoved(r);
 	}
 
 	/** Ctrl+Enter: a new row like the focused one (the next succession is usually the same crop). */
 	addRow(): boolean {
-		if (!can(this.role, 'plan.edit')) return (this.message = 'Only the owner adds plantings.'), false;
+		if (!can(this.role, 'plan.edit')) return ((this.message = 'Only the owner adds plantings.'), false);
 		const base = this.focusRow();
 		const values: RowValues = base
-			? { ...base.values, status: 'planned', actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null, notes: null }
+			? {
+					...base.values,
+					status: 'planned',
+					actualTraySowDate: null,
+					actualFieldDate: null,
+					actualFirstHarvest: null,
+					actualLastHarvest: null,
+					notes: null
+				}
 			: defaultValues(this.lookups.varieties[0]);
 		const row = this.newRow(values);
 		this.insertRows([row], base?.key);
@@ -476,12 +529,22 @@ export class GridState {
 	}
 
 	newRow(values: RowValues): GridRow {
-		return { key: `n${++newKey}`, id: null, version: 0, values, derived: null, deriveError: null, conflicts: [], errors: {}, updatedBy: null };
+		return {
+			key: `n${++newKey}`,
+			id: null,
+			version: 0,
+			values,
+			derived: null,
+			deriveError: null,
+			conflicts: [],
+			errors: {},
+			updatedBy: null
+		};
 	}
 
 	/** Removes the selected rows (owner); undo puts them back as new rows. */
 	removeSelected(): boolean {
-		if (!can(this.role, 'plan.edit')) return (this.message = 'Only the owner removes plantings.'), false;
+		if (!can(this.role, 'plan.edit')) return ((this.message = 'Only the owner removes plantings.'), false);
 		const { r0, r1 } = this.range;
 		const rows = this.view.rows.slice(r0, r1 + 1);
 		if (!rows.length) return false;
@@ -497,11 +560,12 @@ export class GridState {
 	private selectedCells(): { row: GridRow; col: GridColumn; r: number; c: number }[] {
 		const { r0, r1, c0, c1 } = this.range;
 		const out = [];
-		for (let r = r0; r <= r1; r++) for (let c = c0; c <= c1; c++) {
-			const row = this.view.rows[r];
-			const col = this.columns[c];
-			if (row && col) out.push({ row, col, r, c });
-		}
+		for (let r = r0; r <= r1; r++)
+			for (let c = c0; c <= c1; c++) {
+				const row = this.view.rows[r];
+				const col = this.columns[c];
+				if (row && col) out.push({ row, col, r, c });
+			}
 		return out;
 	}
 
@@ -514,14 +578,22 @@ export class GridState {
 		for (let c = c0; c <= c1; c++) {
 			const col = this.columns[c];
 			if (!col || !this.canEdit(top, col)) continue;
-			for (let r = r0 + 1; r <= r1; r++) list.push({ key: this.view.rows[r].key, field: col.field!, value: top.values[col.field!] });
+			for (let r = r0 + 1; r <= r1; r++)
+				list.push({ key: this.view.rows[r].key, field: col.field!, value: top.values[col.field!] });
 		}
 		this.applyChanges(list);
 	}
 
 	/** Delete: clears the cells that may be empty (bed, notes, actual dates). */
 	clearSelected(): void {
-		const nullable: PlantingField[] = ['bedId', 'notes', 'actualTraySowDate', 'actualFieldDate', 'actualFirstHarvest', 'actualLastHarvest'];
+		const nullable: PlantingField[] = [
+			'bedId',
+			'notes',
+			'actualTraySowDate',
+			'actualFieldDate',
+			'actualFirstHarvest',
+			'actualLastHarvest'
+		];
 		const list = this.selectedCells()
 			.filter(({ row, col }) => this.canEdit(row, col) && nullable.includes(col.field!))
 			.map(({ row, col }) => ({ key: row.key, field: col.field!, value: null }));
@@ -537,7 +609,8 @@ export class GridState {
 			const row = this.view.rows[r];
 			if (!row) continue;
 			const cells: string[] = [];
-			for (let c = c0; c <= c1; c++) cells.push((this.columns[c]?.text?.(row, this.lookups) ?? '').replace(/[\t\n\r]+/g, ' '));
+			for (let c = c0; c <= c1; c++)
+				cells.push((this.columns[c]?.text?.(row, this.lookups) ?? '').replace(/[\t\n\r]+/g, ' '));
 			lines.push(cells.join('\t'));
 		}
 		return lines.join('\n');
@@ -549,7 +622,11 @@ export class GridState {
 	 * saved until the user confirms saving the good ones (`confirmPaste`).
 	 */
 	paste(text: string): PendingPaste {
-		const lines = text.replace(/\r\n?/g, '\n').replace(/\n$/, '').split('\n').map((l) => l.split('\t'));
+		const lines = text
+			.replace(/\r\n?/g, '\n')
+			.replace(/\n$/, '')
+			.split('\n')
+			.map((l) => l.split('\t'));
 		const { r: r0, c: c0 } = this.focus;
 		const out: PendingPaste = { changes: [], newRows: [], bad: [], notes: [] };
 		const template = this.view.rows[this.view.rows.length - 1]?.values ?? defaultValues(this.lookups.varieties[0]);
@@ -562,7 +639,15 @@ export class GridState {
 					out.bad.push({ row: r + 1, column: '—', text: cells.join(' '), message: 'Only the owner adds plantings.' });
 					return;
 				}
-				row = this.newRow({ ...template, status: 'planned', notes: null, actualTraySowDate: null, actualFieldDate: null, actualFirstHarvest: null, actualLastHarvest: null });
+				row = this.newRow({
+					...template,
+					status: 'planned',
+					notes: null,
+					actualTraySowDate: null,
+					actualFieldDate: null,
+					actualFirstHarvest: null,
+					actualLastHarvest: null
+				});
 			}
 			let values = { ...row.values };
 			const failed: PlantingField[] = [];
@@ -571,7 +656,13 @@ export class GridState {
 				if (!col) return;
 				if (!this.canEdit(row, col)) {
 					// Pasting the same text back over a read-only cell is harmless (a copied block round-trips).
-					if ((col.text?.(row, this.lookups) ?? '') !== text.trim()) out.bad.push({ row: r + 1, column: col.label, text, message: col.field ? 'read-only for your role' : 'worked out, not typed' });
+					if ((col.text?.(row, this.lookups) ?? '') !== text.trim())
+						out.bad.push({
+							row: r + 1,
+							column: col.label,
+							text,
+							message: col.field ? 'read-only for your role' : 'worked out, not typed'
+						});
 					return;
 				}
 				const check = readCell(col, text, { ...row, values }, this.lookups);
@@ -581,15 +672,29 @@ export class GridState {
 				}
 				if (check.note) out.notes.push({ row: r + 1, column: col.label, text, message: check.note });
 				values = { ...values, [col.field!]: check.value };
-				if (col.field === 'varietyId') values.method = this.lookups.varietyById.get(check.value as number)?.method ?? values.method;
+				if (col.field === 'varietyId')
+					values.method = this.lookups.varietyById.get(check.value as number)?.method ?? values.method;
 				if (!isNew) out.changes.push({ key: row.key, field: col.field!, value: check.value });
 			});
 			if (isNew) {
 				// A cell that failed its check stays empty: never the previous row's bed or date. A new
 				// row cannot be without a variety, a length or a field date, so it is left out, and said.
-				const required = failed.filter((f) => f === 'varietyId' || f === 'lengthFt' || f === 'fieldDate' || f === 'rows' || f === 'inRowSpacingIn' || f === 'method');
+				const required = failed.filter(
+					(f) =>
+						f === 'varietyId' ||
+						f === 'lengthFt' ||
+						f === 'fieldDate' ||
+						f === 'rows' ||
+						f === 'inRowSpacingIn' ||
+						f === 'method'
+				);
 				if (required.length) {
-					out.bad.push({ row: r + 1, column: '—', text: cells.join(' '), message: 'This new row is left out: a cell it cannot do without was not valid.' });
+					out.bad.push({
+						row: r + 1,
+						column: '—',
+						text: cells.join(' '),
+						message: 'This new row is left out: a cell it cannot do without was not valid.'
+					});
 					return;
 				}
 				const blank: Partial<Record<PlantingField, unknown>> = { startFt: 0, seedsPerSpot: 1, status: 'planned' };
@@ -626,7 +731,10 @@ export class GridState {
 		const cur = this.row(key);
 		if (!cur) return;
 		const values = keepValues ? cur.values : rowFromView(p, this.lookups.varietyById, this.farm).values;
-		this.replaceRows([{ ...cur, id: p.id, version: p.version, values, updatedBy: p.updatedBy ?? null }], [cur.values.bedId]);
+		this.replaceRows(
+			[{ ...cur, id: p.id, version: p.version, values, updatedBy: p.updatedBy ?? null }],
+			[cur.values.bedId]
+		);
 	}
 }
 

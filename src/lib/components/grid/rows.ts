@@ -37,7 +37,17 @@ export function withDerived(row: GridRow, varieties: Map<number, GridVariety>, f
 
 export function rowFromView(p: PlantingView, varieties: Map<number, GridVariety>, farm: GridFarm): GridRow {
 	return withDerived(
-		{ key: `p${p.id}`, id: p.id, version: p.version, values: valuesOf(p), derived: null, deriveError: null, conflicts: [], errors: {}, updatedBy: p.updatedBy ?? null },
+		{
+			key: `p${p.id}`,
+			id: p.id,
+			version: p.version,
+			values: valuesOf(p),
+			derived: null,
+			deriveError: null,
+			conflicts: [],
+			errors: {},
+			updatedBy: p.updatedBy ?? null
+		},
 		varieties,
 		farm
 	);

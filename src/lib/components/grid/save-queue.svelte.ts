@@ -41,7 +41,11 @@ export type SaveStatus = 'idle' | 'pending' | 'saving' | 'saved' | 'failed';
 
 export function fetchApi(fetcher: typeof fetch = fetch): GridApi {
 	const call = async (url: string, method: string, body?: unknown): Promise<ApiAnswer> => {
-		const res = await fetcher(url, { method, headers: { 'content-type': 'application/json', accept: 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+		const res = await fetcher(url, {
+			method,
+			headers: { 'content-type': 'application/json', accept: 'application/json' },
+			body: body === undefined ? undefined : JSON.stringify(body)
+		});
 		const text = await res.text();
 		let parsed: unknown;
 		try {
@@ -180,24 +184,29 @@ export class SaveQueue {
 		const tasks: Promise<void>[] = [];
 		if (freshRows.length) {
 			tasks.push(
-				this.api.create(this.seasonId, freshRows.map((r) => createBody(r.values))).then(
-					(a) => {
-						if (a.status === 201) {
-							wrote++;
-							(a.body.plantings as PlantingView[]).forEach((p, i) => {
-								const key = freshRows[i].key;
-								const later = this.touched.get(key);
-								this.grid.acceptServer(key, p, !!later?.size);
-								// Fields edited while the POST was in flight are sent next round as a PATCH.
-								if (later?.size) this.dirty.set(key, new Set(later));
-							});
-						} else {
-							for (const r of freshRows) this.fresh.add(r.key);
-							requeue(() => this.setErrors(freshRows, a), messageOf(a));
-						}
-					},
-					(e) => requeue(() => freshRows.forEach((r) => this.fresh.add(r.key)), String(e))
-				)
+				this.api
+					.create(
+						this.seasonId,
+						freshRows.map((r) => createBody(r.values))
+					)
+					.then(
+						(a) => {
+							if (a.status === 201) {
+								wrote++;
+								(a.body.plantings as PlantingView[]).forEach((p, i) => {
+									const key = freshRows[i].key;
+									const later = this.touched.get(key);
+									this.grid.acceptServer(key, p, !!later?.size);
+									// Fields edited while the POST was in flight are sent next round as a PATCH.
+									if (later?.size) this.dirty.set(key, new Set(later));
+								});
+							} else {
+								for (const r of freshRows) this.fresh.add(r.key);
+								requeue(() => this.setErrors(freshRows, a), messageOf(a));
+							}
+						},
+						(e) => requeue(() => freshRows.forEach((r) => this.fresh.add(r.key)), String(e))
+					)
 			);
 		}
 		for (const [key, fields] of dirty) {
@@ -239,7 +248,13 @@ export class SaveQueue {
 		}
 	}
 
-	private patched(key: string, fields: Set<PlantingField>, body: Record<string, unknown>, a: ApiAnswer, failures: string[]): void {
+	private patched(
+		key: string,
+		fields: Set<PlantingField>,
+		body: Record<string, unknown>,
+		a: ApiAnswer,
+		failures: string[]
+	): void {
 		const later = this.touched.get(key);
 		if (a.status === 200) {
 			this.grid.acceptServer(key, a.body.planting, !!later?.size);
@@ -249,7 +264,10 @@ export class SaveQueue {
 		if (a.status === 409) {
 			const mine: Partial<Record<PlantingField, unknown>> = {};
 			for (const f of fields) mine[f] = body[f];
-			this.conflicts = [...this.conflicts.filter((c) => c.key !== key), { key, changedBy: a.body.changedBy ?? null, current: a.body.current, mine }];
+			this.conflicts = [
+				...this.conflicts.filter((c) => c.key !== key),
+				{ key, changedBy: a.body.changedBy ?? null, current: a.body.current, mine }
+			];
 			// The server's row wins on screen; the user's values wait in the conflict to re-apply.
 			this.grid.acceptServer(key, a.body.current, false);
 			failures.push(a.body.message ?? 'Someone else saved this planting first.');
@@ -278,7 +296,8 @@ export class SaveQueue {
 			const e = { ...row.errors };
 			for (const [path, message] of Object.entries(errors)) {
 				const parts = path.split('.');
-				const field = (parts[0] === 'plantings' ? (Number(parts[1]) === i ? parts[2] : undefined) : parts[0]) as PlantingField | undefined;
+				const field = (parts[0] === 'plantings' ? (Number(parts[1]) === i ? parts[2] : undefined) : parts[0]) as
+					PlantingField | undefined;
 				if (field && field in row.values) e[field] = { text: String(row.values[field] ?? ''), message };
 			}
 			return { ...row, errors: e };
@@ -291,7 +310,9 @@ export class SaveQueue {
 		const c = this.conflicts.find((x) => x.key === key);
 		if (!c) return;
 		this.conflicts = this.conflicts.filter((x) => x.key !== key);
-		this.grid.applyChanges(Object.entries(c.mine).map(([field, value]) => ({ key, field: field as PlantingField, value })));
+		this.grid.applyChanges(
+			Object.entries(c.mine).map(([field, value]) => ({ key, field: field as PlantingField, value }))
+		);
 	}
 
 	dismiss(key: string): void {

@@ -126,7 +126,8 @@ export function layoutTimeline(input: LayoutInput): TimelineLayout {
 	const axisStart = weekStart(isoWeek(input.from));
 	const axisEnd = addDays(weekStart(isoWeek(input.to)), 6);
 	const days = daysBetween(axisStart, axisEnd) + 1;
-	const xOf = (date: string): number => g.labelW + Math.min(days, Math.max(0, daysBetween(axisStart, date))) * g.pxPerDay;
+	const xOf = (date: string): number =>
+		g.labelW + Math.min(days, Math.max(0, daysBetween(axisStart, date))) * g.pxPerDay;
 
 	const weeks: AxisWeek[] = weeksBetween(axisStart, axisEnd).map((week, i) => ({
 		x: g.labelW + i * 7 * g.pxPerDay,
@@ -156,7 +157,13 @@ export function layoutTimeline(input: LayoutInput): TimelineLayout {
 			y += g.blockH;
 			lastBlock = bed.blockId;
 		}
-		const lane: Lane = { bedId: bed.id, name: bed.name, lengthFt: bed.lengthFt, y, h: Math.max(g.minLaneH, Math.round(bed.lengthFt * g.pxPerFt)) };
+		const lane: Lane = {
+			bedId: bed.id,
+			name: bed.name,
+			lengthFt: bed.lengthFt,
+			y,
+			h: Math.max(g.minLaneH, Math.round(bed.lengthFt * g.pxPerFt))
+		};
 		lanes.push(lane);
 		laneByBed.set(bed.id, lane);
 		y += lane.h + g.laneGap;

@@ -19,7 +19,13 @@ export interface SheetSpec {
 	columns: readonly ColumnSpec[];
 }
 
-const col = (key: string, header: string, width: number, kind: CellKind, derived = false): ColumnSpec => ({ key, header, width, kind, derived });
+const col = (key: string, header: string, width: number, kind: CellKind, derived = false): ColumnSpec => ({
+	key,
+	header,
+	width,
+	kind,
+	derived
+});
 
 /** Excel number formats per kind. Dates are real dates with an ISO-like display. */
 export const numberFormats: Record<CellKind, string | undefined> = {
@@ -37,7 +43,14 @@ export const seasonSheet: SheetSpec = {
 };
 
 /** Rows of the Season sheet, by their label in the Field column. */
-export const seasonFields = { name: 'Season name', year: 'Year', startsOn: 'Starts on', endsOn: 'Ends on', farm: 'Farm', exportedOn: 'Exported on' } as const;
+export const seasonFields = {
+	name: 'Season name',
+	year: 'Year',
+	startsOn: 'Starts on',
+	endsOn: 'Ends on',
+	farm: 'Farm',
+	exportedOn: 'Exported on'
+} as const;
 
 export const plantingsSheet: SheetSpec = {
 	name: 'Plantings',
@@ -165,7 +178,15 @@ export const bedsSheet: SheetSpec = {
 };
 
 /** Sheets in the order the workbook holds them. */
-export const workbookSheets: readonly SheetSpec[] = [seasonSheet, plantingsSheet, seedOrderSheet, tasksSheet, forecastSheet, cropsSheet, bedsSheet];
+export const workbookSheets: readonly SheetSpec[] = [
+	seasonSheet,
+	plantingsSheet,
+	seedOrderSheet,
+	tasksSheet,
+	forecastSheet,
+	cropsSheet,
+	bedsSheet
+];
 
 /** The sheets an import reads (the rest are reports, recomputed from the plan). */
 export const importSheets: readonly SheetSpec[] = [seasonSheet, cropsSheet, bedsSheet, plantingsSheet];

@@ -23,7 +23,6 @@ export interface SheetRows {
 	beds: Row[];
 }
 
-
 /** A calendar date as a Date at UTC midnight: exceljs turns it into a whole Excel day number. */
 export function excelDate(iso: string): Date {
 	return new Date(Date.UTC(Number(iso.slice(0, 4)), Number(iso.slice(5, 7)) - 1, Number(iso.slice(8, 10))));
@@ -33,9 +32,31 @@ const round2 = (n: number): number => Math.round(n * 100) / 100;
 
 function plantingRows(d: SeasonData): Row[] {
 	return d.plantings.map((p) => [
-		p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, p.rows, p.inRowSpacingIn, p.seedsPerSpot, p.method,
-		p.traySowDate, p.fieldDate, isoWeekOfDay(toDayNumber(p.fieldDate)), p.firstHarvest, p.lastHarvest, p.expectedYield,
-		p.harvestUnit, p.seedsNeeded, p.status, p.actualTraySowDate, p.actualFieldDate, p.actualFirstHarvest, p.actualLastHarvest, p.notes, p.id
+		p.crop,
+		p.variety,
+		p.block,
+		p.bed,
+		p.startFt,
+		p.lengthFt,
+		p.rows,
+		p.inRowSpacingIn,
+		p.seedsPerSpot,
+		p.method,
+		p.traySowDate,
+		p.fieldDate,
+		isoWeekOfDay(toDayNumber(p.fieldDate)),
+		p.firstHarvest,
+		p.lastHarvest,
+		p.expectedYield,
+		p.harvestUnit,
+		p.seedsNeeded,
+		p.status,
+		p.actualTraySowDate,
+		p.actualFieldDate,
+		p.actualFirstHarvest,
+		p.actualLastHarvest,
+		p.notes,
+		p.id
 	]);
 }
 
@@ -72,7 +93,8 @@ function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: M
 		const s = seeds.get(p.id);
 		if (!v || !s) continue;
 		let t = totals.get(v.id);
-		if (!t) totals.set(v.id, (t = { v, plantings: 0, bedFeet: 0, seeds: 0, grams: 0, costCents: 0, cells: 0, trays: 0 }));
+		if (!t)
+			totals.set(v.id, (t = { v, plantings: 0, bedFeet: 0, seeds: 0, grams: 0, costCents: 0, cells: 0, trays: 0 }));
 		t.plantings += 1;
 		t.bedFeet += p.lengthFt;
 		t.seeds += s.seeds;
@@ -84,10 +106,19 @@ function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: M
 	const rows = [...totals.values()]
 		.sort((a, b) => a.v.crop.localeCompare(b.v.crop) || a.v.name.localeCompare(b.v.name))
 		.map((t): Row => [
-			t.v.crop, t.v.name, t.v.method, t.plantings, round2(t.bedFeet), t.seeds, gramsOf(t), t.v.seedsPerPacket,
-			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null, t.v.seedPriceCentsPerGram / 100,
+			t.v.crop,
+			t.v.name,
+			t.v.method,
+			t.plantings,
+			round2(t.bedFeet),
+			t.seeds,
+			gramsOf(t),
+			t.v.seedsPerPacket,
+			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null,
+			t.v.seedPriceCentsPerGram / 100,
 			Math.round(gramsOf(t) * t.v.seedPriceCentsPerGram) / 100,
-			t.v.method === 'transplant' ? t.cells : null, t.v.method === 'transplant' ? t.trays : null
+			t.v.method === 'transplant' ? t.cells : null,
+			t.v.method === 'transplant' ? t.trays : null
 		]);
 	return rows;
 }
@@ -107,7 +138,7 @@ interface TaskRow {
 
 // Positions and feet are far below these bounds, so the packed key stays an exact integer.
 const walkKey = (block: number | null, bed: number | null, startFt: number): number =>
-	((Math.min(block ?? 99_999, 99_999) * 100_000 + Math.min(bed ?? 99_999, 99_999)) * 100_000) + Math.round(startFt * 10);
+	(Math.min(block ?? 99_999, 99_999) * 100_000 + Math.min(bed ?? 99_999, 99_999)) * 100_000 + Math.round(startFt * 10);
 
 /**
  * Per ISO week, the same four kinds of work as the crew's week view (plantings.ts
@@ -127,10 +158,28 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>): Row[] {
 				order: monday * 4 + taskOrder[task],
 				walk: byCrop ? 0 : walk,
 				name: byCrop ? `${p.crop}\u0000${p.variety}` : '',
-				row: [isoWeekOfDay(day), fromDayNumber(monday), task, p.crop, p.variety, p.block, p.bed, p.startFt, p.lengthFt, fromDayNumber(day), ...rest]
+				row: [
+					isoWeekOfDay(day),
+					fromDayNumber(monday),
+					task,
+					p.crop,
+					p.variety,
+					p.block,
+					p.bed,
+					p.startFt,
+					p.lengthFt,
+					fromDayNumber(day),
+					...rest
+				]
 			});
 		};
-		if (p.traySowDate) push(toDayNumber(p.traySowDate), 'Tray sowing', [s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null], true);
+		if (p.traySowDate)
+			push(
+				toDayNumber(p.traySowDate),
+				'Tray sowing',
+				[s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null],
+				true
+			);
 		const field = toDayNumber(p.fieldDate);
 		if (p.method === 'direct') push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
 		else push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
@@ -156,12 +205,24 @@ function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[]
 	for (const p of d.plantings) {
 		const v = varieties.get(p.varietyId);
 		if (!v || p.status === 'failed' || p.lastHarvest < p.firstHarvest) continue;
-		plantings.push({ crop: String(p.cropId), firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: p.lengthFt, yieldPerBedFoot: v.yieldPerBedFoot });
+		plantings.push({
+			crop: String(p.cropId),
+			firstHarvest: p.firstHarvest,
+			lastHarvest: p.lastHarvest,
+			bedFeet: p.lengthFt,
+			yieldPerBedFoot: v.yieldPerBedFoot
+		});
 	}
 	const crops = new Map(d.crops.map((c) => [String(c.id), c]));
 	return forecast(plantings, deriveTargets(d.demand)).map((r) => [
-		crops.get(r.crop)?.name ?? r.crop, crops.get(r.crop)?.harvestUnit ?? null, r.week, weekStart(r.week),
-		round2(r.supply), round2(r.demand), round2(r.shortfall), round2(r.surplus)
+		crops.get(r.crop)?.name ?? r.crop,
+		crops.get(r.crop)?.harvestUnit ?? null,
+		r.week,
+		weekStart(r.week),
+		round2(r.supply),
+		round2(r.demand),
+		round2(r.shortfall),
+		round2(r.surplus)
 	]);
 }
 
@@ -176,8 +237,23 @@ function cropRows(d: SeasonData): Row[] {
 		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null)]);
 		for (const v of vs) {
 			rows.push([
-				...crop, v.name, v.method, v.daysToMaturity, v.daysInTray, v.harvestWindowDays, v.yieldPerBedFoot, v.rows, v.inRowSpacingIn,
-				v.seedsPerSpot, v.germinationRate, v.seedsPerGram, v.seedPriceCentsPerGram / 100, v.seedsPerPacket, v.cellsPerTray, v.margin, v.gddToMaturity
+				...crop,
+				v.name,
+				v.method,
+				v.daysToMaturity,
+				v.daysInTray,
+				v.harvestWindowDays,
+				v.yieldPerBedFoot,
+				v.rows,
+				v.inRowSpacingIn,
+				v.seedsPerSpot,
+				v.germinationRate,
+				v.seedsPerGram,
+				v.seedPriceCentsPerGram / 100,
+				v.seedsPerPacket,
+				v.cellsPerTray,
+				v.margin,
+				v.gddToMaturity
 			]);
 		}
 	}

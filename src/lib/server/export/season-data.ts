@@ -81,8 +81,15 @@ async function listPlantings(farmId: number, seasonId: number): Promise<ExportPl
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
 		.select(
-			'p.*', 'v.name as variety', 'v.crop_id', 'c.name as crop', 'c.harvest_unit', 'b.name as bed', 'k.name as block',
-			'k.position as block_position', 'b.position as bed_position'
+			'p.*',
+			'v.name as variety',
+			'v.crop_id',
+			'c.name as crop',
+			'c.harvest_unit',
+			'b.name as bed',
+			'k.name as block',
+			'k.position as block_position',
+			'b.position as bed_position'
 		);
 	return rows.map((r) => ({
 		id: r.id,

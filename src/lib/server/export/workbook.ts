@@ -2,7 +2,18 @@
 // it is written, so a large season flows out to the response instead of piling up in memory.
 import ExcelJS from 'exceljs';
 import type { Writable } from 'node:stream';
-import { bedsSheet, cropsSheet, forecastSheet, numberFormats, plantingsSheet, seasonSheet, seedOrderSheet, tasksSheet, type SheetSpec, columnLetter } from './layout';
+import {
+	bedsSheet,
+	cropsSheet,
+	forecastSheet,
+	numberFormats,
+	plantingsSheet,
+	seasonSheet,
+	seedOrderSheet,
+	tasksSheet,
+	type SheetSpec,
+	columnLetter
+} from './layout';
 import { excelDate, type Cell, type SheetRows } from './rows';
 
 const sheetOrder: [SheetSpec, keyof SheetRows][] = [
@@ -27,21 +38,31 @@ interface SheetName {
 	ranges: string[];
 }
 
-export async function writeWorkbook(rows: SheetRows, stream: Writable, titles: { farm: string; season: string }): Promise<void> {
+export async function writeWorkbook(
+	rows: SheetRows,
+	stream: Writable,
+	titles: { farm: string; season: string }
+): Promise<void> {
 	const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
 	wb.creator = 'Furrowcast';
 	wb.created = new Date();
 	// Each sheet's autofilter also needs its hidden "_xlnm._FilterDatabase" name, scoped to the
 	// sheet: spreadsheet programs that find the filter without it drop the filter buttons on save.
 	const filterNames: SheetName[] = [];
-	Object.defineProperty((wb as unknown as { _definedNames: object })._definedNames, 'model', { get: () => filterNames });
+	Object.defineProperty((wb as unknown as { _definedNames: object })._definedNames, 'model', {
+		get: () => filterNames
+	});
 	for (const [index, [spec, key]] of sheetOrder.entries()) {
 		const ws = wb.addWorksheet(spec.name, {
 			views: [{ state: 'frozen', xSplit: 0, ySplit: 1, topLeftCell: 'A2' }],
 			// Printed: landscape, as wide as one page and as long as it takes, the header row on every
 			// page, and each page headed with the farm, the season and the sheet (&A), numbered below.
 			pageSetup: {
-				orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '1:1',
+				orientation: 'landscape',
+				fitToPage: true,
+				fitToWidth: 1,
+				fitToHeight: 0,
+				printTitlesRow: '1:1',
 				margins: { left: 0.4, right: 0.4, top: 0.6, bottom: 0.5, header: 0.3, footer: 0.3 }
 			},
 			headerFooter: {
@@ -63,7 +84,9 @@ export async function writeWorkbook(rows: SheetRows, stream: Writable, titles: {
 		const data = rows[key];
 		for (const r of data) {
 			// An empty cell is left out (undefined) rather than written as a null cell.
-			const values: (Cell | undefined)[] = r.map((v, i) => (v === null ? undefined : dateCols[i] && typeof v === 'string' && isoDate.test(v) ? excelDate(v) : v));
+			const values: (Cell | undefined)[] = r.map((v, i) =>
+				v === null ? undefined : dateCols[i] && typeof v === 'string' && isoDate.test(v) ? excelDate(v) : v
+			);
 			const row = ws.addRow(values);
 			// Mixed columns (the Season sheet's values) get a date format where a date stands.
 			row.eachCell((cell, n) => (cell.style = values[n - 1] instanceof Date ? dateStyle : styles[n - 1]));

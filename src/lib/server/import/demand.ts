@@ -14,7 +14,16 @@ import ExcelJS from 'exceljs';
 import { readXlsxSheets, XlsxRefused, type XlsxLimits } from '../xlsx-read';
 import { uploadColumns, uploadModeSchema, uploadRowSchema, type HarvestUnit } from '$lib/schemas/demand';
 import type { Season } from '../seasons';
-import { listCrops, listShareSizes, outside, resolveGrid, writeGrids, type DemandView, type GridTarget, type GridWrite } from '../demand';
+import {
+	listCrops,
+	listShareSizes,
+	outside,
+	resolveGrid,
+	writeGrids,
+	type DemandView,
+	type GridTarget,
+	type GridWrite
+} from '../demand';
 
 /** Kept under adapter-node's default 512 KB body limit, so the user sees our message, not a bare 413. */
 export const MAX_UPLOAD_BYTES = 256 * 1024;
@@ -26,7 +35,8 @@ export interface UploadError {
 	message: string;
 }
 
-export type ImportResult = { ok: true; rows: number; set: number; cleared: number } | { ok: false; status: 400 | 413; errors: UploadError[] };
+export type ImportResult =
+	{ ok: true; rows: number; set: number; cleared: number } | { ok: false; status: 400 | 413; errors: UploadError[] };
 
 interface RawRow {
 	row: number;
@@ -40,7 +50,12 @@ function cellText(v: unknown): string {
 }
 
 /** A demand file is a few thousand rows of five columns: far below these. */
-const DEMAND_LIMITS: XlsxLimits = { maxRows: MAX_UPLOAD_ROWS, maxCells: MAX_UPLOAD_ROWS * 10, maxColumns: 50, maxUnpackedBytes: 20 * 1024 * 1024 };
+const DEMAND_LIMITS: XlsxLimits = {
+	maxRows: MAX_UPLOAD_ROWS,
+	maxCells: MAX_UPLOAD_ROWS * 10,
+	maxColumns: 50,
+	maxUnpackedBytes: 20 * 1024 * 1024
+};
 
 /** The first sheet's rows holding data, streamed (see xlsx-read.ts). */
 async function readXlsx(bytes: ArrayBuffer): Promise<RawRow[]> {
@@ -48,7 +63,9 @@ async function readXlsx(bytes: ArrayBuffer): Promise<RawRow[]> {
 	const [rows] = [...book.values()];
 	return (rows ?? []).map((r) => ({
 		row: r.row,
-		cells: Array.from({ length: Math.max(r.values.length, uploadColumns.length) }, (_, i) => cellText(r.values[i]).trim())
+		cells: Array.from({ length: Math.max(r.values.length, uploadColumns.length) }, (_, i) =>
+			cellText(r.values[i]).trim()
+		)
 	}));
 }
 
@@ -57,15 +74,34 @@ const escapedFormula = /^'(?=[=+\-@\t\r])/;
 
 function readCsv(text: string): { rows: RawRow[]; errors: UploadError[] } {
 	const out = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: false });
-	const errors = out.errors.map((e) => ({ row: (e.row ?? 0) + 1, column: '(row)', message: `The CSV could not be read here: ${e.message}.` }));
-	const cell = (c: unknown): string => String(c ?? '').replace(escapedFormula, '').trim();
+	const errors = out.errors.map((e) => ({
+		row: (e.row ?? 0) + 1,
+		column: '(row)',
+		message: `The CSV could not be read here: ${e.message}.`
+	}));
+	const cell = (c: unknown): string =>
+		String(c ?? '')
+			.replace(escapedFormula, '')
+			.trim();
 	return { rows: out.data.map((cells, i) => ({ row: i + 1, cells: cells.map(cell) })), errors };
 }
 
 /** Reads the file into rows of text; the header row is checked against the layout. */
-async function readRows(file: File): Promise<{ rows: RawRow[]; header: Map<string, number> } | { errors: UploadError[]; status: 400 | 413 }> {
+async function readRows(
+	file: File
+): Promise<{ rows: RawRow[]; header: Map<string, number> } | { errors: UploadError[]; status: 400 | 413 }> {
 	if (file.size === 0) return { status: 400, errors: [{ row: 0, column: 'file', message: 'The file is empty.' }] };
-	if (file.size > MAX_UPLOAD_BYTES) return { status: 413, errors: [{ row: 0, column: 'file', message: `The file is ${Math.ceil(file.size / 1024)} KB; at most ${MAX_UPLOAD_BYTES / 1024} KB may be uploaded.` }] };
+	if (file.size > MAX_UPLOAD_BYTES)
+		return {
+			status: 413,
+			errors: [
+				{
+					row: 0,
+					column: 'file',
+					message: `The file is ${Math.ceil(file.size / 1024)} KB; at most ${MAX_UPLOAD_BYTES / 1024} KB may be uploaded.`
+				}
+			]
+		};
 	const bytes = await file.arrayBuffer();
 	const head = new Uint8Array(bytes.slice(0, 4));
 	// An .xlsx is a zip archive: it starts with "PK\x03\x04", whatever its name says.
@@ -81,7 +117,16 @@ async function readRows(file: File): Promise<{ rows: RawRow[]; header: Map<strin
 			return { status: err.status, errors: [{ row: err.row ?? 0, column: 'file', message: err.message }] };
 		}
 	} else if (name.endsWith('.xlsx') || name.endsWith('.xls')) {
-		return { status: 400, errors: [{ row: 0, column: 'file', message: 'The file is not an .xlsx workbook (old .xls files are not read: save as .xlsx or CSV).' }] };
+		return {
+			status: 400,
+			errors: [
+				{
+					row: 0,
+					column: 'file',
+					message: 'The file is not an .xlsx workbook (old .xls files are not read: save as .xlsx or CSV).'
+				}
+			]
+		};
 	} else {
 		const csv = readCsv(new TextDecoder('utf-8').decode(bytes));
 		if (csv.errors.length) return { status: 400, errors: csv.errors };
@@ -90,30 +135,53 @@ async function readRows(file: File): Promise<{ rows: RawRow[]; header: Map<strin
 	rows = rows.filter((r) => r.cells.some((c) => c !== ''));
 	const [first, ...data] = rows;
 	if (!first) return { status: 400, errors: [{ row: 1, column: 'file', message: 'The file has no rows.' }] };
-	if (data.length > MAX_UPLOAD_ROWS) return { status: 413, errors: [{ row: 0, column: 'file', message: `The file has ${data.length} rows; at most ${MAX_UPLOAD_ROWS} may be uploaded at once.` }] };
+	if (data.length > MAX_UPLOAD_ROWS)
+		return {
+			status: 413,
+			errors: [
+				{
+					row: 0,
+					column: 'file',
+					message: `The file has ${data.length} rows; at most ${MAX_UPLOAD_ROWS} may be uploaded at once.`
+				}
+			]
+		};
 	const header = new Map<string, number>();
 	const errors: UploadError[] = [];
 	first.cells.forEach((c, i) => {
 		const name = c.toLowerCase();
 		if (name === '') return;
-		if (!(uploadColumns as readonly string[]).includes(name)) errors.push({ row: first.row, column: c, message: `Unknown column "${c}": the columns are ${uploadColumns.join(', ')}.` });
+		if (!(uploadColumns as readonly string[]).includes(name))
+			errors.push({
+				row: first.row,
+				column: c,
+				message: `Unknown column "${c}": the columns are ${uploadColumns.join(', ')}.`
+			});
 		else if (header.has(name)) errors.push({ row: first.row, column: c, message: `Column "${c}" appears twice.` });
 		else header.set(name, i);
 	});
-	for (const col of uploadColumns.filter((c) => c !== 'unit')) if (!header.has(col)) errors.push({ row: first.row, column: col, message: `The header row has no "${col}" column.` });
+	for (const col of uploadColumns.filter((c) => c !== 'unit'))
+		if (!header.has(col))
+			errors.push({ row: first.row, column: col, message: `The header row has no "${col}" column.` });
 	if (errors.length) return { status: 400, errors };
 	return { rows: data, header };
 }
 
 /** Checks every row of the file and, only when all are good, writes them in one transaction. */
-export async function importDemand(farmId: number, season: Season, file: File, mode: 'merge' | 'replace'): Promise<ImportResult> {
+export async function importDemand(
+	farmId: number,
+	season: Season,
+	file: File,
+	mode: 'merge' | 'replace'
+): Promise<ImportResult> {
 	const read = await readRows(file);
 	if ('errors' in read) return { ok: false, status: read.status, errors: read.errors };
 	const [crops, shares] = await Promise.all([listCrops(farmId), listShareSizes(farmId, season.id)]);
 	const cropByName = new Map(crops.map((c) => [c.name.toLowerCase(), c]));
 	const targets = new Map<string, GridTarget>();
 	for (const s of shares) targets.set(s.name.toLowerCase(), await resolveGrid(farmId, season, `share:${s.id}`));
-	for (const ch of ['market', 'restaurant'] as const) if (!targets.has(ch)) targets.set(ch, await resolveGrid(farmId, season, ch));
+	for (const ch of ['market', 'restaurant'] as const)
+		if (!targets.has(ch)) targets.set(ch, await resolveGrid(farmId, season, ch));
 
 	const errors: UploadError[] = [];
 	const writes = new Map<GridTarget, GridWrite>();
@@ -133,7 +201,11 @@ export async function importDemand(farmId: number, season: Season, file: File, m
 		// Names are looked up even when another column is bad, so every bad cell is reported at once.
 		const target = raw.channel ? targets.get(raw.channel.toLowerCase()) : undefined;
 		if (raw.channel && !bad.has('channel') && !target) {
-			errors.push({ row: r.row, column: 'channel', message: `"${raw.channel}" is neither a share size of ${season.name} (${shares.map((s) => s.name).join(', ') || 'none yet'}) nor market or restaurant.` });
+			errors.push({
+				row: r.row,
+				column: 'channel',
+				message: `"${raw.channel}" is neither a share size of ${season.name} (${shares.map((s) => s.name).join(', ') || 'none yet'}) nor market or restaurant.`
+			});
 			bad.add('channel');
 		}
 		const crop = raw.crop ? cropByName.get(raw.crop.toLowerCase()) : undefined;
@@ -145,10 +217,16 @@ export async function importDemand(farmId: number, season: Season, file: File, m
 		const row = parsed.data;
 		const away = outside(target, row.week);
 		if (away) errors.push({ row: r.row, column: 'week', message: `${row.week} is ${away}.` });
-		if (row.unit && row.unit !== crop.unit) errors.push({ row: r.row, column: 'unit', message: `${crop.name} is counted in ${crop.unit}, not ${row.unit}.` });
+		if (row.unit && row.unit !== crop.unit)
+			errors.push({ row: r.row, column: 'unit', message: `${crop.name} is counted in ${crop.unit}, not ${row.unit}.` });
 		const key = `${target.label}|${crop.id}|${row.week}`;
 		const dup = seen.get(key);
-		if (dup !== undefined) errors.push({ row: r.row, column: 'week', message: `Row ${dup} already gives ${crop.name} for ${target.label} in ${row.week}.` });
+		if (dup !== undefined)
+			errors.push({
+				row: r.row,
+				column: 'week',
+				message: `Row ${dup} already gives ${crop.name} for ${target.label} in ${row.week}.`
+			});
 		else seen.set(key, r.row);
 		if (away || (row.unit && row.unit !== crop.unit) || dup !== undefined) continue;
 		const w = writes.get(target) ?? { target, set: [], clear: [] };
@@ -159,7 +237,12 @@ export async function importDemand(farmId: number, season: Season, file: File, m
 	if (errors.length) return { ok: false, status: 400, errors: errors.sort((a, b) => a.row - b.row) };
 	const list = [...writes.values()];
 	await writeGrids(farmId, season.id, list, mode === 'replace');
-	return { ok: true, rows: read.rows.length, set: list.reduce((n, w) => n + w.set.length, 0), cleared: list.reduce((n, w) => n + w.clear.length, 0) };
+	return {
+		ok: true,
+		rows: read.rows.length,
+		set: list.reduce((n, w) => n + w.set.length, 0),
+		cleared: list.reduce((n, w) => n + w.clear.length, 0)
+	};
 }
 
 /** The season's demand in the upload layout, so a download can be edited and uploaded again. */
@@ -167,8 +250,10 @@ export function demandRows(view: DemandView): string[][] {
 	const crop = new Map(view.crops.map((c) => [c.id, c]));
 	const share = new Map(view.shareSizes.map((s) => [s.id, s.name]));
 	const rows: string[][] = [];
-	for (const b of view.boxItems) rows.push([share.get(b.shareSizeId) ?? '', crop.get(b.cropId)?.name ?? '', b.week, String(b.quantity), b.unit]);
-	for (const c of view.channelDemand) rows.push([c.channel, crop.get(c.cropId)?.name ?? '', c.week, String(c.quantity), crop.get(c.cropId)?.unit ?? '']);
+	for (const b of view.boxItems)
+		rows.push([share.get(b.shareSizeId) ?? '', crop.get(b.cropId)?.name ?? '', b.week, String(b.quantity), b.unit]);
+	for (const c of view.channelDemand)
+		rows.push([c.channel, crop.get(c.cropId)?.name ?? '', c.week, String(c.quantity), crop.get(c.cropId)?.unit ?? '']);
 	return rows;
 }
 
@@ -187,7 +272,8 @@ export async function toXlsx(rows: string[][]): Promise<Buffer> {
 	return Buffer.from(await book.xlsx.writeBuffer());
 }
 
-export type UploadForm = { ok: true; file: File; mode: 'merge' | 'replace' } | { ok: false; field: string; message: string };
+export type UploadForm =
+	{ ok: true; file: File; mode: 'merge' | 'replace' } | { ok: false; field: string; message: string };
 
 /** The file and mode of an upload form (multipart), as the page action and the API both take it. */
 export async function uploadFromForm(request: Request): Promise<UploadForm> {
@@ -198,7 +284,8 @@ export async function uploadFromForm(request: Request): Promise<UploadForm> {
 		return { ok: false, field: 'file', message: 'Send the file as multipart/form-data in a field named file.' };
 	}
 	const file = form.get('file');
-	if (!(file instanceof File) || file.name === '') return { ok: false, field: 'file', message: 'Choose a CSV or .xlsx file to upload.' };
+	if (!(file instanceof File) || file.name === '')
+		return { ok: false, field: 'file', message: 'Choose a CSV or .xlsx file to upload.' };
 	const mode = uploadModeSchema.safeParse(form.get('mode') ?? 'merge');
 	if (!mode.success) return { ok: false, field: 'mode', message: mode.error.issues[0].message };
 	return { ok: true, file, mode: mode.data };

@@ -18,7 +18,9 @@ async function seasonOfYear(farmId: number, year: number): Promise<seasons.Seaso
 }
 
 async function plantingCount(farmId: number, seasonId: number): Promise<number> {
-	return Number((await db()('plantings').where({ farm_id: farmId, season_id: seasonId }).count({ n: '*' }).first())?.n ?? 0);
+	return Number(
+		(await db()('plantings').where({ farm_id: farmId, season_id: seasonId }).count({ n: '*' }).first())?.n ?? 0
+	);
 }
 
 export type { ImportSummary };
@@ -29,7 +31,9 @@ export type ImportOutcome =
 	| { ok: true; preview: PreviewSummary }
 	| { ok: false; status: 400 | 404 | 409 | 413 | 415; message: string; issues: ImportIssue[] };
 
-const fileIssue = (message: string): ImportIssue[] => [{ sheet: 'file', row: null, column: null, header: null, message }];
+const fileIssue = (message: string): ImportIssue[] => [
+	{ sheet: 'file', row: null, column: null, header: null, message }
+];
 
 function refuse(status: 400 | 404 | 409 | 413 | 415, issues: ImportIssue[]): ImportOutcome {
 	const shown = issues.slice(0, 3).map(describeIssue).join('; ');
@@ -58,11 +62,24 @@ async function farmLibrary(farmId: number): Promise<FarmLibrary> {
 /** MariaDB's deadlock (1213) or lock wait timeout (1205): the transaction was rolled back whole. */
 export function isDeadlock(err: unknown): boolean {
 	const e = err as { errno?: number; code?: string } | null;
-	return !!e && (e.errno === 1213 || e.errno === 1205 || e.code === 'ER_LOCK_DEADLOCK' || e.code === 'ER_LOCK_WAIT_TIMEOUT');
+	return (
+		!!e && (e.errno === 1213 || e.errno === 1205 || e.code === 'ER_LOCK_DEADLOCK' || e.code === 'ER_LOCK_WAIT_TIMEOUT')
+	);
 }
 
-export async function importUpload(farmId: number, userId: string, file: File, options: ImportOptions): Promise<ImportOutcome> {
-	if (file.size > IMPORT_MAX_BYTES) return refuse(413, fileIssue(`The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${IMPORT_MAX_BYTES / 1024 / 1024} MB.`));
+export async function importUpload(
+	farmId: number,
+	userId: string,
+	file: File,
+	options: ImportOptions
+): Promise<ImportOutcome> {
+	if (file.size > IMPORT_MAX_BYTES)
+		return refuse(
+			413,
+			fileIssue(
+				`The file is ${(file.size / 1024 / 1024).toFixed(1)} MB; the limit is ${IMPORT_MAX_BYTES / 1024 / 1024} MB.`
+			)
+		);
 	if (file.size === 0) return refuse(400, fileIssue('The file is empty.'));
 	const buffer = await file.arrayBuffer();
 	const kind = kindOf(file.name, new Uint8Array(buffer));
@@ -79,8 +96,14 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 	const plan = checked.plan;
 	if (plan.plantings.length) {
 		const letters = read.sheets.plantings?.letters ?? {};
-		const season = options.seasonId !== undefined ? await seasons.get(farmId, options.seasonId) : await seasonOfYear(farmId, plan.season!.year);
-		if (options.seasonId !== undefined && !season) return refuse(404, [{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }]);
+		const season =
+			options.seasonId !== undefined
+				? await seasons.get(farmId, options.seasonId)
+				: await seasonOfYear(farmId, plan.season!.year);
+		if (options.seasonId !== undefined && !season)
+			return refuse(404, [
+				{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }
+			]);
 		const bounds = season ?? { name: plan.season!.name, startsOn: plan.season!.startsOn, endsOn: plan.season!.endsOn };
 		const outside = datesOutside(plan, bounds, letters);
 		if (outside.length) return refuse(400, outside);
@@ -101,7 +124,13 @@ export async function importUpload(farmId: number, userId: string, file: File, o
 				console.warn('[furrowcast] import deadlocked with another; retrying once');
 				continue;
 			}
-			if (isDeadlock(err)) return refuse(409, fileIssue('Another import into this farm was running at the same time; nothing of this one was written. Try again.'));
+			if (isDeadlock(err))
+				return refuse(
+					409,
+					fileIssue(
+						'Another import into this farm was running at the same time; nothing of this one was written. Try again.'
+					)
+				);
 			throw err;
 		}
 	}

@@ -31,12 +31,25 @@ const requiredHeaders: Record<string, string[]> = {
 	Season: ['field', 'value'],
 	'Crops & varieties': ['crop', 'family', 'harvestUnit', 'frostTolerance'],
 	Beds: ['block', 'bed', 'lengthFt'],
-	Plantings: ['crop', 'variety', 'lengthFt', 'rows', 'inRowSpacingIn', 'method', 'fieldDate', 'firstHarvest', 'lastHarvest']
+	Plantings: [
+		'crop',
+		'variety',
+		'lengthFt',
+		'rows',
+		'inRowSpacingIn',
+		'method',
+		'fieldDate',
+		'firstHarvest',
+		'lastHarvest'
+	]
 };
 
 const norm = (s: string): string => s.trim().toLowerCase().replace(/\s+/g, ' ');
 
-function matchHeaders(spec: SheetSpec, headers: unknown[]): { letters: Record<string, string>; index: Record<string, number>; issues: ImportIssue[] } {
+function matchHeaders(
+	spec: SheetSpec,
+	headers: unknown[]
+): { letters: Record<string, string>; index: Record<string, number>; issues: ImportIssue[] } {
 	const byHeader = new Map(spec.columns.map((c) => [norm(c.header), c]));
 	const letters: Record<string, string> = {};
 	const index: Record<string, number> = {};
@@ -51,12 +64,22 @@ function matchHeaders(spec: SheetSpec, headers: unknown[]): { letters: Record<st
 		.filter((k) => !(k in index))
 		.map((k): ImportIssue => {
 			const header = spec.columns.find((c) => c.key === k)!.header;
-			return { sheet: spec.name, row: 1, column: null, header, message: `The column "${header}" is missing from the header row.` };
+			return {
+				sheet: spec.name,
+				row: 1,
+				column: null,
+				header,
+				message: `The column "${header}" is missing from the header row.`
+			};
 		});
 	return { letters, index, issues };
 }
 
-function toSheet(spec: SheetSpec, headerRow: unknown[], body: { row: number; values: unknown[] }[]): { sheet: RawSheet; issues: ImportIssue[] } {
+function toSheet(
+	spec: SheetSpec,
+	headerRow: unknown[],
+	body: { row: number; values: unknown[] }[]
+): { sheet: RawSheet; issues: ImportIssue[] } {
 	const { letters, index, issues } = matchHeaders(spec, headerRow);
 	const rows: RawRow[] = [];
 	for (const r of body) {
@@ -69,7 +92,12 @@ function toSheet(spec: SheetSpec, headerRow: unknown[], body: { row: number; val
 }
 
 /** Per upload: far above a real farm's season (the bench's 5,000 plantings), far below harm. */
-export const IMPORT_LIMITS: XlsxLimits = { maxRows: 20_000, maxCells: 600_000, maxColumns: 200, maxUnpackedBytes: 150 * 1024 * 1024 };
+export const IMPORT_LIMITS: XlsxLimits = {
+	maxRows: 20_000,
+	maxCells: 600_000,
+	maxColumns: 200,
+	maxUnpackedBytes: 150 * 1024 * 1024
+};
 
 export async function readXlsx(buffer: ArrayBuffer): Promise<ReadResult> {
 	let book: Map<string, XlsxRow[]>;
@@ -77,7 +105,11 @@ export async function readXlsx(buffer: ArrayBuffer): Promise<ReadResult> {
 		book = await readXlsxSheets(new Uint8Array(buffer), (name) => name in sheetKeys, IMPORT_LIMITS);
 	} catch (err) {
 		if (!(err instanceof XlsxRefused)) throw err;
-		return { ok: false, status: err.status, issues: [{ sheet: err.sheet ?? 'file', row: err.row, column: null, header: null, message: err.message }] };
+		return {
+			ok: false,
+			status: err.status,
+			issues: [{ sheet: err.sheet ?? 'file', row: err.row, column: null, header: null, message: err.message }]
+		};
 	}
 	const sheets: Sheets = {};
 	const issues: ImportIssue[] = [];
@@ -85,12 +117,22 @@ export async function readXlsx(buffer: ArrayBuffer): Promise<ReadResult> {
 		const rows = book.get(spec.name);
 		if (!rows) continue;
 		const header = rows[0]?.row === 1 ? rows[0].values : [];
-		const read = toSheet(spec, header, rows.filter((r) => r.row > 1));
+		const read = toSheet(
+			spec,
+			header,
+			rows.filter((r) => r.row > 1)
+		);
 		sheets[sheetKeys[spec.name as keyof typeof sheetKeys]] = read.sheet;
 		issues.push(...read.issues);
 	}
 	if (!sheets.crops && !sheets.beds && !sheets.plantings) {
-		issues.push({ sheet: 'file', row: null, column: null, header: null, message: 'The workbook has none of the sheets "Crops & varieties", "Beds" or "Plantings".' });
+		issues.push({
+			sheet: 'file',
+			row: null,
+			column: null,
+			header: null,
+			message: 'The workbook has none of the sheets "Crops & varieties", "Beds" or "Plantings".'
+		});
 	}
 	issues.push(...readNumbers(sheets));
 	return issues.length ? { ok: false, issues } : { ok: true, sheets };
@@ -110,7 +152,8 @@ export function readNumbers(sheets: Sheets): ImportIssue[] {
 	for (const sheet of Object.values(sheets)) {
 		if (!sheet || sheet.spec === seasonSheet) continue;
 		const keys = sheet.spec.columns.filter((c) => numberKinds.has(c.kind) && c.key in sheet.letters);
-		for (const row of sheet.rows) for (const c of keys) cells.push({ sheet, row, key: c.key, percent: c.kind === 'percent' });
+		for (const row of sheet.rows)
+			for (const c of keys) cells.push({ sheet, row, key: c.key, percent: c.kind === 'percent' });
 	}
 	const texts = function* (): Generator<string> {
 		for (const c of cells) {
@@ -160,31 +203,69 @@ function guessSheet(headers: string[]): SheetSpec | undefined {
 export function readCsv(text: string, sheet?: ImportableSheet): ReadResult {
 	// Blank lines are kept (and skipped later) so row numbers match what a spreadsheet shows.
 	// preview stops the parser one row past the limit, so a huge file is never held whole as rows.
-	const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { skipEmptyLines: false, preview: IMPORT_LIMITS.maxRows + 2 });
+	const parsed = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), {
+		skipEmptyLines: false,
+		preview: IMPORT_LIMITS.maxRows + 2
+	});
 	const [headerRow, ...rest] = parsed.data;
 	const filled = rest.filter((r) => r.some((c) => c.trim() !== ''));
 	if (filled.length > IMPORT_LIMITS.maxRows) {
 		const message = `The CSV has more than ${IMPORT_LIMITS.maxRows.toLocaleString('en-US')} rows; at most that many are read at once.`;
 		return { ok: false, status: 413, issues: [{ sheet: 'file', row: null, column: null, header: null, message }] };
 	}
-	if (filled.reduce((n, r) => n + r.length, 0) > IMPORT_LIMITS.maxCells || (headerRow?.length ?? 0) > IMPORT_LIMITS.maxColumns) {
+	if (
+		filled.reduce((n, r) => n + r.length, 0) > IMPORT_LIMITS.maxCells ||
+		(headerRow?.length ?? 0) > IMPORT_LIMITS.maxColumns
+	) {
 		const message = `The CSV has more than ${IMPORT_LIMITS.maxColumns} columns or ${IMPORT_LIMITS.maxCells.toLocaleString('en-US')} cells; at most that many are read.`;
 		return { ok: false, status: 413, issues: [{ sheet: 'file', row: null, column: null, header: null, message }] };
 	}
-	if (!headerRow) return { ok: false, issues: [{ sheet: 'file', row: null, column: null, header: null, message: 'The CSV file is empty.' }] };
+	if (!headerRow)
+		return {
+			ok: false,
+			issues: [{ sheet: 'file', row: null, column: null, header: null, message: 'The CSV file is empty.' }]
+		};
 	const spec = sheet ? specs.find((s) => s.name === sheet) : guessSheet(headerRow);
 	if (!spec) {
-		return { ok: false, issues: [{ sheet: 'upload', row: 1, column: null, header: 'sheet', message: 'Could not tell which sheet this CSV holds: choose Crops & varieties, Beds or Plantings (sheet).' }] };
+		return {
+			ok: false,
+			issues: [
+				{
+					sheet: 'upload',
+					row: 1,
+					column: null,
+					header: 'sheet',
+					message: 'Could not tell which sheet this CSV holds: choose Crops & varieties, Beds or Plantings (sheet).'
+				}
+			]
+		};
 	}
 	// A header with nothing under it would import nothing: say so instead of "0 rows imported".
 	if (rest.every((values) => values.every((v) => v.trim() === ''))) {
-		const message = sheet ? `The CSV has a header row but no ${sheet} rows under it.` : 'The CSV has a header row but no rows under it; say which sheet it holds (sheet) and add its rows.';
-		return { ok: false, issues: [{ sheet: sheet ? spec.name : 'upload', row: null, column: null, header: sheet ? null : 'sheet', message }] };
+		const message = sheet
+			? `The CSV has a header row but no ${sheet} rows under it.`
+			: 'The CSV has a header row but no rows under it; say which sheet it holds (sheet) and add its rows.';
+		return {
+			ok: false,
+			issues: [
+				{ sheet: sheet ? spec.name : 'upload', row: null, column: null, header: sheet ? null : 'sheet', message }
+			]
+		};
 	}
 	const issues: ImportIssue[] = parsed.errors
 		.filter((e) => e.type !== 'Delimiter')
-		.map((e) => ({ sheet: spec.name, row: (e.row ?? 0) + 1, column: null, header: null, message: `CSV: ${e.message}` }));
-	const read = toSheet(spec, headerRow, rest.map((values, i) => ({ row: i + 2, values })));
+		.map((e) => ({
+			sheet: spec.name,
+			row: (e.row ?? 0) + 1,
+			column: null,
+			header: null,
+			message: `CSV: ${e.message}`
+		}));
+	const read = toSheet(
+		spec,
+		headerRow,
+		rest.map((values, i) => ({ row: i + 2, values }))
+	);
 	issues.push(...read.issues);
 	const sheets: Sheets = { [sheetKeys[spec.name as keyof typeof sheetKeys]]: read.sheet };
 	issues.push(...readNumbers(sheets));

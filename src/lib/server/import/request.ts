@@ -20,7 +20,8 @@ const bad = (status: 400 | 413 | 415, header: string, message: string): UploadRe
 /** Reads the multipart body; a body past the limit is refused before it is read. */
 export async function readUpload(event: RequestEvent, seasonId?: number): Promise<UploadRequest> {
 	const length = Number(event.request.headers.get('content-length') ?? 0);
-	if (length > IMPORT_MAX_BYTES + FORM_OVERHEAD_BYTES) return bad(413, 'file', `The upload is over the ${IMPORT_MAX_BYTES / 1024 / 1024} MB limit.`);
+	if (length > IMPORT_MAX_BYTES + FORM_OVERHEAD_BYTES)
+		return bad(413, 'file', `The upload is over the ${IMPORT_MAX_BYTES / 1024 / 1024} MB limit.`);
 	if (!(event.request.headers.get('content-type') ?? '').startsWith('multipart/form-data')) {
 		return bad(415, 'file', 'Send the file as multipart/form-data, in a field named "file".');
 	}

@@ -61,7 +61,8 @@ export interface SeasonDiff {
 	fingerprint: string;
 }
 
-export const varietyKey = (crop: string, variety: string): string => `${crop.trim().toLowerCase()}\u0000${variety.trim().toLowerCase()}`;
+export const varietyKey = (crop: string, variety: string): string =>
+	`${crop.trim().toLowerCase()}\u0000${variety.trim().toLowerCase()}`;
 
 /** Fields compared, in the Plantings sheet's order, with the labels the preview shows. */
 const inputs = [
@@ -109,16 +110,34 @@ function valueOf(p: WantedPlanting, field: string): unknown {
 /** The row's values as the file gives them, before derivation. */
 function fromRow(d: PlantingRow): WantedPlanting {
 	return {
-		varietyKey: varietyKey(d.crop, d.variety), crop: d.crop, variety: d.variety, bed: d.bed, startFt: d.startFt, lengthFt: d.lengthFt,
-		rows: d.rows, inRowSpacingIn: d.inRowSpacingIn, seedsPerSpot: d.seedsPerSpot, method: d.method, traySowDate: d.traySowDate,
-		fieldDate: d.fieldDate, firstHarvest: d.firstHarvest, lastHarvest: d.lastHarvest, expectedYield: d.expectedYield, seedsNeeded: d.seedsNeeded,
-		status: d.status, actualTraySowDate: d.actualTraySowDate, actualFieldDate: d.actualFieldDate, actualFirstHarvest: d.actualFirstHarvest,
-		actualLastHarvest: d.actualLastHarvest, notes: d.notes
+		varietyKey: varietyKey(d.crop, d.variety),
+		crop: d.crop,
+		variety: d.variety,
+		bed: d.bed,
+		startFt: d.startFt,
+		lengthFt: d.lengthFt,
+		rows: d.rows,
+		inRowSpacingIn: d.inRowSpacingIn,
+		seedsPerSpot: d.seedsPerSpot,
+		method: d.method,
+		traySowDate: d.traySowDate,
+		fieldDate: d.fieldDate,
+		firstHarvest: d.firstHarvest,
+		lastHarvest: d.lastHarvest,
+		expectedYield: d.expectedYield,
+		seedsNeeded: d.seedsNeeded,
+		status: d.status,
+		actualTraySowDate: d.actualTraySowDate,
+		actualFieldDate: d.actualFieldDate,
+		actualFirstHarvest: d.actualFirstHarvest,
+		actualLastHarvest: d.actualLastHarvest,
+		notes: d.notes
 	};
 }
 
 /** Every cell of a row in one string: two rows with the same string are exact copies. */
-const rowText = (d: PlantingRow): string => JSON.stringify(Object.entries(d).map(([k, v]) => [k, typeof v === 'string' ? v.trim().toLowerCase() : v]));
+const rowText = (d: PlantingRow): string =>
+	JSON.stringify(Object.entries(d).map(([k, v]) => [k, typeof v === 'string' ? v.trim().toLowerCase() : v]));
 
 export function diffSeason(
 	rows: ValidRow<PlantingRow>[],
@@ -141,7 +160,10 @@ export function diffSeason(
 		removed: [],
 		unchanged: 0,
 		duplicates: [],
-		fingerprint: existing.map((p) => `${p.id}:${p.version}`).sort().join(',')
+		fingerprint: existing
+			.map((p) => `${p.id}:${p.version}`)
+			.sort()
+			.join(',')
 	};
 	const derive = (w: WantedPlanting, row: number): WantedPlanting | null => {
 		const v = varieties.get(w.varietyKey);
@@ -180,7 +202,11 @@ export function diffSeason(
 		}
 		const twin = seenId.get(data.id);
 		if (twin !== undefined) {
-			at(row, 'id', `Planting id ${data.id} is also on row ${twin} with other figures; keep one of the two rows, or clear the id of a new planting.`);
+			at(
+				row,
+				'id',
+				`Planting id ${data.id} is also on row ${twin} with other figures; keep one of the two rows, or clear the id of a new planting.`
+			);
 			continue;
 		}
 		seenId.set(data.id, row);
@@ -191,7 +217,8 @@ export function diffSeason(
 		}
 		const changes: FieldChange[] = [];
 		for (const [field, label] of inputs) {
-			if (!same(valueOf(wanted, field), valueOf(cur, field))) changes.push({ field, label, from: shown(cur, field), to: shown(wanted, field), derived: false });
+			if (!same(valueOf(wanted, field), valueOf(cur, field)))
+				changes.push({ field, label, from: shown(cur, field), to: shown(wanted, field), derived: false });
 		}
 		if (!changes.length) {
 			diff.unchanged++;
@@ -200,7 +227,8 @@ export function diffSeason(
 		const d = derive(wanted, row);
 		if (!d) continue;
 		for (const [field, label] of derivedFields) {
-			if (!same(valueOf(d, field), valueOf(cur, field))) changes.push({ field, label, from: shown(cur, field), to: shown(d, field), derived: true });
+			if (!same(valueOf(d, field), valueOf(cur, field)))
+				changes.push({ field, label, from: shown(cur, field), to: shown(d, field), derived: true });
 		}
 		diff.changed.push({ row, id: cur.id, planting: d, changes });
 	}

@@ -20,7 +20,13 @@ export interface PreviewSummary {
 	seasonId: number;
 	seasonName: string;
 	added: { row: number; crop: string; variety: string; bed: string | null; fieldDate: string }[];
-	changed: { row: number; id: number; crop: string; variety: string; changes: SeasonDiff['changed'][number]['changes'] }[];
+	changed: {
+		row: number;
+		id: number;
+		crop: string;
+		variety: string;
+		changes: SeasonDiff['changed'][number]['changes'];
+	}[];
 	removed: { id: number; crop: string; variety: string; bed: string | null; fieldDate: string }[];
 	unchanged: number;
 	duplicates: { row: number; of: number }[];
@@ -53,7 +59,12 @@ function keep(p: StoredPreview): string {
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- a joined row, read field by field below
 type JoinedRow = Record<string, any>;
 
-export async function seasonPlantings(conn: Knex, farmId: number, seasonId: number, lock = false): Promise<ExistingPlanting[]> {
+export async function seasonPlantings(
+	conn: Knex,
+	farmId: number,
+	seasonId: number,
+	lock = false
+): Promise<ExistingPlanting[]> {
 	const q = conn('plantings as p')
 		.join('varieties as v', 'v.id', 'p.variety_id')
 		.join('crops as c', 'c.id', 'v.crop_id')
@@ -65,12 +76,31 @@ export async function seasonPlantings(conn: Knex, farmId: number, seasonId: numb
 	if (lock) q.forUpdate();
 	const rows: JoinedRow[] = await q;
 	return rows.map((r) => ({
-		id: Number(r.id), version: Number(r.version), varietyKey: varietyKey(String(r.crop), String(r.variety)), crop: String(r.crop), variety: String(r.variety),
-		bed: r.bed === null ? null : String(r.bed), startFt: Number(r.start_ft), lengthFt: Number(r.length_ft), rows: Number(r.rows),
-		inRowSpacingIn: Number(r.in_row_spacing_in), seedsPerSpot: Number(r.seeds_per_spot), method: r.method, traySowDate: r.tray_sow_date,
-		fieldDate: r.field_date, firstHarvest: r.first_harvest, lastHarvest: r.last_harvest, expectedYield: Number(r.expected_yield),
-		seedsNeeded: Number(r.seeds_needed), status: r.status, actualTraySowDate: r.actual_tray_sow_date, actualFieldDate: r.actual_field_date,
-		actualFirstHarvest: r.actual_first_harvest, actualLastHarvest: r.actual_last_harvest, notes: r.notes, harvests: Number(r.harvests)
+		id: Number(r.id),
+		version: Number(r.version),
+		varietyKey: varietyKey(String(r.crop), String(r.variety)),
+		crop: String(r.crop),
+		variety: String(r.variety),
+		bed: r.bed === null ? null : String(r.bed),
+		startFt: Number(r.start_ft),
+		lengthFt: Number(r.length_ft),
+		rows: Number(r.rows),
+		inRowSpacingIn: Number(r.in_row_spacing_in),
+		seedsPerSpot: Number(r.seeds_per_spot),
+		method: r.method,
+		traySowDate: r.tray_sow_date,
+		fieldDate: r.field_date,
+		firstHarvest: r.first_harvest,
+		lastHarvest: r.last_harvest,
+		expectedYield: Number(r.expected_yield),
+		seedsNeeded: Number(r.seeds_needed),
+		status: r.status,
+		actualTraySowDate: r.actual_tray_sow_date,
+		actualFieldDate: r.actual_field_date,
+		actualFirstHarvest: r.actual_first_harvest,
+		actualLastHarvest: r.actual_last_harvest,
+		notes: r.notes,
+		harvests: Number(r.harvests)
 	}));
 }
 
@@ -83,13 +113,30 @@ function mergedVarieties(farm: VarietyView[], plan: ImportPlan): Map<string, Var
 		const before = out.get(k);
 		const c = crops.get(v.crop.trim().toLowerCase());
 		out.set(k, {
-			id: before?.id ?? 0, cropId: before?.cropId ?? 0, crop: v.crop, family: c?.family ?? before?.family ?? '',
-			harvestUnit: c?.harvestUnit ?? before?.harvestUnit ?? 'lb', frostTolerance: c?.frostTolerance ?? before?.frostTolerance ?? 'hardy',
-			heatLimitF: c ? c.heatLimitF : (before?.heatLimitF ?? null), baseTempF: c?.baseTempF ?? before?.baseTempF ?? 40, name: v.variety,
-			method: v.method, daysToMaturity: v.daysToMaturity, daysInTray: v.daysInTray, harvestWindowDays: v.harvestWindowDays,
-			yieldPerBedFoot: v.yieldPerBedFoot, rows: v.rows, inRowSpacingIn: v.inRowSpacingIn, seedsPerSpot: v.seedsPerSpot,
-			germinationRate: v.germinationRate, seedsPerGram: v.seedsPerGram, seedPriceCentsPerGram: v.seedPrice, seedsPerPacket: v.seedsPerPacket,
-			cellsPerTray: v.cellsPerTray, margin: v.margin, gddToMaturity: v.gddToMaturity
+			id: before?.id ?? 0,
+			cropId: before?.cropId ?? 0,
+			crop: v.crop,
+			family: c?.family ?? before?.family ?? '',
+			harvestUnit: c?.harvestUnit ?? before?.harvestUnit ?? 'lb',
+			frostTolerance: c?.frostTolerance ?? before?.frostTolerance ?? 'hardy',
+			heatLimitF: c ? c.heatLimitF : (before?.heatLimitF ?? null),
+			baseTempF: c?.baseTempF ?? before?.baseTempF ?? 40,
+			name: v.variety,
+			method: v.method,
+			daysToMaturity: v.daysToMaturity,
+			daysInTray: v.daysInTray,
+			harvestWindowDays: v.harvestWindowDays,
+			yieldPerBedFoot: v.yieldPerBedFoot,
+			rows: v.rows,
+			inRowSpacingIn: v.inRowSpacingIn,
+			seedsPerSpot: v.seedsPerSpot,
+			germinationRate: v.germinationRate,
+			seedsPerGram: v.seedsPerGram,
+			seedPriceCentsPerGram: v.seedPrice,
+			seedsPerPacket: v.seedsPerPacket,
+			cellsPerTray: v.cellsPerTray,
+			margin: v.margin,
+			gddToMaturity: v.gddToMaturity
 		});
 	}
 	return out;
@@ -98,13 +145,28 @@ function mergedVarieties(farm: VarietyView[], plan: ImportPlan): Map<string, Var
 export type PreviewOutcome = { ok: true; preview: PreviewSummary } | { ok: false; issues: ImportIssue[] };
 
 /** Works out what the file would change in the season; nothing is written. */
-export async function previewSeasonUpdate(farmId: number, userId: string, season: Season, plan: ImportPlan, letters: Record<string, string>): Promise<PreviewOutcome> {
-	const [existing, varieties, ctx] = await Promise.all([seasonPlantings(db(), farmId, season.id), listVarieties(farmId), gridContext(farmId)]);
+export async function previewSeasonUpdate(
+	farmId: number,
+	userId: string,
+	season: Season,
+	plan: ImportPlan,
+	letters: Record<string, string>
+): Promise<PreviewOutcome> {
+	const [existing, varieties, ctx] = await Promise.all([
+		seasonPlantings(db(), farmId, season.id),
+		listVarieties(farmId),
+		gridContext(farmId)
+	]);
 	const issues: ImportIssue[] = [];
 	const diff = diffSeason(plan.plantings, existing, mergedVarieties(varieties, plan), ctx.farm, issues, letters);
 	if (issues.length) return { ok: false, issues };
 	const token = keep({ farmId, userId, season, plan, diff, at: Date.now() });
-	const place = (p: WantedPlanting | ExistingPlanting) => ({ crop: p.crop, variety: p.variety, bed: p.bed, fieldDate: p.fieldDate });
+	const place = (p: WantedPlanting | ExistingPlanting) => ({
+		crop: p.crop,
+		variety: p.variety,
+		bed: p.bed,
+		fieldDate: p.fieldDate
+	});
 	return {
 		ok: true,
 		preview: {
@@ -112,7 +174,13 @@ export async function previewSeasonUpdate(farmId: number, userId: string, season
 			seasonId: season.id,
 			seasonName: season.name,
 			added: diff.added.map((a) => ({ row: a.row, ...place(a.planting) })),
-			changed: diff.changed.map((c) => ({ row: c.row, id: c.id, crop: c.planting.crop, variety: c.planting.variety, changes: c.changes })),
+			changed: diff.changed.map((c) => ({
+				row: c.row,
+				id: c.id,
+				crop: c.planting.crop,
+				variety: c.planting.variety,
+				changes: c.changes
+			})),
 			removed: diff.removed.map((p) => ({ id: p.id, ...place(p) })),
 			unchanged: diff.unchanged,
 			duplicates: diff.duplicates,
@@ -131,25 +199,51 @@ const lower = (s: string): string => s.trim().toLowerCase();
 export async function applySeasonUpdate(farmId: number, userId: string, token: string): Promise<ApplyOutcome> {
 	const p = previews.get(token);
 	if (!p || p.farmId !== farmId || p.userId !== userId || Date.now() - p.at > PREVIEW_TTL_MS) {
-		return { ok: false, status: 404, message: 'That preview is no longer kept (it expires after 30 minutes); upload the file again.' };
+		return {
+			ok: false,
+			status: 404,
+			message: 'That preview is no longer kept (it expires after 30 minutes); upload the file again.'
+		};
 	}
 	const out = await db().transaction(async (trx): Promise<ApplyOutcome> => {
 		const now = await seasonPlantings(trx, farmId, p.season.id, true);
-		const fingerprint = now.map((x) => `${x.id}:${x.version}`).sort().join(',');
+		const fingerprint = now
+			.map((x) => `${x.id}:${x.version}`)
+			.sort()
+			.join(',');
 		const removedHaveHarvests = now.some((x) => x.harvests > 0 && p.diff.removed.some((r) => r.id === x.id));
 		if (fingerprint !== p.diff.fingerprint || removedHaveHarvests) {
-			return { ok: false, status: 409, message: `${p.season.name} changed after this preview was made; upload the file again to see what it would change now.` };
+			return {
+				ok: false,
+				status: 409,
+				message: `${p.season.name} changed after this preview was made; upload the file again to see what it would change now.`
+			};
 		}
 		await writeLibrary(trx, farmId, p.plan);
 		const beds = (await writeBeds(trx, farmId, p.plan)).beds;
 		const varieties = new Map((await listVarieties(farmId, trx)).map((v) => [varietyKey(v.crop, v.name), v.id]));
 		const columns = (w: WantedPlanting) => ({
-			variety_id: varieties.get(w.varietyKey)!, bed_id: w.bed === null ? null : (beds.get(lower(w.bed)) ?? null), start_ft: w.startFt,
-			length_ft: w.lengthFt, rows: w.rows, in_row_spacing_in: w.inRowSpacingIn, seeds_per_spot: w.seedsPerSpot, method: w.method,
-			tray_sow_date: w.traySowDate, field_date: w.fieldDate, first_harvest: w.firstHarvest, last_harvest: w.lastHarvest,
-			expected_yield: w.expectedYield, seeds_needed: w.seedsNeeded, status: w.status, actual_tray_sow_date: w.actualTraySowDate,
-			actual_field_date: w.actualFieldDate, actual_first_harvest: w.actualFirstHarvest, actual_last_harvest: w.actualLastHarvest,
-			notes: w.notes, updated_by: userId
+			variety_id: varieties.get(w.varietyKey)!,
+			bed_id: w.bed === null ? null : (beds.get(lower(w.bed)) ?? null),
+			start_ft: w.startFt,
+			length_ft: w.lengthFt,
+			rows: w.rows,
+			in_row_spacing_in: w.inRowSpacingIn,
+			seeds_per_spot: w.seedsPerSpot,
+			method: w.method,
+			tray_sow_date: w.traySowDate,
+			field_date: w.fieldDate,
+			first_harvest: w.firstHarvest,
+			last_harvest: w.lastHarvest,
+			expected_yield: w.expectedYield,
+			seeds_needed: w.seedsNeeded,
+			status: w.status,
+			actual_tray_sow_date: w.actualTraySowDate,
+			actual_field_date: w.actualFieldDate,
+			actual_first_harvest: w.actualFirstHarvest,
+			actual_last_harvest: w.actualLastHarvest,
+			notes: w.notes,
+			updated_by: userId
 		});
 		const version = new Map(now.map((x) => [x.id, x.version]));
 		for (const c of p.diff.changed) {
@@ -160,15 +254,29 @@ export async function applySeasonUpdate(farmId: number, userId: string, token: s
 		const added = p.diff.added.map((a) => ({ ...columns(a.planting), farm_id: farmId, season_id: p.season.id }));
 		for (let i = 0; i < added.length; i += 500) await trx('plantings').insert(added.slice(i, i + 500));
 		const gone = p.diff.removed.map((r) => r.id);
-		for (let i = 0; i < gone.length; i += 500) await trx('plantings').where({ farm_id: farmId, season_id: p.season.id }).whereIn('id', gone.slice(i, i + 500)).delete();
-		return { ok: true, seasonId: p.season.id, added: added.length, changed: p.diff.changed.length, removed: gone.length };
+		for (let i = 0; i < gone.length; i += 500)
+			await trx('plantings')
+				.where({ farm_id: farmId, season_id: p.season.id })
+				.whereIn('id', gone.slice(i, i + 500))
+				.delete();
+		return {
+			ok: true,
+			seasonId: p.season.id,
+			added: added.length,
+			changed: p.diff.changed.length,
+			removed: gone.length
+		};
 	});
 	if (out.ok) previews.delete(token);
 	return out;
 }
 
 /** Planting dates outside the season are refused, naming the row (a season's plan stays in its dates). */
-export function datesOutside(plan: ImportPlan, season: { startsOn: string; endsOn: string; name: string }, letters: Record<string, string>): ImportIssue[] {
+export function datesOutside(
+	plan: ImportPlan,
+	season: { startsOn: string; endsOn: string; name: string },
+	letters: Record<string, string>
+): ImportIssue[] {
 	const issues: ImportIssue[] = [];
 	for (const { row, data } of plan.plantings) {
 		// Tray sowing may fall before the season's first day (onions sown in winter); the field date may not.
@@ -177,7 +285,10 @@ export function datesOutside(plan: ImportPlan, season: { startsOn: string; endsO
 			if (d === null || (d >= season.startsOn && d <= season.endsOn)) continue;
 			const header = plantingsSheet.columns.find((c) => c.key === field)!.header;
 			issues.push({
-				sheet: plantingsSheet.name, row, column: letters[field] ?? null, header,
+				sheet: plantingsSheet.name,
+				row,
+				column: letters[field] ?? null,
+				header,
 				message: `${d} is outside ${season.name} (${season.startsOn} to ${season.endsOn}).`
 			});
 		}

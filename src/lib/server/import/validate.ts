@@ -53,7 +53,13 @@ class Issues {
 	at(row: number, field: string | null, message: string): void {
 		const spec: SheetSpec = this.sheet.spec;
 		const column = field ? spec.columns.find((c) => c.key === field) : undefined;
-		this.list.push({ sheet: spec.name, row, column: field ? (this.sheet.letters[field] ?? null) : null, header: column?.header ?? null, message });
+		this.list.push({
+			sheet: spec.name,
+			row,
+			column: field ? (this.sheet.letters[field] ?? null) : null,
+			header: column?.header ?? null,
+			message
+		});
 	}
 }
 
@@ -73,8 +79,20 @@ function parseRow<S extends z.ZodType>(schema: S, r: RawRow, issues: Issues): z.
 
 function checkSeason(sheet: RawSheet, issues: ImportIssue[]): (SeasonRows & { row: number }) | null {
 	const is = new Issues(sheet);
-	const byLabel = new Map(sheet.rows.map((r) => [String(r.cells.field ?? '').trim().toLowerCase(), r]));
-	const wanted = { name: seasonFields.name, year: seasonFields.year, startsOn: seasonFields.startsOn, endsOn: seasonFields.endsOn };
+	const byLabel = new Map(
+		sheet.rows.map((r) => [
+			String(r.cells.field ?? '')
+				.trim()
+				.toLowerCase(),
+			r
+		])
+	);
+	const wanted = {
+		name: seasonFields.name,
+		year: seasonFields.year,
+		startsOn: seasonFields.startsOn,
+		endsOn: seasonFields.endsOn
+	};
 	const values: Record<string, unknown> = {};
 	const rowOf: Record<string, number> = {};
 	for (const [k, label] of Object.entries(wanted)) {
@@ -88,8 +106,7 @@ function checkSeason(sheet: RawSheet, issues: ImportIssue[]): (SeasonRows & { ro
 	const out = seasonRowsSchema.safeParse(values);
 	if (!out.success) {
 		for (const i of out.error.issues) if (rowOf[String(i.path[0])]) is.at(rowOf[String(i.path[0])], 'value', i.message);
-	}
-	else if (out.data.endsOn < out.data.startsOn) is.at(rowOf.endsOn, 'value', 'Ends on is before Starts on.');
+	} else if (out.data.endsOn < out.data.startsOn) is.at(rowOf.endsOn, 'value', 'Ends on is before Starts on.');
 	issues.push(...is.list);
 	return out.success && !is.list.length ? { ...out.data, row: rowOf.year } : null;
 }
@@ -102,7 +119,11 @@ function checkCrops(sheet: RawSheet, plan: ImportPlan, issues: ImportIssue[]): v
 	for (const r of sheet.rows) {
 		plan.named.varieties.add(key(String(r.cells.crop ?? ''), String(r.cells.variety ?? '')));
 		const crop = parseRow(cropRowSchema, r, is);
-		const hasVariety = !(r.cells.variety === null || r.cells.variety === undefined || String(r.cells.variety).trim() === '');
+		const hasVariety = !(
+			r.cells.variety === null ||
+			r.cells.variety === undefined ||
+			String(r.cells.variety).trim() === ''
+		);
 		const variety = hasVariety ? parseRow(varietyRowSchema, r, is) : null;
 		if (!crop) continue;
 		// A crop's own figures repeat on each of its variety rows: they must agree.
@@ -111,13 +132,16 @@ function checkCrops(sheet: RawSheet, plan: ImportPlan, issues: ImportIssue[]): v
 			crops.set(key(crop.crop), { row: r.row, data: crop });
 			plan.crops.push({ row: r.row, data: crop });
 		} else {
-			for (const f of cropFields) if (first.data[f] !== crop[f]) is.at(r.row, f, `Differs from row ${first.row} for the same crop "${crop.crop}".`);
+			for (const f of cropFields)
+				if (first.data[f] !== crop[f])
+					is.at(r.row, f, `Differs from row ${first.row} for the same crop "${crop.crop}".`);
 		}
 		if (!variety) continue;
 		const vk = key(crop.crop, variety.variety);
 		if (varieties.has(vk)) is.at(r.row, 'variety', `"${crop.crop} · ${variety.variety}" appears twice.`);
 		varieties.add(vk);
-		if (variety.method === 'direct' && variety.daysInTray > 0) is.at(r.row, 'daysInTray', 'A direct-sown variety spends no days in a tray; leave it 0 or blank.');
+		if (variety.method === 'direct' && variety.daysInTray > 0)
+			is.at(r.row, 'daysInTray', 'A direct-sown variety spends no days in a tray; leave it 0 or blank.');
 		plan.varieties.push({ row: r.row, data: { ...variety, crop: crop.crop } });
 	}
 	issues.push(...is.list);
@@ -152,10 +176,12 @@ function checkPlantings(sheet: RawSheet, plan: ImportPlan, library: FarmLibrary,
 	for (const r of sheet.rows) {
 		const p = parseRow(plantingRowSchema, r, is);
 		if (!p) continue;
-		if (!varieties.has(key(p.crop, p.variety))) is.at(r.row, 'variety', `No variety "${p.variety}" of crop "${p.crop}" in the file or on this farm.`);
+		if (!varieties.has(key(p.crop, p.variety)))
+			is.at(r.row, 'variety', `No variety "${p.variety}" of crop "${p.crop}" in the file or on this farm.`);
 		if (p.bed !== null && !beds.has(key(p.bed))) is.at(r.row, 'bed', `No bed "${p.bed}" in the file or on this farm.`);
 		const order = new Issues(sheet);
-		if (p.traySowDate !== null && p.traySowDate > p.fieldDate) order.at(r.row, 'traySowDate', 'Tray sowing is after the field date.');
+		if (p.traySowDate !== null && p.traySowDate > p.fieldDate)
+			order.at(r.row, 'traySowDate', 'Tray sowing is after the field date.');
 		if (p.firstHarvest < p.fieldDate) order.at(r.row, 'firstHarvest', 'First harvest is before the field date.');
 		if (p.lastHarvest < p.firstHarvest) order.at(r.row, 'lastHarvest', 'Last harvest is before first harvest.');
 		plan.dateOrder.push(...order.list);
@@ -169,14 +195,28 @@ export type Checked = { ok: true; plan: ImportPlan } | { ok: false; issues: Impo
 /** Every row checked; the plan is returned only when nothing at all is wrong. */
 export function checkImport(sheets: Sheets, library: FarmLibrary, needsSeasonSheet: boolean): Checked {
 	const issues: ImportIssue[] = [];
-	const plan: ImportPlan = { season: null, crops: [], varieties: [], beds: [], plantings: [], dateOrder: [], named: { varieties: new Set(), beds: new Set() } };
+	const plan: ImportPlan = {
+		season: null,
+		crops: [],
+		varieties: [],
+		beds: [],
+		plantings: [],
+		dateOrder: [],
+		named: { varieties: new Set(), beds: new Set() }
+	};
 	if (sheets.season) plan.season = checkSeason(sheets.season, issues);
 	if (sheets.crops) checkCrops(sheets.crops, plan, issues);
 	if (sheets.beds) checkBeds(sheets.beds, plan, issues);
 	if (sheets.plantings) {
 		checkPlantings(sheets.plantings, plan, library, issues);
 		if (needsSeasonSheet && !sheets.season && plan.plantings.length) {
-			issues.push({ sheet: 'Season', row: null, column: null, header: null, message: 'Plantings need a season: add the "Season" sheet, or import from the season\'s Export & import page.' });
+			issues.push({
+				sheet: 'Season',
+				row: null,
+				column: null,
+				header: null,
+				message: 'Plantings need a season: add the "Season" sheet, or import from the season\'s Export & import page.'
+			});
 		}
 	}
 	return issues.length ? { ok: false, issues } : { ok: true, plan };

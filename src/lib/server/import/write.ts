@@ -31,27 +31,57 @@ export class ImportRefused extends Error {
 const lower = (s: string): string => s.trim().toLowerCase();
 
 async function idsByName(trx: Knex.Transaction, table: string, farmId: number): Promise<Map<string, number>> {
-	const rows: { id: number; name: string }[] = await trx(table).where({ farm_id: farmId }).forUpdate().select('id', 'name');
+	const rows: { id: number; name: string }[] = await trx(table)
+		.where({ farm_id: farmId })
+		.forUpdate()
+		.select('id', 'name');
 	return new Map(rows.map((r) => [lower(r.name), r.id]));
 }
 
-export async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ crops: Map<string, number>; varieties: Map<string, number> }> {
+export async function writeLibrary(
+	trx: Knex.Transaction,
+	farmId: number,
+	plan: ImportPlan
+): Promise<{ crops: Map<string, number>; varieties: Map<string, number> }> {
 	const crops = await idsByName(trx, 'crops', farmId);
 	for (const { data: c } of plan.crops) {
-		const row = { name: c.crop, family: c.family, harvest_unit: c.harvestUnit, frost_tolerance: c.frostTolerance, heat_limit_f: c.heatLimitF, base_temp_f: c.baseTempF };
+		const row = {
+			name: c.crop,
+			family: c.family,
+			harvest_unit: c.harvestUnit,
+			frost_tolerance: c.frostTolerance,
+			heat_limit_f: c.heatLimitF,
+			base_temp_f: c.baseTempF
+		};
 		const id = crops.get(lower(c.crop));
 		if (id) await trx('crops').where({ id, farm_id: farmId }).update(row);
 		else crops.set(lower(c.crop), (await trx('crops').insert({ farm_id: farmId, ...row }))[0]);
 	}
-	const existing: { id: number; name: string; crop_id: number }[] = await trx('varieties').where({ farm_id: farmId }).forUpdate().select('id', 'name', 'crop_id');
+	const existing: { id: number; name: string; crop_id: number }[] = await trx('varieties')
+		.where({ farm_id: farmId })
+		.forUpdate()
+		.select('id', 'name', 'crop_id');
 	const varieties = new Map(existing.map((v) => [`${v.crop_id}\u0000${lower(v.name)}`, v.id]));
 	for (const { data: v } of plan.varieties) {
 		const cropId = crops.get(lower(v.crop))!;
 		const row = {
-			crop_id: cropId, name: v.variety, method: v.method, days_to_maturity: v.daysToMaturity, days_in_tray: v.daysInTray,
-			harvest_window_days: v.harvestWindowDays, yield_per_bed_foot: v.yieldPerBedFoot, rows_per_bed: v.rows, in_row_spacing_in: v.inRowSpacingIn,
-			seeds_per_spot: v.seedsPerSpot, germination_rate: v.germinationRate, seeds_per_gram: v.seedsPerGram, seed_price_cents_per_gram: v.seedPrice,
-			seeds_per_packet: v.seedsPerPacket, cells_per_tray: v.cellsPerTray, margin: v.margin, gdd_to_maturity: v.gddToMaturity
+			crop_id: cropId,
+			name: v.variety,
+			method: v.method,
+			days_to_maturity: v.daysToMaturity,
+			days_in_tray: v.daysInTray,
+			harvest_window_days: v.harvestWindowDays,
+			yield_per_bed_foot: v.yieldPerBedFoot,
+			rows_per_bed: v.rows,
+			in_row_spacing_in: v.inRowSpacingIn,
+			seeds_per_spot: v.seedsPerSpot,
+			germination_rate: v.germinationRate,
+			seeds_per_gram: v.seedsPerGram,
+			seed_price_cents_per_gram: v.seedPrice,
+			seeds_per_packet: v.seedsPerPacket,
+			cells_per_tray: v.cellsPerTray,
+			margin: v.margin,
+			gdd_to_maturity: v.gddToMaturity
 		};
 		const k = `${cropId}\u0000${lower(v.variety)}`;
 		const id = varieties.get(k);
@@ -61,13 +91,18 @@ export async function writeLibrary(trx: Knex.Transaction, farmId: number, plan: 
 	return { crops, varieties };
 }
 
-export async function writeBeds(trx: Knex.Transaction, farmId: number, plan: ImportPlan): Promise<{ beds: Map<string, number>; blocks: number }> {
+export async function writeBeds(
+	trx: Knex.Transaction,
+	farmId: number,
+	plan: ImportPlan
+): Promise<{ beds: Map<string, number>; blocks: number }> {
 	const blocks = await idsByName(trx, 'blocks', farmId);
 	let newBlocks = 0;
 	for (const { data: b } of plan.beds) {
 		const id = blocks.get(lower(b.block));
 		if (id) {
-			if (b.blockPosition !== null) await trx('blocks').where({ id, farm_id: farmId }).update({ position: b.blockPosition });
+			if (b.blockPosition !== null)
+				await trx('blocks').where({ id, farm_id: farmId }).update({ position: b.blockPosition });
 			continue;
 		}
 		const position = b.blockPosition ?? blocks.size + 1;
@@ -76,7 +111,13 @@ export async function writeBeds(trx: Knex.Transaction, farmId: number, plan: Imp
 	}
 	const beds = await idsByName(trx, 'beds', farmId);
 	for (const { data: b } of plan.beds) {
-		const row = { block_id: blocks.get(lower(b.block))!, name: b.bed, length_ft: b.lengthFt, width_in: b.widthIn, position: b.position };
+		const row = {
+			block_id: blocks.get(lower(b.block))!,
+			name: b.bed,
+			length_ft: b.lengthFt,
+			width_in: b.widthIn,
+			position: b.position
+		};
 		const id = beds.get(lower(b.bed));
 		if (id) await trx('beds').where({ id, farm_id: farmId }).update(row);
 		else beds.set(lower(b.bed), (await trx('beds').insert({ farm_id: farmId, ...row }))[0]);
@@ -85,23 +126,41 @@ export async function writeBeds(trx: Knex.Transaction, farmId: number, plan: Imp
 }
 
 /** The season that receives the plantings: the one named, or the file's year (created if new). */
-async function targetSeason(trx: Knex.Transaction, farmId: number, plan: ImportPlan, seasonId: number | undefined): Promise<{ id: number; created: boolean }> {
+async function targetSeason(
+	trx: Knex.Transaction,
+	farmId: number,
+	plan: ImportPlan,
+	seasonId: number | undefined
+): Promise<{ id: number; created: boolean }> {
 	let id = seasonId;
 	let created = false;
 	if (id !== undefined && !(await trx('seasons').where({ id, farm_id: farmId }).forUpdate().first('id'))) {
 		// Checked here too, whatever the caller did: a season of another farm never takes rows.
-		throw new ImportRefused([{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }], 404);
+		throw new ImportRefused(
+			[{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }],
+			404
+		);
 	}
 	if (id === undefined) {
 		const s = plan.season!;
 		const found = await trx('seasons').where({ farm_id: farmId, year: s.year }).forUpdate().first('id');
 		if (found) id = found.id as number;
 		else {
-			id = (await trx('seasons').insert({ farm_id: farmId, year: s.year, name: s.name, starts_on: s.startsOn, ends_on: s.endsOn }))[0];
+			id = (
+				await trx('seasons').insert({
+					farm_id: farmId,
+					year: s.year,
+					name: s.name,
+					starts_on: s.startsOn,
+					ends_on: s.endsOn
+				})
+			)[0];
 			created = true;
 		}
 	}
-	const n = Number((await trx('plantings').where({ farm_id: farmId, season_id: id }).count({ n: '*' }).first())?.n ?? 0);
+	const n = Number(
+		(await trx('plantings').where({ farm_id: farmId, season_id: id }).count({ n: '*' }).first())?.n ?? 0
+	);
 	if (n > 0) {
 		throw new ImportRefused([
 			{
@@ -116,7 +175,12 @@ async function targetSeason(trx: Knex.Transaction, farmId: number, plan: ImportP
 	return { id: id!, created };
 }
 
-export async function writeImport(farmId: number, userId: string, plan: ImportPlan, seasonId: number | undefined): Promise<ImportSummary> {
+export async function writeImport(
+	farmId: number,
+	userId: string,
+	plan: ImportPlan,
+	seasonId: number | undefined
+): Promise<ImportSummary> {
 	return db().transaction(async (trx) => {
 		const library = await writeLibrary(trx, farmId, plan);
 		const bedsOut = await writeBeds(trx, farmId, plan);
@@ -136,9 +200,14 @@ export async function writeImport(farmId: number, userId: string, plan: ImportPl
 		const dateIssues: ImportIssue[] = [];
 		for (const { row, data: p } of plan.plantings) {
 			const dates: [string, string | null][] = [
-				['Tray sowing', p.traySowDate], ['Field date', p.fieldDate], ['First harvest', p.firstHarvest], ['Last harvest', p.lastHarvest],
-				['Actual tray sowing', p.actualTraySowDate], ['Actual field date', p.actualFieldDate],
-				['Actual first harvest', p.actualFirstHarvest], ['Actual last harvest', p.actualLastHarvest]
+				['Tray sowing', p.traySowDate],
+				['Field date', p.fieldDate],
+				['First harvest', p.firstHarvest],
+				['Last harvest', p.lastHarvest],
+				['Actual tray sowing', p.actualTraySowDate],
+				['Actual field date', p.actualFieldDate],
+				['Actual first harvest', p.actualFirstHarvest],
+				['Actual last harvest', p.actualLastHarvest]
 			];
 			for (const [header, v] of dates) {
 				const problem = v ? seasonDateProblem(header, v, year) : null;
@@ -152,12 +221,29 @@ export async function writeImport(farmId: number, userId: string, plan: ImportPl
 			const cropId = library.crops.get(lower(p.crop));
 			const varietyId = cropId === undefined ? undefined : library.varieties.get(`${cropId}\u0000${lower(p.variety)}`);
 			return {
-				farm_id: farmId, season_id: season.id, variety_id: varietyId!, bed_id: p.bed === null ? null : bedsOut.beds.get(lower(p.bed))!,
-				start_ft: p.startFt, length_ft: p.lengthFt, rows: p.rows, in_row_spacing_in: p.inRowSpacingIn, seeds_per_spot: p.seedsPerSpot,
-				method: p.method, tray_sow_date: p.traySowDate, field_date: p.fieldDate, first_harvest: p.firstHarvest, last_harvest: p.lastHarvest,
-				expected_yield: p.expectedYield, seeds_needed: p.seedsNeeded, status: p.status, actual_tray_sow_date: p.actualTraySowDate,
-				actual_field_date: p.actualFieldDate, actual_first_harvest: p.actualFirstHarvest, actual_last_harvest: p.actualLastHarvest,
-				notes: p.notes, updated_by: userId
+				farm_id: farmId,
+				season_id: season.id,
+				variety_id: varietyId!,
+				bed_id: p.bed === null ? null : bedsOut.beds.get(lower(p.bed))!,
+				start_ft: p.startFt,
+				length_ft: p.lengthFt,
+				rows: p.rows,
+				in_row_spacing_in: p.inRowSpacingIn,
+				seeds_per_spot: p.seedsPerSpot,
+				method: p.method,
+				tray_sow_date: p.traySowDate,
+				field_date: p.fieldDate,
+				first_harvest: p.firstHarvest,
+				last_harvest: p.lastHarvest,
+				expected_yield: p.expectedYield,
+				seeds_needed: p.seedsNeeded,
+				status: p.status,
+				actual_tray_sow_date: p.actualTraySowDate,
+				actual_field_date: p.actualFieldDate,
+				actual_first_harvest: p.actualFirstHarvest,
+				actual_last_harvest: p.actualLastHarvest,
+				notes: p.notes,
+				updated_by: userId
 			};
 		});
 		for (let i = 0; i < rows.length; i += 500) await trx('plantings').insert(rows.slice(i, i + 500));

@@ -2,7 +2,8 @@
 // supplier's label rather than replace them.
 import type { SectionKind } from './week';
 
-const treatedSeed = 'Treated seed (coloured coating): wear gloves, keep it away from food and feed, and follow the seed label and local rules.';
+const treatedSeed =
+	'Treated seed (coloured coating): wear gloves, keep it away from food and feed, and follow the seed label and local rules.';
 const foodSafety =
 	'Food safety: wash hands before harvest, use clean bins and potable water for washing, keep produce off the ground and cool it quickly, as your local food-safety rules require.';
 

@@ -17,9 +17,14 @@ function detail(kind: SheetSection['kind'], r: SheetRow): string {
 	const s = r.seed;
 	switch (kind) {
 		case 'tray_sow':
-			return s ? `${plural(s.cells, 'cell')} · ${plural(s.trays, 'tray')} of ${r.cellsPerTray} · ${s.grams} g seed` : 'seed figures missing';
+			return s
+				? `${plural(s.cells, 'cell')} · ${plural(s.trays, 'tray')} of ${r.cellsPerTray} · ${s.grams} g seed`
+				: 'seed figures missing';
 		case 'direct_sow':
-			return `${plural(r.rows, 'row')} at ${r.inRowSpacingIn} in · ${plural(r.seedsPerSpot, 'seed')} per spot` + (s ? ` · ${s.grams} g seed` : '');
+			return (
+				`${plural(r.rows, 'row')} at ${r.inRowSpacingIn} in · ${plural(r.seedsPerSpot, 'seed')} per spot` +
+				(s ? ` · ${s.grams} g seed` : '')
+			);
 		case 'transplant':
 			return (s ? `${s.plants} plants · ` : '') + `${r.rows} rows at ${r.inRowSpacingIn} in`;
 		case 'harvest': {
@@ -35,7 +40,13 @@ export interface MailBody {
 	text: string;
 }
 
-export function weekMail(sheet: WeekSheet, farmName: string, seasonName: string, link: string, sender: string): MailBody {
+export function weekMail(
+	sheet: WeekSheet,
+	farmName: string,
+	seasonName: string,
+	link: string,
+	sender: string
+): MailBody {
 	const cautions = cautionsFor(sheet.weekMeanF);
 	// The week is named once: "Crew sheets 2027-W21 (Mon 24 May – Sun 30 May)", not again on each date.
 	const day = (d: string): string => formatWeekDate(d).replace(/^W\d+ · /, '');
@@ -46,7 +57,12 @@ export function weekMail(sheet: WeekSheet, farmName: string, seasonName: string,
 		`<p>${esc(farmName)} · ${esc(seasonName)} · ${esc(formatWeekDate(sheet.monday))} to ${esc(formatWeekDate(sheet.sunday))}. Sent by ${esc(sender)}.</p>`,
 		`<p>The full sheets, with columns for the actual dates and notes, are in the attached workbook. <a href="${esc(link)}">Open the sheets in Furrowcast</a>.</p>`
 	];
-	const text: string[] = [`Crew sheets for ${sheet.week}`, `${farmName} · ${seasonName} · ${formatWeekDate(sheet.monday)} to ${formatWeekDate(sheet.sunday)}. Sent by ${sender}.`, `Open the sheets: ${link}`, ''];
+	const text: string[] = [
+		`Crew sheets for ${sheet.week}`,
+		`${farmName} · ${seasonName} · ${formatWeekDate(sheet.monday)} to ${formatWeekDate(sheet.sunday)}. Sent by ${sender}.`,
+		`Open the sheets: ${link}`,
+		''
+	];
 	for (const section of sheet.sections) {
 		html.push(`<h2 style="font-size:16px;margin-top:18px">${esc(section.title)} (${section.count})</h2>`);
 		text.push(`${section.title.toUpperCase()} (${section.count})`);
@@ -58,8 +74,12 @@ export function weekMail(sheet: WeekSheet, farmName: string, seasonName: string,
 		html.push('<ul>');
 		for (const g of section.groups) {
 			for (const r of g.rows) {
-				html.push(`<li>☐ <strong>${esc(r.crop)}</strong> · ${esc(r.variety)} — ${esc(place(r))} — ${esc(formatWeekDate(r.date))} — ${esc(detail(section.kind, r))}</li>`);
-				text.push(`  [ ] ${r.crop} · ${r.variety} — ${place(r)} — ${formatWeekDate(r.date)} — ${detail(section.kind, r)}`);
+				html.push(
+					`<li>☐ <strong>${esc(r.crop)}</strong> · ${esc(r.variety)} — ${esc(place(r))} — ${esc(formatWeekDate(r.date))} — ${esc(detail(section.kind, r))}</li>`
+				);
+				text.push(
+					`  [ ] ${r.crop} · ${r.variety} — ${place(r)} — ${formatWeekDate(r.date)} — ${detail(section.kind, r)}`
+				);
 			}
 		}
 		html.push('</ul>');

@@ -8,7 +8,10 @@ export type TaskKind = (typeof taskKinds)[number];
 const wholeId = (label: string) =>
 	z.preprocess(
 		(v) => (typeof v === 'string' && v.trim() !== '' ? Number(v) : v),
-		z.number({ error: `${label} is required.` }).int(`${label} must be a whole number.`).positive(`${label} must be positive.`)
+		z
+			.number({ error: `${label} is required.` })
+			.int(`${label} must be a whole number.`)
+			.positive(`${label} must be positive.`)
 	);
 
 export const markDoneSchema = z.object({
@@ -16,7 +19,10 @@ export const markDoneSchema = z.object({
 	kind: z.enum(taskKinds, { error: `Task must be one of ${taskKinds.join(', ')}.` }),
 	date: z.preprocess((v) => (typeof v === 'string' ? v.trim() : v), isoDate('Actual date')),
 	// The version the sheet was shown with; a stale one is refused (409), never merged.
-	version: z.preprocess((v) => (v === '' || v === undefined || v === null ? undefined : Number(v)), z.number().int('Version must be a whole number.').positive().optional()),
+	version: z.preprocess(
+		(v) => (v === '' || v === undefined || v === null ? undefined : Number(v)),
+		z.number().int('Version must be a whole number.').positive().optional()
+	),
 	note: z.preprocess(
 		(v) => (typeof v === 'string' ? (v.trim() === '' ? undefined : v.trim()) : v),
 		z.string().max(500, 'Note must be at most 500 characters.').optional()
@@ -36,9 +42,12 @@ export const sendSheetsSchema = z
 	.object({
 		team: z.preprocess((v) => v === 'on' || v === 'true' || v === true, z.boolean()),
 		extra: z.preprocess(
-			(v) => (typeof v === 'string' ? splitAddresses(v) : v ?? []),
+			(v) => (typeof v === 'string' ? splitAddresses(v) : (v ?? [])),
 			z.array(email).max(50, 'At most 50 extra addresses at once.')
 		)
 	})
-	.refine((v) => v.team || v.extra.length > 0, { message: 'Choose the crew or type at least one address.', path: ['extra'] });
+	.refine((v) => v.team || v.extra.length > 0, {
+		message: 'Choose the crew or type at least one address.',
+		path: ['extra']
+	});
 export type SendSheets = z.infer<typeof sendSheetsSchema>;

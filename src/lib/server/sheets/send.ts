@@ -36,6 +36,7 @@ export async function sendWeekSheets(input: SendInput): Promise<string[]> {
 		content: xlsx,
 		contentType: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
 	};
-	for (const address of to) await sendMail({ to: address, subject: body.subject, text: body.text, html: body.html, attachments: [attachment] });
+	for (const address of to)
+		await sendMail({ to: address, subject: body.subject, text: body.text, html: body.html, attachments: [attachment] });
 	return to;
 }

@@ -4,7 +4,8 @@ import { addDays, weekStart } from '$lib/planning';
 import { isoWeekProblem } from '$lib/schemas/common';
 import type { Season } from '../seasons';
 
-export type WeekParam = { ok: true; week: string; monday: string; sunday: string } | { ok: false; status: 400 | 404; message: string };
+export type WeekParam =
+	{ ok: true; week: string; monday: string; sunday: string } | { ok: false; status: 400 | 404; message: string };
 
 export function parseWeekParam(raw: string, season: Season): WeekParam {
 	const week = raw.toUpperCase();
@@ -18,7 +19,11 @@ export function parseWeekParam(raw: string, season: Season): WeekParam {
 	}
 	const sunday = addDays(monday, 6);
 	if (sunday < season.startsOn || monday > season.endsOn) {
-		return { ok: false, status: 404, message: `${week} is outside ${season.name} (${season.startsOn} to ${season.endsOn}).` };
+		return {
+			ok: false,
+			status: 404,
+			message: `${week} is outside ${season.name} (${season.startsOn} to ${season.endsOn}).`
+		};
 	}
 	return { ok: true, week, monday, sunday };
 }

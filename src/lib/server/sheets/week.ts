@@ -94,7 +94,11 @@ async function actualsFor(farmId: number, ids: number[]): Promise<Map<number, Ac
 }
 
 /** What the season's demand asks of each crop (by name) in one ISO week, per share size and channel. */
-export async function demandForWeek(farmId: number, seasonId: number, week: string): Promise<Map<string, DemandLine[]>> {
+export async function demandForWeek(
+	farmId: number,
+	seasonId: number,
+	week: string
+): Promise<Map<string, DemandLine[]>> {
 	const [boxes, channels] = await Promise.all([
 		db()('box_items as i')
 			.join('share_sizes as s', 's.id', 'i.share_size_id')
@@ -114,9 +118,15 @@ export async function demandForWeek(farmId: number, seasonId: number, week: stri
 	const add = (crop: string, line: DemandLine) => out.set(crop, [...(out.get(crop) ?? []), line]);
 	for (const b of boxes) {
 		const q = Number(b.quantity);
-		add(b.crop, { for: b.share, quantity: round(b.members * q, 2), unit: b.unit, detail: `${b.members} members × ${q} ${b.unit}` });
+		add(b.crop, {
+			for: b.share,
+			quantity: round(b.members * q, 2),
+			unit: b.unit,
+			detail: `${b.members} members × ${q} ${b.unit}`
+		});
 	}
-	for (const c of channels) add(c.crop, { for: c.channel === 'market' ? 'Market' : 'Restaurant', quantity: Number(c.quantity), unit: c.unit });
+	for (const c of channels)
+		add(c.crop, { for: c.channel === 'market' ? 'Market' : 'Restaurant', quantity: Number(c.quantity), unit: c.unit });
 	return out;
 }
 
@@ -139,7 +149,18 @@ function seedFor(p: PlantingView, v: VarietyView | undefined): SheetRow['seed'] 
 /** This planting's share of the week's harvest on the engine's flat harvest curve. */
 function weekHarvest(p: PlantingView, week: string): number {
 	// expected_yield is the total over the window: one "bed-foot" of that yield spreads it evenly.
-	const rows = forecast([{ crop: 'p', firstHarvest: p.firstHarvest, lastHarvest: p.lastHarvest, bedFeet: 1, yieldPerBedFoot: p.expectedYield }], []);
+	const rows = forecast(
+		[
+			{
+				crop: 'p',
+				firstHarvest: p.firstHarvest,
+				lastHarvest: p.lastHarvest,
+				bedFeet: 1,
+				yieldPerBedFoot: p.expectedYield
+			}
+		],
+		[]
+	);
 	return round(rows.find((r) => r.week === week)?.supply ?? 0, 1);
 }
 
@@ -155,7 +176,13 @@ function groupByBed(rows: SheetRow[]): SheetGroup[] {
 }
 
 /** The crew sheets of one ISO week of a season (monday..sunday), farm-scoped. */
-export async function weekSheet(farmId: number, seasonId: number, week: string, monday: string, sunday: string): Promise<WeekSheet> {
+export async function weekSheet(
+	farmId: number,
+	seasonId: number,
+	week: string,
+	monday: string,
+	sunday: string
+): Promise<WeekSheet> {
 	const [tasks, varieties, demand, normals] = await Promise.all([
 		tasksForWeek(farmId, monday, sunday),
 		listVarieties(farmId),
@@ -213,7 +240,8 @@ export async function weekSheet(farmId: number, seasonId: number, week: string, 
 	const sections: SheetSection[] = (Object.keys(titles) as SectionKind[]).map((kind) => {
 		const rows = t[kind].map((p) => row(p, kind));
 		// Trays are sown in the greenhouse, not along the beds: one group, by crop.
-		const groups = kind === 'tray_sow' ? (rows.length ? [{ label: 'Greenhouse · trays', rows }] : []) : groupByBed(rows);
+		const groups =
+			kind === 'tray_sow' ? (rows.length ? [{ label: 'Greenhouse · trays', rows }] : []) : groupByBed(rows);
 		return { kind, title: titles[kind], count: rows.length, groups };
 	});
 	return { week, monday, sunday, weekMeanF: normals[Number(week.slice(6))] ?? null, sections };

@@ -30,10 +30,21 @@ const crop: Column[] = [
 ];
 const fillIn: Column[] = [
 	{ header: 'Done (✓)', width: 9, value: () => null, fillIn: true },
-	{ header: 'Actual date', width: 13, value: (r) => excelDate(r.doneOn ?? undefined), format: 'yyyy-mm-dd', fillIn: true },
+	{
+		header: 'Actual date',
+		width: 13,
+		value: (r) => excelDate(r.doneOn ?? undefined),
+		format: 'yyyy-mm-dd',
+		fillIn: true
+	},
 	{ header: 'Notes', width: 30, value: () => null, fillIn: true }
 ];
-const planned = (label: string): Column => ({ header: label, width: 13, value: (r) => excelDate(r.date), format: 'yyyy-mm-dd' });
+const planned = (label: string): Column => ({
+	header: label,
+	width: 13,
+	value: (r) => excelDate(r.date),
+	format: 'yyyy-mm-dd'
+});
 
 const columns: Record<SheetSection['kind'], Column[]> = {
 	tray_sow: [
@@ -72,14 +83,23 @@ const columns: Record<SheetSection['kind'], Column[]> = {
 		...crop,
 		{ header: 'Expected this week', width: 17, value: (r) => r.weekQuantity ?? null, format: '0.0' },
 		{ header: 'Unit', width: 8, value: (r) => r.unit ?? null },
-		{ header: 'For (share size or channel)', width: 40, value: (r) => (r.demand ?? []).map((d) => `${d.for}: ${d.quantity} ${d.unit}`).join('; ') || 'no demand listed' },
+		{
+			header: 'For (share size or channel)',
+			width: 40,
+			value: (r) => (r.demand ?? []).map((d) => `${d.for}: ${d.quantity} ${d.unit}`).join('; ') || 'no demand listed'
+		},
 		{ header: 'Window ends', width: 13, value: (r) => excelDate(r.lastHarvest), format: 'yyyy-mm-dd' },
 		{ header: 'Picked (qty)', width: 12, value: () => null, fillIn: true },
 		...fillIn
 	]
 };
 
-const ruled: Partial<ExcelJS.Borders> = { top: { style: 'thin' }, bottom: { style: 'thin' }, left: { style: 'thin' }, right: { style: 'thin' } };
+const ruled: Partial<ExcelJS.Borders> = {
+	top: { style: 'thin' },
+	bottom: { style: 'thin' },
+	left: { style: 'thin' },
+	right: { style: 'thin' }
+};
 /** "&" starts a code in a printed page header: a literal one is doubled. */
 const headerText = (s: string): string => s.replace(/&/g, '&&');
 
@@ -105,7 +125,12 @@ export async function weekWorkbook(sheet: WeekSheet, title: string, farmName = '
 				oddFooter: `&L${headerText(section.title)} · ${sheet.week}&RPage &P of &N`
 			}
 		});
-		ws.columns = cols.map((c, i) => ({ header: c.header, key: `c${i}`, width: c.width, style: c.format ? { numFmt: c.format } : {} }));
+		ws.columns = cols.map((c, i) => ({
+			header: c.header,
+			key: `c${i}`,
+			width: c.width,
+			style: c.format ? { numFmt: c.format } : {}
+		}));
 		ws.getRow(1).font = { bold: true };
 		for (const group of section.groups) {
 			for (const r of group.rows) {

@@ -1,16 +1,34 @@
 import type { Actions, PageServerLoad } from './$types';
 import { fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/guards';
-import { chooseSeasons, chosenSeasons, createFeed, currentSeasonIds, feedStatus, revokeFeed } from '$lib/server/calendar';
+import {
+	chooseSeasons,
+	chosenSeasons,
+	createFeed,
+	currentSeasonIds,
+	feedStatus,
+	revokeFeed
+} from '$lib/server/calendar';
 import * as seasons from '$lib/server/seasons';
 import * as farms from '$lib/server/farms';
 import { todayIn } from '$lib/today';
 
 export const load = (async (event) => {
 	const { user, farm } = requireUser(event);
-	const [feed, all, chosen, info] = await Promise.all([feedStatus(farm.id, user.id), seasons.list(farm.id), chosenSeasons(farm.id, user.id), farms.get(farm.id)]);
+	const [feed, all, chosen, info] = await Promise.all([
+		feedStatus(farm.id, user.id),
+		seasons.list(farm.id),
+		chosenSeasons(farm.id, user.id),
+		farms.get(farm.id)
+	]);
 	const current = await currentSeasonIds(farm.id, todayIn(info.timeZone));
-	return { feed, role: farm.role, seasons: all.map((x) => ({ id: x.id, name: x.name, startsOn: x.startsOn, endsOn: x.endsOn })), chosen, current };
+	return {
+		feed,
+		role: farm.role,
+		seasons: all.map((x) => ({ id: x.id, name: x.name, startsOn: x.startsOn, endsOn: x.endsOn })),
+		chosen,
+		current
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -28,7 +46,10 @@ export const actions = {
 		if (!form) return fail(400, { seasonsError: 'Send the form as a form.' });
 		if (form.get('current') === 'on') await chooseSeasons(farm.id, user.id, null);
 		else {
-			const ids = form.getAll('season').map(Number).filter((n) => Number.isInteger(n) && n > 0);
+			const ids = form
+				.getAll('season')
+				.map(Number)
+				.filter((n) => Number.isInteger(n) && n > 0);
 			if (!ids.length) return fail(400, { seasonsError: 'Tick at least one season, or choose the current seasons.' });
 			await chooseSeasons(farm.id, user.id, ids);
 		}

@@ -43,7 +43,8 @@ export const actions = {
 		try {
 			id = await seasons.create(farm.id, parsed.data);
 		} catch (e) {
-			if (e instanceof seasons.SeasonInputError) return fail(e.status, { create: { errors: { [e.field]: e.message }, values } });
+			if (e instanceof seasons.SeasonInputError)
+				return fail(e.status, { create: { errors: { [e.field]: e.message }, values } });
 			throw e;
 		}
 		redirect(303, `/seasons/${id}`);
@@ -54,7 +55,7 @@ export const actions = {
 		const parsed = seasonCopySchema.safeParse(values);
 		if (!parsed.success) return fail(400, { copy: { errors: fieldErrors(parsed.error), values } });
 		const source = await seasons.get(farm.id, parsed.data.from);
-		if (!source) return fail(400, { copy: { errors: { from: 'Choose one of this farm\'s seasons.' }, values } });
+		if (!source) return fail(400, { copy: { errors: { from: "Choose one of this farm's seasons." }, values } });
 		const out = await copySeason(farm.id, source, user.id);
 		if (!out.ok) return fail(out.status, { copy: { errors: { from: out.message }, values } });
 		redirect(303, `/seasons/${out.report.season.id}`);

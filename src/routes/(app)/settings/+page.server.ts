@@ -13,7 +13,11 @@ function text(form: FormData): Record<string, string> {
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'farm.settings');
-	const [settings, blocks, bedList] = await Promise.all([farms.get(farm.id), beds.listBlocks(farm.id), beds.list(farm.id)]);
+	const [settings, blocks, bedList] = await Promise.all([
+		farms.get(farm.id),
+		beds.listBlocks(farm.id),
+		beds.list(farm.id)
+	]);
 	return { settings, blocks, beds: bedList, welcome: event.url.searchParams.has('welcome') };
 }) satisfies PageServerLoad;
 
@@ -49,7 +53,8 @@ export const actions = {
 		if (!parsed.success) return fail(400, { bed: { key, errors: fieldErrors(parsed.error), values } });
 		try {
 			if (bedId) {
-				if (!(await beds.update(farm.id, bedId, parsed.data))) return fail(404, { bed: { key, errors: { _form: 'That bed is not on this farm.' }, values } });
+				if (!(await beds.update(farm.id, bedId, parsed.data)))
+					return fail(404, { bed: { key, errors: { _form: 'That bed is not on this farm.' }, values } });
 			} else {
 				await beds.create(farm.id, parsed.data);
 			}
@@ -62,7 +67,8 @@ export const actions = {
 	deleteBed: async (event) => {
 		const { farm } = requireCan(event, 'farm.settings');
 		const id = Number((await event.request.formData()).get('id'));
-		if (!Number.isInteger(id) || !(await beds.remove(farm.id, id))) return fail(404, { bed: { key: `bed-${id}`, errors: { _form: 'That bed is not on this farm.' }, values: {} } });
+		if (!Number.isInteger(id) || !(await beds.remove(farm.id, id)))
+			return fail(404, { bed: { key: `bed-${id}`, errors: { _form: 'That bed is not on this farm.' }, values: {} } });
 		redirect(303, '/settings#beds');
 	}
 } satisfies Actions;

@@ -10,7 +10,13 @@ export const load = (async (event) => {
 	const { farm } = requireCan(event, 'farm.settings');
 	const s = await farms.get(farm.id);
 	return {
-		values: { latitude: String(s.latitude), timeZone: s.timeZone, unitSystem: s.unitSystem, lastSpringFrost: s.lastSpringFrost, firstFallFrost: s.firstFallFrost }
+		values: {
+			latitude: String(s.latitude),
+			timeZone: s.timeZone,
+			unitSystem: s.unitSystem,
+			lastSpringFrost: s.lastSpringFrost,
+			firstFallFrost: s.firstFallFrost
+		}
 	};
 }) satisfies PageServerLoad;
 

@@ -12,7 +12,15 @@ export const load = (async (event) => {
 	const { farm, user } = requireCan(event, 'team.manage');
 	const [members, invites] = await Promise.all([listMembers(farm.id), listOpenInvites(farm.id)]);
 	const q = event.url.searchParams;
-	return { members, invites, me: user.id, sent: q.get('sent'), unsent: q.get('unsent'), changed: q.get('changed'), removed: q.get('removed') };
+	return {
+		members,
+		invites,
+		me: user.id,
+		sent: q.get('sent'),
+		unsent: q.get('unsent'),
+		changed: q.get('changed'),
+		removed: q.get('removed')
+	};
 }) satisfies PageServerLoad;
 
 /** Changes a role or removes a member; the member's sessions on this farm end at once. */
@@ -26,15 +34,21 @@ async function memberAction(event: RequestEvent, remove: boolean) {
 	const who = (await listMembers(farm.id)).find((m) => m.userId === parsed.data.userId);
 	try {
 		if (!who || !(await changeMember(farm.id, parsed.data.userId, role))) {
-			return fail(404, { member: { userId, errors: <FieldErrors>{ userId: 'This person is not on the farm\'s team (any more).' } } });
+			return fail(404, {
+				member: { userId, errors: <FieldErrors>{ userId: "This person is not on the farm's team (any more)." } }
+			});
 		}
 	} catch (error) {
-		if (error instanceof LastOwnerError) return fail(409, { member: { userId, errors: <FieldErrors>{ role: error.message } } });
+		if (error instanceof LastOwnerError)
+			return fail(409, { member: { userId, errors: <FieldErrors>{ role: error.message } } });
 		throw error;
 	}
 	await endSessionsOf(parsed.data.userId, farm.id);
 	if (parsed.data.userId === user.id) redirect(303, '/signin');
-	redirect(303, remove ? `/team?removed=${encodeURIComponent(who.name)}` : `/team?changed=${encodeURIComponent(who.name)}`);
+	redirect(
+		303,
+		remove ? `/team?removed=${encodeURIComponent(who.name)}` : `/team?changed=${encodeURIComponent(who.name)}`
+	);
 }
 
 export const actions = {
@@ -46,11 +60,18 @@ export const actions = {
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		const members = await listMembers(farm.id);
 		if (members.some((m) => m.email === parsed.data.email)) {
-			return fail(400, { errors: <FieldErrors>{ email: `${parsed.data.email} is already on this farm's team.` }, values });
+			return fail(400, {
+				errors: <FieldErrors>{ email: `${parsed.data.email} is already on this farm's team.` },
+				values
+			});
 		}
 		// Committed first, mailed after: a failed mail leaves the invite listed as not sent, with Resend.
 		const invite = await createInvite(farm.id, user.id, parsed.data.email, parsed.data.role);
-		const sent = await sendInvite(farm.id, invite, { inviter: user.name, farmName: farm.name, origin: event.url.origin });
+		const sent = await sendInvite(farm.id, invite, {
+			inviter: user.name,
+			farmName: farm.name,
+			origin: event.url.origin
+		});
 		redirect(303, `/team?${sent ? 'sent' : 'unsent'}=${encodeURIComponent(parsed.data.email)}`);
 	},
 	resend: async (event) => {
@@ -58,8 +79,16 @@ export const actions = {
 		const parsed = inviteIdSchema.safeParse(Object.fromEntries(await event.request.formData()));
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values: { email: '', role: '' } });
 		const invite = await renewInvite(farm.id, parsed.data.id);
-		if (!invite) return fail(404, { errors: <FieldErrors>{ _form: 'That invite is no longer open.' }, values: { email: '', role: '' } });
-		const sent = await sendInvite(farm.id, invite, { inviter: user.name, farmName: farm.name, origin: event.url.origin });
+		if (!invite)
+			return fail(404, {
+				errors: <FieldErrors>{ _form: 'That invite is no longer open.' },
+				values: { email: '', role: '' }
+			});
+		const sent = await sendInvite(farm.id, invite, {
+			inviter: user.name,
+			farmName: farm.name,
+			origin: event.url.origin
+		});
 		redirect(303, `/team?${sent ? 'sent' : 'unsent'}=${encodeURIComponent(invite.email)}`);
 	},
 	revoke: async (event) => {

@@ -16,12 +16,18 @@ export const actions = {
 		const wait = await forgotAddressWait(clientAddress(event));
 		if (wait > 0) {
 			event.setHeaders({ 'retry-after': String(Math.ceil(wait / 1000)) });
-			return fail(429, { errors: { email: `Too many reset requests from your network address. Wait ${waitInWords(wait)}, then try again.` }, values });
+			return fail(429, {
+				errors: {
+					email: `Too many reset requests from your network address. Wait ${waitInWords(wait)}, then try again.`
+				},
+				values
+			});
 		}
 		// Per account: counted for every address alike, and a spent count only means no more mail for now.
 		// The look-up and the mail happen after the answer, so the answer and its timing are the same
 		// whether or not an account uses the address, and whether or not the mail server is up.
-		if (await forgotAccountAllowed(parsed.data.email)) afterResponse('password reset mail', () => mailPasswordReset(parsed.data.email, event.url.origin));
+		if (await forgotAccountAllowed(parsed.data.email))
+			afterResponse('password reset mail', () => mailPasswordReset(parsed.data.email, event.url.origin));
 		return { sent: true, values };
 	}
 } satisfies Actions;

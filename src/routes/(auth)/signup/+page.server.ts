@@ -23,7 +23,12 @@ export const actions = {
 		const wait = await signUpAddressWait(clientAddress(event));
 		if (wait > 0) {
 			event.setHeaders({ 'retry-after': String(Math.ceil(wait / 1000)) });
-			return fail(429, { errors: <FieldErrors>{ _form: `Too many new farms from your network address. Wait ${waitInWords(wait)}, then try again.` }, values });
+			return fail(429, {
+				errors: <FieldErrors>{
+					_form: `Too many new farms from your network address. Wait ${waitInWords(wait)}, then try again.`
+				},
+				values
+			});
 		}
 		try {
 			const { userId, farmId } = await signUp(parsed.data);

@@ -9,14 +9,14 @@ import { cropFormValues, textValues } from '$lib/library-form';
 
 function cropId(event: RequestEvent): number {
 	const id = Number(event.params.cropId);
-	if (!Number.isInteger(id) || id < 1) error(404, 'No such crop in this farm\'s library.');
+	if (!Number.isInteger(id) || id < 1) error(404, "No such crop in this farm's library.");
 	return id;
 }
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const crop = await getCrop(farm.id, cropId(event));
-	if (!crop) error(404, 'No such crop in this farm\'s library.');
+	if (!crop) error(404, "No such crop in this farm's library.");
 	return { crop, values: cropFormValues(crop), canEdit: can(farm.role, 'library.edit') };
 }) satisfies PageServerLoad;
 
@@ -25,12 +25,13 @@ export const actions = {
 		const { farm } = requireCan(event, 'library.edit');
 		const id = cropId(event);
 		// Another farm's crop is "not found" before anything about the form is said.
-		if (!(await getCrop(farm.id, id))) error(404, 'No such crop in this farm\'s library.');
+		if (!(await getCrop(farm.id, id))) error(404, "No such crop in this farm's library.");
 		const values = textValues(await event.request.formData());
 		const parsed = cropSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		try {
-			if (!(await updateCrop(farm.id, id, parsed.data as CropInput))) error(404, 'No such crop in this farm\'s library.');
+			if (!(await updateCrop(farm.id, id, parsed.data as CropInput)))
+				error(404, "No such crop in this farm's library.");
 		} catch (e) {
 			if (e instanceof LibraryInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
 			throw e;
@@ -39,12 +40,12 @@ export const actions = {
 	},
 	archive: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');
-		if (!(await setCropArchived(farm.id, cropId(event), true))) error(404, 'No such crop in this farm\'s library.');
+		if (!(await setCropArchived(farm.id, cropId(event), true))) error(404, "No such crop in this farm's library.");
 		redirect(303, `/crops/${cropId(event)}`);
 	},
 	restore: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');
-		if (!(await setCropArchived(farm.id, cropId(event), false))) error(404, 'No such crop in this farm\'s library.');
+		if (!(await setCropArchived(farm.id, cropId(event), false))) error(404, "No such crop in this farm's library.");
 		redirect(303, `/crops/${cropId(event)}`);
 	}
 } satisfies Actions;

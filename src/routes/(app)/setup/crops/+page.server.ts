@@ -16,7 +16,12 @@ export const load = (async (event) => {
 			harvestUnit: c.harvestUnit,
 			frostTolerance: c.frostTolerance,
 			inLibrary: have.has(c.name.toLowerCase()),
-			varieties: c.varieties.map((v) => ({ name: v.name, method: v.method, daysToMaturity: v.daysToMaturity, source: v.source }))
+			varieties: c.varieties.map((v) => ({
+				name: v.name,
+				method: v.method,
+				daysToMaturity: v.daysToMaturity,
+				source: v.source
+			}))
 		}))
 	};
 }) satisfies PageServerLoad;
@@ -26,7 +31,8 @@ export const actions = {
 		const { farm } = requireCan(event, 'library.edit');
 		const keys = (await event.request.formData()).getAll('crop').map(String);
 		if (keys.length === 0) return fail(400, { errors: { crop: 'Tick at least one crop, or skip this step.' } });
-		if (keys.length > starterCrops.length) return fail(400, { errors: { crop: 'The same crop is listed more than once.' } });
+		if (keys.length > starterCrops.length)
+			return fail(400, { errors: { crop: 'The same crop is listed more than once.' } });
 		const picked: StarterCrop[] = [];
 		for (const k of new Set(keys)) {
 			const c = starterCrop(k);

@@ -10,13 +10,20 @@ export const load = (async ({ params }) => {
 	const found = await findInvite(params.token);
 	if (!found.ok) return { problem: found.reason, invite: null };
 	const { farmName, email, role, expiresAt, accountExists } = found.invite;
-	return { problem: null, invite: { farmName, email, role, roleLabel: roleLabels[role], expiresAt: expiresAt.toISOString(), accountExists } };
+	return {
+		problem: null,
+		invite: { farmName, email, role, roleLabel: roleLabels[role], expiresAt: expiresAt.toISOString(), accountExists }
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {
 	default: async ({ request, params, cookies, url }) => {
 		const found = await findInvite(params.token);
-		if (!found.ok) return fail(400, { errors: { _form: found.reason } as Record<string, string>, values: {} as Record<string, string> });
+		if (!found.ok)
+			return fail(400, {
+				errors: { _form: found.reason } as Record<string, string>,
+				values: {} as Record<string, string>
+			});
 		const form = Object.fromEntries(await request.formData());
 		const values = { name: String(form.name ?? '') };
 		const parsed = (found.invite.accountExists ? acceptInviteExistingSchema : acceptInviteSchema).safeParse(form);

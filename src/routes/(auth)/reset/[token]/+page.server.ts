@@ -13,7 +13,13 @@ export const actions = {
 		const parsed = resetSchema.safeParse(Object.fromEntries(await request.formData()));
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error) });
 		const userId = await completePasswordReset(params.token, parsed.data.password);
-		if (!userId) return fail(400, { errors: { _form: 'This reset link has expired or was already used. Ask for a new one.' } as Record<string, string> });
+		if (!userId)
+			return fail(400, {
+				errors: { _form: 'This reset link has expired or was already used. Ask for a new one.' } as Record<
+					string,
+					string
+				>
+			});
 		redirect(303, '/signin?reset=1');
 	}
 } satisfies Actions;

@@ -26,9 +26,23 @@ export const PATCH: RequestHandler = async (event) => {
 			error(404, 'No such planting on this farm.');
 		// falls through never: error() throws
 		case 'forbidden':
-			return json({ message: `A crew lead may change only ${recordFieldsInWords}; not ${r.fields.join(', ')}.`, fields: r.fields }, { status: 403 });
+			return json(
+				{
+					message: `A crew lead may change only ${recordFieldsInWords}; not ${r.fields.join(', ')}.`,
+					fields: r.fields
+				},
+				{ status: 403 }
+			);
 		case 'invalid':
-			return json({ message: `Invalid input: ${Object.entries(r.errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: r.errors }, { status: 400 });
+			return json(
+				{
+					message: `Invalid input: ${Object.entries(r.errors)
+						.map(([k, v]) => `${k}: ${v}`)
+						.join('; ')}`,
+					errors: r.errors
+				},
+				{ status: 400 }
+			);
 		case 'conflict':
 			return json(
 				{
@@ -46,6 +60,10 @@ export const DELETE: RequestHandler = async (event) => {
 	const { farm } = requireCan(event, 'plan.edit');
 	const removed = await remove(farm.id, plantingId(event.params.id));
 	if (!removed) error(404, 'No such planting on this farm.');
-	if (removed === 'has_harvests') return json({ message: 'This planting has harvests logged; mark it finished or failed instead of removing it.' }, { status: 409 });
+	if (removed === 'has_harvests')
+		return json(
+			{ message: 'This planting has harvests logged; mark it finished or failed instead of removing it.' },
+			{ status: 409 }
+		);
 	return new Response(null, { status: 204 });
 };

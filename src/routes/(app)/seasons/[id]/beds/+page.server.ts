@@ -26,7 +26,9 @@ export const load = (async (event) => {
 	let free: { answer: FreeSpaceAnswer; errors?: undefined } | { errors: FieldErrors; answer?: undefined } | null = null;
 	if (sp.has('from') || sp.has('to')) {
 		const parsed = freeSpaceQuerySchema.safeParse({ ...values, block: blockId ?? undefined });
-		free = parsed.success ? { answer: await freeSpaceFor(farm.id, parsed.data) } : { errors: fieldErrors(parsed.error) };
+		free = parsed.success
+			? { answer: await freeSpaceFor(farm.id, parsed.data) }
+			: { errors: fieldErrors(parsed.error) };
 	}
 	return { timeline, blockId: timeline.blocks.some((b) => b.id === blockId) ? blockId : null, values, free };
 }) satisfies PageServerLoad;

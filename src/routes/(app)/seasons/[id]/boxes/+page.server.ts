@@ -12,7 +12,12 @@ export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
 	const [boxes, freshness] = await Promise.all([matching(farm.id, season), planFreshness(farm.id, season.id)]);
-	return { matching: boxes, freshness, canSwap: can(farm.role, 'boxes.swap'), canSetShort: can(farm.role, 'boxes.settings') };
+	return {
+		matching: boxes,
+		freshness,
+		canSwap: can(farm.role, 'boxes.swap'),
+		canSetShort: can(farm.role, 'boxes.settings')
+	};
 }) satisfies PageServerLoad;
 
 // Back to the same view (filter kept) after a swap or an undo.
@@ -32,7 +37,9 @@ export const actions = {
 	shortFill: async (event) => {
 		const { farm } = requireCan(event, 'boxes.settings');
 		await seasonFromParams(farm.id, event.params.id);
-		const values = Object.fromEntries([...(await event.request.formData())].map(([k, v]) => [k, String(v).slice(0, 100)]));
+		const values = Object.fromEntries(
+			[...(await event.request.formData())].map(([k, v]) => [k, String(v).slice(0, 100)])
+		);
 		const parsed = shortFillSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { shortFill: { errors: fieldErrors(parsed.error), values } });
 		await setShortFill(farm.id, parsed.data.shortFillPct);

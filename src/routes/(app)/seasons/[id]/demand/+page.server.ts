@@ -23,12 +23,18 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 /** Runs a write and turns a refusal into fail(status, { [key]: { errors, values } }). */
-async function attempt(key: string, values: Record<string, unknown>, work: () => Promise<unknown>, mapErrors = (e: Record<string, string>) => e) {
+async function attempt(
+	key: string,
+	values: Record<string, unknown>,
+	work: () => Promise<unknown>,
+	mapErrors = (e: Record<string, string>) => e
+) {
 	try {
 		await work();
 		return null;
 	} catch (e) {
-		if (e instanceof demand.DemandInputError) return fail(e.status === 409 ? 400 : e.status, { [key]: { errors: mapErrors(e.errors), values } });
+		if (e instanceof demand.DemandInputError)
+			return fail(e.status === 409 ? 400 : e.status, { [key]: { errors: mapErrors(e.errors), values } });
 		throw e;
 	}
 }
@@ -39,13 +45,16 @@ async function editing(event: RequestEvent) {
 	return { farm, season, form: await event.request.formData() };
 }
 
-const back = (event: RequestEvent, grid?: string): string => `/seasons/${event.params.id}/demand${grid ? `?grid=${encodeURIComponent(grid)}` : ''}`;
+const back = (event: RequestEvent, grid?: string): string =>
+	`/seasons/${event.params.id}/demand${grid ? `?grid=${encodeURIComponent(grid)}` : ''}`;
 
 export const actions = {
 	addShare: async (event) => {
 		const { farm, season, form } = await editing(event);
 		const values = shareFields(form);
-		const failed = await attempt('share', { ...values, key: 'new' }, () => demand.createShareSize(farm.id, season, values));
+		const failed = await attempt('share', { ...values, key: 'new' }, () =>
+			demand.createShareSize(farm.id, season, values)
+		);
 		if (failed) return failed;
 		redirect(303, back(event));
 	},
@@ -54,22 +63,37 @@ export const actions = {
 		const id = Number(form.get('id'));
 		const values = shareFields(form);
 		let found = true;
-		const failed = await attempt('share', { ...values, key: String(id) }, async () => (found = (await demand.updateShareSize(farm.id, season, id, values)) !== null));
+		const failed = await attempt(
+			'share',
+			{ ...values, key: String(id) },
+			async () => (found = (await demand.updateShareSize(farm.id, season, id, values)) !== null)
+		);
 		if (failed) return failed;
-		if (!found) return fail(404, { share: { errors: { _form: 'No such share size in this season.' }, values: { ...values, key: String(id) } } });
+		if (!found)
+			return fail(404, {
+				share: { errors: { _form: 'No such share size in this season.' }, values: { ...values, key: String(id) } }
+			});
 		redirect(303, back(event));
 	},
 	deleteShare: async (event) => {
 		const { farm, season, form } = await editing(event);
 		const id = Number(form.get('id'));
-		if (!Number.isInteger(id) || !(await demand.removeShareSize(farm.id, season.id, id))) return fail(404, { share: { errors: { _form: 'No such share size in this season.' }, values: { key: String(id) } } });
+		if (!Number.isInteger(id) || !(await demand.removeShareSize(farm.id, season.id, id)))
+			return fail(404, {
+				share: { errors: { _form: 'No such share size in this season.' }, values: { key: String(id) } }
+			});
 		redirect(303, back(event));
 	},
 	saveGrid: async (event) => {
 		const { farm, season, form } = await editing(event);
 		const crops = await demand.listCrops(farm.id);
 		const { body, names } = gridFields(form, new Map(crops.map((c) => [c.id, c.unit])));
-		const failed = await attempt('grid', text(form), () => demand.saveCells(farm.id, season, body), (e) => cellErrorsToInputs(e, names));
+		const failed = await attempt(
+			'grid',
+			text(form),
+			() => demand.saveCells(farm.id, season, body),
+			(e) => cellErrorsToInputs(e, names)
+		);
 		if (failed) return failed;
 		redirect(303, back(event, body.grid));
 	},
@@ -77,7 +101,9 @@ export const actions = {
 		const { farm, season, form } = await editing(event);
 		const values = text(form);
 		const { grid = '', fromWeek = '', toFirst = '', toLast = '' } = values;
-		const failed = await attempt('copy', values, () => demand.copyWeek(farm.id, season, { grid, fromWeek, toFirst, toLast }));
+		const failed = await attempt('copy', values, () =>
+			demand.copyWeek(farm.id, season, { grid, fromWeek, toFirst, toLast })
+		);
 		if (failed) return failed;
 		redirect(303, back(event, grid));
 	},

@@ -69,8 +69,18 @@ export function gridCrops(demand: PageDemand, grid: Grid): PageCrop[] {
 /** The engine's input: crops and share sizes by id, as the server's targetInput gives them. */
 export function engineInput(demand: PageDemand): TargetInput {
 	return {
-		shareSizes: demand.shareSizes.map((s) => ({ id: String(s.id), members: s.members, firstWeek: s.firstWeek, lastWeek: s.lastWeek })),
-		boxItems: demand.boxItems.map((b) => ({ shareSizeId: String(b.shareSizeId), week: b.week, crop: String(b.cropId), quantity: b.quantity })),
+		shareSizes: demand.shareSizes.map((s) => ({
+			id: String(s.id),
+			members: s.members,
+			firstWeek: s.firstWeek,
+			lastWeek: s.lastWeek
+		})),
+		boxItems: demand.boxItems.map((b) => ({
+			shareSizeId: String(b.shareSizeId),
+			week: b.week,
+			crop: String(b.cropId),
+			quantity: b.quantity
+		})),
 		channelDemand: demand.channelDemand.map((c) => ({ crop: String(c.cropId), week: c.week, quantity: c.quantity }))
 	};
 }
@@ -85,32 +95,49 @@ export function typed(text: string): number | null {
 
 /** The demand with a grid's unsaved edits ("cropId|week" → typed text) laid over it; junk is ignored. */
 export function withEdits(demand: PageDemand, grid: Grid, edits: Record<string, string>): PageDemand {
-	const entries = Object.entries(edits).map(([k, v]) => {
-		const [crop, week] = k.split('|');
-		return { cropId: Number(crop), week, q: typed(v) };
-	}).filter((e) => !Number.isNaN(e.q) && e.cropId > 0);
+	const entries = Object.entries(edits)
+		.map(([k, v]) => {
+			const [crop, week] = k.split('|');
+			return { cropId: Number(crop), week, q: typed(v) };
+		})
+		.filter((e) => !Number.isNaN(e.q) && e.cropId > 0);
 	if (!entries.length) return demand;
 	const hit = (cropId: number, week: string): boolean => entries.some((e) => e.cropId === cropId && e.week === week);
 	const set = entries.filter((e) => e.q !== null && e.q > 0);
 	if (grid.startsWith('share:')) {
 		const id = Number(grid.slice(6));
 		const kept = demand.boxItems.filter((b) => b.shareSizeId !== id || !hit(b.cropId, b.week));
-		return { ...demand, boxItems: [...kept, ...set.map((e) => ({ shareSizeId: id, week: e.week, cropId: e.cropId, quantity: e.q as number }))] };
+		return {
+			...demand,
+			boxItems: [
+				...kept,
+				...set.map((e) => ({ shareSizeId: id, week: e.week, cropId: e.cropId, quantity: e.q as number }))
+			]
+		};
 	}
 	const kept = demand.channelDemand.filter((c) => c.channel !== grid || !hit(c.cropId, c.week));
-	return { ...demand, channelDemand: [...kept, ...set.map((e) => ({ channel: grid, week: e.week, cropId: e.cropId, quantity: e.q as number }))] };
+	return {
+		...demand,
+		channelDemand: [
+			...kept,
+			...set.map((e) => ({ channel: grid, week: e.week, cropId: e.cropId, quantity: e.q as number }))
+		]
+	};
 }
 
 /** How one target was reached, in words the page can show: share names and channel names. */
 export function explainCell(demand: PageDemand, input: TargetInput, cropId: number, week: string): ExplainStep[] {
 	const steps = explainTargets(input, String(cropId), week);
 	// explainTargets lists box items, then channel rows, in input order: name them the same way.
-	const channelNames = demand.channelDemand.filter((c) => c.cropId === cropId && c.week === week).map((c) => (c.channel === 'market' ? 'Market stand' : 'Restaurants'));
+	const channelNames = demand.channelDemand
+		.filter((c) => c.cropId === cropId && c.week === week)
+		.map((c) => (c.channel === 'market' ? 'Market stand' : 'Restaurants'));
 	const shareName = new Map(demand.shareSizes.map((s) => [String(s.id), s.name]));
 	let ch = 0;
 	return steps.map((s, i) => {
 		if (i === steps.length - 1) return { ...s, label: 'Target' };
-		if (s.label === 'other channels') return { ...s, label: channelNames[ch++] ?? 'Other channel', formula: 'weekly quantity' };
+		if (s.label === 'other channels')
+			return { ...s, label: channelNames[ch++] ?? 'Other channel', formula: 'weekly quantity' };
 		const id = s.label.replace(/ shares$/, '').replace(/ box \(not distributing.*$/, '');
 		const name = shareName.get(id) ?? id;
 		return { ...s, label: s.label.endsWith(' shares') ? name : `${name} (not distributing this week)` };

@@ -20,7 +20,10 @@ export function shareFields(form: FormData): Record<string, unknown> {
  * and the add-a-crop row `newCrop` with `n.<week>` inputs. Returns the cells for the schema and,
  * per cell index, the input name to hang an error on.
  */
-export function gridFields(form: FormData, unitOf: Map<number, string>): { body: { grid: string; cells: Record<string, unknown>[] }; names: string[] } {
+export function gridFields(
+	form: FormData,
+	unitOf: Map<number, string>
+): { body: { grid: string; cells: Record<string, unknown>[] }; names: string[] } {
 	const values = text(form);
 	const cells: Record<string, unknown>[] = [];
 	const names: string[] = [];
@@ -28,7 +31,13 @@ export function gridFields(form: FormData, unitOf: Map<number, string>): { body:
 		const m = /^q\.(\d+)\.(\d{4}-W\d{2})$/.exec(k);
 		if (!m) continue;
 		const was = values[`was.${m[1]}.${m[2]}`];
-		cells.push({ crop: m[1], week: m[2], quantity: v, unit: values[`u.${m[1]}`] ?? '', ...(was === undefined ? {} : { was }) });
+		cells.push({
+			crop: m[1],
+			week: m[2],
+			quantity: v,
+			unit: values[`u.${m[1]}`] ?? '',
+			...(was === undefined ? {} : { was })
+		});
 		names.push(k);
 	}
 	const newCrop = Number(values.newCrop);

@@ -29,7 +29,15 @@ export function rowsFromSeries(body: SeriesResponse): ForecastResponse {
 			if (supply === null) continue;
 			const demand = s.demand[i];
 			// The engine's own arithmetic, so the figures match the rows shape exactly.
-			rows.push({ crop: s.crop, week: body.weeks[i], supply, demand, shortfall: Math.max(0, demand - supply), surplus: Math.max(0, supply - demand), actual: actual.has(i) });
+			rows.push({
+				crop: s.crop,
+				week: body.weeks[i],
+				supply,
+				demand,
+				shortfall: Math.max(0, demand - supply),
+				surplus: Math.max(0, supply - demand),
+				actual: actual.has(i)
+			});
 		}
 	}
 	return { from: body.from, to: body.to, weeks: body.weeks, currentWeek: body.currentWeek, crops: body.crops, rows };
@@ -64,7 +72,9 @@ export class ForecastData {
 		const seq = ++this.#seq;
 		this.loading = true;
 		try {
-			const res = await fetch(`/api/seasons/${this.#seasonId}/forecast?${params}`, { headers: { accept: 'application/json' } });
+			const res = await fetch(`/api/seasons/${this.#seasonId}/forecast?${params}`, {
+				headers: { accept: 'application/json' }
+			});
 			const body = await res.json();
 			if (seq !== this.#seq) return; // a newer request is on its way
 			if (!res.ok) {

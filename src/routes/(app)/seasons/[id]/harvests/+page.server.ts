@@ -70,7 +70,10 @@ export const actions = {
 		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const id = Number((await event.request.formData()).get('id'));
-		if (!Number.isInteger(id) || !(await harvests.remove(farm.id, season.id, id, user.id))) return fail(404, { edit: { key: `edit-${id}`, errors: { _form: 'No such harvest record in this season.' }, values: {} } });
+		if (!Number.isInteger(id) || !(await harvests.remove(farm.id, season.id, id, user.id)))
+			return fail(404, {
+				edit: { key: `edit-${id}`, errors: { _form: 'No such harvest record in this season.' }, values: {} }
+			});
 		redirect(303, `/seasons/${season.id}/harvests?deleted=${id}`);
 	}
 } satisfies Actions;

@@ -3,7 +3,11 @@
 import { harvestSchema, type HarvestInput } from '$lib/schemas/harvest';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 
-export function sheetRows(values: Record<string, string>): { records: HarvestInput[]; rowOf: number[]; errors: FieldErrors } {
+export function sheetRows(values: Record<string, string>): {
+	records: HarvestInput[];
+	rowOf: number[];
+	errors: FieldErrors;
+} {
 	const rows = new Set<number>();
 	for (const k of Object.keys(values)) {
 		const m = /^rows\.(\d+)\./.exec(k);
@@ -25,13 +29,15 @@ export function sheetRows(values: Record<string, string>): { records: HarvestInp
 			harvestedBy: values.harvestedBy ?? ''
 		});
 		if (!parsed.success) {
-			for (const [f, msg] of Object.entries(fieldErrors(parsed.error))) errors[f === 'harvestedOn' || f === 'harvestedBy' ? f : `rows.${n}.${f}`] = msg;
+			for (const [f, msg] of Object.entries(fieldErrors(parsed.error)))
+				errors[f === 'harvestedOn' || f === 'harvestedBy' ? f : `rows.${n}.${f}`] = msg;
 			continue;
 		}
 		records.push(parsed.data);
 		rowOf.push(n);
 	}
-	if (rows.size > 0 && records.length === 0 && Object.keys(errors).length === 0) errors._form = 'Enter at least one row: a planting and a quantity.';
+	if (rows.size > 0 && records.length === 0 && Object.keys(errors).length === 0)
+		errors._form = 'Enter at least one row: a planting and a quantity.';
 	return { records, rowOf, errors };
 }
 

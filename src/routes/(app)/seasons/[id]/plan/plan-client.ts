@@ -84,12 +84,22 @@ export interface PlanState {
 }
 
 /** POSTs JSON; answers the parsed body with the status, a network failure as status 0. */
-export async function send<T>(url: string, body?: unknown): Promise<{ status: number; body: T & { message?: string } }> {
+export async function send<T>(
+	url: string,
+	body?: unknown
+): Promise<{ status: number; body: T & { message?: string } }> {
 	try {
-		const res = await fetch(url, { method: 'POST', headers: { 'content-type': 'application/json' }, body: body === undefined ? undefined : JSON.stringify(body) });
+		const res = await fetch(url, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json' },
+			body: body === undefined ? undefined : JSON.stringify(body)
+		});
 		const parsed = await res.json().catch(() => ({ message: `The server answered ${res.status}.` }));
 		return { status: res.status, body: parsed };
 	} catch {
-		return { status: 0, body: { message: 'No answer from the server: check the connection and try again.' } as T & { message: string } };
+		return {
+			status: 0,
+			body: { message: 'No answer from the server: check the connection and try again.' } as T & { message: string }
+		};
 	}
 }

@@ -11,7 +11,11 @@ import { fieldErrors } from '$lib/schemas/common';
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { ...(await actuals.seasonActuals(farm.id, season.id)), canAdopt: can(farm.role, 'varieties.adopt'), canCopy: can(farm.role, 'season.copy') };
+	return {
+		...(await actuals.seasonActuals(farm.id, season.id)),
+		canAdopt: can(farm.role, 'varieties.adopt'),
+		canCopy: can(farm.role, 'season.copy')
+	};
 }) satisfies PageServerLoad;
 
 function text(form: FormData): Record<string, string> {

@@ -2,12 +2,23 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
-import { applyAction, importAction, importedSummary, updatedSummary, requireOwnerForUpload } from '$lib/server/import/action';
+import {
+	applyAction,
+	importAction,
+	importedSummary,
+	updatedSummary,
+	requireOwnerForUpload
+} from '$lib/server/import/action';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { season, canImport: can(farm.role, 'season.import'), imported: importedSummary(event.url), updated: updatedSummary(event.url) };
+	return {
+		season,
+		canImport: can(farm.role, 'season.import'),
+		imported: importedSummary(event.url),
+		updated: updatedSummary(event.url)
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {

@@ -11,5 +11,10 @@ export const GET: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const [view, input] = await Promise.all([getDemand(farm.id, season.id), targetInput(farm.id, season.id)]);
 	const { targets, notes } = deriveTargetsWithNotes(input);
-	return json({ season, ...view, targets: targets.map((t) => ({ ...t, crop: Number(t.crop) })), notes: notes.map((n) => n.message) });
+	return json({
+		season,
+		...view,
+		targets: targets.map((t) => ({ ...t, crop: Number(t.crop) })),
+		notes: notes.map((n) => n.message)
+	});
 };

@@ -11,7 +11,15 @@ import { fieldErrors } from '$lib/schemas/common';
 import { weeksBetween } from '$lib/planning';
 
 function bad(errors: Record<string, string>): Response {
-	return json({ message: `Invalid query: ${Object.entries(errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors }, { status: 400 });
+	return json(
+		{
+			message: `Invalid query: ${Object.entries(errors)
+				.map(([k, v]) => `${k}: ${v}`)
+				.join('; ')}`,
+			errors
+		},
+		{ status: 400 }
+	);
 }
 
 export const GET: RequestHandler = async (event) => {
@@ -26,7 +34,11 @@ export const GET: RequestHandler = async (event) => {
 	const f = await seasonForecast(farm.id, season);
 	const from = parsed.data.from ?? f.weeks[0];
 	const to = parsed.data.to ?? f.weeks[f.weeks.length - 1];
-	if (from > to) return bad({ [parsed.data.from ? 'from' : 'to']: `the range ${from}–${to} is empty; the season runs ${f.weeks[0]}–${f.weeks[f.weeks.length - 1]}.` });
+	if (from > to)
+		return bad({
+			[parsed.data.from ? 'from' : 'to']:
+				`the range ${from}–${to} is empty; the season runs ${f.weeks[0]}–${f.weeks[f.weeks.length - 1]}.`
+		});
 	const weeks = weeksBetween(from, to);
 	if (weeks.length > MAX_FORECAST_WEEKS) return bad({ to: `at most ${MAX_FORECAST_WEEKS} weeks at once.` });
 
@@ -40,7 +52,14 @@ export const GET: RequestHandler = async (event) => {
 	const chosen = new Set(asked ?? inRange.filter((r) => r.supply > 0 || r.demand > 0).map((r) => r.crop));
 	const serverTiming = `db;dur=${f.timing.db.toFixed(1)}, engine;dur=${f.timing.engine.toFixed(1)}`;
 	const rows = inRange.filter((r) => chosen.has(r.crop));
-	const head = { season: { id: season.id, name: season.name }, from, to, weeks, currentWeek: f.currentWeek, crops: f.crops.filter((c) => chosen.has(c.id)) };
+	const head = {
+		season: { id: season.id, name: season.name },
+		from,
+		to,
+		weeks,
+		currentWeek: f.currentWeek,
+		crops: f.crops.filter((c) => chosen.has(c.id))
+	};
 	const body = parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
 	return json(body, { headers: { 'server-timing': serverTiming } });
 };

@@ -13,7 +13,15 @@ export const GET: RequestHandler = async (event) => {
 	const parsed = freeSpaceQuerySchema.safeParse(Object.fromEntries(event.url.searchParams));
 	if (!parsed.success) {
 		const errors = fieldErrors(parsed.error);
-		return json({ message: `Invalid query: ${Object.entries(errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors }, { status: 400 });
+		return json(
+			{
+				message: `Invalid query: ${Object.entries(errors)
+					.map(([k, v]) => `${k}: ${v}`)
+					.join('; ')}`,
+				errors
+			},
+			{ status: 400 }
+		);
 	}
 	return json({ season: { id: season.id, name: season.name }, ...(await freeSpaceFor(farm.id, parsed.data)) });
 };

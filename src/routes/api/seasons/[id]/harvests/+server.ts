@@ -11,7 +11,10 @@ export const GET = (async (event) => {
 	const { farm } = requireUser(event);
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const today = await harvests.farmToday(farm.id);
-	const [records, plantings] = await Promise.all([harvests.list(farm.id, season.id), harvests.plantingOptions(farm.id, season.id, today)]);
+	const [records, plantings] = await Promise.all([
+		harvests.list(farm.id, season.id),
+		harvests.plantingOptions(farm.id, season.id, today)
+	]);
 	return json({ today, harvests: records, plantings });
 }) satisfies RequestHandler;
 
@@ -25,12 +28,14 @@ export const POST = (async (event) => {
 		const parsed = await parseBody(event, harvestBatchSchema);
 		if (!parsed.ok) return parsed.response;
 		const out = await harvests.create(farm.id, season.id, user.id, parsed.data.records, true);
-		if (!out.ok) return json({ message: 'Nothing was saved: fix the rows named.', errors: out.errors }, { status: out.status });
+		if (!out.ok)
+			return json({ message: 'Nothing was saved: fix the rows named.', errors: out.errors }, { status: out.status });
 		return json({ harvests: out.value }, { status: 201 });
 	}
 	const parsed = await parseBody(event, harvestSchema);
 	if (!parsed.ok) return parsed.response;
 	const out = await harvests.create(farm.id, season.id, user.id, [parsed.data]);
-	if (!out.ok) return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
+	if (!out.ok)
+		return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
 	return json({ harvest: out.value[0] }, { status: 201 });
 }) satisfies RequestHandler;

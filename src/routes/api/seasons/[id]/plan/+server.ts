@@ -12,6 +12,10 @@ import { planFreshness } from '$lib/server/seasons';
 export const GET: RequestHandler = async (event) => {
 	const { farm } = requireCan(event, 'plan.read');
 	const season = await seasonFromParams(farm.id, event.params.id);
-	const [fingerprint, freshness, last] = await Promise.all([planFingerprint(farm.id, season.id), planFreshness(farm.id, season.id), lastApply(farm.id, season.id)]);
+	const [fingerprint, freshness, last] = await Promise.all([
+		planFingerprint(farm.id, season.id),
+		planFreshness(farm.id, season.id),
+		lastApply(farm.id, season.id)
+	]);
 	return json({ fingerprint, ...freshness, lastApply: last });
 };

@@ -13,7 +13,9 @@ export const GET: RequestHandler = async (event) => {
 	const [plantings, context] = await Promise.all([seasonPlantingsJson(farm.id, season.id), gridContext(farm.id)]);
 	// The plantings array comes as JSON text from the database (plantings-json.ts); the rest is small.
 	const rest = JSON.stringify({ season, ...context, role: farm.role, editable: editableFields(farm.role) });
-	return new Response(`{"plantings":${plantings},${rest.slice(1)}`, { headers: { 'content-type': 'application/json' } });
+	return new Response(`{"plantings":${plantings},${rest.slice(1)}`, {
+		headers: { 'content-type': 'application/json' }
+	});
 };
 
 /** New rows: `{ plantings: [...] }`, one or a whole paste; all are written or none. */
@@ -23,6 +25,15 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, plantingBatchSchema);
 	if (!body.ok) return body.response;
 	const result = await create(farm.id, season.id, user.id, body.data.plantings);
-	if (!result.ok) return json({ message: `Invalid input: ${Object.entries(result.errors).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: result.errors }, { status: 400 });
+	if (!result.ok)
+		return json(
+			{
+				message: `Invalid input: ${Object.entries(result.errors)
+					.map(([k, v]) => `${k}: ${v}`)
+					.join('; ')}`,
+				errors: result.errors
+			},
+			{ status: 400 }
+		);
 	return json({ plantings: result.plantings }, { status: 201 });
 };

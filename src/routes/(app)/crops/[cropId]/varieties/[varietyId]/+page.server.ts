@@ -9,7 +9,7 @@ import { fieldErrors } from '$lib/schemas/common';
 import { textValues, varietyFormValues } from '$lib/library-form';
 import { plural } from '$lib/plural';
 
-const missing = 'No such variety in this farm\'s library.';
+const missing = "No such variety in this farm's library.";
 
 /** The crop and variety named in the URL, both of this farm, or a 404. */
 async function lookup(event: RequestEvent, farmId: number) {

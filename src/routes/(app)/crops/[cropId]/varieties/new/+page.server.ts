@@ -9,14 +9,18 @@ import { newVarietyValues, textValues } from '$lib/library-form';
 async function cropOf(farmId: number, raw: string) {
 	const id = Number(raw);
 	const crop = Number.isInteger(id) && id > 0 ? await getCrop(farmId, id) : null;
-	if (!crop) error(404, 'No such crop in this farm\'s library.');
+	if (!crop) error(404, "No such crop in this farm's library.");
 	return crop;
 }
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'library.edit');
 	const crop = await cropOf(farm.id, event.params.cropId);
-	return { crop: { id: crop.id, name: crop.name, harvestUnit: crop.harvestUnit }, values: newVarietyValues, created: event.url.searchParams.has('created') };
+	return {
+		crop: { id: crop.id, name: crop.name, harvestUnit: crop.harvestUnit },
+		values: newVarietyValues,
+		created: event.url.searchParams.has('created')
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {

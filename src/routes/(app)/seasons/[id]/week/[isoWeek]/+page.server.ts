@@ -48,7 +48,9 @@ export const actions = {
 		const result = await markTaskDone(farm.id, ctx.season.id, user.id, parsed.data, todayIn(settings.timeZone));
 		if (!result.ok) {
 			if (result.code === 404) error(404, result.message);
-			return fail(result.code, { done: { plantingId, errors: <FieldErrors>{ [result.field ?? '_form']: result.message } } });
+			return fail(result.code, {
+				done: { plantingId, errors: <FieldErrors>{ [result.field ?? '_form']: result.message } }
+			});
 		}
 		redirect(303, event.url.pathname);
 	},
@@ -60,7 +62,10 @@ export const actions = {
 		const parsed = sendSheetsSchema.safeParse({ team: form.get('team') ?? '', extra: values.extra });
 		if (!parsed.success) return fail(400, { email: { errors: addressErrors(parsed.error, values.extra), values } });
 		const recipients = [...(parsed.data.team ? await crewAddresses(farm.id) : []), ...parsed.data.extra];
-		const [settings, sheet] = await Promise.all([farms.get(farm.id), weekSheet(farm.id, ctx.season.id, ctx.week, ctx.monday, ctx.sunday)]);
+		const [settings, sheet] = await Promise.all([
+			farms.get(farm.id),
+			weekSheet(farm.id, ctx.season.id, ctx.week, ctx.monday, ctx.sunday)
+		]);
 		const sent = await sendWeekSheets({
 			sheet,
 			farmName: settings.name,

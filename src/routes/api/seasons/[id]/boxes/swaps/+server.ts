@@ -15,7 +15,9 @@ export const POST: RequestHandler = async (event) => {
 	if (!body.ok) return body.response;
 	const result = await createSwap(farm.id, season.id, user.id, body.data);
 	if (!result.ok) {
-		const message = Object.entries(result.errors).map(([k, v]) => `${k}: ${v}`).join('; ');
+		const message = Object.entries(result.errors)
+			.map(([k, v]) => `${k}: ${v}`)
+			.join('; ');
 		return json({ message: `Invalid swap: ${message}`, errors: result.errors }, { status: 400 });
 	}
 	return json({ id: result.id, ...body.data }, { status: 201 });

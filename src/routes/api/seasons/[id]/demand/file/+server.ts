@@ -14,8 +14,14 @@ export const GET: RequestHandler = async (event) => {
 	const rows = demandRows(await getDemand(farm.id, season.id));
 	const name = `demand-${season.year}.${format}`;
 	const disposition = `attachment; filename="${name}"`;
-	if (format === 'csv') return new Response(toCsv(rows), { headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': disposition } });
+	if (format === 'csv')
+		return new Response(toCsv(rows), {
+			headers: { 'content-type': 'text/csv; charset=utf-8', 'content-disposition': disposition }
+		});
 	return new Response(new Uint8Array(await toXlsx(rows)), {
-		headers: { 'content-type': 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', 'content-disposition': disposition }
+		headers: {
+			'content-type': 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+			'content-disposition': disposition
+		}
 	});
 };

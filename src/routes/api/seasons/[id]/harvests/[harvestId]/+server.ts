@@ -28,13 +28,15 @@ export const PATCH = (async (event) => {
 	const parsed = await parseBody(event, harvestPatchSchema);
 	if (!parsed.ok) return parsed.response;
 	const out = await harvests.update(farm.id, season.id, id, user.id, parsed.data);
-	if (!out.ok) return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
+	if (!out.ok)
+		return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
 	return json({ harvest: out.value });
 }) satisfies RequestHandler;
 
 export const DELETE = (async (event) => {
 	const { farm, user } = requireCan(event, 'harvests.log');
 	const season = await seasonFromParams(farm.id, event.params.id);
-	if (!(await harvests.remove(farm.id, season.id, idOf(event.params.harvestId), user.id))) error(404, 'No such harvest record in this season.');
+	if (!(await harvests.remove(farm.id, season.id, idOf(event.params.harvestId), user.id)))
+		error(404, 'No such harvest record in this season.');
 	return new Response(null, { status: 204 });
 }) satisfies RequestHandler;

@@ -17,13 +17,23 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, applyRequestSchema);
 	if (!body.ok) return body.response;
 	const wrong = await varietyPlanErrors(farm.id, body.data.varietyPlan);
-	if (wrong) return json({ message: `Invalid input: ${Object.entries(wrong).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: wrong }, { status: 400 });
+	if (wrong)
+		return json(
+			{
+				message: `Invalid input: ${Object.entries(wrong)
+					.map(([k, v]) => `${k}: ${v}`)
+					.join('; ')}`,
+				errors: wrong
+			},
+			{ status: 400 }
+		);
 	const { fingerprint, ...request } = body.data;
 	try {
 		const { preview, ...changes } = await apply(farm.id, season, user.id, request, fingerprint);
 		return json({ season, ...changes, warnings: preview.plan.warnings, shortfall: preview.plan.shortfall });
 	} catch (e) {
-		if (e instanceof PlanConflictError) return json({ message: e.message, reason: e.reason, errors: { fingerprint: e.message } }, { status: 409 });
+		if (e instanceof PlanConflictError)
+			return json({ message: e.message, reason: e.reason, errors: { fingerprint: e.message } }, { status: 409 });
 		throw e;
 	}
 };

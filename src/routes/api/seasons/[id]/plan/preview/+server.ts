@@ -18,10 +18,27 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;
 	const wrong = await varietyPlanErrors(farm.id, body.data.varietyPlan);
-	if (wrong) return json({ message: `Invalid input: ${Object.entries(wrong).map(([k, v]) => `${k}: ${v}`).join('; ')}`, errors: wrong }, { status: 400 });
+	if (wrong)
+		return json(
+			{
+				message: `Invalid input: ${Object.entries(wrong)
+					.map(([k, v]) => `${k}: ${v}`)
+					.join('; ')}`,
+				errors: wrong
+			},
+			{ status: 400 }
+		);
 	// Taken before the run: if anything moves meanwhile, the apply from this preview is refused.
 	const fingerprint = await planFingerprint(farm.id, season.id);
 	const result = await preview(farm.id, season, body.data);
 	const changes = await describePreview(farm.id, season, result);
-	return json({ season, kept: result.kept, replaced: result.replaced, ...result.plan, names: result.names, fingerprint, changes });
+	return json({
+		season,
+		kept: result.kept,
+		replaced: result.replaced,
+		...result.plan,
+		names: result.names,
+		fingerprint,
+		changes
+	});
 };

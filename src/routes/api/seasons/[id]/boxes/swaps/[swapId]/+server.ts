@@ -10,7 +10,8 @@ export const DELETE: RequestHandler = async (event) => {
 	const { farm, user } = requireCan(event, 'boxes.swap');
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const swapId = Number(event.params.swapId);
-	const result = Number.isInteger(swapId) && swapId > 0 ? await undoSwap(farm.id, season.id, swapId, user.id) : 'missing';
+	const result =
+		Number.isInteger(swapId) && swapId > 0 ? await undoSwap(farm.id, season.id, swapId, user.id) : 'missing';
 	if (result === 'missing') error(404, 'No such swap in this season.');
 	if (result === 'already_undone') error(409, 'This swap is already undone.');
 	return new Response(null, { status: 204 });

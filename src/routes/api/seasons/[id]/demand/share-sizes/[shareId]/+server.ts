@@ -30,6 +30,7 @@ export const PUT: RequestHandler = async (event) => {
 export const DELETE: RequestHandler = async (event) => {
 	const { farm } = requireCan(event, 'demand.edit');
 	const season = await seasonFromParams(farm.id, event.params.id);
-	if (!(await removeShareSize(farm.id, season.id, shareId(event.params.shareId)))) error(404, 'No such share size in this season.');
+	if (!(await removeShareSize(farm.id, season.id, shareId(event.params.shareId))))
+		error(404, 'No such share size in this season.');
 	return new Response(null, { status: 204 });
 };
