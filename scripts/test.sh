@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: type-check, then unit, integration (real MariaDB) and browser (headless Chromium)
+# npm test: lint and type-check, then unit, integration (real MariaDB) and browser (headless Chromium)
 # tests against a separate test database, a test mail fake and a test app server.
 set -euo pipefail
 source "$(dirname "$0")/env.sh"
@@ -10,8 +10,10 @@ ensure_node_modules
 ensure_chromium
 ensure_libreoffice
 
-# FC_SKIP_CHECK=1 skips the type-check for a quick local re-run of a few tests; CI never sets it.
+# FC_SKIP_CHECK=1 skips lint and the type-check for a quick local re-run of a few tests; CI never sets it.
 if [ "${FC_SKIP_CHECK:-}" != 1 ]; then
+	say "lint (prettier, eslint)"
+	npm run --silent lint
 	say "svelte-check"
 	npm run --silent check
 fi
