@@ -85,15 +85,13 @@ describe('printing the sheets', () => {
 		await signIn(page, 'crew@demo.furrowcast.test', 'demo-harvest-2027');
 		await page.goto(`/seasons/${demoSeason}/week/2027-W34`);
 		await page.emulateMedia({ media: 'print' });
-		const counts = await page
-			.locator('[data-testid^="section-"]')
-			.evaluateAll((els) =>
-				els.map((el) => ({
-					kind: el.getAttribute('data-testid')!.slice(8),
-					title: el.querySelector('h2')!.textContent!.split('·')[0].trim(),
-					empty: el.classList.contains('empty')
-				}))
-			);
+		const counts = await page.locator('[data-testid^="section-"]').evaluateAll((els) =>
+			els.map((el) => ({
+				kind: el.getAttribute('data-testid')!.slice(8),
+				title: el.querySelector('h2')!.textContent!.split('·')[0].trim(),
+				empty: el.classList.contains('empty')
+			}))
+		);
 		const pdf = await page.pdf({ format: 'Letter' });
 		await page.close();
 		await browser.context.clearCookies();

@@ -35,15 +35,13 @@ beforeAll(async () => {
 afterAll(async () => {
 	// Put the demo rows back as they were, for whoever reads this database next.
 	for (const r of restore)
-		await testDb()('plantings')
-			.where({ id: r.id })
-			.update({
-				bed_id: r.bed_id,
-				start_ft: r.start_ft,
-				length_ft: r.length_ft,
-				field_date: r.field_date,
-				last_harvest: r.last_harvest
-			});
+		await testDb()('plantings').where({ id: r.id }).update({
+			bed_id: r.bed_id,
+			start_ft: r.start_ft,
+			length_ft: r.length_ft,
+			field_date: r.field_date,
+			last_harvest: r.last_harvest
+		});
 	await browser.close();
 	await closeTestDb();
 });
@@ -82,15 +80,13 @@ describe('conflicts arranged in the test database', () => {
 		const [a, b, c] = [placed[0], placed[1], placed[2]];
 		restore.push(b, c);
 		// b takes a's bed, feet and dates: the same ground at the same time.
-		await testDb()('plantings')
-			.where({ id: b.id })
-			.update({
-				bed_id: a.bed_id,
-				start_ft: a.start_ft,
-				length_ft: a.length_ft,
-				field_date: a.field_date,
-				last_harvest: a.last_harvest
-			});
+		await testDb()('plantings').where({ id: b.id }).update({
+			bed_id: a.bed_id,
+			start_ft: a.start_ft,
+			length_ft: a.length_ft,
+			field_date: a.field_date,
+			last_harvest: a.last_harvest
+		});
 		// c runs from 95 ft to 115 ft of a 100 ft demo bed (DEMO_BED_LENGTH_FT).
 		const bed = await testDb()('beds').where({ id: c.bed_id }).first('length_ft');
 		await testDb()('plantings')

@@ -300,9 +300,7 @@ export async function planOf(farmId: number, seasonId: number): Promise<Record<s
 	return out.sort((a, b) => JSON.stringify(a).localeCompare(JSON.stringify(b)));
 }
 
-export async function libraryOf(
-	farmId: number
-): Promise<{
+export async function libraryOf(farmId: number): Promise<{
 	varieties: Record<string, unknown>[];
 	beds: Record<string, unknown>[];
 	crops: Record<string, unknown>[];
