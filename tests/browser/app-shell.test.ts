@@ -65,7 +65,7 @@ describe('invite by e-mail', () => {
 		await signIn(page, demo.owner, demo.password);
 		await page.goto('/team');
 		await page.getByLabel('E-mail').fill(email);
-		await page.getByLabel('Role').selectOption('crew_lead');
+		await page.locator('#field-role').selectOption('crew_lead');
 		await page.getByRole('button', { name: 'Send invite' }).click();
 		await expect(page.getByRole('status').innerText()).resolves.toContain(`Invite sent to ${email}`);
 

@@ -23,6 +23,18 @@ describe('concurrent imports into one farm', () => {
 		const farm = await signUpFarm('import-race');
 		const answers = await Promise.all([0, 1, 2].map(() => upload(farm.client, 'plan.xlsx', workbook)));
 		const statuses = answers.map((r) => r.status);
+		console.log(
+			'import-race',
+			statuses,
+			await Promise.all(
+				answers.map((r) =>
+					r
+						.clone()
+						.text()
+						.then((t) => t.slice(0, 300))
+				)
+			)
+		);
 		for (const s of statuses) expect([201, 400, 409], statuses.join(',')).toContain(s);
 		expect(statuses.filter((s) => s === 201)).toHaveLength(1);
 		expect(await count('plantings', { farm_id: farm.farmId })).toBe(await count('plantings', { season_id: seasonId }));
