@@ -8,7 +8,7 @@ import { checkImport, type FarmLibrary } from './validate';
 import { ImportRefused, writeImport, type ImportSummary } from './write';
 import { db } from '../db';
 import * as seasons from '../seasons';
-import { datesOutside, previewSeasonUpdate, type PreviewSummary } from './season-update';
+import { datesOutside, deriveNewPlantings, previewSeasonUpdate, type PreviewSummary } from './season-update';
 
 export type { PreviewSummary };
 
@@ -93,7 +93,7 @@ export async function importUpload(
 	if (!read.ok) return refuse(read.status ?? 400, read.issues);
 	const checked = checkImport(read.sheets, await farmLibrary(farmId), options.seasonId === undefined);
 	if (!checked.ok) return refuse(400, checked.issues);
-	const plan = checked.plan;
+	let plan = checked.plan;
 	if (plan.plantings.length) {
 		const letters = read.sheets.plantings?.letters ?? {};
 		const season =
@@ -111,13 +111,16 @@ export async function importUpload(
 			const preview = await previewSeasonUpdate(farmId, userId, season, plan, letters);
 			return preview.ok ? { ok: true, preview: preview.preview } : refuse(400, preview.issues);
 		}
-		if (plan.dateOrder.length) return refuse(400, plan.dateOrder);
+		// Into a season without plantings: every row worked out again, as a grid edit would be.
+		const derived = await deriveNewPlantings(farmId, plan, letters);
+		if (!derived.ok) return refuse(400, derived.issues);
+		plan = derived.plan;
 	}
 	// Two imports into one farm at once can deadlock on its library rows: MariaDB rolls one back,
 	// which is retried once; a second deadlock answers 409 (nothing of it was written).
 	for (let attempt = 1; ; attempt++) {
 		try {
-			return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
+			return { ok: true, summary: await writeImport(farmId, userId, plan, options.seasonId) };
 		} catch (err) {
 			if (err instanceof ImportRefused) return refuse(err.status, err.issues);
 			if (isDeadlock(err) && attempt === 1) {
