@@ -9,7 +9,7 @@ import type { VarietyView } from '$lib/types';
 import { db } from '../db';
 import { listVarieties } from '../crops';
 import { gridContext } from '../plantings';
-import type { Season } from '../seasons';
+import { lockSeason, type Season } from '../seasons';
 import { plantingsSheet } from '../export/layout';
 import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type WantedPlanting } from './season-diff';
 import type { ImportPlan } from './validate';
@@ -250,6 +250,9 @@ export async function applySeasonUpdate(farmId: number, userId: string, token: s
 		};
 	}
 	const out = await db().transaction(async (trx): Promise<ApplyOutcome> => {
+		// The season first, as every writer of its plantings (plan apply, a harvest logged) takes it.
+		if (!(await lockSeason(trx, farmId, p.season.id)))
+			return { ok: false, status: 404, message: 'That season is no longer on this farm.' };
 		const now = await seasonPlantings(trx, farmId, p.season.id, true);
 		const fingerprint = now
 			.map((x) => `${x.id}:${x.version}`)
