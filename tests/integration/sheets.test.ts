@@ -48,14 +48,31 @@ describe('the sheet of a week', () => {
 		expect(page).toMatch(/Food safety.*local food-safety rules/);
 		expect(page).toMatch(/Heat: .*cool hours.*water and shade/);
 	});
-	it('/week redirects to the current ISO week of the farm clock, within the season', async () => {
+	it('/week redirects to the current ISO week of the farm clock, within the season, or the next week with work', async () => {
 		const res = await f.crew.get(`/seasons/${f.seasonId}/week`);
 		expect(res.status).toBe(307);
 		const today = ofFarmToday('America/Chicago');
 		// The fixture season is 2027; before it starts, the sheets open on its first week: 2027-01-01 is a
 		// Friday, so it belongs to ISO week 2026-W53 (ISO 8601; REFERENCES.md "ISO weeks on the 2026/27 edge").
-		if (today < '2027-01-01') expect(res.headers.get('location')).toBe(`/seasons/${f.seasonId}/week/2026-W53`);
-		else expect(res.headers.get('location')).toMatch(new RegExp(`^/seasons/${f.seasonId}/week/\\d{4}-W\\d{2}$`));
+		// That week has no work, so they open on the next week that has some, saying so: the fixture's
+		// first task is a field date on Mon 15 Mar 2027, ISO week 2027-W11 (4 Jan is W01's Monday; + 70 days).
+		if (today < '2027-01-01') {
+			const to = res.headers.get('location');
+			expect(to).toBe(`/seasons/${f.seasonId}/week/2027-W11?quiet=2026-W53`);
+			const page = (await html(await f.crew.get(to!))).replace(/\s+/g, ' ');
+			expect(page).toContain('Nothing to sow, plant or harvest in 2026-W53: this is the next week with work.');
+			expect(page).toContain('Crew sheets · 2027-W11');
+		} else expect(res.headers.get('location')).toMatch(new RegExp(`^/seasons/${f.seasonId}/week/\\d{4}-W\\d{2}`));
+	});
+	it('"This week" links to the week\'s crew sheets and harvest log, and to the next work when the week is empty', async () => {
+		const page = (await html(await f.crew.get('/?week=2027-W21'))).replace(/\s+/g, ' ');
+		expect(page).toContain(`href="/seasons/${f.seasonId}/week/2027-W21"`);
+		expect(page).toContain(`href="/seasons/${f.seasonId}/harvests"`);
+		// A winter week before the season: nothing to do, so it points at the first week with work
+		// (field date Mon 15 Mar 2027, ISO 2027-W11, as above).
+		const winter = (await html(await f.crew.get('/?week=2026-W49'))).replace(/\s+/g, ' ');
+		expect(winter).toContain('Nothing to sow, plant or harvest this week. Next work:');
+		expect(winter).toContain(`href="/seasons/${f.seasonId}/week/2027-W11"`);
 	});
 	it('answers 400 for a malformed or non-existent week and 404 for a week outside the season', async () => {
 		for (const bad of ['2027-21', 'week-21', '2027-W54', '2027-W53', '2027-W00']) {

@@ -14,6 +14,8 @@ import { markDoneSchema, sendSheetsSchema, splitAddresses } from '$lib/server/sh
 import type { z } from 'zod';
 import { markTaskDone } from '$lib/server/tasks';
 
+const quietWeek = (v: string | null): string | null => (v && /^\d{4}-W\d{2}$/.test(v) ? v : null);
+
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
@@ -32,7 +34,9 @@ export const load = (async (event) => {
 		today: todayIn(settings.timeZone),
 		previousWeek: addWeeks(ctx.week, -1),
 		nextWeek: addWeeks(ctx.week, 1),
-		sent: event.url.searchParams.get('sent')
+		sent: event.url.searchParams.get('sent'),
+		/** The week the crew lead asked for had no tasks: this is the next one that has some. */
+		quietWeek: quietWeek(event.url.searchParams.get('quiet'))
 	};
 }) satisfies PageServerLoad;
 
