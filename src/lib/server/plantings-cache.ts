@@ -167,8 +167,8 @@ export async function cachedAnswer(
 	const headers: Record<string, string> = {
 		'content-type': 'application/json',
 		etag: entry.etag,
-		// Kept by the browser, but asked about again every time: a write elsewhere shows at once.
-		'cache-control': 'private, no-cache',
+		// No Cache-Control of its own: hooks.server.ts makes it no-store, so a farm's data stays off the
+		// disk of a shared computer. The ETag serves clients that keep their own copy.
 		vary: 'Accept-Encoding'
 	};
 	const ifNoneMatch = request.headers.get('if-none-match');
@@ -178,5 +178,12 @@ export async function cachedAnswer(
 	const bytes = encoding === 'identity' ? entry.body : await encode(entry, key, encoding);
 	if (encoding !== 'identity') headers['content-encoding'] = encoding;
 	headers['content-length'] = String(bytes.length);
-	return new Response(new Uint8Array(bytes.buffer as ArrayBuffer, bytes.byteOffset, bytes.length), { headers });
+	// A stream of the kept bytes themselves: a Response made from the bytes would copy them first.
+	const body = new ReadableStream<Uint8Array>({
+		start(controller) {
+			controller.enqueue(bytes);
+			controller.close();
+		}
+	});
+	return new Response(body, { headers });
 }

@@ -11,16 +11,20 @@ import { editableFields, plantingBatchSchema } from '$lib/schemas/planting';
 // Kept ready in memory until the season's data changes (plantings-cache.ts), with an ETag.
 export const GET: RequestHandler = async (event) => {
 	const { farm } = requireUser(event);
-	const season = await seasonFromParams(farm.id, event.params.id);
-	return cachedAnswer(event.request, farm.id, season.id, farm.role, async () => {
-		// Everything read again here, after the stamp: the season too.
-		const [again, plantings, context] = await Promise.all([
+	const id = Number(event.params.id);
+	// Not an id at all: the same 404 as for a season of another farm, without asking the cache.
+	if (!(Number.isSafeInteger(id) && id > 0)) await seasonFromParams(farm.id, event.params.id);
+	// An answer is kept only once seasonFromParams below has found the season on this farm, and the
+	// stamp covers the farm's seasons: while it holds, the season is still this farm's.
+	return cachedAnswer(event.request, farm.id, id, farm.role, async () => {
+		// Everything read here, after the stamp (the season too): a 404 for another farm's season.
+		const [season, plantings, context] = await Promise.all([
 			seasonFromParams(farm.id, event.params.id),
-			seasonPlantingsJson(farm.id, season.id),
+			seasonPlantingsJson(farm.id, id),
 			gridContext(farm.id)
 		]);
 		// The plantings array comes as JSON text from the database (plantings-json.ts); the rest is small.
-		const rest = JSON.stringify({ season: again, ...context, role: farm.role, editable: editableFields(farm.role) });
+		const rest = JSON.stringify({ season, ...context, role: farm.role, editable: editableFields(farm.role) });
 		return `{"plantings":${plantings},${rest.slice(1)}`;
 	});
 };
