@@ -44,13 +44,22 @@ describe('farm settings', () => {
 		expect(farm.bed_foot_increment).toBe(10);
 	});
 
+	it('saves the date style, and a form without one keeps it', async () => {
+		expect((await owner.postForm('/settings?/farm', { ...farmFields, dateLocale: 'de-DE' })).status).toBe(200);
+		expect((await testDb()('farms').where({ id: farmId }).first('date_locale')).date_locale).toBe('de-DE');
+		expect((await owner.postForm('/settings?/farm', farmFields)).status).toBe(200);
+		expect((await testDb()('farms').where({ id: farmId }).first('date_locale')).date_locale).toBe('de-DE');
+	});
+
 	const bad: [Record<string, string>, string, string][] = [
 		[{ name: '' }, 'name', 'Farm name is required.'],
 		[{ timeZone: 'Mars/Olympus' }, 'timeZone', 'Time zone must be an IANA name'],
 		[{ latitude: '91' }, 'latitude', 'Latitude must be at most 66.'],
 		[{ firstFallFrost: '2027-04-01' }, 'firstFallFrost', 'First fall frost must come after the last spring frost.'],
 		[{ bedFootIncrement: '2.5' }, 'bedFootIncrement', 'Bed-foot increment must be a whole number.'],
-		[{ name: '<b>bold</b>' }, 'name', 'Farm name may not contain']
+		[{ name: '<b>bold</b>' }, 'name', 'Farm name may not contain'],
+		[{ dateLocale: 'en_US; drop' }, 'dateLocale', 'Date style must be a locale tag'],
+		[{ dateLocale: 'x'.repeat(40) }, 'dateLocale', 'Date style must be a locale tag']
 	];
 	for (const [change, field, message] of bad) {
 		it(`names ${field} for ${JSON.stringify(change)} and keeps the farm as it was`, async () => {

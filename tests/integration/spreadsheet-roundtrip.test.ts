@@ -21,7 +21,18 @@ let farm: NewFarm;
 let seasonId: number;
 let exported: string;
 /** Row numbers and ids in the exported Plantings sheet, found by reading it. */
-let editRow: { row: number; id: number; lengthFt: number; seeds: number; yield: number; crop: string; variety: string };
+let editRow: {
+	row: number;
+	id: number;
+	lengthFt: number;
+	seeds: number;
+	yield: number;
+	crop: string;
+	variety: string;
+	bed: string | null;
+	startFt: number;
+	fieldDate: string;
+};
 let notesRow: { row: number; id: number };
 let deleted: { row: number; id: number };
 let plantingCount: number;
@@ -66,6 +77,9 @@ beforeAll(async () => {
 		crop: string;
 		variety: string;
 		method: string;
+		bed: string | null;
+		startFt: number;
+		fieldDate: string;
 	}[] = [];
 	ws.eachRow((r, n) => {
 		if (n === 1) return;
@@ -77,7 +91,10 @@ beforeAll(async () => {
 			yield: Number(r.getCell(col('Expected yield')).value),
 			crop: String(r.getCell(col('Crop')).value),
 			variety: String(r.getCell(col('Variety')).value),
-			method: String(r.getCell(col('Method')).value)
+			method: String(r.getCell(col('Method')).value),
+			bed: r.getCell(col('Bed')).value ? String(r.getCell(col('Bed')).value) : null,
+			startFt: Number(r.getCell(col('Start (ft)')).value),
+			fieldDate: (r.getCell(col('Field date')).value as Date).toISOString().slice(0, 10)
 		});
 	});
 	// A direct-sown planting of at least 30 ft whose seeds need a thousands separator when shown.
@@ -250,6 +267,49 @@ describe('updating a season from its own edited export', () => {
 		expect(Number(p.expected_yield)).toBeCloseTo(editRow.yield * ratio, 1);
 		expect(Math.abs(p.seeds_needed - editRow.seeds * ratio)).toBeLessThan(editRow.seeds * 0.01 + 5);
 		expect((await testDb()('plantings').where({ id: notesRow.id }).first()).notes).toBe('Edited in a spreadsheet');
+	});
+});
+
+describe('the edited export into an empty season (a new farm): nothing kept stale, nothing doubled', () => {
+	it("an edited length works out seeds and yield again instead of keeping the file's figures", async () => {
+		const target = await signUpFarm('lo-empty');
+		const res = await upload(target.client, 'edited.xlsx', readFileSync(file('edited.xlsx')));
+		expect(res.status, await res.clone().text()).toBe(201);
+		expect((await res.json()).plantings).toBe(plantingCount - 1);
+		const p = await testDb()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.leftJoin('beds as b', 'b.id', 'p.bed_id')
+			.where({ 'p.farm_id': target.farmId, 'v.name': editRow.variety, 'p.field_date': editRow.fieldDate })
+			.where({ 'p.start_ft': editRow.startFt })
+			.modify((q) => (editRow.bed ? q.where('b.name', editRow.bed) : q.whereNull('p.bed_id')))
+			.first('p.*');
+		expect(Number(p.length_ft)).toBe(editRow.lengthFt - 5);
+		// Same rule as the season update above. Source: the export's own Plantings figures before the
+		// edit, common practice (no published source).
+		const ratio = (editRow.lengthFt - 5) / editRow.lengthFt;
+		expect(Number(p.expected_yield)).toBeCloseTo(editRow.yield * ratio, 1);
+		expect(Math.abs(p.seeds_needed - editRow.seeds * ratio)).toBeLessThan(editRow.seeds * 0.01 + 5);
+	});
+
+	it('a row pasted twice is refused, naming both rows, and nothing is written', async () => {
+		const target = await signUpFarm('lo-empty-twice');
+		const res = await upload(target.client, 'pasted-twice.xlsx', readFileSync(file('pasted-twice.xlsx')));
+		expect(res.status).toBe(400);
+		const body = await res.json();
+		expect(body.errors).toEqual([
+			expect.objectContaining({
+				sheet: 'Plantings',
+				row: plantingCount + 2,
+				message: expect.stringMatching(/repeats row 2 exactly/)
+			}),
+			expect.objectContaining({
+				sheet: 'Plantings',
+				row: plantingCount + 3,
+				message: expect.stringMatching(/repeats row 2 exactly/)
+			})
+		]);
+		for (const t of ['crops', 'varieties', 'beds', 'seasons', 'plantings'])
+			expect(await testDb()(t).where({ farm_id: target.farmId }).count({ n: '*' }).first(), t).toEqual({ n: 0 });
 	});
 });
 

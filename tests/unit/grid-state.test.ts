@@ -300,6 +300,32 @@ describe('paste', () => {
 		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
 		expect(g.paste('6/24/2026').bad[0].message).toMatch(/not a real date when read as day\/month\/year/);
 	});
+	it("reads pasted dates the farm's way (its date style), not the browser's", () => {
+		// Source: Intl.DateTimeFormat (CLDR): de-DE writes day.month.year.
+		const api = new FakeApi();
+		const g = new GridState(
+			{
+				plantings: [planting(1)],
+				varieties: [carrot, lettuce],
+				beds: [{ id: 10, name: 'B1', blockId: 1, blockName: 'North', lengthFt: 100 }],
+				farm: {
+					lastSpringFrost: '2026-05-10',
+					firstFallFrost: '2026-10-05',
+					latitude: 42,
+					turnaroundDays: 7,
+					bedFootIncrement: 5
+				},
+				role: 'owner',
+				seasonId: 1,
+				dateLocale: 'de-DE'
+			},
+			api,
+			{ debounceMs: 0 }
+		);
+		g.moveTo(0, col(g, 'fieldDate'));
+		expect(g.paste('24.6.2026').bad).toEqual([]);
+		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');
+	});
 	it("a new row's bad bed stays empty and a bad date leaves the row out: never the previous row's values", () => {
 		const { g } = grid();
 		// The last row is in bed B1: the pasted row below it must not take that bed.

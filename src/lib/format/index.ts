@@ -13,9 +13,16 @@ export interface DisplayPrefs {
 	currency: string;
 	/** IANA zone, e.g. America/New_York. */
 	timeZone: string;
+	/** BCP 47 tag for how the farm writes numeric dates (en-US 6/24/2028, en-GB 24/06/2028). */
+	dateLocale: string;
 }
 
-export const defaultPrefs: DisplayPrefs = { unitSystem: 'imperial', currency: 'USD', timeZone: 'UTC' };
+export const defaultPrefs: DisplayPrefs = {
+	unitSystem: 'imperial',
+	currency: 'USD',
+	timeZone: 'UTC',
+	dateLocale: 'en-US'
+};
 
 // The app's language is English; numbers use its grouping ("4,635"), whatever the browser says,
 // so server-rendered and browser-rendered figures agree.
@@ -169,6 +176,34 @@ export function formatMoney(cents: number, currency: string): string {
 }
 
 /** Currencies the settings offer (ISO 4217). Any valid code works; these are the common ones. */
+/** Date styles the farm settings offer: locale tags whose numeric dates growers write and paste. */
+export const dateLocales = [
+	'en-US',
+	'en-CA',
+	'en-GB',
+	'en-IE',
+	'en-AU',
+	'en-NZ',
+	'fr-FR',
+	'fr-CA',
+	'de-DE',
+	'nl-NL',
+	'es-ES',
+	'es-MX',
+	'it-IT',
+	'da-DK',
+	'nb-NO',
+	'sv-SE',
+	'ja-JP'
+] as const;
+
+/** 24 June 2028 as `tag` writes it in numbers, e.g. "6/24/2028" (en-US) or "24.6.2028" (de-DE). */
+export function dateSample(tag: string): string {
+	return new Intl.DateTimeFormat(tag, { timeZone: 'UTC', year: 'numeric', month: 'numeric', day: 'numeric' }).format(
+		new Date(Date.UTC(2028, 5, 24))
+	);
+}
+
 export const currencies = ['USD', 'CAD', 'EUR', 'GBP', 'AUD', 'NZD', 'CHF', 'SEK', 'NOK', 'DKK', 'MXN', 'JPY'] as const;
 
 // ---- Time --------------------------------------------------------------------------------------

@@ -1,6 +1,18 @@
 import { z } from 'zod';
 import { isoDate, numberField, plainText } from './common';
 
+/** How the farm writes dates: a locale tag the runtime knows (its CLDR data gives the day/month order). */
+export const dateLocaleSchema = z
+	.string()
+	.regex(/^[A-Za-z]{2,3}(-[A-Za-z0-9]{2,8}){0,3}$/, 'Date style must be a locale tag such as en-US or de-DE.')
+	.refine((tag) => {
+		try {
+			return Intl.DateTimeFormat.supportedLocalesOf(tag).length > 0;
+		} catch {
+			return false;
+		}
+	}, 'Date style must be a locale tag such as en-US or de-DE.');
+
 export const farmSettingsSchema = z
 	.object({
 		name: plainText('Farm name', 120),
@@ -27,6 +39,8 @@ export const farmSettingsSchema = z
 				}
 			}, 'Currency must be a three-letter ISO 4217 code such as USD or EUR.')
 			.optional(),
+		// Optional so older forms keep the farm's choice.
+		dateLocale: dateLocaleSchema.optional(),
 		lastSpringFrost: isoDate('Last spring frost'),
 		firstFallFrost: isoDate('First fall frost'),
 		bedFootIncrement: numberField('Bed-foot increment', 1, 50, { int: true }),

@@ -131,8 +131,9 @@ export const plantingRowSchema = z.object({
 	method: choice('Method', sowingMethods),
 	traySowDate: optionalDate('Tray sowing'),
 	fieldDate: date('Field date'),
-	firstHarvest: date('First harvest'),
-	lastHarvest: date('Last harvest'),
+	// Worked out again from the row's figures on import (as a grid edit is): a new row may leave them blank.
+	firstHarvest: optionalDate('First harvest'),
+	lastHarvest: optionalDate('Last harvest'),
 	expectedYield: withDefault('Expected yield', 0, 1_000_000_000, 0),
 	seedsNeeded: withDefault('Seeds needed', 0, 2 ** 31 - 1, 0, { int: true }),
 	status: z.preprocess(

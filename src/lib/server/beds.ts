@@ -79,6 +79,8 @@ export async function update(farmId: number, bedId: number, input: BedInput): Pr
 export async function remove(farmId: number, bedId: number): Promise<boolean> {
 	// The plantings come off the bed first: the (farm_id, bed_id) key would take them with it.
 	return db().transaction(async (trx) => {
+		// Every season of the farm, shared and in id order, as a planting edit takes its season's lock.
+		await trx('seasons').where({ farm_id: farmId }).orderBy('id').forShare().select('id');
 		await trx('plantings')
 			.where({ farm_id: farmId, bed_id: bedId })
 			.update({ bed_id: null, version: trx.raw('version + 1') });

@@ -9,6 +9,8 @@ export interface Farm {
 	unitSystem: 'imperial' | 'metric';
 	/** ISO 4217 code; money is stored in its minor unit (cents). */
 	currency?: string;
+	/** BCP 47 tag for how the farm writes dates (day/month order of pasted dates). */
+	dateLocale?: string;
 	lastSpringFrost: string;
 	firstFallFrost: string;
 	bedFootIncrement: number;
@@ -25,6 +27,7 @@ export async function get(farmId: number): Promise<Farm> {
 		latitude: Number(r.latitude),
 		unitSystem: r.unit_system,
 		currency: r.currency ?? 'USD',
+		dateLocale: r.date_locale ?? 'en-US',
 		lastSpringFrost: r.last_spring_frost,
 		firstFallFrost: r.first_fall_frost,
 		bedFootIncrement: r.bed_foot_increment,
@@ -41,6 +44,7 @@ export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<v
 			latitude: input.latitude,
 			unit_system: input.unitSystem,
 			...(input.currency ? { currency: input.currency } : {}),
+			...(input.dateLocale ? { date_locale: input.dateLocale } : {}),
 			last_spring_frost: input.lastSpringFrost,
 			first_fall_frost: input.firstFallFrost,
 			bed_foot_increment: input.bedFootIncrement,
@@ -56,12 +60,13 @@ export async function weeklyTemps(farmId: number): Promise<Record<number, number
 	return Object.fromEntries(rows.map((r) => [r.week_number, Number(r.mean_temp_f)]));
 }
 
-/** What the farm chose for display: unit system, currency and time zone. */
+/** What the farm chose for display: unit system, currency, time zone and how it writes dates. */
 export async function displayPrefs(farmId: number): Promise<import('$lib/format').DisplayPrefs> {
-	const r = await db()('farms').where({ id: farmId }).first('unit_system', 'currency', 'time_zone');
+	const r = await db()('farms').where({ id: farmId }).first('unit_system', 'currency', 'time_zone', 'date_locale');
 	return {
 		unitSystem: r?.unit_system === 'metric' ? 'metric' : 'imperial',
 		currency: r?.currency ?? 'USD',
-		timeZone: r?.time_zone ?? 'UTC'
+		timeZone: r?.time_zone ?? 'UTC',
+		dateLocale: r?.date_locale ?? 'en-US'
 	};
 }

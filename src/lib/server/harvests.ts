@@ -11,6 +11,7 @@ import type { HarvestInput, HarvestPatch } from '$lib/schemas/harvest';
 import type { FieldErrors } from '$lib/schemas/common';
 import { todayIn } from '$lib/today';
 import { db } from './db';
+import { lockSeason } from './seasons';
 
 export interface HarvestView {
 	id: number;
@@ -331,6 +332,8 @@ export async function create(
 ): Promise<WriteResult<HarvestView[]>> {
 	const today = await farmToday(farmId);
 	return db().transaction(async (trx) => {
+		// The season first, as every writer of its plantings does: the sync below moves plantings on.
+		await lockSeason(trx, farmId, seasonId, 'shared');
 		const facts = await plantingFacts(trx, farmId, seasonId, [...new Set(inputs.map((i) => i.plantingId))]);
 		const members = await memberIds(trx, farmId);
 		const errors: FieldErrors = {};
@@ -395,6 +398,7 @@ export async function update(
 ): Promise<WriteResult<HarvestView>> {
 	const today = await farmToday(farmId);
 	return db().transaction(async (trx) => {
+		await lockSeason(trx, farmId, seasonId, 'shared');
 		const cur = await lockRecord(trx, farmId, seasonId, id);
 		if (!cur) return { ok: false, status: 404, errors: { _form: 'No such harvest record in this season.' } } as const;
 		const p = (await plantingFacts(trx, farmId, seasonId, [cur.planting_id])).get(cur.planting_id)!;
@@ -431,6 +435,7 @@ export async function update(
 /** Deletes a record; the audit trail keeps what it held. False when it is not this season's. */
 export async function remove(farmId: number, seasonId: number, id: number, actorId: string): Promise<boolean> {
 	return db().transaction(async (trx) => {
+		await lockSeason(trx, farmId, seasonId, 'shared');
 		const cur = await lockRecord(trx, farmId, seasonId, id);
 		if (!cur) return false;
 		await trx('harvest_records').where({ id, farm_id: farmId }).delete();

@@ -4,7 +4,7 @@
 import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { db } from './db';
-import { demandHash } from './seasons';
+import { demandHash, lockSeason } from './seasons';
 
 export class PlanConflictError extends Error {
 	constructor(
@@ -59,7 +59,7 @@ export async function lockForApply(
 	expected: string | undefined,
 	demandDigest?: string
 ): Promise<void> {
-	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
+	await lockSeason(trx, farmId, seasonId);
 	if (expected === undefined) return;
 	if ((await planFingerprint(farmId, seasonId, trx, demandDigest)) !== expected) {
 		throw new PlanConflictError(
@@ -168,7 +168,7 @@ export async function undoLastApply(
 	userId: string
 ): Promise<{ restored: number; removed: number }> {
 	return db().transaction(async (trx) => {
-		await trx('seasons').where({ farm_id: farmId, id: seasonId }).forUpdate().first('id');
+		await lockSeason(trx, farmId, seasonId);
 		const last = await trx('plan_applies')
 			.where({ farm_id: farmId, season_id: seasonId })
 			.orderBy('id', 'desc')

@@ -15,7 +15,7 @@ import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/p
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
-import { shareSeasonLockOfPlanting } from './seasons';
+import { lockSeason, shareSeasonLockOfPlanting } from './seasons';
 
 import type { PlantingView } from '$lib/types';
 import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
@@ -304,6 +304,7 @@ export async function create(
 	});
 	if (Object.keys(errors).length) return { ok: false, errors };
 	const ids = await db().transaction(async (trx) => {
+		await lockSeason(trx, farmId, seasonId, 'shared');
 		const out: number[] = [];
 		// One INSERT per row: MariaDB reports only the first id of a multi-row insert.
 		for (const r of rows) out.push(...(await trx('plantings').insert(r)));

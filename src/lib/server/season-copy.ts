@@ -5,6 +5,7 @@
 // engine's previous-family rule, so each family is kept off the beds it held this season
 // where another bed has room (a rotation warning where none has). Frost and heat checks run
 // on the old and the new dates and the report lists what changed. One transaction: all or nothing.
+import type { Knex } from 'knex';
 import {
 	compareChecks,
 	frostHeatChecks,
@@ -20,7 +21,7 @@ import { db } from './db';
 import * as farms from './farms';
 import * as beds from './beds';
 import { bedHolders } from './bed-holders';
-import type { Season } from './seasons';
+import { lockSeason, type Season } from './seasons';
 
 export interface CopyPlantingNote {
 	plantingId: number;
@@ -55,8 +56,42 @@ function seasonDates(s: Season, year: number): { startsOn: string; endsOn: strin
 	return { startsOn: nextYearDate(s.startsOn), endsOn: nextYearDate(s.endsOn) };
 }
 
+/** The source's plantings moved on (an apply, an edit, a harvest) between reading and writing the copy. */
+class SourceMoved extends Error {}
+
+/** Ids and versions of a season's plantings: what the copy was computed from. */
+async function plantingStamp(q: Knex, farmId: number, seasonId: number): Promise<string> {
+	const rows: { id: number; version: number }[] = await q('plantings')
+		.where({ farm_id: farmId, season_id: seasonId })
+		.orderBy('id')
+		.select('id', 'version');
+	return rows.map((r) => `${r.id}:${r.version}`).join(',');
+}
+
+/**
+ * Copies `source` into the next year. The copy is worked out from the source as read before the
+ * transaction (placing plantings needs the pool); the transaction then takes the source season's
+ * lock, as every writer of its plantings does, and writes only if the source's plantings are still
+ * what the copy was made from. Otherwise it is worked out again (three tries, then 409).
+ */
 export async function copySeason(farmId: number, source: Season, userId: string): Promise<CopyResult> {
+	for (let attempt = 1; attempt <= 3; attempt++) {
+		try {
+			return await copyOnce(farmId, source, userId);
+		} catch (err) {
+			if (!(err instanceof SourceMoved)) throw err;
+		}
+	}
+	return {
+		ok: false,
+		status: 409,
+		message: `${source.name} kept changing while it was being copied (plan applies or edits); nothing was copied. Try again.`
+	};
+}
+
+async function copyOnce(farmId: number, source: Season, userId: string): Promise<CopyResult> {
 	const year = source.year + 1;
+	const stamp = await plantingStamp(db(), farmId, source.id);
 	const [farm, temps, bedList, plantings] = await Promise.all([
 		farms.get(farmId),
 		farms.weeklyTemps(farmId),
@@ -118,6 +153,9 @@ export async function copySeason(farmId: number, source: Season, userId: string)
 	const unplacedBy = new Map(placement.unplaced.map((u) => [u.plantingKey, u.reason]));
 
 	return db().transaction(async (trx) => {
+		// Exclusive: a second copy of the same season waits here, then finds the year taken.
+		await lockSeason(trx, farmId, source.id);
+		if ((await plantingStamp(trx, farmId, source.id)) !== stamp) throw new SourceMoved();
 		if (await trx('seasons').where({ farm_id: farmId, year }).first('id')) {
 			return {
 				ok: false,

@@ -49,12 +49,28 @@ export async function get(farmId: number, seasonId: number): Promise<Season | nu
 }
 
 /**
- * Takes the season's row lock, shared, at the start of a transaction that edits one of its plantings.
- * Plan apply takes the same lock exclusively before it reads and replaces the season's plantings, so
- * edits and applies queue in one order (season first, then plantings) and never deadlock each other.
+ * The one lock every writer of a season's plantings takes first, inside its transaction, before it
+ * reads or locks any planting (or library row): the season's row. 'exclusive' for writers that read
+ * the whole season and replace or add to it (plan apply and undo, an import into the season, a
+ * season copy's check of its source); 'shared' for edits of single plantings (a grid edit, a task
+ * ticked off, a harvest logged), which may run side by side but wait for, and hold off, the
+ * exclusive ones. Everyone queues in one order (season first, then plantings and the rows they
+ * join), so these writers never deadlock each other. Returns false when the season is not the farm's.
  */
+export async function lockSeason(
+	trx: Knex.Transaction,
+	farmId: number,
+	seasonId: number,
+	mode: 'exclusive' | 'shared' = 'exclusive'
+): Promise<boolean> {
+	const q = trx('seasons').where({ farm_id: farmId, id: seasonId });
+	const row = await (mode === 'exclusive' ? q.forUpdate() : q.forShare()).first('id');
+	return !!row;
+}
+
+/** lockSeason, shared: at the start of a transaction that edits one of the season's plantings. */
 export async function shareSeasonLock(trx: Knex.Transaction, farmId: number, seasonId: number): Promise<void> {
-	await trx('seasons').where({ farm_id: farmId, id: seasonId }).forShare().first('id');
+	await lockSeason(trx, farmId, seasonId, 'shared');
 }
 
 /** The same, found from a planting (no lock when the planting is not the farm's). */

@@ -66,6 +66,8 @@ export interface GridInit {
 	farm: GridFarm;
 	role: Role;
 	seasonId: number;
+	/** How the farm writes dates (its settings): pasted "6/24/2028" is read in this order. */
+	dateLocale?: string;
 }
 
 export const UNDO_LIMIT = 200;
@@ -124,7 +126,7 @@ export class GridState {
 			varietyById: new Map(init.varieties.map((v) => [v.id, v])),
 			beds: init.beds,
 			bedById: new Map(init.beds.map((b) => [b.id, b])),
-			locale: typeof navigator !== 'undefined' && navigator.language ? navigator.language : 'en-US'
+			locale: init.dateLocale ?? 'en-US'
 		};
 		this.farm = init.farm;
 		this.role = init.role;

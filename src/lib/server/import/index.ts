@@ -8,7 +8,7 @@ import { checkImport, type FarmLibrary } from './validate';
 import { ImportRefused, writeImport, type ImportSummary } from './write';
 import { db } from '../db';
 import * as seasons from '../seasons';
-import { datesOutside, previewSeasonUpdate, type PreviewSummary } from './season-update';
+import { datesOutside, deriveNewPlantings, previewSeasonUpdate, type PreviewSummary } from './season-update';
 
 export type { PreviewSummary };
 
@@ -93,7 +93,7 @@ export async function importUpload(
 	if (!read.ok) return refuse(read.status ?? 400, read.issues);
 	const checked = checkImport(read.sheets, await farmLibrary(farmId), options.seasonId === undefined);
 	if (!checked.ok) return refuse(400, checked.issues);
-	const plan = checked.plan;
+	let plan = checked.plan;
 	if (plan.plantings.length) {
 		const letters = read.sheets.plantings?.letters ?? {};
 		const season =
@@ -111,15 +111,20 @@ export async function importUpload(
 			const preview = await previewSeasonUpdate(farmId, userId, season, plan, letters);
 			return preview.ok ? { ok: true, preview: preview.preview } : refuse(400, preview.issues);
 		}
-		if (plan.dateOrder.length) return refuse(400, plan.dateOrder);
+		// Into a season without plantings: every row worked out again, as a grid edit would be.
+		const derived = await deriveNewPlantings(farmId, plan, letters);
+		if (!derived.ok) return refuse(400, derived.issues);
+		plan = derived.plan;
 	}
-	// Two imports into one farm at once can deadlock on its library rows: MariaDB rolls one back,
-	// which is retried once; a second deadlock answers 409 (nothing of it was written).
+	// Two imports into one farm at once (or an import and another writer) can deadlock on its library
+	// rows, or wait on them past the lock wait timeout: MariaDB rolls the import back whole, and it is
+	// retried once; a second clash answers 409 naming it (nothing of it was written).
 	for (let attempt = 1; ; attempt++) {
 		try {
-			return { ok: true, summary: await writeImport(farmId, userId, checked.plan, options.seasonId) };
-		} catch (err) {
-			if (err instanceof ImportRefused) return refuse(err.status, err.issues);
+			return { ok: true, summary: await writeImport(farmId, userId, plan, options.seasonId) };
+		} catch (caught) {
+			const err = caught as { errno?: number; code?: string };
+			if (caught instanceof ImportRefused) return refuse(caught.status, caught.issues);
 			if (isDeadlock(err) && attempt === 1) {
 				console.warn('[furrowcast] import deadlocked with another; retrying once');
 				continue;
@@ -128,10 +133,12 @@ export async function importUpload(
 				return refuse(
 					409,
 					fileIssue(
-						'Another import into this farm was running at the same time; nothing of this one was written. Try again.'
+						err.errno === 1205 || err.code === 'ER_LOCK_WAIT_TIMEOUT'
+							? 'Another change to this farm (an import, a plan apply, an edit) held the rows this import needs for too long, twice; nothing of this import was written. Try again.'
+							: 'This import clashed twice with another change saved to this farm at the same moment (an import, a plan apply, an edit); nothing of this import was written. Try again.'
 					)
 				);
-			throw err;
+			throw caught;
 		}
 	}
 }

@@ -122,8 +122,9 @@ function fromRow(d: PlantingRow): WantedPlanting {
 		method: d.method,
 		traySowDate: d.traySowDate,
 		fieldDate: d.fieldDate,
-		firstHarvest: d.firstHarvest,
-		lastHarvest: d.lastHarvest,
+		// Blank in a new row: worked out by derive() before anything is compared or written.
+		firstHarvest: d.firstHarvest ?? d.fieldDate,
+		lastHarvest: d.lastHarvest ?? d.firstHarvest ?? d.fieldDate,
 		expectedYield: d.expectedYield,
 		seedsNeeded: d.seedsNeeded,
 		status: d.status,

@@ -9,7 +9,7 @@ import type { VarietyView } from '$lib/types';
 import { db } from '../db';
 import { listVarieties } from '../crops';
 import { gridContext } from '../plantings';
-import type { Season } from '../seasons';
+import { lockSeason, type Season } from '../seasons';
 import { plantingsSheet } from '../export/layout';
 import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type WantedPlanting } from './season-diff';
 import type { ImportPlan } from './validate';
@@ -189,6 +189,50 @@ export async function previewSeasonUpdate(
 	};
 }
 
+/**
+ * Plantings going into a season that holds none (a new season, or an empty one): each row goes
+ * through the grid's derivation, as a grid edit would, so tray sowing, harvest dates, expected
+ * yield and seeds needed follow the row's own figures and the receiving farm's climate; the
+ * file's worked-out columns are not kept. A file's planting ids belong to the season it came
+ * from and are ignored here. Exact copies of a row are refused, naming both rows.
+ */
+export async function deriveNewPlantings(
+	farmId: number,
+	plan: ImportPlan,
+	letters: Record<string, string>
+): Promise<{ ok: true; plan: ImportPlan } | { ok: false; issues: ImportIssue[] }> {
+	const [varieties, ctx] = await Promise.all([listVarieties(farmId), gridContext(farmId)]);
+	const issues: ImportIssue[] = [];
+	const rows = plan.plantings.map((r) => ({ row: r.row, data: { ...r.data, id: null } }));
+	const diff = diffSeason(rows, [], mergedVarieties(varieties, plan), ctx.farm, issues, letters);
+	for (const d of diff.duplicates) {
+		issues.push({
+			sheet: plantingsSheet.name,
+			row: d.row,
+			column: null,
+			header: null,
+			message: `Row ${d.row} repeats row ${d.of} exactly (a row pasted twice?); delete one of the two, or tell them apart in Notes.`
+		});
+	}
+	if (issues.length) return { ok: false, issues };
+	const byRow = new Map(diff.added.map((a) => [a.row, a.planting]));
+	const plantings = plan.plantings.map(({ row, data }) => {
+		const w = byRow.get(row)!;
+		return {
+			row,
+			data: {
+				...data,
+				traySowDate: w.traySowDate,
+				firstHarvest: w.firstHarvest,
+				lastHarvest: w.lastHarvest,
+				expectedYield: w.expectedYield,
+				seedsNeeded: w.seedsNeeded
+			}
+		};
+	});
+	return { ok: true, plan: { ...plan, plantings } };
+}
+
 export type ApplyOutcome =
 	| { ok: true; seasonId: number; added: number; changed: number; removed: number }
 	| { ok: false; status: 404 | 409; message: string };
@@ -206,6 +250,9 @@ export async function applySeasonUpdate(farmId: number, userId: string, token: s
 		};
 	}
 	const out = await db().transaction(async (trx): Promise<ApplyOutcome> => {
+		// The season first, as every writer of its plantings (plan apply, a harvest logged) takes it.
+		if (!(await lockSeason(trx, farmId, p.season.id)))
+			return { ok: false, status: 404, message: 'That season is no longer on this farm.' };
 		const now = await seasonPlantings(trx, farmId, p.season.id, true);
 		const fingerprint = now
 			.map((x) => `${x.id}:${x.version}`)

@@ -29,9 +29,6 @@ export interface ImportPlan {
 	varieties: ValidRow<VarietyRow & { crop: string }>[];
 	beds: ValidRow<BedRow>[];
 	plantings: ValidRow<PlantingRow>[];
-	/** The file's own tray, harvest and field dates disagreeing: matter only where the file's
-	 * figures are kept (a new season); a season update works them out again from the field date. */
-	dateOrder: ImportIssue[];
 	/** Variety and bed names the file lists, valid or not: a planting naming a row that failed
 	 * its own checks is not reported a second time as naming something unknown. */
 	named: { varieties: Set<string>; beds: Set<string> };
@@ -179,12 +176,6 @@ function checkPlantings(sheet: RawSheet, plan: ImportPlan, library: FarmLibrary,
 		if (!varieties.has(key(p.crop, p.variety)))
 			is.at(r.row, 'variety', `No variety "${p.variety}" of crop "${p.crop}" in the file or on this farm.`);
 		if (p.bed !== null && !beds.has(key(p.bed))) is.at(r.row, 'bed', `No bed "${p.bed}" in the file or on this farm.`);
-		const order = new Issues(sheet);
-		if (p.traySowDate !== null && p.traySowDate > p.fieldDate)
-			order.at(r.row, 'traySowDate', 'Tray sowing is after the field date.');
-		if (p.firstHarvest < p.fieldDate) order.at(r.row, 'firstHarvest', 'First harvest is before the field date.');
-		if (p.lastHarvest < p.firstHarvest) order.at(r.row, 'lastHarvest', 'Last harvest is before first harvest.');
-		plan.dateOrder.push(...order.list);
 		plan.plantings.push({ row: r.row, data: p });
 	}
 	issues.push(...is.list);
@@ -201,7 +192,6 @@ export function checkImport(sheets: Sheets, library: FarmLibrary, needsSeasonShe
 		varieties: [],
 		beds: [],
 		plantings: [],
-		dateOrder: [],
 		named: { varieties: new Set(), beds: new Set() }
 	};
 	if (sheets.season) plan.season = checkSeason(sheets.season, issues);

@@ -5,6 +5,7 @@
 import type { Knex } from 'knex';
 import type { ImportIssue } from '$lib/schemas/import';
 import { db } from '../db';
+import { lockSeason } from '../seasons';
 import { seasonDateProblem } from '$lib/schemas/common';
 import type { ImportPlan } from './validate';
 
@@ -134,7 +135,7 @@ async function targetSeason(
 ): Promise<{ id: number; created: boolean }> {
 	let id = seasonId;
 	let created = false;
-	if (id !== undefined && !(await trx('seasons').where({ id, farm_id: farmId }).forUpdate().first('id'))) {
+	if (id !== undefined && !(await lockSeason(trx, farmId, id))) {
 		// Checked here too, whatever the caller did: a season of another farm never takes rows.
 		throw new ImportRefused(
 			[{ sheet: 'upload', row: null, column: null, header: 'seasonId', message: 'No such season on this farm.' }],
@@ -144,8 +145,10 @@ async function targetSeason(
 	if (id === undefined) {
 		const s = plan.season!;
 		const found = await trx('seasons').where({ farm_id: farmId, year: s.year }).forUpdate().first('id');
-		if (found) id = found.id as number;
-		else {
+		if (found) {
+			id = found.id as number;
+			await lockSeason(trx, farmId, id);
+		} else {
 			id = (
 				await trx('seasons').insert({
 					farm_id: farmId,
@@ -182,6 +185,9 @@ export async function writeImport(
 	seasonId: number | undefined
 ): Promise<ImportSummary> {
 	return db().transaction(async (trx) => {
+		// The receiving season is locked before the library rows, in the order every writer of plantings
+		// takes its locks (season first): a plan apply or a harvest logged meanwhile waits, or is waited for.
+		const season = plan.plantings.length ? await targetSeason(trx, farmId, plan, seasonId) : null;
 		const library = await writeLibrary(trx, farmId, plan);
 		const bedsOut = await writeBeds(trx, farmId, plan);
 		const summary: ImportSummary = {
@@ -193,8 +199,7 @@ export async function writeImport(
 			beds: plan.beds.length,
 			plantings: 0
 		};
-		if (!plan.plantings.length) return summary;
-		const season = await targetSeason(trx, farmId, plan, seasonId);
+		if (!season) return summary;
 		// Every planting date within the receiving season's year ± 1, as in the grid and the API.
 		const year = Number((await trx('seasons').where({ id: season.id }).first('year')).year);
 		const dateIssues: ImportIssue[] = [];
