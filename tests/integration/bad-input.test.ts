@@ -62,6 +62,7 @@ interface Ids {
 	otherCrop: number;
 	otherPlanting: number;
 	otherShare: number;
+	otherSeason: number;
 }
 
 type Who = 'owner' | 'crew';
@@ -78,6 +79,56 @@ interface Case {
 }
 
 const big = 1e308;
+// Valid forms, each case spoiling one field. The crop and variety figures are invented.
+const cropForm: Record<string, string> = {
+	name: 'Hostile crop',
+	family: 'Fabaceae',
+	harvestUnit: 'lb',
+	frostTolerance: 'tender',
+	heatLimitF: '',
+	baseTempF: '50',
+	harvestCurve: 'flat',
+	cutIntervalDays: '',
+	storageWeeks: '',
+	storageLossPct: '',
+	price: '2.50',
+	source: 'test'
+};
+const varietyForm: Record<string, string> = {
+	name: 'Hostile variety',
+	method: 'direct',
+	daysToMaturity: '60',
+	daysInTray: '0',
+	harvestWindowDays: '14',
+	yieldPerBedFoot: '1',
+	rows: '2',
+	inRowSpacingIn: '4',
+	seedsPerSpot: '1',
+	germinationRate: '80',
+	seedsPerGram: '5',
+	seedPrice: '0.10',
+	seedsPerPacket: '',
+	cellsPerTray: '128',
+	margin: '10',
+	harvestCurve: '',
+	gddToMaturity: '',
+	source: 'test'
+};
+const locationForm: Record<string, string> = {
+	latitude: '42',
+	timeZone: 'America/New_York',
+	unitSystem: 'imperial',
+	lastSpringFrost: '2027-05-10',
+	firstFallFrost: '2027-10-05'
+};
+const bedsForm: Record<string, string> = {
+	block: 'Hostile block',
+	count: '3',
+	lengthFt: '100',
+	widthIn: '30',
+	prefix: 'H',
+	firstNumber: '1'
+};
 const cases: Case[] = [
 	// Plantings
 	{
@@ -475,6 +526,386 @@ const cases: Case[] = [
 		],
 		status: 400,
 		field: 'Members must be a number'
+	},
+
+	// Crop library: add, edit, archive
+	{
+		name: 'crop add: base temperature 1e308',
+		form: [() => '/crops/new', () => ({ ...cropForm, name: 'Hostile bean', baseTempF: '1e308' })],
+		status: 400,
+		field: 'Base temperature must be at most 80.'
+	},
+	{
+		name: 'crop add: name of 5,000 characters',
+		form: [() => '/crops/new', () => ({ ...cropForm, name: 'N'.repeat(5000) })],
+		status: 400,
+		field: 'Crop name must be at most 80 characters.'
+	},
+	{
+		name: 'crop add: harvest unit bushel',
+		form: [() => '/crops/new', () => ({ ...cropForm, name: 'Hostile pea', harvestUnit: 'bushel' })],
+		status: 400,
+		field: 'Harvest unit: choose'
+	},
+	{
+		name: 'crop add: price a fraction of a cent',
+		form: [() => '/crops/new', () => ({ ...cropForm, name: 'Hostile leek', price: '0.001' })],
+		status: 400,
+		field: 'whole cents'
+	},
+	{
+		name: 'crop add: a 7 MB body',
+		raw: [
+			'POST',
+			() => '/crops/new',
+			() => new URLSearchParams({ ...cropForm, name: 'Padded', source: 'x'.repeat(7 * 1024 * 1024) }).toString(),
+			'application/x-www-form-urlencoded'
+		],
+		status: 413
+	},
+	{
+		name: 'crop add: the name sent as a file (multipart)',
+		raw: [
+			'POST',
+			() => '/crops/new',
+			() =>
+				[
+					'--hostile',
+					'Content-Disposition: form-data; name="name"; filename="name.txt"',
+					'Content-Type: text/plain',
+					'',
+					'Filed bean',
+					'--hostile',
+					'Content-Disposition: form-data; name="harvestUnit"',
+					'',
+					'lb',
+					'--hostile--',
+					''
+				].join('\r\n'),
+			'multipart/form-data; boundary=hostile'
+		],
+		status: 400
+	},
+	{
+		name: 'seasons create: JSON sent to the form action',
+		raw: ['POST', () => '/seasons?/create', () => JSON.stringify({ year: 2091, name: 'JSON' }), 'application/json'],
+		status: [400, 415]
+	},
+	{
+		name: 'crop edit: heat limit as text',
+		form: [(i) => `/crops/${i.crop}?/save`, () => ({ ...cropForm, heatLimitF: 'hot' })],
+		status: 400,
+		field: 'Heat limit must be a number.'
+	},
+	{
+		name: "crop edit: another farm's crop",
+		form: [(i) => `/crops/${i.otherCrop}?/save`, () => cropForm],
+		status: 404,
+		field: "No such crop in this farm's library."
+	},
+	{
+		name: "crop archive: another farm's crop",
+		form: [(i) => `/crops/${i.otherCrop}?/archive`, () => ({})],
+		status: 404,
+		field: "No such crop in this farm's library."
+	},
+	{
+		name: 'crop archive: crop id 1e308',
+		form: [() => '/crops/1e308?/archive', () => ({})],
+		status: 404,
+		field: "No such crop in this farm's library."
+	},
+	{
+		name: 'variety add: germination 500 %',
+		form: [(i) => `/crops/${i.crop}/varieties/new`, () => ({ ...varietyForm, germinationRate: '500' })],
+		status: 400,
+		field: 'Germination must be at most'
+	},
+	{
+		name: 'variety add: days in tray for a direct-sown variety',
+		form: [(i) => `/crops/${i.crop}/varieties/new`, () => ({ ...varietyForm, daysInTray: '20' })],
+		status: 400,
+		field: 'Days in tray must be 0 for a direct-sown variety.'
+	},
+	{
+		name: "variety add: under another farm's crop",
+		form: [(i) => `/crops/${i.otherCrop}/varieties/new`, () => varietyForm],
+		status: 404
+	},
+	{
+		name: 'variety edit: days to maturity 1e308',
+		form: [(i) => `/crops/${i.crop}/varieties/${i.variety}?/save`, () => ({ ...varietyForm, daysToMaturity: '1e308' })],
+		status: 400,
+		field: 'must be at most'
+	},
+	{
+		name: "variety edit: another farm's variety under this farm's crop",
+		form: [(i) => `/crops/${i.crop}/varieties/${i.otherVariety}?/save`, () => varietyForm],
+		status: 404
+	},
+	{
+		name: "variety archive: another farm's variety",
+		form: [(i) => `/crops/${i.otherCrop}/varieties/${i.otherVariety}?/archive`, () => ({})],
+		status: 404
+	},
+	{
+		name: "variety delete: another farm's variety",
+		form: [(i) => `/crops/${i.otherCrop}/varieties/${i.otherVariety}?/delete`, () => ({})],
+		status: 404
+	},
+
+	// The set-up path
+	{
+		name: 'setup location: latitude 1000',
+		form: [() => '/setup', () => ({ ...locationForm, latitude: '1000' })],
+		status: 400,
+		field: 'Latitude must be at most 66.'
+	},
+	{
+		name: 'setup location: 30 February frost',
+		form: [() => '/setup', () => ({ ...locationForm, lastSpringFrost: '2027-02-30' })],
+		status: 400,
+		field: 'Last spring frost is not a real calendar date.'
+	},
+	{
+		name: 'setup location: frost in 9999',
+		form: [() => '/setup', () => ({ ...locationForm, firstFallFrost: '9999-10-01' })],
+		status: 400,
+		field: 'First fall frost must be between 1900 and 2200.'
+	},
+	{
+		name: 'setup location: time zone Mars/Olympus',
+		form: [() => '/setup', () => ({ ...locationForm, timeZone: 'Mars/Olympus' })],
+		status: 400
+	},
+	{
+		name: 'setup beds: 1e308 beds',
+		form: [() => '/setup/beds', () => ({ ...bedsForm, count: '1e308' })],
+		status: 400,
+		field: 'Number of beds must be at most 200.'
+	},
+	{
+		name: 'setup beds: length as text',
+		form: [() => '/setup/beds', () => ({ ...bedsForm, lengthFt: 'long' })],
+		status: 400,
+		field: 'Length (ft) must be a number.'
+	},
+	{
+		name: 'setup crops: a crop not in the starter library',
+		form: [() => '/setup/crops', () => ({ crop: '<script>' })],
+		status: 400,
+		field: 'is not in the starter library.'
+	},
+	{
+		name: 'setup crops: nothing ticked',
+		form: [() => '/setup/crops', () => ({})],
+		status: 400,
+		field: 'Tick at least one crop'
+	},
+	{
+		name: 'setup season: year 99999',
+		form: [() => '/setup/season', () => ({ year: '99999', name: 'Far away' })],
+		status: 400,
+		field: 'Year must be at most 2100.'
+	},
+	{
+		name: 'setup season: year as text',
+		form: [() => '/setup/season', () => ({ year: 'next', name: 'Next' })],
+		status: 400,
+		field: 'Year must be a number.'
+	},
+
+	// Seasons page: create, copy, rename, archive
+	{
+		name: 'seasons create: year 1e308',
+		form: [() => '/seasons?/create', () => ({ year: '1e308', name: 'Huge' })],
+		status: 400,
+		field: 'Year must be at most 2100.'
+	},
+	{
+		name: 'seasons create: a year the farm already has',
+		form: [() => '/seasons?/create', () => ({ year: '2027', name: 'Again' })],
+		status: [400, 409]
+	},
+	{
+		name: 'seasons create: name of 5,000 characters',
+		form: [() => '/seasons?/create', () => ({ year: '2090', name: 'S'.repeat(5000) })],
+		status: 400,
+		field: 'Season name must be at most 80 characters.'
+	},
+	{
+		name: "seasons copy: another farm's season",
+		form: [() => '/seasons?/copy', (i) => ({ from: i.otherSeason })],
+		status: 400,
+		field: "Choose one of this farm's seasons."
+	},
+	{
+		name: 'seasons copy: season as text',
+		form: [() => '/seasons?/copy', () => ({ from: 'last' })],
+		status: 400,
+		field: 'Season to copy must be a number.'
+	},
+	{
+		name: "seasons rename: another farm's season",
+		form: [() => '/seasons?/rename', (i) => ({ id: i.otherSeason, name: 'Mine now' })],
+		status: 404,
+		field: 'No such season on this farm.'
+	},
+	{
+		name: 'seasons rename: name with markup',
+		form: [() => '/seasons?/rename', (i) => ({ id: i.season, name: '<b>bold</b>' })],
+		status: 400,
+		field: 'Season name'
+	},
+	{
+		name: 'seasons rename: id 1e308',
+		form: [() => '/seasons?/rename', () => ({ id: '1e308', name: 'Far' })],
+		status: 404
+	},
+	{
+		name: "seasons archive: another farm's season",
+		form: [() => '/seasons?/archive', (i) => ({ id: i.otherSeason })],
+		status: 404,
+		field: 'No such season on this farm.'
+	},
+	{
+		name: 'seasons archive: id as text',
+		form: [() => '/seasons?/archive', () => ({ id: 'all' })],
+		status: 404
+	},
+
+	// Results (actual against plan)
+	{
+		name: "results: use figures of another farm's variety",
+		form: [(i) => `/seasons/${i.season}/results?/useFigures`, (i) => ({ varietyId: i.otherVariety })],
+		status: [400, 404]
+	},
+	{
+		name: 'results: use figures, variety 1e308',
+		form: [(i) => `/seasons/${i.season}/results?/useFigures`, () => ({ varietyId: '1e308' })],
+		status: 400,
+		field: 'Variety must be at most'
+	},
+	{
+		name: 'results: undo a change that is not there',
+		form: [(i) => `/seasons/${i.season}/results?/undoFigures`, () => ({ changeId: '2147483647' })],
+		status: [400, 404]
+	},
+	{
+		name: 'results: undo, change as text',
+		form: [(i) => `/seasons/${i.season}/results?/undoFigures`, () => ({ changeId: 'last' })],
+		status: 400,
+		field: 'Change must be a number.'
+	},
+	{
+		name: "results: copy another farm's season",
+		form: [(i) => `/seasons/${i.otherSeason}/results?/copySeason`, () => ({})],
+		status: 404
+	},
+
+	// Box swaps (share boxes page)
+	{
+		name: 'boxes swap: quantity 1e308',
+		form: [
+			(i) => `/seasons/${i.season}/boxes?/swap`,
+			(i) => ({ shareSizeId: i.share, week: '2027-W30', fromCropId: i.crop, toCropId: i.crop + 1, quantity: '1e308' })
+		],
+		status: 400,
+		field: 'quantity must be at most 10,000.'
+	},
+	{
+		name: 'boxes swap: week 0999-W10',
+		form: [
+			(i) => `/seasons/${i.season}/boxes?/swap`,
+			(i) => ({ shareSizeId: i.share, week: '0999-W10', fromCropId: i.crop, toCropId: i.crop + 1, quantity: '1' })
+		],
+		status: 400
+	},
+	{
+		name: "boxes swap: another farm's crop",
+		form: [
+			(i) => `/seasons/${i.season}/boxes?/swap`,
+			(i) => ({ shareSizeId: i.share, week: '2027-W30', fromCropId: i.crop, toCropId: i.otherCrop, quantity: '1' })
+		],
+		status: 400
+	},
+	{
+		name: "boxes swap: in another farm's season",
+		form: [
+			(i) => `/seasons/${i.otherSeason}/boxes?/swap`,
+			(i) => ({
+				shareSizeId: i.otherShare,
+				week: '2027-W30',
+				fromCropId: i.otherCrop,
+				toCropId: i.otherCrop,
+				quantity: '1'
+			})
+		],
+		status: 404
+	},
+	{
+		name: 'boxes short fill: 1e308 %',
+		form: [(i) => `/seasons/${i.season}/boxes?/shortFill`, () => ({ shortFillPct: '1e308' })],
+		status: 400,
+		field: 'Short below must be'
+	},
+	{
+		name: 'boxes undo: swap id as text',
+		form: [(i) => `/seasons/${i.season}/boxes?/undo`, () => ({ swapId: 'all' })],
+		status: 400,
+		field: 'No such swap in this season.'
+	},
+
+	// The plan screen (its actions are the plan API)
+	{
+		name: 'POST plan preview: intervalWeeks 1e308',
+		json: ['POST', (i) => `/api/seasons/${i.season}/plan/preview`, () => ({ intervalWeeks: big })],
+		status: 400,
+		field: 'intervalWeeks'
+	},
+	{
+		name: 'POST plan preview: variety share fraction 5',
+		json: [
+			'POST',
+			(i) => `/api/seasons/${i.season}/plan/preview`,
+			(i) => ({ varietyPlan: { [String(i.crop)]: [{ varietyId: i.variety, fraction: 5 }] } })
+		],
+		status: 400
+	},
+	{
+		name: 'POST plan apply: a made-up fingerprint',
+		json: ['POST', (i) => `/api/seasons/${i.season}/plan/apply`, () => ({ fingerprint: 'not-a-preview' })],
+		status: 400,
+		field: 'fingerprint'
+	},
+	{
+		name: "POST plan apply: another farm's variety in the plan",
+		json: [
+			'POST',
+			(i) => `/api/seasons/${i.season}/plan/apply`,
+			(i) => ({ varietyPlan: { [String(i.crop)]: [{ varietyId: i.otherVariety }] } })
+		],
+		status: 400
+	},
+	{
+		name: "POST plan apply: another farm's season",
+		json: ['POST', (i) => `/api/seasons/${i.otherSeason}/plan/apply`, () => ({})],
+		status: 404
+	},
+	{
+		name: "POST plan undo: another farm's season",
+		json: ['POST', (i) => `/api/seasons/${i.otherSeason}/plan/undo`, () => ({})],
+		status: 404
+	},
+	{
+		name: 'POST plan apply: a 7 MB body',
+		raw: [
+			'POST',
+			(i) => `/api/seasons/${i.season}/plan/apply`,
+			() => JSON.stringify({ margin: 0.1, pad: 'x'.repeat(7 * 1024 * 1024) }),
+			'application/json'
+		],
+		status: 413
 	}
 ];
 
@@ -521,7 +952,8 @@ beforeAll(async () => {
 		otherBlock: (await db('blocks').where({ farm_id: other.farmId }).first('id')).id,
 		otherCrop: hand.cropIds.carrot,
 		otherPlanting: (await db('plantings').where({ farm_id: other.farmId }).first('id')).id,
-		otherShare
+		otherShare,
+		otherSeason: hand.seasonId
 	};
 	clients = { owner: await signedIn(demo.owner, demo.password), crew: await signedIn(demo.crew, demo.password) };
 });
@@ -540,10 +972,12 @@ describe('hostile input to every writing route', () => {
 				res = await client.postForm(path(ids), fields(ids));
 			} else {
 				const [method, path, body, type] = c.raw!;
+				// Pages answer a browser's form post with HTML (and the failure's status); the API with JSON.
+				const accept = path(ids).startsWith('/api/') ? 'application/json' : 'text/html';
 				res = await client.request(path(ids), {
 					method,
 					body: body(),
-					headers: { origin: baseUrl(), 'content-type': type, accept: 'application/json' }
+					headers: { origin: baseUrl(), 'content-type': type, accept }
 				});
 			}
 			const wanted = Array.isArray(c.status) ? c.status : [c.status];
