@@ -223,6 +223,48 @@ describe('marking tasks done', () => {
 		});
 		expect(JSON.parse(await enhanced.text()).type).toBe('redirect');
 	});
+	it('a wrong tick is taken back in one step, on record; a second undo, or one after an edit, is refused', async () => {
+		// A planting of its own (a copy of the W21 carrot sowing), removed again at the end.
+		const { id: _id, ...copy } = await testDb()('plantings').where({ id: f.p.directCarrot }).first();
+		void _id;
+		const [pid] = await testDb()('plantings').insert({
+			...copy,
+			start_ft: 90,
+			length_ft: 5,
+			status: 'planned',
+			actual_field_date: null,
+			notes: null,
+			version: 1
+		});
+		try {
+			expect((await done(f.crew, pid, 'direct_sow', '2026-11-30', { note: 'wrong bed' })).status).toBe(303);
+			const mark = await testDb()('task_marks').where({ planting_id: pid }).first();
+			const page = await html(await f.crew.get(sheetPath));
+			expect(page).toContain(`data-testid="undo-${pid}"`);
+			expect(page).toContain(`name="markId" value="${mark.id}"`);
+			// The share manager may not take it back; nor may another farm (its id is not theirs).
+			expect((await f.share.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(403);
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: 'x' })).status).toBe(400);
+
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(303);
+			const back = await testDb()('plantings').where({ id: pid }).first();
+			expect([back.status, back.actual_field_date, back.notes, back.version]).toEqual(['planned', null, null, 3]);
+			const kept = await testDb()('task_marks').where({ id: mark.id }).first();
+			expect(kept.undone_at).not.toBeNull();
+			expect(kept.undone_by).toBe(kept.marked_by);
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(409);
+
+			// Ticked again, then edited in the grid: the tick can no longer be taken back.
+			expect((await done(f.owner, pid, 'direct_sow', '2026-12-01')).status).toBe(303);
+			const again = await testDb()('task_marks').where({ planting_id: pid }).orderBy('id', 'desc').first();
+			await testDb()('plantings').where({ id: pid }).increment('version', 1);
+			const res = await f.owner.postForm(`${sheetPath}?/undo`, { markId: again.id });
+			expect(res.status).toBe(409);
+			expect((await testDb()('plantings').where({ id: pid }).first('status')).status).toBe('sown');
+		} finally {
+			await testDb()('plantings').where({ id: pid }).delete();
+		}
+	});
 	it("another farm's planting is a 404, and the demo farm's rows are untouched", async () => {
 		const demoPlanting = await testDb()('plantings').whereNot({ farm_id: f.farmId }).first('id', 'version', 'status');
 		const res = await done(f.crew, demoPlanting.id, 'direct_sow', '2026-11-30');
