@@ -363,6 +363,12 @@ export const accessTable: AccessRow[] = [
 		expect: action(['owner', 'crew'])
 	},
 	{
+		key: '(app)/seasons/[id]/week/[isoWeek] action:undo',
+		url: (f) => `/seasons/${S(f)}/week/2027-W21?/undo`,
+		expect: action(['owner', 'crew']),
+		why: 'no tick named: 400'
+	},
+	{
 		key: '(app)/seasons/[id]/week/[isoWeek] action:email',
 		url: (f) => `/seasons/${S(f)}/week/2027-W21?/email`,
 		expect: action(['owner', 'crew'])

@@ -994,12 +994,18 @@ describe('hostile input to every writing route', () => {
 
 it('the checksums do see a change (control)', async () => {
 	const before = await checksums();
-	const row = await testDb()('plantings').where({ id: ids.planting }).first('notes');
+	const row = await testDb()('plantings').where({ id: ids.planting }).first();
 	await testDb()('plantings')
 		.where({ id: ids.planting })
 		.update({ notes: `${row.notes ?? ''} control` });
 	const changed = await checksums();
 	await testDb()('plantings').where({ id: ids.planting }).update({ notes: row.notes });
 	expect(changed.plantings).not.toBe(before.plantings);
-	expect(await checksums()).toEqual(before);
+	// Put back as it was, but for its change stamp: any write moves that (the answer cache's
+	// migration, 20261203_11d_change_stamps.ts), so a write that puts back the same values is seen too.
+	expect({ ...(await checksums()), plantings: 'the row below' }).toEqual({ ...before, plantings: 'the row below' });
+	const { change_seq: was, ...rest } = row;
+	const { change_seq: now, ...restNow } = await testDb()('plantings').where({ id: ids.planting }).first();
+	expect(restNow).toEqual(rest);
+	expect(now).not.toBe(was);
 });

@@ -4,6 +4,8 @@
 // stringifying 3 MB took several times longer than the database's own JSON functions, and held
 // the server's one thread while it did. tests/integration/plantings-json.test.ts checks that this
 // parses to the same value as JSON.stringify(listForSeason(…)), field by field.
+// The GET route keeps its answer until a table read here changes: a table added to this query must
+// be stamped too (db/migrations/20261203_11d_change_stamps.ts, plantings-cache.ts).
 import { db } from './db';
 
 /** PlantingView's keys, in toView's order, and the SQL that gives each. */
