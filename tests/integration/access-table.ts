@@ -416,6 +416,24 @@ export const accessTable: AccessRow[] = [
 		expect: { ...all(303), anon: 400 },
 		why: 'a signed-in visitor is sent on'
 	},
+	{
+		key: '(auth)/signup/confirm/[token] page',
+		url: () => '/signup/confirm/not-a-real-token',
+		expect: all(200),
+		why: 'says the link has expired or was used'
+	},
+	{
+		key: '(auth)/signup/confirm/[token] action:default',
+		url: () => '/signup/confirm/not-a-real-token',
+		expect: all(400),
+		why: 'no such sign-up: nothing is made'
+	},
+	{
+		key: '(auth)/signup/mail page',
+		url: () => '/signup/mail',
+		expect: all(200),
+		why: "demo mode only (the tests run in it); shows only the browser's own sign-up mail"
+	},
 	{ key: 'signout page', url: () => '/signout', expect: all(303) },
 	{ key: 'signout action:default', url: () => '/signout', freshSession: true, expect: all(303) },
 	{ key: 'calendar/[token].ics GET', url: () => '/calendar/not-a-real-token.ics', expect: all(404) },

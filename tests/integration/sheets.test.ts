@@ -7,6 +7,7 @@ import { Client, html } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { waitForMail } from '../helpers/mail';
 import { expected, makeSheetFarm, WEEK, type SheetFarm } from './sheets-fixture';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -85,7 +86,7 @@ describe('the sheet of a week', () => {
 	});
 	it("another farm's season is a 404", async () => {
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Other',
 			email: uniqueEmail('sheet-other'),
 			password: 'sheet-test-password',
