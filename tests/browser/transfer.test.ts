@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { launch, signIn, type BrowserSession } from '../helpers/browser';
+import { confirmSignUpByMail, launch, signIn, type BrowserSession } from '../helpers/browser';
 import { demo } from '../helpers/env';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { loadWorkbook } from '../helpers/transfer';
@@ -66,10 +66,8 @@ describe('export and re-import through the pages', () => {
 		await page.getByLabel('Latitude (° N, negative for south)').fill('42.5');
 		await page.getByLabel('Last spring frost').fill('2027-05-10');
 		await page.getByLabel('First fall frost').fill('2027-10-05');
-		await Promise.all([
-			page.waitForURL(/\/(settings|setup)/),
-			page.getByRole('button', { name: /sign up|create/i }).click()
-		]);
+		await page.getByRole('button', { name: /sign up|create/i }).click();
+		await confirmSignUpByMail(page);
 
 		await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Import' }).click();
 		await page.waitForURL(/\/import$/);

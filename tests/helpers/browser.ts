@@ -50,4 +50,25 @@ export async function signIn(page: Page, email: string, password: string): Promi
 	]);
 }
 
+/**
+ * After the sign-up form said "check your e-mail": in demo mode (as the tests run) the page links to the
+ * sign-up mail; open it, follow the mailed link and press the confirmation's button, landing on /setup.
+ */
+export async function confirmSignUpByMail(page: Page): Promise<void> {
+	await page.getByRole('link', { name: 'Read the sign-up mail here' }).click();
+	await page.waitForURL('**/signup/mail');
+	const link = page.locator('a[href*="/signup/confirm/"]').first();
+	// The mail leaves just after the answer: look again until it is there.
+	for (let i = 0; i < 50 && (await link.count()) === 0; i++) {
+		await page.waitForTimeout(200);
+		await page.reload();
+	}
+	await link.click();
+	await page.waitForURL('**/signup/confirm/*');
+	await Promise.all([
+		page.waitForURL('**/setup'),
+		page.getByRole('button', { name: 'Create the farm and sign in' }).click()
+	]);
+}
+
 export type { Browser, BrowserContext, Page };

@@ -5,6 +5,7 @@ import ExcelJS from 'exceljs';
 import { Client } from './http';
 import { testDb, uniqueEmail } from './db';
 import { baseUrl } from './env';
+import { confirmedSignUp } from './signup';
 
 export interface NewFarm {
 	client: Client;
@@ -16,7 +17,7 @@ export interface NewFarm {
 export async function signUpFarm(tag: string): Promise<NewFarm> {
 	const client = new Client();
 	const email = uniqueEmail(tag);
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: `Owner ${tag}`,
 		email,
 		password: 'long-enough-pass',

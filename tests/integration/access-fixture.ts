@@ -4,6 +4,7 @@
 import { Client, signedIn } from '../helpers/http';
 import { testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 export interface AccessFixture {
 	farmId: number;
@@ -165,7 +166,7 @@ export async function makeAccessFixture(): Promise<AccessFixture> {
 /** The four visitors that hold a session; 'other' owns a farm of its own, made through /signup. */
 export async function signInAll(): Promise<{ owner: Client; crew: Client; share: Client; other: Client }> {
 	const other = new Client();
-	const res = await other.postForm('/signup', {
+	const res = await confirmedSignUp(other, {
 		name: 'Other Farm Owner',
 		email: uniqueEmail('access-other'),
 		password: 'quiet-meadow-lantern-2027',

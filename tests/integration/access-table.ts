@@ -293,6 +293,12 @@ export const accessTable: AccessRow[] = [
 		expect: action(['owner', 'share'])
 	},
 	{ key: '(app)/seasons/[id]/plan page', url: (f) => `/seasons/${S(f)}/plan`, expect: everyMemberSeasonPage },
+	{ key: '(app)/seasons/[id]/seeds page', url: (f) => `/seasons/${S(f)}/seeds`, expect: everyMemberSeasonPage },
+	{
+		key: '(app)/seasons/[id]/seeds/seed-order.csv GET',
+		url: (f) => `/seasons/${S(f)}/seeds/seed-order.csv`,
+		expect: everyMemberSeasonPage
+	},
 	{ key: '(app)/seasons/[id]/forecast page', url: (f) => `/seasons/${S(f)}/forecast`, expect: everyMemberSeasonPage },
 	{ key: '(app)/seasons/[id]/harvests page', url: (f) => `/seasons/${S(f)}/harvests`, expect: everyMemberSeasonPage },
 	{
@@ -363,6 +369,12 @@ export const accessTable: AccessRow[] = [
 		expect: action(['owner', 'crew'])
 	},
 	{
+		key: '(app)/seasons/[id]/week/[isoWeek] action:undo',
+		url: (f) => `/seasons/${S(f)}/week/2027-W21?/undo`,
+		expect: action(['owner', 'crew']),
+		why: 'no tick named: 400'
+	},
+	{
 		key: '(app)/seasons/[id]/week/[isoWeek] action:email',
 		url: (f) => `/seasons/${S(f)}/week/2027-W21?/email`,
 		expect: action(['owner', 'crew'])
@@ -403,6 +415,24 @@ export const accessTable: AccessRow[] = [
 		url: () => '/signup',
 		expect: { ...all(303), anon: 400 },
 		why: 'a signed-in visitor is sent on'
+	},
+	{
+		key: '(auth)/signup/confirm/[token] page',
+		url: () => '/signup/confirm/not-a-real-token',
+		expect: all(200),
+		why: 'says the link has expired or was used'
+	},
+	{
+		key: '(auth)/signup/confirm/[token] action:default',
+		url: () => '/signup/confirm/not-a-real-token',
+		expect: all(400),
+		why: 'no such sign-up: nothing is made'
+	},
+	{
+		key: '(auth)/signup/mail page',
+		url: () => '/signup/mail',
+		expect: all(200),
+		why: "demo mode only (the tests run in it); shows only the browser's own sign-up mail"
 	},
 	{ key: 'signout page', url: () => '/signout', expect: all(303) },
 	{ key: 'signout action:default', url: () => '/signout', freshSession: true, expect: all(303) },

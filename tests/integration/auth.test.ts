@@ -3,7 +3,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { Client, signedIn, html } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
-import { firstLink, waitForMail } from '../helpers/mail';
+import { firstLink, waitForMail, waitForMailWith } from '../helpers/mail';
+import { confirmationLink, confirmedSignUp } from '../helpers/signup';
 import { demo } from '../helpers/env';
 
 afterAll(closeTestDb);
@@ -21,10 +22,19 @@ function signUpFields(email: string): Record<string, string> {
 }
 
 describe('sign-up', () => {
-	it('creates a farm and its owner, signs them in, and lands on the set-up path', async () => {
+	it('creates a farm and its owner once the mailed link is followed, signs them in, and lands on the set-up path', async () => {
 		const email = uniqueEmail('signup');
 		const client = new Client();
-		const res = await client.postForm('/signup', signUpFields(email));
+		const asked = await client.postForm('/signup', signUpFields(email));
+		expect(asked.status).toBe(200);
+		expect(await html(asked)).toContain('Check your e-mail to finish');
+		const link = await confirmationLink(email);
+		// Opening the link only shows what it will make.
+		const shown = await client.get(link);
+		expect(shown.status).toBe(200);
+		expect(await html(shown)).toContain('Test Plot (invented)');
+		expect(await count('users', { email })).toBe(0);
+		const res = await client.postForm(link, {});
 		expect(res.status).toBe(303);
 		expect(res.headers.get('location')).toBe('/setup');
 		const user = await testDb()('users').where({ email }).first();
@@ -39,7 +49,7 @@ describe('sign-up', () => {
 
 	it('sets the session cookie HttpOnly and SameSite=Lax', async () => {
 		const client = new Client();
-		await client.postForm('/signup', signUpFields(uniqueEmail('cookie')));
+		await confirmedSignUp(client, signUpFields(uniqueEmail('cookie')));
 		const cookie = client.lastSetCookie.find((c) => c.startsWith('fc_session='));
 		expect(cookie).toBeDefined();
 		expect(cookie).toMatch(/HttpOnly/i);
@@ -108,7 +118,7 @@ describe('sign-in and sign-out', () => {
 
 	it('slows failed attempts per account with a clear, short wait (see sign-in-limits.test.ts)', async () => {
 		const email = uniqueEmail('limited');
-		await new Client().postForm('/signup', signUpFields(email));
+		await confirmedSignUp(new Client(), signUpFields(email));
 		for (let i = 0; i < 6; i++) await new Client().postForm('/signin', { email, password: 'wrong-password' });
 		const res = await new Client().postForm('/signin', { email, password: 'long-enough-pass' });
 		expect(res.status).toBe(429);
@@ -121,9 +131,9 @@ describe('sign-in and sign-out', () => {
 describe('password reset by e-mail', () => {
 	it('refuses a weak new password at the reset form, saying why', async () => {
 		const email = uniqueEmail('weakreset');
-		await new Client().postForm('/signup', signUpFields(email));
+		await confirmedSignUp(new Client(), signUpFields(email));
 		await new Client().postForm('/forgot', { email });
-		const link = new URL(firstLink(await waitForMail(email), '/reset/'));
+		const link = new URL(firstLink(await waitForMailWith(email, '/reset/'), '/reset/'));
 		const res = await new Client().postForm(link.pathname, { password: 'password12', confirm: 'password12' });
 		expect(res.status).toBe(400);
 		expect(await html(res)).toContain('This is a commonly used password.');
@@ -132,10 +142,10 @@ describe('password reset by e-mail', () => {
 
 	it('mails a one-time link that sets a new password', async () => {
 		const email = uniqueEmail('reset');
-		await new Client().postForm('/signup', signUpFields(email));
+		await confirmedSignUp(new Client(), signUpFields(email));
 		const asked = await new Client().postForm('/forgot', { email });
 		expect(asked.status).toBe(200);
-		const mail = await waitForMail(email);
+		const mail = await waitForMailWith(email, '/reset/');
 		expect(mail.subject).toContain('Reset your Furrowcast password');
 		const link = new URL(firstLink(mail, '/reset/'));
 		const done = await new Client().postForm(link.pathname, {

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -13,7 +14,7 @@ let farmId: number;
 async function newFarm(tag: string): Promise<{ client: Client; farmId: number }> {
 	const client = new Client();
 	const email = uniqueEmail(tag);
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: 'Library Keeper',
 		email,
 		password: 'long-enough-pass',

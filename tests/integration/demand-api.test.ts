@@ -6,6 +6,7 @@ import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { demandSeason, type DemandFixture } from './demand-fixture';
+import { confirmedSignUp } from '../helpers/signup';
 
 let fx: DemandFixture;
 let share: Client;
@@ -278,7 +279,7 @@ describe('share sizes', () => {
 
 	it("another farm's owner gets 404 for this season's demand", async () => {
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Other',
 			email: uniqueEmail('demand'),
 			password: 'long-enough-pass',

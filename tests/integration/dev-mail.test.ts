@@ -7,13 +7,14 @@ import { closeTestDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { firstLink, waitForMail, waitForMailWith } from '../helpers/mail';
 import { startSecondApp, type SecondApp } from '../helpers/second-app';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
 async function signUpFarm(tag: string): Promise<{ client: Client; email: string }> {
 	const email = uniqueEmail(tag);
 	const client = new Client();
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: 'Curious Grower',
 		email,
 		password: 'copper-kettle-orchard-41',

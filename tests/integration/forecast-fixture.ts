@@ -3,6 +3,7 @@
 // worked out by hand from the numbers below.
 import { Client } from '../helpers/http';
 import { testDb, uniqueEmail } from '../helpers/db';
+import { confirmedSignUp } from '../helpers/signup';
 
 export interface ForecastFarm {
 	client: Client;
@@ -31,7 +32,7 @@ export const FIXTURE_PASSWORD = 'forecast-fixture-pass';
 export async function makeForecastFarm(tag: string): Promise<ForecastFarm> {
 	const email = uniqueEmail(tag);
 	const client = new Client();
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: 'Forecast Tester (invented)',
 		email,
 		password: FIXTURE_PASSWORD,

@@ -3,8 +3,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
-import { firstLink, waitForMail } from '../helpers/mail';
+import { firstLink, waitForMail, waitForMailWith } from '../helpers/mail';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -45,7 +46,7 @@ describe('forgotten password form', () => {
 describe('reset form', () => {
 	it('names a short password and a mismatch, and the link still works afterwards', async () => {
 		const email = uniqueEmail('resetform');
-		await new Client().postForm('/signup', {
+		await confirmedSignUp(new Client(), {
 			name: 'Reset Form',
 			email,
 			password: 'long-enough-pass',
@@ -55,7 +56,7 @@ describe('reset form', () => {
 			firstFallFrost: '2027-10-01'
 		});
 		await new Client().postForm('/forgot', { email });
-		const path = new URL(firstLink(await waitForMail(email), '/reset/')).pathname;
+		const path = new URL(firstLink(await waitForMailWith(email, '/reset/'), '/reset/')).pathname;
 		await expectFieldError(
 			await new Client().postForm(path, { password: 'short', confirm: 'short' }),
 			'password',
@@ -102,7 +103,7 @@ describe('new block form', () => {
 	it('names an empty, a duplicate and an over-long block name', async () => {
 		const owner = new Client();
 		const email = uniqueEmail('blockform');
-		await owner.postForm('/signup', {
+		await confirmedSignUp(owner, {
 			name: 'Block Form',
 			email,
 			password: 'long-enough-pass',

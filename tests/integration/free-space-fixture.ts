@@ -2,6 +2,7 @@
 // /signup and knex inserts, so the expected free feet can be worked out by hand below.
 import { Client } from '../helpers/http';
 import { testDb, uniqueEmail } from '../helpers/db';
+import { confirmedSignUp } from '../helpers/signup';
 
 export interface FreeSpaceFarm {
 	client: Client;
@@ -28,7 +29,7 @@ export async function makeFreeSpaceFarm(tag: string): Promise<FreeSpaceFarm> {
 	const email = uniqueEmail(tag);
 	const password = 'free-space-pass-27';
 	const client = new Client();
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: 'Free Space Tester',
 		email,
 		password,

@@ -2,6 +2,7 @@
 // beds, one crop of each kind needed and a 2026 season arranged straight in the database.
 import { Client } from '../helpers/http';
 import { testDb, uniqueEmail } from '../helpers/db';
+import { confirmedSignUp } from '../helpers/signup';
 
 export interface HarvestFarm {
 	owner: Client;
@@ -16,7 +17,7 @@ export interface HarvestFarm {
 export async function harvestFarm(tag: string): Promise<HarvestFarm> {
 	const owner = new Client();
 	const email = uniqueEmail(tag);
-	const res = await owner.postForm('/signup', {
+	const res = await confirmedSignUp(owner, {
 		name: 'Test Owner',
 		email,
 		password: 'long-enough-pass',

@@ -5,6 +5,7 @@ import { forecast, deriveTargets, type HarvestCurve } from '../../src/lib/planni
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -37,7 +38,7 @@ describe('who may plan', () => {
 	});
 	it("another farm's owner: 404 for this farm's season", async () => {
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Other',
 			email: uniqueEmail('plan'),
 			password: 'long-enough-pass',

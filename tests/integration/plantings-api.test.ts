@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 let seasonId: number;
 let farmId: number;
@@ -159,7 +160,7 @@ describe('PATCH /api/plantings/[id]', () => {
 	it("answers 404 to another farm's owner", async () => {
 		const p = await createOne();
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Grid Tenant',
 			email: uniqueEmail('grid'),
 			password: 'long-enough-pass',

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn, html } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -72,7 +73,7 @@ describe('tenancy', () => {
 	it("a user of another farm never sees the demo farm's season or plantings", async () => {
 		const email = uniqueEmail('tenant');
 		const other = new Client();
-		const res = await other.postForm('/signup', {
+		const res = await confirmedSignUp(other, {
 			name: 'Other Grower',
 			email,
 			password: 'long-enough-pass',
@@ -106,7 +107,7 @@ describe('tenancy', () => {
 			.where('s.id', demoSeasonId)
 			.first('b.id', 'b.name', 'b.block_id');
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Third Grower',
 			email: uniqueEmail('tenant2'),
 			password: 'long-enough-pass',

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, html, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -12,7 +13,7 @@ let farmId: number;
 beforeAll(async () => {
 	owner = new Client();
 	const email = uniqueEmail('seasons');
-	await owner.postForm('/signup', {
+	await confirmedSignUp(owner, {
 		name: 'Season Keeper',
 		email,
 		password: 'long-enough-pass',

@@ -2,6 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, html } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -10,7 +11,7 @@ let farmId: number;
 beforeAll(async () => {
 	owner = new Client();
 	const email = uniqueEmail('settings');
-	await owner.postForm('/signup', {
+	await confirmedSignUp(owner, {
 		name: 'Bed Keeper',
 		email,
 		password: 'long-enough-pass',

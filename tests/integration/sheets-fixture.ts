@@ -3,6 +3,7 @@
 // ISO week 2027-W21 (Mon 24 May – Sun 30 May 2027), one share size and one market order.
 import { Client, signedIn } from '../helpers/http';
 import { testDb, uniqueEmail } from '../helpers/db';
+import { confirmedSignUp } from '../helpers/signup';
 
 export const PASSWORD = 'sheet-test-password';
 export const WEEK = '2027-W21';
@@ -21,7 +22,7 @@ export interface SheetFarm {
 async function signUp(tag: string, farmName: string): Promise<{ email: string; client: Client; farmId: number }> {
 	const email = uniqueEmail(tag);
 	const client = new Client();
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: `Test ${tag}`,
 		email,
 		password: PASSWORD,

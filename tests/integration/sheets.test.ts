@@ -7,6 +7,7 @@ import { Client, html } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { waitForMail } from '../helpers/mail';
 import { expected, makeSheetFarm, WEEK, type SheetFarm } from './sheets-fixture';
+import { confirmedSignUp } from '../helpers/signup';
 
 afterAll(closeTestDb);
 
@@ -48,14 +49,31 @@ describe('the sheet of a week', () => {
 		expect(page).toMatch(/Food safety.*local food-safety rules/);
 		expect(page).toMatch(/Heat: .*cool hours.*water and shade/);
 	});
-	it('/week redirects to the current ISO week of the farm clock, within the season', async () => {
+	it('/week redirects to the current ISO week of the farm clock, within the season, or the next week with work', async () => {
 		const res = await f.crew.get(`/seasons/${f.seasonId}/week`);
 		expect(res.status).toBe(307);
 		const today = ofFarmToday('America/Chicago');
 		// The fixture season is 2027; before it starts, the sheets open on its first week: 2027-01-01 is a
 		// Friday, so it belongs to ISO week 2026-W53 (ISO 8601; REFERENCES.md "ISO weeks on the 2026/27 edge").
-		if (today < '2027-01-01') expect(res.headers.get('location')).toBe(`/seasons/${f.seasonId}/week/2026-W53`);
-		else expect(res.headers.get('location')).toMatch(new RegExp(`^/seasons/${f.seasonId}/week/\\d{4}-W\\d{2}$`));
+		// That week has no work, so they open on the next week that has some, saying so: the fixture's
+		// first task is a field date on Mon 15 Mar 2027, ISO week 2027-W11 (4 Jan is W01's Monday; + 70 days).
+		if (today < '2027-01-01') {
+			const to = res.headers.get('location');
+			expect(to).toBe(`/seasons/${f.seasonId}/week/2027-W11?quiet=2026-W53`);
+			const page = (await html(await f.crew.get(to!))).replace(/\s+/g, ' ');
+			expect(page).toContain('Nothing to sow, plant or harvest in 2026-W53: this is the next week with work.');
+			expect(page).toContain('Crew sheets · 2027-W11');
+		} else expect(res.headers.get('location')).toMatch(new RegExp(`^/seasons/${f.seasonId}/week/\\d{4}-W\\d{2}`));
+	});
+	it('"This week" links to the week\'s crew sheets and harvest log, and to the next work when the week is empty', async () => {
+		const page = (await html(await f.crew.get('/?week=2027-W21'))).replace(/\s+/g, ' ');
+		expect(page).toContain(`href="/seasons/${f.seasonId}/week/2027-W21"`);
+		expect(page).toContain(`href="/seasons/${f.seasonId}/harvests"`);
+		// A winter week before the season: nothing to do, so it points at the first week with work
+		// (field date Mon 15 Mar 2027, ISO 2027-W11, as above).
+		const winter = (await html(await f.crew.get('/?week=2026-W49'))).replace(/\s+/g, ' ');
+		expect(winter).toContain('Nothing to sow, plant or harvest this week. Next work:');
+		expect(winter).toContain(`href="/seasons/${f.seasonId}/week/2027-W11"`);
 	});
 	it('answers 400 for a malformed or non-existent week and 404 for a week outside the season', async () => {
 		for (const bad of ['2027-21', 'week-21', '2027-W54', '2027-W53', '2027-W00']) {
@@ -68,7 +86,7 @@ describe('the sheet of a week', () => {
 	});
 	it("another farm's season is a 404", async () => {
 		const other = new Client();
-		await other.postForm('/signup', {
+		await confirmedSignUp(other, {
 			name: 'Other',
 			email: uniqueEmail('sheet-other'),
 			password: 'sheet-test-password',
@@ -205,6 +223,48 @@ describe('marking tasks done', () => {
 			}
 		});
 		expect(JSON.parse(await enhanced.text()).type).toBe('redirect');
+	});
+	it('a wrong tick is taken back in one step, on record; a second undo, or one after an edit, is refused', async () => {
+		// A planting of its own (a copy of the W21 carrot sowing), removed again at the end.
+		const { id: _id, ...copy } = await testDb()('plantings').where({ id: f.p.directCarrot }).first();
+		void _id;
+		const [pid] = await testDb()('plantings').insert({
+			...copy,
+			start_ft: 90,
+			length_ft: 5,
+			status: 'planned',
+			actual_field_date: null,
+			notes: null,
+			version: 1
+		});
+		try {
+			expect((await done(f.crew, pid, 'direct_sow', '2026-11-30', { note: 'wrong bed' })).status).toBe(303);
+			const mark = await testDb()('task_marks').where({ planting_id: pid }).first();
+			const page = await html(await f.crew.get(sheetPath));
+			expect(page).toContain(`data-testid="undo-${pid}"`);
+			expect(page).toContain(`name="markId" value="${mark.id}"`);
+			// The share manager may not take it back; nor may another farm (its id is not theirs).
+			expect((await f.share.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(403);
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: 'x' })).status).toBe(400);
+
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(303);
+			const back = await testDb()('plantings').where({ id: pid }).first();
+			expect([back.status, back.actual_field_date, back.notes, back.version]).toEqual(['planned', null, null, 3]);
+			const kept = await testDb()('task_marks').where({ id: mark.id }).first();
+			expect(kept.undone_at).not.toBeNull();
+			expect(kept.undone_by).toBe(kept.marked_by);
+			expect((await f.crew.postForm(`${sheetPath}?/undo`, { markId: mark.id })).status).toBe(409);
+
+			// Ticked again, then edited in the grid: the tick can no longer be taken back.
+			expect((await done(f.owner, pid, 'direct_sow', '2026-12-01')).status).toBe(303);
+			const again = await testDb()('task_marks').where({ planting_id: pid }).orderBy('id', 'desc').first();
+			await testDb()('plantings').where({ id: pid }).increment('version', 1);
+			const res = await f.owner.postForm(`${sheetPath}?/undo`, { markId: again.id });
+			expect(res.status).toBe(409);
+			expect((await testDb()('plantings').where({ id: pid }).first('status')).status).toBe('sown');
+		} finally {
+			await testDb()('plantings').where({ id: pid }).delete();
+		}
 	});
 	it("another farm's planting is a 404, and the demo farm's rows are untouched", async () => {
 		const demoPlanting = await testDb()('plantings').whereNot({ farm_id: f.farmId }).first('id', 'version', 'status');

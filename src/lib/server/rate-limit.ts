@@ -70,6 +70,7 @@ interface Limits {
 	forgotAccount: RateLimiterMySQL;
 	forgotAddress: RateLimiterMySQL;
 	signUpAddress: RateLimiterMySQL;
+	signUpMail: RateLimiterMySQL;
 }
 
 let limits: Limits | undefined;
@@ -87,7 +88,8 @@ function get(): Limits {
 		),
 		forgotAccount: limiter('forgot_account', setting('FC_FORGOT_ACCOUNT_LIMIT', 3), hour),
 		forgotAddress: limiter('forgot_address', setting('FC_FORGOT_ADDRESS_LIMIT', 10), hour),
-		signUpAddress: limiter('signup_address', setting('FC_SIGNUP_ADDRESS_LIMIT', 10), hour)
+		signUpAddress: limiter('signup_address', setting('FC_SIGNUP_ADDRESS_LIMIT', 10), hour),
+		signUpMail: limiter('signup_mail', setting('FC_SIGNUP_MAIL_LIMIT', 5), hour)
 	};
 	return limits;
 }
@@ -154,4 +156,9 @@ export async function forgotAccountAllowed(email: string): Promise<boolean> {
 /** Milliseconds this address must wait before another sign-up, or 0 (and counts it). */
 export function signUpAddressWait(address: string): Promise<number> {
 	return spend(get().signUpAddress, address);
+}
+
+/** Whether another sign-up mail may go to this address now (counts it). Refusals are silent, as for reset mail. */
+export async function signUpMailAllowed(email: string): Promise<boolean> {
+	return (await spend(get().signUpMail, accountKey(email))) === 0;
 }

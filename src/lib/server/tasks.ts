@@ -29,7 +29,18 @@ const implied: Record<
 };
 
 export type MarkDoneResult =
-	{ ok: true; status: Status; version: number } | { ok: false; code: 404 | 409 | 400; field?: string; message: string };
+	| { ok: true; status: Status; version: number; markId: number }
+	| { ok: false; code: 404 | 409 | 400; field?: string; message: string };
+
+/** The planting fields a tick may change, and an undo puts back. */
+const undoable = [
+	'status',
+	'notes',
+	'actual_tray_sow_date',
+	'actual_field_date',
+	'actual_first_harvest',
+	'actual_last_harvest'
+];
 
 /** Marks one task of a planting of this farm and season done (a planting elsewhere is 404). */
 export async function markTaskDone(
@@ -47,7 +58,17 @@ export async function markTaskDone(
 		const row = await trx('plantings')
 			.where({ id: input.plantingId, farm_id: farmId, season_id: seasonId })
 			.forUpdate()
-			.first('id', 'method', 'status', 'version', 'notes', 'actual_first_harvest');
+			.first(
+				'id',
+				'method',
+				'status',
+				'version',
+				'notes',
+				'actual_tray_sow_date',
+				'actual_field_date',
+				'actual_first_harvest',
+				'actual_last_harvest'
+			);
 		if (!row) return { ok: false, code: 404, message: 'No such planting in this season.' } as const;
 		// The same date rules as an edit in the grid or the API.
 		const season = await trx('seasons').where({ id: seasonId, farm_id: farmId }).first('year');
@@ -91,6 +112,79 @@ export async function markTaskDone(
 				.filter(Boolean)
 				.join('\n');
 		await trx('plantings').where({ id: row.id }).update(patch);
-		return { ok: true, status, version: row.version + 1 } as const;
+		// What the tick changed, as it was, so it can be taken back (undoTaskMark).
+		const before = Object.fromEntries(
+			Object.keys(patch)
+				.filter((k) => undoable.includes(k))
+				.map((k) => [k, (row as Record<string, unknown>)[k] ?? null])
+		);
+		const [markId] = await trx('task_marks').insert({
+			farm_id: farmId,
+			planting_id: row.id,
+			kind: input.kind,
+			done_on: input.date,
+			before_values: JSON.stringify(before),
+			version_after: row.version + 1,
+			marked_by: userId
+		});
+		return { ok: true, status, version: row.version + 1, markId } as const;
 	});
+}
+
+export type UndoResult = { ok: true } | { ok: false; code: 404 | 409; message: string };
+
+/**
+ * Takes back a tick on the crew sheet: the planting's status, actual date and note go back to what
+ * they were, in one step. Refused (409) once anyone changed the planting since the tick, or when
+ * the tick was already taken back; the tick and its undoing both stay on record.
+ */
+export async function undoTaskMark(
+	farmId: number,
+	seasonId: number,
+	userId: string,
+	markId: number
+): Promise<UndoResult> {
+	return db().transaction(async (trx) => {
+		await shareSeasonLock(trx, farmId, seasonId);
+		const mark = await trx('task_marks as m')
+			.join('plantings as p', function () {
+				this.on('p.id', 'm.planting_id').andOn('p.farm_id', 'm.farm_id');
+			})
+			.where({ 'm.id': markId, 'm.farm_id': farmId, 'p.season_id': seasonId })
+			.forUpdate()
+			.first('m.id', 'm.planting_id', 'm.before_values', 'm.version_after', 'm.undone_at', 'p.version');
+		if (!mark) return { ok: false, code: 404, message: 'No such tick on this season’s sheets.' } as const;
+		if (mark.undone_at) return { ok: false, code: 409, message: 'That tick was already taken back.' } as const;
+		if (Number(mark.version) !== Number(mark.version_after))
+			return {
+				ok: false,
+				code: 409,
+				message: 'The planting changed after that tick; correct it in the planting grid instead.'
+			} as const;
+		const before = JSON.parse(String(mark.before_values)) as Record<string, unknown>;
+		const restore = Object.fromEntries(Object.entries(before).filter(([k]) => undoable.includes(k)));
+		await trx('plantings')
+			.where({ id: mark.planting_id, farm_id: farmId })
+			.update({ ...restore, version: Number(mark.version) + 1, updated_by: userId, updated_at: new Date() });
+		await trx('task_marks').where({ id: mark.id }).update({ undone_at: new Date(), undone_by: userId });
+		return { ok: true } as const;
+	});
+}
+
+/** The latest tick of each planting that can still be taken back (nobody changed the planting since). */
+export async function undoableMarks(
+	farmId: number,
+	plantingIds: number[]
+): Promise<Map<number, { id: number; kind: string }>> {
+	if (!plantingIds.length) return new Map();
+	const rows: { id: number; planting_id: number; kind: string }[] = await db()('task_marks as m')
+		.join('plantings as p', function () {
+			this.on('p.id', 'm.planting_id').andOn('p.farm_id', 'm.farm_id');
+		})
+		.where('m.farm_id', farmId)
+		.whereIn('m.planting_id', plantingIds)
+		.whereNull('m.undone_at')
+		.whereRaw('m.version_after = p.version')
+		.select('m.id', 'm.planting_id', 'm.kind');
+	return new Map(rows.map((r) => [Number(r.planting_id), { id: Number(r.id), kind: r.kind }]));
 }

@@ -1,4 +1,4 @@
-// Accounts: sign-up (a farm and its owner in one transaction), look-ups, passwords.
+// Accounts: a confirmed sign-up (a farm and its owner in one transaction), look-ups, passwords.
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Role } from '$lib/roles';
@@ -38,26 +38,35 @@ async function insertUser(
 	return id;
 }
 
-export async function signUp(input: {
-	name: string;
-	email: string;
-	password: string;
-	farmName: string;
-	latitude: number;
-	lastSpringFrost: string;
-	firstFallFrost: string;
-}): Promise<{ userId: string; farmId: number }> {
-	return db().transaction(async (trx) => {
-		const userId = await insertUser(trx, input);
-		const [farmId] = await trx('farms').insert({
-			name: input.farmName,
-			latitude: input.latitude,
-			last_spring_frost: input.lastSpringFrost,
-			first_fall_frost: input.firstFallFrost
-		});
-		await trx('farm_members').insert({ farm_id: farmId, user_id: userId, role: 'owner' satisfies Role });
-		return { userId, farmId };
+/**
+ * A confirmed sign-up: the owner's account (its password hashed when the sign-up was asked for), the
+ * farm and the membership, in the caller's transaction. DuplicateEmailError when the address has an
+ * account by now.
+ */
+export async function createOwnerAndFarm(
+	trx: Knex.Transaction,
+	input: {
+		name: string;
+		email: string;
+		passwordHash: string;
+		farmName: string;
+		latitude: number;
+		lastSpringFrost: string;
+		firstFallFrost: string;
+	}
+): Promise<{ userId: string; farmId: number }> {
+	const email = input.email.toLowerCase();
+	if (await trx('users').where({ email }).forUpdate().first('id')) throw new DuplicateEmailError();
+	const userId = randomUUID();
+	await trx('users').insert({ id: userId, email, name: input.name, password_hash: input.passwordHash });
+	const [farmId] = await trx('farms').insert({
+		name: input.farmName,
+		latitude: input.latitude,
+		last_spring_frost: input.lastSpringFrost,
+		first_fall_frost: input.firstFallFrost
 	});
+	await trx('farm_members').insert({ farm_id: farmId, user_id: userId, role: 'owner' satisfies Role });
+	return { userId, farmId };
 }
 
 /** Creates the account of an invited person and adds them to the farm, in one transaction. */

@@ -30,6 +30,9 @@ export const markDoneSchema = z.object({
 });
 export type MarkDone = z.infer<typeof markDoneSchema>;
 
+/** Taking back a tick: which one (its id from the sheet). */
+export const undoMarkSchema = z.object({ markId: wholeId('Tick') });
+
 /** Extra addresses as typed: separated by commas, semicolons, spaces or new lines. */
 export function splitAddresses(raw: string): string[] {
 	return raw

@@ -2,15 +2,16 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { signUpSchema } from '$lib/schemas/auth';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
-import { DuplicateEmailError, signUp } from '$lib/server/users';
-import { startSession } from '$lib/server/auth';
-import { afterResponse, mailSignUpAttempt } from '$lib/server/password-resets';
-import { signUpAddressWait, waitInWords } from '$lib/server/rate-limit';
+import { cookieIsSecure } from '$lib/server/auth';
+import { devMailEnabled } from '$lib/server/mail';
+import { afterResponse } from '$lib/server/password-resets';
+import { requestSignUp, viewerKey } from '$lib/server/signups';
+import { signUpAddressWait, signUpMailAllowed, waitInWords } from '$lib/server/rate-limit';
 import { clientAddress } from '$lib/server/client-address';
 
 export const load = (async ({ locals }) => {
 	if (locals.user) redirect(303, '/');
-	return {};
+	return { devMail: devMailEnabled() };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -30,16 +31,12 @@ export const actions = {
 				values
 			});
 		}
-		try {
-			const { userId, farmId } = await signUp(parsed.data);
-			await startSession(cookies, url, userId, farmId);
-		} catch (error) {
-			if (!(error instanceof DuplicateEmailError)) throw error;
-			// Not "this address has an account": the holder gets a note by mail, and the page says what
-			// the reset page says.
-			afterResponse('sign-up note', () => mailSignUpAttempt(parsed.data.email, url.origin));
-			return { checkMail: parsed.data.email };
-		}
-		redirect(303, '/setup');
+		// The same answer, and the same work before it, for an address with an account and one without:
+		// whether the address is taken is looked up after the answer, and only the mail differs (a link that
+		// creates the farm, or a note that an account exists). Mail to one address is throttled silently.
+		const viewer = viewerKey(cookies, cookieIsSecure(url));
+		if (await signUpMailAllowed(parsed.data.email))
+			afterResponse('sign-up mail', () => requestSignUp(parsed.data, url.origin, viewer));
+		return { checkMail: parsed.data.email };
 	}
 } satisfies Actions;

@@ -12,7 +12,10 @@ import { cautionsFor } from '$lib/server/sheets/cautions';
 import { crewAddresses, sendWeekSheets } from '$lib/server/sheets/send';
 import { markDoneSchema, sendSheetsSchema, splitAddresses } from '$lib/server/sheets/schemas';
 import type { z } from 'zod';
-import { markTaskDone } from '$lib/server/tasks';
+import { markTaskDone, undoableMarks, undoTaskMark } from '$lib/server/tasks';
+import { undoMarkSchema } from '$lib/server/sheets/schemas';
+
+const quietWeek = (v: string | null): string | null => (v && /^\d{4}-W\d{2}$/.test(v) ? v : null);
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
@@ -23,8 +26,12 @@ export const load = (async (event) => {
 		weekSheet(farm.id, ctx.season.id, ctx.week, ctx.monday, ctx.sunday),
 		canMark ? crewAddresses(farm.id) : Promise.resolve([] as string[])
 	]);
+	const shown = sheet.sections.flatMap((x) => x.groups.flatMap((g) => g.rows.map((r) => r.plantingId)));
+	const undo = canMark ? await undoableMarks(farm.id, shown) : new Map();
 	return {
 		sheet,
+		/** Per planting, its last tick that can still be taken back. */
+		undo: Object.fromEntries(undo),
 		cautions: cautionsFor(sheet.weekMeanF),
 		canMark,
 		crew,
@@ -32,7 +39,9 @@ export const load = (async (event) => {
 		today: todayIn(settings.timeZone),
 		previousWeek: addWeeks(ctx.week, -1),
 		nextWeek: addWeeks(ctx.week, 1),
-		sent: event.url.searchParams.get('sent')
+		sent: event.url.searchParams.get('sent'),
+		/** The week the crew lead asked for had no tasks: this is the next one that has some. */
+		quietWeek: quietWeek(event.url.searchParams.get('quiet'))
 	};
 }) satisfies PageServerLoad;
 
@@ -51,6 +60,18 @@ export const actions = {
 			return fail(result.code, {
 				done: { plantingId, errors: <FieldErrors>{ [result.field ?? '_form']: result.message } }
 			});
+		}
+		redirect(303, event.url.pathname);
+	},
+	undo: async (event) => {
+		const { farm, user } = requireCan(event, 'tasks.mark');
+		const ctx = await sheetContext(farm.id, event.params.id, event.params.isoWeek);
+		const parsed = undoMarkSchema.safeParse(Object.fromEntries(await event.request.formData()));
+		if (!parsed.success) return fail(400, { undo: { errors: fieldErrors(parsed.error) } });
+		const result = await undoTaskMark(farm.id, ctx.season.id, user.id, parsed.data.markId);
+		if (!result.ok) {
+			if (result.code === 404) error(404, result.message);
+			return fail(409, { undo: { errors: <FieldErrors>{ _form: result.message } } });
 		}
 		redirect(303, event.url.pathname);
 	},
