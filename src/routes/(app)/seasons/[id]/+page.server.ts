@@ -1,9 +1,11 @@
 import type { PageServerLoad } from './$types';
 import { requireUser } from '$lib/server/guards';
-import { listForSeason } from '$lib/server/plantings';
+import { seasonOverview } from '$lib/server/season-overview';
+import { planFreshness } from '$lib/server/seasons';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const { season } = await event.parent();
-	return { plantings: await listForSeason(farm.id, season.id) };
+	const [overview, freshness] = await Promise.all([seasonOverview(farm.id, season), planFreshness(farm.id, season.id)]);
+	return { overview, freshness };
 }) satisfies PageServerLoad;
