@@ -17,6 +17,7 @@ export const seasonTabs: readonly SeasonTab[] = [
 	{ path: 'beds', label: 'Bed timeline', action: 'plan.read' },
 	{ path: 'demand', label: 'Demand', action: 'plan.read' },
 	{ path: 'plan', label: 'Plan', action: 'plan.read' },
+	{ path: 'seeds', label: 'Seed order', action: 'plan.read' },
 	{ path: 'forecast', label: 'Forecast', action: 'plan.read' },
 	{ path: 'boxes', label: 'Share boxes', action: 'plan.read' },
 	{ path: 'week', label: 'Crew sheets', action: 'plan.read' },

@@ -1,10 +1,15 @@
 // A new owner signs up and walks the set-up path by clicks and typing only: location and frost,
-// twelve beds in one go, crops from the starter library, the first season. Then a step skipped
+// twelve beds in one go, crops from the starter library, the first season; then enters demand,
+// previews and applies a plan, opens the grid and prints the first week's crew sheets to PDF. Then a step skipped
 // on a second farm is still reachable later from its own page. Every page is checked at a phone
 // width for sideways scrolling.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { confirmSignUpByMail, launch, type BrowserSession, type Page } from '../helpers/browser';
 import { testDb, closeTestDb, uniqueEmail } from '../helpers/db';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 
 let browser: BrowserSession;
 beforeAll(async () => {
@@ -28,6 +33,15 @@ async function signUp(page: Page, email: string, farm: string): Promise<void> {
 	await page.getByRole('button', { name: 'Create farm' }).click();
 	await page.getByText('Check your e-mail to finish').waitFor();
 	await confirmSignUpByMail(page);
+}
+
+/** Text of each page of a PDF, with Debian's pdftotext (poppler-utils). */
+function pdfText(pdf: Buffer): string[] {
+	const file = join(mkdtempSync(join(tmpdir(), 'fc-setup-print-')), 'sheets.pdf');
+	writeFileSync(file, pdf);
+	return execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' })
+		.split('\f')
+		.filter((t) => t.trim() !== '');
 }
 
 async function noSidewaysScroll(page: Page): Promise<void> {
@@ -108,6 +122,56 @@ describe('set-up path', () => {
 		]);
 		const season = await testDb()('seasons').where({ farm_id: farmId }).first();
 		expect(season).toMatchObject({ year: 2027, name: 'First year' });
+
+		// 5. Demand, typed into the market stand's weekly quantities: 20 lb of carrots in W30–W33.
+		await page
+			.getByRole('navigation', { name: 'Which quantities' })
+			.getByRole('link', { name: 'Market stand' })
+			.click();
+		await page.waitForURL(/grid=market/);
+		await page.getByLabel('Add a crop row').selectOption({ label: 'Carrot (lb)' });
+		for (const w of ['2027-W30', '2027-W31', '2027-W32', '2027-W33'])
+			await page.getByLabel(new RegExp(`^New crop, ${w}`)).fill('20');
+		await page.getByRole('button', { name: /^Save Market stand/ }).click();
+		await expect
+			.poll(async () =>
+				Number(
+					(
+						await testDb()('channel_demand')
+							.where({ farm_id: farmId, season_id: season.id })
+							.sum({ q: 'quantity' })
+							.first()
+					)?.q
+				)
+			)
+			.toBe(80);
+
+		// 6. The plan: preview writes nothing, apply writes the plantings.
+		await page.getByRole('navigation', { name: 'Season' }).getByRole('link', { name: 'Plan', exact: true }).click();
+		await page.getByRole('button', { name: 'Preview', exact: true }).click();
+		await page.getByTestId('plan-preview').waitFor();
+		expect(await testDb()('plantings').where({ season_id: season.id }).count({ n: '*' }).first()).toEqual({ n: 0 });
+		await page.getByRole('button', { name: 'Apply', exact: true }).click();
+		await expect(page.getByTestId('plan-message').innerText()).resolves.toMatch(/^Applied: /);
+		const planted = await testDb()('plantings').where({ season_id: season.id });
+		expect(planted.length).toBeGreaterThan(0);
+
+		// 7. The planting grid shows them.
+		await page.getByRole('navigation', { name: 'Season' }).getByRole('link', { name: 'Planting grid' }).click();
+		await page.locator('[data-row="0"]').waitFor();
+		expect(await page.locator('[data-row]').count()).toBe(planted.length);
+
+		// 8. The crew sheets open on the first week with work, and print with every page naming it.
+		await page.getByRole('navigation', { name: 'Season' }).getByRole('link', { name: 'Crew sheets' }).click();
+		await page.waitForURL(/\/week\/\d{4}-W\d{2}/);
+		const week = /\/week\/(\d{4}-W\d{2})/.exec(page.url())![1];
+		await expect(page.locator('[data-testid^="task-"]').count()).resolves.toBeGreaterThan(0);
+		await page.emulateMedia({ media: 'print' });
+		const pages = pdfText(await page.pdf({ format: 'Letter' }));
+		expect(pages.length).toBeGreaterThan(0);
+		// Source: pdftotext (poppler-utils) reads the printed PDF, page by page.
+		for (const [i, text] of pages.entries()) expect(text, `page ${i + 1}`).toContain(week);
+		await page.emulateMedia({ media: 'screen' });
 
 		// The picked crops are the farm's own: the library lists them and the owner can edit them.
 		await page.goto('/crops');

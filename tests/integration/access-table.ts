@@ -293,6 +293,12 @@ export const accessTable: AccessRow[] = [
 		expect: action(['owner', 'share'])
 	},
 	{ key: '(app)/seasons/[id]/plan page', url: (f) => `/seasons/${S(f)}/plan`, expect: everyMemberSeasonPage },
+	{ key: '(app)/seasons/[id]/seeds page', url: (f) => `/seasons/${S(f)}/seeds`, expect: everyMemberSeasonPage },
+	{
+		key: '(app)/seasons/[id]/seeds/seed-order.csv GET',
+		url: (f) => `/seasons/${S(f)}/seeds/seed-order.csv`,
+		expect: everyMemberSeasonPage
+	},
 	{ key: '(app)/seasons/[id]/forecast page', url: (f) => `/seasons/${S(f)}/forecast`, expect: everyMemberSeasonPage },
 	{ key: '(app)/seasons/[id]/harvests page', url: (f) => `/seasons/${S(f)}/harvests`, expect: everyMemberSeasonPage },
 	{

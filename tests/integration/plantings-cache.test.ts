@@ -8,6 +8,7 @@ import { brotliDecompressSync, gunzipSync } from 'node:zlib';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
+import { download, loadWorkbook, upload } from '../helpers/transfer';
 import { addPlanting, addSeason, harvestFarm, type HarvestFarm } from './harvest-fixture';
 
 interface Row {
@@ -153,6 +154,34 @@ describe('every write shows in the next GET', () => {
 		expect(undo.status).toBe(200);
 		const back = await rows();
 		expect(back.length).toBe(now.length + 1);
+	});
+
+	it('a workbook imported over the season: the changed notes show', async () => {
+		const wb = await loadWorkbook((await download(own.owner, seasonId)).bytes);
+		const sheet = wb.getWorksheet('Plantings')!;
+		const notes = (sheet.getRow(1).values as unknown[]).findIndex((v) => v === 'Notes');
+		expect(notes).toBeGreaterThan(0);
+		for (let r = 2; r <= sheet.rowCount; r++)
+			if (sheet.getRow(r).getCell(1).value) sheet.getRow(r).getCell(notes).value = 'from the workbook';
+		const file = Buffer.from(await wb.xlsx.writeBuffer());
+		const preview = await upload(own.owner, 'plan.xlsx', file, { seasonId: String(seasonId) });
+		const body = await preview.json();
+		expect(preview.status, JSON.stringify(body)).toBe(200);
+		const apply = await own.owner.json('/api/import/apply', 'POST', { token: body.preview.token });
+		expect(apply.status, await apply.clone().text()).toBe(200);
+		const now = await rows();
+		expect(now.length).toBeGreaterThan(0);
+		expect(now.map((r) => r.notes)).toEqual(now.map(() => 'from the workbook'));
+	});
+
+	it('a season copied into the next year: its list is the copy', async () => {
+		expect((await own.owner.json(`/api/seasons/${seasonId}/copy`, 'POST', {})).status).toBe(201);
+		const next = (await testDb()('seasons').where({ farm_id: own.farmId, year: 2027 }).first('id')).id;
+		const copied = await testDb()('plantings').where({ season_id: next }).pluck('id');
+		const res = await own.owner.get(`/api/seasons/${next}/plantings`);
+		expect(res.status).toBe(200);
+		expect(((await res.json()).plantings as Row[]).map((r) => r.id).sort()).toEqual(copied.sort());
+		expect(copied.length).toBeGreaterThan(0);
 	});
 
 	it('writes straight in the database, by any tool: update, insert, names, cascades', async () => {

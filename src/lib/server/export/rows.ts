@@ -9,6 +9,7 @@ import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
+import { seedOrder } from '../seed-order';
 
 export type Cell = string | number | Date | null;
 export type Row = Cell[];
@@ -60,67 +61,23 @@ function plantingRows(d: SeasonData): Row[] {
 	]);
 }
 
-interface SeedTotal {
-	v: VarietyView;
-	plantings: number;
-	bedFeet: number;
-	seeds: number;
-	grams: number;
-	costCents: number;
-	cells: number;
-	trays: number;
-}
-
-/**
- * Grams of a variety's whole order, rounded (up) once: Σ seeds ÷ seeds per gram (not a sum of each
- * planting's rounded grams), so the sheet's own columns agree: cost = grams × price per gram,
- * to the cent.
- */
-const gramsOf = (t: SeedTotal): number => {
-	// Rounded up to the hundredth, as the engine rounds one planting's seed: never short of seed.
-	const g = t.v.seedsPerGram > 0 ? t.seeds / t.v.seedsPerGram : t.grams;
-	return Math.ceil(Math.round(g * 1e6) / 1e4) / 100;
-};
-
-/**
- * Per variety: Σ of the engine's seedNeed over the season's plantings. Packets are bought per
- * variety, so they are ceil(Σ seeds ÷ seeds per packet), not a sum of per-planting packets.
- */
+/** The Seed order sheet: the season's seed order (src/lib/server/seed-order.ts), money in dollars. */
 function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
-	const totals = new Map<number, SeedTotal>();
-	for (const p of d.plantings) {
-		const v = varieties.get(p.varietyId);
-		const s = seeds.get(p.id);
-		if (!v || !s) continue;
-		let t = totals.get(v.id);
-		if (!t)
-			totals.set(v.id, (t = { v, plantings: 0, bedFeet: 0, seeds: 0, grams: 0, costCents: 0, cells: 0, trays: 0 }));
-		t.plantings += 1;
-		t.bedFeet += p.lengthFt;
-		t.seeds += s.seeds;
-		t.grams += s.grams;
-		t.costCents += s.costCents ?? 0;
-		t.cells += s.cells;
-		t.trays += s.trays;
-	}
-	const rows = [...totals.values()]
-		.sort((a, b) => a.v.crop.localeCompare(b.v.crop) || a.v.name.localeCompare(b.v.name))
-		.map((t): Row => [
-			t.v.crop,
-			t.v.name,
-			t.v.method,
-			t.plantings,
-			round2(t.bedFeet),
-			t.seeds,
-			gramsOf(t),
-			t.v.seedsPerPacket,
-			t.v.seedsPerPacket ? Math.ceil(t.seeds / t.v.seedsPerPacket) : null,
-			t.v.seedPriceCentsPerGram / 100,
-			Math.round(gramsOf(t) * t.v.seedPriceCentsPerGram) / 100,
-			t.v.method === 'transplant' ? t.cells : null,
-			t.v.method === 'transplant' ? t.trays : null
-		]);
-	return rows;
+	return seedOrder(d.plantings, seeds, varieties).map((l): Row => [
+		l.crop,
+		l.variety,
+		l.method,
+		l.plantings,
+		l.bedFeet,
+		l.seeds,
+		l.grams,
+		l.seedsPerPacket,
+		l.packets,
+		l.priceCentsPerGram / 100,
+		l.costCents / 100,
+		l.cells,
+		l.trays
+	]);
 }
 
 const taskOrder = { 'Tray sowing': 0, 'Direct sowing': 1, Transplanting: 2, Harvest: 3 } as const;

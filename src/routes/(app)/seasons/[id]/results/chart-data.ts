@@ -17,3 +17,29 @@ export function chartWeeks(rows: CropWeekActual[]): ChartWeek[] {
 		return { week, forecast: r?.forecast ?? 0, logged: r?.logged ?? 0, adjusted: r ? r.adjusted : null };
 	});
 }
+
+export interface StepPoint {
+	week: string;
+	v: number;
+	/** The week's left edge, or (last of a run) its right edge. */
+	edge: 'start' | 'end';
+}
+
+/**
+ * A step line's points in runs of consecutive weeks that have a value; a week without one breaks
+ * the line, so it never bridges weeks without a forecast. Each run ends at its last week's right edge.
+ */
+export function stepRuns(pts: { week: string; v: number | null }[]): StepPoint[][] {
+	const runs: StepPoint[][] = [];
+	let run: StepPoint[] | null = null;
+	for (const p of pts) {
+		if (p.v === null) {
+			run = null;
+			continue;
+		}
+		if (!run) runs.push((run = []));
+		run.push({ week: p.week, v: p.v, edge: 'start' });
+	}
+	for (const r of runs) r.push({ ...r.at(-1)!, edge: 'end' });
+	return runs;
+}
