@@ -31,6 +31,13 @@ describe('forecast chart', () => {
 		const page = await browser.context.newPage();
 		await signIn(page, f.email, f.password);
 		await page.goto(`/seasons/${f.season2027}/forecast?from=2027-W22&to=2027-W27`);
+		// Pounds and bunches do not add up: with mixed units the page opens on % of demand.
+		await page.waitForFunction(() =>
+			document.querySelector('[data-testid="axis-y"]')?.textContent?.includes('% of demand')
+		);
+		await expect(page.getByRole('radio', { name: '% of demand' }).isChecked()).resolves.toBe(true);
+		await page.getByLabel('Quantity').check();
+		await expect(page.getByTestId('mixed-units').innerText()).resolves.toContain('different units (bunch, lb)');
 		await page.waitForFunction(
 			() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1
 		);
