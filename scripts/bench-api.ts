@@ -33,6 +33,8 @@ import { pathToFileURL } from 'node:url';
 import { chromium } from 'playwright-core';
 import { knexConfig } from '../knexfile';
 import { chromiumFlags } from '../tests/helpers/browser';
+import { Client } from '../tests/helpers/http';
+import { confirmedSignUp } from '../tests/helpers/signup';
 
 // 200 requests per target, in four alternating rounds: load from other programs on a shared
 // machine then falls on both targets alike rather than on one.
@@ -86,7 +88,9 @@ interface BenchFarm {
 /** Signs a bench farm up like anyone, then writes its ground and `rows` plantings straight in. */
 export async function benchFarm(db: Knex, base: string, tag: string, rows: number): Promise<BenchFarm> {
 	const email = `bench-${tag}-${Date.now().toString(36)}@bench.furrowcast.test`;
-	const form = new URLSearchParams({
+	// Signed up as a person does: the form, then the link the confirmation mail carries.
+	const client = new Client();
+	const signup = await confirmedSignUp(client, {
 		name: 'Bench Grower (invented)',
 		email,
 		password: 'Furrow-bench-7Qx-pl2',
@@ -95,17 +99,8 @@ export async function benchFarm(db: Knex, base: string, tag: string, rows: numbe
 		lastSpringFrost: '2027-05-10',
 		firstFallFrost: '2027-10-05'
 	});
-	const signup = await fetch(`${base}/signup`, {
-		method: 'POST',
-		body: form,
-		headers: { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' },
-		redirect: 'manual'
-	});
 	if (signup.status !== 303) throw new Error(`bench sign-up answered ${signup.status}`);
-	const cookie = signup.headers
-		.getSetCookie()
-		.map((c) => c.split(';')[0])
-		.join('; ');
+	const cookie = [...client.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
 	const user = await db('users').where({ email }).first('id');
 	const farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
 	const [blockId] = await db('blocks').insert({ farm_id: farmId, name: 'Bench block', position: 1 });
@@ -356,8 +351,12 @@ export async function gridOverTheWire(base: string, farm: BenchFarm): Promise<Re
 	});
 	try {
 		const context = await browser.newContext({ baseURL: base, viewport: { width: 1600, height: 1000 } });
-		const [name, value] = farm.cookie.split(';')[0].split('=');
-		await context.addCookies([{ name, value, url: base }]);
+		await context.addCookies(
+			farm.cookie.split('; ').map((pair) => {
+				const i = pair.indexOf('=');
+				return { name: pair.slice(0, i), value: pair.slice(i + 1), url: base };
+			})
+		);
 		const page = await context.newPage();
 		const cdp = await context.newCDPSession(page);
 		await cdp.send('Network.enable');

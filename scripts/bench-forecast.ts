@@ -15,6 +15,7 @@
 import { pathToFileURL } from 'node:url';
 import { addDays, weekStart, weeksBetween } from '../src/lib/planning/index';
 import { Client } from '../tests/helpers/http';
+import { confirmedSignUp } from '../tests/helpers/signup';
 import { closeTestDb, testDb, uniqueEmail } from '../tests/helpers/db';
 import { launch, signIn } from '../tests/helpers/browser';
 import { median, prng } from './bench-stats';
@@ -56,7 +57,7 @@ const UNITS = ['lb', 'bunch', 'head', 'each'];
 export async function createBenchFarm(): Promise<BenchFarm> {
 	const email = uniqueEmail('bench-forecast');
 	const client = new Client();
-	const res = await client.postForm('/signup', {
+	const res = await confirmedSignUp(client, {
 		name: 'Bench Planner (invented)',
 		email,
 		password: PASSWORD,

@@ -11,6 +11,7 @@ import { addDays } from '../src/lib/planning/index';
 import { layoutTimeline } from '../src/lib/components/timeline/layout';
 import type { TimelinePlanting } from '../src/lib/timeline-types';
 import { Client } from '../tests/helpers/http';
+import { confirmedSignUp } from '../tests/helpers/signup';
 import { closeTestDb, testDb, uniqueEmail } from '../tests/helpers/db';
 import { launch, signIn } from '../tests/helpers/browser';
 
@@ -82,7 +83,7 @@ function benchLayout(): number {
 async function makeBenchFarm(): Promise<{ email: string; password: string; farmId: number; seasonId: number }> {
 	const email = uniqueEmail('bench-timeline');
 	const password = 'bench-timeline-pass';
-	const res = await new Client().postForm('/signup', {
+	const res = await confirmedSignUp(new Client(), {
 		name: 'Bench',
 		email,
 		password,
