@@ -127,6 +127,9 @@ export interface DemoCrop {
 	/** How the yield spreads over the harvest window (see src/lib/planning/harvest-curve.ts). */
 	harvest_curve: 'flat' | 'ramp' | 'single' | 'cuts';
 	harvest_cut_interval_days: number | null;
+	/** Storage crops: weeks a harvest keeps, and the share lost each week in store. */
+	storage_weeks?: number | null;
+	storage_loss_per_week?: number | null;
 }
 
 // Harvest curves (common practice, no published source): fruiting crops are picked in a ramp,
@@ -282,7 +285,10 @@ export const DEMO_CROPS: readonly DemoCrop[] = [
 		heat_limit_f: null,
 		base_temp_f: 40,
 		harvest_curve: 'single',
-		harvest_cut_interval_days: null
+		harvest_cut_interval_days: null,
+		// Cured and kept: dug in July, it feeds the boxes into the autumn (invented demo figures).
+		storage_weeks: 24,
+		storage_loss_per_week: 0.01
 	},
 	{
 		name: 'Tomato',

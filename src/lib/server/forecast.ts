@@ -1,6 +1,7 @@
 // A season's weekly harvest forecast against its demand: the engine's forecast() over the
 // season's plantings (failed ones left out), logged harvests in place of the forecast for
-// past weeks, and targets from the box contents with the recorded swaps applied.
+// past weeks, and targets from the box contents with the recorded swaps applied. A storage
+// crop's harvest goes through its store, so it feeds the weeks after it is dug.
 import {
 	applySwaps,
 	cropWeekKey,
@@ -14,6 +15,7 @@ import {
 	type TargetInput
 } from '$lib/planning';
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
+import { throughStores } from '$lib/planning/storage';
 import { todayIn } from '$lib/today';
 import { curveOf } from './crops';
 import { db } from './db';
@@ -80,7 +82,7 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	const t0 = performance.now();
 	// One round of queries in parallel; logged harvests are cut at the current week below, once
 	// the farm's time zone is known.
-	const [farm, crops, plantings, harvests, input, swaps] = await Promise.all([
+	const [farm, crops, plantings, harvests, input, swaps, stores] = await Promise.all([
 		db()('farms').where({ id: farmId }).first('time_zone'),
 		listCrops(farmId),
 		// Every planting harvesting in the season's dates, whatever season it belongs to (last
@@ -113,7 +115,16 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 			.andWhereRaw('h.unit = c.harvest_unit')
 			.select('h.planting_id', 'v.crop_id', 'h.harvested_on', 'h.quantity'),
 		targetInput(farmId, season.id),
-		activeSwaps(farmId, season.id)
+		activeSwaps(farmId, season.id),
+		// Storage crops: how long a harvest keeps and what share it loses a week in store.
+		db()('crops')
+			.where({ farm_id: farmId })
+			.where('storage_weeks', '>', 0)
+			.select<{ id: number; storage_weeks: number; storage_loss_per_week: string | number | null }[]>(
+				'id',
+				'storage_weeks',
+				'storage_loss_per_week'
+			)
 	]);
 	const currentWeek = isoWeek(todayIn(farm?.time_zone ?? 'UTC'));
 	const t1 = performance.now();
@@ -141,7 +152,13 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	const demand = applySwaps(input, swaps);
 	// The supply is summed per crop-week already: join it with the targets directly rather than
 	// through a second forecast() over one pseudo-planting per crop-week (same rows, bit for bit).
-	const rows = forecastFromWeeklySupply(supply, deriveTargets(demand)) as SeasonForecastRow[];
+	const targets = deriveTargets(demand);
+	const kept = stores.map((c) => ({
+		crop: String(c.id),
+		keepWeeks: Number(c.storage_weeks),
+		lossPerWeek: Number(c.storage_loss_per_week ?? 0)
+	}));
+	const rows = forecastFromWeeklySupply(throughStores(supply, targets, kept), targets) as SeasonForecastRow[];
 	for (const r of rows) r.actual = actual.size > 0 && actual.has(cropWeekKey(r.crop, r.week));
 	const timing = { db: t1 - t0, engine: performance.now() - t1 };
 	return { weeks: seasonWeeks(season), currentWeek, crops, rows, demand, swaps, timing };

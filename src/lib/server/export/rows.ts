@@ -10,6 +10,8 @@ import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
 import { seedOrder } from '../seed-order';
+import { forecastFromWeeklySupply } from '$lib/planning/forecast';
+import { throughStores } from '$lib/planning/storage';
 
 export type Cell = string | number | Date | null;
 export type Row = Cell[];
@@ -171,7 +173,23 @@ function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[]
 		});
 	}
 	const crops = new Map(d.crops.map((c) => [String(c.id), c]));
-	return forecast(plantings, deriveTargets(d.demand)).map((r) => [
+	const targets = deriveTargets(d.demand);
+	// Storage crops through their store, as on the Forecast page (planning/storage.ts).
+	const stores = d.crops
+		.filter((c) => (c.storageWeeks ?? 0) > 0)
+		.map((c) => ({ crop: String(c.id), keepWeeks: c.storageWeeks!, lossPerWeek: c.storageLossPerWeek }));
+	const flat = forecast(plantings, targets);
+	const rows = stores.length
+		? forecastFromWeeklySupply(
+				throughStores(
+					flat.filter((r) => r.supply > 0).map((r) => ({ crop: r.crop, week: r.week, quantity: r.supply })),
+					targets,
+					stores
+				),
+				targets
+			)
+		: flat;
+	return rows.map((r) => [
 		crops.get(r.crop)?.name ?? r.crop,
 		crops.get(r.crop)?.harvestUnit ?? null,
 		r.week,

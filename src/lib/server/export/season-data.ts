@@ -47,6 +47,9 @@ export interface CropRow {
 	frostTolerance: string;
 	heatLimitF: number | null;
 	baseTempF: number;
+	/** Storage crops: weeks a harvest keeps (null: sold fresh) and the share lost each week. */
+	storageWeeks: number | null;
+	storageLossPerWeek: number;
 }
 
 export interface ExportBed {
@@ -132,7 +135,9 @@ async function listCrops(farmId: number): Promise<CropRow[]> {
 		harvestUnit: r.harvest_unit,
 		frostTolerance: r.frost_tolerance,
 		heatLimitF: numOrNull(r.heat_limit_f),
-		baseTempF: num(r.base_temp_f)
+		baseTempF: num(r.base_temp_f),
+		storageWeeks: numOrNull(r.storage_weeks),
+		storageLossPerWeek: num(r.storage_loss_per_week ?? 0)
 	}));
 }
 
