@@ -4,7 +4,7 @@
 // Source: the day/month order of each locale comes from Intl.DateTimeFormat (CLDR data):
 // en-GB writes 24/06/2027, en-US writes 6/24/2027.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launch, signIn, type BrowserSession } from '../helpers/browser';
+import { launch, pasteIntoGrid, signIn, type BrowserSession } from '../helpers/browser';
 import { closeTestDb, testDb } from '../helpers/db';
 import { signUpFarm, writeHandPlan, type NewFarm } from '../helpers/transfer';
 
@@ -21,14 +21,6 @@ afterAll(async () => {
 	await closeTestDb();
 	await browser.close();
 });
-
-async function pasteInto(page: import('../helpers/browser').Page, text: string): Promise<void> {
-	await page.getByTestId('grid').evaluate((el, t) => {
-		const data = new DataTransfer();
-		data.setData('text/plain', t);
-		el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
-	}, text);
-}
 
 describe('a farm that writes day/month/year', () => {
 	it('the owner chooses the date style in Farm & beds', async () => {
@@ -53,7 +45,7 @@ describe('a farm that writes day/month/year', () => {
 		await page.locator('[data-row="0"]').waitFor();
 		const first = await testDb()('plantings').where({ season_id: seasonId }).orderBy('id').first('id', 'field_date');
 		await page.locator('[data-row="0"] [data-col="fieldDate"]').click();
-		await pasteInto(page, '12/07/2027');
+		await pasteIntoGrid(page, '12/07/2027');
 		// Day and month could swap: nothing is saved until the reading is confirmed.
 		await expect(page.getByTestId('paste-note').innerText()).resolves.toMatch(
 			/read as 12 July 2027 \(day\/month\/year, as en-GB writes dates\)/

@@ -2,7 +2,7 @@
 // 3×4 block, fill down, undo/redo, a stale edit from a second browser meets the conflict
 // message without losing data, and a crew lead cannot edit crop or bed-feet.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { launch, signIn, type BrowserSession, type Page } from '../helpers/browser';
+import { launch, pasteIntoGrid, signIn, type BrowserSession, type Page } from '../helpers/browser';
 import { demo } from '../helpers/env';
 import { closeTestDb, testDb } from '../helpers/db';
 import { signedIn } from '../helpers/http';
@@ -59,14 +59,6 @@ async function saved(page: Page): Promise<void> {
 	await page.getByTestId('save-status').getByText('All changes saved').waitFor({ timeout: 10_000 });
 }
 
-async function paste(page: Page, text: string): Promise<void> {
-	await page.getByTestId('grid').evaluate((el, t) => {
-		const data = new DataTransfer();
-		data.setData('text/plain', t);
-		el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
-	}, text);
-}
-
 describe('the owner drives the grid from the keyboard', () => {
 	let page: Page;
 	beforeAll(async () => {
@@ -94,7 +86,7 @@ describe('the owner drives the grid from the keyboard', () => {
 
 	it('pastes a 3×4 block of tab-separated text', async () => {
 		await cell(page, 1, 'startFt').click();
-		await paste(page, '26\t15\t2\t3\n51\t16\t3\t4\n76\t17\t4\t5');
+		await pasteIntoGrid(page, '26\t15\t2\t3\n51\t16\t3\t4\n76\t17\t4\t5');
 		await expect(cell(page, 1, 'startFt').innerText()).resolves.toBe('26 ft');
 		await expect(cell(page, 3, 'spacing').innerText()).resolves.toBe('5 in');
 		await expect(cell(page, 2, 'rows').innerText()).resolves.toBe('3 rows');
@@ -105,9 +97,9 @@ describe('the owner drives the grid from the keyboard', () => {
 
 	it('names the bad cell of a paste and saves the good ones only on confirmation', async () => {
 		await cell(page, 0, 'notes').click();
-		await paste(page, 'good note\nx\n');
+		await pasteIntoGrid(page, 'good note\nx\n');
 		await cell(page, 0, 'rows').click();
-		await paste(page, '2\nmany');
+		await pasteIntoGrid(page, '2\nmany');
 		await expect(page.getByTestId('paste-review').innerText()).resolves.toContain('Row 2, Rows: “many”');
 		await page.getByRole('button', { name: /Save the 1 good cell/ }).click();
 		await expect(cell(page, 0, 'rows').innerText()).resolves.toBe('2 rows');

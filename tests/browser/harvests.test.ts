@@ -193,6 +193,8 @@ describe('next season across week 53', () => {
 		await expect(report.innerText()).resolves.toContain('Copied 2 plantings');
 		await expect(report.innerText()).resolves.toContain('1 planting was in week 53 and now sits in week 52.');
 		await Promise.all([page.waitForURL(/\/seasons\/\d+$/), report.getByRole('link', { name: '2027 season' }).click()]);
+		// The overview folds its list of every planting: open it.
+		await page.locator('summary', { hasText: 'Every planting' }).click();
 		const text = await page.locator('table').first().innerText();
 		expect(text).toContain('W52 · Tue 28 Dec');
 		expect(text).toContain('W02 · Mon 11 Jan');

@@ -71,4 +71,13 @@ export async function confirmSignUpByMail(page: Page): Promise<void> {
 	]);
 }
 
+/** Pastes text into the planting grid as a spreadsheet's clipboard would (a paste event with text/plain). */
+export async function pasteIntoGrid(page: Page, text: string): Promise<void> {
+	await page.getByTestId('grid').evaluate((el, t) => {
+		const data = new DataTransfer();
+		data.setData('text/plain', t);
+		el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+	}, text);
+}
+
 export type { Browser, BrowserContext, Page };

@@ -120,7 +120,8 @@ class FakeApi implements GridApi {
 
 function grid(
 	plantings = [planting(1), planting(2, { startFt: 60, lengthFt: 40, fieldDate: '2026-05-04' })],
-	role: 'owner' | 'crew_lead' | 'share_manager' = 'owner'
+	role: 'owner' | 'crew_lead' | 'share_manager' = 'owner',
+	dateLocale?: string
 ) {
 	const api = new FakeApi();
 	const g = new GridState(
@@ -136,7 +137,8 @@ function grid(
 				bedFootIncrement: 5
 			},
 			role,
-			seasonId: 1
+			seasonId: 1,
+			dateLocale
 		},
 		api,
 		{ debounceMs: 60_000 }
@@ -302,26 +304,7 @@ describe('paste', () => {
 	});
 	it("reads pasted dates the farm's way (its date style), not the browser's", () => {
 		// Source: Intl.DateTimeFormat (CLDR): de-DE writes day.month.year.
-		const api = new FakeApi();
-		const g = new GridState(
-			{
-				plantings: [planting(1)],
-				varieties: [carrot, lettuce],
-				beds: [{ id: 10, name: 'B1', blockId: 1, blockName: 'North', lengthFt: 100 }],
-				farm: {
-					lastSpringFrost: '2026-05-10',
-					firstFallFrost: '2026-10-05',
-					latitude: 42,
-					turnaroundDays: 7,
-					bedFootIncrement: 5
-				},
-				role: 'owner',
-				seasonId: 1,
-				dateLocale: 'de-DE'
-			},
-			api,
-			{ debounceMs: 0 }
-		);
+		const { g } = grid([planting(1)], 'owner', 'de-DE');
 		g.moveTo(0, col(g, 'fieldDate'));
 		expect(g.paste('24.6.2026').bad).toEqual([]);
 		expect(g.rows[0].values.fieldDate).toBe('2026-06-24');

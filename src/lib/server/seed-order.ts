@@ -119,6 +119,25 @@ export async function seasonSeedOrder(
 	return { lines, totals: seedOrderTotals(lines) };
 }
 
+/** One line's cells in the Seed order sheet's column order (layout.ts), money in whole units. */
+export function seedOrderCells(l: SeedOrderLine): (string | number | null)[] {
+	return [
+		l.crop,
+		l.variety,
+		l.method,
+		l.plantings,
+		l.bedFeet,
+		l.seeds,
+		l.grams,
+		l.seedsPerPacket,
+		l.packets,
+		l.priceCentsPerGram / 100,
+		l.costCents / 100,
+		l.cells,
+		l.trays
+	];
+}
+
 /** The order as CSV (RFC 4180, CRLF), formulae escaped: money in the farm's currency unit. */
 export function seedOrderCsv(lines: SeedOrderLine[], currency: string): string {
 	const fields = [
@@ -136,20 +155,9 @@ export function seedOrderCsv(lines: SeedOrderLine[], currency: string): string {
 		'Cells',
 		'Trays'
 	];
-	const data = lines.map((l) => [
-		l.crop,
-		l.variety,
-		l.method,
-		l.plantings,
-		l.bedFeet,
-		l.seeds,
-		l.grams,
-		l.seedsPerPacket ?? '',
-		l.packets ?? '',
-		(l.priceCentsPerGram / 100).toFixed(2),
-		(l.costCents / 100).toFixed(2),
-		l.cells ?? '',
-		l.trays ?? ''
-	]);
+	// Money with two decimals, as the currency writes it; an empty cell where a figure does not apply.
+	const data = lines.map((l) =>
+		seedOrderCells(l).map((v, i) => (v === null ? '' : i === 9 || i === 10 ? Number(v).toFixed(2) : v))
+	);
 	return Papa.unparse({ fields, data }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
 }

@@ -9,7 +9,7 @@ import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
-import { seedOrder } from '../seed-order';
+import { seedOrder, seedOrderCells } from '../seed-order';
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { throughStores } from '$lib/planning/storage';
 
@@ -65,21 +65,7 @@ function plantingRows(d: SeasonData): Row[] {
 
 /** The Seed order sheet: the season's seed order (src/lib/server/seed-order.ts), money in dollars. */
 function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
-	return seedOrder(d.plantings, seeds, varieties).map((l): Row => [
-		l.crop,
-		l.variety,
-		l.method,
-		l.plantings,
-		l.bedFeet,
-		l.seeds,
-		l.grams,
-		l.seedsPerPacket,
-		l.packets,
-		l.priceCentsPerGram / 100,
-		l.costCents / 100,
-		l.cells,
-		l.trays
-	]);
+	return seedOrder(d.plantings, seeds, varieties).map(seedOrderCells);
 }
 
 const taskOrder = { 'Tray sowing': 0, 'Direct sowing': 1, Transplanting: 2, Harvest: 3 } as const;
