@@ -31,7 +31,7 @@ async function signUp(page: Page, email: string, farm: string): Promise<void> {
 	await page.getByLabel('Last spring frost').fill('2027-05-12');
 	await page.getByLabel('First fall frost').fill('2027-10-02');
 	await page.getByRole('button', { name: 'Create farm' }).click();
-	await page.getByText('Check your e-mail to finish').waitFor();
+	await page.getByText('Check your e-mail to finish').waitFor({ timeout: 15_000 });
 	await confirmSignUpByMail(page);
 }
 

@@ -55,19 +55,23 @@ export async function signIn(page: Page, email: string, password: string): Promi
  * sign-up mail; open it, follow the mailed link and press the confirmation's button, landing on /setup.
  */
 export async function confirmSignUpByMail(page: Page): Promise<void> {
-	await page.getByRole('link', { name: 'Read the sign-up mail here' }).click();
-	await page.waitForURL('**/signup/mail');
+	// Every wait is bounded, so a sign-up that stalls names its step instead of using up the test's time.
+	const step = { timeout: 15_000 };
+	await page.getByRole('link', { name: 'Read the sign-up mail here' }).click(step);
+	await page.waitForURL('**/signup/mail', step);
 	const link = page.locator('a[href*="/signup/confirm/"]').first();
-	// The mail leaves just after the answer: look again until it is there.
-	for (let i = 0; i < 50 && (await link.count()) === 0; i++) {
+	// The mail leaves just after the answer: look again until it is there (20 s at most).
+	const until = Date.now() + 20_000;
+	while ((await link.count()) === 0 && Date.now() < until) {
 		await page.waitForTimeout(200);
 		await page.reload();
 	}
-	await link.click();
-	await page.waitForURL('**/signup/confirm/*');
+	if ((await link.count()) === 0) throw new Error(`no sign-up mail reached ${page.url()} within 20 s`);
+	await link.click(step);
+	await page.waitForURL('**/signup/confirm/*', step);
 	await Promise.all([
-		page.waitForURL('**/setup'),
-		page.getByRole('button', { name: 'Create the farm and sign in' }).click()
+		page.waitForURL('**/setup', step),
+		page.getByRole('button', { name: 'Create the farm and sign in' }).click(step)
 	]);
 }
 
