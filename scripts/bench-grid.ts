@@ -18,6 +18,7 @@ import { knexConfig } from '../knexfile';
 import { chromiumFlags } from '../tests/helpers/browser';
 import { Client } from '../tests/helpers/http';
 import { confirmedSignUp } from '../tests/helpers/signup';
+import { benchGround } from './bench-ground';
 
 const ROWS = 5000;
 const RUNS = 5;
@@ -54,48 +55,7 @@ export async function runGridBench(): Promise<Record<string, number>> {
 		if (signup.status !== 303) throw new Error(`bench sign-up answered ${signup.status}`);
 		const user = await db('users').where({ email }).first('id');
 		farmId = (await db('farm_members').where({ user_id: user.id }).first('farm_id')).farm_id as number;
-		const [blockId] = await db('blocks').insert({ farm_id: farmId, name: 'Bench block', position: 1 });
-		const bedIds: number[] = [];
-		for (let i = 0; i < 100; i++)
-			bedIds.push(
-				(
-					await db('beds').insert({
-						farm_id: farmId,
-						block_id: blockId,
-						name: `Bench ${i + 1}`,
-						length_ft: 100,
-						position: i
-					})
-				)[0]
-			);
-		const [cropId] = await db('crops').insert({
-			farm_id: farmId,
-			name: 'Bench carrot',
-			family: 'Apiaceae',
-			harvest_unit: 'lb',
-			frost_tolerance: 'hardy'
-		});
-		const [varietyId] = await db('varieties').insert({
-			farm_id: farmId,
-			crop_id: cropId,
-			name: 'Bench Orange',
-			method: 'direct',
-			days_to_maturity: 70,
-			harvest_window_days: 14,
-			yield_per_bed_foot: 1.5,
-			rows_per_bed: 4,
-			in_row_spacing_in: 1,
-			seeds_per_spot: 1,
-			germination_rate: 0.65,
-			seeds_per_gram: 776
-		});
-		const [seasonId] = await db('seasons').insert({
-			farm_id: farmId,
-			year: 2027,
-			name: 'Bench 2027 (invented)',
-			starts_on: '2027-01-01',
-			ends_on: '2027-12-31'
-		});
+		const { seasonId, varietyId, bedIds } = await benchGround(db, farmId);
 		const rows = Array.from({ length: ROWS }, (_, i) => {
 			const day = 1 + (i % 28);
 			return {

@@ -7,7 +7,7 @@ import { todayIn } from '$lib/today';
 import * as farms from './farms';
 import { seasonForecast } from './forecast';
 import { gridContext, listForSeason } from './plantings';
-import type { Season } from './seasons';
+import { dayInSeason, type Season } from './seasons';
 import { nextTaskDate } from './sheets/next-task';
 
 export interface WeekWork {
@@ -61,7 +61,7 @@ export async function seasonOverview(farmId: number, season: Season): Promise<Se
 		farms.get(farmId)
 	]);
 	const today = todayIn(farm.timeZone);
-	const day = today < season.startsOn ? season.startsOn : today > season.endsOn ? season.endsOn : today;
+	const day = dayInSeason(today, season);
 	let work = workIn(plantings, isoWeek(day), null);
 	if (!work.traySowing && !work.directSowing && !work.transplanting && !work.harvest) {
 		const next = await nextTaskDate(farmId, season.id, addDays(weekStart(work.week), 7), season.endsOn);

@@ -42,6 +42,11 @@ export async function list(farmId: number, opts: { archived?: boolean } = {}): P
 	return (await q.orderBy('year', 'desc').select(columns)).map(toSeason);
 }
 
+/** `today` kept within the season: its first day before it begins, its last day after it ends. */
+export function dayInSeason(today: string, season: Pick<Season, 'startsOn' | 'endsOn'>): string {
+	return today < season.startsOn ? season.startsOn : today > season.endsOn ? season.endsOn : today;
+}
+
 /** The season of this farm, or null when the id belongs to no season of this farm. */
 export async function get(farmId: number, seasonId: number): Promise<Season | null> {
 	const r = await db()('seasons').where({ farm_id: farmId, id: seasonId }).first(columns);

@@ -5,6 +5,7 @@ import * as farms from '$lib/server/farms';
 import { isoWeek } from '$lib/planning';
 import { addDays, weekStart } from '$lib/planning/iso-week';
 import { nextTaskDate } from '$lib/server/sheets/next-task';
+import { dayInSeason } from '$lib/server/seasons';
 import { todayIn } from '$lib/today';
 
 // The crew sheets open on the current ISO week as the farm's clock has it, not the server's.
@@ -15,7 +16,7 @@ export const load = (async (event) => {
 	const { season } = await event.parent();
 	const settings = await farms.get(farm.id);
 	const today = todayIn(settings.timeZone);
-	const day = today < season.startsOn ? season.startsOn : today > season.endsOn ? season.endsOn : today;
+	const day = dayInSeason(today, season);
 	const week = isoWeek(day);
 	// A week with nothing to do: on to the next week with work, saying which week was skipped.
 	const monday = weekStart(week);
