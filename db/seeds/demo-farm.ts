@@ -66,6 +66,24 @@ export const DEMO_USERS: readonly DemoUser[] = [
 export const DEMO_OWNER_EMAIL = DEMO_USERS[0].email;
 
 /**
+ * A second copy of the demo, beside the first: `tag` keeps its people apart
+ * (owner@metric.demo.furrowcast.test) and `unitSystem` sets the farm's units. The tests
+ * that read every page and file in metric and in imperial use one.
+ */
+export interface DemoVariant {
+	tag?: string;
+	unitSystem?: 'imperial' | 'metric';
+}
+
+/** The demo users of a variant: the same people, their addresses under the variant's tag. */
+export function demoUsers(variant: DemoVariant = {}): DemoUser[] {
+	return DEMO_USERS.map((u) => ({
+		...u,
+		email: variant.tag ? u.email.replace('@demo.', `@${variant.tag}.demo.`) : u.email
+	}));
+}
+
+/**
  * Invented normal weekly mean air temperature (°F) for ISO week 1–53: a cosine from
  * 22 °F in week 4 (late January) to 72 °F in week 30 (late July). Smooth on purpose —
  * a real normal is bumpier, but the demo only needs heat checks and degree days to bite.
@@ -1571,10 +1589,10 @@ export function supplyRatioSummary(crops: DemoCropSupply[]): { median: number; m
 // ---------------------------------------------------------------------------------------
 
 /** The demo farm's id, found through its owner's e-mail; null when it is not there. */
-export async function findDemoFarm(knex: Knex): Promise<number | null> {
+export async function findDemoFarm(knex: Knex, variant: DemoVariant = {}): Promise<number | null> {
 	const row = await knex('farm_members as m')
 		.join('users as u', 'u.id', 'm.user_id')
-		.where({ 'u.email': DEMO_OWNER_EMAIL, 'm.role': 'owner' })
+		.where({ 'u.email': demoUsers(variant)[0].email, 'm.role': 'owner' })
 		.orderBy('m.farm_id')
 		.first<{ farm_id: number } | undefined>('m.farm_id');
 	return row ? Number(row.farm_id) : null;
@@ -1585,9 +1603,9 @@ export async function findDemoFarm(knex: Knex): Promise<number | null> {
  * plantings → varieties and beds → blocks are ON DELETE RESTRICT, and InnoDB would
  * refuse a farm-row cascade that reaches a block before its beds.
  */
-export async function removeDemoFarm(knex: Knex): Promise<void> {
+export async function removeDemoFarm(knex: Knex, variant: DemoVariant = {}): Promise<void> {
 	await knex.transaction(async (trx) => {
-		const farmId = await findDemoFarm(trx);
+		const farmId = await findDemoFarm(trx, variant);
 		if (farmId !== null) {
 			await trx('plantings').where({ farm_id: farmId }).delete();
 			await trx('beds').where({ farm_id: farmId }).delete();
@@ -1597,7 +1615,7 @@ export async function removeDemoFarm(knex: Knex): Promise<void> {
 		await trx('users')
 			.whereIn(
 				'email',
-				DEMO_USERS.map((u) => u.email)
+				demoUsers(variant).map((u) => u.email)
 			)
 			.delete();
 	});
@@ -1606,19 +1624,20 @@ export async function removeDemoFarm(knex: Knex): Promise<void> {
 /** Seed the demo farm unless it is there; `reset` removes it first. */
 export async function ensureDemoFarm(
 	knex: Knex,
-	options: { reset?: boolean } = {}
+	options: { reset?: boolean; variant?: DemoVariant } = {}
 ): Promise<{ farmId: number; created: boolean }> {
-	if (options.reset) await removeDemoFarm(knex);
-	const existing = await findDemoFarm(knex);
+	const variant = options.variant ?? {};
+	if (options.reset) await removeDemoFarm(knex, variant);
+	const existing = await findDemoFarm(knex, variant);
 	if (existing !== null) return { farmId: existing, created: false };
 	// Demo users left without their farm (an interrupted run) would block the unique e-mails.
 	await knex('users')
 		.whereIn(
 			'email',
-			DEMO_USERS.map((u) => u.email)
+			demoUsers(variant).map((u) => u.email)
 		)
 		.delete();
-	const { farmId } = await seedDemoFarm(knex);
+	const { farmId } = await seedDemoFarm(knex, variant);
 	return { farmId, created: true };
 }
 
@@ -1665,16 +1684,20 @@ function need<T>(map: Map<string, T>, key: string, what: string): T {
 }
 
 /** Insert the whole demo farm in one transaction; nothing is left half-written on error. */
-export async function seedDemoFarm(knex: Knex): Promise<{ farmId: number }> {
+export async function seedDemoFarm(knex: Knex, variant: DemoVariant = {}): Promise<{ farmId: number }> {
 	// Hash before the transaction opens: argon2 takes a moment and holds no locks.
 	const passwordHash = await hashPassword(DEMO_PASSWORD);
 	const plan = planDemoSeason();
 	return knex.transaction(async (trx) => {
-		const [farmId] = await trx('farms').insert({ ...DEMO_FARM });
+		const [farmId] = await trx('farms').insert({
+			...DEMO_FARM,
+			...(variant.tag ? { name: `${DEMO_FARM.name.replace(/\)$/, '')}, ${variant.tag} copy)` } : {}),
+			...(variant.unitSystem ? { unit_system: variant.unitSystem } : {})
+		});
 		await trx('farm_weekly_temps').insert(DEMO_WEEKLY_TEMPS.map((t) => ({ farm_id: farmId, ...t })));
 
 		const userIds = new Map<string, string>();
-		for (const u of DEMO_USERS) {
+		for (const u of demoUsers(variant)) {
 			const id = randomUUID();
 			userIds.set(u.role, id);
 			await trx('users').insert({ id, email: u.email, name: u.name, password_hash: passwordHash });

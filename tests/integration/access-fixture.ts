@@ -30,9 +30,10 @@ export interface AccessFixture {
 
 export const SCRATCH_YEARS = [2040, 2060];
 
-export async function makeAccessFixture(): Promise<AccessFixture> {
+/** The fixture in the farm of `ownerEmail` (the demo farm unless told; the units test uses a metric copy). */
+export async function makeAccessFixture(ownerEmail: string = demo.owner): Promise<AccessFixture> {
 	const db = testDb();
-	const owner = await db('users').where({ email: demo.owner }).first('id');
+	const owner = await db('users').where({ email: ownerEmail }).first('id');
 	const farmId: number = (await db('farm_members').where({ user_id: owner.id }).first('farm_id')).farm_id;
 	const seasonId: number = (await db('seasons').where({ farm_id: farmId, year: 2027 }).first('id')).id;
 	const harvest = await db('harvest_records as h')

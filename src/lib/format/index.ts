@@ -2,7 +2,7 @@
 // through here, so a farm's unit system, currency and time zone apply everywhere alike.
 // The database keeps its canonical units (lb, ft, in, °F, cents); conversion happens only for
 // display and input. Constants: NIST Handbook 44, Appendix C (see $lib/planning/units).
-import { CM_PER_IN, KG_PER_LB, M_PER_FT, fToC, cToF } from '$lib/planning/units';
+import { CM_PER_IN, G_PER_OZ, KG_PER_LB, M_PER_FT, fToC, cToF } from '$lib/planning/units';
 
 export type UnitSystem = 'imperial' | 'metric';
 
@@ -146,11 +146,41 @@ export function formatTemp(f: number, system: UnitSystem): string {
 	return `${formatNumber(toDisplayTemp(f, system), 0)} ${temperatureUnit(system)}`;
 }
 
-// ---- Seed --------------------------------------------------------------------------------------
+// ---- Seed ----------------------------------------------------------------------------------------
 
-/** Seed weight stays in grams on every farm (seed is sold and sized by the gram). */
-export function formatGrams(g: number): string {
-	return `${formatNumber(g, g >= 100 ? 0 : 2)} g`;
+/**
+ * Seed weight: grams on a metric farm, ounces on an imperial one (catalogues on either side sell
+ * and count seed that way). The database keeps grams and seeds per gram.
+ */
+export function seedWeightUnit(system: UnitSystem): 'g' | 'oz' {
+	return system === 'metric' ? 'g' : 'oz';
+}
+export function toDisplaySeedWeight(grams: number, system: UnitSystem): number {
+	return system === 'metric' ? grams : grams / G_PER_OZ;
+}
+export function fromDisplaySeedWeight(value: number, system: UnitSystem): number {
+	return system === 'metric' ? value : value * G_PER_OZ;
+}
+/** Decimals for a seed weight: small ounces need three (0.004 oz is about 100 lettuce seeds). */
+export function seedWeightDigits(value: number): number {
+	const a = Math.abs(value);
+	return a >= 100 ? 0 : a >= 10 ? 1 : a >= 0.1 ? 2 : 3;
+}
+/** "4,635 g" or "0.35 oz". */
+export function formatSeedWeight(grams: number, system: UnitSystem): string {
+	const v = toDisplaySeedWeight(grams, system);
+	return `${formatNumber(v, seedWeightDigits(v))} ${seedWeightUnit(system)}`;
+}
+/** Seeds per gram (stored) as seeds per the farm's seed-weight unit. */
+export function toDisplaySeedsPerWeight(perGram: number, system: UnitSystem): number {
+	return system === 'metric' ? perGram : perGram * G_PER_OZ;
+}
+export function fromDisplaySeedsPerWeight(value: number, system: UnitSystem): number {
+	return system === 'metric' ? value : value / G_PER_OZ;
+}
+/** A price per gram (stored in cents) as a price per the farm's seed-weight unit, in cents. */
+export function toDisplayPricePerSeedWeight(centsPerGram: number, system: UnitSystem): number {
+	return system === 'metric' ? centsPerGram : centsPerGram * G_PER_OZ;
 }
 
 /** "1 tray", "12 trays": a count with its word in the right number. */
