@@ -103,6 +103,11 @@ export function formatFeet(ft: number, system: UnitSystem, digits?: number): str
 	const v = toDisplayFeet(ft, system);
 	return `${formatNumber(v, digits ?? (system === 'metric' ? autoDigits(v) : 1))} ${lengthUnit(system)}`;
 }
+/** Where a planting sits in its bed: "0–50 ft (50 ft)" or "0–15.24 m (15.24 m)". */
+export function formatBedRange(startFt: number, lengthFt: number, system: UnitSystem): string {
+	const at = (ft: number) => formatNumber(toDisplayFeet(ft, system), 2);
+	return `${at(startFt)}–${at(startFt + lengthFt)} ${lengthUnit(system)} (${formatFeet(lengthFt, system)})`;
+}
 /** "bed-feet" or "bed-metres", for totals of bed length. */
 export function bedLengthWord(system: UnitSystem): string {
 	return system === 'metric' ? 'bed-metres' : 'bed-feet';
@@ -129,6 +134,12 @@ export function perLengthLabel(unit: HarvestUnit, system: UnitSystem): string {
 }
 export function toDisplayPerFoot(perFoot: number, unit: HarvestUnit, system: UnitSystem): number {
 	return system === 'metric' ? toDisplayQuantity(perFoot, unit, system) / M_PER_FT : perFoot;
+}
+
+/** "0.75 lb/ft", "1.12 kg/m", "8 bunches/ft". */
+export function formatPerLength(perFoot: number, unit: HarvestUnit, system: UnitSystem): string {
+	const v = toDisplayPerFoot(perFoot, unit, system);
+	return `${formatNumber(v, autoDigits(v))} ${perLengthLabel(unit, system)}`;
 }
 
 // ---- Temperatures ------------------------------------------------------------------------------
