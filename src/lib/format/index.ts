@@ -108,6 +108,14 @@ export function formatBedRange(startFt: number, lengthFt: number, system: UnitSy
 	const at = (ft: number) => formatNumber(toDisplayFeet(ft, system), 2);
 	return `${at(startFt)}–${at(startFt + lengthFt)} ${lengthUnit(system)} (${formatFeet(lengthFt, system)})`;
 }
+/** A stored length as an input shows it: feet, or metres to the centimetre. */
+export function lengthInputValue(ft: number, system: UnitSystem): string {
+	return system === 'metric' ? String(Number((ft * M_PER_FT).toFixed(2))) : String(ft);
+}
+/** A stored bed width as an input shows it: inches, or whole centimetres. */
+export function widthInputValue(inches: number, system: UnitSystem): string {
+	return system === 'metric' ? String(Math.round(inches * CM_PER_IN)) : String(inches);
+}
 /** "bed-feet" or "bed-metres", for totals of bed length. */
 export function bedLengthWord(system: UnitSystem): string {
 	return system === 'metric' ? 'bed-metres' : 'bed-feet';
