@@ -79,6 +79,11 @@ export function fromDisplayQuantity(value: number, unit: HarvestUnit, system: Un
 	return unit === 'lb' && system === 'metric' ? value / KG_PER_LB : value;
 }
 
+/** A typed quantity as the database keeps it: canonical unit, to the hundredth. */
+export function storedQuantity(value: number, unit: HarvestUnit, system: UnitSystem): number {
+	return Math.round(fromDisplayQuantity(value, unit, system) * 100) / 100;
+}
+
 /** "4,635 lb", "2,102.4 kg", "1 bunch", "12 bunches". */
 export function formatQuantity(value: number, unit: HarvestUnit, system: UnitSystem, digits?: number): string {
 	const v = toDisplayQuantity(value, unit, system);
