@@ -79,6 +79,11 @@ export function fromDisplayQuantity(value: number, unit: HarvestUnit, system: Un
 	return unit === 'lb' && system === 'metric' ? value / KG_PER_LB : value;
 }
 
+/** A stored quantity as a form field shows it in the farm's unit: "0.25" lb, or "0.113" kg. */
+export function typedQuantity(stored: number, unit: HarvestUnit, system: UnitSystem): string {
+	return String(Number(toDisplayQuantity(stored, unit, system).toFixed(3)));
+}
+
 /** A typed quantity as the database keeps it: canonical unit, to the hundredth. */
 export function storedQuantity(value: number, unit: HarvestUnit, system: UnitSystem): number {
 	return Math.round(fromDisplayQuantity(value, unit, system) * 100) / 100;
