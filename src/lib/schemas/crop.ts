@@ -445,6 +445,12 @@ export function measuredFields<T extends Record<string, FieldSpec>>(fields: T, c
 			.replace('{weight}', ctx.system === 'metric' ? 'gram' : 'ounce');
 	const out: Record<string, FieldSpec> = {};
 	for (const [k, spec] of Object.entries(fields)) {
+		if (spec.kind === 'choice' && k === 'harvestUnit') {
+			// The unit keeps its stored value (lb); the farm reads it as it weighs (kg on a metric farm).
+			const options = spec.options.map((o) => ({ ...o, label: quantityUnit(o.value, ctx.system, 1) }));
+			out[k] = { ...spec, options, help: words(spec.help) };
+			continue;
+		}
 		if (spec.kind !== 'number') {
 			out[k] = { ...spec, help: words(spec.help) };
 			continue;
