@@ -536,6 +536,7 @@ export class GridState {
 			id: null,
 			version: 0,
 			values,
+			harvestDays: null,
 			derived: null,
 			deriveError: null,
 			conflicts: [],
