@@ -77,4 +77,7 @@ export interface VarietyView {
 	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
 	/** Days between cuts, for a curve of several cuts (null: the engine's default). */
 	cutIntervalDays?: number | null;
+	/** A storage crop's weeks in store (null or 0: sold fresh) and share lost a week, from its crop. */
+	storageWeeks?: number | null;
+	storageLossPerWeek?: number | null;
 }

@@ -37,6 +37,13 @@ export function validateVariety(v: Variety): Variety {
 	if (v.gddToMaturity !== undefined) requirePositive(f('gddToMaturity'), v.gddToMaturity);
 	if (v.margin !== undefined) requireNonNegative(f('margin'), v.margin);
 	if (v.harvestCurve !== undefined) validateCurve(v.harvestCurve, f('harvestCurve'));
+	if (v.storage !== undefined) {
+		if (v.storage === null || typeof v.storage !== 'object')
+			throw new PlanningInputError(f('storage'), 'must be an object');
+		requireNonNegativeInteger(f('storage.keepWeeks'), v.storage.keepWeeks);
+		if (requireNonNegative(f('storage.lossPerWeek'), v.storage.lossPerWeek) >= 1)
+			throw new PlanningInputError(f('storage.lossPerWeek'), 'must be a fraction under 1, e.g. 0.01 for 1 % a week');
+	}
 	return v;
 }
 
