@@ -16,6 +16,7 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import { plantingRow } from '../../src/lib/planting-row';
+import { storeSupply } from '../../src/lib/planning/storage';
 import {
 	type Farm,
 	type KeptPlanting,
@@ -1335,9 +1336,9 @@ const VARIETY_PLAN: Readonly<Record<string, readonly VarietyShare[]>> = {
 		{ variety: 'Butter Lane Wax', fraction: 0.4 }
 	]
 	// Garlic has no entry: the 2027 garlic is already in the ground (planted fall 2026) and goes
-	// in as kept plantings. It is dug in W28–W29, while the shares take it from storage in
-	// W30–W44; a flat harvest window cannot carry it into storage, so those weeks come back as
-	// unreachable (a new planting would have to go in before "today") and are left in shortfall.
+	// in as kept plantings. It is dug in July and the shares take it from store (24 weeks, 1 % a
+	// week lost) from W30. The two fall beds feed the store into W38; the later weeks would need
+	// more garlic planted last autumn, so they come back as unreachable, left in shortfall.
 };
 
 /** "Today" for the demo: the 2027 plan may not ask for work before it. */
@@ -1391,6 +1392,7 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 		out.sowTo = crop.sow_to;
 	}
 	if (v.seeds_per_packet !== null) out.seedsPerPacket = v.seeds_per_packet;
+	if (crop.storage_weeks) out.storage = { keepWeeks: crop.storage_weeks, lossPerWeek: crop.storage_loss_per_week ?? 0 };
 	return out;
 }
 
@@ -1568,13 +1570,29 @@ export function demoPlanSupply(
 			.filter((w) => w.code === 'unreachable_week')
 			.flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
 	);
+	const rows = forecast(plantings, targets);
+	// A storage crop's weeks are fed from its store (oldest lot first, with its weekly loss), as in
+	// the forecast: a week is short when the store cannot give it demand × (1 + margin).
+	const fromStore = new Map<string, Map<string, number>>();
+	for (const crop of input.crops) {
+		if (!crop.storage_weeks) continue;
+		const dug = new Map<string, number>();
+		const wanted = new Map<string, number>();
+		for (const r of rows) {
+			if (r.crop !== crop.name) continue;
+			if (r.supply > 0) dug.set(r.week, r.supply);
+			if (r.demand > 0) wanted.set(r.week, r.demand * (1 + margin));
+		}
+		fromStore.set(crop.name, storeSupply(dug, wanted, crop.storage_weeks, crop.storage_loss_per_week ?? 0).supply);
+	}
 	const out = new Map<string, DemoCropSupply>();
-	for (const r of forecast(plantings, targets)) {
+	for (const r of rows) {
 		if (!r.week.startsWith(`${DEMO_PLAN_YEAR}-`)) continue;
 		const c = out.get(r.crop) ?? { crop: r.crop, supply: 0, demand: 0, shortWeeks: [] };
 		c.supply += r.supply;
 		c.demand += r.demand;
-		if (r.demand > 0 && r.supply < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`))
+		const given = fromStore.get(r.crop)?.get(r.week) ?? r.supply;
+		if (r.demand > 0 && given < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`))
 			c.shortWeeks.push(r.week);
 		out.set(r.crop, c);
 	}

@@ -80,4 +80,7 @@ export interface VarietyView {
 	/** The crop's earliest and latest field date in the year, "MM-DD" (both or neither). */
 	sowFrom?: string | null;
 	sowTo?: string | null;
+	/** A storage crop's weeks in store (null or 0: sold fresh) and share lost a week, from its crop. */
+	storageWeeks?: number | null;
+	storageLossPerWeek?: number | null;
 }

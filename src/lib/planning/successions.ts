@@ -22,6 +22,7 @@ import { type SeedNeed, type SeedNeedInput, seedNeed, validateSeedInput } from '
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
 import { normaliseTargets } from './target-weeks';
 import { inMonthDayWindow, sowingWindowOf } from './sowing-window';
+import { sizeStoredHarvests } from './storage-sizing';
 import { validateVariety, varietyLabel } from './variety';
 import { type TempLookup, type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
 
@@ -385,7 +386,9 @@ function planRuns<T>(
 	// interval), from as early as a window that reaches the first target week can start.
 	const span = Math.ceil(H / 7);
 	const step = o.stepWeeks;
-	const cMin = -(span - 1);
+	// A storage crop's harvest may come before the first target week: it feeds it from store.
+	const store = v.storage !== undefined && v.storage.keepWeeks > 0 ? v.storage : undefined;
+	const cMin = -(span - 1) - (store?.keepWeeks ?? 0);
 	const cands: (Candidate | undefined)[] = new Array<Candidate | undefined>(nWeeks - cMin).fill(undefined);
 	const scratchDtm = detail ? undefined : blankDtm();
 	const candidate = (c: number): Candidate => {
@@ -450,7 +453,41 @@ function planRuns<T>(
 	const coefOf = (c: number): Float64Array => (c >= cMin && c < nWeeks ? cands[c - cMin]?.coef : undefined) ?? byOffset;
 	const perFt = (c: number, w: number): number => (w - c >= 0 && w - c < span ? coefOf(c)[w - c] : 0);
 
-	for (let w = 0; w < nWeeks; w++) {
+	// A storage crop: one harvest sized for the weeks its store feeds, not the weekly greedy below.
+	const fromStore = store ? sizeStore(store) : undefined;
+	function sizeStore(s: { keepWeeks: number; lossPerWeek: number }): Float64Array {
+		const lots = new Map<number, number>();
+		for (let i = 0; i < (supplied?.length ?? 0); i++) {
+			const m = weekStartDayItem(supplied![i].week, 'supplied', i, 'week');
+			const q = requireNonNegativeItem('supplied', i, 'quantity', supplied![i].quantity);
+			lots.set((m - base) / 7, (lots.get((m - base) / 7) ?? 0) + q);
+		}
+		const sized = sizeStoredHarvests({
+			nWeeks,
+			cMin,
+			span,
+			step,
+			target,
+			need: Float64Array.from(target, (t) => (t > 0 ? t * (1 + o.margin) : 0)),
+			increment: o.increment,
+			keepWeeks: s.keepWeeks,
+			lossPerWeek: s.lossPerWeek,
+			lots,
+			reachable: (c) => candidate(c).ok,
+			perFt
+		});
+		for (const [c, feet] of sized.feet) {
+			const cand = candidate(c);
+			cand.feet = feet;
+			cand.raw = feet;
+			cand.sizedOn = sized.sizedOn.get(c) ?? 0;
+			cand.sizedPerFt = perFt(c, c);
+		}
+		for (const u of sized.unreachable) unreachable.push(base + 7 * u);
+		return sized.given;
+	}
+
+	for (let w = 0; w < (fromStore ? 0 : nWeeks); w++) {
 		if (!(target[w] > 0)) continue;
 		const net = need[w] - planned[w];
 		if (net <= 1e-9 * Math.max(1, need[w])) continue;
@@ -498,7 +535,7 @@ function planRuns<T>(
 	// Repair: greedy choices made for early weeks may leave later successions (or themselves)
 	// larger than what is still needed once everything is placed. Shrink each succession, latest
 	// first, to the least whole increment that keeps every week it supplies covered.
-	for (let pass = 0; pass < 2; pass++) {
+	for (let pass = 0; pass < (fromStore ? 0 : 2); pass++) {
 		for (let c = nWeeks - 1; c >= cMin; c--) {
 			const cand = cands[c - cMin];
 			if (!cand || cand.feet <= 0) continue;
@@ -574,7 +611,7 @@ function planRuns<T>(
 	const skip = new Set(unreachable);
 	for (let w = 0; w < nWeeks; w++) {
 		if (!(target[w] > 0)) continue;
-		const gap = target[w] - outside[w] - planned[w];
+		const gap = fromStore ? target[w] - fromStore[w] : target[w] - outside[w] - planned[w];
 		if (gap <= 1e-9 * Math.max(1, target[w])) continue;
 		const week = isoWeekOfDay(base + 7 * w);
 		shortfall.push({ week, quantity: gap });

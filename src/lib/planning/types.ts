@@ -50,6 +50,12 @@ export interface Variety {
 	sowTo?: string;
 	/** How the yield spreads over the harvest window; default flat. */
 	harvestCurve?: HarvestCurve;
+	/**
+	 * A storage crop (garlic, storage onions, winter squash): harvested once and sold from store
+	 * for up to keepWeeks weeks, losing lossPerWeek (a fraction) of what is left each week. The
+	 * planner sizes one harvest to feed the demand weeks that follow it (storage-sizing.ts).
+	 */
+	storage?: { keepWeeks: number; lossPerWeek: number };
 }
 
 export type WarningCode =

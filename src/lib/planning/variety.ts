@@ -44,6 +44,13 @@ export function validateVariety(v: Variety): Variety {
 			'is needed with the other end of the window'
 		);
 	sowingWindowOf(v);
+	if (v.storage !== undefined) {
+		if (v.storage === null || typeof v.storage !== 'object')
+			throw new PlanningInputError(f('storage'), 'must be an object');
+		requireNonNegativeInteger(f('storage.keepWeeks'), v.storage.keepWeeks);
+		if (requireNonNegative(f('storage.lossPerWeek'), v.storage.lossPerWeek) >= 1)
+			throw new PlanningInputError(f('storage.lossPerWeek'), 'must be a fraction under 1, e.g. 0.01 for 1 % a week');
+	}
 	return v;
 }
 

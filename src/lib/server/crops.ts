@@ -26,6 +26,8 @@ export async function listVarieties(farmId: number, conn: Knex = db()): Promise<
 			'c.harvest_cut_interval_days',
 			'c.sow_from',
 			'c.sow_to',
+			'c.storage_weeks',
+			'c.storage_loss_per_week',
 			'c.archived_at as crop_archived_at'
 		);
 	return rows.map((r) => ({
@@ -60,7 +62,9 @@ export async function listVarieties(farmId: number, conn: Knex = db()): Promise<
 		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
 		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days),
 		sowFrom: r.sow_from ?? null,
-		sowTo: r.sow_to ?? null
+		sowTo: r.sow_to ?? null,
+		storageWeeks: r.storage_weeks === null ? null : Number(r.storage_weeks),
+		storageLossPerWeek: r.storage_loss_per_week === null ? null : Number(r.storage_loss_per_week)
 	}));
 }
 
