@@ -17,6 +17,7 @@ import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import { plantingRow } from '../../src/lib/planting-row';
 import { storeSupply } from '../../src/lib/planning/storage';
+import { previousFamiliesByBed, seasonPlanOptions } from '../../src/lib/plan-options';
 import {
 	type Farm,
 	type KeptPlanting,
@@ -1343,8 +1344,6 @@ const VARIETY_PLAN: Readonly<Record<string, readonly VarietyShare[]>> = {
 
 /** "Today" for the demo: the 2027 plan may not ask for work before it. */
 export const DEMO_TODAY = '2026-12-02';
-/** Invented: the earliest the demo farm's ground can be worked in spring. */
-export const DEMO_EARLIEST_FIELD_DATE = '2027-04-01';
 
 export interface PlanDemoInput {
 	crops: readonly DemoCrop[];
@@ -1484,13 +1483,9 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 			windowDays: v.harvest_window_days
 		};
 	});
-	// Their families also count as what each bed held last season, for rotation.
-	const previousFamilyByBed: Record<string, string[]> = {};
-	for (const k of kept) {
-		if (k.family === undefined || k.bedId === null) continue;
-		const list = (previousFamilyByBed[k.bedId] ??= []);
-		if (!list.includes(k.family)) list.push(k.family);
-	}
+	// Their families also count as what each bed held before the season, for rotation (the same rule
+	// as the owner's plan: plan-options.ts).
+	const previousFamilyByBed = previousFamiliesByBed(kept, `${DEMO_PLAN_YEAR}-01-01`);
 	return planSeason({
 		farm: demoEngineFarm(),
 		varieties,
@@ -1499,12 +1494,17 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 		kept,
 		varietyPlan: demoVarietyPlan(input.varieties),
 		previousFamilyByBed,
-		options: {
-			bedFootIncrement: DEMO_FARM.bed_foot_increment,
-			turnaroundDays: DEMO_FARM.turnaround_days,
-			today: DEMO_TODAY,
-			earliestFieldDate: DEMO_EARLIEST_FIELD_DATE
-		}
+		// The owner's plan with the plan screen's defaults: the same options (plan-options.ts), "today" the demo's.
+		options: seasonPlanOptions(
+			{
+				bedFootIncrement: DEMO_FARM.bed_foot_increment,
+				turnaroundDays: DEMO_FARM.turnaround_days,
+				lastSpringFrost: DEMO_FARM.last_spring_frost
+			},
+			{},
+			DEMO_TODAY,
+			DEMO_PLAN_YEAR
+		)
 	});
 }
 
