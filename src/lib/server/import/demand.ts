@@ -14,16 +14,8 @@ import ExcelJS from 'exceljs';
 import { readXlsxSheets, XlsxRefused, type XlsxLimits } from '../xlsx-read';
 import { uploadColumns, uploadModeSchema, uploadRowSchema, type HarvestUnit } from '$lib/schemas/demand';
 import type { Season } from '../seasons';
-import {
-	listCrops,
-	listShareSizes,
-	outside,
-	resolveGrid,
-	writeGrids,
-	type DemandView,
-	type GridTarget,
-	type GridWrite
-} from '../demand';
+import { listCrops, listShareSizes, type DemandView } from '../demand';
+import { outside, resolveGrid, writeGrids, type GridTarget, type GridWrite } from '../demand-cells';
 
 /** Kept under adapter-node's default 512 KB body limit, so the user sees our message, not a bare 413. */
 export const MAX_UPLOAD_BYTES = 256 * 1024;
