@@ -58,7 +58,12 @@ export function harvestUnitSystem(unit: unknown): UnitSystem | null {
  * A stored value as a file of a `system` farm writes it. `unit` is the row's harvest unit
  * (canonical) for harvest measures. Null and non-numbers pass through.
  */
-export function toFileValue<T>(measure: Measure, value: T, system: UnitSystem, unit?: string | null): T | number | string {
+export function toFileValue<T>(
+	measure: Measure,
+	value: T,
+	system: UnitSystem,
+	unit?: string | null
+): T | number | string {
 	// Only a weight has another name; counts keep the database's word ("bunch"), which the import reads.
 	if (measure === 'harvestUnit') return value === 'lb' ? unitLabel('lb', system) : value;
 	if (typeof value !== 'number' || !Number.isFinite(value)) return value;
@@ -124,7 +129,8 @@ export function fromFileValue(
 			break;
 		case 'harvestPerLength': {
 			const perLength = fromDisplayFeet(1, system);
-			const weight = unit && harvestUnitSystem(unit) ? fromDisplayQuantity(value, 'lb', harvestUnitSystem(unit)!) : value;
+			const weight =
+				unit && harvestUnitSystem(unit) ? fromDisplayQuantity(value, 'lb', harvestUnitSystem(unit)!) : value;
 			v = weight / perLength;
 			break;
 		}

@@ -8,7 +8,7 @@ import { plantingSeed } from '$lib/varieties';
 import type { VarietyView } from './crops';
 import { loadSeasonData } from './export/season-data';
 import type { Season } from './seasons';
-import { seedWeightDigits, type UnitSystem } from '$lib/format';
+import type { UnitSystem } from '$lib/format';
 import { headerIn, seedOrderSheet } from './export/layout';
 import { rowsIn } from './export/units';
 
@@ -159,10 +159,8 @@ export function seedOrderCsv(lines: SeedOrderLine[], currency: string, system: U
 			const key = keys[i];
 			if (key === 'pricePerGram' || key === 'cost') return Number(v).toFixed(2);
 			if (key === 'bedFeet') return String(Math.round(Number(v) * 100) / 100);
-			if (key === 'grams') {
-				const f = 10 ** seedWeightDigits(Number(v));
-				return String(Math.round(Number(v) * f) / f);
-			}
+			// Grams as ordered (to the hundredth); ounces to the ten-thousandth (0.0102 oz is 0.29 g).
+			if (key === 'grams') return String(Math.round(Number(v) * 1e4) / 1e4);
 			return v;
 		})
 	);

@@ -35,7 +35,11 @@ export function systemOfHeader(c: ColumnSpec, header: string): UnitSystem {
  * cell names ("kg" or "lb"; a count converts only its length part). Cells that are not numbers are
  * left for the row's schema to refuse.
  */
-export function cellsToCanonical(spec: SheetSpec, cells: Record<string, unknown>, systems: Record<string, UnitSystem>): void {
+export function cellsToCanonical(
+	spec: SheetSpec,
+	cells: Record<string, unknown>,
+	systems: Record<string, UnitSystem>
+): void {
 	const units: [string, string][] = [];
 	for (const c of spec.columns) {
 		const u = c.units;

@@ -229,7 +229,7 @@ export async function importDemand(
 		const kg = crop.unit === 'lb' && (row.unit === 'kg' || (!row.unit && prefs.unitSystem === 'metric'));
 		const unitOk = !row.unit || row.unit === crop.unit || (row.unit === 'kg' && crop.unit === 'lb');
 		if (!unitOk) {
-			const named = crop.unit === 'lb' ? 'kg or lb' : unitLabel(crop.unit, prefs.unitSystem);
+			const named = crop.unit === 'lb' ? 'kg or lb' : crop.unit;
 			errors.push({ row: r.row, column: 'unit', message: `${crop.name} is counted in ${named}, not ${row.unit}.` });
 		}
 		const key = `${target.label}|${crop.id}|${row.week}`;
@@ -275,7 +275,12 @@ export function demandRows(view: DemandView, system: UnitSystem = 'imperial'): s
 	for (const b of view.boxItems)
 		rows.push([share.get(b.shareSizeId) ?? '', crop.get(b.cropId)?.name ?? '', b.week, ...cells(b.quantity, b.unit)]);
 	for (const c of view.channelDemand)
-		rows.push([c.channel, crop.get(c.cropId)?.name ?? '', c.week, ...cells(c.quantity, crop.get(c.cropId)?.unit ?? '')]);
+		rows.push([
+			c.channel,
+			crop.get(c.cropId)?.name ?? '',
+			c.week,
+			...cells(c.quantity, crop.get(c.cropId)?.unit ?? '')
+		]);
 	return rows;
 }
 

@@ -68,7 +68,7 @@ class Issues {
 function boundsIn(c: ColumnSpec, system: 'imperial' | 'metric', message: string): string {
 	const m = c.units?.measure;
 	if (!m || m === 'harvestUnit' || m === 'harvest' || m === 'harvestPerLength') return message;
-	return message.replace(/(must be at (?:least|most)) (-?[\d.]+)/, (_all, words: string, n: string) => {
+	return message.replace(/(must be at (?:least|most)) (-?\d+(?:\.\d+)?)/, (_all, words: string, n: string) => {
 		const v = toFileValue(m, Number(n), system);
 		return typeof v === 'number' && v !== Number(n) ? `${words} ${formatNumber(v, 2)}` : `${words} ${n}`;
 	});
