@@ -1,6 +1,6 @@
 // Stored crop and variety figures as their forms show them (percents, dollars), and a posted
 // form as plain text values to hand back when it fails.
-import { cropFields, formValue, varietyFields } from '$lib/schemas/crop';
+import { cropFields, formValue, measuredFields, varietyFields, type UnitContext } from '$lib/schemas/crop';
 import type { VarietyView } from '$lib/types';
 
 export function cropFormValues(c: {
@@ -16,27 +16,32 @@ export function cropFormValues(c: {
 	storageLossPct: number | null;
 	price: number | null;
 	source: string | null;
-}): Record<string, string> {
+}, ctx: UnitContext): Record<string, string> {
 	return Object.fromEntries(
-		Object.entries(cropFields).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])])
+		Object.entries(measuredFields(cropFields, ctx)).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])])
 	);
 }
 
-export function varietyFormValues(v: VarietyView): Record<string, string> {
+export function varietyFormValues(v: VarietyView, ctx: UnitContext): Record<string, string> {
 	const stored: Record<string, unknown> = {
 		...v,
 		seedPrice: v.seedPriceCentsPerGram / 100,
 		harvestCurve: v.ownHarvestCurve ?? ''
 	};
-	return Object.fromEntries(Object.entries(varietyFields).map(([k, spec]) => [k, formValue(spec, stored[k])]));
+	return Object.fromEntries(
+		Object.entries(measuredFields(varietyFields, ctx)).map(([k, spec]) => [k, formValue(spec, stored[k])])
+	);
 }
 
-export const newCropValues: Record<string, string> = {
-	harvestUnit: 'lb',
-	frostTolerance: 'hardy',
-	baseTempF: '40',
-	harvestCurve: 'flat'
-};
+/** A new crop's form: a cool-season base temperature (40 °F) in the farm's units. */
+export function newCropValues(ctx: UnitContext): Record<string, string> {
+	return {
+		harvestUnit: 'lb',
+		frostTolerance: 'hardy',
+		baseTempF: formValue(measuredFields(cropFields, ctx).baseTempF, 40),
+		harvestCurve: 'flat'
+	};
+}
 export const newVarietyValues: Record<string, string> = {
 	method: 'direct',
 	harvestCurve: '',

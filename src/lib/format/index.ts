@@ -79,6 +79,16 @@ export function fromDisplayQuantity(value: number, unit: HarvestUnit, system: Un
 	return unit === 'lb' && system === 'metric' ? value / KG_PER_LB : value;
 }
 
+/** A stored quantity as a form field shows it in the farm's unit: "0.25" lb, or "0.113" kg. */
+export function typedQuantity(stored: number, unit: HarvestUnit, system: UnitSystem): string {
+	return String(Number(toDisplayQuantity(stored, unit, system).toFixed(3)));
+}
+
+/** A typed quantity as the database keeps it: canonical unit, to the hundredth. */
+export function storedQuantity(value: number, unit: HarvestUnit, system: UnitSystem): number {
+	return Math.round(fromDisplayQuantity(value, unit, system) * 100) / 100;
+}
+
 /** "4,635 lb", "2,102.4 kg", "1 bunch", "12 bunches". */
 export function formatQuantity(value: number, unit: HarvestUnit, system: UnitSystem, digits?: number): string {
 	const v = toDisplayQuantity(value, unit, system);
@@ -102,6 +112,19 @@ export function fromDisplayFeet(value: number, system: UnitSystem): number {
 export function formatFeet(ft: number, system: UnitSystem, digits?: number): string {
 	const v = toDisplayFeet(ft, system);
 	return `${formatNumber(v, digits ?? (system === 'metric' ? autoDigits(v) : 1))} ${lengthUnit(system)}`;
+}
+/** Where a planting sits in its bed: "0–50 ft (50 ft)" or "0–15.24 m (15.24 m)". */
+export function formatBedRange(startFt: number, lengthFt: number, system: UnitSystem): string {
+	const at = (ft: number) => formatNumber(toDisplayFeet(ft, system), 2);
+	return `${at(startFt)}–${at(startFt + lengthFt)} ${lengthUnit(system)} (${formatFeet(lengthFt, system)})`;
+}
+/** A stored length as an input shows it: feet, or metres to the centimetre. */
+export function lengthInputValue(ft: number, system: UnitSystem): string {
+	return system === 'metric' ? String(Number((ft * M_PER_FT).toFixed(2))) : String(ft);
+}
+/** A stored bed width as an input shows it: inches, or whole centimetres. */
+export function widthInputValue(inches: number, system: UnitSystem): string {
+	return system === 'metric' ? String(Math.round(inches * CM_PER_IN)) : String(inches);
 }
 /** "bed-feet" or "bed-metres", for totals of bed length. */
 export function bedLengthWord(system: UnitSystem): string {
@@ -129,6 +152,12 @@ export function perLengthLabel(unit: HarvestUnit, system: UnitSystem): string {
 }
 export function toDisplayPerFoot(perFoot: number, unit: HarvestUnit, system: UnitSystem): number {
 	return system === 'metric' ? toDisplayQuantity(perFoot, unit, system) / M_PER_FT : perFoot;
+}
+
+/** "0.75 lb/ft", "1.12 kg/m", "8 bunches/ft". */
+export function formatPerLength(perFoot: number, unit: HarvestUnit, system: UnitSystem): string {
+	const v = toDisplayPerFoot(perFoot, unit, system);
+	return `${formatNumber(v, autoDigits(v))} ${perLengthLabel(unit, system)}`;
 }
 
 // ---- Temperatures ------------------------------------------------------------------------------

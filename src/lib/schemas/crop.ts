@@ -5,6 +5,28 @@ import { z } from 'zod';
 import { numberField, plainText } from './common';
 import { harvestUnits } from './demand';
 import { sowingMethods } from './planting';
+import {
+	formatTemp,
+	fromDisplayInches,
+	fromDisplayTemp,
+	lengthUnit,
+	seedWeightUnit,
+	spacingUnit,
+	temperatureUnit,
+	toDisplayInches,
+	toDisplayPerFoot,
+	toDisplayTemp,
+	unitLabel as quantityUnit,
+	type UnitSystem
+} from '$lib/format';
+import { G_PER_OZ, KG_PER_LB } from '$lib/planning/units';
+
+/**
+ * A figure kept in one canonical unit (°F, inches, lb per foot, seeds and cents per gram, cents per
+ * harvest unit) and typed and shown in the farm's own: the field table says which, and
+ * `measuredFields` turns it into labels, bounds and conversions for one farm.
+ */
+export type Measure = 'temperature' | 'spacing' | 'yieldPerLength' | 'seedsPerWeight' | 'pricePerSeedWeight' | 'pricePerUnit';
 
 export interface NumberSpec {
 	kind: 'number';
@@ -21,6 +43,11 @@ export interface NumberSpec {
 	step?: string;
 	/** Dollars kept as whole cents: more than two decimals is refused, never rounded to 0. */
 	money?: boolean;
+	/** Typed in the farm's units and kept in the canonical one (see `measuredFields`). */
+	measure?: Measure;
+	/** Filled in by `measuredFields`: a typed value to the stored one, and back. */
+	toStored?: (n: number) => number;
+	fromStored?: (n: number) => number;
 }
 export interface TextSpec {
 	kind: 'text';
@@ -64,6 +91,7 @@ export const cropFields = {
 		kind: 'number',
 		label: 'Heat limit',
 		unit: '°F',
+		measure: 'temperature',
 		help: 'Weekly mean above which the crop bolts or spoils; blank for none.',
 		min: 40,
 		max: 120,
@@ -73,7 +101,8 @@ export const cropFields = {
 		kind: 'number',
 		label: 'Base temperature',
 		unit: '°F',
-		help: 'Growing degree days count above this: about 40 °F for cool-season, 50 °F for warm-season crops.',
+		measure: 'temperature',
+		help: 'Growing degree days count above this: about {temp:40} for cool-season, {temp:50} for warm-season crops.',
 		min: 0,
 		max: 80
 	},
@@ -123,6 +152,7 @@ export const cropFields = {
 		kind: 'number',
 		label: 'Price',
 		unit: '$ per {unit}',
+		measure: 'pricePerUnit',
 		help: 'What one harvest unit sells for; sizes box swaps between crops of other units. Blank if unknown.',
 		min: 0,
 		max: 10_000,
@@ -178,7 +208,8 @@ export const varietyFields = {
 		kind: 'number',
 		label: 'Yield',
 		unit: '{unit} per bed-ft',
-		help: 'Over the whole harvest window, per foot of bed (all rows).',
+		measure: 'yieldPerLength',
+		help: 'Over the whole harvest window, per {length} of bed (all rows).',
 		min: 0.001,
 		max: 100_000,
 		step: 'any'
@@ -196,6 +227,7 @@ export const varietyFields = {
 		kind: 'number',
 		label: 'In-row spacing',
 		unit: 'in',
+		measure: 'spacing',
 		help: 'Between spots along a row.',
 		min: 0.1,
 		max: 240,
@@ -224,7 +256,8 @@ export const varietyFields = {
 		kind: 'number',
 		label: 'Seeds per gram',
 		unit: 'seeds/g',
-		help: 'Seed count in one gram (seeds per ounce ÷ 28.35).',
+		measure: 'seedsPerWeight',
+		help: 'Seed count in one {weight}, from the packet or a weighed count.',
 		min: 0.01,
 		max: 10_000_000,
 		step: 'any'
@@ -233,6 +266,7 @@ export const varietyFields = {
 		kind: 'number',
 		label: 'Seed price',
 		unit: '$ per g',
+		measure: 'pricePerSeedWeight',
 		help: 'For the seed order; 0 if unknown.',
 		min: 0,
 		max: 10_000,
@@ -303,7 +337,11 @@ function numberSchema(s: NumberSpec) {
 				`${s.label} must be in whole cents (at most 2 decimals); a smaller amount cannot be kept.`
 			)
 		: plain;
-	const scaled = s.scale ? base.transform((n) => n / s.scale!) : base;
+	const scaled = s.scale
+		? base.transform((n) => n / s.scale!)
+		: s.toStored
+			? base.transform((n) => s.toStored!(n))
+			: base;
 	return s.optional ? z.preprocess((v) => (blank(v) ? null : v), scaled.nullable()) : scaled;
 }
 
@@ -334,11 +372,99 @@ function schemaOf<T extends Record<string, FieldSpec>>(fields: T) {
 	) as unknown as z.ZodType<Parsed<T>>;
 }
 
-export const cropSchema = schemaOf(cropFields);
-export const varietySchema = schemaOf(varietyFields).refine((v) => v.method === 'transplant' || v.daysInTray === 0, {
-	message: 'Days in tray must be 0 for a direct-sown variety.',
-	path: ['daysInTray']
-});
+/** The farm whose units a form is typed in, and the crop's harvest unit and the farm's currency. */
+export interface UnitContext {
+	system: UnitSystem;
+	harvestUnit: string;
+	currency: string;
+}
+export const imperialUsd = (harvestUnit = 'lb'): UnitContext => ({ system: 'imperial', harvestUnit, currency: 'USD' });
+
+interface Conversion {
+	unit: string;
+	label?: string;
+	from: (stored: number) => number;
+	to: (typed: number) => number;
+}
+
+function conversion(measure: Measure, ctx: UnitContext): Conversion {
+	const { system, harvestUnit, currency } = ctx;
+	const metric = system === 'metric';
+	const per = quantityUnit(harvestUnit, system, 1);
+	switch (measure) {
+		case 'temperature':
+			return { unit: temperatureUnit(system), from: (f) => toDisplayTemp(f, system), to: (t) => fromDisplayTemp(t, system) };
+		case 'spacing':
+			return { unit: spacingUnit(system), from: (i) => toDisplayInches(i, system), to: (t) => fromDisplayInches(t, system) };
+		case 'yieldPerLength': {
+			const k = toDisplayPerFoot(1, harvestUnit, system);
+			return { unit: `${quantityUnit(harvestUnit, system)} per bed-${lengthUnit(system)}`, from: (v) => v * k, to: (t) => t / k };
+		}
+		case 'seedsPerWeight':
+			return metric
+				? { unit: 'seeds/g', from: (v) => v, to: (t) => t }
+				: { unit: 'seeds/oz', label: 'Seeds per ounce', from: (v) => v * G_PER_OZ, to: (t) => t / G_PER_OZ };
+		case 'pricePerSeedWeight': {
+			const k = metric ? 1 : G_PER_OZ;
+			return { unit: `${currency} per ${seedWeightUnit(system)}`, from: (v) => v * k, to: (t) => t / k };
+		}
+		case 'pricePerUnit': {
+			const k = metric && harvestUnit === 'lb' ? 1 / KG_PER_LB : 1;
+			return { unit: `${currency} per ${per}`, from: (v) => v * k, to: (t) => t / k };
+		}
+	}
+}
+
+/** A bound in the farm's units, rounded to three significant figures inward so it stays valid. */
+function bound(stored: number, conv: (n: number) => number, up: boolean): number {
+	const v = conv(stored);
+	if (v === 0) return 0;
+	const p = 10 ** (Math.floor(Math.log10(Math.abs(v))) - 2);
+	return (up ? Math.ceil(v / p) : Math.floor(v / p)) * p;
+}
+
+/** A field table for one farm: units, labels, help and bounds as typed there, with the conversions. */
+export function measuredFields<T extends Record<string, FieldSpec>>(fields: T, ctx: UnitContext): T {
+	const words = (text: string): string =>
+		text
+			.replace(/\{temp:(-?\d+)\}/g, (_, f: string) => formatTemp(Number(f), ctx.system))
+			.replace('{length}', ctx.system === 'metric' ? 'metre' : 'foot')
+			.replace('{weight}', ctx.system === 'metric' ? 'gram' : 'ounce');
+	const out: Record<string, FieldSpec> = {};
+	for (const [k, spec] of Object.entries(fields)) {
+		if (spec.kind !== 'number') {
+			out[k] = { ...spec, help: words(spec.help) };
+			continue;
+		}
+		if (!spec.measure) {
+			out[k] = { ...spec, help: words(spec.help) };
+			continue;
+		}
+		const c = conversion(spec.measure, ctx);
+		const round = (n: number) => Number(n.toFixed(6));
+		out[k] = {
+			...spec,
+			label: c.label ?? spec.label,
+			unit: c.unit,
+			help: words(spec.help),
+			min: round(bound(spec.min, c.from, true)),
+			max: round(bound(spec.max, c.from, false)),
+			toStored: c.to,
+			fromStored: c.from
+		};
+	}
+	return out as T;
+}
+
+export const cropSchemaFor = (ctx: UnitContext) => schemaOf(measuredFields(cropFields, ctx));
+export const varietySchemaFor = (ctx: UnitContext) =>
+	schemaOf(measuredFields(varietyFields, ctx)).refine((v) => v.method === 'transplant' || v.daysInTray === 0, {
+		message: 'Days in tray must be 0 for a direct-sown variety.',
+		path: ['daysInTray']
+	});
+/** The forms as an imperial farm in dollars types them (the canonical units). */
+export const cropSchema = cropSchemaFor(imperialUsd());
+export const varietySchema = varietySchemaFor(imperialUsd());
 
 export type HarvestCurveName = 'flat' | 'ramp' | 'single' | 'cuts';
 export type CropInput = Omit<Parsed<typeof cropFields>, 'harvestUnit' | 'frostTolerance' | 'harvestCurve'> & {
@@ -357,10 +483,14 @@ export function unitLabel(spec: FieldSpec, harvestUnit: string): string {
 	return spec.kind === 'number' ? spec.unit.replace('{unit}', harvestUnit) : '';
 }
 
-/** How a stored value shows in its form field (fractions as percents, cents as money). */
+/** How a stored value shows in its form field (fractions as percents, cents as money, farm units). */
 export function formValue(spec: FieldSpec, value: unknown): string {
 	if (value === null || value === undefined) return '';
 	if (spec.kind === 'number' && spec.scale && typeof value === 'number')
 		return String(Math.round(value * spec.scale * 1000) / 1000);
+	if (spec.kind === 'number' && spec.fromStored && typeof value === 'number') {
+		const shown = spec.fromStored(value);
+		return String(Number(shown.toFixed(spec.money ? 2 : Math.abs(shown) >= 100 ? 1 : 3)));
+	}
 	return String(value);
 }

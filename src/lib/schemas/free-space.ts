@@ -3,16 +3,26 @@
 import { z } from 'zod';
 import { weekStart } from '$lib/planning';
 import { isoWeekKey, numberField } from './common';
+import { M_PER_FT } from '$lib/planning/units';
+import type { UnitSystem } from '$lib/format';
 
 const isoWeekField = isoWeekKey;
 
 const blank = (v: unknown): unknown => (typeof v === 'string' && v.trim() === '' ? undefined : v);
 
-export const freeSpaceQuerySchema = z
+/** The question as a farm types it: the minimum length in feet, or in metres on a metric farm. */
+export const freeSpaceQuerySchemaFor = (system: UnitSystem) =>
+	z
 	.object({
 		from: isoWeekField('From week'),
 		to: isoWeekField('To week'),
-		minFt: z.preprocess(blank, numberField('Minimum feet', 0, 100_000).optional()),
+		minFt: z.preprocess(
+			blank,
+			(system === 'metric'
+				? numberField('Minimum length', 0, 30_000).transform((m) => m / M_PER_FT)
+				: numberField('Minimum feet', 0, 100_000)
+			).optional()
+		),
 		block: z.preprocess(blank, numberField('Block', 1, 2_147_483_647, { int: true }).optional())
 	})
 	.superRefine((q, ctx) => {
@@ -25,4 +35,5 @@ export const freeSpaceQuerySchema = z
 		}
 	});
 
+export const freeSpaceQuerySchema = freeSpaceQuerySchemaFor('imperial');
 export type FreeSpaceQuery = z.infer<typeof freeSpaceQuerySchema>;

@@ -3,14 +3,15 @@ import { fail, type RequestEvent } from '@sveltejs/kit';
 import { requireCan } from './guards';
 import { addBeds } from './bed-bulk';
 import { BedInputError } from './beds';
-import { bulkBedsSchema } from '$lib/schemas/farm';
+import { bulkBedsSchemaFor } from '$lib/schemas/farm';
+import { displayPrefs } from './farms';
 import { fieldErrors } from '$lib/schemas/common';
 import { textValues } from '$lib/library-form';
 
 export async function bulkBedsAction(event: RequestEvent) {
 	const { farm } = requireCan(event, 'farm.settings');
 	const values = textValues(await event.request.formData());
-	const parsed = bulkBedsSchema.safeParse(values);
+	const parsed = bulkBedsSchemaFor((await displayPrefs(farm.id)).unitSystem).safeParse(values);
 	if (!parsed.success) return fail(400, { bulk: { errors: fieldErrors(parsed.error), values } });
 	try {
 		const out = await addBeds(farm.id, parsed.data);

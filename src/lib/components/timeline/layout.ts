@@ -5,6 +5,7 @@
 import { daysBetween, formatWeekDate, weekStart, isoWeek, addDays, weeksBetween } from '../../planning/index';
 import { familyStyle } from '../../families';
 import type { Block } from '$lib/types';
+import { formatBedRange, type UnitSystem } from '$lib/format';
 import type { TimelineBed, TimelineFlag, TimelinePlanting } from '$lib/timeline-types';
 
 export const GEOMETRY = {
@@ -86,6 +87,8 @@ export interface LayoutInput {
 	beds: TimelineBed[];
 	plantings: TimelinePlanting[];
 	flags: Record<number, TimelineFlag[]>;
+	/** The farm's units for the labels (feet when not given). */
+	units?: UnitSystem;
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -96,8 +99,8 @@ export function plantingHref(seasonId: number, plantingId: number): string {
 	return `/seasons/${seasonId}/plantings?planting=${plantingId}`;
 }
 
-export function rangeText(p: Pick<TimelinePlanting, 'startFt' | 'lengthFt'>): string {
-	return `${p.startFt}–${p.startFt + p.lengthFt} ft`;
+export function rangeText(p: Pick<TimelinePlanting, 'startFt' | 'lengthFt'>, units: UnitSystem = 'imperial'): string {
+	return formatBedRange(p.startFt, p.lengthFt, units);
 }
 
 function conflictText(flags: TimelineFlag[] | undefined): string {
@@ -106,10 +109,16 @@ function conflictText(flags: TimelineFlag[] | undefined): string {
 	return [...codes].join(' ');
 }
 
-function ariaLabelOf(p: TimelinePlanting, bed: string, conflict: string, otherSeason: boolean): string {
+function ariaLabelOf(
+	p: TimelinePlanting,
+	bed: string,
+	conflict: string,
+	otherSeason: boolean,
+	units: UnitSystem
+): string {
 	const parts = [
 		`${p.crop} · ${p.variety} (${p.family})`,
-		`bed ${bed}, ${rangeText(p)}`,
+		`bed ${bed}, ${rangeText(p, units)}`,
 		`in the field ${formatWeekDate(p.fieldDate)}`,
 		`harvest ${formatWeekDate(p.firstHarvest)} to ${formatWeekDate(p.lastHarvest)}`
 	];
@@ -205,7 +214,7 @@ export function layoutTimeline(input: LayoutInput): TimelineLayout {
 			conflict,
 			otherSeason,
 			failed: p.status === 'failed',
-			ariaLabel: ariaLabelOf(p, lane.name, conflict, otherSeason),
+			ariaLabel: ariaLabelOf(p, lane.name, conflict, otherSeason, input.units ?? 'imperial'),
 			href: plantingHref(p.seasonId, p.id)
 		};
 		bars.push(bar);

@@ -3,7 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import * as beds from '$lib/server/beds';
-import { bedSchema, blockSchema, farmSettingsSchema } from '$lib/schemas/farm';
+import { bedSchemaFor, blockSchema, farmSettingsSchemaFor } from '$lib/schemas/farm';
 import { fieldErrors } from '$lib/schemas/common';
 import { bulkBedsAction } from '$lib/server/bed-bulk-action';
 
@@ -26,7 +26,8 @@ export const actions = {
 	farm: async (event) => {
 		const { farm } = requireCan(event, 'farm.settings');
 		const values = text(await event.request.formData());
-		const parsed = farmSettingsSchema.safeParse(values);
+		// Lengths are read in the units the form was shown in: the farm's, before this save.
+		const parsed = farmSettingsSchemaFor((await farms.displayPrefs(farm.id)).unitSystem).safeParse(values);
 		if (!parsed.success) return fail(400, { farm: { errors: fieldErrors(parsed.error), values } });
 		await farms.update(farm.id, parsed.data);
 		return { farm: { saved: true } };
@@ -49,7 +50,7 @@ export const actions = {
 		const values = text(await event.request.formData());
 		const bedId = values.id ? Number(values.id) : null;
 		const key = bedId ? `bed-${bedId}` : 'bed-new';
-		const parsed = bedSchema.safeParse(values);
+		const parsed = bedSchemaFor((await farms.displayPrefs(farm.id)).unitSystem).safeParse(values);
 		if (!parsed.success) return fail(400, { bed: { key, errors: fieldErrors(parsed.error), values } });
 		try {
 			if (bedId) {

@@ -3,7 +3,8 @@ import type { Actions, PageServerLoad, RequestEvent } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { getCrop, LibraryInputError, setCropArchived, updateCrop } from '$lib/server/crops';
-import { cropSchema, type CropInput } from '$lib/schemas/crop';
+import { cropSchemaFor, type CropInput } from '$lib/schemas/crop';
+import { libraryUnits } from '$lib/server/unit-context';
 import { fieldErrors } from '$lib/schemas/common';
 import { cropFormValues, textValues } from '$lib/library-form';
 
@@ -17,7 +18,8 @@ export const load = (async (event) => {
 	const { farm } = requireUser(event);
 	const crop = await getCrop(farm.id, cropId(event));
 	if (!crop) error(404, "No such crop in this farm's library.");
-	return { crop, values: cropFormValues(crop), canEdit: can(farm.role, 'library.edit') };
+	const units = await libraryUnits(farm.id, crop.harvestUnit);
+	return { crop, values: cropFormValues(crop, units), canEdit: can(farm.role, 'library.edit') };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -27,7 +29,7 @@ export const actions = {
 		// Another farm's crop is "not found" before anything about the form is said.
 		if (!(await getCrop(farm.id, id))) error(404, "No such crop in this farm's library.");
 		const values = textValues(await event.request.formData());
-		const parsed = cropSchema.safeParse(values);
+		const parsed = cropSchemaFor(await libraryUnits(farm.id, values.harvestUnit)).safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		try {
 			if (!(await updateCrop(farm.id, id, parsed.data as CropInput)))

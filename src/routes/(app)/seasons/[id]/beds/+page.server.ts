@@ -2,7 +2,7 @@ import type { PageServerLoad } from './$types';
 import { requireUser } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import { freeSpaceFor, loadTimeline, type FreeSpaceAnswer } from '$lib/server/timeline';
-import { freeSpaceQuerySchema } from '$lib/schemas/free-space';
+import { freeSpaceQuerySchemaFor } from '$lib/schemas/free-space';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import { addWeeks, isoWeek } from '$lib/planning';
 import { todayIn } from '$lib/today';
@@ -25,7 +25,7 @@ export const load = (async (event) => {
 	};
 	let free: { answer: FreeSpaceAnswer; errors?: undefined } | { errors: FieldErrors; answer?: undefined } | null = null;
 	if (sp.has('from') || sp.has('to')) {
-		const parsed = freeSpaceQuerySchema.safeParse({ ...values, block: blockId ?? undefined });
+		const parsed = freeSpaceQuerySchemaFor(settings.unitSystem).safeParse({ ...values, block: blockId ?? undefined });
 		free = parsed.success
 			? { answer: await freeSpaceFor(farm.id, parsed.data) }
 			: { errors: fieldErrors(parsed.error) };

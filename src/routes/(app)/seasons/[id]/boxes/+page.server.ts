@@ -7,6 +7,25 @@ import { createSwap, matching, setShortFill, undoSwap } from '$lib/server/boxes'
 import { shortFillSchema, swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { planFreshness } from '$lib/server/seasons';
+import { getCrop } from '$lib/server/crops';
+import { displayPrefs } from '$lib/server/farms';
+import { storedQuantity } from '$lib/format';
+import type { SwapInput } from '$lib/schemas/forecast';
+
+/** The form's quantities are in the farm's units (kg on a metric farm); the swap keeps canonical ones. */
+async function swapInFarmUnits(farmId: number, swap: SwapInput): Promise<SwapInput> {
+	const [{ unitSystem }, from, to] = await Promise.all([
+		displayPrefs(farmId),
+		getCrop(farmId, swap.fromCropId),
+		getCrop(farmId, swap.toCropId)
+	]);
+	return {
+		...swap,
+		quantity: storedQuantity(swap.quantity, from?.harvestUnit ?? '', unitSystem),
+		toQuantity:
+			swap.toQuantity === undefined ? undefined : storedQuantity(swap.toQuantity, to?.harvestUnit ?? '', unitSystem)
+	};
+}
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
@@ -30,7 +49,7 @@ export const actions = {
 		const values = Object.fromEntries(await event.request.formData()) as Record<string, string>;
 		const parsed = swapSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { swap: { errors: fieldErrors(parsed.error), values } });
-		const result = await createSwap(farm.id, season.id, user.id, parsed.data);
+		const result = await createSwap(farm.id, season.id, user.id, await swapInFarmUnits(farm.id, parsed.data));
 		if (!result.ok) return fail(400, { swap: { errors: result.errors, values } });
 		redirect(303, back(event.url));
 	},

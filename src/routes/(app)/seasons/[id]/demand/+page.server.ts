@@ -6,6 +6,7 @@ import { seasonFromParams } from '$lib/server/api';
 import * as demand from '$lib/server/demand';
 import { importDemand, uploadFromForm, MAX_UPLOAD_BYTES } from '$lib/server/import/demand';
 import { cellErrorsToInputs, gridFields, shareFields, text } from './form-input';
+import * as farms from '$lib/server/farms';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
@@ -87,7 +88,8 @@ export const actions = {
 	saveGrid: async (event) => {
 		const { farm, season, form } = await editing(event);
 		const crops = await demand.listCrops(farm.id);
-		const { body, names } = gridFields(form, new Map(crops.map((c) => [c.id, c.unit])));
+		const { unitSystem } = await farms.displayPrefs(farm.id);
+		const { body, names } = gridFields(form, new Map(crops.map((c) => [c.id, c.unit])), unitSystem);
 		const failed = await attempt(
 			'grid',
 			text(form),

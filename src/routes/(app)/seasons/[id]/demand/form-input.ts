@@ -1,6 +1,7 @@
 // Turns the demand page's posted forms into the shapes the shared schemas take, and maps the
 // errors back to the inputs that caused them.
 import type { FieldErrors } from '$lib/schemas/common';
+import { storedQuantity, typedQuantity, type UnitSystem } from '$lib/format';
 
 export function text(form: FormData): Record<string, string> {
 	const out: Record<string, string> = {};
@@ -22,9 +23,18 @@ export function shareFields(form: FormData): Record<string, unknown> {
  */
 export function gridFields(
 	form: FormData,
-	unitOf: Map<number, string>
+	unitOf: Map<number, string>,
+	system: UnitSystem = 'imperial'
 ): { body: { grid: string; cells: Record<string, unknown>[] }; names: string[] } {
 	const values = text(form);
+	// Typed in the farm's unit (kg on a metric farm). A cell left as drawn keeps its stored figure
+	// exactly; a changed one is converted. Text that is not a plain number goes on for the schema to name.
+	const stored = (typed: string, unit: string, was: string | undefined): string => {
+		if (system === 'imperial' || unit !== 'lb' || typed.trim() === '') return typed;
+		if (was !== undefined && was !== '' && typed.trim() === typedQuantity(Number(was), unit, system)) return was;
+		const n = Number(typed.trim().replace(',', '.'));
+		return Number.isFinite(n) ? String(storedQuantity(n, unit, system)) : typed;
+	};
 	const cells: Record<string, unknown>[] = [];
 	const names: string[] = [];
 	for (const [k, v] of Object.entries(values)) {
@@ -34,7 +44,7 @@ export function gridFields(
 		cells.push({
 			crop: m[1],
 			week: m[2],
-			quantity: v,
+			quantity: stored(v, values[`u.${m[1]}`] ?? '', was),
 			unit: values[`u.${m[1]}`] ?? '',
 			...(was === undefined ? {} : { was })
 		});
@@ -45,7 +55,8 @@ export function gridFields(
 		for (const [k, v] of Object.entries(values)) {
 			const m = /^n\.(\d{4}-W\d{2})$/.exec(k);
 			if (!m || v.trim() === '') continue;
-			cells.push({ crop: newCrop, week: m[1], quantity: v, unit: unitOf.get(newCrop) ?? '' });
+			const unit = unitOf.get(newCrop) ?? '';
+			cells.push({ crop: newCrop, week: m[1], quantity: stored(v, unit, undefined), unit });
 			names.push(k);
 		}
 	}

@@ -8,6 +8,18 @@ import { listMembers } from '$lib/server/members';
 import { harvestPatchSchema, harvestSchema } from '$lib/schemas/harvest';
 import { fieldErrors } from '$lib/schemas/common';
 import { sheetRows, remapRowErrors } from './sheet';
+import { displayPrefs } from '$lib/server/farms';
+import { storedQuantity } from '$lib/format';
+
+/** Quantities are typed in the farm's units (kg on a metric farm) and kept in the crop's canonical unit. */
+async function inFarmUnits<T extends { quantity?: number; unit?: string }>(farmId: number, records: T[]): Promise<T[]> {
+	const { unitSystem } = await displayPrefs(farmId);
+	return records.map((r) =>
+		r.quantity === undefined || r.unit === undefined
+			? r
+			: { ...r, quantity: storedQuantity(r.quantity, r.unit, unitSystem) }
+	);
+}
 
 function text(form: FormData): Record<string, string> {
 	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
@@ -41,7 +53,7 @@ export const actions = {
 		const values = text(await event.request.formData());
 		const parsed = harvestSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { log: { errors: fieldErrors(parsed.error), values } });
-		const out = await harvests.create(farm.id, season.id, user.id, [parsed.data]);
+		const out = await harvests.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, [parsed.data]));
 		if (!out.ok) return fail(out.status, { log: { errors: out.errors, values } });
 		redirect(303, `/seasons/${season.id}/harvests?logged=${out.value[0].id}`);
 	},
@@ -51,7 +63,7 @@ export const actions = {
 		const values = text(await event.request.formData());
 		const { records, rowOf, errors } = sheetRows(values);
 		if (Object.keys(errors).length) return fail(400, { sheet: { errors, values } });
-		const out = await harvests.create(farm.id, season.id, user.id, records, true);
+		const out = await harvests.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, records), true);
 		if (!out.ok) return fail(out.status, { sheet: { errors: remapRowErrors(out.errors, rowOf), values } });
 		redirect(303, `/seasons/${season.id}/harvests?saved=${out.value.length}`);
 	},
@@ -62,7 +74,8 @@ export const actions = {
 		const key = `edit-${id}`;
 		const parsed = harvestPatchSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { edit: { key, errors: fieldErrors(parsed.error), values } });
-		const out = await harvests.update(farm.id, season.id, Number(id), user.id, parsed.data);
+		const [patch] = await inFarmUnits(farm.id, [parsed.data]);
+		const out = await harvests.update(farm.id, season.id, Number(id), user.id, patch);
 		if (!out.ok) return fail(out.status, { edit: { key, errors: out.errors, values } });
 		redirect(303, `/seasons/${season.id}/harvests?edited=${id}`);
 	},

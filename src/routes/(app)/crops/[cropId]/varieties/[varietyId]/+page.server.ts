@@ -4,7 +4,8 @@ import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { getCrop, LibraryInputError, removeVariety, setVarietyArchived, updateVariety } from '$lib/server/crops';
 import { observedForVariety } from '$lib/server/actuals';
-import { varietySchema, type VarietyInput } from '$lib/schemas/crop';
+import { varietySchemaFor, type VarietyInput } from '$lib/schemas/crop';
+import { libraryUnits } from '$lib/server/unit-context';
 import { fieldErrors } from '$lib/schemas/common';
 import { textValues, varietyFormValues } from '$lib/library-form';
 import { plural } from '$lib/plural';
@@ -28,7 +29,7 @@ export const load = (async (event) => {
 	return {
 		crop: { id: crop.id, name: crop.name, harvestUnit: crop.harvestUnit, archived: crop.archived },
 		variety,
-		values: varietyFormValues(variety),
+		values: varietyFormValues(variety, await libraryUnits(farm.id, crop.harvestUnit)),
 		observed: await observedForVariety(farm.id, variety.id),
 		canEdit: can(farm.role, 'library.edit')
 	};
@@ -37,9 +38,9 @@ export const load = (async (event) => {
 export const actions = {
 	save: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');
-		const { variety } = await lookup(event, farm.id);
+		const { crop, variety } = await lookup(event, farm.id);
 		const values = textValues(await event.request.formData());
-		const parsed = varietySchema.safeParse(values);
+		const parsed = varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)).safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		try {
 			await updateVariety(farm.id, variety.id, parsed.data as VarietyInput);

@@ -2,7 +2,8 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { createVariety, getCrop, LibraryInputError } from '$lib/server/crops';
-import { varietySchema, type VarietyInput } from '$lib/schemas/crop';
+import { varietySchemaFor, type VarietyInput } from '$lib/schemas/crop';
+import { libraryUnits } from '$lib/server/unit-context';
 import { fieldErrors } from '$lib/schemas/common';
 import { newVarietyValues, textValues } from '$lib/library-form';
 
@@ -28,7 +29,7 @@ export const actions = {
 		const { farm } = requireCan(event, 'library.edit');
 		const crop = await cropOf(farm.id, event.params.cropId);
 		const values = textValues(await event.request.formData());
-		const parsed = varietySchema.safeParse(values);
+		const parsed = varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)).safeParse(values);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		let id: number;
 		try {
