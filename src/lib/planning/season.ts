@@ -3,123 +3,38 @@
  * supply, become successions per variety, placed into beds around the kept plantings.
  * The server's plan preview and the demo seed both plan through here.
  */
-import type { Bed, BedPlanting } from './bed-types';
+import type { BedPlanting } from './bed-types';
+import { type DayNumber, fromDayNumber, toDayNumber } from './day-number';
 import { type ForecastPlanting, forecast } from './forecast';
-import type { HarvestCurve } from './harvest-curve';
+import { keptSupply } from './kept-supply';
 import { type PlacementJobs, placeJobs, preparePlacement } from './placement';
-import { byDayThenRank, inPlanOrder, keyRanks, pieceRanks } from './season-order';
-import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
-import { type DayNumber, daysFromCivil, fromDayNumber, toDayNumber } from './day-number';
 import { type SeasonFacts, successionWarnings } from './plan-warnings';
-import { planSuccessionRuns, withDtmWarnings, type Farm, type PlanOptions } from './successions';
-import type { CropWeekQuantity, PlanningWarning, SowingMethod, Variety } from './types';
+import { inPlanOrder } from './season-order';
+import { planOrder } from './season-plan-order';
+import type {
+	KeptPlanting,
+	ProposedPlanting,
+	SeasonPlan,
+	SeasonPlanInput,
+	SeasonVariety,
+	VarietyShare
+} from './season-types';
+import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
+import { planSuccessionRuns, withDtmWarnings } from './successions';
+import type { CropWeekQuantity, PlanningWarning } from './types';
 import { makeTempLookup } from './weekly-temps';
 
-export interface SeasonVariety extends Variety {
-	id: string;
-	cropId: string;
-}
-
-/** A share of a crop's targets given to one variety: weeks of the year from..to, a fraction of each. */
-export interface VarietyShare {
-	varietyId: string;
-	fromWeek?: number;
-	toWeek?: number;
-	fraction?: number;
-}
-
-/** A planting the plan keeps as it is (sown, growing, or planned elsewhere): it supplies and occupies. */
-export interface KeptPlanting {
-	key: string;
-	cropId: string;
-	family?: string;
-	bedId: string | null;
-	startFt: number;
-	lengthFt: number;
-	fieldDate: string;
-	firstHarvest: string;
-	lastHarvest: string;
-	yieldPerBedFoot: number;
-	/** How its yield spreads over its window (default flat). */
-	curve?: HarvestCurve;
-	/** The variety's full window, when this planting's harvest is cut short of it. */
-	windowDays?: number;
-}
-
-export interface SeasonPlanInput {
-	farm: Farm;
-	varieties: SeasonVariety[];
-	beds: Bed[];
-	/** Weekly targets, `crop` being the crop id. */
-	targets: CropWeekQuantity[];
-	kept?: KeptPlanting[];
-	/**
-	 * Plantings outside this plan that hold bed-feet during it (another season's garlic, dug
-	 * next summer): placement works around them; they supply nothing to this plan's targets.
-	 */
-	obstacles?: BedPlanting[];
-	/** Which varieties carry each crop's targets (by crop id); default: the crop's first variety. */
-	varietyPlan?: Record<string, VarietyShare[]>;
-	previousFamilyByBed?: Record<string, string[]>;
-	options?: PlanOptions & { turnaroundDays?: number };
-}
-
-export interface ProposedPlanting {
-	key: string;
-	cropId: string;
-	varietyId: string;
-	bedId: string | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: SowingMethod;
-	traySowDate: string | null;
-	fieldDate: string;
-	firstHarvest: string;
-	lastHarvest: string;
-	/** Harvest units over the whole window for this range (up to lastHarvest, when cut short). */
-	expectedYield: number;
-	/** The variety's full harvest window, days: the yield and curve are given over it. */
-	harvestWindowDays: number;
-	/** How the yield spreads over the window (absent: flat). */
-	curve?: HarvestCurve;
-	seed: SeedNeed;
-	warnings: PlanningWarning[];
-	/** Why it has no bed, when it has none. */
-	unplacedReason: string | null;
-}
-
-export interface SeasonPlan {
-	plantings: ProposedPlanting[];
-	/** Target left unmet per crop id and week after planning. */
-	shortfall: CropWeekQuantity[];
-	warnings: (PlanningWarning & { key?: string; cropId?: string })[];
-}
+export type {
+	KeptPlanting,
+	ProposedPlanting,
+	SeasonPlan,
+	SeasonPlanInput,
+	SeasonVariety,
+	VarietyShare
+} from './season-types';
 
 function weekNumber(week: string): number {
 	return Number(week.slice(6));
-}
-
-/** What the kept plantings supply, per crop id and ISO week (curves and cut-short windows followed). */
-function keptSupply(kept: KeptPlanting[]): Map<string, Map<string, number>> {
-	const out = new Map<string, Map<string, number>>();
-	if (kept.length === 0) return out;
-	const rows = forecast(
-		kept.map((k) => ({
-			crop: k.cropId,
-			firstHarvest: k.firstHarvest,
-			lastHarvest: k.lastHarvest,
-			bedFeet: k.lengthFt,
-			yieldPerBedFoot: k.yieldPerBedFoot,
-			curve: k.curve,
-			windowDays: k.windowDays
-		})),
-		[]
-	);
-	for (const r of rows) (out.get(r.crop) ?? out.set(r.crop, new Map()).get(r.crop)!).set(r.week, r.supply);
-	return out;
 }
 
 export function planSeason(input: SeasonPlanInput): SeasonPlan {
@@ -463,37 +378,6 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 	for (const u of placement.unplaced)
 		warnings.push({ code: 'not_placed', key: u.plantingKey, message: `Not placed: ${u.reason}` });
 	return { plantings, shortfall, warnings };
-}
-
-// The days whose dates are four-digit years: there, date strings sort as the days do.
-const FIRST_DAY = daysFromCivil(0, 1, 1);
-const LAST_DAY = daysFromCivil(9999, 12, 31);
-
-/**
- * A season plan's proposals in plan order (field date, then key: see season-order.ts)
- * from what planSeason knows of each, the day and rank of its record and piece, so
- * no keys are compared; null in the cases that rule does not cover.
- */
-function planOrder(
-	all: ProposedPlanting[],
-	fromOf: number[],
-	pieceOf: number[],
-	pieceSlots: number,
-	fieldDays: number[],
-	groups: { prefix: string; start: number; count: number }[]
-): ProposedPlanting[] | null {
-	const ranks = keyRanks(groups, fieldDays.length);
-	if (!ranks) return null;
-	const pieces = pieceRanks(pieceSlots);
-	const day: number[] = filled(all.length, 0);
-	const rank: number[] = filled(all.length, 0);
-	for (let i = 0; i < all.length; i++) {
-		const fieldDay = fieldDays[fromOf[i]];
-		if (fieldDay < FIRST_DAY || fieldDay > LAST_DAY) return null;
-		day[i] = fieldDay;
-		rank[i] = ranks[fromOf[i]] * pieceSlots + pieces[pieceOf[i]];
-	}
-	return byDayThenRank(all, day, rank, fieldDays.length * pieceSlots);
 }
 
 /** A list of n copies of `fill`. */

@@ -3,7 +3,7 @@ import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { deriveTargets } from '$lib/planning';
 import { db } from './db';
-import { targetInput } from './demand';
+import { targetInput } from './demand-targets';
 
 export interface Season {
 	id: number;

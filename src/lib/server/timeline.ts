@@ -36,8 +36,25 @@ const columns = [
 	'p.status'
 ];
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-function toPlanting(r: any): TimelinePlanting {
+/** A row as `columns` reads it. */
+interface TimelineRow {
+	id: number;
+	season_id: number;
+	variety: string;
+	crop: string;
+	family: string;
+	bed_id: number | null;
+	start_ft: string | number;
+	length_ft: string | number;
+	method: TimelinePlanting['method'];
+	tray_sow_date: string | null;
+	field_date: string;
+	first_harvest: string;
+	last_harvest: string;
+	status: TimelinePlanting['status'];
+}
+
+function toPlanting(r: TimelineRow): TimelinePlanting {
 	return {
 		id: r.id,
 		seasonId: r.season_id,

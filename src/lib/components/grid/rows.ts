@@ -1,7 +1,13 @@
 // A row of the grid: the planting's editable values, its derived figures and its warnings.
 import type { BedConflict } from '$lib/planning';
 import type { DerivedPlanting } from '$lib/planning/planting-derive';
-import { plantingFieldNames, type PlantingField, type PlantingValues } from '$lib/plantings/fields';
+import {
+	initialValue,
+	plantingFieldNames,
+	recordFields,
+	type PlantingField,
+	type PlantingValues
+} from '$lib/plantings/fields';
 import type { PlantingView } from '$lib/types';
 import { deriveRow, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 
@@ -51,4 +57,19 @@ export function rowFromView(p: PlantingView, varieties: Map<number, GridVariety>
 		varieties,
 		farm
 	);
+}
+
+/** A new row's values: each field's initial value (plantings/fields.ts), ten bed-feet sown today. */
+export function defaultValues(v: GridVariety | undefined): RowValues {
+	const out = Object.fromEntries(plantingFieldNames.map((f) => [f, initialValue(f, v)]));
+	return { ...out, varietyId: v?.id ?? 0, lengthFt: 10, fieldDate: new Date().toISOString().slice(0, 10) } as RowValues;
+}
+
+/**
+ * The values of a next succession like `values` (a new row after it, a pasted row past the end):
+ * the plan kept, the record of what happened (status, actual dates, notes) back to a new row's.
+ */
+export function nextSuccessionValues(values: RowValues): RowValues {
+	const cleared = Object.fromEntries(recordFields.map((f) => [f, initialValue(f, undefined)]));
+	return { ...values, ...cleared } as RowValues;
 }

@@ -2,6 +2,12 @@
 // lost silently: a failed save stays queued for retry; a conflict keeps the user's values to re-apply.
 import type { PlantingField } from '$lib/schemas/planting';
 import type { PlantingView } from '$lib/types';
+import type {
+	ApiErrorAnswer,
+	PlantingConflictAnswer,
+	PlantingSavedAnswer,
+	PlantingsCreatedAnswer
+} from '$lib/api-answers';
 import type { GridRow, RowValues } from './rows';
 
 /** What the save queue needs of the grid's rows: read one, and take the server's answers back. */
@@ -14,8 +20,8 @@ export interface SavedRows {
 
 export interface ApiAnswer {
 	status: number;
-	// eslint-disable-next-line @typescript-eslint/no-explicit-any
-	body: any;
+	/** Parsed JSON: one of the answers in $lib/api-answers, by status. */
+	body: unknown;
 }
 
 /** The JSON routes, behind an interface so the unit tests can stand in for the server. */
@@ -193,7 +199,7 @@ export class SaveQueue {
 						(a) => {
 							if (a.status === 201) {
 								wrote++;
-								(a.body.plantings as PlantingView[]).forEach((p, i) => {
+								(a.body as PlantingsCreatedAnswer).plantings.forEach((p, i) => {
 									const key = freshRows[i].key;
 									const later = this.touched.get(key);
 									this.grid.acceptServer(key, p, !!later?.size);
@@ -257,20 +263,21 @@ export class SaveQueue {
 	): void {
 		const later = this.touched.get(key);
 		if (a.status === 200) {
-			this.grid.acceptServer(key, a.body.planting, !!later?.size);
+			this.grid.acceptServer(key, (a.body as PlantingSavedAnswer).planting, !!later?.size);
 			if (later?.size) this.mergeDirty(key, later);
 			return;
 		}
 		if (a.status === 409) {
+			const body409 = a.body as PlantingConflictAnswer;
 			const mine: Partial<Record<PlantingField, unknown>> = {};
 			for (const f of fields) mine[f] = body[f];
 			this.conflicts = [
 				...this.conflicts.filter((c) => c.key !== key),
-				{ key, changedBy: a.body.changedBy ?? null, current: a.body.current, mine }
+				{ key, changedBy: body409.changedBy ?? null, current: body409.current, mine }
 			];
 			// The server's row wins on screen; the user's values wait in the conflict to re-apply.
-			this.grid.acceptServer(key, a.body.current, false);
-			failures.push(a.body.message ?? 'Someone else saved this planting first.');
+			this.grid.acceptServer(key, body409.current, false);
+			failures.push(body409.message ?? 'Someone else saved this planting first.');
 			return;
 		}
 		if (a.status === 400 || a.status === 403) {
@@ -291,7 +298,7 @@ export class SaveQueue {
 
 	/** The server's field errors shown in their cells ("plantings.3.fieldDate" or "fieldDate"). */
 	private setErrors(rows: GridRow[], a: ApiAnswer): void {
-		const errors = (a.body?.errors ?? {}) as Record<string, string>;
+		const errors = errorAnswer(a)?.errors ?? {};
 		const updated = rows.map((row, i) => {
 			const e = { ...row.errors };
 			for (const [path, message] of Object.entries(errors)) {
@@ -321,6 +328,11 @@ export class SaveQueue {
 	}
 }
 
+function errorAnswer(a: ApiAnswer): Partial<ApiErrorAnswer> | null {
+	return a.body && typeof a.body === 'object' ? (a.body as Partial<ApiErrorAnswer>) : null;
+}
+
 function messageOf(a: ApiAnswer): string {
-	return (a.body && typeof a.body.message === 'string' ? a.body.message : '') || `The server answered ${a.status}.`;
+	const m = errorAnswer(a)?.message;
+	return (typeof m === 'string' ? m : '') || `The server answered ${a.status}.`;
 }

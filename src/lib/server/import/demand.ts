@@ -18,16 +18,8 @@ import { uploadColumns, uploadModeSchema, uploadRowSchema, type HarvestUnit } fr
 import type { Season } from '../seasons';
 import { displayPrefs } from '../farms';
 import { fromDisplayQuantity, toDisplayQuantity, unitLabel, type UnitSystem } from '$lib/format';
-import {
-	listCrops,
-	listShareSizes,
-	outside,
-	resolveGrid,
-	writeGrids,
-	type DemandView,
-	type GridTarget,
-	type GridWrite
-} from '../demand';
+import { listCrops, listShareSizes, type DemandView } from '../demand';
+import { outside, resolveGrid, writeGrids, type GridTarget, type GridWrite } from '../demand-cells';
 
 /** Kept under adapter-node's default 512 KB body limit, so the user sees our message, not a bare 413. */
 export const MAX_UPLOAD_BYTES = 256 * 1024;

@@ -4,6 +4,7 @@ import { requireCan } from '$lib/server/guards';
 import { parseBody } from '$lib/server/api';
 import { remove, update } from '$lib/server/plantings';
 import { plantingPatchSchema, recordFieldsInWords } from '$lib/schemas/planting';
+import type { ApiErrorAnswer, PlantingConflictAnswer, PlantingSavedAnswer } from '$lib/api-answers';
 
 function plantingId(raw: string): number {
 	const id = Number(raw);
@@ -21,7 +22,7 @@ export const PATCH: RequestHandler = async (event) => {
 	const r = await update(farm.id, id, { id: user.id, role: farm.role }, body.data);
 	switch (r.kind) {
 		case 'ok':
-			return json({ planting: r.planting });
+			return json({ planting: r.planting } satisfies PlantingSavedAnswer);
 		case 'not_found':
 			error(404, 'No such planting on this farm.');
 		// falls through never: error() throws
@@ -30,7 +31,7 @@ export const PATCH: RequestHandler = async (event) => {
 				{
 					message: `A crew lead may change only ${recordFieldsInWords}; not ${r.fields.join(', ')}.`,
 					fields: r.fields
-				},
+				} satisfies ApiErrorAnswer,
 				{ status: 403 }
 			);
 		case 'invalid':
@@ -40,7 +41,7 @@ export const PATCH: RequestHandler = async (event) => {
 						.map(([k, v]) => `${k}: ${v}`)
 						.join('; ')}`,
 					errors: r.errors
-				},
+				} satisfies ApiErrorAnswer,
 				{ status: 400 }
 			);
 		case 'conflict':
@@ -49,7 +50,7 @@ export const PATCH: RequestHandler = async (event) => {
 					message: `${r.current.updatedBy ?? 'Someone'} saved this planting first (now version ${r.current.version}); your edit was not applied.`,
 					current: r.current,
 					changedBy: r.current.updatedBy ?? null
-				},
+				} satisfies PlantingConflictAnswer,
 				{ status: 409 }
 			);
 	}

@@ -4,6 +4,7 @@ import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
 import * as demand from '$lib/server/demand';
+import { copyWeek, saveCells } from '$lib/server/demand-cells';
 import { importDemand, uploadFromForm, MAX_UPLOAD_BYTES } from '$lib/server/import/demand';
 import { cellErrorsToInputs, gridFields, shareFields, text } from './form-input';
 import * as farms from '$lib/server/farms';
@@ -93,7 +94,7 @@ export const actions = {
 		const failed = await attempt(
 			'grid',
 			text(form),
-			() => demand.saveCells(farm.id, season, body),
+			() => saveCells(farm.id, season, body),
 			(e) => cellErrorsToInputs(e, names)
 		);
 		if (failed) return failed;
@@ -103,9 +104,7 @@ export const actions = {
 		const { farm, season, form } = await editing(event);
 		const values = text(form);
 		const { grid = '', fromWeek = '', toFirst = '', toLast = '' } = values;
-		const failed = await attempt('copy', values, () =>
-			demand.copyWeek(farm.id, season, { grid, fromWeek, toFirst, toLast })
-		);
+		const failed = await attempt('copy', values, () => copyWeek(farm.id, season, { grid, fromWeek, toFirst, toLast }));
 		if (failed) return failed;
 		redirect(303, back(event, grid));
 	},

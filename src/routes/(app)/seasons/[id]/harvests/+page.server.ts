@@ -4,6 +4,7 @@ import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
+import * as harvestLog from '$lib/server/harvest-log';
 import { listMembers } from '$lib/server/members';
 import { harvestPatchSchema, harvestSchema } from '$lib/schemas/harvest';
 import { fieldErrors } from '$lib/schemas/common';
@@ -53,7 +54,7 @@ export const actions = {
 		const values = text(await event.request.formData());
 		const parsed = harvestSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { log: { errors: fieldErrors(parsed.error), values } });
-		const out = await harvests.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, [parsed.data]));
+		const out = await harvestLog.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, [parsed.data]));
 		if (!out.ok) return fail(out.status, { log: { errors: out.errors, values } });
 		redirect(303, `/seasons/${season.id}/harvests?logged=${out.value[0].id}`);
 	},
@@ -63,7 +64,7 @@ export const actions = {
 		const values = text(await event.request.formData());
 		const { records, rowOf, errors } = sheetRows(values);
 		if (Object.keys(errors).length) return fail(400, { sheet: { errors, values } });
-		const out = await harvests.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, records), true);
+		const out = await harvestLog.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, records), true);
 		if (!out.ok) return fail(out.status, { sheet: { errors: remapRowErrors(out.errors, rowOf), values } });
 		redirect(303, `/seasons/${season.id}/harvests?saved=${out.value.length}`);
 	},
@@ -75,7 +76,7 @@ export const actions = {
 		const parsed = harvestPatchSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { edit: { key, errors: fieldErrors(parsed.error), values } });
 		const [patch] = await inFarmUnits(farm.id, [parsed.data]);
-		const out = await harvests.update(farm.id, season.id, Number(id), user.id, patch);
+		const out = await harvestLog.update(farm.id, season.id, Number(id), user.id, patch);
 		if (!out.ok) return fail(out.status, { edit: { key, errors: out.errors, values } });
 		redirect(303, `/seasons/${season.id}/harvests?edited=${id}`);
 	},
@@ -83,7 +84,7 @@ export const actions = {
 		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
 		const id = Number((await event.request.formData()).get('id'));
-		if (!Number.isInteger(id) || !(await harvests.remove(farm.id, season.id, id, user.id)))
+		if (!Number.isInteger(id) || !(await harvestLog.remove(farm.id, season.id, id, user.id)))
 			return fail(404, {
 				edit: { key: `edit-${id}`, errors: { _form: 'No such harvest record in this season.' }, values: {} }
 			});

@@ -5,6 +5,7 @@ import type { RequestHandler } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
+import * as harvestLog from '$lib/server/harvest-log';
 import { harvestBatchSchema, harvestSchema } from '$lib/schemas/harvest';
 
 export const GET = (async (event) => {
@@ -27,14 +28,14 @@ export const POST = (async (event) => {
 	if (isBatch) {
 		const parsed = await parseBody(event, harvestBatchSchema);
 		if (!parsed.ok) return parsed.response;
-		const out = await harvests.create(farm.id, season.id, user.id, parsed.data.records, true);
+		const out = await harvestLog.create(farm.id, season.id, user.id, parsed.data.records, true);
 		if (!out.ok)
 			return json({ message: 'Nothing was saved: fix the rows named.', errors: out.errors }, { status: out.status });
 		return json({ harvests: out.value }, { status: 201 });
 	}
 	const parsed = await parseBody(event, harvestSchema);
 	if (!parsed.ok) return parsed.response;
-	const out = await harvests.create(farm.id, season.id, user.id, [parsed.data]);
+	const out = await harvestLog.create(farm.id, season.id, user.id, [parsed.data]);
 	if (!out.ok)
 		return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
 	return json({ harvest: out.value[0] }, { status: 201 });

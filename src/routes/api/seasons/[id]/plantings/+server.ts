@@ -6,6 +6,7 @@ import { create, gridContext } from '$lib/server/plantings';
 import { seasonPlantingsJson } from '$lib/server/plantings-json';
 import { cachedAnswer } from '$lib/server/plantings-cache';
 import { editableFields, plantingBatchSchema } from '$lib/schemas/planting';
+import type { ApiErrorAnswer, PlantingsCreatedAnswer } from '$lib/api-answers';
 
 // `{ season, plantings }` as before, plus what the grid needs to recalculate in the browser.
 // Kept ready in memory until the season's data changes (plantings-cache.ts), with an ETag.
@@ -43,8 +44,8 @@ export const POST: RequestHandler = async (event) => {
 					.map(([k, v]) => `${k}: ${v}`)
 					.join('; ')}`,
 				errors: result.errors
-			},
+			} satisfies ApiErrorAnswer,
 			{ status: 400 }
 		);
-	return json({ plantings: result.plantings }, { status: 201 });
+	return json({ plantings: result.plantings } satisfies PlantingsCreatedAnswer, { status: 201 });
 };

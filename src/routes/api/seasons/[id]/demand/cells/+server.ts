@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
-import { saveCells } from '$lib/server/demand';
+import { saveCells } from '$lib/server/demand-cells';
 import { respond } from '../respond';
 
 /** Sets cells of one grid ({ grid, cells: [{ crop, week, quantity, unit }] }); all or none. */

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
-import { copyWeek } from '$lib/server/demand';
+import { copyWeek } from '$lib/server/demand-cells';
 import { respond } from '../respond';
 
 /** Copies one week of a grid onto a range of weeks ({ grid, fromWeek, toFirst, toLast }). */

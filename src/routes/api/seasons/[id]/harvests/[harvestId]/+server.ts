@@ -5,6 +5,7 @@ import type { RequestHandler } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { parseBody, seasonFromParams } from '$lib/server/api';
 import * as harvests from '$lib/server/harvests';
+import * as harvestLog from '$lib/server/harvest-log';
 import { harvestPatchSchema } from '$lib/schemas/harvest';
 
 function idOf(raw: string): number {
@@ -27,7 +28,7 @@ export const PATCH = (async (event) => {
 	const id = idOf(event.params.harvestId);
 	const parsed = await parseBody(event, harvestPatchSchema);
 	if (!parsed.ok) return parsed.response;
-	const out = await harvests.update(farm.id, season.id, id, user.id, parsed.data);
+	const out = await harvestLog.update(farm.id, season.id, id, user.id, parsed.data);
 	if (!out.ok)
 		return json({ message: Object.values(out.errors).join(' '), errors: out.errors }, { status: out.status });
 	return json({ harvest: out.value });
@@ -36,7 +37,7 @@ export const PATCH = (async (event) => {
 export const DELETE = (async (event) => {
 	const { farm, user } = requireCan(event, 'harvests.log');
 	const season = await seasonFromParams(farm.id, event.params.id);
-	if (!(await harvests.remove(farm.id, season.id, idOf(event.params.harvestId), user.id)))
+	if (!(await harvestLog.remove(farm.id, season.id, idOf(event.params.harvestId), user.id)))
 		error(404, 'No such harvest record in this season.');
 	return new Response(null, { status: 204 });
 }) satisfies RequestHandler;
