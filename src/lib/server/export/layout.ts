@@ -213,7 +213,15 @@ export const cropsSheet: SheetSpec = {
 		measured('inRowSpacingIn', 'In-row spacing (in)', 'In-row spacing (cm)', 18, 'number', 'spacing', 2),
 		col('seedsPerSpot', 'Seeds per spot', 14, 'int'),
 		col('germinationRate', 'Germination (%)', 15, 'percent'),
-		measured('seedsPerGram', 'Seeds per ounce (seeds/oz)', 'Seeds per gram (seeds/g)', 22, 'number', 'seedsPerWeight', 2),
+		measured(
+			'seedsPerGram',
+			'Seeds per ounce (seeds/oz)',
+			'Seeds per gram (seeds/g)',
+			22,
+			'number',
+			'seedsPerWeight',
+			2
+		),
 		measured('seedPrice', 'Seed price ($/oz)', 'Seed price ($/g)', 15, 'money', 'pricePerSeedWeight', 2),
 		col('seedsPerPacket', 'Seeds per packet', 16, 'int'),
 		col('cellsPerTray', 'Cells per tray', 14, 'int'),

@@ -1,7 +1,7 @@
 // The season workbook in the farm's units: rows are worked out in the database's units (rows.ts)
 // and converted here, column by column, from the layout's measures; the import converts back.
 import type { UnitSystem } from '$lib/format';
-import { canonicalHarvestUnit, fromFileValue, harvestUnitSystem, toFileValue } from '$lib/format/file-units';
+import { canonicalHarvestUnit, fromFileValue, toFileValue } from '$lib/format/file-units';
 import type { ColumnSpec, SheetSpec } from './layout';
 import type { Cell, Row } from './rows';
 

@@ -3,7 +3,15 @@
 import { plural } from '$lib/plural';
 import { formatWeekDate } from '$lib/planning';
 import { cautionsFor } from './cautions';
-import { formatFeet, formatInches, formatNumber, formatQuantity, formatSeedWeight, toDisplayFeet, type UnitSystem } from '$lib/format';
+import {
+	formatFeet,
+	formatInches,
+	formatNumber,
+	formatQuantity,
+	formatSeedWeight,
+	toDisplayFeet,
+	type UnitSystem
+} from '$lib/format';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
 
 function esc(s: string): string {
@@ -31,10 +39,14 @@ function detail(kind: SheetSection['kind'], r: SheetRow, system: UnitSystem): st
 				(s ? ` · ${formatSeedWeight(s.grams, system)} seed` : '')
 			);
 		case 'transplant':
-			return (s?.plants !== undefined ? `${plural(s.plants, 'plant')} · ` : '') + `${plural(r.rows, 'row')} at ${spacing}`;
+			return (
+				(s?.plants !== undefined ? `${plural(s.plants, 'plant')} · ` : '') + `${plural(r.rows, 'row')} at ${spacing}`
+			);
 		case 'harvest': {
 			const who = (r.demand ?? []).map((d) => `${d.for} ${formatQuantity(d.quantity, d.unit, system)}`).join(', ');
-			return `about ${formatQuantity(r.weekQuantity ?? 0, r.unit ?? '', system, 1)} this week` + (who ? ` · for ${who}` : '');
+			return (
+				`about ${formatQuantity(r.weekQuantity ?? 0, r.unit ?? '', system, 1)} this week` + (who ? ` · for ${who}` : '')
+			);
 		}
 	}
 }

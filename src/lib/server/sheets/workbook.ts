@@ -37,7 +37,12 @@ function sheetColumns(system: UnitSystem): Record<SheetSection['kind'], Column[]
 	const metric = system === 'metric';
 	const where: Column[] = [
 		{ header: 'Block · bed', width: 18, value: (_r, g) => g },
-		{ header: `From (${ft})`, width: 10, value: (r) => toDisplayFeet(r.startFt, system), format: metric ? '0.0#' : '0.#' },
+		{
+			header: `From (${ft})`,
+			width: 10,
+			value: (r) => toDisplayFeet(r.startFt, system),
+			format: metric ? '0.0#' : '0.#'
+		},
 		{ header: `To (${ft})`, width: 10, value: (r) => toDisplayFeet(r.endFt, system), format: metric ? '0.0#' : '0.#' }
 	];
 	const crop: Column[] = [
