@@ -303,3 +303,45 @@ describe("a metric farm's other files", () => {
 		expect(JSON.stringify(body)).toContain('Head lettuce is counted in head, not kg.');
 	});
 });
+
+// Last: it changes the plan the tests above read.
+describe('an edited metric file', () => {
+	it('a length edited in metres previews in metres and is kept in feet', async () => {
+		// P1's 15.24 m (50 ft) made 12.192 m (40 ft exactly) in a copy of the file.
+		const wb = await loadWorkbook(bytes);
+		const ws = wb.getWorksheet('Plantings')!;
+		const head = headers(wb, 'Plantings');
+		let edited = 0;
+		ws.eachRow((row, n) => {
+			if (n === 1 || row.getCell(head.indexOf('Bed') + 1).value !== 'E1') return;
+			if (row.getCell(head.indexOf('Start (m)') + 1).value !== 0) return;
+			row.getCell(head.indexOf('Length (m)') + 1).value = 12.192;
+			edited++;
+		});
+		expect(edited).toBe(1);
+		const file = Buffer.from(await wb.xlsx.writeBuffer());
+		const res = await upload(metric.client, 'edited.xlsx', file, { seasonId: String(seasonId) });
+		expect(res.status).toBe(200);
+		const { preview } = await res.json();
+		expect(preview.changed).toHaveLength(1);
+		expect(preview.changed[0].changes).toEqual(
+			expect.arrayContaining([
+				expect.objectContaining({ field: 'lengthFt', label: 'Length (m)', from: '15.24', to: '12.19' }),
+				// 40 ft × 2.5 lb = 100 lb = 45.36 kg, was 125 lb = 56.7 kg.
+				expect.objectContaining({ field: 'expectedYield', from: '56.7 kg', to: '45.36 kg' })
+			])
+		);
+		const apply = await metric.client.request('/api/import/apply', {
+			method: 'POST',
+			body: JSON.stringify({ token: preview.token }),
+			headers: { origin: baseUrl(), 'content-type': 'application/json', accept: 'application/json' }
+		});
+		expect(apply.status, await apply.clone().text()).toBe(200);
+		const p1 = await testDb()('plantings')
+			.where({ farm_id: metric.farmId, season_id: seasonId, start_ft: 0 })
+			.whereNotNull('bed_id')
+			.orderBy('id')
+			.first('length_ft', 'expected_yield');
+		expect([Number(p1.length_ft), Number(p1.expected_yield)]).toEqual([40, 100]);
+	});
+});
