@@ -345,3 +345,21 @@ describe('an edited metric file', () => {
 		expect([Number(p1.length_ft), Number(p1.expected_yield)]).toEqual([40, 100]);
 	});
 });
+
+describe('a farm that keeps its books in euros', () => {
+	it('heads and formats money in its currency, and the import reads it back', async () => {
+		await testDb()('farms').where({ id: metric.farmId }).update({ currency: 'EUR' });
+		const got = await download(metric.client, seasonId);
+		const wb = await loadWorkbook(got.bytes);
+		expect(headers(wb, 'Crops & varieties')).toContain('Seed price (EUR/g)');
+		expect(headers(wb, 'Seed order')).toEqual(expect.arrayContaining(['Price (EUR/g)', 'Cost (EUR)']));
+		const ws = wb.getWorksheet('Seed order')!;
+		expect(ws.getRow(2).getCell(headers(wb, 'Seed order').indexOf('Cost (EUR)') + 1).numFmt).toContain('€');
+		const twin = await signUpFarm('units-euro-twin');
+		await setSystem(twin.farmId, 'metric');
+		const res = await upload(twin.client, 'euro.xlsx', got.bytes);
+		expect(res.status, await res.clone().text()).toBe(201);
+		const [a, b] = await Promise.all([stored(metric.farmId), stored(twin.farmId)]);
+		expect(b.varieties).toEqual(a.varieties);
+	});
+});

@@ -148,7 +148,7 @@ export function seedOrderCells(l: SeedOrderLine): (string | number | null)[] {
 export function seedOrderCsv(lines: SeedOrderLine[], currency: string, system: UnitSystem = 'imperial'): string {
 	// The sheet's own headers and conversions (export/layout.ts); money named by its ISO 4217 code.
 	const fields = seedOrderSheet.columns.map((c) =>
-		c.key === 'seeds' ? 'Seeds' : headerIn(c, system).replace('($', `(${currency}`)
+		c.key === 'seeds' ? 'Seeds' : headerIn(c, system, 'USD').replace('($', `(${currency}`)
 	);
 	const keys = seedOrderSheet.columns.map((c) => c.key);
 	const rows = rowsIn(seedOrderSheet, lines.map(seedOrderCells), system);

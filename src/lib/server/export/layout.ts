@@ -56,19 +56,41 @@ const measured = (
 	opts: { derived?: boolean; per?: string } = {}
 ): ColumnSpec => col(key, header, width, kind, opts.derived ?? false, { measure, metric, digits, per: opts.per });
 
-/** The header a file of a `system` farm writes for this column. */
-export function headerIn(c: ColumnSpec, system: UnitSystem): string {
-	return system === 'metric' && c.units ? c.units.metric : c.header;
+/**
+ * The header a file of a `system` farm writes for this column; money is named by the farm's
+ * currency code when it is not US dollars ("Cost (EUR)", "Seed price (EUR/g)").
+ */
+export function headerIn(c: ColumnSpec, system: UnitSystem, currency = 'USD'): string {
+	const h = system === 'metric' && c.units ? c.units.metric : c.header;
+	return currency === 'USD' ? h : h.replace('($', `(${currency}`);
+}
+
+/** A header with its currency as the layout writes it ("Cost (EUR)" → "Cost ($)"), for matching on import. */
+export function dollarHeader(header: string): string {
+	return header.replace(/\((?:[A-Z]{3}|[^\w\s()/%]{1,3})(?=[/)])/, '($');
+}
+
+/** The money cell format in `currency` (ISO 4217): its symbol before the figure, its decimals. */
+export function moneyFormat(currency: string): string {
+	if (currency === 'USD') return numberFormats.money!;
+	try {
+		const f = new Intl.NumberFormat('en-US', { style: 'currency', currency });
+		const symbol = f.formatToParts(1).find((p) => p.type === 'currency')?.value ?? currency;
+		const digits = f.resolvedOptions().maximumFractionDigits ?? 2;
+		return `"${symbol.replace(/"/g, '')}"#,##0${digits > 0 ? '.' + '0'.repeat(digits) : ''}`;
+	} catch {
+		return numberFormats.money!;
+	}
 }
 
 /**
  * The cell format of a column in a `system` farm's file: converted lengths and widths keep
  * decimals (76.2 cm), small ounces of seed three.
  */
-export function numberFormatIn(c: ColumnSpec, system: UnitSystem): string | undefined {
+export function numberFormatIn(c: ColumnSpec, system: UnitSystem, currency = 'USD'): string | undefined {
 	const m = c.units?.measure;
 	if (m === 'seedWeight' && system === 'imperial') return '#,##0.000';
-	if (m === 'pricePerSeedWeight') return numberFormats.money;
+	if (c.kind === 'money') return moneyFormat(currency);
 	if (m && system === 'metric' && c.kind === 'int' && m !== 'degreeDays') return numberFormats.number;
 	return numberFormats[c.kind];
 }

@@ -67,6 +67,8 @@ export interface SeasonData {
 	farmTimeZone: string;
 	/** The farm's units: the rows are in the database's, the file converts them (units.ts). */
 	unitSystem: UnitSystem;
+	/** ISO 4217: money columns are headed and formatted in it. */
+	currency: string;
 	season: Season;
 	plantings: ExportPlanting[];
 	crops: CropRow[];
@@ -159,6 +161,7 @@ export async function loadSeasonData(farmId: number, season: Season): Promise<Se
 		farmName: farm.name,
 		farmTimeZone: farm.timeZone,
 		unitSystem: farm.unitSystem === 'metric' ? 'metric' : 'imperial',
+		currency: farm.currency ?? 'USD',
 		season,
 		plantings,
 		crops,

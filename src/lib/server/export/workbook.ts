@@ -46,7 +46,8 @@ export async function writeWorkbook(
 	rows: SheetRows,
 	stream: Writable,
 	titles: { farm: string; season: string },
-	system: UnitSystem = 'imperial'
+	system: UnitSystem = 'imperial',
+	currency = 'USD'
 ): Promise<void> {
 	const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
 	wb.creator = 'Furrowcast';
@@ -80,12 +81,12 @@ export async function writeWorkbook(
 		// object identity, so a shared object costs one lookup per column, not one per cell
 		// (at tens of thousands of rows that is most of the writing time).
 		const styles = spec.columns.map((c) => {
-			const numFmt = numberFormatIn(c, system);
+			const numFmt = numberFormatIn(c, system, currency);
 			return numFmt ? { numFmt } : {};
 		});
 		const dateStyle = { numFmt: numberFormats.date };
 		const dateCols = spec.columns.map((c) => c.kind === 'date');
-		const header = ws.addRow(spec.columns.map((c) => headerIn(c, system)));
+		const header = ws.addRow(spec.columns.map((c) => headerIn(c, system, currency)));
 		const bold = { font: { bold: true } };
 		header.eachCell((cell) => (cell.style = bold));
 		header.commit();

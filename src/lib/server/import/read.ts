@@ -6,7 +6,15 @@ import type { ImportIssue, ImportableSheet } from '$lib/schemas/import';
 import { readXlsxSheets, XlsxRefused, type XlsxLimits, type XlsxRow } from '../xlsx-read';
 import { detectDecimal, parseNumberText } from '$lib/schemas/number-text';
 import type { UnitSystem } from '$lib/format';
-import { bedsSheet, columnLetter, cropsSheet, plantingsSheet, seasonSheet, type SheetSpec } from '../export/layout';
+import {
+	bedsSheet,
+	columnLetter,
+	cropsSheet,
+	dollarHeader,
+	plantingsSheet,
+	seasonSheet,
+	type SheetSpec
+} from '../export/layout';
 import { cellsToCanonical, systemOfHeader } from '../export/units';
 
 export interface RawRow {
@@ -70,11 +78,14 @@ function matchHeaders(
 	const index: Record<string, number> = {};
 	const systems: Record<string, UnitSystem> = {};
 	headers.forEach((h, i) => {
-		const c = typeof h === 'string' ? byHeader.get(norm(h)) : undefined;
+		// Money in any currency reads alike: "Cost (EUR)" is the layout's "Cost ($)".
+		const money = typeof h === 'string' ? byHeader.get(norm(dollarHeader(h))) : undefined;
+		const c =
+			typeof h === 'string' ? (byHeader.get(norm(h)) ?? (money?.kind === 'money' ? money : undefined)) : undefined;
 		if (c && !(c.key in index)) {
 			index[c.key] = i;
 			letters[c.key] = columnLetter(i + 1);
-			if (c.units) systems[c.key] = systemOfHeader(c, h as string);
+			if (c.units) systems[c.key] = systemOfHeader(c, dollarHeader(h as string));
 		}
 	});
 	const issues = requiredHeaders[spec.name]
