@@ -3,20 +3,23 @@
 import { cropFields, formValue, measuredFields, varietyFields, type UnitContext } from '$lib/schemas/crop';
 import type { VarietyView } from '$lib/types';
 
-export function cropFormValues(c: {
-	name: string;
-	family: string;
-	harvestUnit: string;
-	frostTolerance: string;
-	heatLimitF: number | null;
-	baseTempF: number;
-	harvestCurve: string;
-	cutIntervalDays: number | null;
-	storageWeeks: number | null;
-	storageLossPct: number | null;
-	price: number | null;
-	source: string | null;
-}, ctx: UnitContext): Record<string, string> {
+export function cropFormValues(
+	c: {
+		name: string;
+		family: string;
+		harvestUnit: string;
+		frostTolerance: string;
+		heatLimitF: number | null;
+		baseTempF: number;
+		harvestCurve: string;
+		cutIntervalDays: number | null;
+		storageWeeks: number | null;
+		storageLossPct: number | null;
+		price: number | null;
+		source: string | null;
+	},
+	ctx: UnitContext
+): Record<string, string> {
 	return Object.fromEntries(
 		Object.entries(measuredFields(cropFields, ctx)).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])])
 	);

@@ -26,7 +26,8 @@ import { G_PER_OZ, KG_PER_LB } from '$lib/planning/units';
  * harvest unit) and typed and shown in the farm's own: the field table says which, and
  * `measuredFields` turns it into labels, bounds and conversions for one farm.
  */
-export type Measure = 'temperature' | 'spacing' | 'yieldPerLength' | 'seedsPerWeight' | 'pricePerSeedWeight' | 'pricePerUnit';
+export type Measure =
+	'temperature' | 'spacing' | 'yieldPerLength' | 'seedsPerWeight' | 'pricePerSeedWeight' | 'pricePerUnit';
 
 export interface NumberSpec {
 	kind: 'number';
@@ -393,12 +394,24 @@ function conversion(measure: Measure, ctx: UnitContext): Conversion {
 	const per = quantityUnit(harvestUnit, system, 1);
 	switch (measure) {
 		case 'temperature':
-			return { unit: temperatureUnit(system), from: (f) => toDisplayTemp(f, system), to: (t) => fromDisplayTemp(t, system) };
+			return {
+				unit: temperatureUnit(system),
+				from: (f) => toDisplayTemp(f, system),
+				to: (t) => fromDisplayTemp(t, system)
+			};
 		case 'spacing':
-			return { unit: spacingUnit(system), from: (i) => toDisplayInches(i, system), to: (t) => fromDisplayInches(t, system) };
+			return {
+				unit: spacingUnit(system),
+				from: (i) => toDisplayInches(i, system),
+				to: (t) => fromDisplayInches(t, system)
+			};
 		case 'yieldPerLength': {
 			const k = toDisplayPerFoot(1, harvestUnit, system);
-			return { unit: `${quantityUnit(harvestUnit, system)} per bed-${lengthUnit(system)}`, from: (v) => v * k, to: (t) => t / k };
+			return {
+				unit: `${quantityUnit(harvestUnit, system)} per bed-${lengthUnit(system)}`,
+				from: (v) => v * k,
+				to: (t) => t / k
+			};
 		}
 		case 'seedsPerWeight':
 			return metric

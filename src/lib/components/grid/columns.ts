@@ -5,6 +5,21 @@ import { readDateText } from '$lib/schemas/date-text';
 import { fieldSpec, plantingFieldNames } from '$lib/plantings/fields';
 import type { GridRow } from './rows';
 import type { GridBed, GridVariety } from '$lib/plantings/derive';
+import {
+	bedLengthWord,
+	fromDisplayFeet,
+	fromDisplayInches,
+	lengthUnit,
+	seedWeightDigits,
+	seedWeightUnit,
+	spacingUnit,
+	toDisplayFeet,
+	toDisplayInches,
+	toDisplayQuantity,
+	toDisplaySeedWeight,
+	unitLabel,
+	type UnitSystem
+} from '$lib/format';
 
 export type ColumnKind = 'text' | 'number' | 'date' | 'select';
 
@@ -15,6 +30,8 @@ export interface Lookups {
 	bedById: Map<number, GridBed>;
 	/** How pasted dates are read besides ISO (the browser's locale, e.g. 'en-US'). */
 	locale?: string;
+	/** The farm's units: lengths and spacing are shown, typed and pasted in them (feet when not given). */
+	units?: UnitSystem;
 }
 
 export interface GridColumn {
@@ -26,6 +43,8 @@ export interface GridColumn {
 	kind: ColumnKind;
 	width: number;
 	numeric?: boolean;
+	/** The canonical unit of a typed figure that converts ('ft', 'in'), if any. */
+	unit?: string;
 	/** Display text, with its unit. */
 	show(row: GridRow, l: Lookups): string;
 	/** The value to sort by. */
@@ -49,6 +68,28 @@ export const bedLabel = (b: GridBed): string => `${b.blockName} · ${b.name}`;
 function unitOf(row: GridRow, l: Lookups): string {
 	return l.varietyById.get(row.values.varietyId)?.harvestUnit ?? '';
 }
+
+/** How a column's figure reads on this farm: lengths in metres and spacing in cm on a metric farm. */
+function measured(unit: string, l: Lookups): { label: string; to: (x: number) => number; from: (x: number) => number } {
+	const u = l.units ?? 'imperial';
+	if (unit === 'ft')
+		return { label: lengthUnit(u), to: (x) => toDisplayFeet(x, u), from: (x) => fromDisplayFeet(x, u) };
+	if (unit === 'in')
+		return { label: spacingUnit(u), to: (x) => toDisplayInches(x, u), from: (x) => fromDisplayInches(x, u) };
+	return { label: unit, to: (x) => x, from: (x) => x };
+}
+const hundredths = (x: number): number => Math.round(x * 100) / 100;
+
+/** A column's header on this farm ("Bed-feet" is "Bed-metres" on a metric farm). */
+export function columnLabel(c: GridColumn, units: UnitSystem): string {
+	return c.label === 'Bed-feet' ? bedLengthWord(units).replace(/^./, (x) => x.toUpperCase()) : c.label;
+}
+
+/** A harvest quantity in the farm's unit ("4.5 lb", "2.04 kg", "12 bunch"). */
+const harvestFigure = (x: number, r: GridRow, l: Lookups): string => {
+	const u = l.units ?? 'imperial';
+	return counted(hundredths(toDisplayQuantity(x, unitOf(r, l), u)), unitLabel(unitOf(r, l), u, 1));
+};
 
 /** Fields the grid draws with a column of its own (names to ids, lists); the rest come from the field table. */
 const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
@@ -172,8 +213,8 @@ export const columns: GridColumn[] = [
 	derivedDate('traySow', 'Tray sowing', (r) => r.derived?.traySowDate ?? null),
 	derivedDate('firstHarvest', 'First harvest', (r) => r.derived?.firstHarvest ?? null),
 	derivedDate('lastHarvest', 'Last harvest', (r) => r.derived?.lastHarvest ?? null),
-	derivedNum('weeklyYield', 'Weekly yield', (r) => r.derived?.weeklyYield, unitOf, 96),
-	derivedNum('totalYield', 'Total yield', (r) => r.derived?.expectedYield, unitOf, 96),
+	derivedNum('weeklyYield', 'Weekly yield', (r) => r.derived?.weeklyYield, unitOf, 96, harvestFigure),
+	derivedNum('totalYield', 'Total yield', (r) => r.derived?.expectedYield, unitOf, 96, harvestFigure),
 	derivedNum(
 		'seeds',
 		'Seeds',
@@ -186,7 +227,11 @@ export const columns: GridColumn[] = [
 		'Seed',
 		(r) => r.derived?.seed.grams,
 		() => 'g',
-		80
+		80,
+		(g, _r, l) => {
+			const w = toDisplaySeedWeight(g, l.units ?? 'imperial');
+			return `${Number(w.toFixed(seedWeightDigits(w)))} ${seedWeightUnit(l.units ?? 'imperial')}`;
+		}
 	),
 	derivedNum(
 		'cells',
@@ -243,9 +288,13 @@ function num(id: string, label: string, unit: string, width: number, field: Plan
 		kind: 'number',
 		width,
 		numeric: true,
-		show: (r) => counted(get(r), unit),
+		unit,
+		show: (r, l) => {
+			const m = measured(unit, l);
+			return counted(hundredths(m.to(get(r))), m.label);
+		},
 		sortValue: get,
-		text: (r) => String(get(r))
+		text: (r, l) => String(hundredths(measured(unit, l).to(get(r))))
 	};
 }
 
@@ -266,7 +315,8 @@ function derivedNum(
 	label: string,
 	get: (r: GridRow) => number | undefined,
 	unit: (r: GridRow, l: Lookups) => string,
-	width: number
+	width: number,
+	display?: (x: number, r: GridRow, l: Lookups) => string
 ): GridColumn {
 	return {
 		id,
@@ -274,7 +324,7 @@ function derivedNum(
 		kind: 'number',
 		width,
 		numeric: true,
-		show: (r, l) => (get(r) === undefined ? '' : counted(get(r)!, unit(r, l))),
+		show: (r, l) => (get(r) === undefined ? '' : display ? display(get(r)!, r, l) : counted(get(r)!, unit(r, l))),
 		sortValue: (r) => get(r) ?? -1,
 		text: (r) => (get(r) === undefined ? '' : String(get(r)))
 	};
@@ -330,7 +380,12 @@ export function readCell(col: GridColumn, text: string, row: GridRow, l: Lookups
 		const out = checkCell(col.field, d.iso);
 		return out.ok && d.note ? { ...out, note: d.note } : out;
 	}
-	// A pasted number may carry its unit ("25 ft"): keep the figure.
-	const raw = col.kind === 'number' ? t.replace(/\s*(ft|in|rows?|seeds?)$/i, '') : t;
+	// A pasted number may carry its unit ("25 ft", "7.6 m"): keep the figure, in the farm's units.
+	const raw = col.kind === 'number' ? t.replace(/\s*(ft|in|m|cm|rows?|seeds?)$/i, '') : t;
+	const typed = Number(raw.replace(',', '.'));
+	if (col.unit && (l.units ?? 'imperial') === 'metric' && raw !== '' && Number.isFinite(typed)) {
+		const stored = measured(col.unit, l).from(typed);
+		return checkCell(col.field, String(Math.round(stored * 100) / 100));
+	}
 	return checkCell(col.field, raw);
 }

@@ -42,6 +42,8 @@ export interface GridInit {
 	seasonId: number;
 	/** How the farm writes dates (its settings): pasted "6/24/2028" is read in this order. */
 	dateLocale?: string;
+	/** The farm's unit system: lengths and spacing shown and typed in it. */
+	unitSystem?: 'imperial' | 'metric';
 }
 
 export class GridState {
@@ -70,7 +72,8 @@ export class GridState {
 			varietyById: new Map(init.varieties.map((v) => [v.id, v])),
 			beds: init.beds,
 			bedById: new Map(init.beds.map((b) => [b.id, b])),
-			locale: init.dateLocale ?? 'en-US'
+			locale: init.dateLocale ?? 'en-US',
+			units: init.unitSystem ?? 'imperial'
 		};
 		this.farm = init.farm;
 		this.role = init.role;

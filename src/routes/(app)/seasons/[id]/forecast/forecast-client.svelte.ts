@@ -2,6 +2,7 @@
 // the plan may have changed — the window regains focus, the tab becomes visible, or another
 // part of the app dispatches `furrowcast:plan-changed` on window.
 import type { ChartCrop, ForecastApiRow } from '$lib/components/charts/forecast-series';
+import { toDisplayQuantity, unitLabel, type UnitSystem } from '$lib/format';
 
 export const PLAN_CHANGED_EVENT = 'furrowcast:plan-changed';
 
@@ -43,6 +44,24 @@ export function rowsFromSeries(body: SeriesResponse): ForecastResponse {
 	return { from: body.from, to: body.to, weeks: body.weeks, currentWeek: body.currentWeek, crops: body.crops, rows };
 }
 
+/** The answer in the farm's units: on a metric farm pounds become kilograms (counts stay as they are). */
+export function inFarmUnits(body: ForecastResponse, units: UnitSystem): ForecastResponse {
+	if (units === 'imperial') return body;
+	const unitOf = new Map(body.crops.map((c) => [c.id, c.unit]));
+	const q = (n: number, crop: string): number => toDisplayQuantity(n, unitOf.get(crop) ?? '', units);
+	return {
+		...body,
+		crops: body.crops.map((c) => ({ ...c, unit: unitLabel(c.unit, units) })),
+		rows: body.rows.map((r) => ({
+			...r,
+			supply: q(r.supply, r.crop),
+			demand: q(r.demand, r.crop),
+			shortfall: q(r.shortfall, r.crop),
+			surplus: q(r.surplus, r.crop)
+		}))
+	};
+}
+
 export interface Query {
 	from: string;
 	to: string;
@@ -61,9 +80,11 @@ export class ForecastData {
 	arrivedAt = 0;
 	#seq = 0;
 	#seasonId: number;
+	#units: UnitSystem;
 
-	constructor(seasonId: number) {
+	constructor(seasonId: number, units: UnitSystem = 'imperial') {
 		this.#seasonId = seasonId;
+		this.#units = units;
 	}
 
 	async load(q: Query): Promise<void> {
@@ -84,7 +105,7 @@ export class ForecastData {
 			this.error = null;
 			// The response in hand: turning it back into rows counts as part of the chart's render.
 			this.arrivedAt = performance.now();
-			this.data = rowsFromSeries(body as SeriesResponse);
+			this.data = inFarmUnits(rowsFromSeries(body as SeriesResponse), this.#units);
 			this.fetches++;
 		} catch {
 			if (seq === this.#seq) this.error = 'The forecast could not be loaded: no connection to the server.';
