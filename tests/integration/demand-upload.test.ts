@@ -69,7 +69,7 @@ const badCsv = [
 	'Full share,Carrot,2032-W24,1.5,lb', // row 2: good
 	'Full share,Parsley root,2032-W24,1,lb', // row 3: no such crop
 	'Half share,Carrot,W24,0.75,lb', // row 4: week not an ISO week
-	'market,Carrot,2032-W25,abc,kg', // row 5: quantity and unit both bad
+	'market,Carrot,2032-W25,abc,ton', // row 5: quantity and unit both bad (kg is read: a metric farm's weight)
 	'farm stand,Kale,2032-W25,4,bunch', // row 6: no such channel
 	'Full share,Kale,2032-W31,1,bunch', // row 7: after the share's last week
 	'restaurant,Kale,2032-W26,10,lb', // row 8: Kale is counted in bunches

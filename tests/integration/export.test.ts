@@ -9,6 +9,9 @@ import { closeTestDb, count, testDb } from '../helpers/db';
 import { demo } from '../helpers/env';
 import { download, loadWorkbook, signUpFarm, writeHandPlan, type NewFarm } from '../helpers/transfer';
 
+// Source: NIST Handbook 44, Appendix C: 1 ounce (avoirdupois) = 28.349 523 125 g exactly.
+const G_PER_OZ = 28.349523125;
+
 afterAll(closeTestDb);
 
 const sheetNames = ['Season', 'Plantings', 'Seed order', 'Weekly tasks', 'Forecast', 'Crops & varieties', 'Beds'];
@@ -98,11 +101,17 @@ describe('read with exceljs', () => {
 			expect.arrayContaining(['Start (ft)', 'Length (ft)', 'In-row spacing (in)', 'Field date', 'Seeds needed (seeds)'])
 		);
 		expect(head('Seed order')).toEqual(
-			expect.arrayContaining(['Seeds (seeds)', 'Seed (g)', 'Packets', 'Cost ($)', 'Bed-feet (ft)'])
+			expect.arrayContaining(['Seeds (seeds)', 'Seed (oz)', 'Packets', 'Cost ($)', 'Bed-feet (ft)', 'Price ($/oz)'])
 		);
 		expect(head('Beds')).toEqual(expect.arrayContaining(['Length (ft)', 'Width (in)']));
 		expect(head('Crops & varieties')).toEqual(
-			expect.arrayContaining(['Heat limit (°F)', 'Days to maturity (d)', 'Germination (%)', 'Seed price ($/g)'])
+			expect.arrayContaining([
+				'Heat limit (°F)',
+				'Days to maturity (d)',
+				'Germination (%)',
+				'Seed price ($/oz)',
+				'Seeds per ounce (seeds/oz)'
+			])
 		);
 	});
 	it('plantings: dates are dates, numbers are numbers, one row per planting', async () => {
@@ -127,16 +136,18 @@ describe('read with exceljs', () => {
 		// P1: 50 ft × 12 in ÷ 1 in = 600 spots a row × 4 rows = 2,400; seeds = ceil(2,400 ÷ 0.75 × 1.15) = 3,680; 3,680 ÷ 800 = 4.6 g → 414 ¢.
 		// P2: 25 ft → 1,200 spots; ceil(1,200 ÷ 0.75 × 1.15) = 1,840 seeds; 2.3 g → 207 ¢.
 		// Σ 5,520 seeds, 6.9 g, $6.21; packets ceil(5,520 ÷ 1,500) = 4; 75 bed-feet.
+		// An imperial farm reads seed in ounces: 6.9 g ÷ 28.349523125 g/oz (NIST Handbook 44, App. C) = 0.2434 oz,
+		// and $0.90/g × 28.349523125 = $25.51/oz.
 		expect(amber).toMatchObject({
 			Plantings: 2,
 			'Bed-feet (ft)': 75,
 			'Seeds (seeds)': 5520,
-			'Seed (g)': 6.9,
 			Packets: 4,
-			'Price ($/g)': 0.9,
 			'Cost ($)': 6.21,
 			Cells: null
 		});
+		expect(amber['Seed (oz)']).toBeCloseTo(6.9 / G_PER_OZ, 10);
+		expect(amber['Price ($/oz)']).toBeCloseTo(0.9 * G_PER_OZ, 10);
 		const butter = rows.find((r) => r.Variety === 'Test Butter')!;
 		// P3: 40 ft × 12 ÷ 12 = 40 a row × 3 = 120 plants; cells ceil(120 ÷ 0.9 × 1.15) = ceil(153.3) = 154; trays ceil(154 ÷ 128) = 2;
 		//     154 seeds ÷ 800 = 0.1925 g, rounded up to 0.20 g → 50 ¢.
@@ -151,10 +162,10 @@ describe('read with exceljs', () => {
 			Cells: 231,
 			Trays: 3
 		});
-		expect(butter['Seed (g)']).toBeCloseTo(0.29, 10);
-		// The sheet's own columns add up on every row: cost = grams × price per gram, to the cent.
+		expect(butter['Seed (oz)']).toBeCloseTo(0.29 / G_PER_OZ, 10);
+		// The sheet's own columns add up on every row: cost = ounces × price per ounce, to the cent.
 		for (const r of rows)
-			expect(Math.abs(Number(r['Cost ($)']) - Number(r['Seed (g)']) * Number(r['Price ($/g)']))).toBeLessThanOrEqual(
+			expect(Math.abs(Number(r['Cost ($)']) - Number(r['Seed (oz)']) * Number(r['Price ($/oz)']))).toBeLessThanOrEqual(
 				0.005 + 1e-9
 			);
 		const cost = wb.getWorksheet('Seed order')!.getRow(1).values as unknown[];
@@ -176,8 +187,9 @@ describe('read with exceljs', () => {
 			expect.objectContaining({ Bed: 'E2', Quantity: 120, Unit: 'plants' })
 		]);
 		expect(find('2027-W16', 'Direct sowing')).toEqual([
-			expect.objectContaining({ Bed: 'E1', Quantity: 3680, Unit: 'seeds', 'Seed (g)': 4.6 })
+			expect.objectContaining({ Bed: 'E1', Quantity: 3680, Unit: 'seeds' })
 		]);
+		expect(find('2027-W16', 'Direct sowing')[0]['Seed (oz)']).toBeCloseTo(4.6 / G_PER_OZ, 10);
 		// P3 harvest Wed 26 May – Fri 4 Jun, 108 heads over 10 days = 10.8 a day: W21 gets 26–30 May = 5 days = 54; W22 gets 31 May–4 Jun = 54.
 		expect(find('2027-W21', 'Harvest')).toEqual([
 			expect.objectContaining({ Crop: 'Head lettuce', Quantity: 54, Unit: 'head' })
@@ -215,11 +227,13 @@ describe('read with exceljs', () => {
 		]);
 		expect(crops[2]).toMatchObject({
 			'Germination (%)': 0.9,
-			'Seed price ($/g)': 2.5,
 			'Cells per tray': 128,
 			'Heat limit (°F)': 80,
 			'Degree days to maturity (°F·d)': 900
 		});
+		// Stored per gram ($2.50/g, 800 seeds/g), written per ounce on an imperial farm.
+		expect(crops[2]['Seed price ($/oz)']).toBeCloseTo(2.5 * G_PER_OZ, 10);
+		expect(crops[2]['Seeds per ounce (seeds/oz)']).toBeCloseTo(800 * G_PER_OZ, 8);
 		const beds = rowsOf('Beds');
 		expect(beds).toEqual([
 			{ Block: 'East', 'Block order': 1, Bed: 'E1', 'Walking order': 1, 'Length (ft)': 100, 'Width (in)': 30 },

@@ -23,6 +23,10 @@ beforeAll(async () => {
 // Rounding seed up, never short: common practice (no published source).
 const carrot = { seeds: 5520, grams: 6.9, packets: 4, cost: '6.21' };
 const lettuce = { seeds: 231, grams: 0.29, packets: 1, cost: '0.73' };
+// The test farm is imperial: its files give seed in ounces. Source: NIST Handbook 44, Appendix C:
+// 1 oz = 28.349 523 125 g. 6.9 g = 0.2434 oz; 0.29 g = 0.0102 oz (the CSV keeps four decimals).
+const G_PER_OZ = 28.349523125;
+const ounces = (g: number): number => Math.round((g / G_PER_OZ) * 1e4) / 1e4;
 
 describe('the seed order', () => {
 	it('the page lists each variety with seeds, grams, packets and cost, and the totals', async () => {
@@ -54,9 +58,9 @@ describe('the seed order', () => {
 			['Test Butter', lettuce]
 		] as const) {
 			const r = byVariety.get(name)!;
-			expect([Number(r.Seeds), Number(r['Seed (g)']), Number(r.Packets), r['Cost (USD)']], name).toEqual([
+			expect([Number(r.Seeds), Number(r['Seed (oz)']), Number(r.Packets), r['Cost (USD)']], name).toEqual([
 				want.seeds,
-				want.grams,
+				ounces(want.grams),
 				want.packets,
 				want.cost
 			]);
@@ -72,12 +76,12 @@ describe('the seed order', () => {
 				sheet.push([
 					String(at(n, 'Variety')),
 					Number(at(n, 'Seeds (seeds)')),
-					Number(at(n, 'Seed (g)')),
+					ounces(Number(at(n, 'Seed (oz)')) * G_PER_OZ),
 					Number(at(n, 'Cost ($)'))
 				]);
 		});
 		expect(sheet).toEqual(
-			rows.map((r) => [r.Variety, Number(r.Seeds), Number(r['Seed (g)']), Number(r['Cost (USD)'])])
+			rows.map((r) => [r.Variety, Number(r.Seeds), Number(r['Seed (oz)']), Number(r['Cost (USD)'])])
 		);
 	});
 });

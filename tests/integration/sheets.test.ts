@@ -9,6 +9,9 @@ import { waitForMail } from '../helpers/mail';
 import { expected, makeSheetFarm, WEEK, type SheetFarm } from './sheets-fixture';
 import { confirmedSignUp } from '../helpers/signup';
 
+// Source: NIST Handbook 44, Appendix C: 1 ounce (avoirdupois) = 28.349 523 125 g exactly.
+const G_PER_OZ = 28.349523125;
+
 afterAll(closeTestDb);
 
 let f: SheetFarm;
@@ -286,7 +289,9 @@ describe('the sheets by e-mail', () => {
 		// The week is named once, not again before each day.
 		expect(mail.subject).toMatch(/^Crew sheets 2027-W21 \(Mon 24 May – Sun 30 May\) · /);
 		expect(mail.html).toContain('<strong>Carrot</strong> · Test Nantes');
-		expect(mail.html).toContain('12.57 g seed');
+		// The test farm is imperial: seed in ounces. 12.57 g ÷ 28.349523125 g/oz = 0.4434 oz, shown "0.44 oz".
+		// Source: NIST Handbook 44, Appendix C (1 oz = 28.349 523 125 g).
+		expect(mail.html).toContain('0.44 oz seed');
 		expect(mail.attachments).toHaveLength(1);
 		const file = Buffer.from(mail.attachments[0].contentBase64, 'base64');
 		expect(mail.attachments[0].filename).toBe('crew-sheets-2027-W21.xlsx');
@@ -307,7 +312,7 @@ describe('the sheets by e-mail', () => {
 				'From (ft)',
 				'To (ft)',
 				'In-row spacing (in)',
-				'Seed (g)',
+				'Seed (oz)',
 				'Seeds',
 				'Actual date',
 				'Notes'
@@ -317,7 +322,7 @@ describe('the sheets by e-mail', () => {
 		const row = direct.getRow(2);
 		expect(row.getCell(col('Crop')).value).toBe('Carrot');
 		expect(row.getCell(col('Seeds')).value).toBe(expected.directSeeds);
-		expect(row.getCell(col('Seed (g)')).value).toBe(expected.directGrams);
+		expect(row.getCell(col('Seed (oz)')).value).toBeCloseTo(expected.directGrams / G_PER_OZ, 10);
 		// A real date: 25 May 2027, and the actual sowing date marked above (30 Nov 2026).
 		expect(row.getCell(col('Sow on')).value).toEqual(new Date('2027-05-25T00:00:00Z'));
 		expect(row.getCell(col('Actual date')).value).toEqual(new Date('2026-11-30T00:00:00Z'));
@@ -331,9 +336,9 @@ describe('the sheets by e-mail', () => {
 			Crop: 'Lettuce',
 			Variety: 'Test Butterhead',
 			Cells: expected.trayCells,
-			Trays: expected.trayTrays,
-			'Seed (g)': expected.trayGrams
+			Trays: expected.trayTrays
 		});
+		expect(tray[0]['Seed (oz)']).toBeCloseTo(expected.trayGrams / G_PER_OZ, 10);
 		const transplant = XLSX.utils.sheet_to_json<Record<string, unknown>>(sj.Sheets['Transplanting']);
 		expect(transplant[0]).toMatchObject({
 			'Block · bed': 'East · bed E1',

@@ -97,7 +97,8 @@ export const uploadRowSchema = z.object({
 	quantity: numberField('quantity', 0, 100_000),
 	unit: z.preprocess(
 		(v) => (typeof v === 'string' && v.trim() === '' ? undefined : typeof v === 'string' ? v.trim().toLowerCase() : v),
-		z.enum(harvestUnits, { error: 'unit must be lb, bunch, head or each (or empty).' }).optional()
+		// kg: a metric farm's file (the database keeps lb; the upload converts).
+		z.enum([...harvestUnits, 'kg'], { error: 'unit must be lb, kg, bunch, head or each (or empty).' }).optional()
 	)
 });
 export type UploadRow = z.infer<typeof uploadRowSchema>;

@@ -7,6 +7,8 @@ import type { Role } from '$lib/roles';
 import { db } from './db';
 import { hashToken, newToken } from './tokens';
 import { todayIn } from '$lib/today';
+import { plural } from '$lib/plural';
+import { formatFeet, formatInches, formatNumber, formatQuantity, toDisplayFeet, type UnitSystem } from '$lib/format';
 
 export interface FeedStatus {
 	createdAt: string;
@@ -105,6 +107,8 @@ export interface Feed {
 	farmId: number;
 	farmName: string;
 	timeZone: string;
+	/** The farm's units: lengths, spacing and harvest quantities in the events are written in them. */
+	unitSystem?: UnitSystem;
 	userId: string;
 	role: Role;
 }
@@ -119,7 +123,7 @@ export async function findFeed(token: string): Promise<Feed | null> {
 		.join('farms as f', 'f.id', 'c.farm_id')
 		.where('c.token_hash', hashToken(token))
 		.whereNull('c.revoked_at')
-		.first('c.id', 'c.farm_id', 'c.user_id', 'c.season_ids', 'm.role', 'f.name', 'f.time_zone');
+		.first('c.id', 'c.farm_id', 'c.user_id', 'c.season_ids', 'm.role', 'f.name', 'f.time_zone', 'f.unit_system');
 	if (!r) return null;
 	let seasonIds: number[] | null = null;
 	try {
@@ -134,7 +138,15 @@ export async function findFeed(token: string): Promise<Feed | null> {
 		.where({ id: r.id })
 		.update({ last_fetched_at: new Date() })
 		.catch(() => undefined);
-	return { farmId: r.farm_id, farmName: r.name, timeZone: r.time_zone, userId: r.user_id, role: r.role, seasonIds };
+	return {
+		farmId: r.farm_id,
+		farmName: r.name,
+		timeZone: r.time_zone,
+		unitSystem: r.unit_system === 'metric' ? 'metric' : 'imperial',
+		userId: r.user_id,
+		role: r.role,
+		seasonIds
+	};
 }
 
 /** A calendar date as the UTC midnight ical-generator prints as a DATE value (no calendar time zone is set on purpose). */
@@ -201,10 +213,12 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 			'b.name as bed',
 			'k.name as block'
 		);
+	const system = feed.unitSystem ?? 'imperial';
 	for (const p of plantings) {
 		const start = Number(p.start_ft);
 		const end = start + Number(p.length_ft);
-		const where = p.bed ? `${p.block} · bed ${p.bed}, ${start}–${end} ft` : 'not placed in a bed yet';
+		const stretch = `${formatNumber(toDisplayFeet(start, system), 2)}–${formatFeet(end, system, 2)}`;
+		const where = p.bed ? `${p.block} · bed ${p.bed}, ${stretch}` : 'not placed in a bed yet';
 		const tasks: [Kind, string | null][] = [
 			['tray_sow', p.method === 'transplant' ? p.tray_sow_date : null],
 			['direct_sow', p.method === 'direct' ? p.field_date : null],
@@ -215,8 +229,8 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 			if (!date || !kinds.includes(kind)) continue;
 			const details =
 				kind === 'harvest'
-					? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${Number(p.expected_yield)} ${p.harvest_unit} in all.`
-					: `${p.rows} rows at ${Number(p.in_row_spacing_in)} in.`;
+					? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${formatQuantity(Number(p.expected_yield), p.harvest_unit, system)} in all.`
+					: `${plural(p.rows, 'row')} at ${formatInches(Number(p.in_row_spacing_in), system)}.`;
 			cal.createEvent({
 				// Stable across fetches, so a calendar app updates the event instead of adding another.
 				id: `planting-${p.id}-${kind}@furrowcast`,
@@ -233,7 +247,7 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 			});
 		}
 	}
-	if (feed.role === 'share_manager') await addShareWeeks(cal, feed.farmId, feed.seasonIds ?? []);
+	if (feed.role === 'share_manager') await addShareWeeks(cal, feed.farmId, feed.seasonIds ?? [], system);
 	return rfc5545(cal.toString());
 }
 
@@ -253,7 +267,12 @@ export function rfc5545(text: string): string {
 }
 
 /** One week-long all-day event per farm-share distribution week, with each share size's box. */
-async function addShareWeeks(cal: ReturnType<typeof ical>, farmId: number, seasonIds: number[]): Promise<void> {
+async function addShareWeeks(
+	cal: ReturnType<typeof ical>,
+	farmId: number,
+	seasonIds: number[],
+	system: UnitSystem
+): Promise<void> {
 	const [shares, items] = await Promise.all([
 		db()('share_sizes')
 			.where({ farm_id: farmId })
@@ -272,7 +291,7 @@ async function addShareWeeks(cal: ReturnType<typeof ical>, farmId: number, seaso
 		for (const week of weeksBetween(s.first_week, s.last_week)) {
 			const box = items
 				.filter((i) => i.share_size_id === s.id && i.week === week)
-				.map((i) => `${i.crop} ${Number(i.quantity)} ${i.unit}`);
+				.map((i) => `${i.crop} ${formatQuantity(Number(i.quantity), i.unit, system)}`);
 			const line = `${s.name} (${s.members} members${s.pickup_days ? `, pick-up ${s.pickup_days}` : ''}): ${box.join(', ') || 'no box contents yet'}`;
 			const key = `${s.season_id}|${week}`;
 			weeks.set(key, [...(weeks.get(key) ?? []), line]);

@@ -8,6 +8,9 @@ import { plantingSeed } from '$lib/varieties';
 import type { VarietyView } from './crops';
 import { loadSeasonData } from './export/season-data';
 import type { Season } from './seasons';
+import type { UnitSystem } from '$lib/format';
+import { headerIn, seedOrderSheet } from './export/layout';
+import { rowsIn } from './export/units';
 
 export interface SeedOrderLine {
 	crop: string;
@@ -138,26 +141,28 @@ export function seedOrderCells(l: SeedOrderLine): (string | number | null)[] {
 	];
 }
 
-/** The order as CSV (RFC 4180, CRLF), formulae escaped: money in the farm's currency unit. */
-export function seedOrderCsv(lines: SeedOrderLine[], currency: string): string {
-	const fields = [
-		'Crop',
-		'Variety',
-		'Method',
-		'Plantings',
-		'Bed-feet (ft)',
-		'Seeds',
-		'Seed (g)',
-		'Seeds per packet',
-		'Packets',
-		`Price (${currency}/g)`,
-		`Cost (${currency})`,
-		'Cells',
-		'Trays'
-	];
+/**
+ * The order as CSV (RFC 4180, CRLF), formulae escaped: money in the farm's currency unit, bed
+ * length and seed weight in the farm's units (metres and grams, or feet and ounces).
+ */
+export function seedOrderCsv(lines: SeedOrderLine[], currency: string, system: UnitSystem = 'imperial'): string {
+	// The sheet's own headers and conversions (export/layout.ts); money named by its ISO 4217 code.
+	const fields = seedOrderSheet.columns.map((c) =>
+		c.key === 'seeds' ? 'Seeds' : headerIn(c, system, 'USD').replace('($', `(${currency}`)
+	);
+	const keys = seedOrderSheet.columns.map((c) => c.key);
+	const rows = rowsIn(seedOrderSheet, lines.map(seedOrderCells), system);
 	// Money with two decimals, as the currency writes it; an empty cell where a figure does not apply.
-	const data = lines.map((l) =>
-		seedOrderCells(l).map((v, i) => (v === null ? '' : i === 9 || i === 10 ? Number(v).toFixed(2) : v))
+	const data = rows.map((r) =>
+		r.map((v, i) => {
+			if (v === null) return '';
+			const key = keys[i];
+			if (key === 'pricePerGram' || key === 'cost') return Number(v).toFixed(2);
+			if (key === 'bedFeet') return String(Math.round(Number(v) * 100) / 100);
+			// Grams as ordered (to the hundredth); ounces to the ten-thousandth (0.0102 oz is 0.29 g).
+			if (key === 'grams') return String(Math.round(Number(v) * 1e4) / 1e4);
+			return v;
+		})
 	);
 	return Papa.unparse({ fields, data }, { newline: '\r\n', escapeFormulae: true }) + '\r\n';
 }

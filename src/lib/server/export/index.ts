@@ -79,8 +79,8 @@ export async function exportSeason(farmId: number, season: Season): Promise<Seas
 	const { sink, body, fail } = streamPair();
 	// Not awaited: the response starts while the workbook is still being written. A failure
 	// part-way errors the body, so the download fails instead of looking complete.
-	writeWorkbook(rows, sink, { farm: data.farmName, season: data.season.name }).catch((err: unknown) =>
-		fail(err instanceof Error ? err : new Error(String(err)))
+	writeWorkbook(rows, sink, { farm: data.farmName, season: data.season.name }, data.unitSystem, data.currency).catch(
+		(err: unknown) => fail(err instanceof Error ? err : new Error(String(err)))
 	);
 	const n = rowCount(rows);
 	return {

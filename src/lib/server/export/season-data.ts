@@ -1,6 +1,7 @@
 // Everything the season workbook shows, read in one go (independent queries run together).
 // Scoped by farm: a season of another farm is never read.
 import type { TargetInput } from '$lib/planning';
+import type { UnitSystem } from '$lib/format';
 import { db } from '../db';
 import * as farms from '../farms';
 import * as beds from '../beds';
@@ -64,6 +65,10 @@ export interface ExportBed {
 export interface SeasonData {
 	farmName: string;
 	farmTimeZone: string;
+	/** The farm's units: the rows are in the database's, the file converts them (units.ts). */
+	unitSystem: UnitSystem;
+	/** ISO 4217: money columns are headed and formatted in it. */
+	currency: string;
 	season: Season;
 	plantings: ExportPlanting[];
 	crops: CropRow[];
@@ -155,6 +160,8 @@ export async function loadSeasonData(farmId: number, season: Season): Promise<Se
 	return {
 		farmName: farm.name,
 		farmTimeZone: farm.timeZone,
+		unitSystem: farm.unitSystem === 'metric' ? 'metric' : 'imperial',
+		currency: farm.currency ?? 'USD',
 		season,
 		plantings,
 		crops,

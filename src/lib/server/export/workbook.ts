@@ -2,10 +2,13 @@
 // it is written, so a large season flows out to the response instead of piling up in memory.
 import ExcelJS from 'exceljs';
 import type { Writable } from 'node:stream';
+import type { UnitSystem } from '$lib/format';
 import {
 	bedsSheet,
 	cropsSheet,
 	forecastSheet,
+	headerIn,
+	numberFormatIn,
 	numberFormats,
 	plantingsSheet,
 	seasonSheet,
@@ -15,6 +18,7 @@ import {
 	columnLetter
 } from './layout';
 import { excelDate, type Cell, type SheetRows } from './rows';
+import { rowsIn } from './units';
 
 const sheetOrder: [SheetSpec, keyof SheetRows][] = [
 	[seasonSheet, 'season'],
@@ -41,7 +45,9 @@ interface SheetName {
 export async function writeWorkbook(
 	rows: SheetRows,
 	stream: Writable,
-	titles: { farm: string; season: string }
+	titles: { farm: string; season: string },
+	system: UnitSystem = 'imperial',
+	currency = 'USD'
 ): Promise<void> {
 	const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
 	wb.creator = 'Furrowcast';
@@ -74,14 +80,18 @@ export async function writeWorkbook(
 		// One style object per column, shared by all its cells: exceljs caches a style's id by
 		// object identity, so a shared object costs one lookup per column, not one per cell
 		// (at tens of thousands of rows that is most of the writing time).
-		const styles = spec.columns.map((c) => (numberFormats[c.kind] ? { numFmt: numberFormats[c.kind] } : {}));
+		const styles = spec.columns.map((c) => {
+			const numFmt = numberFormatIn(c, system, currency);
+			return numFmt ? { numFmt } : {};
+		});
 		const dateStyle = { numFmt: numberFormats.date };
 		const dateCols = spec.columns.map((c) => c.kind === 'date');
-		const header = ws.addRow(spec.columns.map((c) => c.header));
+		const header = ws.addRow(spec.columns.map((c) => headerIn(c, system, currency)));
 		const bold = { font: { bold: true } };
 		header.eachCell((cell) => (cell.style = bold));
 		header.commit();
-		const data = rows[key];
+		// Worked out in the database's units; written in the farm's.
+		const data = rowsIn(spec, rows[key], system);
 		for (const r of data) {
 			// An empty cell is left out (undefined) rather than written as a null cell.
 			const values: (Cell | undefined)[] = r.map((v, i) =>

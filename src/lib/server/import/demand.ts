@@ -7,6 +7,8 @@
 // channel is a share size's name (box contents per box), `market` or `restaurant` (weekly
 // quantity); crop is a crop's name in the library; week an ISO week; quantity in the crop's
 // harvest unit (0 clears the cell); unit may be left empty but, when given, must be the crop's.
+// Weights are read in either system: "kg" or "lb" as the unit cell says, and an empty unit cell
+// in the farm's own (kg on a metric farm); a download is written in the farm's units.
 // Every row is checked before anything is written, and the whole file is written in one
 // transaction or not at all; each error names its spreadsheet row (the header is row 1) and column.
 import Papa from 'papaparse';
@@ -14,6 +16,8 @@ import ExcelJS from 'exceljs';
 import { readXlsxSheets, XlsxRefused, type XlsxLimits } from '../xlsx-read';
 import { uploadColumns, uploadModeSchema, uploadRowSchema, type HarvestUnit } from '$lib/schemas/demand';
 import type { Season } from '../seasons';
+import { displayPrefs } from '../farms';
+import { fromDisplayQuantity, toDisplayQuantity, unitLabel, type UnitSystem } from '$lib/format';
 import { listCrops, listShareSizes, type DemandView } from '../demand';
 import { outside, resolveGrid, writeGrids, type GridTarget, type GridWrite } from '../demand-cells';
 
@@ -168,7 +172,11 @@ export async function importDemand(
 ): Promise<ImportResult> {
 	const read = await readRows(file);
 	if ('errors' in read) return { ok: false, status: read.status, errors: read.errors };
-	const [crops, shares] = await Promise.all([listCrops(farmId), listShareSizes(farmId, season.id)]);
+	const [crops, shares, prefs] = await Promise.all([
+		listCrops(farmId),
+		listShareSizes(farmId, season.id),
+		displayPrefs(farmId)
+	]);
 	const cropByName = new Map(crops.map((c) => [c.name.toLowerCase(), c]));
 	const targets = new Map<string, GridTarget>();
 	for (const s of shares) targets.set(s.name.toLowerCase(), await resolveGrid(farmId, season, `share:${s.id}`));
@@ -209,8 +217,13 @@ export async function importDemand(
 		const row = parsed.data;
 		const away = outside(target, row.week);
 		if (away) errors.push({ row: r.row, column: 'week', message: `${row.week} is ${away}.` });
-		if (row.unit && row.unit !== crop.unit)
-			errors.push({ row: r.row, column: 'unit', message: `${crop.name} is counted in ${crop.unit}, not ${row.unit}.` });
+		// A weight in kg or lb, as the cell says (empty: the farm's own unit); a count must be the crop's.
+		const kg = crop.unit === 'lb' && (row.unit === 'kg' || (!row.unit && prefs.unitSystem === 'metric'));
+		const unitOk = !row.unit || row.unit === crop.unit || (row.unit === 'kg' && crop.unit === 'lb');
+		if (!unitOk) {
+			const named = crop.unit === 'lb' ? 'kg or lb' : crop.unit;
+			errors.push({ row: r.row, column: 'unit', message: `${crop.name} is counted in ${named}, not ${row.unit}.` });
+		}
 		const key = `${target.label}|${crop.id}|${row.week}`;
 		const dup = seen.get(key);
 		if (dup !== undefined)
@@ -220,11 +233,13 @@ export async function importDemand(
 				message: `Row ${dup} already gives ${crop.name} for ${target.label} in ${row.week}.`
 			});
 		else seen.set(key, r.row);
-		if (away || (row.unit && row.unit !== crop.unit) || dup !== undefined) continue;
+		if (away || !unitOk || dup !== undefined) continue;
 		const w = writes.get(target) ?? { target, set: [], clear: [] };
 		writes.set(target, w);
-		if (row.quantity === 0) w.clear.push({ cropId: crop.id, week: row.week });
-		else w.set.push({ cropId: crop.id, week: row.week, quantity: row.quantity, unit: crop.unit as HarvestUnit });
+		// Kept in lb to the hundredth, as the database does.
+		const quantity = kg ? Math.round(fromDisplayQuantity(row.quantity, 'lb', 'metric') * 100) / 100 : row.quantity;
+		if (quantity === 0) w.clear.push({ cropId: crop.id, week: row.week });
+		else w.set.push({ cropId: crop.id, week: row.week, quantity, unit: crop.unit as HarvestUnit });
 	}
 	if (errors.length) return { ok: false, status: 400, errors: errors.sort((a, b) => a.row - b.row) };
 	const list = [...writes.values()];
@@ -237,15 +252,27 @@ export async function importDemand(
 	};
 }
 
-/** The season's demand in the upload layout, so a download can be edited and uploaded again. */
-export function demandRows(view: DemandView): string[][] {
+/**
+ * The season's demand in the upload layout, so a download can be edited and uploaded again; in the
+ * farm's units. A weight in kg keeps three decimals: read back, it gives the stored lb to the hundredth.
+ */
+export function demandRows(view: DemandView, system: UnitSystem = 'imperial'): string[][] {
 	const crop = new Map(view.crops.map((c) => [c.id, c]));
 	const share = new Map(view.shareSizes.map((s) => [s.id, s.name]));
+	const cells = (quantity: number, unit: string): [string, string] =>
+		unit === 'lb' && system === 'metric'
+			? [String(Math.round(toDisplayQuantity(quantity, 'lb', system) * 1000) / 1000), unitLabel('lb', system)]
+			: [String(quantity), unit];
 	const rows: string[][] = [];
 	for (const b of view.boxItems)
-		rows.push([share.get(b.shareSizeId) ?? '', crop.get(b.cropId)?.name ?? '', b.week, String(b.quantity), b.unit]);
+		rows.push([share.get(b.shareSizeId) ?? '', crop.get(b.cropId)?.name ?? '', b.week, ...cells(b.quantity, b.unit)]);
 	for (const c of view.channelDemand)
-		rows.push([c.channel, crop.get(c.cropId)?.name ?? '', c.week, String(c.quantity), crop.get(c.cropId)?.unit ?? '']);
+		rows.push([
+			c.channel,
+			crop.get(c.cropId)?.name ?? '',
+			c.week,
+			...cells(c.quantity, crop.get(c.cropId)?.unit ?? '')
+		]);
 	return rows;
 }
 

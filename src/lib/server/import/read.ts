@@ -5,7 +5,17 @@ import Papa from 'papaparse';
 import type { ImportIssue, ImportableSheet } from '$lib/schemas/import';
 import { readXlsxSheets, XlsxRefused, type XlsxLimits, type XlsxRow } from '../xlsx-read';
 import { detectDecimal, parseNumberText } from '$lib/schemas/number-text';
-import { bedsSheet, columnLetter, cropsSheet, plantingsSheet, seasonSheet, type SheetSpec } from '../export/layout';
+import type { UnitSystem } from '$lib/format';
+import {
+	bedsSheet,
+	columnLetter,
+	cropsSheet,
+	dollarHeader,
+	plantingsSheet,
+	seasonSheet,
+	type SheetSpec
+} from '../export/layout';
+import { cellsToCanonical, systemOfHeader } from '../export/units';
 
 export interface RawRow {
 	/** Row number as the spreadsheet shows it. */
@@ -18,6 +28,8 @@ export interface RawSheet {
 	rows: RawRow[];
 	/** Column letter of each key found in the header row. */
 	letters: Record<string, string>;
+	/** The unit system each measured column's header names ("Length (m)": metric). */
+	systems: Record<string, UnitSystem>;
 }
 
 export type Sheets = Partial<Record<'season' | 'crops' | 'beds' | 'plantings', RawSheet>>;
@@ -49,30 +61,48 @@ const norm = (s: string): string => s.trim().toLowerCase().replace(/\s+/g, ' ');
 function matchHeaders(
 	spec: SheetSpec,
 	headers: unknown[]
-): { letters: Record<string, string>; index: Record<string, number>; issues: ImportIssue[] } {
-	const byHeader = new Map(spec.columns.map((c) => [norm(c.header), c]));
+): {
+	letters: Record<string, string>;
+	index: Record<string, number>;
+	systems: Record<string, UnitSystem>;
+	issues: ImportIssue[];
+} {
+	// A measured column is read in either system's units, as its header names them.
+	const byHeader = new Map(
+		spec.columns.flatMap((c) => [
+			[norm(c.header), c] as const,
+			...(c.units ? [[norm(c.units.metric), c] as const] : [])
+		])
+	);
 	const letters: Record<string, string> = {};
 	const index: Record<string, number> = {};
+	const systems: Record<string, UnitSystem> = {};
 	headers.forEach((h, i) => {
-		const c = typeof h === 'string' ? byHeader.get(norm(h)) : undefined;
+		// Money in any currency reads alike: "Cost (EUR)" is the layout's "Cost ($)".
+		const money = typeof h === 'string' ? byHeader.get(norm(dollarHeader(h))) : undefined;
+		const c =
+			typeof h === 'string' ? (byHeader.get(norm(h)) ?? (money?.kind === 'money' ? money : undefined)) : undefined;
 		if (c && !(c.key in index)) {
 			index[c.key] = i;
 			letters[c.key] = columnLetter(i + 1);
+			if (c.units) systems[c.key] = systemOfHeader(c, dollarHeader(h as string));
 		}
 	});
 	const issues = requiredHeaders[spec.name]
 		.filter((k) => !(k in index))
 		.map((k): ImportIssue => {
-			const header = spec.columns.find((c) => c.key === k)!.header;
+			const c = spec.columns.find((col) => col.key === k)!;
+			const header = c.header;
+			const either = c.units && c.units.metric !== c.header ? ` (or "${c.units.metric}")` : '';
 			return {
 				sheet: spec.name,
 				row: 1,
 				column: null,
 				header,
-				message: `The column "${header}" is missing from the header row.`
+				message: `The column "${header}"${either} is missing from the header row.`
 			};
 		});
-	return { letters, index, issues };
+	return { letters, index, systems, issues };
 }
 
 function toSheet(
@@ -80,7 +110,7 @@ function toSheet(
 	headerRow: unknown[],
 	body: { row: number; values: unknown[] }[]
 ): { sheet: RawSheet; issues: ImportIssue[] } {
-	const { letters, index, issues } = matchHeaders(spec, headerRow);
+	const { letters, index, systems, issues } = matchHeaders(spec, headerRow);
 	const rows: RawRow[] = [];
 	for (const r of body) {
 		if (r.values.every((v) => v === null || v === undefined || (typeof v === 'string' && v.trim() === ''))) continue;
@@ -88,7 +118,7 @@ function toSheet(
 		for (const [key, i] of Object.entries(index)) cells[key] = r.values[i] ?? null;
 		rows.push({ row: r.row, cells });
 	}
-	return { sheet: { spec, rows, letters }, issues };
+	return { sheet: { spec, rows, letters, systems }, issues };
 }
 
 /** Per upload: far above a real farm's season (the bench's 5,000 plantings), far below harm. */
@@ -135,6 +165,7 @@ export async function readXlsx(buffer: ArrayBuffer): Promise<ReadResult> {
 		});
 	}
 	issues.push(...readNumbers(sheets));
+	toCanonical(sheets);
 	return issues.length ? { ok: false, issues } : { ok: true, sheets };
 }
 
@@ -191,12 +222,21 @@ export function readNumbers(sheets: Sheets): ImportIssue[] {
 	return issues;
 }
 
+/**
+ * Measured figures in the database's units: each column as its header names them (a metric
+ * farm's "Length (m)" and an imperial farm's "Length (ft)" both read), after readNumbers.
+ */
+function toCanonical(sheets: Sheets): void {
+	for (const sheet of Object.values(sheets))
+		if (sheet) for (const row of sheet.rows) cellsToCanonical(sheet.spec, row.cells, sheet.systems);
+}
+
 /** Which sheet a CSV holds, from its header row, when the upload does not say. */
 function guessSheet(headers: string[]): SheetSpec | undefined {
 	const h = new Set(headers.map(norm));
 	if (h.has('field date') || h.has('first harvest (date)')) return plantingsSheet;
 	if (h.has('family') || h.has('days to maturity (d)')) return cropsSheet;
-	if (h.has('bed') && h.has('length (ft)')) return bedsSheet;
+	if (h.has('bed') && (h.has('length (ft)') || h.has('length (m)'))) return bedsSheet;
 	return undefined;
 }
 
@@ -269,6 +309,7 @@ export function readCsv(text: string, sheet?: ImportableSheet): ReadResult {
 	issues.push(...read.issues);
 	const sheets: Sheets = { [sheetKeys[spec.name as keyof typeof sheetKeys]]: read.sheet };
 	issues.push(...readNumbers(sheets));
+	toCanonical(sheets);
 	if (issues.length) return { ok: false, issues };
 	return { ok: true, sheets };
 }

@@ -7,7 +7,9 @@
 import type { ImportIssue, PlantingRow } from '$lib/schemas/import';
 import { deriveRow, type GridFarm } from '$lib/plantings/derive';
 import type { VarietyView } from '$lib/types';
-import { plantingsSheet } from '../export/layout';
+import { headerIn, plantingsSheet } from '../export/layout';
+import { formatNumber, formatQuantity, type UnitSystem } from '$lib/format';
+import { toFileValue } from '$lib/format/file-units';
 import type { ValidRow } from './validate';
 
 /** A planting of the season as the diff compares it. */
@@ -90,11 +92,16 @@ const derivedFields = [
 	['seedsNeeded', 'Seeds needed']
 ] as const;
 
-function shown(p: WantedPlanting, field: string): string {
+/** A field's value as the preview shows it, measured figures in the farm's units (15.24 for 50 ft, "56.7 kg"). */
+function shown(p: WantedPlanting, field: string, system: UnitSystem, unit: string | undefined): string {
 	if (field === 'variety') return `${p.crop} · ${p.variety}`;
 	const v = (p as unknown as Record<string, unknown>)[field];
 	if (v === null || v === undefined || v === '') return '—';
-	return typeof v === 'number' ? v.toLocaleString('en-US', { maximumFractionDigits: 2 }) : String(v);
+	if (typeof v !== 'number') return String(v);
+	if (field === 'expectedYield' && unit) return formatQuantity(v, unit, system, 2);
+	const measure = plantingsSheet.columns.find((c) => c.key === field)?.units?.measure;
+	const n = measure && measure !== 'harvest' ? Number(toFileValue(measure, v, system)) : v;
+	return formatNumber(n, 2);
 }
 
 function same(a: unknown, b: unknown): boolean {
@@ -136,6 +143,12 @@ function fromRow(d: PlantingRow): WantedPlanting {
 	};
 }
 
+/** A compared field's label as the farm's files head it ("Length (m)" on a metric farm). */
+function labelIn(field: string, label: string, system: UnitSystem): string {
+	const c = plantingsSheet.columns.find((col) => col.key === field);
+	return c?.units ? headerIn(c, system) : label;
+}
+
 /** Every cell of a row in one string: two rows with the same string are exact copies. */
 const rowText = (d: PlantingRow): string =>
 	JSON.stringify(Object.entries(d).map(([k, v]) => [k, typeof v === 'string' ? v.trim().toLowerCase() : v]));
@@ -146,12 +159,15 @@ export function diffSeason(
 	varieties: Map<string, VarietyView>,
 	farm: GridFarm,
 	issues: ImportIssue[],
-	letters: Record<string, string>
+	letters: Record<string, string>,
+	system: UnitSystem = 'imperial'
 ): SeasonDiff {
 	const at = (row: number, field: string | null, message: string): void => {
 		const header = field ? (plantingsSheet.columns.find((c) => c.key === field)?.header ?? null) : null;
 		issues.push({ sheet: plantingsSheet.name, row, column: field ? (letters[field] ?? null) : null, header, message });
 	};
+	const show = (p: WantedPlanting, field: string): string =>
+		shown(p, field, system, varieties.get(p.varietyKey)?.harvestUnit);
 	const byId = new Map(existing.map((p) => [p.id, p]));
 	const seenText = new Map<string, number>();
 	const seenId = new Map<number, number>();
@@ -219,7 +235,13 @@ export function diffSeason(
 		const changes: FieldChange[] = [];
 		for (const [field, label] of inputs) {
 			if (!same(valueOf(wanted, field), valueOf(cur, field)))
-				changes.push({ field, label, from: shown(cur, field), to: shown(wanted, field), derived: false });
+				changes.push({
+					field,
+					label: labelIn(field, label, system),
+					from: show(cur, field),
+					to: show(wanted, field),
+					derived: false
+				});
 		}
 		if (!changes.length) {
 			diff.unchanged++;
@@ -229,7 +251,7 @@ export function diffSeason(
 		if (!d) continue;
 		for (const [field, label] of derivedFields) {
 			if (!same(valueOf(d, field), valueOf(cur, field)))
-				changes.push({ field, label, from: shown(cur, field), to: shown(d, field), derived: true });
+				changes.push({ field, label, from: show(cur, field), to: show(d, field), derived: true });
 		}
 		diff.changed.push({ row, id: cur.id, planting: d, changes });
 	}

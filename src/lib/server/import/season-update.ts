@@ -9,6 +9,7 @@ import type { VarietyView } from '$lib/types';
 import { db } from '../db';
 import { listVarieties } from '../crops';
 import { gridContext } from '../plantings';
+import { displayPrefs } from '../farms';
 import { lockSeason, type Season } from '../seasons';
 import { plantingsSheet } from '../export/layout';
 import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type WantedPlanting } from './season-diff';
@@ -152,13 +153,16 @@ export async function previewSeasonUpdate(
 	plan: ImportPlan,
 	letters: Record<string, string>
 ): Promise<PreviewOutcome> {
-	const [existing, varieties, ctx] = await Promise.all([
+	const [existing, varieties, ctx, prefs] = await Promise.all([
 		seasonPlantings(db(), farmId, season.id),
 		listVarieties(farmId),
-		gridContext(farmId)
+		gridContext(farmId),
+		displayPrefs(farmId)
 	]);
 	const issues: ImportIssue[] = [];
-	const diff = diffSeason(plan.plantings, existing, mergedVarieties(varieties, plan), ctx.farm, issues, letters);
+	const merged = mergedVarieties(varieties, plan);
+	// The preview shows lengths, spacing and yields in the farm's units.
+	const diff = diffSeason(plan.plantings, existing, merged, ctx.farm, issues, letters, prefs.unitSystem);
 	if (issues.length) return { ok: false, issues };
 	const token = keep({ farmId, userId, season, plan, diff, at: Date.now() });
 	const place = (p: WantedPlanting | ExistingPlanting) => ({

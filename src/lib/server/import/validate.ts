@@ -15,7 +15,9 @@ import {
 	type SeasonRows,
 	type VarietyRow
 } from '$lib/schemas/import';
-import { seasonFields, type SheetSpec } from '../export/layout';
+import { formatNumber } from '$lib/format';
+import { toFileValue } from '$lib/format/file-units';
+import { headerIn, seasonFields, type ColumnSpec, type SheetSpec } from '../export/layout';
 import type { RawRow, RawSheet, Sheets } from './read';
 
 export interface ValidRow<T> {
@@ -50,14 +52,26 @@ class Issues {
 	at(row: number, field: string | null, message: string): void {
 		const spec: SheetSpec = this.sheet.spec;
 		const column = field ? spec.columns.find((c) => c.key === field) : undefined;
+		const system = field ? this.sheet.systems[field] : undefined;
 		this.list.push({
 			sheet: spec.name,
 			row,
 			column: field ? (this.sheet.letters[field] ?? null) : null,
-			header: column?.header ?? null,
-			message
+			// Named as the file names it, with a bound in the file's units ("Length (m) … at least 0.15").
+			header: column ? headerIn(column, system ?? 'imperial') : null,
+			message: column && system ? boundsIn(column, system, message) : message
 		});
 	}
+}
+
+/** A row check's "must be at least 0.5" (stored units) in the units the file's header names. */
+function boundsIn(c: ColumnSpec, system: 'imperial' | 'metric', message: string): string {
+	const m = c.units?.measure;
+	if (!m || m === 'harvestUnit' || m === 'harvest' || m === 'harvestPerLength') return message;
+	return message.replace(/(must be at (?:least|most)) (-?\d+(?:\.\d+)?)/, (_all, words: string, n: string) => {
+		const v = toFileValue(m, Number(n), system);
+		return typeof v === 'number' && v !== Number(n) ? `${words} ${formatNumber(v, 2)}` : `${words} ${n}`;
+	});
 }
 
 /** Parses one row; every failing cell becomes an issue at its column. */

@@ -3,33 +3,50 @@
 import { plural } from '$lib/plural';
 import { formatWeekDate } from '$lib/planning';
 import { cautionsFor } from './cautions';
+import {
+	formatFeet,
+	formatInches,
+	formatNumber,
+	formatQuantity,
+	formatSeedWeight,
+	toDisplayFeet,
+	type UnitSystem
+} from '$lib/format';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
 
 function esc(s: string): string {
 	return s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
-function place(r: SheetRow): string {
-	return r.bed ? `${r.block} · ${r.bed}, ${r.startFt}–${r.endFt} ft` : 'not placed';
+/** "North · N01, 0–15.24 m" or "North · N01, 0–50 ft": the stretch of bed, in the farm's length unit. */
+function place(r: SheetRow, system: UnitSystem): string {
+	if (!r.bed) return 'not placed';
+	const from = formatNumber(toDisplayFeet(r.startFt, system), 2);
+	return `${r.block} · ${r.bed}, ${from}–${formatFeet(r.endFt, system, 2)}`;
 }
 
-function detail(kind: SheetSection['kind'], r: SheetRow): string {
+function detail(kind: SheetSection['kind'], r: SheetRow, system: UnitSystem): string {
 	const s = r.seed;
+	const spacing = formatInches(r.inRowSpacingIn, system);
 	switch (kind) {
 		case 'tray_sow':
 			return s
-				? `${plural(s.cells, 'cell')} · ${plural(s.trays, 'tray')} of ${r.cellsPerTray} · ${s.grams} g seed`
+				? `${plural(s.cells, 'cell')} · ${plural(s.trays, 'tray')} of ${r.cellsPerTray} · ${formatSeedWeight(s.grams, system)} seed`
 				: 'seed figures missing';
 		case 'direct_sow':
 			return (
-				`${plural(r.rows, 'row')} at ${r.inRowSpacingIn} in · ${plural(r.seedsPerSpot, 'seed')} per spot` +
-				(s ? ` · ${s.grams} g seed` : '')
+				`${plural(r.rows, 'row')} at ${spacing} · ${plural(r.seedsPerSpot, 'seed')} per spot` +
+				(s ? ` · ${formatSeedWeight(s.grams, system)} seed` : '')
 			);
 		case 'transplant':
-			return (s ? `${s.plants} plants · ` : '') + `${r.rows} rows at ${r.inRowSpacingIn} in`;
+			return (
+				(s?.plants !== undefined ? `${plural(s.plants, 'plant')} · ` : '') + `${plural(r.rows, 'row')} at ${spacing}`
+			);
 		case 'harvest': {
-			const who = (r.demand ?? []).map((d) => `${d.for} ${d.quantity} ${d.unit}`).join(', ');
-			return `about ${r.weekQuantity} ${r.unit} this week` + (who ? ` · for ${who}` : '');
+			const who = (r.demand ?? []).map((d) => `${d.for} ${formatQuantity(d.quantity, d.unit, system)}`).join(', ');
+			return (
+				`about ${formatQuantity(r.weekQuantity ?? 0, r.unit ?? '', system, 1)} this week` + (who ? ` · for ${who}` : '')
+			);
 		}
 	}
 }
@@ -47,7 +64,8 @@ export function weekMail(
 	link: string,
 	sender: string
 ): MailBody {
-	const cautions = cautionsFor(sheet.weekMeanF);
+	const system = sheet.unitSystem ?? 'imperial';
+	const cautions = cautionsFor(sheet.weekMeanF, system);
 	// The week is named once: "Crew sheets 2027-W21 (Mon 24 May – Sun 30 May)", not again on each date.
 	const day = (d: string): string => formatWeekDate(d).replace(/^W\d+ · /, '');
 	const subject = `Crew sheets ${sheet.week} (${day(sheet.monday)} – ${day(sheet.sunday)}) · ${farmName}`;
@@ -75,10 +93,10 @@ export function weekMail(
 		for (const g of section.groups) {
 			for (const r of g.rows) {
 				html.push(
-					`<li>☐ <strong>${esc(r.crop)}</strong> · ${esc(r.variety)} — ${esc(place(r))} — ${esc(formatWeekDate(r.date))} — ${esc(detail(section.kind, r))}</li>`
+					`<li>☐ <strong>${esc(r.crop)}</strong> · ${esc(r.variety)} — ${esc(place(r, system))} — ${esc(formatWeekDate(r.date))} — ${esc(detail(section.kind, r, system))}</li>`
 				);
 				text.push(
-					`  [ ] ${r.crop} · ${r.variety} — ${place(r)} — ${formatWeekDate(r.date)} — ${detail(section.kind, r)}`
+					`  [ ] ${r.crop} · ${r.variety} — ${place(r, system)} — ${formatWeekDate(r.date)} — ${detail(section.kind, r, system)}`
 				);
 			}
 		}

@@ -8,6 +8,7 @@ import * as farms from '../farms';
 import { listVarieties, type VarietyView } from '../crops';
 import { tasksForWeek, type PlantingView } from '../plantings';
 import type { TaskKind } from './schemas';
+import type { UnitSystem } from '$lib/format';
 
 export type SectionKind = 'tray_sow' | 'direct_sow' | 'transplant' | 'harvest';
 
@@ -67,6 +68,8 @@ export interface WeekSheet {
 	sunday: string;
 	/** The farm's weekly normal mean for this ISO week number, °F, when the farm has one. */
 	weekMeanF: number | null;
+	/** The farm's units: the figures above are the database's (ft, in, lb, g), shown in these. */
+	unitSystem: UnitSystem;
 	sections: SheetSection[];
 }
 
@@ -183,11 +186,12 @@ export async function weekSheet(
 	monday: string,
 	sunday: string
 ): Promise<WeekSheet> {
-	const [tasks, varieties, demand, normals] = await Promise.all([
+	const [tasks, varieties, demand, normals, prefs] = await Promise.all([
 		tasksForWeek(farmId, monday, sunday),
 		listVarieties(farmId),
 		demandForWeek(farmId, seasonId, week),
-		farms.weeklyTemps(farmId)
+		farms.weeklyTemps(farmId),
+		farms.displayPrefs(farmId)
 	]);
 	const inSeason = (list: PlantingView[]) => list.filter((p) => p.seasonId === seasonId);
 	const t = {
@@ -244,5 +248,12 @@ export async function weekSheet(
 			kind === 'tray_sow' ? (rows.length ? [{ label: 'Greenhouse · trays', rows }] : []) : groupByBed(rows);
 		return { kind, title: titles[kind], count: rows.length, groups };
 	});
-	return { week, monday, sunday, weekMeanF: normals[Number(week.slice(6))] ?? null, sections };
+	return {
+		week,
+		monday,
+		sunday,
+		weekMeanF: normals[Number(week.slice(6))] ?? null,
+		unitSystem: prefs.unitSystem,
+		sections
+	};
 }

@@ -3,6 +3,18 @@
 // / Notes columns to fill in by hand.
 import ExcelJS from 'exceljs';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
+import {
+	formatQuantity,
+	lengthUnit,
+	seedWeightUnit,
+	spacingUnit,
+	toDisplayFeet,
+	toDisplayInches,
+	toDisplayQuantity,
+	toDisplaySeedWeight,
+	unitLabel,
+	type UnitSystem
+} from '$lib/format';
 
 interface Column {
 	header: string;
@@ -19,80 +31,109 @@ function excelDate(d: string | undefined): Date | null {
 	return d ? new Date(`${d}T00:00:00Z`) : null;
 }
 
-const where: Column[] = [
-	{ header: 'Block · bed', width: 18, value: (_r, g) => g },
-	{ header: 'From (ft)', width: 10, value: (r) => r.startFt, format: '0.#' },
-	{ header: 'To (ft)', width: 10, value: (r) => r.endFt, format: '0.#' }
-];
-const crop: Column[] = [
-	{ header: 'Crop', width: 16, value: (r) => r.crop },
-	{ header: 'Variety', width: 20, value: (r) => r.variety }
-];
-const fillIn: Column[] = [
-	{ header: 'Done (✓)', width: 9, value: () => null, fillIn: true },
-	{
-		header: 'Actual date',
-		width: 13,
-		value: (r) => excelDate(r.doneOn ?? undefined),
-		format: 'yyyy-mm-dd',
-		fillIn: true
-	},
-	{ header: 'Notes', width: 30, value: () => null, fillIn: true }
-];
-const planned = (label: string): Column => ({
-	header: label,
-	width: 13,
-	value: (r) => excelDate(r.date),
-	format: 'yyyy-mm-dd'
-});
-
-const columns: Record<SheetSection['kind'], Column[]> = {
-	tray_sow: [
-		...crop,
-		planned('Sow on'),
-		{ header: 'Cells', width: 9, value: (r) => r.seed?.cells ?? null, format: '0' },
-		{ header: 'Cells per tray', width: 13, value: (r) => r.cellsPerTray, format: '0' },
-		{ header: 'Trays', width: 8, value: (r) => r.seed?.trays ?? null, format: '0' },
-		{ header: 'Seeds per cell', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
-		{ header: 'Seed (g)', width: 10, value: (r) => r.seed?.grams ?? null, format: '0.00' },
-		{ header: 'For bed', width: 16, value: (r) => (r.bed ? `${r.block} · ${r.bed}` : 'not placed') },
-		...fillIn
-	],
-	direct_sow: [
-		...where,
-		...crop,
-		planned('Sow on'),
-		{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
-		{ header: 'In-row spacing (in)', width: 17, value: (r) => r.inRowSpacingIn, format: '0.##' },
-		{ header: 'Seeds per spot', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
-		{ header: 'Seeds', width: 10, value: (r) => r.seed?.seeds ?? null, format: '#,##0' },
-		{ header: 'Seed (g)', width: 10, value: (r) => r.seed?.grams ?? null, format: '0.00' },
-		...fillIn
-	],
-	transplant: [
-		...where,
-		...crop,
-		planned('Transplant on'),
-		{ header: 'Plants', width: 9, value: (r) => r.seed?.plants ?? null, format: '#,##0' },
-		{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
-		{ header: 'In-row spacing (in)', width: 17, value: (r) => r.inRowSpacingIn, format: '0.##' },
-		...fillIn
-	],
-	harvest: [
-		...where,
-		...crop,
-		{ header: 'Expected this week', width: 17, value: (r) => r.weekQuantity ?? null, format: '0.0' },
-		{ header: 'Unit', width: 8, value: (r) => r.unit ?? null },
+/** The sheets' columns in the farm's units: lengths in ft or m, spacing in in or cm, seed in oz or g. */
+function sheetColumns(system: UnitSystem): Record<SheetSection['kind'], Column[]> {
+	const ft = lengthUnit(system);
+	const metric = system === 'metric';
+	const where: Column[] = [
+		{ header: 'Block · bed', width: 18, value: (_r, g) => g },
 		{
-			header: 'For (share size or channel)',
-			width: 40,
-			value: (r) => (r.demand ?? []).map((d) => `${d.for}: ${d.quantity} ${d.unit}`).join('; ') || 'no demand listed'
+			header: `From (${ft})`,
+			width: 10,
+			value: (r) => toDisplayFeet(r.startFt, system),
+			format: metric ? '0.0#' : '0.#'
 		},
-		{ header: 'Window ends', width: 13, value: (r) => excelDate(r.lastHarvest), format: 'yyyy-mm-dd' },
-		{ header: 'Picked (qty)', width: 12, value: () => null, fillIn: true },
-		...fillIn
-	]
-};
+		{ header: `To (${ft})`, width: 10, value: (r) => toDisplayFeet(r.endFt, system), format: metric ? '0.0#' : '0.#' }
+	];
+	const crop: Column[] = [
+		{ header: 'Crop', width: 16, value: (r) => r.crop },
+		{ header: 'Variety', width: 20, value: (r) => r.variety }
+	];
+	const fillIn: Column[] = [
+		{ header: 'Done (✓)', width: 9, value: () => null, fillIn: true },
+		{
+			header: 'Actual date',
+			width: 13,
+			value: (r) => excelDate(r.doneOn ?? undefined),
+			format: 'yyyy-mm-dd',
+			fillIn: true
+		},
+		{ header: 'Notes', width: 30, value: () => null, fillIn: true }
+	];
+	const planned = (label: string): Column => ({
+		header: label,
+		width: 13,
+		value: (r) => excelDate(r.date),
+		format: 'yyyy-mm-dd'
+	});
+	const seed: Column = {
+		header: `Seed (${seedWeightUnit(system)})`,
+		width: 10,
+		value: (r) => (r.seed ? toDisplaySeedWeight(r.seed.grams, system) : null),
+		format: metric ? '#,##0.00' : '#,##0.000'
+	};
+	const spacing: Column = {
+		header: `In-row spacing (${spacingUnit(system)})`,
+		width: 17,
+		value: (r) => toDisplayInches(r.inRowSpacingIn, system),
+		format: '0.##'
+	};
+	return {
+		tray_sow: [
+			...crop,
+			planned('Sow on'),
+			{ header: 'Cells', width: 9, value: (r) => r.seed?.cells ?? null, format: '0' },
+			{ header: 'Cells per tray', width: 13, value: (r) => r.cellsPerTray, format: '0' },
+			{ header: 'Trays', width: 8, value: (r) => r.seed?.trays ?? null, format: '0' },
+			{ header: 'Seeds per cell', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
+			seed,
+			{ header: 'For bed', width: 16, value: (r) => (r.bed ? `${r.block} · ${r.bed}` : 'not placed') },
+			...fillIn
+		],
+		direct_sow: [
+			...where,
+			...crop,
+			planned('Sow on'),
+			{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
+			spacing,
+			{ header: 'Seeds per spot', width: 13, value: (r) => r.seedsPerSpot, format: '0' },
+			{ header: 'Seeds', width: 10, value: (r) => r.seed?.seeds ?? null, format: '#,##0' },
+			seed,
+			...fillIn
+		],
+		transplant: [
+			...where,
+			...crop,
+			planned('Transplant on'),
+			{ header: 'Plants', width: 9, value: (r) => r.seed?.plants ?? null, format: '#,##0' },
+			{ header: 'Rows', width: 7, value: (r) => r.rows, format: '0' },
+			spacing,
+			...fillIn
+		],
+		harvest: [
+			...where,
+			...crop,
+			{
+				header: 'Expected this week',
+				width: 17,
+				value: (r) => (r.weekQuantity === undefined ? null : toDisplayQuantity(r.weekQuantity, r.unit ?? '', system)),
+				format: '#,##0.0'
+			},
+			// Counts keep their word ("bunch"); a weight is named in the farm's unit.
+			{ header: 'Unit', width: 8, value: (r) => (r.unit === 'lb' ? unitLabel('lb', system) : (r.unit ?? null)) },
+			{
+				header: 'For (share size or channel)',
+				width: 40,
+				value: (r) =>
+					(r.demand ?? []).map((d) => `${d.for}: ${formatQuantity(d.quantity, d.unit, system)}`).join('; ') ||
+					'no demand listed'
+			},
+			{ header: 'Window ends', width: 13, value: (r) => excelDate(r.lastHarvest), format: 'yyyy-mm-dd' },
+			{ header: 'Picked (qty)', width: 12, value: () => null, fillIn: true },
+			...fillIn
+		]
+	};
+}
 
 const ruled: Partial<ExcelJS.Borders> = {
 	top: { style: 'thin' },
@@ -115,6 +156,7 @@ export async function weekWorkbook(sheet: WeekSheet, title: string, farmName = '
 	wb.created = new Date();
 	const empty = sheet.sections.filter((s) => s.count === 0).map((s) => s.title);
 	const busy = sheet.sections.filter((s) => s.count > 0);
+	const columns = sheetColumns(sheet.unitSystem ?? 'imperial');
 	for (const section of busy.length ? busy : sheet.sections.slice(0, 1)) {
 		const cols = columns[section.kind];
 		const ws = wb.addWorksheet(section.title, {

@@ -10,7 +10,7 @@ export const GET: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const [{ lines }, prefs] = await Promise.all([seasonSeedOrder(farm.id, season), displayPrefs(farm.id)]);
 	const name = `furrowcast-seed-order-${season.year}.csv`;
-	return new Response(seedOrderCsv(lines, prefs.currency), {
+	return new Response(seedOrderCsv(lines, prefs.currency, prefs.unitSystem), {
 		headers: {
 			'content-type': 'text/csv; charset=utf-8',
 			'content-disposition': `attachment; filename="${name}"`,

@@ -32,7 +32,7 @@ export const load = (async (event) => {
 		sheet,
 		/** Per planting, its last tick that can still be taken back. */
 		undo: Object.fromEntries(undo),
-		cautions: cautionsFor(sheet.weekMeanF),
+		cautions: cautionsFor(sheet.weekMeanF, sheet.unitSystem),
 		canMark,
 		crew,
 		farmName: settings.name,

@@ -4,6 +4,7 @@ import { requireUser } from '$lib/server/guards';
 import { seasonFromParams } from '$lib/server/api';
 import { getDemand } from '$lib/server/demand';
 import { demandRows, toCsv, toXlsx } from '$lib/server/import/demand';
+import { displayPrefs } from '$lib/server/farms';
 
 /** The season's demand in the upload layout (the template): ?format=csv (default) or xlsx. */
 export const GET: RequestHandler = async (event) => {
@@ -11,7 +12,9 @@ export const GET: RequestHandler = async (event) => {
 	const season = await seasonFromParams(farm.id, event.params.id);
 	const format = event.url.searchParams.get('format') ?? 'csv';
 	if (format !== 'csv' && format !== 'xlsx') error(400, 'format must be csv or xlsx.');
-	const rows = demandRows(await getDemand(farm.id, season.id));
+	// In the farm's units (kg on a metric farm); the upload reads kg and lb alike.
+	const [view, prefs] = await Promise.all([getDemand(farm.id, season.id), displayPrefs(farm.id)]);
+	const rows = demandRows(view, prefs.unitSystem);
 	const name = `demand-${season.year}.${format}`;
 	const disposition = `attachment; filename="${name}"`;
 	if (format === 'csv')
