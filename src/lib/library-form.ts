@@ -1,6 +1,7 @@
 // Stored crop and variety figures as their forms show them (percents, dollars), and a posted
 // form as plain text values to hand back when it fails.
-import { cropFields, formValue, measuredFields, varietyFields, type UnitContext } from '$lib/schemas/crop';
+import { cropFields, formValue, varietyFields } from '$lib/schemas/crop';
+import { measuredFields, type UnitContext } from '$lib/schemas/crop-units';
 import type { VarietyView } from '$lib/types';
 
 export function cropFormValues(

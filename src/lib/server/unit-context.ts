@@ -1,6 +1,6 @@
 // The units a library form of this farm is typed in: its unit system and currency, and the crop's
 // harvest unit (yield and price are per harvest unit).
-import type { UnitContext } from '$lib/schemas/crop';
+import type { UnitContext } from '$lib/schemas/crop-units';
 import { harvestUnits } from '$lib/schemas/demand';
 import { displayPrefs } from './farms';
 
