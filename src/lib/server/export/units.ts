@@ -5,11 +5,14 @@ import { canonicalHarvestUnit, fromFileValue, toFileValue } from '$lib/format/fi
 import type { ColumnSpec, SheetSpec } from './layout';
 import type { Cell, Row } from './rows';
 
+const imperialConverts = new Set(['seedWeight', 'seedsPerWeight', 'pricePerSeedWeight']);
+
 /** A sheet's rows as a `system` farm's file writes them. An imperial farm's rows change only in seed columns. */
 export function rowsIn(spec: SheetSpec, rows: Row[], system: UnitSystem): Row[] {
 	const plan = spec.columns
 		.map((c, i) => ({ c, i, per: c.units?.per ? spec.columns.findIndex((x) => x.key === c.units!.per) : -1 }))
-		.filter(({ c }) => c.units);
+		// An imperial farm's files keep the database's units except seed (grams stored, ounces shown).
+		.filter(({ c }) => c.units && (system === 'metric' || imperialConverts.has(c.units.measure)));
 	if (!plan.length) return rows;
 	return rows.map((row) => {
 		const out = row.slice();
