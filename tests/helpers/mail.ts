@@ -14,7 +14,17 @@ async function all(): Promise<KeptMail[]> {
 	const dir = process.env.FC_MAIL_DIR;
 	if (!dir) throw new Error('FC_MAIL_DIR is not set: run the tests with npm test');
 	const names = (await readdir(dir).catch(() => [] as string[])).filter((n) => n.endsWith('.json')).sort();
-	return Promise.all(names.map(async (n) => JSON.parse(await readFile(join(dir, n), 'utf8')) as KeptMail));
+	// A message the fake is still writing is not whole JSON yet: leave it for the next look.
+	const read = await Promise.all(
+		names.map(async (n) => {
+			try {
+				return JSON.parse(await readFile(join(dir, n), 'utf8')) as KeptMail;
+			} catch {
+				return null;
+			}
+		})
+	);
+	return read.filter((m): m is KeptMail => m !== null);
 }
 
 /** Waits for the newest message to an address (the fake writes it a moment after SMTP ends). */

@@ -59,8 +59,11 @@ const variety = {
 	inRowSpacingIn: '1',
 	seedsPerSpot: '1',
 	germinationRate: '65',
-	seedsPerGram: '776.03',
-	seedPrice: '0.35',
+	// The farm is imperial: seed is counted and priced per ounce, as catalogues there quote it.
+	// Source: NIST Handbook 44, Appendix C: 1 oz = 28.349 523 125 g. 22,000 seeds/oz ÷ 28.3495 =
+	// 776.03 seeds/g; $9.92/oz ÷ 28.3495 = $0.3499/g, kept as 35 ¢/g.
+	seedsPerGram: '22000',
+	seedPrice: '9.92',
 	seedsPerPacket: '',
 	cellsPerTray: '128',
 	margin: '10',

@@ -34,10 +34,11 @@ describe('the seed order', () => {
 		expect(res.status).toBe(200);
 		const page = (await html(res)).replace(/\s+/g, ' ');
 		expect(page).toContain('5,520');
-		expect(page).toContain('6.9 g');
+		// On the page: 0.2434 oz shows two decimals, 0.0102 oz (under a tenth) three.
+		expect(page).toContain('0.24 oz');
 		expect(page).toContain('4 packets of 1,500');
 		expect(page).toContain('$6.21');
-		expect(page).toContain('0.29 g');
+		expect(page).toContain('0.01 oz');
 		expect(page).toContain('1 packet of 1,000');
 		expect(page).toContain('$0.73');
 		// Totals: 5 packets, $6.94.

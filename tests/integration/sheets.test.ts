@@ -38,8 +38,14 @@ describe('the sheet of a week', () => {
 		expect(page).toContain('W21 · Mon 24 May');
 		expect(page).toContain('W21 · Sun 30 May');
 		expect(page).toContain(`${expected.trayCells} cells · ${expected.trayTrays} trays of 72 cells`);
-		expect(page).toContain(`${expected.trayGrams} g seed`);
-		expect(page).toContain('9,748 seeds · 12.57 g seed');
+		// The fixture farm is imperial: seed weight in ounces (NIST Handbook 44: 1 oz = 28.349 523 125 g);
+		// under a tenth of an ounce three decimals, else two. 12.57 g = 0.4434 oz.
+		const oz = (g: number): string => {
+			const x = g / 28.349523125;
+			return String(Number(x.toFixed(x >= 0.1 ? 2 : 3)));
+		};
+		expect(page).toContain(`${oz(expected.trayGrams)} oz seed`);
+		expect(page).toContain('9,748 seeds · 0.44 oz seed');
 		expect(page).toContain(`${expected.transplantPlants} plants · 3 rows · 12 in apart`);
 		expect(page).toMatch(new RegExp(`about <strong>${expected.harvestWeekLb} lb</strong> this week`));
 		expect(page).toContain(`Test box ${expected.boxLb} lb (10 members × 1.5 lb)`);

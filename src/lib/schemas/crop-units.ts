@@ -78,7 +78,7 @@ function bound(stored: number, conv: (n: number) => number, up: boolean): number
 	const v = conv(stored);
 	if (v === 0) return 0;
 	const p = 10 ** (Math.floor(Math.log10(Math.abs(v))) - 2);
-	return (up ? Math.ceil(v / p) : Math.floor(v / p)) * p;
+	return (up ? Math.ceil(v / p - 1e-9) : Math.floor(v / p + 1e-9)) * p;
 }
 
 /** A field table for one farm: units, labels, help and bounds as typed there, with the conversions. */
