@@ -34,10 +34,10 @@ beforeAll(async () => {
 	await testDb()('farms').where({ id: farmId }).update({ unit_system: 'metric' });
 	[seasonId] = await testDb()('seasons').insert({
 		farm_id: farmId,
-		year: 2027,
-		name: '2027',
-		starts_on: '2027-01-01',
-		ends_on: '2027-12-31'
+		year: 2026,
+		name: '2026',
+		starts_on: '2026-01-01',
+		ends_on: '2026-12-31'
 	});
 });
 
@@ -168,15 +168,15 @@ describe('a metric farm types in metric', () => {
 			rows: 5,
 			in_row_spacing_in: 1.5,
 			method: 'direct',
-			field_date: '2027-04-01',
-			first_harvest: '2027-05-10',
-			last_harvest: '2027-05-23'
+			field_date: '2026-04-01',
+			first_harvest: '2026-05-10',
+			last_harvest: '2026-05-23'
 		});
 		const res = await owner.postForm(`/seasons/${seasonId}/harvests?/log`, {
 			plantingId,
 			quantity: '2.5', // kg: 2.5 ÷ 0.45359237 = 5.5116 lb → 5.51
 			unit: 'lb',
-			harvestedOn: '2027-05-12',
+			harvestedOn: '2026-05-12',
 			harvestedBy: '',
 			notes: ''
 		});
@@ -195,16 +195,16 @@ describe('a metric farm types in metric', () => {
 			season_id: seasonId,
 			channel: 'market',
 			crop_id: cropId,
-			week: '2027-W20',
+			week: '2026-W20',
 			quantity: 0.25
 		});
 		const res = await owner.postForm(`/seasons/${seasonId}/demand?/saveGrid`, {
 			grid: 'market',
 			[`u.${cropId}`]: 'lb',
-			[`q.${cropId}.2027-W20`]: '0.113', // as drawn: 0.25 × 0.45359237 = 0.1134 → "0.113"
-			[`was.${cropId}.2027-W20`]: '0.25',
-			[`q.${cropId}.2027-W21`]: '4.536', // kg: 4.536 ÷ 0.45359237 = 10.0002 lb → 10
-			[`was.${cropId}.2027-W21`]: ''
+			[`q.${cropId}.2026-W20`]: '0.113', // as drawn: 0.25 × 0.45359237 = 0.1134 → "0.113"
+			[`was.${cropId}.2026-W20`]: '0.25',
+			[`q.${cropId}.2026-W21`]: '4.536', // kg: 4.536 ÷ 0.45359237 = 10.0002 lb → 10
+			[`was.${cropId}.2026-W21`]: ''
 		});
 		expect(res.status).toBe(303);
 		const rows = await testDb()('channel_demand')
@@ -212,8 +212,8 @@ describe('a metric farm types in metric', () => {
 			.orderBy('week')
 			.select('week', 'quantity');
 		expect(rows.map((r) => [r.week, Number(r.quantity)])).toEqual([
-			['2027-W20', 0.25],
-			['2027-W21', 10]
+			['2026-W20', 0.25],
+			['2026-W21', 10]
 		]);
 	});
 });
