@@ -65,7 +65,7 @@ export function explainInFarmUnits(
 				return {
 					...s,
 					value: crop(value),
-					unit: unitLabel(v.harvestUnit, units),
+					unit: unitLabel(v.harvestUnit, units, 1),
 					formula: `${formatFeet(row.lengthFt, units)} × ${n(toDisplayPerFoot(v.yieldPerBedFoot, v.harvestUnit, units))} per bed-metre over the window`
 				};
 			case 'weekly yield':
@@ -73,7 +73,7 @@ export function explainInFarmUnits(
 				return {
 					...s,
 					value: crop(value),
-					unit: unitLabel(v.harvestUnit, units),
+					unit: unitLabel(v.harvestUnit, units, 1),
 					formula: `${crop(num('expected yield') ?? 0)} ÷ (${v.harvestWindowDays} days ÷ 7)`
 				};
 			default:

@@ -5,7 +5,7 @@
 import { daysBetween, formatWeekDate, weekStart, isoWeek, addDays, weeksBetween } from '../../planning/index';
 import { familyStyle } from '../../families';
 import type { Block } from '$lib/types';
-import { formatBedRange, type UnitSystem } from '$lib/format';
+import { formatNumber, lengthUnit, toDisplayFeet, type UnitSystem } from '$lib/format';
 import type { TimelineBed, TimelineFlag, TimelinePlanting } from '$lib/timeline-types';
 
 export const GEOMETRY = {
@@ -100,7 +100,8 @@ export function plantingHref(seasonId: number, plantingId: number): string {
 }
 
 export function rangeText(p: Pick<TimelinePlanting, 'startFt' | 'lengthFt'>, units: UnitSystem = 'imperial'): string {
-	return formatBedRange(p.startFt, p.lengthFt, units);
+	const at = (ft: number): string => formatNumber(toDisplayFeet(ft, units), 2);
+	return `${at(p.startFt)}–${at(p.startFt + p.lengthFt)} ${lengthUnit(units)}`;
 }
 
 function conflictText(flags: TimelineFlag[] | undefined): string {

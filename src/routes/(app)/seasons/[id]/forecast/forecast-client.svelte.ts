@@ -51,7 +51,7 @@ export function inFarmUnits(body: ForecastResponse, units: UnitSystem): Forecast
 	const q = (n: number, crop: string): number => toDisplayQuantity(n, unitOf.get(crop) ?? '', units);
 	return {
 		...body,
-		crops: body.crops.map((c) => ({ ...c, unit: unitLabel(c.unit, units) })),
+		crops: body.crops.map((c) => ({ ...c, unit: unitLabel(c.unit, units, 1) })),
 		rows: body.rows.map((r) => ({
 			...r,
 			supply: q(r.supply, r.crop),
