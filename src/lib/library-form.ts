@@ -14,6 +14,8 @@ export function cropFormValues(c: {
 	cutIntervalDays: number | null;
 	storageWeeks: number | null;
 	storageLossPct: number | null;
+	sowFrom?: string | null;
+	sowTo?: string | null;
 	price: number | null;
 	source: string | null;
 }): Record<string, string> {

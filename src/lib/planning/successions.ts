@@ -2,6 +2,7 @@ import {
 	PlanningInputError,
 	requireLatitude,
 	requireNonNegative,
+	requireNonNegativeInteger,
 	requireNonNegativeItem,
 	requirePositive
 } from './errors';
@@ -17,11 +18,11 @@ import {
 } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
-import { successionWarnings } from './plan-warnings';
+import { type SeasonFacts, sameMonthDay, successionWarnings } from './plan-warnings';
 import { type SeedNeed, type SeedNeedInput, seedNeed, validateSeedInput } from './seed';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
 import { normaliseTargets } from './target-weeks';
-import { inMonthDayWindow, sowingWindowOf } from './sowing-window';
+import { inMonthDayWindow, sowingWindowOf, tooColdToSow } from './sowing-window';
 import { sizeStoredHarvests } from './storage-sizing';
 import { validateVariety, varietyLabel } from './variety';
 import { type TempLookup, type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
@@ -33,6 +34,10 @@ export interface Farm {
 	latitude: number;
 	/** Weekly normal mean °F keyed "YYYY-Www" (or "Www" for every year). */
 	weeklyMeanTempF?: WeeklyMeanTempF;
+	/** Days after the last spring frost that frost-tender crops go out (farm setting). Default 0. */
+	tenderDaysAfterFrost?: number;
+	/** The probability the frost dates stand for, percent (farm setting; shown in the warnings). */
+	frostProbabilityPct?: number;
 }
 
 export interface PlanOptions {
@@ -338,17 +343,25 @@ function planRuns<T>(
 	};
 	const warnings: PlanningWarning[] = [];
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
-	const facts = { ...season, temps: o.dtm.temps };
+	const tenderAfter =
+		farm.tenderDaysAfterFrost === undefined
+			? 0
+			: requireNonNegativeInteger('farm.tenderDaysAfterFrost', farm.tenderDaysAfterFrost);
+	const facts: SeasonFacts = {
+		...season,
+		temps: o.dtm.temps,
+		tenderDaysAfterFrost: tenderAfter,
+		frostProbabilityPct: farm.frostProbabilityPct
+	};
 	const { mondays, qty } = normaliseTargets(input.targets);
-	const frostMonthDay = v.frostTender ? fromDayNumber(season.lastSpringFrost).slice(4) : '';
 	let frostYear = NaN;
 	let frostDay = 0;
+	// The frost dates are normals: a tender crop goes out `tenderAfter` days after the last spring
+	// frost of its own field date's year.
 	const lastFrostOfYear = (year: number): DayNumber => {
 		if (year !== frostYear) {
 			frostYear = year;
-			frostDay = toDayNumber(
-				`${String(year).padStart(4, '0')}${frostMonthDay === '-02-29' ? '-02-28' : frostMonthDay}`
-			);
+			frostDay = sameMonthDay(year, season.lastSpringFrost) + tenderAfter;
 		}
 		return frostDay;
 	};
@@ -413,9 +426,10 @@ function planRuns<T>(
 		const firstAction = trayDay ?? fieldDay;
 		// A tender crop goes out only after the last spring frost of its own year; a degree-day crop
 		// whose heat cannot add up since the last cold spell cannot be ready that week at all.
-		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(start)) : -Infinity;
+		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(fieldDay)) : -Infinity;
 		const ok = !(
 			(window !== null && !inMonthDayWindow(fieldDay, window.from, window.to)) ||
+			tooColdToSow(v, fieldDay, o.dtm.temps) !== null ||
 			(o.earliestField !== undefined && fieldDay < o.earliestField) ||
 			(o.today !== undefined && firstAction < o.today) ||
 			fieldDay < frostFree ||
@@ -621,7 +635,7 @@ function planRuns<T>(
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
 			code: 'unreachable_week',
-			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)${window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : ''}.`,
+			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)${window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : ''}${o.dtm.temps && !window && v.baseTempF !== undefined ? `, or into weeks colder than its base temperature (${v.baseTempF} °F)` : ''}.`,
 			weeks
 		});
 	}

@@ -2,7 +2,7 @@
 // label, unit, one-line help and bounds; the zod schema the server checks with is built from the
 // same table, so the form, its hints and the server's messages never disagree.
 import { z } from 'zod';
-import { numberField, plainText } from './common';
+import { monthDaySchema, numberField, plainText } from './common';
 import { harvestUnits } from './demand';
 import { sowingMethods } from './planting';
 
@@ -28,6 +28,8 @@ export interface TextSpec {
 	help: string;
 	max: number;
 	optional?: boolean;
+	/** A day of the year typed as MM-DD (e.g. 10-01). */
+	monthDay?: boolean;
 }
 export interface ChoiceSpec {
 	kind: 'choice';
@@ -129,6 +131,22 @@ export const cropFields = {
 		money: true,
 		optional: true,
 		step: '0.01'
+	},
+	sowFrom: {
+		kind: 'text',
+		label: 'Earliest field date',
+		help: 'Month-day (MM-DD) it may first be sown or set out each year, e.g. 10-01 for garlic; blank: no limit.',
+		max: 5,
+		optional: true,
+		monthDay: true
+	},
+	sowTo: {
+		kind: 'text',
+		label: 'Latest field date',
+		help: 'Month-day (MM-DD) of the last sowing or setting out, e.g. 12-15; may be in the next year.',
+		max: 5,
+		optional: true,
+		monthDay: true
 	},
 	source: {
 		kind: 'text',
@@ -309,6 +327,11 @@ function numberSchema(s: NumberSpec) {
 
 function fieldSchema(s: FieldSpec) {
 	if (s.kind === 'number') return numberSchema(s);
+	if (s.kind === 'text' && 'monthDay' in s && s.monthDay)
+		return z.preprocess(
+			(v) => (blank(v) ? null : typeof v === 'string' ? v.trim() : v),
+			monthDaySchema(s.label).nullable()
+		);
 	if (s.kind === 'text')
 		return s.optional
 			? z.preprocess((v) => (blank(v) ? null : v), plainText(s.label, s.max).nullable())
@@ -334,7 +357,10 @@ function schemaOf<T extends Record<string, FieldSpec>>(fields: T) {
 	) as unknown as z.ZodType<Parsed<T>>;
 }
 
-export const cropSchema = schemaOf(cropFields);
+export const cropSchema = schemaOf(cropFields).refine((c) => (c.sowFrom === null) === (c.sowTo === null), {
+	message: 'Give both the earliest and the latest field date, or neither.',
+	path: ['sowTo']
+});
 export const varietySchema = schemaOf(varietyFields).refine((v) => v.method === 'transplant' || v.daysInTray === 0, {
 	message: 'Days in tray must be 0 for a direct-sown variety.',
 	path: ['daysInTray']
