@@ -25,6 +25,7 @@ import {
 	type SeasonVariety,
 	type Variety,
 	type VarietyShare as EngineVarietyShare,
+	derivePlanting,
 	deriveTargets,
 	forecast,
 	planSeason,
@@ -132,6 +133,9 @@ export interface DemoCrop {
 	/** Storage crops: weeks a harvest keeps, and the share lost each week in store. */
 	storage_weeks?: number | null;
 	storage_loss_per_week?: number | null;
+	/** Earliest and latest field date in the year, "MM-DD" (both or neither). */
+	sow_from?: string | null;
+	sow_to?: string | null;
 }
 
 // Harvest curves (common practice, no published source): fruiting crops are picked in a ramp,
@@ -290,7 +294,11 @@ export const DEMO_CROPS: readonly DemoCrop[] = [
 		harvest_cut_interval_days: null,
 		// Cured and kept: dug in July, it feeds the boxes into the autumn (invented demo figures).
 		storage_weeks: 24,
-		storage_loss_per_week: 0.01
+		storage_loss_per_week: 0.01,
+		// Cloves go in during the autumn, a few weeks before the ground freezes, for a July harvest
+		// (common practice, no published source); never in spring.
+		sow_from: '10-01',
+		sow_to: '12-15'
 	},
 	{
 		name: 'Tomato',
@@ -755,8 +763,12 @@ export const DEMO_VARIETIES: readonly DemoVariety[] = [
 		}
 	),
 	// Planted as cloves in late fall; a clove weighs ~5 g, hence 0.2 "seeds" per gram.
+	// Garlic's clock is its degree days (base 40 °F), which stand still through the winter: a clove
+	// planted late October and one planted early December are both dug in July. 1,585 °F·days is about
+	// what the demo's invented weekly normals give from 3 December to 12 July.
 	direct('Garlic', 'Hardneck Blush', {
 		days_to_maturity: 240,
+		gdd_to_maturity: 1585,
 		harvest_window_days: 14,
 		yield_per_bed_foot: 7,
 		rows_per_bed: 4,
@@ -1116,150 +1128,157 @@ export interface DemoFallPlanting {
 	harvests: readonly (readonly [string, number])[];
 }
 
-export const DEMO_FALL_PLANTINGS_2026: readonly DemoFallPlanting[] = [
-	{
-		variety: 'Curled Fog',
-		bed: 'N01',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: '2026-07-06',
-		field_date: '2026-08-10',
-		first_harvest: '2026-09-28',
-		last_harvest: '2026-12-18',
-		status: 'harvesting',
-		actual_tray_sow_date: '2026-07-06',
-		actual_field_date: '2026-08-11',
-		actual_first_harvest: '2026-09-30',
-		notes: 'Picked weekly until the hard freezes; row cover on from mid-November.',
-		harvests: [
-			['2026-11-17', 30],
-			['2026-11-24', 28],
-			['2026-12-01', 24]
-		]
-	},
-	{
-		variety: 'Cellar Stout',
-		bed: 'N01',
-		start_ft: 50,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-07-27',
-		first_harvest: '2026-10-20',
-		last_harvest: '2026-12-11',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-07-28',
-		actual_first_harvest: '2026-10-21',
-		notes: 'Left in the ground under straw and cover; dug as the winter share needs them.',
-		harvests: [
-			['2026-11-20', 45],
-			['2026-11-27', 40],
-			['2026-12-01', 38]
-		]
-	},
-	{
-		variety: 'Cold Frame Savoy',
-		bed: 'N02',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-09-14',
-		first_harvest: '2026-11-09',
-		last_harvest: '2026-12-23',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-09-14',
-		actual_first_harvest: '2026-11-11',
-		notes: 'Under a low tunnel.',
-		harvests: [
-			['2026-11-16', 9],
-			['2026-11-23', 12],
-			['2026-11-30', 10]
-		]
-	},
-	{
-		variety: 'Autumn Tapestry Mix',
-		bed: 'N03',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-10-19',
-		first_harvest: '2026-12-07',
-		last_harvest: '2026-12-21',
-		status: 'sown',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-19',
-		actual_first_harvest: null,
-		notes: 'Under a low tunnel; first cut due the week of 7 December.',
-		harvests: []
-	},
-	{
-		variety: 'Peppery Lace',
-		bed: 'N03',
-		start_ft: 50,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-10-05',
-		first_harvest: '2026-11-23',
-		last_harvest: '2026-12-11',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-06',
-		actual_first_harvest: '2026-11-24',
-		notes: null,
-		harvests: [['2026-11-30', 6]]
-	},
-	{
-		variety: 'Butter Lantern',
-		bed: 'N04',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: '2026-09-07',
-		field_date: '2026-10-05',
-		first_harvest: '2026-11-30',
-		last_harvest: '2026-12-10',
-		status: 'harvesting',
-		actual_tray_sow_date: '2026-09-07',
-		actual_field_date: '2026-10-05',
-		actual_first_harvest: '2026-12-01',
-		notes: 'Short days slowed it by about two weeks.',
-		harvests: [['2026-12-01', 60]]
-	},
-	// Garlic goes in during the fall and is dug the next July: it feeds the 2027 boxes and
-	// holds its beds until then, so the 2027 plan must work around it.
-	{
-		variety: 'Hardneck Blush',
-		bed: 'S12',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-10-26',
-		first_harvest: '2027-07-12',
-		last_harvest: '2027-07-25',
-		status: 'sown',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-27',
-		actual_first_harvest: null,
-		notes: 'Mulched with straw after planting.',
-		harvests: []
-	},
-	{
-		variety: 'Hardneck Blush',
-		bed: 'S13',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-12-03',
-		first_harvest: '2027-07-12',
-		last_harvest: '2027-07-25',
-		status: 'planned',
-		actual_tray_sow_date: null,
-		actual_field_date: null,
-		actual_first_harvest: null,
-		notes: 'Second garlic bed, held back by a wet November; plant as soon as the ground allows.',
-		harvests: []
-	}
-];
+/** A fall planting as written below: its planned tray and harvest dates come from the engine. */
+type FallPlantingFacts = Omit<DemoFallPlanting, 'tray_sow_date' | 'first_harvest' | 'last_harvest'>;
+
+/**
+ * The planned tray sowing and harvest dates of a fall planting as the grid derives them from its
+ * field date (the same engine function the server runs on save), so what the seed stores is what
+ * the grid shows.
+ */
+function withPlannedDates(p: FallPlantingFacts): DemoFallPlanting {
+	const v = DEMO_VARIETIES.find((x) => x.name === p.variety);
+	const crop = v && DEMO_CROPS.find((c) => c.name === v.crop);
+	if (!v || !crop) throw new Error(`demo fall planting: unknown variety ${p.variety}`);
+	const engine = toEngineVariety(v, crop);
+	const d = derivePlanting(
+		{
+			method: v.method,
+			fieldDate: p.field_date,
+			lengthFt: p.length_ft,
+			rows: v.rows_per_bed,
+			inRowSpacingIn: v.in_row_spacing_in,
+			seedsPerSpot: v.seeds_per_spot
+		},
+		engine,
+		demoEngineFarm(),
+		{ explain: false }
+	);
+	return { ...p, tray_sow_date: d.traySowDate, first_harvest: d.firstHarvest, last_harvest: d.lastHarvest };
+}
+
+export const DEMO_FALL_PLANTINGS_2026: readonly DemoFallPlanting[] = (
+	[
+		{
+			variety: 'Curled Fog',
+			bed: 'N01',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-08-08',
+			status: 'harvesting',
+			actual_tray_sow_date: '2026-07-04',
+			actual_field_date: '2026-08-09',
+			actual_first_harvest: '2026-09-30',
+			notes: 'Picked weekly until the hard freezes; row cover on from mid-November.',
+			harvests: [
+				['2026-11-17', 30],
+				['2026-11-24', 28],
+				['2026-12-01', 24]
+			]
+		},
+		{
+			variety: 'Cellar Stout',
+			bed: 'N01',
+			start_ft: 50,
+			length_ft: 50,
+			field_date: '2026-07-23',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-07-24',
+			actual_first_harvest: '2026-10-21',
+			notes: 'Left in the ground under straw and cover; dug as the winter share needs them.',
+			harvests: [
+				['2026-11-20', 45],
+				['2026-11-27', 40],
+				['2026-12-01', 38]
+			]
+		},
+		{
+			variety: 'Cold Frame Savoy',
+			bed: 'N02',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-09-14',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-09-14',
+			actual_first_harvest: '2026-11-11',
+			notes: 'Under a low tunnel.',
+			harvests: [
+				['2026-11-16', 9],
+				['2026-11-23', 12],
+				['2026-11-30', 10]
+			]
+		},
+		{
+			variety: 'Autumn Tapestry Mix',
+			bed: 'N03',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-10-05',
+			status: 'sown',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-05',
+			actual_first_harvest: null,
+			notes: 'Under a low tunnel; short days slow it: first cut due about 5 December.',
+			harvests: []
+		},
+		{
+			variety: 'Peppery Lace',
+			bed: 'N03',
+			start_ft: 50,
+			length_ft: 50,
+			field_date: '2026-10-06',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-06',
+			actual_first_harvest: '2026-11-24',
+			notes: null,
+			harvests: [['2026-11-30', 6]]
+		},
+		{
+			variety: 'Butter Lantern',
+			bed: 'N04',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-09-26',
+			status: 'harvesting',
+			actual_tray_sow_date: '2026-08-29',
+			actual_field_date: '2026-09-26',
+			actual_first_harvest: '2026-12-01',
+			notes: 'Short days slowed it by about two weeks.',
+			harvests: [['2026-12-01', 60]]
+		},
+		// Garlic goes in during the fall and is dug the next July: it feeds the 2027 boxes and
+		// holds its beds until then, so the 2027 plan must work around it.
+		{
+			variety: 'Hardneck Blush',
+			bed: 'S12',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-10-26',
+			status: 'sown',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-27',
+			actual_first_harvest: null,
+			notes: 'Mulched with straw after planting.',
+			harvests: []
+		},
+		{
+			variety: 'Hardneck Blush',
+			bed: 'S13',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-12-03',
+			status: 'planned',
+			actual_tray_sow_date: null,
+			actual_field_date: null,
+			actual_first_harvest: null,
+			notes: 'Second garlic bed, held back by a wet November; plant as soon as the ground allows.',
+			harvests: []
+		}
+	] satisfies FallPlantingFacts[]
+).map(withPlannedDates);
 
 // ---------------------------------------------------------------------------------------
 // The 2027 plan, laid out by the planning engine
@@ -1367,6 +1386,10 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 		if (crop.harvest_cut_interval_days !== null) out.harvestCurve.intervalDays = crop.harvest_cut_interval_days;
 	}
 	if (v.gdd_to_maturity !== null) out.gddToMaturity = v.gdd_to_maturity;
+	if (crop.sow_from && crop.sow_to) {
+		out.sowFrom = crop.sow_from;
+		out.sowTo = crop.sow_to;
+	}
 	if (v.seeds_per_packet !== null) out.seedsPerPacket = v.seeds_per_packet;
 	if (crop.storage_weeks) out.storage = { keepWeeks: crop.storage_weeks, lossPerWeek: crop.storage_loss_per_week ?? 0 };
 	return out;

@@ -34,6 +34,10 @@ export function toEngineVariety(v: VarietyView): SeasonVariety {
 			seedsPerPacket: v.seedsPerPacket ?? undefined,
 			margin: v.margin
 		};
+		if (v.sowFrom && v.sowTo) {
+			out.sowFrom = v.sowFrom;
+			out.sowTo = v.sowTo;
+		}
 		if (v.harvestCurve && v.harvestCurve !== 'flat') {
 			out.harvestCurve = { shape: v.harvestCurve };
 			if (v.harvestCurve === 'cuts' && v.cutIntervalDays) out.harvestCurve.intervalDays = v.cutIntervalDays;

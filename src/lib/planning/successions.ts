@@ -12,7 +12,8 @@ import {
 	type EffectiveDtm,
 	blankDtm,
 	effectiveDaysInto,
-	effectiveDaysToMaturity
+	effectiveDaysToMaturity,
+	maturityFrom
 } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
@@ -20,6 +21,7 @@ import { successionWarnings } from './plan-warnings';
 import { type SeedNeed, type SeedNeedInput, seedNeed, validateSeedInput } from './seed';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
 import { normaliseTargets } from './target-weeks';
+import { inMonthDayWindow, sowingWindowOf } from './sowing-window';
 import { sizeStoredHarvests } from './storage-sizing';
 import { validateVariety, varietyLabel } from './variety';
 import { type TempLookup, type WeeklyMeanTempF, makeTempLookup } from './weekly-temps';
@@ -40,9 +42,7 @@ export interface PlanOptions {
 	margin?: number;
 	/** Bed-feet are rounded up to a multiple of this. Default 1 ft. */
 	bedFootIncrement?: number;
-	/** Default 14 days (common practice). */
-	shortDayAllowanceDays?: number;
-	/** Default 10 hours. */
+	/** Day length (hours) at which growth runs at half speed (see shortDayRate). Default 10 hours. */
 	shortDayThresholdHours?: number;
 	/** Seed overage when the variety gives none. Default 0.1. */
 	seedMargin?: number;
@@ -176,10 +176,6 @@ function resolveOptions(
 			o.earliestFieldDate === undefined ? undefined : toDayNumber(o.earliestFieldDate, 'options.earliestFieldDate'),
 		dtm: {
 			latitude: requireLatitude('farm.latitude', farm.latitude),
-			shortDayAllowanceDays:
-				o.shortDayAllowanceDays === undefined
-					? 14
-					: requireNonNegative('options.shortDayAllowanceDays', o.shortDayAllowanceDays),
 			shortDayThresholdHours:
 				o.shortDayThresholdHours === undefined
 					? 10
@@ -202,7 +198,10 @@ export interface SuccessionRun {
 	/** The succession's key is `${prefix}#${index + 1}`. */
 	prefix: string;
 	index: number;
-	/** First harvest. */
+	/**
+	 * First harvest, as the field date's forward derivation gives it (what the grid shows): the
+	 * Monday of its first target week, or a day or two after it where short days make the clock skip.
+	 */
 	start: DayNumber;
 	/** Share of the window's yield picked by lastHarvest: under 1 when the harvest ends early. */
 	yieldShare: number;
@@ -278,6 +277,13 @@ type MakeRun<T> = (run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions,
 interface Candidate {
 	ok: boolean;
 	fieldDay: DayNumber;
+	/** First harvest derived forwards from fieldDay: the candidate's Monday or a day or two after. */
+	first: DayNumber;
+	/**
+	 * Per-foot supply in the candidate's weeks when its harvest starts after its Monday (the window's
+	 * last days, past the candidate's weeks, are left out: counting short is the safe side); else undefined.
+	 */
+	coef: Float64Array | undefined;
 	trayDay: DayNumber | undefined;
 	/** Days the succession holds its bed: field date to last harvest. */
 	occupancy: number;
@@ -346,6 +352,7 @@ function planRuns<T>(
 		}
 		return frostDay;
 	};
+	const window = sowingWindowOf(v);
 	const H = v.harvestWindowDays;
 	const P = cumulativeWeights(v.harvestCurve, H);
 	const Y = v.yieldPerBedFoot;
@@ -356,6 +363,7 @@ function planRuns<T>(
 
 	// Weeks from the first target week to the last, by offset from the first Monday.
 	const base = mondays[0];
+	const lastSunday = mondays[mondays.length - 1] + 6;
 	const nWeeks = (mondays[mondays.length - 1] - base) / 7 + 1;
 	const target = new Float64Array(nWeeks);
 	const need = new Float64Array(nWeeks);
@@ -388,23 +396,41 @@ function planRuns<T>(
 		if (cand) return cand;
 		const start = base + 7 * c;
 		const dtm = scratchDtm ? effectiveDaysInto(scratchDtm, v, start, o.dtm) : effectiveDaysToMaturity(v, start, o.dtm);
-		const fieldDay = start - dtm.days;
+		// The grid derives the first harvest forwards from the field date with the same clock. Walked
+		// back, the clock gives the latest field date ready by this Monday; where shortening days make
+		// it skip, that one is ready a day or two early, and the next day's is ready a day or two late.
+		// The later one is taken: its harvest (a single cut, say) stays in this Monday's week.
+		let fieldDay = start - dtm.days;
+		let first = start;
+		if (dtm.source !== 'gdd_cold') {
+			first = fieldDay + maturityFrom(v, fieldDay, o.dtm).days;
+			if (first < start) {
+				fieldDay++;
+				first = fieldDay + maturityFrom(v, fieldDay, o.dtm).days;
+			}
+		}
 		const trayDay = v.method === 'transplant' ? fieldDay - (v.daysInTray ?? 0) : undefined;
 		const firstAction = trayDay ?? fieldDay;
 		// A tender crop goes out only after the last spring frost of its own year; a degree-day crop
 		// whose heat cannot add up since the last cold spell cannot be ready that week at all.
 		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(start)) : -Infinity;
 		const ok = !(
+			(window !== null && !inMonthDayWindow(fieldDay, window.from, window.to)) ||
 			(o.earliestField !== undefined && fieldDay < o.earliestField) ||
 			(o.today !== undefined && firstAction < o.today) ||
 			fieldDay < frostFree ||
-			dtm.source === 'gdd_cold'
+			dtm.source === 'gdd_cold' ||
+			first < start ||
+			first > start + 6
 		);
 		cand = {
 			ok,
 			fieldDay,
+			first,
+			coef: first > start ? shiftedCoefficients(first - start) : undefined,
 			trayDay,
-			occupancy: start + H - fieldDay,
+			// Held until the window ends, or the last target week if sooner (the harvest stops there).
+			occupancy: Math.min(first + H, lastSunday + 1) - fieldDay,
 			dtmWarnings: dtm.warnings.length === 0 ? NONE : [...dtm.warnings],
 			dtm: detail ? dtm : undefined,
 			raw: 0,
@@ -419,7 +445,13 @@ function planRuns<T>(
 	// (It depends only on w − c: worked out once per variety.)
 	const byOffset = new Float64Array(span);
 	for (let k = 0; k < span; k++) byOffset[k] = Y * shareOfDays(P, 7 * k, 7 * k + 6);
-	const perFt = (c: number, w: number): number => (w - c >= 0 && w - c < span ? byOffset[w - c] : 0);
+	function shiftedCoefficients(late: number): Float64Array {
+		const out = new Float64Array(span);
+		for (let k = 0; k < span; k++) out[k] = Y * shareOfDays(P, 7 * k - late, 7 * k + 6 - late);
+		return out;
+	}
+	const coefOf = (c: number): Float64Array => (c >= cMin && c < nWeeks ? cands[c - cMin]?.coef : undefined) ?? byOffset;
+	const perFt = (c: number, w: number): number => (w - c >= 0 && w - c < span ? coefOf(c)[w - c] : 0);
 
 	// A storage crop: one harvest sized for the weeks its store feeds, not the weekly greedy below.
 	const fromStore = store ? sizeStore(store) : undefined;
@@ -464,16 +496,18 @@ function planRuns<T>(
 		let bestScore = Infinity;
 		for (let c = w; c >= Math.max(cMin, w - span + 1); c--) {
 			if (step > 1 && ((c % step) + step) % step !== 0) continue;
-			const cf = byOffset[w - c];
-			if (!(cf > 0)) continue;
+			if (!(byOffset[w - c] > 0)) continue;
 			const cand = cands[c - cMin] ?? candidate(c);
 			if (!cand.ok) continue;
+			const co = cand.coef ?? byOffset;
+			const cf = co[w - c];
+			if (!(cf > 0)) continue;
 			const x = net / cf;
 			let useful = 0;
 			const end = Math.min(nWeeks - 1, c + span - 1);
 			for (let u = w; u <= end; u++) {
 				const left = need[u] - planned[u];
-				if (left > 0 && target[u] > 0) useful += Math.min(byOffset[u - c] * x, left);
+				if (left > 0 && target[u] > 0) useful += Math.min(co[u - c] * x, left);
 			}
 			const score = (x * cand.occupancy) / useful;
 			if (score < bestScore * (1 - 1e-9)) {
@@ -539,16 +573,16 @@ function planRuns<T>(
 	};
 	// The target weeks (indices into mondays) each succession's harvest reaches. A harvest that
 	// would run past the last target week ends with that week: the bed is free sooner, and the
-	// yield is what the curve gives up to then.
-	const lastSunday = mondays[mondays.length - 1] + 6;
+	// yield is what the curve gives up to then. (The stored planting keeps that shorter harvest:
+	// the grid derives its last harvest from its first and its stored days of harvest.)
 	let firstWeek = 0;
 	for (let c = cMin; c < nWeeks; c++) {
 		const cand = cands[c - cMin];
 		if (!cand || cand.feet <= 0) continue;
-		const start = base + 7 * c;
+		const start = cand.first;
 		const lastHarvest = Math.min(start + H - 1, lastSunday);
 		run.yieldShare = lastHarvest === start + H - 1 ? 1 : P[lastHarvest - start + 1];
-		while (firstWeek < mondays.length && mondays[firstWeek] < start) firstWeek++;
+		while (firstWeek < mondays.length && mondays[firstWeek] < base + 7 * c) firstWeek++;
 		let endWeek = firstWeek;
 		while (endWeek < mondays.length && mondays[endWeek] <= lastHarvest) endWeek++;
 		run.index = items.length;
@@ -587,7 +621,7 @@ function planRuns<T>(
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
 			code: 'unreachable_week',
-			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop).`,
+			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)${window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : ''}.`,
 			weeks
 		});
 	}
@@ -691,12 +725,12 @@ export function sizingLp(input: PlanInput): {
 		input,
 		undefined,
 		false,
-		(run) => ({ start: run.start, feet: run.bedFeet, field: run.fieldDay }),
+		(run) => ({ last: run.lastHarvest, feet: run.bedFeet, field: run.fieldDay }),
 		(p) => (problem = p)
 	);
-	const H = input.variety.harvestWindowDays;
 	let planBedFootDays = 0;
-	for (const r of plan.items) planBedFootDays += r.feet * (r.start + H - r.field);
+	// The same measure as each candidate's occupancy: field date to the end of its (possibly shortened) harvest.
+	for (const r of plan.items) planBedFootDays += r.feet * (r.last + 1 - r.field);
 	const p = problem;
 	if (!p) return { lp: '', lpWhole: '', planBedFootDays, variables: 0 };
 	const inc = input.options?.bedFootIncrement ?? 1;

@@ -42,6 +42,12 @@ export interface Variety {
 	seedsPerPacket?: number;
 	/** Extra seed margin (fraction) for this variety; falls back to options.seedMargin. */
 	margin?: number;
+	/**
+	 * The crop's earliest and latest field date in the year, "MM-DD" (both or neither; the window
+	 * may run over the new year). Outside it the grid warns and the planner proposes nothing.
+	 */
+	sowFrom?: string;
+	sowTo?: string;
 	/** How the yield spreads over the harvest window; default flat. */
 	harvestCurve?: HarvestCurve;
 	/**
@@ -67,7 +73,9 @@ export type WarningCode =
 	| 'not_placed'
 	| 'no_variety'
 	| 'rotation_conflict'
-	| 'split_across_beds';
+	| 'split_across_beds'
+	| 'outside_sowing_window'
+	| 'heat_in_growth';
 
 export interface PlanningWarning {
 	code: WarningCode;

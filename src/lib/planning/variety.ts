@@ -9,6 +9,7 @@ import {
 } from './errors';
 import type { Variety } from './types';
 import { validateCurve } from './harvest-curve';
+import { sowingWindowOf } from './sowing-window';
 
 /** Check a variety's plain data; throws PlanningInputError naming `variety.<field>`. */
 export function validateVariety(v: Variety): Variety {
@@ -37,6 +38,12 @@ export function validateVariety(v: Variety): Variety {
 	if (v.gddToMaturity !== undefined) requirePositive(f('gddToMaturity'), v.gddToMaturity);
 	if (v.margin !== undefined) requireNonNegative(f('margin'), v.margin);
 	if (v.harvestCurve !== undefined) validateCurve(v.harvestCurve, f('harvestCurve'));
+	if ((v.sowFrom === undefined) !== (v.sowTo === undefined))
+		throw new PlanningInputError(
+			f(v.sowFrom === undefined ? 'sowFrom' : 'sowTo'),
+			'is needed with the other end of the window'
+		);
+	sowingWindowOf(v);
 	if (v.storage !== undefined) {
 		if (v.storage === null || typeof v.storage !== 'object')
 			throw new PlanningInputError(f('storage'), 'must be an object');
