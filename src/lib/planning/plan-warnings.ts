@@ -1,4 +1,5 @@
 import { type DayNumber, civilFromDays, daysFromCivil, weekdayOf, yearOfDay } from './day-number';
+import { requireNonNegativeInteger } from './errors';
 import { isoWeekOfDay, weekDateOfDay } from './iso-week';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
@@ -26,6 +27,27 @@ export function sameMonthDay(year: number, normal: DayNumber): DayNumber {
 		return civilFromDays(feb29).month === 2 ? feb29 : feb29 - 1;
 	}
 	return daysFromCivil(year, month, day);
+}
+
+/** The farm's days after the last spring frost for tender crops (default 0), checked. */
+export function tenderDaysOf(days: number | undefined): number {
+	return days === undefined ? 0 : requireNonNegativeInteger('farm.tenderDaysAfterFrost', days);
+}
+
+/**
+ * A tender crop's first field day in each year: the last spring frost (a normal: its month and day)
+ * of that year plus `after` days. Memoised for the year asked last (a plan asks one year over and over).
+ */
+export function tenderFieldStart(lastSpringFrost: DayNumber, after: number): (year: number) => DayNumber {
+	let y = NaN;
+	let d = 0;
+	return (year) => {
+		if (year !== y) {
+			y = year;
+			d = sameMonthDay(year, lastSpringFrost) + after;
+		}
+		return d;
+	};
 }
 
 /** The frost dates a planting with this field date is checked against: its year's spring, the first autumn after it. */

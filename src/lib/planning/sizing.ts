@@ -1,12 +1,12 @@
 // Net-need sizing of one variety's successions (planRuns): the core of planSuccessions and
 // planSeason. See successions.ts for the entry points and storage-sizing.ts for storage crops.
-import { PlanningInputError, requireNonNegativeInteger, requireNonNegativeItem } from './errors';
+import { PlanningInputError, requireNonNegativeItem } from './errors';
 import { cumulativeWeights, shareOfDays } from './harvest-curve';
 import { type DayNumber, fromDayNumber, toDayNumber, yearOfDay } from './day-number';
 import { type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
-import { type SeasonFacts, sameMonthDay, successionWarnings } from './plan-warnings';
+import { type SeasonFacts, successionWarnings, tenderDaysOf, tenderFieldStart } from './plan-warnings';
 import { type ResolvedOptions, resolveOptions } from './resolve-options';
 import type { PlanInput, SuccessionRun } from './succession-types';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
@@ -90,10 +90,7 @@ export function planRuns<T>(
 	};
 	const warnings: PlanningWarning[] = [];
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
-	const tenderAfter =
-		farm.tenderDaysAfterFrost === undefined
-			? 0
-			: requireNonNegativeInteger('farm.tenderDaysAfterFrost', farm.tenderDaysAfterFrost);
+	const tenderAfter = tenderDaysOf(farm.tenderDaysAfterFrost);
 	const facts: SeasonFacts = {
 		...season,
 		temps: o.dtm.temps,
@@ -101,17 +98,7 @@ export function planRuns<T>(
 		frostProbabilityPct: farm.frostProbabilityPct
 	};
 	const { mondays, qty } = normaliseTargets(input.targets);
-	let frostYear = NaN;
-	let frostDay = 0;
-	// The frost dates are normals: a tender crop goes out `tenderAfter` days after the last spring
-	// frost of its own field date's year.
-	const lastFrostOfYear = (year: number): DayNumber => {
-		if (year !== frostYear) {
-			frostYear = year;
-			frostDay = sameMonthDay(year, season.lastSpringFrost) + tenderAfter;
-		}
-		return frostDay;
-	};
+	const lastFrostOfYear = tenderFieldStart(season.lastSpringFrost, tenderAfter);
 	const window = sowingWindowOf(v);
 	const H = v.harvestWindowDays;
 	const P = cumulativeWeights(v.harvestCurve, H);
