@@ -4,23 +4,13 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireUser } from '$lib/server/guards';
-import { seasonFromParams } from '$lib/server/api';
+import { invalidAnswer, seasonFromParams } from '$lib/server/api';
 import { seasonForecast, toSeries } from '$lib/server/forecast';
 import { forecastQuerySchema, MAX_FORECAST_WEEKS } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { weeksBetween } from '$lib/planning';
 
-function bad(errors: Record<string, string>): Response {
-	return json(
-		{
-			message: `Invalid query: ${Object.entries(errors)
-				.map(([k, v]) => `${k}: ${v}`)
-				.join('; ')}`,
-			errors
-		},
-		{ status: 400 }
-	);
-}
+const bad = (errors: Record<string, string>): Response => invalidAnswer(errors, 'query');
 
 export const GET: RequestHandler = async (event) => {
 	const { farm } = requireUser(event);
