@@ -9,6 +9,7 @@ import { seasonForecast, toSeries } from '$lib/server/forecast';
 import { forecastQuerySchema, MAX_FORECAST_WEEKS } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { weeksBetween } from '$lib/planning';
+import type { ForecastAnswer, ForecastSeriesAnswer } from '$lib/api-answers';
 
 const bad = (errors: Record<string, string>): Response => invalidAnswer(errors, 'query');
 
@@ -50,6 +51,7 @@ export const GET: RequestHandler = async (event) => {
 		currentWeek: f.currentWeek,
 		crops: f.crops.filter((c) => chosen.has(c.id))
 	};
-	const body = parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
+	const body: ForecastAnswer | ForecastSeriesAnswer =
+		parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
 	return json(body, { headers: { 'server-timing': serverTiming } });
 };
