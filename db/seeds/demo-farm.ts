@@ -16,6 +16,8 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import { plantingRow } from '../../src/lib/planting-row';
+import { storeSupply } from '../../src/lib/planning/storage';
+import { previousFamiliesByBed, seasonPlanOptions } from '../../src/lib/plan-options';
 import {
 	type Farm,
 	type KeptPlanting,
@@ -23,6 +25,7 @@ import {
 	type SeasonVariety,
 	type Variety,
 	type VarietyShare as EngineVarietyShare,
+	derivePlanting,
 	deriveTargets,
 	forecast,
 	planSeason,
@@ -130,6 +133,9 @@ export interface DemoCrop {
 	/** Storage crops: weeks a harvest keeps, and the share lost each week in store. */
 	storage_weeks?: number | null;
 	storage_loss_per_week?: number | null;
+	/** Earliest and latest field date in the year, "MM-DD" (both or neither). */
+	sow_from?: string | null;
+	sow_to?: string | null;
 }
 
 // Harvest curves (common practice, no published source): fruiting crops are picked in a ramp,
@@ -288,7 +294,11 @@ export const DEMO_CROPS: readonly DemoCrop[] = [
 		harvest_cut_interval_days: null,
 		// Cured and kept: dug in July, it feeds the boxes into the autumn (invented demo figures).
 		storage_weeks: 24,
-		storage_loss_per_week: 0.01
+		storage_loss_per_week: 0.01,
+		// Cloves go in during the autumn, a few weeks before the ground freezes, for a July harvest
+		// (common practice, no published source); never in spring.
+		sow_from: '10-01',
+		sow_to: '12-15'
 	},
 	{
 		name: 'Tomato',
@@ -753,8 +763,12 @@ export const DEMO_VARIETIES: readonly DemoVariety[] = [
 		}
 	),
 	// Planted as cloves in late fall; a clove weighs ~5 g, hence 0.2 "seeds" per gram.
+	// Garlic's clock is its degree days (base 40 °F), which stand still through the winter: a clove
+	// planted late October and one planted early December are both dug in July. 1,585 °F·days is about
+	// what the demo's invented weekly normals give from 3 December to 12 July.
 	direct('Garlic', 'Hardneck Blush', {
 		days_to_maturity: 240,
+		gdd_to_maturity: 1585,
 		harvest_window_days: 14,
 		yield_per_bed_foot: 7,
 		rows_per_bed: 4,
@@ -1114,150 +1128,157 @@ export interface DemoFallPlanting {
 	harvests: readonly (readonly [string, number])[];
 }
 
-export const DEMO_FALL_PLANTINGS_2026: readonly DemoFallPlanting[] = [
-	{
-		variety: 'Curled Fog',
-		bed: 'N01',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: '2026-07-06',
-		field_date: '2026-08-10',
-		first_harvest: '2026-09-28',
-		last_harvest: '2026-12-18',
-		status: 'harvesting',
-		actual_tray_sow_date: '2026-07-06',
-		actual_field_date: '2026-08-11',
-		actual_first_harvest: '2026-09-30',
-		notes: 'Picked weekly until the hard freezes; row cover on from mid-November.',
-		harvests: [
-			['2026-11-17', 30],
-			['2026-11-24', 28],
-			['2026-12-01', 24]
-		]
-	},
-	{
-		variety: 'Cellar Stout',
-		bed: 'N01',
-		start_ft: 50,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-07-27',
-		first_harvest: '2026-10-20',
-		last_harvest: '2026-12-11',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-07-28',
-		actual_first_harvest: '2026-10-21',
-		notes: 'Left in the ground under straw and cover; dug as the winter share needs them.',
-		harvests: [
-			['2026-11-20', 45],
-			['2026-11-27', 40],
-			['2026-12-01', 38]
-		]
-	},
-	{
-		variety: 'Cold Frame Savoy',
-		bed: 'N02',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-09-14',
-		first_harvest: '2026-11-09',
-		last_harvest: '2026-12-23',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-09-14',
-		actual_first_harvest: '2026-11-11',
-		notes: 'Under a low tunnel.',
-		harvests: [
-			['2026-11-16', 9],
-			['2026-11-23', 12],
-			['2026-11-30', 10]
-		]
-	},
-	{
-		variety: 'Autumn Tapestry Mix',
-		bed: 'N03',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-10-19',
-		first_harvest: '2026-12-07',
-		last_harvest: '2026-12-21',
-		status: 'sown',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-19',
-		actual_first_harvest: null,
-		notes: 'Under a low tunnel; first cut due the week of 7 December.',
-		harvests: []
-	},
-	{
-		variety: 'Peppery Lace',
-		bed: 'N03',
-		start_ft: 50,
-		length_ft: 50,
-		tray_sow_date: null,
-		field_date: '2026-10-05',
-		first_harvest: '2026-11-23',
-		last_harvest: '2026-12-11',
-		status: 'harvesting',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-06',
-		actual_first_harvest: '2026-11-24',
-		notes: null,
-		harvests: [['2026-11-30', 6]]
-	},
-	{
-		variety: 'Butter Lantern',
-		bed: 'N04',
-		start_ft: 0,
-		length_ft: 50,
-		tray_sow_date: '2026-09-07',
-		field_date: '2026-10-05',
-		first_harvest: '2026-11-30',
-		last_harvest: '2026-12-10',
-		status: 'harvesting',
-		actual_tray_sow_date: '2026-09-07',
-		actual_field_date: '2026-10-05',
-		actual_first_harvest: '2026-12-01',
-		notes: 'Short days slowed it by about two weeks.',
-		harvests: [['2026-12-01', 60]]
-	},
-	// Garlic goes in during the fall and is dug the next July: it feeds the 2027 boxes and
-	// holds its beds until then, so the 2027 plan must work around it.
-	{
-		variety: 'Hardneck Blush',
-		bed: 'S12',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-10-26',
-		first_harvest: '2027-07-12',
-		last_harvest: '2027-07-25',
-		status: 'sown',
-		actual_tray_sow_date: null,
-		actual_field_date: '2026-10-27',
-		actual_first_harvest: null,
-		notes: 'Mulched with straw after planting.',
-		harvests: []
-	},
-	{
-		variety: 'Hardneck Blush',
-		bed: 'S13',
-		start_ft: 0,
-		length_ft: 100,
-		tray_sow_date: null,
-		field_date: '2026-12-03',
-		first_harvest: '2027-07-12',
-		last_harvest: '2027-07-25',
-		status: 'planned',
-		actual_tray_sow_date: null,
-		actual_field_date: null,
-		actual_first_harvest: null,
-		notes: 'Second garlic bed, held back by a wet November; plant as soon as the ground allows.',
-		harvests: []
-	}
-];
+/** A fall planting as written below: its planned tray and harvest dates come from the engine. */
+type FallPlantingFacts = Omit<DemoFallPlanting, 'tray_sow_date' | 'first_harvest' | 'last_harvest'>;
+
+/**
+ * The planned tray sowing and harvest dates of a fall planting as the grid derives them from its
+ * field date (the same engine function the server runs on save), so what the seed stores is what
+ * the grid shows.
+ */
+function withPlannedDates(p: FallPlantingFacts): DemoFallPlanting {
+	const v = DEMO_VARIETIES.find((x) => x.name === p.variety);
+	const crop = v && DEMO_CROPS.find((c) => c.name === v.crop);
+	if (!v || !crop) throw new Error(`demo fall planting: unknown variety ${p.variety}`);
+	const engine = toEngineVariety(v, crop);
+	const d = derivePlanting(
+		{
+			method: v.method,
+			fieldDate: p.field_date,
+			lengthFt: p.length_ft,
+			rows: v.rows_per_bed,
+			inRowSpacingIn: v.in_row_spacing_in,
+			seedsPerSpot: v.seeds_per_spot
+		},
+		engine,
+		demoEngineFarm(),
+		{ explain: false }
+	);
+	return { ...p, tray_sow_date: d.traySowDate, first_harvest: d.firstHarvest, last_harvest: d.lastHarvest };
+}
+
+export const DEMO_FALL_PLANTINGS_2026: readonly DemoFallPlanting[] = (
+	[
+		{
+			variety: 'Curled Fog',
+			bed: 'N01',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-08-08',
+			status: 'harvesting',
+			actual_tray_sow_date: '2026-07-04',
+			actual_field_date: '2026-08-09',
+			actual_first_harvest: '2026-09-30',
+			notes: 'Picked weekly until the hard freezes; row cover on from mid-November.',
+			harvests: [
+				['2026-11-17', 30],
+				['2026-11-24', 28],
+				['2026-12-01', 24]
+			]
+		},
+		{
+			variety: 'Cellar Stout',
+			bed: 'N01',
+			start_ft: 50,
+			length_ft: 50,
+			field_date: '2026-07-23',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-07-24',
+			actual_first_harvest: '2026-10-21',
+			notes: 'Left in the ground under straw and cover; dug as the winter share needs them.',
+			harvests: [
+				['2026-11-20', 45],
+				['2026-11-27', 40],
+				['2026-12-01', 38]
+			]
+		},
+		{
+			variety: 'Cold Frame Savoy',
+			bed: 'N02',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-09-14',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-09-14',
+			actual_first_harvest: '2026-11-11',
+			notes: 'Under a low tunnel.',
+			harvests: [
+				['2026-11-16', 9],
+				['2026-11-23', 12],
+				['2026-11-30', 10]
+			]
+		},
+		{
+			variety: 'Autumn Tapestry Mix',
+			bed: 'N03',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-10-05',
+			status: 'sown',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-05',
+			actual_first_harvest: null,
+			notes: 'Under a low tunnel; short days slow it: first cut due about 5 December.',
+			harvests: []
+		},
+		{
+			variety: 'Peppery Lace',
+			bed: 'N03',
+			start_ft: 50,
+			length_ft: 50,
+			field_date: '2026-10-06',
+			status: 'harvesting',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-06',
+			actual_first_harvest: '2026-11-24',
+			notes: null,
+			harvests: [['2026-11-30', 6]]
+		},
+		{
+			variety: 'Butter Lantern',
+			bed: 'N04',
+			start_ft: 0,
+			length_ft: 50,
+			field_date: '2026-09-26',
+			status: 'harvesting',
+			actual_tray_sow_date: '2026-08-29',
+			actual_field_date: '2026-09-26',
+			actual_first_harvest: '2026-12-01',
+			notes: 'Short days slowed it by about two weeks.',
+			harvests: [['2026-12-01', 60]]
+		},
+		// Garlic goes in during the fall and is dug the next July: it feeds the 2027 boxes and
+		// holds its beds until then, so the 2027 plan must work around it.
+		{
+			variety: 'Hardneck Blush',
+			bed: 'S12',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-10-26',
+			status: 'sown',
+			actual_tray_sow_date: null,
+			actual_field_date: '2026-10-27',
+			actual_first_harvest: null,
+			notes: 'Mulched with straw after planting.',
+			harvests: []
+		},
+		{
+			variety: 'Hardneck Blush',
+			bed: 'S13',
+			start_ft: 0,
+			length_ft: 100,
+			field_date: '2026-12-03',
+			status: 'planned',
+			actual_tray_sow_date: null,
+			actual_field_date: null,
+			actual_first_harvest: null,
+			notes: 'Second garlic bed, held back by a wet November; plant as soon as the ground allows.',
+			harvests: []
+		}
+	] satisfies FallPlantingFacts[]
+).map(withPlannedDates);
 
 // ---------------------------------------------------------------------------------------
 // The 2027 plan, laid out by the planning engine
@@ -1316,15 +1337,13 @@ const VARIETY_PLAN: Readonly<Record<string, readonly VarietyShare[]>> = {
 		{ variety: 'Butter Lane Wax', fraction: 0.4 }
 	]
 	// Garlic has no entry: the 2027 garlic is already in the ground (planted fall 2026) and goes
-	// in as kept plantings. It is dug in W28–W29, while the shares take it from storage in
-	// W30–W44; a flat harvest window cannot carry it into storage, so those weeks come back as
-	// unreachable (a new planting would have to go in before "today") and are left in shortfall.
+	// in as kept plantings. It is dug in July and the shares take it from store (24 weeks, 1 % a
+	// week lost) from W30. The two fall beds feed the store into W38; the later weeks would need
+	// more garlic planted last autumn, so they come back as unreachable, left in shortfall.
 };
 
 /** "Today" for the demo: the 2027 plan may not ask for work before it. */
 export const DEMO_TODAY = '2026-12-02';
-/** Invented: the earliest the demo farm's ground can be worked in spring. */
-export const DEMO_EARLIEST_FIELD_DATE = '2027-04-01';
 
 export interface PlanDemoInput {
 	crops: readonly DemoCrop[];
@@ -1367,7 +1386,12 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 		if (crop.harvest_cut_interval_days !== null) out.harvestCurve.intervalDays = crop.harvest_cut_interval_days;
 	}
 	if (v.gdd_to_maturity !== null) out.gddToMaturity = v.gdd_to_maturity;
+	if (crop.sow_from && crop.sow_to) {
+		out.sowFrom = crop.sow_from;
+		out.sowTo = crop.sow_to;
+	}
 	if (v.seeds_per_packet !== null) out.seedsPerPacket = v.seeds_per_packet;
+	if (crop.storage_weeks) out.storage = { keepWeeks: crop.storage_weeks, lossPerWeek: crop.storage_loss_per_week ?? 0 };
 	return out;
 }
 
@@ -1459,13 +1483,9 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 			windowDays: v.harvest_window_days
 		};
 	});
-	// Their families also count as what each bed held last season, for rotation.
-	const previousFamilyByBed: Record<string, string[]> = {};
-	for (const k of kept) {
-		if (k.family === undefined || k.bedId === null) continue;
-		const list = (previousFamilyByBed[k.bedId] ??= []);
-		if (!list.includes(k.family)) list.push(k.family);
-	}
+	// Their families also count as what each bed held before the season, for rotation (the same rule
+	// as the owner's plan: plan-options.ts).
+	const previousFamilyByBed = previousFamiliesByBed(kept, `${DEMO_PLAN_YEAR}-01-01`);
 	return planSeason({
 		farm: demoEngineFarm(),
 		varieties,
@@ -1474,12 +1494,17 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 		kept,
 		varietyPlan: demoVarietyPlan(input.varieties),
 		previousFamilyByBed,
-		options: {
-			bedFootIncrement: DEMO_FARM.bed_foot_increment,
-			turnaroundDays: DEMO_FARM.turnaround_days,
-			today: DEMO_TODAY,
-			earliestFieldDate: DEMO_EARLIEST_FIELD_DATE
-		}
+		// The owner's plan with the plan screen's defaults: the same options (plan-options.ts), "today" the demo's.
+		options: seasonPlanOptions(
+			{
+				bedFootIncrement: DEMO_FARM.bed_foot_increment,
+				turnaroundDays: DEMO_FARM.turnaround_days,
+				lastSpringFrost: DEMO_FARM.last_spring_frost
+			},
+			{},
+			DEMO_TODAY,
+			DEMO_PLAN_YEAR
+		)
 	});
 }
 
@@ -1545,13 +1570,29 @@ export function demoPlanSupply(
 			.filter((w) => w.code === 'unreachable_week')
 			.flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
 	);
+	const rows = forecast(plantings, targets);
+	// A storage crop's weeks are fed from its store (oldest lot first, with its weekly loss), as in
+	// the forecast: a week is short when the store cannot give it demand × (1 + margin).
+	const fromStore = new Map<string, Map<string, number>>();
+	for (const crop of input.crops) {
+		if (!crop.storage_weeks) continue;
+		const dug = new Map<string, number>();
+		const wanted = new Map<string, number>();
+		for (const r of rows) {
+			if (r.crop !== crop.name) continue;
+			if (r.supply > 0) dug.set(r.week, r.supply);
+			if (r.demand > 0) wanted.set(r.week, r.demand * (1 + margin));
+		}
+		fromStore.set(crop.name, storeSupply(dug, wanted, crop.storage_weeks, crop.storage_loss_per_week ?? 0).supply);
+	}
 	const out = new Map<string, DemoCropSupply>();
-	for (const r of forecast(plantings, targets)) {
+	for (const r of rows) {
 		if (!r.week.startsWith(`${DEMO_PLAN_YEAR}-`)) continue;
 		const c = out.get(r.crop) ?? { crop: r.crop, supply: 0, demand: 0, shortWeeks: [] };
 		c.supply += r.supply;
 		c.demand += r.demand;
-		if (r.demand > 0 && r.supply < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`))
+		const given = fromStore.get(r.crop)?.get(r.week) ?? r.supply;
+		if (r.demand > 0 && given < r.demand * (1 + margin) * (1 - 1e-9) && !unreachable.has(`${r.crop}|${r.week}`))
 			c.shortWeeks.push(r.week);
 		out.set(r.crop, c);
 	}

@@ -77,4 +77,10 @@ export interface VarietyView {
 	harvestCurve?: 'flat' | 'ramp' | 'single' | 'cuts';
 	/** Days between cuts, for a curve of several cuts (null: the engine's default). */
 	cutIntervalDays?: number | null;
+	/** The crop's earliest and latest field date in the year, "MM-DD" (both or neither). */
+	sowFrom?: string | null;
+	sowTo?: string | null;
+	/** A storage crop's weeks in store (null or 0: sold fresh) and share lost a week, from its crop. */
+	storageWeeks?: number | null;
+	storageLossPerWeek?: number | null;
 }

@@ -34,10 +34,20 @@ export function toEngineVariety(v: VarietyView): SeasonVariety {
 			seedsPerPacket: v.seedsPerPacket ?? undefined,
 			margin: v.margin
 		};
+		if (v.sowFrom && v.sowTo) {
+			out.sowFrom = v.sowFrom;
+			out.sowTo = v.sowTo;
+		}
 		if (v.harvestCurve && v.harvestCurve !== 'flat') {
 			out.harvestCurve = { shape: v.harvestCurve };
 			if (v.harvestCurve === 'cuts' && v.cutIntervalDays) out.harvestCurve.intervalDays = v.cutIntervalDays;
 		}
+		// The loss is a fraction a week; the store model takes at most all of it (as the forecast's does).
+		if (v.storageWeeks && v.storageWeeks > 0)
+			out.storage = {
+				keepWeeks: Math.floor(v.storageWeeks),
+				lossPerWeek: Math.min(0.99, Math.max(0, v.storageLossPerWeek ?? 0))
+			};
 		cache.set(v, out);
 	}
 	return out;

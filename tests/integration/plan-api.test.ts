@@ -2,6 +2,8 @@
 // planned plantings in one transaction and keeps what is already sown.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { forecast, deriveTargets, type HarvestCurve } from '../../src/lib/planning';
+import { forecastFromWeeklySupply } from '../../src/lib/planning/forecast';
+import { throughStores } from '../../src/lib/planning/storage';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb, uniqueEmail } from '../helpers/db';
 import { demo } from '../helpers/env';
@@ -155,15 +157,27 @@ describe('preview', () => {
 			})),
 			channelDemand: channels.map((c) => ({ crop: String(c.crop_id), week: c.week, quantity: Number(c.quantity) }))
 		});
+		// Kept: this season's plantings already under way, and other seasons' plantings harvesting
+		// in this season (the garlic planted last autumn).
 		const kept = await testDb()('plantings as p')
 			.join('varieties as v', 'v.id', 'p.variety_id')
-			.where('p.season_id', seasonId)
-			.whereNotIn('p.status', ['planned', 'failed'])
+			.where('p.farm_id', farmId)
+			.whereNot('p.status', 'failed')
+			.where((q) =>
+				q
+					.where((q2) => q2.where('p.season_id', seasonId).whereNot('p.status', 'planned'))
+					.orWhere((q2) => q2.whereNot('p.season_id', seasonId).where('p.last_harvest', '>=', '2027-01-01'))
+			)
 			.select('v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot');
+		const stores = (await testDb()('crops').where({ farm_id: farmId }).where('storage_weeks', '>', 0)).map((c) => ({
+			crop: String(c.id),
+			keepWeeks: Number(c.storage_weeks),
+			lossPerWeek: Number(c.storage_loss_per_week ?? 0)
+		}));
 		const yieldOf = new Map(
 			(await testDb()('varieties').where({ farm_id: farmId })).map((v) => [String(v.id), Number(v.yield_per_bed_foot)])
 		);
-		const supply = forecast(
+		const harvested = forecast(
 			[
 				...out.plantings.map(
 					(p: {
@@ -193,6 +207,15 @@ describe('preview', () => {
 					yieldPerBedFoot: Number(k.yield_per_bed_foot)
 				}))
 			],
+			[]
+		);
+		// Storage crops are sold from store, as the forecast shows them (garlic dug in July feeds the autumn).
+		const supply = forecastFromWeeklySupply(
+			throughStores(
+				harvested.map((r) => ({ crop: r.crop, week: r.week, quantity: r.supply })),
+				targets,
+				stores
+			),
 			targets
 		);
 		const reported = new Map<string, number>(

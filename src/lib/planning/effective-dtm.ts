@@ -1,20 +1,21 @@
 import { dayLengthHours, dayOfYearOfDay } from './day-length';
 import { type DayNumber, fromDayNumber, weekdayOf } from './day-number';
-import { ceilSafe } from './numbers';
 import { meanDegreeDays } from './degree-days';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
 
-/** gdd_cold: the degree days before that harvest do not add up since the last cold spell. */
+/** gdd_cold: a frost-tender crop's degree days cannot add up between its field date and that harvest (a winter lies between). */
 export type DtmSource = 'variety' | 'short_day' | 'gdd' | 'gdd_cold';
 
 export interface EffectiveDtm {
+	/** Days from the field date to first harvest. */
 	days: number;
 	source: DtmSource;
 	varietyDays: number;
 	/** Day length at the farm's latitude on the first-harvest date, hours. */
 	dayLengthHours: number;
 	thresholdHours: number;
+	/** Days beyond the variety's figure that short days add (source 'short_day'). */
 	allowanceDays: number;
 	gdd?: { required: number; accumulated: number; baseF: number; days: number };
 	warnings: PlanningWarning[];
@@ -22,23 +23,38 @@ export interface EffectiveDtm {
 
 export interface DtmContext {
 	latitude: number;
-	shortDayAllowanceDays: number;
+	/** Day length (hours) at which a crop grows at half speed; the slowdown starts two hours above it. */
 	shortDayThresholdHours: number;
 	gddWalkLimitDays: number;
 	temps?: TempLookup;
 }
 
 /**
- * Effective days to maturity for a first harvest on `firstHarvest` (DESIGN step 3).
- * With weekly temperatures and a GDD requirement, walk back day by day from the
- * day before first harvest, adding max(0, weekly mean − base), until the
- * requirement is met; the degree-day figure then replaces the calendar rule
- * (temperature already slows an autumn crop). Otherwise: the variety's figure,
- * plus the short-day allowance when day length at first harvest is under the
- * threshold (common practice: about two weeks longer in autumn's short days).
+ * Growth clock (DESIGN step 3). A crop matures when the "development" it has gathered since its
+ * field date reaches its requirement, counting only days on or after the field date:
+ *  - with weekly temperatures and a degree-day requirement: each day adds max(0, weekly mean − base)
+ *    °F·days, and the requirement is the variety's degree days;
+ *  - otherwise each day adds a share of a day by its day length (shortDayRate), and the requirement
+ *    is the variety's days to maturity. In spring and summer every day is a whole day; in autumn the
+ *    days count for less and less as they shorten, so the slowdown is gradual and a later first
+ *    harvest always needs a later (or the same) field date.
+ * The same clock runs forwards (the grid: field date → first harvest) and backwards (the planner:
+ * first harvest → the latest field date that is ready by then), so the two always agree.
  */
-export function effectiveDaysToMaturity(variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
-	return effectiveDaysInto(blankDtm(), variety, firstHarvest, ctx);
+export const MIN_SHORT_DAY_RATE = 0.3;
+
+/**
+ * Share of a day's growth a day of `dayLength` hours gives: 1 at threshold + 2 h and longer,
+ * falling by a quarter of a day's growth per hour shorter (0.5 at the threshold), never under 0.3.
+ * Common practice (no published source): growth slows markedly under about 10 h of day (the
+ * "Persephone period", Coleman 2009, from memory), and crops maturing then take about two weeks
+ * longer than the packet says. With the default 10 h threshold at 42.5° N, a 45-day crop first
+ * harvested on 9 Nov (10.05 h) takes 11 days more, on 16 Nov (9.78 h) 15 more, on 30 Nov 23 more:
+ * the slowdown grows through the autumn instead of switching on at one date.
+ */
+export function shortDayRate(dayLength: number, thresholdHours: number): number {
+	const r = 1 - (thresholdHours + 2 - dayLength) / 4;
+	return r >= 1 ? 1 : r <= MIN_SHORT_DAY_RATE ? MIN_SHORT_DAY_RATE : r;
 }
 
 // Day length by day of the year, per latitude: a plan asks for the same few hundred days over and over.
@@ -56,6 +72,10 @@ function dayLengthAt(latitude: number, doy: number): number {
 	return h;
 }
 
+function rateOn(day: DayNumber, ctx: DtmContext): number {
+	return shortDayRate(dayLengthAt(ctx.latitude, dayOfYearOfDay(day)), ctx.shortDayThresholdHours);
+}
+
 /** An empty record for effectiveDaysInto to fill. */
 export function blankDtm(): EffectiveDtm {
 	return {
@@ -66,6 +86,53 @@ export function blankDtm(): EffectiveDtm {
 		thresholdHours: 0,
 		allowanceDays: 0,
 		warnings: []
+	};
+}
+
+const EPS = 1e-9;
+/** Days in a row without heat that make a winter a frost-tender crop does not live through. */
+const COLD_SPELL_DAYS = 28;
+
+/**
+ * Effective days to maturity for a first harvest on `firstHarvest`, worked backwards (the
+ * planner): the days from the latest field date whose growth, counted from that date on, is
+ * complete by `firstHarvest`. A forward derivation from that field date (maturityFrom) gives
+ * `firstHarvest` or, where a shortening day makes the clock skip, a day or two before it.
+ */
+export function effectiveDaysToMaturity(variety: Variety, firstHarvest: DayNumber, ctx: DtmContext): EffectiveDtm {
+	return effectiveDaysInto(blankDtm(), variety, firstHarvest, ctx);
+}
+
+function reset(out: EffectiveDtm, variety: Variety, ctx: DtmContext): PlanningWarning[] {
+	if (out.warnings.length > 0) out.warnings = [];
+	out.days = variety.daysToMaturity;
+	out.source = 'variety';
+	out.varietyDays = variety.daysToMaturity;
+	out.thresholdHours = ctx.shortDayThresholdHours;
+	out.allowanceDays = 0;
+	if (out.gdd !== undefined) out.gdd = undefined;
+	return out.warnings;
+}
+
+function usesGdd(variety: Variety, ctx: DtmContext): boolean {
+	return ctx.temps !== undefined && variety.gddToMaturity !== undefined && variety.baseTempF !== undefined;
+}
+
+function gddWarning(kind: 'missing' | 'limit' | 'cold', v: Variety, acc: number, ctx: DtmContext, day?: DayNumber) {
+	const req = `${acc.toFixed(0)} of ${v.gddToMaturity} degree days (base ${v.baseTempF} °F)`;
+	if (kind === 'missing')
+		return {
+			code: 'gdd_data_missing' as const,
+			message: `No weekly mean temperature for the week of ${fromDayNumber(day ?? 0)}; used the calendar days to maturity instead of degree days.`
+		};
+	if (kind === 'cold')
+		return {
+			code: 'gdd_not_met' as const,
+			message: `Only ${req} accumulate before a cold spell of ${COLD_SPELL_DAYS} days or more: a frost-tender crop does not grow through winter, so it cannot be ready then.`
+		};
+	return {
+		code: 'gdd_not_met' as const,
+		message: `Only ${req} accumulate within ${ctx.gddWalkLimitDays} days; used the calendar days to maturity instead.`
 	};
 }
 
@@ -80,40 +147,33 @@ export function effectiveDaysInto(
 	firstHarvest: DayNumber,
 	ctx: DtmContext
 ): EffectiveDtm {
-	const dl = dayLengthAt(ctx.latitude, dayOfYearOfDay(firstHarvest));
-	if (out.warnings.length > 0) out.warnings = [];
-	const warnings = out.warnings;
-	out.days = variety.daysToMaturity;
-	out.source = 'variety';
-	out.varietyDays = variety.daysToMaturity;
-	out.dayLengthHours = dl;
-	out.thresholdHours = ctx.shortDayThresholdHours;
-	out.allowanceDays = 0;
-	if (out.gdd !== undefined) out.gdd = undefined;
-	if (ctx.temps && variety.gddToMaturity !== undefined && variety.baseTempF !== undefined) {
-		const required = variety.gddToMaturity;
-		const baseF = variety.baseTempF;
+	const warnings = reset(out, variety, ctx);
+	out.dayLengthHours = dayLengthAt(ctx.latitude, dayOfYearOfDay(firstHarvest));
+	if (usesGdd(variety, ctx)) {
+		const required = variety.gddToMaturity!;
+		const baseF = variety.baseTempF!;
 		let acc = 0;
 		let walked = 0;
-		let missing: string | undefined;
-		// Days in a row, walking back, that add no heat: four weeks of it is winter, and a crop
-		// does not grow through winter, so the walk stops there.
 		let cold = 0;
-		let winter = false;
 		// Walk back a week at a time: within a week every day adds the same max(0, mean − base),
 		// so the day that meets the requirement is found by division, not by stepping.
 		let day = firstHarvest - 1;
-		while (walked < ctx.gddWalkLimitDays) {
+		for (;;) {
+			if (walked >= ctx.gddWalkLimitDays) {
+				warnings.push(gddWarning('limit', variety, acc, ctx));
+				break;
+			}
 			const monday = day - weekdayOf(day) + 1;
 			const chunk = Math.min(day - monday + 1, ctx.gddWalkLimitDays - walked);
-			const mean = ctx.temps(day);
+			const mean = ctx.temps!(day);
 			if (mean === undefined) {
-				missing = fromDayNumber(day);
+				warnings.push(gddWarning('missing', variety, acc, ctx, day));
 				break;
 			}
 			const perDay = meanDegreeDays(mean, baseF);
-			if (perDay > 0 && acc + perDay * chunk >= required - 1e-9) {
-				const k = Math.max(1, ceilSafe((required - acc) / perDay));
+			if (perDay > 0 && acc + perDay * chunk >= required - EPS) {
+				// The fewest days from the end of this chunk that meet the requirement.
+				const k = Math.max(1, Math.ceil((required - acc) / perDay - EPS));
 				const days = walked + k;
 				acc += perDay * k;
 				out.days = days;
@@ -125,35 +185,96 @@ export function effectiveDaysInto(
 			walked += chunk;
 			day = monday - 1;
 			cold = perDay > 0 ? 0 : cold + chunk;
-			if (cold >= 28 && acc > 0) {
-				winter = true;
+			if (variety.frostTender && cold >= COLD_SPELL_DAYS) {
+				out.source = 'gdd_cold';
+				warnings.push(gddWarning('cold', variety, acc, ctx));
+				return out;
+			}
+		}
+	}
+	// Calendar clock, backwards: the latest field day whose day-length-weighted days reach the figure.
+	const need = variety.daysToMaturity;
+	let acc = 0;
+	let days = 0;
+	while (acc < need - EPS) {
+		days++;
+		acc += rateOn(firstHarvest - days, ctx);
+	}
+	setCalendar(out, days, variety);
+	return out;
+}
+
+function setCalendar(out: EffectiveDtm, days: number, variety: Variety): void {
+	out.days = days;
+	if (days > variety.daysToMaturity) {
+		out.source = 'short_day';
+		out.allowanceDays = days - variety.daysToMaturity;
+	}
+}
+
+/**
+ * The first harvest of a planting whose field date is `fieldDay`, worked forwards over the same
+ * clock (the grid and the server on save): heat or day length before the field date never counts.
+ * For a frost-tender degree-day crop that meets a cold spell before its degree days add up, the
+ * result is the calendar figure with a `gdd_not_met` warning (source 'gdd_cold').
+ */
+export function maturityFrom(variety: Variety, fieldDay: DayNumber, ctx: DtmContext): EffectiveDtm {
+	const out = blankDtm();
+	const warnings = reset(out, variety, ctx);
+	let done = false;
+	if (usesGdd(variety, ctx)) {
+		const required = variety.gddToMaturity!;
+		const baseF = variety.baseTempF!;
+		let acc = 0;
+		let walked = 0;
+		let cold = 0;
+		let day = fieldDay;
+		for (;;) {
+			if (walked >= ctx.gddWalkLimitDays) {
+				warnings.push(gddWarning('limit', variety, acc, ctx));
+				break;
+			}
+			const sunday = day + (7 - weekdayOf(day));
+			const chunk = Math.min(sunday - day + 1, ctx.gddWalkLimitDays - walked);
+			const mean = ctx.temps!(day);
+			if (mean === undefined) {
+				warnings.push(gddWarning('missing', variety, acc, ctx, day));
+				break;
+			}
+			const perDay = meanDegreeDays(mean, baseF);
+			if (perDay > 0 && acc + perDay * chunk >= required - EPS) {
+				const k = Math.max(1, Math.ceil((required - acc) / perDay - EPS));
+				acc += perDay * k;
+				out.days = walked + k;
+				out.source = 'gdd';
+				out.gdd = { required, accumulated: acc, baseF, days: out.days };
+				done = true;
+				break;
+			}
+			acc += perDay * chunk;
+			walked += chunk;
+			day = sunday + 1;
+			cold = perDay > 0 ? 0 : cold + chunk;
+			if (variety.frostTender && cold >= COLD_SPELL_DAYS) {
+				warnings.push(gddWarning('cold', variety, acc, ctx));
+				out.source = 'gdd_cold';
 				break;
 			}
 		}
-		if (winter) {
-			out.source = 'gdd_cold';
-			warnings.push({
-				code: 'gdd_not_met',
-				message: `Only ${acc.toFixed(0)} of ${required} degree days (base ${baseF} °F) accumulate after the last cold spell before first harvest; it cannot be ready then.`
-			});
-			return out;
+	}
+	if (!done) {
+		const need = variety.daysToMaturity;
+		let acc = 0;
+		let days = 0;
+		while (acc < need - EPS) {
+			acc += rateOn(fieldDay + days, ctx);
+			days++;
 		}
-		warnings.push(
-			missing
-				? {
-						code: 'gdd_data_missing',
-						message: `No weekly mean temperature for the week of ${missing}; used the calendar days to maturity instead of degree days.`
-					}
-				: {
-						code: 'gdd_not_met',
-						message: `Only ${acc.toFixed(0)} of ${required} degree days (base ${baseF} °F) accumulate in the ${ctx.gddWalkLimitDays} days before first harvest; used the calendar days to maturity instead.`
-					}
-		);
+		const source = out.source;
+		setCalendar(out, days, variety);
+		// A tender crop caught by winter keeps saying so, whatever the calendar figure is.
+		if (source === 'gdd_cold') out.source = 'gdd_cold';
 	}
-	if (dl < ctx.shortDayThresholdHours) {
-		out.days = variety.daysToMaturity + ctx.shortDayAllowanceDays;
-		out.source = 'short_day';
-		out.allowanceDays = ctx.shortDayAllowanceDays;
-	}
+	out.dayLengthHours = dayLengthAt(ctx.latitude, dayOfYearOfDay(fieldDay + out.days));
 	return out;
 }

@@ -31,7 +31,8 @@ export { dayLengthHours, dayOfYear } from './day-length';
 export { seedNeed, spotsPerRow, type SeedNeed, type SeedNeedInput } from './seed';
 export { validateVariety } from './variety';
 export type { WeeklyMeanTempF } from './weekly-temps';
-export type { DtmSource, EffectiveDtm } from './effective-dtm';
+export { type DtmSource, type EffectiveDtm, maturityFrom, shortDayRate } from './effective-dtm';
+export { derivePlanting, type DeriveFarm, type DeriveInput, type DerivedPlanting } from './planting-derive';
 export {
 	planSuccessions,
 	type Farm,

@@ -2,6 +2,7 @@ import { type DayNumber, weekdayOf } from './day-number';
 import { isoWeekOfDay, weekDateOfDay } from './iso-week';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
+import { sowingWindowWarning } from './sowing-window';
 
 export interface SeasonFacts {
 	lastSpringFrost: DayNumber;
@@ -24,6 +25,8 @@ export function successionWarnings(
 	season: SeasonFacts
 ): PlanningWarning[] {
 	const out: PlanningWarning[] = [];
+	const outside = sowingWindowWarning(variety, fieldDay);
+	if (outside) out.push(outside);
 	if (variety.frostTender && fieldDay < season.lastSpringFrost) {
 		out.push({
 			code: 'frost_before_last_spring',

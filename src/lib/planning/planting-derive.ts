@@ -4,14 +4,15 @@
  * authoritatively on save — the same function in both places.
  *
  * The succession planner works backwards from a first harvest; a grower editing the grid
- * sets the field date instead, so here first harvest = field date + effective days to
- * maturity. Effective days depend on the first-harvest date itself (short days, degree
- * days), so it is found by a short fixed-point walk over the same `effectiveDaysToMaturity`.
+ * sets the field date instead, so here the first harvest comes from the growth clock run
+ * forwards from the field date (`maturityFrom`): degree days and short days before the field
+ * date never count. The planner runs the same clock backwards, so both give the same dates.
  */
 import { checkBedConflicts, type BedConflict } from './bed-conflicts';
 import type { Bed, BedPlanting } from './bed-types';
 import { fromDayNumber, toDayNumber } from './day-number';
-import { effectiveDaysToMaturity, type EffectiveDtm } from './effective-dtm';
+import { maturityFrom, type EffectiveDtm } from './effective-dtm';
+import { cumulativeWeights } from './harvest-curve';
 import { formatWeekDate } from './iso-week';
 import { successionWarnings } from './plan-warnings';
 import { explainSeed } from './explain';
@@ -24,7 +25,6 @@ export interface DeriveFarm {
 	firstFallFrost: string;
 	latitude: number;
 	weeklyMeanTempF?: WeeklyMeanTempF;
-	shortDayAllowanceDays?: number;
 	shortDayThresholdHours?: number;
 }
 
@@ -36,6 +36,12 @@ export interface DeriveInput {
 	rows: number;
 	inRowSpacingIn: number;
 	seedsPerSpot: number;
+	/**
+	 * Days of harvest the planting keeps when it stops before its window ends (a plan ends the last
+	 * succession with the last week of demand): the stored last harvest − first harvest + 1. Absent
+	 * or not under the window: the whole window.
+	 */
+	harvestDays?: number | null;
 }
 
 export interface DerivedPlanting {
@@ -105,22 +111,22 @@ export function derivePlanting(
 	const field = toDayNumber(p.fieldDate, 'fieldDate');
 	const dtmCtx = {
 		latitude: farm.latitude,
-		shortDayAllowanceDays: farm.shortDayAllowanceDays ?? 14,
 		shortDayThresholdHours: farm.shortDayThresholdHours ?? 10,
 		gddWalkLimitDays: 365,
 		temps: ctx.temps
 	};
-	// Fixed point of first = field + dtm(first); a few steps settle it (the short-day rule
-	// adds a constant; degree days change slowly). If it cycles at a threshold, the later date stands.
-	let first = field + v.daysToMaturity;
-	let dtm = effectiveDaysToMaturity(v, first, dtmCtx);
-	for (let i = 0; i < 4 && field + dtm.days !== first; i++) {
-		first = Math.max(first, field + dtm.days);
-		dtm = effectiveDaysToMaturity(v, first, dtmCtx);
-	}
-	const last = first + v.harvestWindowDays - 1;
+	const dtm = maturityFrom(v, field, dtmCtx);
+	const first = field + dtm.days;
+	const H = v.harvestWindowDays;
+	const kept =
+		p.harvestDays != null && Number.isInteger(p.harvestDays) && p.harvestDays >= 1 && p.harvestDays < H
+			? p.harvestDays
+			: H;
+	const last = first + kept - 1;
 	const tray = p.method === 'transplant' ? field - (v.daysInTray ?? 0) : null;
-	const expectedYield = Math.round(p.lengthFt * v.yieldPerBedFoot * 100) / 100;
+	// The share of the window's yield picked by the last harvest (all of it unless the harvest stops early).
+	const share = kept === H ? 1 : cumulativeWeights(v.harvestCurve, H)[kept];
+	const expectedYield = Math.round(p.lengthFt * v.yieldPerBedFoot * share * 100) / 100;
 	const weeklyYield = Math.round((expectedYield / (v.harvestWindowDays / 7)) * 100) / 100;
 	const seedInput = seedInputOf(p, v);
 	const seed = seedNeed(seedInput);
@@ -161,7 +167,7 @@ export function derivePlanting(
 						label: 'effective days to maturity',
 						value: dtm.days,
 						unit: 'days',
-						formula: `${dtm.varietyDays} + ${dtm.allowanceDays} short-day allowance (day length ${dtm.dayLengthHours.toFixed(2)} h < ${dtm.thresholdHours} h at first harvest)`
+						formula: `${dtm.varietyDays} days of growth; days under ${dtm.thresholdHours + 2} h of daylight count for less, adding ${dtm.allowanceDays} (day length ${dtm.dayLengthHours.toFixed(2)} h at first harvest)`
 					}
 				: {
 						label: 'effective days to maturity',
@@ -177,7 +183,10 @@ export function derivePlanting(
 		{
 			label: 'last harvest',
 			value: formatWeekDate(fromDayNumber(last)),
-			formula: `first harvest + ${v.harvestWindowDays} − 1 days`
+			formula:
+				kept === H
+					? `first harvest + ${H} − 1 days`
+					: `first harvest + ${kept} − 1 days (the harvest stops before its ${H}-day window ends)`
 		}
 	];
 	if (tray !== null)

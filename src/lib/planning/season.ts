@@ -143,6 +143,12 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 				const q = (keptHere?.get(t.week) ?? 0) * fraction + (spill?.get(t.week) ?? 0);
 				if (q > 0) supplied.push({ week: t.week, quantity: q });
 			}
+			// A storage crop's kept harvest feeds later weeks from store: it counts whenever it is dug.
+			if (variety.storage && variety.storage.keepWeeks > 0 && keptHere) {
+				const inWeeks = new Set(weekly.map((t) => t.week));
+				for (const [week, q] of keptHere)
+					if (!inWeeks.has(week) && q > 0) supplied.push({ week, quantity: q * fraction });
+			}
 			// Two shares of one variety from the same week would otherwise plan under the same keys.
 			let keyPrefix = `${variety.id}@w${share.fromWeek ?? 1}`;
 			if (prefixes.has(keyPrefix)) keyPrefix += `.${i + 1}`;

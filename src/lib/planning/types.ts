@@ -42,8 +42,20 @@ export interface Variety {
 	seedsPerPacket?: number;
 	/** Extra seed margin (fraction) for this variety; falls back to options.seedMargin. */
 	margin?: number;
+	/**
+	 * The crop's earliest and latest field date in the year, "MM-DD" (both or neither; the window
+	 * may run over the new year). Outside it the grid warns and the planner proposes nothing.
+	 */
+	sowFrom?: string;
+	sowTo?: string;
 	/** How the yield spreads over the harvest window; default flat. */
 	harvestCurve?: HarvestCurve;
+	/**
+	 * A storage crop (garlic, storage onions, winter squash): harvested once and sold from store
+	 * for up to keepWeeks weeks, losing lossPerWeek (a fraction) of what is left each week. The
+	 * planner sizes one harvest to feed the demand weeks that follow it (storage-sizing.ts).
+	 */
+	storage?: { keepWeeks: number; lossPerWeek: number };
 }
 
 export type WarningCode =
@@ -61,7 +73,9 @@ export type WarningCode =
 	| 'not_placed'
 	| 'no_variety'
 	| 'rotation_conflict'
-	| 'split_across_beds';
+	| 'split_across_beds'
+	| 'outside_sowing_window'
+	| 'heat_in_growth';
 
 export interface PlanningWarning {
 	code: WarningCode;

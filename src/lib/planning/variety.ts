@@ -9,6 +9,7 @@ import {
 } from './errors';
 import type { Variety } from './types';
 import { validateCurve } from './harvest-curve';
+import { sowingWindowOf } from './sowing-window';
 
 /** Check a variety's plain data; throws PlanningInputError naming `variety.<field>`. */
 export function validateVariety(v: Variety): Variety {
@@ -37,6 +38,19 @@ export function validateVariety(v: Variety): Variety {
 	if (v.gddToMaturity !== undefined) requirePositive(f('gddToMaturity'), v.gddToMaturity);
 	if (v.margin !== undefined) requireNonNegative(f('margin'), v.margin);
 	if (v.harvestCurve !== undefined) validateCurve(v.harvestCurve, f('harvestCurve'));
+	if ((v.sowFrom === undefined) !== (v.sowTo === undefined))
+		throw new PlanningInputError(
+			f(v.sowFrom === undefined ? 'sowFrom' : 'sowTo'),
+			'is needed with the other end of the window'
+		);
+	sowingWindowOf(v);
+	if (v.storage !== undefined) {
+		if (v.storage === null || typeof v.storage !== 'object')
+			throw new PlanningInputError(f('storage'), 'must be an object');
+		requireNonNegativeInteger(f('storage.keepWeeks'), v.storage.keepWeeks);
+		if (requireNonNegative(f('storage.lossPerWeek'), v.storage.lossPerWeek) >= 1)
+			throw new PlanningInputError(f('storage.lossPerWeek'), 'must be a fraction under 1, e.g. 0.01 for 1 % a week');
+	}
 	return v;
 }
 

@@ -31,6 +31,23 @@ export interface DeriveRow {
 	rows: number;
 	inRowSpacingIn: number;
 	seedsPerSpot: number;
+	/** Days of harvest the stored planting keeps (see storedHarvestDays); absent for a new row. */
+	harvestDays?: number | null;
+}
+
+/**
+ * Days of harvest a stored planting keeps: last − first harvest + 1, so a planting whose plan
+ * stopped its harvest early keeps doing so when the grid or the server derives it again.
+ */
+export function storedHarvestDays(
+	firstHarvest: string | null | undefined,
+	lastHarvest: string | null | undefined
+): number | null {
+	if (!firstHarvest || !lastHarvest) return null;
+	const a = Date.parse(`${firstHarvest}T00:00:00Z`);
+	const b = Date.parse(`${lastHarvest}T00:00:00Z`);
+	if (!Number.isFinite(a) || !Number.isFinite(b) || b < a) return null;
+	return Math.round((b - a) / 86_400_000) + 1;
 }
 
 /** Derived figures, or the engine's complaint (field and message) when the row cannot be worked out. */

@@ -24,6 +24,10 @@ export async function listVarieties(farmId: number, conn: Knex = db()): Promise<
 			'c.base_temp_f',
 			'c.harvest_curve as crop_harvest_curve',
 			'c.harvest_cut_interval_days',
+			'c.sow_from',
+			'c.sow_to',
+			'c.storage_weeks',
+			'c.storage_loss_per_week',
 			'c.archived_at as crop_archived_at'
 		);
 	return rows.map((r) => ({
@@ -56,7 +60,11 @@ export async function listVarieties(farmId: number, conn: Knex = db()): Promise<
 		source: r.source ?? null,
 		ownHarvestCurve: r.harvest_curve ?? null,
 		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
-		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days)
+		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days),
+		sowFrom: r.sow_from ?? null,
+		sowTo: r.sow_to ?? null,
+		storageWeeks: r.storage_weeks === null ? null : Number(r.storage_weeks),
+		storageLossPerWeek: r.storage_loss_per_week === null ? null : Number(r.storage_loss_per_week)
 	}));
 }
 

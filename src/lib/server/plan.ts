@@ -6,6 +6,7 @@ import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
+import { ROTATION_LOOK_BACK_YEARS, previousFamiliesByBed, seasonPlanOptions } from '$lib/plan-options';
 import type { Knex } from 'knex';
 import { db } from './db';
 import * as farms from './farms';
@@ -68,7 +69,8 @@ function seasonPlantings(
 async function gatherInputs(farmId: number, season: Season) {
 	const seasonId = season.id;
 	const farm = await farms.get(farmId);
-	const [temps, varieties, bedList, demand, obstacles, otherSeasons] = await Promise.all([
+	const lookBack = `${Number(season.startsOn.slice(0, 4)) - ROTATION_LOOK_BACK_YEARS}${season.startsOn.slice(4)}`;
+	const [temps, varieties, bedList, demand, obstacles, otherSeasons, earlierInBeds] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
@@ -83,9 +85,24 @@ async function gatherInputs(farmId: number, season: Season) {
 			.whereNot('p.status', 'failed')
 			.where('p.first_harvest', '<=', season.endsOn)
 			.where('p.last_harvest', '>=', season.startsOn)
-			.select('p.id', 'p.variety_id', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest')
+			.select('p.id', 'p.variety_id', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest'),
+		// What each bed held in the years before the season, for rotation.
+		db()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where({ 'p.farm_id': farmId })
+			.whereNot('p.season_id', seasonId)
+			.whereNotNull('p.bed_id')
+			.whereNot('p.status', 'failed')
+			.where('p.field_date', '<', season.startsOn)
+			.where('p.field_date', '>=', lookBack)
+			.select<{ bed_id: number; family: string; field_date: string }[]>('p.bed_id', 'c.family', 'p.field_date')
 	]);
-	return { farm, temps, varieties, bedList, demand, obstacles, otherSeasons };
+	const previousFamilyByBed = previousFamiliesByBed(
+		earlierInBeds.map((p) => ({ bedId: String(p.bed_id), family: p.family, fieldDate: p.field_date })),
+		season.startsOn
+	);
+	return { farm, temps, varieties, bedList, demand, obstacles, otherSeasons, previousFamilyByBed, season };
 }
 
 /** Runs the engine over the season as it stands; writes nothing. */
@@ -102,7 +119,7 @@ function planFrom(
 	existing: ExistingPlanting[],
 	request: PlanRequest
 ): PlanPreview {
-	const { farm, temps, varieties, bedList, demand, obstacles, otherSeasons } = inputs;
+	const { farm, temps, varieties, bedList, demand, obstacles, otherSeasons, previousFamilyByBed, season } = inputs;
 	const engineVarieties = new Map(varieties.map((v) => [String(v.id), toEngineVariety(v)]));
 	const { targets, notes } = deriveTargetsWithNotes(demand);
 	const keptRows = existing.filter((p) => p.status !== 'planned');
@@ -162,13 +179,9 @@ function planFrom(
 					])
 				)
 			: undefined,
-		options: {
-			intervalWeeks: request.intervalWeeks,
-			margin: request.margin,
-			bedFootIncrement: farm.bedFootIncrement,
-			turnaroundDays: farm.turnaroundDays,
-			today: todayIn(farm.timeZone)
-		}
+		previousFamilyByBed,
+		// The same options the demo seed plans with (plan-options.ts).
+		options: seasonPlanOptions(farm, request, todayIn(farm.timeZone), Number(season.startsOn.slice(0, 4)))
 	});
 	for (const n of notes) plan.warnings.push({ code: 'unreachable_week', message: n.message });
 	return {

@@ -11,7 +11,7 @@ import {
 	toColumns,
 	type PlantingValues
 } from '$lib/plantings/fields';
-import { deriveRow, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
+import { deriveRow, storedHarvestDays, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
@@ -189,14 +189,16 @@ function buildRow(
 	values: PlantingValues,
 	variety: GridVariety | undefined,
 	ctx: GridContext,
-	prefix: string
+	prefix: string,
+	/** Days of harvest the stored planting keeps (an update); a new planting harvests its whole window. */
+	harvestDays: number | null = null
 ): { row?: Record<string, unknown>; errors: FieldErrors } {
 	const errors: FieldErrors = {};
 	if (!variety) errors[`${prefix}varietyId`] = "Choose one of this farm's varieties.";
 	if (values.bedId !== null && !ctx.beds.some((b) => b.id === values.bedId))
 		errors[`${prefix}bedId`] = "Choose one of this farm's beds.";
 	if (!variety || Object.keys(errors).length) return { errors };
-	const d = deriveRow(values, variety, ctx.farm);
+	const d = deriveRow({ ...values, harvestDays }, variety, ctx.farm);
 	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
 	const row = toColumns(values);
 	Object.assign(row, {
@@ -351,7 +353,8 @@ export async function update(
 			values,
 			ctx.varieties.find((v) => v.id === values.varietyId),
 			ctx,
-			''
+			'',
+			storedHarvestDays(cur.first_harvest, cur.last_harvest)
 		);
 		if (!built.row) return { kind: 'invalid', errors: built.errors } as const;
 		await trx('plantings')

@@ -1,6 +1,6 @@
 // What matters now in a season, for its overview: this week's work (or the next week that has
 // some), crops running short from this week on, plantings without a bed, and the plan's warnings.
-import { deriveRow } from '$lib/plantings/derive';
+import { deriveRow, storedHarvestDays } from '$lib/plantings/derive';
 import { addDays, isoWeek, weekStart } from '$lib/planning/iso-week';
 import type { PlantingView } from '$lib/types';
 import { todayIn } from '$lib/today';
@@ -91,7 +91,7 @@ export async function seasonOverview(farmId: number, season: Season): Promise<Se
 	for (const p of plantings) {
 		const v = varieties.get(p.varietyId);
 		if (!v || p.status === 'failed' || p.status === 'finished') continue;
-		const d = deriveRow(p, v, ctx.farm);
+		const d = deriveRow({ ...p, harvestDays: storedHarvestDays(p.firstHarvest, p.lastHarvest) }, v, ctx.farm);
 		const label = `${p.crop} · ${p.variety}, ${p.bed ? `${p.block} ${p.bed}` : 'not placed'}, field ${p.fieldDate}`;
 		if (!d.ok) warnings.push({ plantingId: p.id, label, message: d.message });
 		else for (const w of d.value.warnings) warnings.push({ plantingId: p.id, label, message: w.message });

@@ -15,6 +15,7 @@ export function newRow(values: RowValues): GridRow {
 		id: null,
 		version: 0,
 		values,
+		harvestDays: null,
 		derived: null,
 		deriveError: null,
 		conflicts: [],

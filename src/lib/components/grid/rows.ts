@@ -9,7 +9,7 @@ import {
 	type PlantingValues
 } from '$lib/plantings/fields';
 import type { PlantingView } from '$lib/types';
-import { deriveRow, type GridFarm, type GridVariety } from '$lib/plantings/derive';
+import { deriveRow, storedHarvestDays, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 
 /** A row's editable values: the planting's fields as the field table lists them. */
 export type RowValues = PlantingValues;
@@ -20,6 +20,8 @@ export interface GridRow {
 	id: number | null;
 	version: number;
 	values: RowValues;
+	/** Days of harvest the stored planting keeps (its plan may stop the harvest early); null for a new row. */
+	harvestDays: number | null;
 	derived: DerivedPlanting | null;
 	deriveError: string | null;
 	conflicts: BedConflict[];
@@ -37,7 +39,7 @@ export function valuesOf(p: PlantingView): RowValues {
 export function withDerived(row: GridRow, varieties: Map<number, GridVariety>, farm: GridFarm): GridRow {
 	const v = varieties.get(row.values.varietyId);
 	if (!v) return { ...row, derived: null, deriveError: 'Unknown variety.' };
-	const d = deriveRow(row.values, v, farm);
+	const d = deriveRow({ ...row.values, harvestDays: row.harvestDays }, v, farm);
 	return d.ok ? { ...row, derived: d.value, deriveError: null } : { ...row, derived: null, deriveError: d.message };
 }
 
@@ -48,6 +50,7 @@ export function rowFromView(p: PlantingView, varieties: Map<number, GridVariety>
 			id: p.id,
 			version: p.version,
 			values: valuesOf(p),
+			harvestDays: storedHarvestDays(p.firstHarvest, p.lastHarvest),
 			derived: null,
 			deriveError: null,
 			conflicts: [],
