@@ -48,7 +48,12 @@ export const DEMO_FARM = {
 	last_spring_frost: '2027-05-10',
 	first_fall_frost: '2027-10-05',
 	bed_foot_increment: 1,
-	turnaround_days: 7
+	turnaround_days: 7,
+	// Frost dates are 50 % normals; tender crops go out a week after the last spring frost; rotation
+	// keeps a family off a bed it held in the last three years.
+	frost_probability_pct: 50,
+	tender_days_after_frost: 7,
+	rotation_years: 3
 } as const;
 
 /** One password for all demo accounts, so a visitor can sign in as any role. */
@@ -1420,7 +1425,9 @@ export function demoEngineFarm(): Farm {
 		lastSpringFrost: DEMO_FARM.last_spring_frost,
 		firstFallFrost: DEMO_FARM.first_fall_frost,
 		latitude: DEMO_FARM.latitude,
-		weeklyMeanTempF
+		weeklyMeanTempF,
+		tenderDaysAfterFrost: DEMO_FARM.tender_days_after_frost,
+		frostProbabilityPct: DEMO_FARM.frost_probability_pct
 	};
 }
 
@@ -1503,7 +1510,7 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 	});
 	// Their families also count as what each bed held before the season, for rotation (the same rule
 	// as the owner's plan: plan-options.ts).
-	const previousFamilyByBed = previousFamiliesByBed(kept, `${DEMO_PLAN_YEAR}-01-01`);
+	const previousFamilyByBed = previousFamiliesByBed(kept, `${DEMO_PLAN_YEAR}-01-01`, DEMO_FARM.rotation_years);
 	return planSeason({
 		farm: demoEngineFarm(),
 		varieties,

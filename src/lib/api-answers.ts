@@ -1,6 +1,7 @@
-// The JSON the plantings API answers, shared by the routes that send it and the browser code that
-// reads it, so a change to one is a type error in the other.
+// The JSON the plantings and forecast API answer, shared by the routes that send it and the browser
+// code that reads it, so a change to one is a type error in the other. Types only.
 import type { PlantingView } from './types';
+import type { ForecastCrop, ForecastSeries, SeasonForecastRow } from './server/forecast';
 
 /** Any 4xx: a sentence for the user, and per field what is wrong (`plantings.3.fieldDate`). */
 export interface ApiErrorAnswer {
@@ -24,4 +25,20 @@ export interface PlantingSavedAnswer {
 export interface PlantingConflictAnswer extends ApiErrorAnswer {
 	current: PlantingView;
 	changedBy: string | null;
+}
+
+/** GET /api/seasons/{id}/forecast: one row per crop and week in [from, to]. */
+export interface ForecastAnswer {
+	season: { id: number; name: string };
+	from: string;
+	to: string;
+	weeks: string[];
+	currentWeek: string;
+	crops: ForecastCrop[];
+	rows: SeasonForecastRow[];
+}
+
+/** The same with `shape=series`: per crop, one array per figure across `weeks`. */
+export interface ForecastSeriesAnswer extends Omit<ForecastAnswer, 'rows'> {
+	series: ForecastSeries[];
 }

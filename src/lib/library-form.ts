@@ -16,6 +16,8 @@ export function cropFormValues(
 		cutIntervalDays: number | null;
 		storageWeeks: number | null;
 		storageLossPct: number | null;
+		sowFrom?: string | null;
+		sowTo?: string | null;
 		price: number | null;
 		source: string | null;
 	},

@@ -40,13 +40,15 @@ export function seasonPlanOptions(
 
 /**
  * The families each bed held before the season: plantings in a bed that went into the field in
- * the ROTATION_LOOK_BACK_YEARS years before `seasonStart` (last autumn's garlic included).
+ * the `years` years before `seasonStart` (the farm's rotation look-back, default
+ * ROTATION_LOOK_BACK_YEARS; last autumn's garlic included).
  */
 export function previousFamiliesByBed(
 	plantings: readonly { bedId: string | null; family?: string | null; fieldDate: string }[],
-	seasonStart: string
+	seasonStart: string,
+	years: number = ROTATION_LOOK_BACK_YEARS
 ): Record<string, string[]> {
-	const from = `${String(Number(seasonStart.slice(0, 4)) - ROTATION_LOOK_BACK_YEARS).padStart(4, '0')}${seasonStart.slice(4)}`;
+	const from = `${String(Number(seasonStart.slice(0, 4)) - years).padStart(4, '0')}${seasonStart.slice(4)}`;
 	const out: Record<string, string[]> = {};
 	for (const p of plantings) {
 		if (p.bedId === null || !p.family || p.fieldDate >= seasonStart || p.fieldDate < from) continue;

@@ -92,7 +92,10 @@ describe('crops', () => {
 		[{ harvestUnit: 'bushel' }, 'harvestUnit', 'Harvest unit: choose lb or bunch or head or each.'],
 		[{ baseTempF: 'warm' }, 'baseTempF', 'Base temperature must be a number.'],
 		[{ heatLimitF: '300' }, 'heatLimitF', 'Heat limit must be at most 120.'],
-		[{ family: '<script>' }, 'family', 'Botanical family may not contain < or >.']
+		[{ family: '<script>' }, 'family', 'Botanical family may not contain < or >.'],
+		[{ sowFrom: '13-01', sowTo: '12-15' }, 'sowFrom', 'Earliest field date must be a month and day as MM-DD'],
+		[{ sowFrom: '10-01', sowTo: '02-30' }, 'sowTo', 'Latest field date must be a month and day as MM-DD'],
+		[{ sowFrom: '10-01', sowTo: '' }, 'sowTo', 'Give both the earliest and the latest field date, or neither.']
 	];
 	for (const [change, field, message] of bad) {
 		it(`names ${field} for ${JSON.stringify(change)}, keeps what was typed and writes nothing`, async () => {
@@ -124,10 +127,15 @@ describe('crops', () => {
 			harvestCurve: 'cuts',
 			cutIntervalDays: '21',
 			storageWeeks: '30',
-			storageLossPct: '2'
+			storageLossPct: '2',
+			sowFrom: '03-15',
+			sowTo: '07-31'
 		});
 		expect(res.status).toBe(200);
 		const row = await testDb()('crops').where({ id }).first();
+		// The crop's field dates, as typed (month-day; the planner keeps its sowings inside them).
+		expect([row.sow_from, row.sow_to]).toEqual(['03-15', '07-31']);
+		expect(await html(await owner.get(`/crops/${id}`))).toContain('value="07-31"');
 		expect(Number(row.heat_limit_f)).toBe(85);
 		expect(row.price_cents_per_unit).toBe(300);
 		expect([

@@ -288,3 +288,52 @@ describe('read with SheetJS (a second, independent reader)', () => {
 		}
 	});
 });
+
+describe('one planned supply', () => {
+	it("the demo season's Weekly tasks harvest and Forecast sheet agree for every crop and week", async () => {
+		// Both sheets come from the one planned supply (the variety's yield spread by its harvest curve):
+		// summing the Harvest tasks of a crop and week must give that week's Planned harvest. Storage crops
+		// are left out: the Forecast sheet shows them as the store gives them, the tasks when they are dug.
+		const { res, bytes: demoBytes } = await download(await signedIn(demo.owner, demo.password), demoSeasonId);
+		expect(res.status).toBe(200);
+		const book = await loadWorkbook(demoBytes);
+		const read = (name: string): Record<string, unknown>[] => {
+			const ws = book.getWorksheet(name)!;
+			const head = (ws.getRow(1).values as unknown[]).slice(1) as string[];
+			const out: Record<string, unknown>[] = [];
+			for (let n = 2; n <= ws.rowCount; n++) {
+				const vals = ws.getRow(n).values as unknown[];
+				out.push(Object.fromEntries(head.map((h, i) => [h, vals[i + 1] ?? null])));
+			}
+			return out;
+		};
+		const stored = new Set(
+			(await testDb()('crops').whereNotNull('storage_weeks').where('storage_weeks', '>', 0).select('name')).map(
+				(c) => c.name
+			)
+		);
+		const tasks = new Map<string, { sum: number; n: number }>();
+		for (const r of read('Weekly tasks')) {
+			if (r.Task !== 'Harvest' || stored.has(String(r.Crop))) continue;
+			const k = `${r.Crop} ${r['Week (ISO)']}`;
+			const t = tasks.get(k) ?? { sum: 0, n: 0 };
+			t.sum += Number(r.Quantity);
+			t.n++;
+			tasks.set(k, t);
+		}
+		const forecastRows = read('Forecast').filter(
+			(r) => !stored.has(String(r.Crop)) && Number(r['Planned harvest']) > 0
+		);
+		expect(forecastRows.length).toBeGreaterThan(100);
+		for (const r of forecastRows) {
+			const k = `${r.Crop} ${r['Week (ISO)']}`;
+			const t = tasks.get(k);
+			expect(t, k).toBeDefined();
+			// Each task's quantity is rounded to 0.01, as is the sheet's sum: at most half a hundredth apart each.
+			expect(Math.abs(t!.sum - Number(r['Planned harvest'])), k).toBeLessThanOrEqual(0.005 * (t!.n + 1) + 1e-9);
+			tasks.delete(k);
+		}
+		// No harvest task in a week the Forecast sheet shows nothing for.
+		expect([...tasks.entries()].filter(([, t]) => t.sum > 0.01).map(([k]) => k)).toEqual([]);
+	});
+});

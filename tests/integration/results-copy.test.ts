@@ -108,6 +108,8 @@ describe('copy a season into the next year', () => {
 	let frosty: number;
 	beforeAll(async () => {
 		copyFarm = await harvestFarm('copy');
+		// Tender crops out on the frost date itself (the farm setting; a new farm waits 7 days).
+		await testDb()('farms').where({ id: copyFarm.farmId }).update({ tender_days_after_frost: 0 });
 		src = await addSeason(copyFarm.farmId, 2026);
 		// Carrots (Apiaceae) held bed N1 all year.
 		await addPlanting(copyFarm.farmId, src, {

@@ -217,8 +217,17 @@ describe('demo farm seed', () => {
 		expect(garlicShort.length).toBeGreaterThan(0);
 		expect(garlicShort.every((s) => s.week >= '2027-W30')).toBe(true);
 		expect(plan.warnings).toContainEqual(expect.objectContaining({ code: 'unreachable_week', cropId: 'Garlic' }));
-		// Every other crop's targets are met (some plantings may still wait for a bed).
-		expect(plan.shortfall.filter((s) => s.crop !== 'Garlic')).toEqual([]);
+		// Every other crop's targets are met, but for early weeks the plan reports out of reach (some
+		// plantings may still wait for a bed): a sowing for them would go into April weeks colder than
+		// the crop's base temperature.
+		const unreachable = new Set(
+			plan.warnings
+				.filter((w) => w.code === 'unreachable_week')
+				.flatMap((w) => (w.weeks ?? []).map((wk) => `${w.cropId}|${wk}`))
+		);
+		const short = plan.shortfall.filter((s) => s.crop !== 'Garlic' && !unreachable.has(`${s.crop}|${s.week}`));
+		expect(short).toEqual([]);
+		expect(plan.shortfall.filter((s) => s.crop !== 'Garlic').every((s) => s.week < '2027-W24')).toBe(true);
 	});
 
 	it('never puts two plantings on the same bed-feet at the same time (turnaround included)', async () => {

@@ -45,6 +45,24 @@ describe('farm settings', () => {
 		expect(farm.bed_foot_increment).toBe(10);
 	});
 
+	it('saves the frost probability, the days tender crops wait after frost and the rotation look-back', async () => {
+		const farm0 = await testDb()('farms').where({ id: farmId }).first();
+		// A new farm starts at 50 %, 7 days (common practice: 1–2 weeks after the average last frost) and 3 years.
+		expect([farm0.frost_probability_pct, farm0.tender_days_after_frost, farm0.rotation_years]).toEqual([50, 7, 3]);
+		const res = await owner.postForm('/settings?/farm', {
+			...farmFields,
+			frostProbabilityPct: '30',
+			tenderDaysAfterFrost: '14',
+			rotationYears: '4'
+		});
+		expect(res.status).toBe(200);
+		const farm = await testDb()('farms').where({ id: farmId }).first();
+		expect([farm.frost_probability_pct, farm.tender_days_after_frost, farm.rotation_years]).toEqual([30, 14, 4]);
+		// The settings page shows them back.
+		const page = await html(await owner.get('/settings'));
+		expect(page).toMatch(/name="tenderDaysAfterFrost"[^>]*value="14"|value="14"[^>]*name="tenderDaysAfterFrost"/);
+	});
+
 	it('saves the date style, and a form without one keeps it', async () => {
 		expect((await owner.postForm('/settings?/farm', { ...farmFields, dateLocale: 'de-DE' })).status).toBe(200);
 		expect((await testDb()('farms').where({ id: farmId }).first('date_locale')).date_locale).toBe('de-DE');
@@ -60,7 +78,20 @@ describe('farm settings', () => {
 		[{ bedFootIncrement: '2.5' }, 'bedFootIncrement', 'Bed-foot increment must be a whole number.'],
 		[{ name: '<b>bold</b>' }, 'name', 'Farm name may not contain'],
 		[{ dateLocale: 'en_US; drop' }, 'dateLocale', 'Date style must be a locale tag'],
-		[{ dateLocale: 'x'.repeat(40) }, 'dateLocale', 'Date style must be a locale tag']
+		[{ dateLocale: 'x'.repeat(40) }, 'dateLocale', 'Date style must be a locale tag'],
+		[{ frostProbabilityPct: '95' }, 'frostProbabilityPct', 'Frost date probability must be at most 90.'],
+		[
+			{ tenderDaysAfterFrost: '-1' },
+			'tenderDaysAfterFrost',
+			'Tender crops out after the last frost must be at least 0.'
+		],
+		[
+			{ tenderDaysAfterFrost: 'soon' },
+			'tenderDaysAfterFrost',
+			'Tender crops out after the last frost must be a number.'
+		],
+		[{ rotationYears: '2.5' }, 'rotationYears', 'Rotation look-back must be a whole number.'],
+		[{ rotationYears: '0' }, 'rotationYears', 'Rotation look-back must be at least 1.']
 	];
 	for (const [change, field, message] of bad) {
 		it(`names ${field} for ${JSON.stringify(change)} and keeps the farm as it was`, async () => {

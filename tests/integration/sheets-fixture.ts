@@ -189,7 +189,7 @@ export async function makeSheetFarm(timeZone = 'America/Chicago'): Promise<Sheet
 		field_date: '2027-03-15',
 		first_harvest: '2027-05-24',
 		last_harvest: '2027-06-06',
-		expected_yield: 70,
+		expected_yield: 60,
 		status: 'sown'
 	});
 	const [shareId] = await db('share_sizes').insert({
@@ -238,8 +238,9 @@ export const expected = {
 	trayCells: 147,
 	trayTrays: 3,
 	trayGrams: 0.19,
-	// Carrot harvest: 70 lb over 14 days (24 May – 6 Jun) = 5 lb a day; W21 holds 7 of them = 35 lb.
-	harvestWeekLb: 35,
+	// Carrot harvest: 40 ft × the variety's 1.5 lb per ft (the one planned-supply rule) = 60 lb over 14 days
+	// (24 May – 6 Jun) = 4.29 lb a day; W21 holds 7 of them = 30 lb.
+	harvestWeekLb: 30,
 	// Demand: Test box 10 members × 1.5 lb = 15 lb; market 8 lb.
 	boxLb: 15,
 	marketLb: 8

@@ -16,6 +16,7 @@
  *   with harvests (an unfinished planting would pull it down); observed days to maturity = the
  *   mean of its plantings' actual days, rounded to a whole day. Each comes with its count.
  */
+import type { HarvestCurve } from './harvest-curve';
 import { daysBetween, isoWeek, weekStart } from './iso-week';
 import { forecast } from './forecast';
 import { PlanningInputError } from './errors';
@@ -27,6 +28,9 @@ export interface ActualsPlanting {
 	bedFeet: number;
 	/** Planned harvest units per bed-foot over the whole window. */
 	yieldPerBedFoot: number;
+	/** How the yield spreads over the window (default flat), and the full window when the dates cut it short. */
+	curve?: HarvestCurve;
+	windowDays?: number;
 	fieldDate: string;
 	firstHarvest: string;
 	lastHarvest: string;
@@ -129,7 +133,9 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 					firstHarvest: p.firstHarvest,
 					lastHarvest: p.lastHarvest,
 					bedFeet: p.bedFeet,
-					yieldPerBedFoot: p.yieldPerBedFoot
+					yieldPerBedFoot: p.yieldPerBedFoot,
+					curve: p.curve,
+					windowDays: p.windowDays
 				}
 			],
 			[]
@@ -142,7 +148,7 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 			crop: p.crop,
 			variety: p.variety,
 			bedFeet: p.bedFeet,
-			forecastTotal: p.bedFeet * p.yieldPerBedFoot,
+			forecastTotal: rows.reduce((n, r) => n + r.supply, 0),
 			forecastSoFar: soFar,
 			logged,
 			pctOfForecast: soFar > 0 ? (logged / soFar) * 100 : null,
@@ -159,7 +165,9 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 			firstHarvest: p.firstHarvest,
 			lastHarvest: p.lastHarvest,
 			bedFeet: p.bedFeet,
-			yieldPerBedFoot: p.yieldPerBedFoot
+			yieldPerBedFoot: p.yieldPerBedFoot,
+			curve: p.curve,
+			windowDays: p.windowDays
 		})),
 		[]
 	);

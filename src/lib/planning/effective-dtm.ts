@@ -72,8 +72,31 @@ function dayLengthAt(latitude: number, doy: number): number {
 	return h;
 }
 
+// The day's growth rate by day number for one latitude and threshold (the last asked for): the
+// planner's walks ask for the same days for every candidate, and working out each one's day of
+// the year was most of a plan's time.
+const RATE_SPAN = 1 << 14;
+let rateLat = NaN;
+let rateThreshold = NaN;
+let rateFrom = 0;
+let rateTable = new Float64Array(0);
+
 function rateOn(day: DayNumber, ctx: DtmContext): number {
-	return shortDayRate(dayLengthAt(ctx.latitude, dayOfYearOfDay(day)), ctx.shortDayThresholdHours);
+	if (
+		ctx.latitude !== rateLat ||
+		ctx.shortDayThresholdHours !== rateThreshold ||
+		day < rateFrom ||
+		day >= rateFrom + RATE_SPAN
+	) {
+		rateLat = ctx.latitude;
+		rateThreshold = ctx.shortDayThresholdHours;
+		rateFrom = day - (RATE_SPAN >> 1);
+		rateTable = new Float64Array(RATE_SPAN).fill(NaN);
+	}
+	const i = day - rateFrom;
+	let r = rateTable[i];
+	if (r !== r) r = rateTable[i] = shortDayRate(dayLengthAt(rateLat, dayOfYearOfDay(day)), rateThreshold);
+	return r;
 }
 
 /** An empty record for effectiveDaysInto to fill. */

@@ -349,6 +349,6 @@ function rotationNote(key: string, family: string | undefined, bedId: string): P
 	return {
 		plantingKey: key,
 		code: 'rotation_conflict',
-		message: `Bed ${bedId} held ${family} last season; no other bed had room.`
+		message: `Bed ${bedId} held ${family} within the rotation look-back; no other bed had room.`
 	};
 }

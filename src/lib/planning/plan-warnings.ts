@@ -1,13 +1,65 @@
-import { type DayNumber, weekdayOf } from './day-number';
+import { type DayNumber, civilFromDays, daysFromCivil, weekdayOf, yearOfDay } from './day-number';
+import { requireNonNegativeInteger } from './errors';
 import { isoWeekOfDay, weekDateOfDay } from './iso-week';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
-import { sowingWindowWarning } from './sowing-window';
+import { sowingWindowWarning, tooColdToSow } from './sowing-window';
 
 export interface SeasonFacts {
+	/**
+	 * The farm's frost dates: climate normals, so only their month and day count. Each planting is
+	 * checked against them in its own year (a 2028 planting against 2028's dates).
+	 */
 	lastSpringFrost: DayNumber;
 	firstFallFrost: DayNumber;
+	/** Days after the last spring frost that frost-tender crops go out. Default 0. */
+	tenderDaysAfterFrost?: number;
+	/** The probability the frost dates stand for (e.g. 50: one year in two frosts later in spring / earlier in autumn). */
+	frostProbabilityPct?: number;
 	temps?: TempLookup;
+}
+
+/** The same month and day as `normal` in `year` (29 February → 28 February when `year` has none). */
+export function sameMonthDay(year: number, normal: DayNumber): DayNumber {
+	const { month, day } = civilFromDays(normal);
+	if (month === 2 && day === 29) {
+		const feb29 = daysFromCivil(year, 2, 29);
+		return civilFromDays(feb29).month === 2 ? feb29 : feb29 - 1;
+	}
+	return daysFromCivil(year, month, day);
+}
+
+/** The farm's days after the last spring frost for tender crops (default 0), checked. */
+export function tenderDaysOf(days: number | undefined): number {
+	return days === undefined ? 0 : requireNonNegativeInteger('farm.tenderDaysAfterFrost', days);
+}
+
+/**
+ * A tender crop's first field day in each year: the last spring frost (a normal: its month and day)
+ * of that year plus `after` days. Memoised for the year asked last (a plan asks one year over and over).
+ */
+export function tenderFieldStart(lastSpringFrost: DayNumber, after: number): (year: number) => DayNumber {
+	let y = NaN;
+	let d = 0;
+	return (year) => {
+		if (year !== y) {
+			y = year;
+			d = sameMonthDay(year, lastSpringFrost) + after;
+		}
+		return d;
+	};
+}
+
+/** The frost dates a planting with this field date is checked against: its year's spring, the first autumn after it. */
+export function frostDatesFor(
+	fieldDay: DayNumber,
+	season: SeasonFacts
+): { lastSpring: DayNumber; firstFall: DayNumber } {
+	const year = yearOfDay(fieldDay);
+	const lastSpring = sameMonthDay(year, season.lastSpringFrost);
+	let firstFall = sameMonthDay(year, season.firstFallFrost);
+	if (firstFall < fieldDay) firstFall = sameMonthDay(year + 1, season.firstFallFrost);
+	return { lastSpring, firstFall };
 }
 
 /**
@@ -27,19 +79,49 @@ export function successionWarnings(
 	const out: PlanningWarning[] = [];
 	const outside = sowingWindowWarning(variety, fieldDay);
 	if (outside) out.push(outside);
-	if (variety.frostTender && fieldDay < season.lastSpringFrost) {
+	const cold = tooColdToSow(variety, fieldDay, season.temps);
+	if (cold !== null)
 		out.push({
-			code: 'frost_before_last_spring',
-			message: `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, before the last spring frost (${weekDateOfDay(season.lastSpringFrost)}).`
+			code: 'too_cold_to_sow',
+			message: `${variety.method === 'direct' ? 'Sown' : 'Set out'} on ${weekDateOfDay(fieldDay)}, when the weekly mean (${cold} °F) is below this crop's base temperature of ${variety.baseTempF} °F: too cold for it to come up or take; sow later.`
 		});
-	}
-	if (variety.frostTender && lastHarvest > season.firstFallFrost) {
-		out.push({
-			code: 'frost_after_first_fall',
-			message: `Frost-tender crop is still harvesting on ${weekDateOfDay(lastHarvest)}, after the first fall frost (${weekDateOfDay(season.firstFallFrost)}).`
-		});
+	if (variety.frostTender) {
+		const { lastSpring, firstFall } = frostDatesFor(fieldDay, season);
+		const after = season.tenderDaysAfterFrost ?? 0;
+		const odds = season.frostProbabilityPct === undefined ? '' : `, ${season.frostProbabilityPct} % normal`;
+		const dated = (d: DayNumber) => `${weekDateOfDay(d)} ${yearOfDay(d)}`;
+		if (fieldDay < lastSpring + after) {
+			out.push({
+				code: 'frost_before_last_spring',
+				message:
+					after > 0
+						? `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, earlier than ${after} days after the last spring frost (${dated(lastSpring)}${odds}): not before ${weekDateOfDay(lastSpring + after)}.`
+						: `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, before the last spring frost (${dated(lastSpring)}${odds}).`
+			});
+		}
+		if (lastHarvest > firstFall) {
+			out.push({
+				code: 'frost_after_first_fall',
+				message: `Frost-tender crop is still harvesting on ${weekDateOfDay(lastHarvest)}, after the first fall frost (${dated(firstFall)}${odds}).`
+			});
+		}
 	}
 	if (variety.heatLimitF !== undefined && season.temps) {
+		// Germination and growth: a bolting crop sown (or set out) into hot weeks bolts or fails to
+		// come up before any harvest (common practice, no published source: spinach and lettuce
+		// germinate poorly and bolt in hot weather). Weeks from the field date to the day before first harvest.
+		const growing: string[] = [];
+		for (let monday = fieldDay - weekdayOf(fieldDay) + 1; monday < firstHarvest; monday += 7) {
+			const mean = season.temps(monday);
+			if (mean !== undefined && mean > variety.heatLimitF) growing.push(isoWeekOfDay(monday));
+		}
+		if (growing.length > 0) {
+			out.push({
+				code: 'heat_in_growth',
+				message: `${variety.method === 'direct' ? 'Sown' : 'Set out'} into ${growing.join(', ')}, when the weekly mean is above this crop's heat limit of ${variety.heatLimitF} °F: it may not come up well, or bolt before harvest.`,
+				weeks: growing
+			});
+		}
 		const hot: string[] = [];
 		for (let monday = firstHarvest - weekdayOf(firstHarvest) + 1; monday <= lastHarvest; monday += 7) {
 			const mean = season.temps(monday);

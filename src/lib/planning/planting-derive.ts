@@ -25,6 +25,10 @@ export interface DeriveFarm {
 	firstFallFrost: string;
 	latitude: number;
 	weeklyMeanTempF?: WeeklyMeanTempF;
+	/** Days after the last spring frost that frost-tender crops go out. Default 0. */
+	tenderDaysAfterFrost?: number;
+	/** The probability the frost dates stand for, percent. */
+	frostProbabilityPct?: number;
 	shortDayThresholdHours?: number;
 }
 
@@ -135,6 +139,8 @@ export function derivePlanting(
 		...successionWarnings(v, field, first, last, {
 			lastSpringFrost: ctx.frost.last,
 			firstFallFrost: ctx.frost.first,
+			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+			frostProbabilityPct: farm.frostProbabilityPct,
 			temps: ctx.temps
 		})
 	];

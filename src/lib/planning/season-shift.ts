@@ -61,6 +61,8 @@ export function sameDayIn(year: number, date: string): string {
 export interface CheckFarm {
 	lastSpringFrost: string;
 	firstFallFrost: string;
+	tenderDaysAfterFrost?: number;
+	frostProbabilityPct?: number;
 	weeklyMeanTempF?: WeeklyMeanTempF;
 }
 
@@ -84,6 +86,8 @@ export function frostHeatChecks(
 		{
 			lastSpringFrost: toDayNumber(sameDayIn(year, farm.lastSpringFrost)),
 			firstFallFrost: toDayNumber(sameDayIn(year, farm.firstFallFrost)),
+			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+			frostProbabilityPct: farm.frostProbabilityPct,
 			temps
 		}
 	);

@@ -301,6 +301,8 @@ export function planSeason(input: SeasonPlanInput): SeasonPlan {
 			: {
 					lastSpringFrost: toDayNumber(input.farm.lastSpringFrost),
 					firstFallFrost: toDayNumber(input.farm.firstFallFrost),
+					tenderDaysAfterFrost: input.farm.tenderDaysAfterFrost,
+					frostProbabilityPct: input.farm.frostProbabilityPct,
 					temps
 				};
 	// A succession's own warnings: the days-to-maturity ones, then its frost and heat ones.

@@ -5,6 +5,7 @@
  */
 import { PlanningInputError } from './errors';
 import { type DayNumber, civilFromDays, fromDayNumber } from './day-number';
+import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
 
 const MONTH_DAY = /^(\d{2})-(\d{2})$/;
@@ -31,6 +32,20 @@ export function inMonthDayWindow(day: DayNumber, from: number, to: number): bool
 export function sowingWindowOf(v: Variety): { from: number; to: number } | null {
 	if (v.sowFrom === undefined || v.sowTo === undefined) return null;
 	return { from: monthDayValue(v.sowFrom, 'variety.sowFrom'), to: monthDayValue(v.sowTo, 'variety.sowTo') };
+}
+
+/**
+ * Whether the field date's week is too cold for the crop: its weekly mean below the crop's base
+ * temperature. Only for a crop without a grower's window (the window, when given, decides: garlic
+ * goes in as the ground cools). The weekly mean air temperature stands for the soil's (common
+ * practice, from memory: shallow soil follows the air within a few degrees); under the base a seed
+ * barely comes up — Knott's Handbook (after Harrington & Minges 1954): parsnip 172 days to emerge at
+ * 32 °F, 57 at 41 °F; carrot 51 at 41 °F.
+ */
+export function tooColdToSow(v: Variety, fieldDay: DayNumber, temps: TempLookup | undefined): number | null {
+	if (!temps || v.baseTempF === undefined || (v.sowFrom !== undefined && v.sowTo !== undefined)) return null;
+	const mean = temps(fieldDay);
+	return mean !== undefined && mean < v.baseTempF ? mean : null;
 }
 
 /** The warning for a field date outside the crop's window, if it is. */

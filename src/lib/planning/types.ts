@@ -75,6 +75,7 @@ export type WarningCode =
 	| 'rotation_conflict'
 	| 'split_across_beds'
 	| 'outside_sowing_window'
+	| 'too_cold_to_sow'
 	| 'heat_in_growth';
 
 export interface PlanningWarning {

@@ -174,3 +174,16 @@ export function fieldErrors(error: z.ZodError): FieldErrors {
 	}
 	return out;
 }
+
+const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/** MM-DD: a day that every (leap) year has. */
+export function monthDaySchema(label: string) {
+	return z.string().refine((v) => {
+		const m = /^(\d{2})-(\d{2})$/.exec(v.trim());
+		if (!m) return false;
+		const month = Number(m[1]);
+		const day = Number(m[2]);
+		return month >= 1 && month <= 12 && day >= 1 && day <= DAYS_IN_MONTH[month - 1];
+	}, `${label} must be a month and day as MM-DD, e.g. 10-01.`);
+}

@@ -121,5 +121,5 @@ export function measuredFields<T extends Record<string, FieldSpec>>(fields: T, c
 }
 
 /** The crop and variety forms as this farm types them; what they give back is in canonical units. */
-export const cropSchemaFor = (ctx: UnitContext) => schemaOf(measuredFields(cropFields, ctx));
+export const cropSchemaFor = (ctx: UnitContext) => withSowRule(schemaOf(measuredFields(cropFields, ctx)));
 export const varietySchemaFor = (ctx: UnitContext) => withTrayRule(schemaOf(measuredFields(varietyFields, ctx)));

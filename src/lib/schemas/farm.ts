@@ -69,7 +69,11 @@ export const farmSettingsSchemaFor = (system: UnitSystem) =>
 			lastSpringFrost: isoDate('Last spring frost'),
 			firstFallFrost: isoDate('First fall frost'),
 			bedFootIncrement: lengthStep(system),
-			turnaroundDays: numberField('Bed turnaround', 0, 60, { int: true })
+			turnaroundDays: numberField('Bed turnaround', 0, 60, { int: true }),
+			// Optional so older forms and imports keep the farm's choice.
+			frostProbabilityPct: numberField('Frost date probability', 10, 90, { int: true }).optional(),
+			tenderDaysAfterFrost: numberField('Tender crops out after the last frost', 0, 60, { int: true }).optional(),
+			rotationYears: numberField('Rotation look-back', 1, 10, { int: true }).optional()
 		})
 		.refine((v) => v.lastSpringFrost < v.firstFallFrost, {
 			message: 'First fall frost must come after the last spring frost.',

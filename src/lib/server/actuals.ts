@@ -3,6 +3,7 @@
 import { actualsAgainstPlan, isoWeek, MIN_PLANTINGS_FOR_FIGURES, type ActualsResult } from '$lib/planning';
 import { db } from './db';
 import { farmToday } from './harvests';
+import { curveOf } from './crops';
 
 export interface ResultNames {
 	crops: Record<string, { name: string; family: string; unit: string }>;
@@ -37,6 +38,7 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 	const [plantings, harvests, varieties, changes] = await Promise.all([
 		db()('plantings as p')
 			.join('varieties as v', 'v.id', 'p.variety_id')
+			.join('crops as c', 'c.id', 'v.crop_id')
 			.leftJoin('beds as b', 'b.id', 'p.bed_id')
 			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 			// A failed planting gave nothing by definition; the forecast page leaves it out too.
@@ -46,8 +48,11 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 				'p.variety_id',
 				'v.crop_id',
 				'p.length_ft',
-				'p.expected_yield',
 				'v.yield_per_bed_foot',
+				'v.harvest_window_days',
+				'v.harvest_curve',
+				'c.harvest_curve as crop_harvest_curve',
+				'c.harvest_cut_interval_days',
 				'p.field_date',
 				'p.first_harvest',
 				'p.last_harvest',
@@ -87,10 +92,11 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 			crop: String(p.crop_id),
 			variety: String(p.variety_id),
 			bedFeet: Number(p.length_ft),
-			// As planned: the yield stored with the planting when it was planned, so taking over a
-			// variety's observed figure changes future plans, not this season's forecast.
-			yieldPerBedFoot:
-				Number(p.length_ft) > 0 ? Number(p.expected_yield) / Number(p.length_ft) : Number(p.yield_per_bed_foot),
+			// The one planned supply (planned-supply.ts): the variety's current yield, window and curve,
+			// as on the Forecast page, the crew sheets and the workbook.
+			curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days),
+			windowDays: Number(p.harvest_window_days),
+			yieldPerBedFoot: Number(p.yield_per_bed_foot),
 			fieldDate: p.field_date,
 			firstHarvest: p.first_harvest,
 			lastHarvest: p.last_harvest,

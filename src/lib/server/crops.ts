@@ -101,6 +101,9 @@ export interface CropView {
 	harvestCurve: CropInput['harvestCurve'];
 	cutIntervalDays: number | null;
 	storageWeeks: number | null;
+	/** Earliest and latest field date in the year, MM-DD, or null. */
+	sowFrom: string | null;
+	sowTo: string | null;
 	/** Fraction lost each week in store, or null. */
 	storageLossPct: number | null;
 	/** Dollars per harvest unit, or null when unknown. */
@@ -125,6 +128,8 @@ type CropRow = {
 	harvest_cut_interval_days: number | null;
 	storage_weeks: number | null;
 	storage_loss_per_week: string | number | null;
+	sow_from: string | null;
+	sow_to: string | null;
 };
 
 function toCrop(r: CropRow, varieties: VarietyView[]): CropView {
@@ -139,6 +144,8 @@ function toCrop(r: CropRow, varieties: VarietyView[]): CropView {
 		harvestCurve: shapeOf(r.harvest_curve),
 		cutIntervalDays: r.harvest_cut_interval_days,
 		storageWeeks: r.storage_weeks,
+		sowFrom: r.sow_from ?? null,
+		sowTo: r.sow_to ?? null,
 		storageLossPct: r.storage_loss_per_week === null ? null : Number(r.storage_loss_per_week),
 		price: r.price_cents_per_unit === null ? null : r.price_cents_per_unit / 100,
 		source: r.source,
@@ -180,6 +187,13 @@ function isDuplicate(e: unknown): boolean {
 	return typeof e === 'object' && e !== null && (e as { code?: string }).code === 'ER_DUP_ENTRY';
 }
 
+/** What a starter crop leaves at its default. */
+const STARTER_CROP_EXTRAS: Pick<CropInput, 'harvestCurve' | 'cutIntervalDays' | 'storageWeeks' | 'storageLossPct'> &
+	Pick<CropInput, 'sowFrom' | 'sowTo'> = {
+	...{ harvestCurve: 'flat', cutIntervalDays: null, storageWeeks: null, storageLossPct: null },
+	...{ sowFrom: null, sowTo: null }
+};
+
 function cropColumns(input: CropInput) {
 	return {
 		name: input.name,
@@ -193,6 +207,8 @@ function cropColumns(input: CropInput) {
 		harvest_curve: input.harvestCurve,
 		harvest_cut_interval_days: input.cutIntervalDays,
 		storage_weeks: input.storageWeeks,
+		sow_from: input.sowFrom,
+		sow_to: input.sowTo,
 		storage_loss_per_week: input.storageLossPct
 	};
 }
@@ -363,11 +379,7 @@ export async function addStarterCrops(farmId: number, picked: StarterCrop[]): Pr
 				continue;
 			}
 			const { key: _key, varieties, ...crop } = c;
-			const cropId = await createCrop(
-				farmId,
-				{ harvestCurve: 'flat', cutIntervalDays: null, storageWeeks: null, storageLossPct: null, ...crop, price: null },
-				trx
-			);
+			const cropId = await createCrop(farmId, { ...STARTER_CROP_EXTRAS, ...crop, price: null }, trx);
 			for (const sv of varieties) {
 				await createVariety(
 					farmId,

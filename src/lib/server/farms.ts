@@ -15,6 +15,12 @@ export interface Farm {
 	firstFallFrost: string;
 	bedFootIncrement: number;
 	turnaroundDays: number;
+	/** The probability the frost dates stand for, percent (they are normals: month and day count). */
+	frostProbabilityPct: number;
+	/** Days after the last spring frost that frost-tender crops go out. */
+	tenderDaysAfterFrost: number;
+	/** Years back the rotation check looks for a family on a bed. */
+	rotationYears: number;
 }
 
 export async function get(farmId: number): Promise<Farm> {
@@ -31,11 +37,18 @@ export async function get(farmId: number): Promise<Farm> {
 		lastSpringFrost: r.last_spring_frost,
 		firstFallFrost: r.first_fall_frost,
 		bedFootIncrement: r.bed_foot_increment,
-		turnaroundDays: r.turnaround_days
+		turnaroundDays: r.turnaround_days,
+		frostProbabilityPct: Number(r.frost_probability_pct ?? 50),
+		tenderDaysAfterFrost: Number(r.tender_days_after_frost ?? 7),
+		rotationYears: Number(r.rotation_years ?? 3)
 	};
 }
 
-export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<void> {
+export async function update(
+	farmId: number,
+	input: Omit<Farm, 'id' | 'frostProbabilityPct' | 'tenderDaysAfterFrost' | 'rotationYears'> &
+		Partial<Pick<Farm, 'frostProbabilityPct' | 'tenderDaysAfterFrost' | 'rotationYears'>>
+): Promise<void> {
 	await db()('farms')
 		.where({ id: farmId })
 		.update({
@@ -48,7 +61,11 @@ export async function update(farmId: number, input: Omit<Farm, 'id'>): Promise<v
 			last_spring_frost: input.lastSpringFrost,
 			first_fall_frost: input.firstFallFrost,
 			bed_foot_increment: input.bedFootIncrement,
-			turnaround_days: input.turnaroundDays
+			turnaround_days: input.turnaroundDays,
+			// Optional so older forms and imports keep the farm's choice.
+			...(input.frostProbabilityPct !== undefined ? { frost_probability_pct: input.frostProbabilityPct } : {}),
+			...(input.tenderDaysAfterFrost !== undefined ? { tender_days_after_frost: input.tenderDaysAfterFrost } : {}),
+			...(input.rotationYears !== undefined ? { rotation_years: input.rotationYears } : {})
 		});
 }
 

@@ -18,6 +18,7 @@ import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { throughStores } from '$lib/planning/storage';
 import { todayIn } from '$lib/today';
 import { curveOf } from './crops';
+import { plannedHarvest } from './planned-supply';
 import { db } from './db';
 import { targetInput } from './demand';
 import type { Season } from './seasons';
@@ -128,17 +129,20 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	]);
 	const currentWeek = isoWeek(todayIn(farm?.time_zone ?? 'UTC'));
 	const t1 = performance.now();
-	// Supply from bed-feet × the variety's yield, so a change of a planting's length shows at once.
-	const forecastPlantings: ForecastPlanting[] = plantings.map((p) => ({
-		key: `p${p.id}`,
-		crop: String(p.crop_id),
-		firstHarvest: p.first_harvest,
-		lastHarvest: p.last_harvest,
-		bedFeet: Number(p.length_ft),
-		yieldPerBedFoot: Number(p.yield_per_bed_foot),
-		curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days),
-		windowDays: Number(p.harvest_window_days)
-	}));
+	// The one planned supply (planned-supply.ts): bed-feet × the variety's current yield, spread by
+	// its curve, so a change of a planting's length or a variety's yield shows at once.
+	const forecastPlantings: ForecastPlanting[] = plantings.map((p) =>
+		plannedHarvest({
+			key: `p${p.id}`,
+			crop: String(p.crop_id),
+			firstHarvest: p.first_harvest,
+			lastHarvest: p.last_harvest,
+			lengthFt: Number(p.length_ft),
+			yieldPerBedFoot: Number(p.yield_per_bed_foot),
+			harvestWindowDays: Number(p.harvest_window_days),
+			curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days)
+		})
+	);
 	const { supply, actual } = supplyWithActuals(
 		forecastPlantings,
 		harvests.map((h) => ({

@@ -6,7 +6,7 @@ import { toEngineVariety } from '$lib/varieties';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
-import { ROTATION_LOOK_BACK_YEARS, previousFamiliesByBed, seasonPlanOptions } from '$lib/plan-options';
+import { previousFamiliesByBed, seasonPlanOptions } from '$lib/plan-options';
 import type { Knex } from 'knex';
 import { db } from './db';
 import * as farms from './farms';
@@ -69,7 +69,7 @@ function seasonPlantings(
 async function gatherInputs(farmId: number, season: Season) {
 	const seasonId = season.id;
 	const farm = await farms.get(farmId);
-	const lookBack = `${Number(season.startsOn.slice(0, 4)) - ROTATION_LOOK_BACK_YEARS}${season.startsOn.slice(4)}`;
+	const lookBack = `${Number(season.startsOn.slice(0, 4)) - farm.rotationYears}${season.startsOn.slice(4)}`;
 	const [temps, varieties, bedList, demand, obstacles, otherSeasons, earlierInBeds] = await Promise.all([
 		farms.weeklyTemps(farmId),
 		listVarieties(farmId),
@@ -100,7 +100,8 @@ async function gatherInputs(farmId: number, season: Season) {
 	]);
 	const previousFamilyByBed = previousFamiliesByBed(
 		earlierInBeds.map((p) => ({ bedId: String(p.bed_id), family: p.family, fieldDate: p.field_date })),
-		season.startsOn
+		season.startsOn,
+		farm.rotationYears
 	);
 	return { farm, temps, varieties, bedList, demand, obstacles, otherSeasons, previousFamilyByBed, season };
 }
@@ -162,6 +163,8 @@ function planFrom(
 		farm: {
 			lastSpringFrost: farm.lastSpringFrost,
 			firstFallFrost: farm.firstFallFrost,
+			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+			frostProbabilityPct: farm.frostProbabilityPct,
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 		},

@@ -166,6 +166,8 @@ export async function gridContext(farmId: number): Promise<GridContext> {
 		farm: {
 			lastSpringFrost: farm.lastSpringFrost,
 			firstFallFrost: farm.firstFallFrost,
+			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+			frostProbabilityPct: farm.frostProbabilityPct,
 			latitude: farm.latitude,
 			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t])),
 			turnaroundDays: farm.turnaroundDays,

@@ -11,6 +11,8 @@
 // The client address is the socket's, or behind a proxy the one adapter-node reads from ADDRESS_HEADER.
 import { RateLimiterMySQL, type RateLimiterRes } from 'rate-limiter-flexible';
 import { env } from '$env/dynamic/private';
+import { fail } from '@sveltejs/kit';
+import type { FieldErrors } from '$lib/schemas/common';
 import { db } from './db';
 
 const hour = 3600;
@@ -161,4 +163,16 @@ export function signUpAddressWait(address: string): Promise<number> {
 /** Whether another sign-up mail may go to this address now (counts it). Refusals are silent, as for reset mail. */
 export async function signUpMailAllowed(email: string): Promise<boolean> {
 	return (await spend(get().signUpMail, accountKey(email))) === 0;
+}
+
+/** A form's 429: tells the browser when to come back (retry-after) and the user why, at `field`. */
+export function tooManyTries<V>(
+	event: { setHeaders(h: Record<string, string>): void },
+	waitMs: number,
+	field: string,
+	message: string,
+	values: V
+) {
+	event.setHeaders({ 'retry-after': String(Math.ceil(waitMs / 1000)) });
+	return fail(429, { errors: { [field]: message } as FieldErrors, values });
 }

@@ -19,6 +19,7 @@ import {
 import { nextSeasonColumns } from '$lib/plantings/fields';
 import { db } from './db';
 import * as farms from './farms';
+import { familiesByBed } from './rotation';
 import * as beds from './beds';
 import { bedHolders } from './bed-holders';
 import { lockSeason, type Season } from './seasons';
@@ -106,6 +107,8 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 	const checkFarm = {
 		lastSpringFrost: farm.lastSpringFrost,
 		firstFallFrost: farm.firstFallFrost,
+		tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+		frostProbabilityPct: farm.frostProbabilityPct,
 		weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
 	};
 	const bedName = new Map(bedList.map((b) => [b.id, `${b.blockName} · ${b.name}`]));
@@ -126,8 +129,9 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 		return { p, old, next, change };
 	});
 
-	// Which families each bed held this season: the engine keeps them off those beds next year.
-	const previousFamilyByBed: Record<string, string[]> = {};
+	// Which families each bed held this season and the ones before it (the farm's rotation look-back):
+	// the engine keeps them off those beds next year.
+	const previousFamilyByBed = await familiesByBed(farmId, year, farm.rotationYears);
 	for (const p of plantings) {
 		if (p.bed_id === null) continue;
 		const list = (previousFamilyByBed[String(p.bed_id)] ??= []);

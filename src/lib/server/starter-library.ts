@@ -34,7 +34,7 @@ export interface StarterVariety extends Omit<
 }
 export interface StarterCrop extends Omit<
 	CropInput,
-	'source' | 'price' | 'harvestCurve' | 'cutIntervalDays' | 'storageWeeks' | 'storageLossPct'
+	'source' | 'price' | 'harvestCurve' | 'cutIntervalDays' | 'storageWeeks' | 'storageLossPct' | 'sowFrom' | 'sowTo'
 > {
 	/** Common practice (no published source): beans and cucurbits ramp, heads are one cut; default flat. */
 	harvestCurve?: CropInput['harvestCurve'];

@@ -3,25 +3,13 @@
 // the numbers in the table beside the chart.
 import { stack } from 'd3-shape';
 import { familyStyle, type FamilyStyle } from '$lib/families';
+import type { ForecastCrop, SeasonForecastRow } from '$lib/server/forecast';
 
 export type ChartMode = 'quantity' | 'percent';
 
-export interface ForecastApiRow {
-	crop: string;
-	week: string;
-	supply: number;
-	demand: number;
-	shortfall: number;
-	surplus: number;
-	actual: boolean;
-}
-
-export interface ChartCrop {
-	id: string;
-	name: string;
-	family: string;
-	unit: string;
-}
+/** A row and a crop of the forecast API's answer (types only: nothing of the server runs here). */
+export type ForecastApiRow = SeasonForecastRow;
+export type ChartCrop = ForecastCrop;
 
 export interface LayerPoint {
 	week: string;

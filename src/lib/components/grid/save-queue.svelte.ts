@@ -2,6 +2,7 @@
 // lost silently: a failed save stays queued for retry; a conflict keeps the user's values to re-apply.
 import type { PlantingField } from '$lib/schemas/planting';
 import type { PlantingView } from '$lib/types';
+import { announcePlanChanged } from '$lib/plan-changed';
 import type {
 	ApiErrorAnswer,
 	PlantingConflictAnswer,
@@ -39,9 +40,6 @@ export interface Conflict {
 	/** The user's edit that did not go through, kept to re-apply. */
 	mine: Partial<Record<PlantingField, unknown>>;
 }
-
-/** Told on window after a save round wrote something, so other views (the forecast) refetch. */
-export const PLAN_CHANGED_EVENT = 'furrowcast:plan-changed';
 
 export type SaveStatus = 'idle' | 'pending' | 'saving' | 'saved' | 'failed';
 
@@ -244,7 +242,7 @@ export class SaveQueue {
 		await Promise.all(tasks);
 		this.count();
 		// Even a round that partly failed changed the saved plan: whatever was written is news.
-		if (wrote > 0 && typeof window !== 'undefined') window.dispatchEvent(new Event(PLAN_CHANGED_EVENT));
+		if (wrote > 0) announcePlanChanged();
 		if (failures.length) {
 			this.status = 'failed';
 			this.error = failures[0];

@@ -2,16 +2,15 @@
 // engine (seed, forecast, targets). Pure: no I/O, so the bench and tests can call it alike.
 // Values are plain: dates as 'YYYY-MM-DD' (the writer turns them into real Excel dates),
 // money in dollars, rates as fractions.
-import { deriveTargets, forecast, type ForecastPlanting, type SeedNeed } from '$lib/planning';
-import { plantingSeed } from '$lib/varieties';
+import type { SeedNeed } from '$lib/planning';
+import { plantingSeed, toEngineVariety } from '$lib/varieties';
 import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
 import { seedOrder, seedOrderCells } from '../seed-order';
-import { forecastFromWeeklySupply } from '$lib/planning/forecast';
-import { throughStores } from '$lib/planning/storage';
+import { type PlannedPlanting, plannedByWeek, plannedSupply } from '../planned-supply';
 
 export type Cell = string | number | Date | null;
 export type Row = Cell[];
@@ -91,7 +90,7 @@ const walkKey = (block: number | null, bed: number | null, startFt: number): num
  * not failed or finished. Worked out in memory from the season's plantings rather than with
  * one query per week, so a large season streams at the writer's pace.
  */
-function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>): Row[] {
+function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
 	const out: TaskRow[] = [];
 	for (const p of d.plantings) {
 		if (p.status === 'failed') continue;
@@ -129,53 +128,49 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>): Row[] {
 		if (p.method === 'direct') push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
 		else push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
 		if (p.status === 'finished') continue;
-		// Flat harvest curve, as the engine's forecast: each day of the window yields the same.
+		// The planned supply (planned-supply.ts), as on the Forecast sheet: a task on the first
+		// harvest day in each week.
+		const planned = plannedOf(p, varieties);
+		if (!planned) continue;
 		const a = toDayNumber(p.firstHarvest);
-		const b = toDayNumber(p.lastHarvest);
-		if (b < a) continue;
-		const perDay = p.expectedYield / (b - a + 1);
-		for (let monday = a - weekdayOf(a) + 1; monday <= b; monday += 7) {
-			const from = Math.max(a, monday);
-			const days = Math.min(b, monday + 6) - from + 1;
-			push(from, 'Harvest', [round2(days * perDay), p.harvestUnit, null, null]);
+		for (const w of plannedByWeek(planned)) {
+			const monday = toDayNumber(weekStart(w.week));
+			push(Math.max(a, monday), 'Harvest', [round2(w.quantity), p.harvestUnit, null, null]);
 		}
 	}
 	out.sort((x, y) => x.order - y.order || x.walk - y.walk || (x.name < y.name ? -1 : x.name > y.name ? 1 : 0));
 	return out.map((t) => t.row);
 }
 
-/** Engine forecast (flat curve) of the season's plantings against the derived weekly targets. */
+/** A planting under the planned-supply rule: its variety's current yield, window and curve. */
+function plannedOf(p: SeasonData['plantings'][number], varieties: Map<number, VarietyView>): PlannedPlanting | null {
+	const v = varieties.get(p.varietyId);
+	if (!v || p.lastHarvest < p.firstHarvest) return null;
+	return {
+		crop: String(p.cropId),
+		firstHarvest: p.firstHarvest,
+		lastHarvest: p.lastHarvest,
+		lengthFt: p.lengthFt,
+		yieldPerBedFoot: v.yieldPerBedFoot,
+		harvestWindowDays: v.harvestWindowDays,
+		curve: toEngineVariety(v).harvestCurve
+	};
+}
+
+/** The planned supply (planned-supply.ts) of the season's plantings against the derived weekly targets. */
 function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[] {
-	const plantings: ForecastPlanting[] = [];
+	const plantings: PlannedPlanting[] = [];
 	for (const p of d.plantings) {
-		const v = varieties.get(p.varietyId);
-		if (!v || p.status === 'failed' || p.lastHarvest < p.firstHarvest) continue;
-		plantings.push({
-			crop: String(p.cropId),
-			firstHarvest: p.firstHarvest,
-			lastHarvest: p.lastHarvest,
-			bedFeet: p.lengthFt,
-			yieldPerBedFoot: v.yieldPerBedFoot
-		});
+		if (p.status === 'failed') continue;
+		const planned = plannedOf(p, varieties);
+		if (planned) plantings.push(planned);
 	}
 	const crops = new Map(d.crops.map((c) => [String(c.id), c]));
-	const targets = deriveTargets(d.demand);
 	// Storage crops through their store, as on the Forecast page (planning/storage.ts).
 	const stores = d.crops
 		.filter((c) => (c.storageWeeks ?? 0) > 0)
 		.map((c) => ({ crop: String(c.id), keepWeeks: c.storageWeeks!, lossPerWeek: c.storageLossPerWeek }));
-	const flat = forecast(plantings, targets);
-	const rows = stores.length
-		? forecastFromWeeklySupply(
-				throughStores(
-					flat.filter((r) => r.supply > 0).map((r) => ({ crop: r.crop, week: r.week, quantity: r.supply })),
-					targets,
-					stores
-				),
-				targets
-			)
-		: flat;
-	return rows.map((r) => [
+	return plannedSupply(plantings, d.demand, stores).map((r) => [
 		crops.get(r.crop)?.name ?? r.crop,
 		crops.get(r.crop)?.harvestUnit ?? null,
 		r.week,
@@ -239,7 +234,7 @@ export function buildSheetRows(d: SeasonData, today: string): SheetRows {
 		],
 		plantings: plantingRows(d),
 		seedOrder: seedOrderRows(d, seeds, varieties),
-		tasks: taskRows(d, seeds),
+		tasks: taskRows(d, seeds, varieties),
 		forecast: forecastRows(d, varieties),
 		crops: cropRows(d),
 		beds: d.beds.map((b) => [b.block, b.blockPosition, b.name, b.position, b.lengthFt, b.widthIn])

@@ -1,8 +1,9 @@
 // The week's crew sheets for one season: what to sow in trays, direct-sow, transplant and
 // harvest, with the figures the crew needs (cells, trays, seed grams, plants, expected harvest and
 // who it is for), grouped by block and bed in walking order. Figures come from the engine.
-import { forecast, type SeedNeed } from '$lib/planning';
-import { plantingSeed } from '$lib/varieties';
+import type { SeedNeed } from '$lib/planning';
+import { plantingSeed, toEngineVariety } from '$lib/varieties';
+import { plannedByWeek } from '../planned-supply';
 import { db } from '../db';
 import * as farms from '../farms';
 import { listVarieties, type VarietyView } from '../crops';
@@ -149,22 +150,24 @@ function seedFor(p: PlantingView, v: VarietyView | undefined): SheetRow['seed'] 
 	}
 }
 
-/** This planting's share of the week's harvest on the engine's flat harvest curve. */
-function weekHarvest(p: PlantingView, week: string): number {
-	// expected_yield is the total over the window: one "bed-foot" of that yield spreads it evenly.
-	const rows = forecast(
-		[
-			{
+/**
+ * This planting's expected harvest in the week: the one planned supply (planned-supply.ts), the
+ * variety's current yield spread by its harvest curve, as on the Forecast page and the workbook.
+ */
+function weekHarvest(p: PlantingView, v: VarietyView | undefined, week: string): number {
+	const planned = v
+		? {
 				crop: 'p',
 				firstHarvest: p.firstHarvest,
 				lastHarvest: p.lastHarvest,
-				bedFeet: 1,
-				yieldPerBedFoot: p.expectedYield
+				lengthFt: p.lengthFt,
+				yieldPerBedFoot: v.yieldPerBedFoot,
+				harvestWindowDays: v.harvestWindowDays,
+				curve: toEngineVariety(v).harvestCurve
 			}
-		],
-		[]
-	);
-	return round(rows.find((r) => r.week === week)?.supply ?? 0, 1);
+		: null;
+	const q = planned ? (plannedByWeek(planned).find((r) => r.week === week)?.quantity ?? 0) : 0;
+	return round(q, 1);
 }
 
 function groupByBed(rows: SheetRow[]): SheetGroup[] {
@@ -234,7 +237,7 @@ export async function weekSheet(
 			// Once harvest has started the remaining task is to close the planting out.
 			base.actions = base.doneOn ? ['finish'] : ['harvest', 'finish'];
 			base.lastHarvest = p.lastHarvest;
-			base.weekQuantity = weekHarvest(p, week);
+			base.weekQuantity = weekHarvest(p, v, week);
 			base.unit = p.harvestUnit;
 			base.demand = demand.get(p.crop) ?? [];
 		}

@@ -3,7 +3,7 @@ import type { Actions } from './$types';
 import { forgotSchema } from '$lib/schemas/auth';
 import { fieldErrors } from '$lib/schemas/common';
 import { afterResponse, mailPasswordReset } from '$lib/server/password-resets';
-import { forgotAccountAllowed, forgotAddressWait, waitInWords } from '$lib/server/rate-limit';
+import { forgotAccountAllowed, forgotAddressWait, tooManyTries, waitInWords } from '$lib/server/rate-limit';
 import { clientAddress } from '$lib/server/client-address';
 
 export const actions = {
@@ -14,15 +14,14 @@ export const actions = {
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		// Per address: said openly, since it tells nothing about any account.
 		const wait = await forgotAddressWait(clientAddress(event));
-		if (wait > 0) {
-			event.setHeaders({ 'retry-after': String(Math.ceil(wait / 1000)) });
-			return fail(429, {
-				errors: {
-					email: `Too many reset requests from your network address. Wait ${waitInWords(wait)}, then try again.`
-				},
+		if (wait > 0)
+			return tooManyTries(
+				event,
+				wait,
+				'email',
+				`Too many reset requests from your network address. Wait ${waitInWords(wait)}, then try again.`,
 				values
-			});
-		}
+			);
 		// Per account: counted for every address alike, and a spent count only means no more mail for now.
 		// The look-up and the mail happen after the answer, so the answer and its timing are the same
 		// whether or not an account uses the address, and whether or not the mail server is up.

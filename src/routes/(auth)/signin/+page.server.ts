@@ -6,7 +6,13 @@ import { findByEmail } from '$lib/server/users';
 import { verifyDummy, verifyPassword } from '$lib/server/password';
 import { startSession } from '$lib/server/auth';
 import { resolveMembership } from '$lib/server/members';
-import { clearFailedSignIns, recordFailedSignIn, signInWait, signInWaitMessage } from '$lib/server/rate-limit';
+import {
+	clearFailedSignIns,
+	recordFailedSignIn,
+	signInWait,
+	signInWaitMessage,
+	tooManyTries
+} from '$lib/server/rate-limit';
 import { clientAddress } from '$lib/server/client-address';
 
 function safeNext(next: string | null): string {
@@ -29,10 +35,7 @@ export const actions = {
 		const { email, password } = parsed.data;
 		const address = clientAddress(event);
 		const wait = await signInWait(email, address);
-		if (wait) {
-			event.setHeaders({ 'retry-after': String(Math.ceil(wait.ms / 1000)) });
-			return fail(429, { errors: <FieldErrors>{ _form: signInWaitMessage(wait) }, values });
-		}
+		if (wait) return tooManyTries(event, wait.ms, '_form', signInWaitMessage(wait), values);
 		const user = await findByEmail(email);
 		// The same answer and the same work whether or not the account exists.
 		const ok = user ? await verifyPassword(user.password_hash, password) : await verifyDummy(password);

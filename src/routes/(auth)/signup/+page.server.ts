@@ -1,12 +1,12 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { signUpSchema } from '$lib/schemas/auth';
-import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
+import { fieldErrors } from '$lib/schemas/common';
 import { cookieIsSecure } from '$lib/server/auth';
 import { devMailEnabled } from '$lib/server/mail';
 import { afterResponse } from '$lib/server/password-resets';
 import { requestSignUp, viewerKey } from '$lib/server/signups';
-import { signUpAddressWait, signUpMailAllowed, waitInWords } from '$lib/server/rate-limit';
+import { signUpAddressWait, signUpMailAllowed, tooManyTries, waitInWords } from '$lib/server/rate-limit';
 import { clientAddress } from '$lib/server/client-address';
 
 export const load = (async ({ locals }) => {
@@ -22,15 +22,14 @@ export const actions = {
 		const parsed = signUpSchema.safeParse(form);
 		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
 		const wait = await signUpAddressWait(clientAddress(event));
-		if (wait > 0) {
-			event.setHeaders({ 'retry-after': String(Math.ceil(wait / 1000)) });
-			return fail(429, {
-				errors: <FieldErrors>{
-					_form: `Too many new farms from your network address. Wait ${waitInWords(wait)}, then try again.`
-				},
+		if (wait > 0)
+			return tooManyTries(
+				event,
+				wait,
+				'_form',
+				`Too many new farms from your network address. Wait ${waitInWords(wait)}, then try again.`,
 				values
-			});
-		}
+			);
 		// The same answer, and the same work before it, for an address with an account and one without:
 		// whether the address is taken is looked up after the answer, and only the mail differs (a link that
 		// creates the farm, or a note that an account exists). Mail to one address is throttled silently.

@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
-import { parseBody } from '$lib/server/api';
+import { parseBody, invalidAnswer } from '$lib/server/api';
 import { remove, update } from '$lib/server/plantings';
 import { plantingPatchSchema, recordFieldsInWords } from '$lib/schemas/planting';
 import type { ApiErrorAnswer, PlantingConflictAnswer, PlantingSavedAnswer } from '$lib/api-answers';
@@ -35,15 +35,7 @@ export const PATCH: RequestHandler = async (event) => {
 				{ status: 403 }
 			);
 		case 'invalid':
-			return json(
-				{
-					message: `Invalid input: ${Object.entries(r.errors)
-						.map(([k, v]) => `${k}: ${v}`)
-						.join('; ')}`,
-					errors: r.errors
-				} satisfies ApiErrorAnswer,
-				{ status: 400 }
-			);
+			return invalidAnswer(r.errors);
 		case 'conflict':
 			return json(
 				{

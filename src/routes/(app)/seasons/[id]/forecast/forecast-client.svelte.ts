@@ -1,24 +1,14 @@
 // The forecast page's data in the browser: fetched from the API, and fetched again whenever
 // the plan may have changed — the window regains focus, the tab becomes visible, or another
 // part of the app dispatches `furrowcast:plan-changed` on window.
-import type { ChartCrop, ForecastApiRow } from '$lib/components/charts/forecast-series';
+import type { ForecastApiRow } from '$lib/components/charts/forecast-series';
+import type { ForecastAnswer, ForecastSeriesAnswer } from '$lib/api-answers';
+import { PLAN_CHANGED_EVENT } from '$lib/plan-changed';
 import { toDisplayQuantity, unitLabel, type UnitSystem } from '$lib/format';
 
-export const PLAN_CHANGED_EVENT = 'furrowcast:plan-changed';
-
-export interface ForecastResponse {
-	from: string;
-	to: string;
-	weeks: string[];
-	currentWeek: string;
-	crops: ChartCrop[];
-	rows: ForecastApiRow[];
-}
-
-/** The API's `shape=series` answer: per crop, one array per figure across `weeks`. */
-interface SeriesResponse extends Omit<ForecastResponse, 'rows'> {
-	series: { crop: string; supply: (number | null)[]; demand: number[]; actual: number[] }[];
-}
+/** The forecast as the page draws it: the API's answer, one row per crop-week. */
+export type ForecastResponse = Omit<ForecastAnswer, 'season'>;
+type SeriesResponse = Omit<ForecastSeriesAnswer, 'season'>;
 
 /** Back to one row per crop-week (in the API's order: by crop, then week), as the charts and table read them. */
 export function rowsFromSeries(body: SeriesResponse): ForecastResponse {

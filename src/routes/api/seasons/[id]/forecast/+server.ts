@@ -4,23 +4,14 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireUser } from '$lib/server/guards';
-import { seasonFromParams } from '$lib/server/api';
+import { invalidAnswer, seasonFromParams } from '$lib/server/api';
 import { seasonForecast, toSeries } from '$lib/server/forecast';
 import { forecastQuerySchema, MAX_FORECAST_WEEKS } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { weeksBetween } from '$lib/planning';
+import type { ForecastAnswer, ForecastSeriesAnswer } from '$lib/api-answers';
 
-function bad(errors: Record<string, string>): Response {
-	return json(
-		{
-			message: `Invalid query: ${Object.entries(errors)
-				.map(([k, v]) => `${k}: ${v}`)
-				.join('; ')}`,
-			errors
-		},
-		{ status: 400 }
-	);
-}
+const bad = (errors: Record<string, string>): Response => invalidAnswer(errors, 'query');
 
 export const GET: RequestHandler = async (event) => {
 	const { farm } = requireUser(event);
@@ -60,6 +51,7 @@ export const GET: RequestHandler = async (event) => {
 		currentWeek: f.currentWeek,
 		crops: f.crops.filter((c) => chosen.has(c.id))
 	};
-	const body = parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
+	const body: ForecastAnswer | ForecastSeriesAnswer =
+		parsed.data.shape === 'series' ? { ...head, series: toSeries(rows, weeks) } : { ...head, rows };
 	return json(body, { headers: { 'server-timing': serverTiming } });
 };

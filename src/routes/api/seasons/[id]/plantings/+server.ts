@@ -1,12 +1,12 @@
 import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
-import { parseBody, seasonFromParams } from '$lib/server/api';
+import { parseBody, seasonFromParams, invalidAnswer } from '$lib/server/api';
 import { create, gridContext } from '$lib/server/plantings';
 import { seasonPlantingsJson } from '$lib/server/plantings-json';
 import { cachedAnswer } from '$lib/server/plantings-cache';
 import { editableFields, plantingBatchSchema } from '$lib/schemas/planting';
-import type { ApiErrorAnswer, PlantingsCreatedAnswer } from '$lib/api-answers';
+import type { PlantingsCreatedAnswer } from '$lib/api-answers';
 
 // `{ season, plantings }` as before, plus what the grid needs to recalculate in the browser.
 // Kept ready in memory until the season's data changes (plantings-cache.ts), with an ETag.
@@ -37,15 +37,6 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, plantingBatchSchema);
 	if (!body.ok) return body.response;
 	const result = await create(farm.id, season.id, user.id, body.data.plantings);
-	if (!result.ok)
-		return json(
-			{
-				message: `Invalid input: ${Object.entries(result.errors)
-					.map(([k, v]) => `${k}: ${v}`)
-					.join('; ')}`,
-				errors: result.errors
-			} satisfies ApiErrorAnswer,
-			{ status: 400 }
-		);
+	if (!result.ok) return invalidAnswer(result.errors);
 	return json({ plantings: result.plantings } satisfies PlantingsCreatedAnswer, { status: 201 });
 };

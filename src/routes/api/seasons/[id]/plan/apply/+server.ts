@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { varietyPlanErrors } from '$lib/server/variety-plan';
-import { parseBody, seasonFromParams } from '$lib/server/api';
+import { parseBody, seasonFromParams, invalidAnswer } from '$lib/server/api';
 import { applyRequestSchema } from '$lib/schemas/plan';
 import { apply } from '$lib/server/plan';
 import { PlanConflictError } from '$lib/server/plan-history';
@@ -17,16 +17,7 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, applyRequestSchema);
 	if (!body.ok) return body.response;
 	const wrong = await varietyPlanErrors(farm.id, body.data.varietyPlan);
-	if (wrong)
-		return json(
-			{
-				message: `Invalid input: ${Object.entries(wrong)
-					.map(([k, v]) => `${k}: ${v}`)
-					.join('; ')}`,
-				errors: wrong
-			},
-			{ status: 400 }
-		);
+	if (wrong) return invalidAnswer(wrong);
 	const { fingerprint, ...request } = body.data;
 	try {
 		const { preview, ...changes } = await apply(farm.id, season, user.id, request, fingerprint);

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import type { RequestHandler } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { varietyPlanErrors } from '$lib/server/variety-plan';
-import { parseBody, seasonFromParams } from '$lib/server/api';
+import { parseBody, seasonFromParams, invalidAnswer } from '$lib/server/api';
 import { planRequestSchema } from '$lib/schemas/plan';
 import { preview } from '$lib/server/plan';
 import { planFingerprint } from '$lib/server/plan-history';
@@ -18,16 +18,7 @@ export const POST: RequestHandler = async (event) => {
 	const body = await parseBody(event, planRequestSchema);
 	if (!body.ok) return body.response;
 	const wrong = await varietyPlanErrors(farm.id, body.data.varietyPlan);
-	if (wrong)
-		return json(
-			{
-				message: `Invalid input: ${Object.entries(wrong)
-					.map(([k, v]) => `${k}: ${v}`)
-					.join('; ')}`,
-				errors: wrong
-			},
-			{ status: 400 }
-		);
+	if (wrong) return invalidAnswer(wrong);
 	// Taken before the run: if anything moves meanwhile, the apply from this preview is refused.
 	const fingerprint = await planFingerprint(farm.id, season.id);
 	const result = await preview(farm.id, season, body.data);
