@@ -157,7 +157,7 @@ describe('free space, in a farm of our own', () => {
 		expect(rowsShown[0]).toMatch(/A1[\s\S]*30–60 ft \(30 ft\)[\s\S]*30 ft/);
 		expect(rowsShown[1]).toMatch(/A2[\s\S]*0–50 ft \(50 ft\)[\s\S]*50 ft/);
 
-		await page.getByLabel('Minimum feet (ft)').fill('40');
+		await page.getByLabel('Minimum length (ft)').fill('40');
 		await Promise.all([
 			page.waitForURL((u) => u.searchParams.get('minFt') === '40'),
 			page.getByRole('button', { name: 'Find free beds' }).click()

@@ -2,7 +2,7 @@
 // seeds and price per seed weight, and price per harvest unit are typed and shown as the farm
 // works (°C, cm, kg per metre, grams on a metric farm; seeds per ounce on an imperial one) and kept
 // in the canonical units the field table states. Constants: NIST Handbook 44, Appendix C.
-import { cropFields, schemaOf, varietyFields, withTrayRule, type FieldSpec, type Measure } from './crop';
+import { cropFields, schemaOf, varietyFields, withSowRule, withTrayRule, type FieldSpec, type Measure } from './crop';
 import {
 	formatTemp,
 	fromDisplayInches,

@@ -1,7 +1,6 @@
 // The crop library's forms: one field table per object (crop, variety) gives each figure its
 // label, unit, one-line help and bounds; the zod schema the server checks with is built from the
 // same table, so the form, its hints and the server's messages never disagree.
-import { monthDaySchema } from './common';
 import { schemaOf, withSowRule, withTrayRule, type FieldSpec, type Parsed } from './field-spec';
 import { harvestUnits } from './demand';
 import { sowingMethods } from './planting';

@@ -1,7 +1,7 @@
 // What a library form's field is (a number with its unit and bounds, a text, a choice) and the zod
 // schema built from a table of them, so the form, its hints and the server's messages never disagree.
 import { z } from 'zod';
-import { numberField, plainText } from './common';
+import { monthDaySchema, numberField, plainText } from './common';
 
 /**
  * A figure kept in one canonical unit (°F, inches, lb per foot, seeds and cents per gram, cents per
