@@ -4,34 +4,9 @@ import { describe, expect, it } from 'vitest';
 import { GridState, UNDO_LIMIT } from '../../src/lib/components/grid/grid-state.svelte';
 import type { ApiAnswer, GridApi } from '../../src/lib/components/grid/save-queue.svelte';
 import type { GridVariety } from '../../src/lib/plantings/derive';
+import { carrot, planting } from '../helpers/grid-fixture';
 import type { PlantingView } from '../../src/lib/types';
 
-const carrot: GridVariety = {
-	id: 1,
-	cropId: 1,
-	crop: 'Carrot',
-	family: 'Apiaceae',
-	harvestUnit: 'lb',
-	frostTolerance: 'hardy',
-	heatLimitF: null,
-	baseTempF: 40,
-	name: 'Invented Orange',
-	method: 'direct',
-	daysToMaturity: 70,
-	daysInTray: 0,
-	harvestWindowDays: 14,
-	yieldPerBedFoot: 1.5,
-	rows: 4,
-	inRowSpacingIn: 1,
-	seedsPerSpot: 2,
-	germinationRate: 0.65,
-	seedsPerGram: 776.03,
-	seedPriceCentsPerGram: 0,
-	seedsPerPacket: null,
-	cellsPerTray: 128,
-	margin: 0.1,
-	gddToMaturity: null
-};
 const lettuce: GridVariety = {
 	...carrot,
 	id: 2,
@@ -48,43 +23,6 @@ const lettuce: GridVariety = {
 	seedsPerSpot: 1,
 	germinationRate: 0.9
 };
-
-function planting(id: number, over: Partial<PlantingView> = {}): PlantingView {
-	return {
-		id,
-		seasonId: 1,
-		varietyId: 1,
-		variety: 'Invented Orange',
-		crop: 'Carrot',
-		family: 'Apiaceae',
-		harvestUnit: 'lb',
-		bedId: 10,
-		bed: 'B1',
-		block: 'North',
-		blockPosition: 1,
-		bedPosition: 1,
-		startFt: 0,
-		lengthFt: 60,
-		rows: 4,
-		inRowSpacingIn: 1,
-		seedsPerSpot: 2,
-		method: 'direct',
-		traySowDate: null,
-		fieldDate: '2026-04-20',
-		firstHarvest: '2026-06-29',
-		lastHarvest: '2026-07-12',
-		expectedYield: 90,
-		seedsNeeded: 9748,
-		status: 'planned',
-		notes: null,
-		version: 1,
-		actualTraySowDate: null,
-		actualFieldDate: null,
-		actualFirstHarvest: null,
-		actualLastHarvest: null,
-		...over
-	};
-}
 
 class FakeApi implements GridApi {
 	calls: { kind: string; id?: number; body: unknown }[] = [];

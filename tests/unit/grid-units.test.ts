@@ -7,33 +7,10 @@ import { rowFromView } from '../../src/lib/components/grid/rows';
 import { explainInFarmUnits } from '../../src/lib/components/grid/explain-units';
 import { deriveRow, type GridFarm, type GridVariety } from '../../src/lib/plantings/derive';
 import type { PlantingView } from '../../src/lib/types';
+import { carrot as baseCarrot, planting } from '../helpers/grid-fixture';
 
-const carrot: GridVariety = {
-	id: 1,
-	cropId: 1,
-	crop: 'Carrot',
-	family: 'Apiaceae',
-	harvestUnit: 'lb',
-	frostTolerance: 'hardy',
-	heatLimitF: null,
-	baseTempF: 40,
-	name: 'Invented Orange',
-	method: 'direct',
-	daysToMaturity: 70,
-	daysInTray: 0,
-	harvestWindowDays: 14,
-	yieldPerBedFoot: 1.5,
-	rows: 4,
-	inRowSpacingIn: 1,
-	seedsPerSpot: 1,
-	germinationRate: 0.65,
-	seedsPerGram: 776.03,
-	seedPriceCentsPerGram: 0,
-	seedsPerPacket: null,
-	cellsPerTray: 128,
-	margin: 0.1,
-	gddToMaturity: null
-};
+// One seed a spot, so the seed steps read simply.
+const carrot: GridVariety = { ...baseCarrot, seedsPerSpot: 1 };
 const farm: GridFarm = {
 	lastSpringFrost: '2026-05-10',
 	firstFallFrost: '2026-10-05',
@@ -41,39 +18,13 @@ const farm: GridFarm = {
 	turnaroundDays: 7,
 	bedFootIncrement: 1
 };
-const view = {
-	id: 1,
-	seasonId: 1,
-	varietyId: 1,
-	variety: 'Invented Orange',
-	crop: 'Carrot',
-	family: 'Apiaceae',
-	harvestUnit: 'lb',
-	bedId: 10,
-	bed: 'B1',
-	block: 'North',
-	blockPosition: 1,
-	bedPosition: 1,
+const view: PlantingView = planting(1, {
 	startFt: 10,
 	lengthFt: 30,
-	rows: 4,
-	inRowSpacingIn: 1,
 	seedsPerSpot: 1,
-	method: 'direct',
-	traySowDate: null,
-	fieldDate: '2026-04-20',
-	firstHarvest: '2026-06-29',
-	lastHarvest: '2026-07-12',
 	expectedYield: 45,
-	seedsNeeded: 0,
-	status: 'planned',
-	notes: null,
-	version: 1,
-	actualTraySowDate: null,
-	actualFieldDate: null,
-	actualFirstHarvest: null,
-	actualLastHarvest: null
-} as PlantingView;
+	seedsNeeded: 0
+});
 
 const lookups = (units: 'metric' | 'imperial'): Lookups => ({
 	varieties: [carrot],
