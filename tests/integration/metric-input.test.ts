@@ -3,9 +3,9 @@
 // by hand from the exact constants. Source: NIST Handbook 44, Appendix C (1 ft = 0.3048 m,
 // 1 in = 2.54 cm, 1 lb = 0.453 592 37 kg, °F = °C × 9/5 + 32).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, html } from '../helpers/http';
-import { closeTestDb, testDb, uniqueEmail } from '../helpers/db';
-import { confirmedSignUp } from '../helpers/signup';
+import { type Client, html } from '../helpers/http';
+import { closeTestDb, testDb } from '../helpers/db';
+import { signUpFarm } from '../helpers/transfer';
 
 afterAll(closeTestDb);
 
@@ -16,20 +16,7 @@ let cropId: number;
 let varietyId: number;
 
 beforeAll(async () => {
-	owner = new Client();
-	const email = uniqueEmail('metric-input');
-	const res = await confirmedSignUp(owner, {
-		name: 'Metric Keeper',
-		email,
-		password: 'long-enough-pass',
-		farmName: 'Metric Farm (invented)',
-		latitude: '52',
-		lastSpringFrost: '2027-05-05',
-		firstFallFrost: '2027-10-10'
-	});
-	if (res.status !== 303) throw new Error(`sign-up answered ${res.status}`);
-	const u = await testDb()('users').where({ email }).first('id');
-	farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
+	({ client: owner, farmId } = await signUpFarm('metric-input'));
 	// The farm chose metric (the set-up path's first step offers it; here it is set directly).
 	await testDb()('farms').where({ id: farmId }).update({ unit_system: 'metric' });
 	[seasonId] = await testDb()('seasons').insert({
