@@ -41,6 +41,9 @@ export interface CoverWeek {
 
 type Shares = Map<string, Map<string, number>>;
 
+/** A share below this is the float residue of a curve's weights, not a harvest. */
+const EPS = 1e-9;
+
 const bump = (m: Map<string, number>, week: string, q: number): void => {
 	if (q > 0) m.set(week, (m.get(week) ?? 0) + q);
 };
@@ -144,9 +147,9 @@ export function successionCover(c: CropCover, key: string): CoverWeek[] {
 	const out: CoverWeek[] = [];
 	c.weeks.forEach((week, i) => {
 		const own = mine.share[i];
-		if (!(own > 0)) return;
+		if (!(own > EPS)) return;
 		const others = c.plantings
-			.filter((p) => p.key !== key && p.share[i] > 0)
+			.filter((p) => p.key !== key && p.share[i] > EPS)
 			.map((p) => ({ key: p.key, quantity: p.share[i] }))
 			.sort((a, b) => b.quantity - a.quantity);
 		const supply = own + others.reduce((s, o) => s + o.quantity, 0);
