@@ -8,7 +8,7 @@ import * as beds from '../beds';
 import { listVarieties, type VarietyView } from '../crops';
 import { targetInput } from '../demand';
 import type { Season } from '../seasons';
-import { listForSeason, type PlantingView } from '../plantings';
+import { listForSeason, listHarvestingFromOtherSeasons, type PlantingView } from '../plantings';
 
 /** A planting as the workbook shows it: the plantings repository's view (plantings.ts). */
 export type ExportPlanting = PlantingView;
@@ -44,6 +44,8 @@ export interface SeasonData {
 	currency: string;
 	season: Season;
 	plantings: ExportPlanting[];
+	/** Other seasons' plantings harvesting in this season's dates: on Weekly tasks (harvest) and Forecast only. */
+	otherHarvests: PlantingView[];
 	crops: CropRow[];
 	varieties: VarietyView[];
 	beds: ExportBed[];
@@ -69,9 +71,10 @@ async function listCrops(farmId: number): Promise<CropRow[]> {
 }
 
 export async function loadSeasonData(farmId: number, season: Season): Promise<SeasonData> {
-	const [farm, plantings, crops, varieties, bedList, blocks, demand] = await Promise.all([
+	const [farm, plantings, otherHarvests, crops, varieties, bedList, blocks, demand] = await Promise.all([
 		farms.get(farmId),
 		listForSeason(farmId, season.id),
+		listHarvestingFromOtherSeasons(farmId, season),
 		listCrops(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
@@ -86,6 +89,7 @@ export async function loadSeasonData(farmId: number, season: Season): Promise<Se
 		currency: farm.currency ?? 'USD',
 		season,
 		plantings,
+		otherHarvests,
 		crops,
 		varieties,
 		beds: bedList.map((b) => ({
