@@ -1012,13 +1012,19 @@ const BOX_RUNS: readonly BoxRun[] = [
 	{ crop: 'Basil', from: 29, to: 37, full: 1, half: 1 },
 	{ crop: 'Summer squash', from: 30, to: 37, full: 1.5, half: 1 },
 	{ crop: 'Cucumber', from: 31, to: 37, full: 2, half: 1 },
-	// Fruiting crops go into the boxes once the plantings are in full bearing, not with the
-	// first light pickings (the harvest curve's ramp).
-	{ crop: 'Bush bean', from: 32, to: 38, every: 2, full: 1, half: 0 },
-	{ crop: 'Bush bean', from: 33, to: 38, every: 2, full: 0, half: 1 },
-	{ crop: 'Tomato', from: 33, to: 39, full: 2, half: 1 },
-	{ crop: 'Pepper', from: 34, to: 39, full: 0.5, half: 0 },
-	{ crop: 'Pepper', from: 35, to: 39, every: 2, full: 0, half: 0.5 },
+	// Fruiting crops follow their plants, as a share manager asks of a picked crop: the first light
+	// pickings go to the market stall and the restaurants (below), the boxes get a little as picking
+	// builds, the full amount at full bearing, and less again as the plants decline in the cool
+	// nights before the first fall frost. Every week, not alternating: a picked bed cannot hold a
+	// week's beans back for the next box (invented demo figures).
+	{ crop: 'Bush bean', from: 32, to: 32, full: 0.5, half: 0 },
+	{ crop: 'Bush bean', from: 33, to: 38, full: 0.75, half: 0.5 },
+	{ crop: 'Tomato', from: 32, to: 32, full: 1, half: 0.5 },
+	{ crop: 'Tomato', from: 33, to: 37, full: 2, half: 1 },
+	{ crop: 'Tomato', from: 38, to: 38, full: 1, half: 0.5 },
+	{ crop: 'Pepper', from: 33, to: 33, full: 0.5, half: 0 },
+	{ crop: 'Pepper', from: 34, to: 37, full: 0.5, half: 0.25 },
+	{ crop: 'Pepper', from: 38, to: 38, full: 0.25, half: 0.25 },
 	{ crop: 'Onion', from: 34, to: 38, every: 2, full: 1, half: 1 },
 	{ crop: 'Garlic', from: 30, to: 42, every: 2, full: 2, half: 0 },
 	{ crop: 'Garlic', from: 31, to: 42, every: 2, full: 0, half: 2 }
@@ -1054,8 +1060,10 @@ const MARKET_RUNS: readonly ChannelRun[] = [
 	{ crop: 'Basil', from: 28, to: 37, quantity: 5 },
 	{ crop: 'Summer squash', from: 30, to: 37, quantity: 10 },
 	{ crop: 'Cucumber', from: 31, to: 37, quantity: 20 },
-	{ crop: 'Tomato', from: 33, to: 39, quantity: 25 },
-	{ crop: 'Pepper', from: 33, to: 39, quantity: 8 },
+	// The first pickings of fruiting crops come to the stall the week before the boxes take them.
+	{ crop: 'Bush bean', from: 31, to: 38, quantity: 10 },
+	{ crop: 'Tomato', from: 31, to: 39, quantity: 25 },
+	{ crop: 'Pepper', from: 32, to: 39, quantity: 8 },
 	{ crop: 'Garlic', from: 30, to: 44, quantity: 20 }
 ];
 
@@ -1070,8 +1078,8 @@ const RESTAURANT_RUNS: readonly ChannelRun[] = [
 	{ crop: 'Head lettuce', from: 22, to: 40, quantity: 6 },
 	{ crop: 'Radish', from: 22, to: 27, quantity: 4 },
 	{ crop: 'Basil', from: 28, to: 38, quantity: 10 },
-	{ crop: 'Tomato', from: 33, to: 39, quantity: 15 },
-	{ crop: 'Pepper', from: 34, to: 39, quantity: 5 }
+	{ crop: 'Tomato', from: 31, to: 39, quantity: 15 },
+	{ crop: 'Pepper', from: 32, to: 39, quantity: 5 }
 ];
 
 function isoWeekLabel(year: number, week: number): string {

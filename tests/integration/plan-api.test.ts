@@ -24,6 +24,40 @@ beforeAll(async () => {
 const preview = () => `/api/seasons/${seasonId}/plan/preview`;
 const apply = () => `/api/seasons/${seasonId}/plan/apply`;
 
+/** Weekly targets per crop id, derived here from the season's demand rows. */
+async function demandTargets() {
+	const shares = await testDb()('share_sizes').where({ season_id: seasonId });
+	const items = await testDb()('box_items').whereIn(
+		'share_size_id',
+		shares.map((s) => s.id)
+	);
+	const channels = await testDb()('channel_demand').where({ season_id: seasonId });
+	return deriveTargets({
+		shareSizes: shares.map((s) => ({
+			id: String(s.id),
+			members: s.members,
+			firstWeek: s.first_week,
+			lastWeek: s.last_week
+		})),
+		boxItems: items.map((i) => ({
+			shareSizeId: String(i.share_size_id),
+			week: i.week,
+			crop: String(i.crop_id),
+			quantity: Number(i.quantity)
+		})),
+		channelDemand: channels.map((c) => ({ crop: String(c.crop_id), week: c.week, quantity: Number(c.quantity) }))
+	});
+}
+
+/** The farm's storage crops: weeks a harvest keeps and the weekly loss. */
+async function cropStores() {
+	return (await testDb()('crops').where({ farm_id: farmId }).where('storage_weeks', '>', 0)).map((c) => ({
+		crop: String(c.id),
+		keepWeeks: Number(c.storage_weeks),
+		lossPerWeek: Number(c.storage_loss_per_week ?? 0)
+	}));
+}
+
 describe('who may plan', () => {
 	it('no session: 401', async () => {
 		expect((await new Client().json(preview(), 'POST', {})).status).toBe(401);
@@ -136,27 +170,7 @@ describe('preview', () => {
 
 		// Check the proposal independently: targets derived here from the rows in the database,
 		// supply from the proposal (placed and unplaced alike), shortfall as the engine reported it.
-		const shares = await testDb()('share_sizes').where({ season_id: seasonId });
-		const items = await testDb()('box_items').whereIn(
-			'share_size_id',
-			shares.map((s) => s.id)
-		);
-		const channels = await testDb()('channel_demand').where({ season_id: seasonId });
-		const targets = deriveTargets({
-			shareSizes: shares.map((s) => ({
-				id: String(s.id),
-				members: s.members,
-				firstWeek: s.first_week,
-				lastWeek: s.last_week
-			})),
-			boxItems: items.map((i) => ({
-				shareSizeId: String(i.share_size_id),
-				week: i.week,
-				crop: String(i.crop_id),
-				quantity: Number(i.quantity)
-			})),
-			channelDemand: channels.map((c) => ({ crop: String(c.crop_id), week: c.week, quantity: Number(c.quantity) }))
-		});
+		const targets = await demandTargets();
 		// Kept: this season's plantings already under way, and other seasons' plantings harvesting
 		// in this season (the garlic planted last autumn).
 		const kept = await testDb()('plantings as p')
@@ -169,11 +183,7 @@ describe('preview', () => {
 					.orWhere((q2) => q2.whereNot('p.season_id', seasonId).where('p.last_harvest', '>=', '2027-01-01'))
 			)
 			.select('v.crop_id', 'p.first_harvest', 'p.last_harvest', 'p.length_ft', 'v.yield_per_bed_foot');
-		const stores = (await testDb()('crops').where({ farm_id: farmId }).where('storage_weeks', '>', 0)).map((c) => ({
-			crop: String(c.id),
-			keepWeeks: Number(c.storage_weeks),
-			lossPerWeek: Number(c.storage_loss_per_week ?? 0)
-		}));
+		const stores = await cropStores();
 		const yieldOf = new Map(
 			(await testDb()('varieties').where({ farm_id: farmId })).map((v) => [String(v.id), Number(v.yield_per_bed_foot)])
 		);
@@ -233,6 +243,90 @@ describe('preview', () => {
 });
 
 describe('apply', () => {
+	it("the owner's plan of the demo season fits its demand: supply ÷ demand median ≤ 1.15, max ≤ 1.30, no reachable week short", async () => {
+		// The acceptance figures of the plan, measured on what apply wrote: per crop, the season
+		// year's harvest from every planting harvesting in it (this season's and last autumn's),
+		// each spread by its variety's curve (the crop's unless the variety overrides it), against
+		// the weekly targets derived here from the demand rows. A week is short when what it gets
+		// (from store for a storage crop) is under demand × 1.1 and the plan did not report it out of
+		// reach. Source of the figures: the plan-quality acceptance (common practice: a 10 % margin).
+		const res = await owner.json(apply(), 'POST', {});
+		expect(res.status).toBe(200);
+		const out = await res.json();
+		const unreachable = new Set<string>(
+			(out.warnings as { code: string; cropId: string; weeks?: string[] }[])
+				.filter((w) => w.code === 'unreachable_week')
+				.flatMap((w) => (w.weeks ?? []).map((week) => `${w.cropId} ${week}`))
+		);
+		const targets = await demandTargets();
+		const rows = await testDb()('plantings as p')
+			.join('varieties as v', 'v.id', 'p.variety_id')
+			.join('crops as c', 'c.id', 'v.crop_id')
+			.where('p.farm_id', farmId)
+			.whereNot('p.status', 'failed')
+			.where('p.last_harvest', '>=', '2027-01-01')
+			.where('p.first_harvest', '<=', '2027-12-31')
+			.select(
+				'v.crop_id',
+				'p.first_harvest',
+				'p.last_harvest',
+				'p.length_ft',
+				'v.yield_per_bed_foot',
+				'v.harvest_window_days',
+				'v.harvest_curve as variety_curve',
+				'c.harvest_curve as crop_curve',
+				'c.harvest_cut_interval_days'
+			);
+		const iso = (d: string | Date): string => (d instanceof Date ? d.toISOString() : String(d)).slice(0, 10);
+		const harvested = forecast(
+			rows.map((r) => {
+				const shape = (r.variety_curve ?? r.crop_curve) as HarvestCurve['shape'];
+				const curve: HarvestCurve = { shape };
+				if (shape === 'cuts' && r.harvest_cut_interval_days !== null) curve.intervalDays = r.harvest_cut_interval_days;
+				return {
+					crop: String(r.crop_id),
+					firstHarvest: iso(r.first_harvest),
+					lastHarvest: iso(r.last_harvest),
+					bedFeet: Number(r.length_ft),
+					yieldPerBedFoot: Number(r.yield_per_bed_foot),
+					windowDays: Number(r.harvest_window_days),
+					curve
+				};
+			}),
+			targets
+		).filter((r) => r.week.startsWith('2027-'));
+		// A store gives a week at most what it asks; asked demand × 1.1, it gives that where it can.
+		const wanted = targets.map((t) => ({ ...t, quantity: t.quantity * 1.1 }));
+		const given = forecastFromWeeklySupply(
+			throughStores(
+				harvested.map((r) => ({ crop: r.crop, week: r.week, quantity: r.supply })),
+				wanted,
+				await cropStores()
+			),
+			wanted
+		);
+		const supply = new Map<string, number>();
+		const demand = new Map<string, number>();
+		for (const r of harvested) {
+			supply.set(r.crop, (supply.get(r.crop) ?? 0) + r.supply);
+			demand.set(r.crop, (demand.get(r.crop) ?? 0) + r.demand);
+		}
+		const ratios = [...demand.entries()]
+			.filter(([, d]) => d > 0)
+			.map(([crop, d]) => (supply.get(crop) ?? 0) / d)
+			.sort((a, b) => a - b);
+		expect(ratios.length).toBeGreaterThanOrEqual(15);
+		const mid = ratios.length >> 1;
+		const median = ratios.length % 2 ? ratios[mid] : (ratios[mid - 1] + ratios[mid]) / 2;
+		expect(median).toBeLessThanOrEqual(1.15);
+		expect(ratios[ratios.length - 1]).toBeLessThanOrEqual(1.3);
+		const short = given
+			.filter((r) => r.week.startsWith('2027-') && r.demand > 0 && r.supply < r.demand * (1 - 1e-9))
+			.map((r) => `${r.crop} ${r.week}`)
+			.filter((k) => !unreachable.has(k));
+		expect(short).toEqual([]);
+	});
+
 	it('keeps a sown planting untouched, replaces the planned ones, and reports what changed', async () => {
 		const sown = await testDb()('plantings')
 			.where({ season_id: seasonId, status: 'planned' })

@@ -88,6 +88,22 @@ describe('a storage crop', () => {
 		for (const [week, supply, shortfall] of want) expect(at(week), week).toMatchObject({ supply, shortfall });
 	});
 
+	it('says the weeks after the dig are sold from store, not from the field, in both answer shapes', async () => {
+		// Dug in W28 and wanted from W30: every head those weeks get comes out of store.
+		const api = await (await farm.client.get(`/api/seasons/${seasonId}/forecast`)).json();
+		const rows = api.rows.filter((r: { crop: string }) => r.crop === String(garlicId));
+		for (const [week, supply] of want)
+			expect(rows.find((r: { week: string }) => r.week === week)?.fromStore, week).toBe(supply);
+		const series = await (await farm.client.get(`/api/seasons/${seasonId}/forecast?shape=series`)).json();
+		const garlic = series.series.find((s: { crop: string }) => s.crop === String(garlicId));
+		const fromStore = want.map(([week]) => garlic.fromStore[series.weeks.indexOf(week)]);
+		expect(fromStore).toEqual(want.map(([, supply]) => supply));
+		// A crop that is not kept in store carries no such figures.
+		const other = series.series.find((s: { crop: string }) => s.crop !== String(garlicId));
+		expect(other).toBeDefined();
+		expect(other.fromStore).toBeUndefined();
+	});
+
 	it("the workbook's Forecast sheet says the same", async () => {
 		const wb = await loadWorkbook((await download(farm.client, seasonId)).bytes);
 		const ws = wb.getWorksheet('Forecast')!;

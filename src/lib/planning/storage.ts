@@ -11,6 +11,8 @@ export interface StoreResult {
 	supply: Map<string, number>;
 	/** Lost in store (shrinkage and lots kept past their time), by the week the loss is counted. */
 	lost: Map<string, number>;
+	/** The part of `supply` given out of lots dug in earlier weeks: sold from store, not from the field. */
+	fromStore: Map<string, number>;
 }
 
 interface Lot {
@@ -35,8 +37,9 @@ export function storeSupply(
 ): StoreResult {
 	const supply = new Map<string, number>();
 	const lost = new Map<string, number>();
+	const fromStore = new Map<string, number>();
 	const weeks = [...harvest.keys(), ...demand.keys()].sort();
-	if (!weeks.length) return { supply, lost };
+	if (!weeks.length) return { supply, lost, fromStore };
 	const last = weeks.at(-1)!;
 	let lots: Lot[] = [];
 	const keep = Math.max(0, Math.floor(keepWeeks));
@@ -60,12 +63,13 @@ export function storeSupply(
 			lot.quantity -= take;
 			need -= take;
 			add(supply, week, take);
+			if (lot.week !== week) add(fromStore, week, take);
 		}
 		lots = lots.filter((l) => l.quantity > 1e-9);
 	}
 	// What no demand took stays the surplus of the week it was harvested.
 	for (const lot of lots) add(supply, lot.week, lot.quantity);
-	return { supply, lost };
+	return { supply, lost, fromStore };
 }
 
 /** A crop kept in store: how many weeks a harvest keeps, and the share lost each week. */
@@ -73,6 +77,12 @@ export interface CropStore {
 	crop: string;
 	keepWeeks: number;
 	lossPerWeek: number;
+}
+
+/** Weekly supply after the stores, and the part of it sold from store (storage crops only). */
+export interface StoredSupply {
+	supply: CropWeekQuantity[];
+	fromStore: CropWeekQuantity[];
 }
 
 /**
@@ -85,17 +95,28 @@ export function throughStores(
 	targets: CropWeekQuantity[],
 	stores: CropStore[]
 ): CropWeekQuantity[] {
+	return throughStoresSplit(supply, targets, stores).supply;
+}
+
+/** throughStores, also telling what each week's supply of a storage crop takes out of store. */
+export function throughStoresSplit(
+	supply: CropWeekQuantity[],
+	targets: CropWeekQuantity[],
+	stores: CropStore[]
+): StoredSupply {
 	const kept = new Map(stores.filter((c) => c.keepWeeks > 0).map((c) => [c.crop, c]));
-	if (!kept.size) return supply;
+	if (!kept.size) return { supply, fromStore: [] };
 	const byCrop = (rows: CropWeekQuantity[], crop: string): Map<string, number> => {
 		const m = new Map<string, number>();
 		for (const r of rows) if (r.crop === crop) m.set(r.week, (m.get(r.week) ?? 0) + r.quantity);
 		return m;
 	};
 	const out = supply.filter((s) => !kept.has(s.crop));
+	const fromStore: CropWeekQuantity[] = [];
 	for (const [crop, c] of kept) {
-		const { supply: given } = storeSupply(byCrop(supply, crop), byCrop(targets, crop), c.keepWeeks, c.lossPerWeek);
-		for (const [week, quantity] of given) out.push({ crop, week, quantity });
+		const r = storeSupply(byCrop(supply, crop), byCrop(targets, crop), c.keepWeeks, c.lossPerWeek);
+		for (const [week, quantity] of r.supply) out.push({ crop, week, quantity });
+		for (const [week, quantity] of r.fromStore) fromStore.push({ crop, week, quantity });
 	}
-	return out;
+	return { supply: out, fromStore };
 }

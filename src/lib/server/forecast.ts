@@ -15,7 +15,7 @@ import {
 	type TargetInput
 } from '$lib/planning';
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
-import { throughStores } from '$lib/planning/storage';
+import { throughStoresSplit } from '$lib/planning/storage';
 import { todayIn } from '$lib/today';
 import { curveOf } from './crops';
 import { plannedHarvest } from './planned-supply';
@@ -33,6 +33,8 @@ export interface ForecastCrop {
 export interface SeasonForecastRow extends ForecastRow {
 	/** True when logged harvests stand in for the forecast in this (past) week. */
 	actual: boolean;
+	/** The part of `supply` a storage crop sells from store (dug in an earlier week); the rest is from the field. */
+	fromStore: number;
 }
 
 export interface SeasonForecast {
@@ -162,8 +164,14 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 		keepWeeks: Number(c.storage_weeks),
 		lossPerWeek: Number(c.storage_loss_per_week ?? 0)
 	}));
-	const rows = forecastFromWeeklySupply(throughStores(supply, targets, kept), targets) as SeasonForecastRow[];
-	for (const r of rows) r.actual = actual.size > 0 && actual.has(cropWeekKey(r.crop, r.week));
+	const stored = throughStoresSplit(supply, targets, kept);
+	const fromStore = new Map(stored.fromStore.map((q) => [cropWeekKey(q.crop, q.week), q.quantity]));
+	const rows = forecastFromWeeklySupply(stored.supply, targets) as SeasonForecastRow[];
+	for (const r of rows) {
+		const k = cropWeekKey(r.crop, r.week);
+		r.actual = actual.size > 0 && actual.has(k);
+		r.fromStore = Math.min(r.supply, fromStore.get(k) ?? 0);
+	}
 	const timing = { db: t1 - t0, engine: performance.now() - t1 };
 	return { weeks: seasonWeeks(season), currentWeek, crops, rows, demand, swaps, timing };
 }
@@ -179,6 +187,8 @@ export interface ForecastSeries {
 	supply: (number | null)[];
 	demand: number[];
 	actual: number[];
+	/** Storage crops only: fromStore[i] of supply[i] is sold from store (0 where none). */
+	fromStore?: number[];
 }
 
 /** Rows (sorted by crop, then week, all within `weeks`) as one series per crop, in the same order. */
@@ -200,6 +210,7 @@ export function toSeries(rows: SeasonForecastRow[], weeks: string[]): ForecastSe
 		s.supply[i] = r.supply;
 		s.demand[i] = r.demand;
 		if (r.actual) s.actual.push(i);
+		if (r.fromStore > 0) (s.fromStore ??= new Array<number>(weeks.length).fill(0))[i] = r.fromStore;
 	}
 	return out;
 }

@@ -1,7 +1,7 @@
 // Storage crops: a harvest kept in store feeds later weeks' demand, oldest lot first, shrinking
 // by a share each week and thrown out once kept past its time.
 import { describe, expect, it } from 'vitest';
-import { storeSupply } from '$lib/planning/storage';
+import { storeSupply, throughStoresSplit } from '$lib/planning/storage';
 
 const m = (entries: [string, number][]) => new Map(entries);
 
@@ -56,5 +56,50 @@ describe('a storage crop through its store', () => {
 		// Source: ISO 8601; 2026-W53 exists (REFERENCES.md, ISO weeks on the 2026/27 edge).
 		const r = storeSupply(m([['2026-W52', 30]]), m([['2027-W01', 30]]), 4, 0);
 		expect(r.supply.get('2027-W01')).toBe(30);
+	});
+
+	it('tells what a week sells from store apart from what comes from the field that week', () => {
+		// Source: arithmetic by hand, no shrinkage. W28 digs 30 and wants 10: 10 from the field, 20 kept.
+		// W29 digs 5 and wants 15: the older W28 lot goes first (oldest first), so all 15 come from store
+		// and the 5 dug that week stay in store. W30 wants 10: 5 from the W28 lot, 5 from the W29 lot,
+		// all from store.
+		const r = storeSupply(
+			m([
+				['2027-W28', 30],
+				['2027-W29', 5]
+			]),
+			m([
+				['2027-W28', 10],
+				['2027-W29', 15],
+				['2027-W30', 10]
+			]),
+			10,
+			0
+		);
+		expect([...r.supply]).toEqual([
+			['2027-W28', 10],
+			['2027-W29', 15],
+			['2027-W30', 10]
+		]);
+		expect(r.fromStore.get('2027-W28')).toBeUndefined();
+		expect(r.fromStore.get('2027-W29')).toBe(15);
+		expect(r.fromStore.get('2027-W30')).toBe(10);
+	});
+
+	it('splits only the storage crops when the whole farm goes through the stores', () => {
+		const supply = [
+			{ crop: 'garlic', week: '2027-W28', quantity: 40 },
+			{ crop: 'lettuce', week: '2027-W28', quantity: 12 }
+		];
+		const targets = [
+			{ crop: 'garlic', week: '2027-W29', quantity: 40 },
+			{ crop: 'lettuce', week: '2027-W28', quantity: 12 }
+		];
+		const r = throughStoresSplit(supply, targets, [{ crop: 'garlic', keepWeeks: 8, lossPerWeek: 0 }]);
+		expect(r.supply).toEqual([
+			{ crop: 'lettuce', week: '2027-W28', quantity: 12 },
+			{ crop: 'garlic', week: '2027-W29', quantity: 40 }
+		]);
+		expect(r.fromStore).toEqual([{ crop: 'garlic', week: '2027-W29', quantity: 40 }]);
 	});
 });

@@ -24,7 +24,8 @@ export function rowsFromSeries(body: SeriesResponse): ForecastResponse {
 				demand,
 				shortfall: Math.max(0, demand - supply),
 				surplus: Math.max(0, supply - demand),
-				actual: actual.has(i)
+				actual: actual.has(i),
+				fromStore: s.fromStore?.[i] ?? 0
 			});
 		}
 	}
@@ -44,7 +45,8 @@ export function inFarmUnits(body: ForecastResponse, units: UnitSystem): Forecast
 			supply: q(r.supply, r.crop),
 			demand: q(r.demand, r.crop),
 			shortfall: q(r.shortfall, r.crop),
-			surplus: q(r.surplus, r.crop)
+			surplus: q(r.surplus, r.crop),
+			fromStore: q(r.fromStore, r.crop)
 		}))
 	};
 }
