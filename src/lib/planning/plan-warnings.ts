@@ -50,6 +50,15 @@ export function tenderFieldStart(lastSpringFrost: DayNumber, after: number): (ye
 	};
 }
 
+/**
+ * The last day a frost-tender crop with this field date can be picked: the first fall frost after
+ * it (common practice, no published source: a frost kills tomatoes, peppers, beans, squash and
+ * basil, so their harvest ends with the first fall frost). Infinity for a hardy crop.
+ */
+export function tenderHarvestEnd(frostTender: boolean | undefined, fieldDay: DayNumber, season: SeasonFacts): number {
+	return frostTender ? frostDatesFor(fieldDay, season).firstFall : Infinity;
+}
+
 /** The frost dates a planting with this field date is checked against: its year's spring, the first autumn after it. */
 export function frostDatesFor(
 	fieldDay: DayNumber,
@@ -99,10 +108,18 @@ export function successionWarnings(
 						: `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, before the last spring frost (${dated(lastSpring)}${odds}).`
 			});
 		}
+		// A harvest past the frost (dates entered so), or one whose window the frost cut short: the
+		// engine ends a tender crop's harvest at the first fall frost (planting-derive, sizing).
+		const windowEnd = firstHarvest + (variety.harvestWindowDays ?? 1) - 1;
 		if (lastHarvest > firstFall) {
 			out.push({
 				code: 'frost_after_first_fall',
 				message: `Frost-tender crop is still harvesting on ${weekDateOfDay(lastHarvest)}, after the first fall frost (${dated(firstFall)}${odds}).`
+			});
+		} else if (lastHarvest === firstFall && windowEnd > firstFall && firstHarvest <= firstFall) {
+			out.push({
+				code: 'frost_after_first_fall',
+				message: `Frost-tender crop's harvest ends at the first fall frost (${dated(firstFall)}${odds}): its window would run to ${weekDateOfDay(windowEnd)}, ${windowEnd - firstFall} days more.`
 			});
 		}
 	}
