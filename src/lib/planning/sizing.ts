@@ -2,17 +2,11 @@
 // planSeason. See successions.ts for the entry points and storage-sizing.ts for storage crops.
 import { PlanningInputError, requireNonNegativeItem } from './errors';
 import { cumulativeWeights, shareOfDays } from './harvest-curve';
-import { type DayNumber, fromDayNumber, toDayNumber, weekdayOf, yearOfDay } from './day-number';
+import { type DayNumber, toDayNumber, yearOfDay } from './day-number';
 import { type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
-import {
-	type SeasonFacts,
-	successionWarnings,
-	tenderDaysOf,
-	tenderFieldStart,
-	tenderHarvestEnd
-} from './plan-warnings';
+import * as pw from './plan-warnings';
 import { type ResolvedOptions, resolveOptions } from './resolve-options';
 import type { PlanInput, SuccessionRun } from './succession-types';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
@@ -99,15 +93,15 @@ export function planRuns<T>(
 	};
 	const warnings: PlanningWarning[] = [];
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
-	const tenderAfter = tenderDaysOf(farm.tenderDaysAfterFrost);
-	const facts: SeasonFacts = {
+	const tenderAfter = pw.tenderDaysOf(farm.tenderDaysAfterFrost);
+	const facts: pw.SeasonFacts = {
 		...season,
 		temps: o.dtm.temps,
 		tenderDaysAfterFrost: tenderAfter,
 		frostProbabilityPct: farm.frostProbabilityPct
 	};
 	const { mondays, qty } = normaliseTargets(input.targets);
-	const lastFrostOfYear = tenderFieldStart(season.lastSpringFrost, tenderAfter);
+	const lastFrostOfYear = pw.tenderFieldStart(season.lastSpringFrost, tenderAfter);
 	const window = sowingWindowOf(v);
 	const H = v.harvestWindowDays;
 	const P = cumulativeWeights(v.harvestCurve, H);
@@ -170,12 +164,8 @@ export function planRuns<T>(
 		// A tender crop goes out only after the last spring frost of its own year; a degree-day crop
 		// whose heat cannot add up since the last cold spell cannot be ready that week at all.
 		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(fieldDay)) : -Infinity;
-		// ... and is picked until the first fall frost after it, no longer. The plan counts on no
-		// picking in the frost's own week (a week it could give only a day or two of, and the frost
-		// may come any day of it): the harvest it plans ends the Sunday before, unless the frost is a Sunday.
-		const frostEnd = tenderHarvestEnd(v.frostTender, fieldDay, facts);
-		const picked = frostEnd === Infinity || weekdayOf(frostEnd) === 7 ? frostEnd : frostEnd - weekdayOf(frostEnd);
-		const lastDay = Math.min(first + H - 1, picked);
+		// ... and is picked until the week of the first fall frost after it, no longer.
+		const lastDay = Math.min(first + H - 1, pw.plannedPickEnd(v.frostTender, fieldDay, facts));
 		const ok = !(
 			(window !== null && !inMonthDayWindow(fieldDay, window.from, window.to)) ||
 			tooColdToSow(v, fieldDay, o.dtm.temps) !== null ||
@@ -361,7 +351,7 @@ export function planRuns<T>(
 		run.firstWeek = firstWeek;
 		run.endWeek = endWeek;
 		run.warnings = detail
-			? withDtmWarnings(cand.dtmWarnings, successionWarnings(v, cand.fieldDay, start, lastHarvest, facts))
+			? withDtmWarnings(cand.dtmWarnings, pw.successionWarnings(v, cand.fieldDay, start, lastHarvest, facts))
 			: cand.dtmWarnings;
 		if (cand.dtm) run.dtm = cand.dtm;
 		run.peakMonday = base + 7 * cand.sizedOn;
@@ -387,7 +377,7 @@ export function planRuns<T>(
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
 			code: 'unreachable_week',
-			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)${window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : ''}${o.dtm.temps && !window && v.baseTempF !== undefined ? `, or into weeks colder than its base temperature (${v.baseTempF} °F)` : ''}.${v.frostTender ? ' A frost-tender crop is not planned to pick in or after the week of the first fall frost.' : ''}`,
+			message: pw.unreachableMessage(v, o.earliestField, o.today, !!o.dtm.temps, weeks),
 			weeks
 		});
 	}
