@@ -1,5 +1,5 @@
 // Resolves the session and the farm once per request; routes read them from locals.
-import type { Handle } from '@sveltejs/kit';
+import { json, type Handle } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { closeSessions, validateSessionCookie } from '$lib/server/auth';
 import { closeDb } from '$lib/server/db';
@@ -35,7 +35,14 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(databaseUnavailable, session, securityHeaders);
+// An API address no route serves answers in JSON like every other API answer, not with the HTML error page.
+const apiNotFound: Handle = async ({ event, resolve }) => {
+	if (event.route.id === null && event.url.pathname.startsWith('/api/'))
+		return json({ message: 'There is no API route at this address.' }, { status: 404 });
+	return resolve(event);
+};
+
+export const handle = sequence(databaseUnavailable, apiNotFound, session, securityHeaders);
 
 // A database that cannot be reached is a 503 with Retry-After, not a 500 (src/lib/server/unavailable.ts).
 export const handleError = handleDatabaseError;

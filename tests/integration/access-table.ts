@@ -475,6 +475,7 @@ export const accessTable: AccessRow[] = [
 		expect: api(['owner'], 204),
 		why: 'a throwaway planting per probe'
 	},
+	{ key: 'api/plantings/[id]/cover GET', url: (f) => `/api/plantings/${f.plantingId}/cover`, expect: everyMemberApi },
 	{ key: 'api/seasons/[id]/boxes GET', url: (f) => `/api/seasons/${S(f)}/boxes`, expect: everyMemberApi },
 	{
 		key: 'api/seasons/[id]/boxes/swaps POST',

@@ -173,6 +173,15 @@ export async function getCrop(farmId: number, cropId: number): Promise<CropView 
 	return toCrop(r, await listVarieties(farmId));
 }
 
+/** The harvest unit of each of these crops of the farm (a crop of another farm is left out). */
+export async function harvestUnits(farmId: number, cropIds: number[]): Promise<Map<number, string>> {
+	const rows = await db()('crops')
+		.where({ farm_id: farmId })
+		.whereIn('id', cropIds)
+		.select<{ id: number; harvest_unit: string }[]>('id', 'harvest_unit');
+	return new Map(rows.map((r) => [r.id, r.harvest_unit]));
+}
+
 export class LibraryInputError extends Error {
 	constructor(
 		public field: string,

@@ -7,6 +7,7 @@ import { db } from './db';
 import { listVarieties } from './crops';
 import { targetInput } from './demand';
 import type { PlanPreview } from './plan';
+import { proposedKey } from './plan-cover';
 import type { Season } from './seasons';
 
 /** One planting as the change lists show it. */
@@ -24,6 +25,8 @@ export interface ChangeRow {
 	method: string;
 	/** Why it has no bed (added plantings only). */
 	reason: string | null;
+	/** A proposed planting's key in the preview's cover (plan-cover.ts). */
+	key?: string;
 }
 
 export interface Totals {
@@ -164,7 +167,9 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 		method: r.method,
 		reason: null
 	});
+	const indexOf = new Map(result.plan.plantings.map((p, i) => [p, i]));
 	const proposed = (p: ProposedPlanting): ChangeRow => ({
+		key: proposedKey(indexOf.get(p) ?? -1),
 		id: null,
 		cropId: Number(p.cropId),
 		varietyId: Number(p.varietyId),

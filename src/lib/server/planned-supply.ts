@@ -19,6 +19,7 @@ import {
 } from '$lib/planning';
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { type CropStore, throughStores } from '$lib/planning/storage';
+import { type CropCover, cropCover } from '$lib/planning/cover';
 import type { TargetInput } from '$lib/planning';
 
 export interface PlannedPlanting {
@@ -70,4 +71,22 @@ export function plannedSupply(
 	if (!stores.some((s) => s.keepWeeks > 0)) return field;
 	const harvested = field.filter((r) => r.supply > 0).map((r) => ({ crop: r.crop, week: r.week, quantity: r.supply }));
 	return forecastFromWeeklySupply(throughStores(harvested, targets, stores), targets);
+}
+
+/**
+ * Who covers each crop-week under the same rule (planning/cover.ts): the targets and each
+ * planting's share, storage crops through their store. The shares of a week add up to
+ * plannedSupply's supply for it.
+ */
+export function plannedCover(
+	plantings: (PlannedPlanting & { key: string })[],
+	targets: CropWeekQuantity[],
+	stores: CropStore[] = []
+): CropCover[] {
+	const live = plantings.filter((p) => p.lastHarvest >= p.firstHarvest);
+	return cropCover(
+		live.map((p) => ({ ...plannedHarvest(p), key: p.key })),
+		targets,
+		stores
+	);
 }

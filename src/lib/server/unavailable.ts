@@ -77,12 +77,16 @@ function unavailable(event: RequestEvent): Response {
 }
 
 /** Marks the request when a load or handler failed for want of the database. */
-export const handleDatabaseError: HandleServerError = ({ error, event }) => {
+export const handleDatabaseError: HandleServerError = ({ error, event, status }) => {
 	if (isDatabaseUnavailable(error)) {
 		seen.add(event.locals);
 		console.error('[furrowcast] database unavailable:', (error as Error)?.message ?? error);
 		return { message: UNAVAILABLE_MESSAGE };
 	}
+	// An address with no page behind it (or a method a route does not take) is the visitor's slip,
+	// not a fault of ours: say what it is instead of "Internal Error".
+	if (status === 404) return { message: 'There is no page at this address.' };
+	if (status < 500) return { message: 'This address does not take that request.' };
 	console.error(error);
 	return { message: 'Internal Error' };
 };

@@ -7,23 +7,23 @@ import { createSwap, matching, setShortFill, undoSwap } from '$lib/server/boxes'
 import { shortFillSchema, swapSchema } from '$lib/schemas/forecast';
 import { fieldErrors } from '$lib/schemas/common';
 import { planFreshness } from '$lib/server/seasons';
-import { getCrop } from '$lib/server/crops';
+import { harvestUnits } from '$lib/server/crops';
 import { displayPrefs } from '$lib/server/farms';
 import { storedQuantity } from '$lib/format';
 import type { SwapInput } from '$lib/schemas/forecast';
 
 /** The form's quantities are in the farm's units (kg on a metric farm); the swap keeps canonical ones. */
 async function swapInFarmUnits(farmId: number, swap: SwapInput): Promise<SwapInput> {
-	const [{ unitSystem }, from, to] = await Promise.all([
+	const [{ unitSystem }, units] = await Promise.all([
 		displayPrefs(farmId),
-		getCrop(farmId, swap.fromCropId),
-		getCrop(farmId, swap.toCropId)
+		harvestUnits(farmId, [swap.fromCropId, swap.toCropId])
 	]);
+	const unit = (crop: number): string => units.get(crop) ?? '';
 	return {
 		...swap,
-		quantity: storedQuantity(swap.quantity, from?.harvestUnit ?? '', unitSystem),
+		quantity: storedQuantity(swap.quantity, unit(swap.fromCropId), unitSystem),
 		toQuantity:
-			swap.toQuantity === undefined ? undefined : storedQuantity(swap.toQuantity, to?.harvestUnit ?? '', unitSystem)
+			swap.toQuantity === undefined ? undefined : storedQuantity(swap.toQuantity, unit(swap.toCropId), unitSystem)
 	};
 }
 

@@ -1,5 +1,6 @@
 // The plan screen's requests: the options as the plan API takes them, and the answers.
 import type { PreviewDetails } from '$lib/server/plan-screen';
+import type { PreviewCover } from '$lib/server/plan-cover';
 import type { LastApply } from '$lib/server/plan-history';
 
 export interface ShareDraft {
@@ -73,6 +74,9 @@ export interface PreviewAnswer {
 	warnings: { code: string; message: string; cropId?: string; key?: string; weeks?: string[] }[];
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 	changes: PreviewDetails;
+	cover: PreviewCover;
+	/** The proposed plantings, in the order the cover's `n{index}` keys count them. */
+	plantings: { varietyId: string; bedId: string | null; startFt: number; fieldDate: string }[];
 }
 
 export interface PlanState {

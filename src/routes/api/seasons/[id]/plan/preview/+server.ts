@@ -7,10 +7,12 @@ import { planRequestSchema } from '$lib/schemas/plan';
 import { preview } from '$lib/server/plan';
 import { planFingerprint } from '$lib/server/plan-history';
 import { describePreview } from '$lib/server/plan-screen';
+import { previewCover } from '$lib/server/plan-cover';
 
 /**
  * Runs the engine on the season's targets and returns the proposal; writes nothing. `fingerprint`
- * names the state it was made from (send it back with apply); `changes` is what the plan screen lists.
+ * names the state it was made from (send it back with apply); `changes` is what the plan screen lists;
+ * `cover` who covers each crop-week after the apply, per planting (plan-cover.ts).
  */
 export const POST: RequestHandler = async (event) => {
 	const { farm } = requireCan(event, 'plan.edit');
@@ -22,7 +24,10 @@ export const POST: RequestHandler = async (event) => {
 	// Taken before the run: if anything moves meanwhile, the apply from this preview is refused.
 	const fingerprint = await planFingerprint(farm.id, season.id);
 	const result = await preview(farm.id, season, body.data);
-	const changes = await describePreview(farm.id, season, result);
+	const [changes, cover] = await Promise.all([
+		describePreview(farm.id, season, result),
+		previewCover(farm.id, season, result.plan.plantings)
+	]);
 	return json({
 		season,
 		kept: result.kept,
@@ -30,6 +35,7 @@ export const POST: RequestHandler = async (event) => {
 		...result.plan,
 		names: result.names,
 		fingerprint,
-		changes
+		changes,
+		cover
 	});
 };
