@@ -337,3 +337,87 @@ describe('one planned supply', () => {
 		expect([...tasks.entries()].filter(([, t]) => t.sum > 0.01).map(([k]) => k)).toEqual([]);
 	});
 });
+
+describe("other seasons' plantings harvesting in this season", () => {
+	it('last autumn’s garlic, dug this July, is on the Forecast and Weekly tasks sheets, not the Plantings sheet', async () => {
+		const db = testDb();
+		const garlic = (await db('crops').where({ farm_id: farm.farmId, name: 'Garlic' }).first('id')).id;
+		const [season2026] = await db('seasons').insert({
+			farm_id: farm.farmId,
+			year: 2026,
+			name: 'Test season 2026',
+			starts_on: '2026-01-01',
+			ends_on: '2026-12-31'
+		});
+		const [variety] = await db('varieties').insert({
+			farm_id: farm.farmId,
+			crop_id: garlic,
+			name: 'Test Hardneck',
+			method: 'direct',
+			days_to_maturity: 260,
+			days_in_tray: 0,
+			harvest_window_days: 7,
+			yield_per_bed_foot: 3,
+			rows_per_bed: 4,
+			in_row_spacing_in: 6,
+			seeds_per_spot: 1,
+			germination_rate: 0.95,
+			seeds_per_gram: 0.2,
+			margin: 0.05
+		});
+		const w1 = await db('beds').where({ farm_id: farm.farmId, name: 'W1' }).first('id');
+		// Planted Fri 15 Oct 2026 in the 2026 season; dug Mon 5 – Sun 11 Jul 2027 = 2027-W27 (W01 starts Mon 4 Jan
+		// 2027; + 26 weeks = 5 Jul). 20 ft × 3 heads a bed-foot = 60 heads, all in W27. Garlic has no demand here.
+		const [planting] = await db('plantings').insert({
+			farm_id: farm.farmId,
+			season_id: season2026,
+			variety_id: variety,
+			bed_id: w1.id,
+			start_ft: 0,
+			length_ft: 20,
+			rows: 4,
+			in_row_spacing_in: 6,
+			seeds_per_spot: 1,
+			method: 'direct',
+			field_date: '2026-10-15',
+			first_harvest: '2027-07-05',
+			last_harvest: '2027-07-11',
+			expected_yield: 60,
+			seeds_needed: 168,
+			status: 'sown'
+		});
+		try {
+			const got = await download(farm.client, seasonId);
+			expect(got.res.status).toBe(200);
+			const book = await loadWorkbook(got.bytes);
+			const read = (name: string): Record<string, unknown>[] => {
+				const ws = book.getWorksheet(name)!;
+				const head = (ws.getRow(1).values as unknown[]).slice(1) as string[];
+				const out: Record<string, unknown>[] = [];
+				for (let n = 2; n <= ws.rowCount; n++) {
+					const vals = ws.getRow(n).values as unknown[];
+					out.push(Object.fromEntries(head.map((h, i) => [h, vals[i + 1] ?? null])));
+				}
+				return out;
+			};
+			const forecast = read('Forecast').filter((r) => r.Crop === 'Garlic');
+			expect(forecast).toEqual([
+				expect.objectContaining({ 'Week (ISO)': '2027-W27', 'Planned harvest': 60, Demand: 0, Surplus: 60 })
+			]);
+			const tasks = read('Weekly tasks').filter((r) => r.Crop === 'Garlic');
+			// Its harvest only: the sowing is the 2026 workbook's work.
+			expect(tasks).toEqual([
+				expect.objectContaining({ 'Week (ISO)': '2027-W27', Task: 'Harvest', Bed: 'W1', Quantity: 60, Unit: 'head' })
+			]);
+			expect(read('Plantings').some((r) => r.Crop === 'Garlic')).toBe(false);
+			// The season's own figures are unchanged by it: carrot W27 still 41.67 lb.
+			expect(read('Forecast').find((r) => r.Crop === 'Carrot' && r['Week (ISO)'] === '2027-W27')).toMatchObject({
+				'Planned harvest': 41.67
+			});
+		} finally {
+			await db('plantings').where({ id: planting }).delete();
+			await db('varieties').where({ id: variety }).delete();
+			await db('seasons').where({ id: season2026 }).delete();
+		}
+	});
+});

@@ -108,6 +108,25 @@ export async function listForSeason(farmId: number, seasonId: number): Promise<P
 	).map(toView);
 }
 
+/**
+ * The farm's plantings of other seasons whose harvest falls in `season`'s dates, failed ones left
+ * out: last autumn's garlic dug this summer supplies this season's weeks (the workbook's Forecast
+ * and Weekly tasks count them, as the Forecast page does).
+ */
+export async function listHarvestingFromOtherSeasons(
+	farmId: number,
+	season: { id: number; startsOn: string; endsOn: string }
+): Promise<PlantingView[]> {
+	return (
+		await base(farmId)
+			.andWhereNot('p.season_id', season.id)
+			.andWhereNot('p.status', 'failed')
+			.andWhere('p.first_harvest', '<=', season.endsOn)
+			.andWhere('p.last_harvest', '>=', season.startsOn)
+			.orderBy([{ column: 'p.first_harvest' }, { column: 'p.id' }])
+	).map(toView);
+}
+
 export interface WeekTasks {
 	traySowing: PlantingView[];
 	directSowing: PlantingView[];

@@ -92,7 +92,9 @@ const walkKey = (block: number | null, bed: number | null, startFt: number): num
  */
 function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
 	const out: TaskRow[] = [];
-	for (const p of d.plantings) {
+	// Other seasons' plantings harvesting in this season (last autumn's garlic) add their harvests only.
+	const others = new Set(d.otherHarvests.map((p) => p.id));
+	for (const p of [...d.plantings, ...d.otherHarvests]) {
 		if (p.status === 'failed') continue;
 		const s = seeds.get(p.id);
 		const walk = walkKey(p.blockPosition, p.bedPosition, p.startFt);
@@ -117,7 +119,7 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 				]
 			});
 		};
-		if (p.traySowDate)
+		if (p.traySowDate && !others.has(p.id))
 			push(
 				toDayNumber(p.traySowDate),
 				'Tray sowing',
@@ -125,8 +127,11 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 				true
 			);
 		const field = toDayNumber(p.fieldDate);
-		if (p.method === 'direct') push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
-		else push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
+		// Another season's planting: its sowing belongs to its own season's workbook.
+		const sown = !others.has(p.id);
+		if (sown && p.method === 'direct')
+			push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
+		else if (sown) push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
 		if (p.status === 'finished') continue;
 		// The planned supply (planned-supply.ts), as on the Forecast sheet: a task on the first
 		// harvest day in each week.
@@ -143,11 +148,14 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 }
 
 /** A planting under the planned-supply rule: its variety's current yield, window and curve. */
-function plannedOf(p: SeasonData['plantings'][number], varieties: Map<number, VarietyView>): PlannedPlanting | null {
+function plannedOf(
+	p: Pick<SeasonData['plantings'][number], 'varietyId' | 'firstHarvest' | 'lastHarvest' | 'lengthFt'>,
+	varieties: Map<number, VarietyView>
+): PlannedPlanting | null {
 	const v = varieties.get(p.varietyId);
 	if (!v || p.lastHarvest < p.firstHarvest) return null;
 	return {
-		crop: String(p.cropId),
+		crop: String(v.cropId),
 		firstHarvest: p.firstHarvest,
 		lastHarvest: p.lastHarvest,
 		lengthFt: p.lengthFt,
@@ -157,10 +165,13 @@ function plannedOf(p: SeasonData['plantings'][number], varieties: Map<number, Va
 	};
 }
 
-/** The planned supply (planned-supply.ts) of the season's plantings against the derived weekly targets. */
+/**
+ * The planned supply (planned-supply.ts) of the season's plantings, and of other seasons' plantings
+ * harvesting in its dates, against the derived weekly targets.
+ */
 function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[] {
 	const plantings: PlannedPlanting[] = [];
-	for (const p of d.plantings) {
+	for (const p of [...d.plantings, ...d.otherHarvests]) {
 		if (p.status === 'failed') continue;
 		const planned = plannedOf(p, varieties);
 		if (planned) plantings.push(planned);

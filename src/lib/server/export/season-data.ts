@@ -8,6 +8,7 @@ import * as beds from '../beds';
 import { listVarieties, type VarietyView } from '../crops';
 import { targetInput } from '../demand';
 import type { Season } from '../seasons';
+import { listHarvestingFromOtherSeasons, type PlantingView } from '../plantings';
 
 export interface ExportPlanting {
 	id: number;
@@ -71,6 +72,8 @@ export interface SeasonData {
 	currency: string;
 	season: Season;
 	plantings: ExportPlanting[];
+	/** Other seasons' plantings harvesting in this season's dates: on Weekly tasks (harvest) and Forecast only. */
+	otherHarvests: PlantingView[];
 	crops: CropRow[];
 	varieties: VarietyView[];
 	beds: ExportBed[];
@@ -147,9 +150,10 @@ async function listCrops(farmId: number): Promise<CropRow[]> {
 }
 
 export async function loadSeasonData(farmId: number, season: Season): Promise<SeasonData> {
-	const [farm, plantings, crops, varieties, bedList, blocks, demand] = await Promise.all([
+	const [farm, plantings, otherHarvests, crops, varieties, bedList, blocks, demand] = await Promise.all([
 		farms.get(farmId),
 		listPlantings(farmId, season.id),
+		listHarvestingFromOtherSeasons(farmId, season),
 		listCrops(farmId),
 		listVarieties(farmId),
 		beds.list(farmId),
@@ -164,6 +168,7 @@ export async function loadSeasonData(farmId: number, season: Season): Promise<Se
 		currency: farm.currency ?? 'USD',
 		season,
 		plantings,
+		otherHarvests,
 		crops,
 		varieties,
 		beds: bedList.map((b) => ({
