@@ -22,7 +22,7 @@ import { type CropStore, throughStores } from '$lib/planning/storage';
 import { type CropCover, cropCover } from '$lib/planning/cover';
 import type { TargetInput } from '$lib/planning';
 import type { VarietyView } from '$lib/types';
-import { toEngineVariety } from '$lib/varieties';
+import { toEngineVariety } from '$lib/engine-inputs';
 
 export interface PlannedPlanting {
 	key?: string;

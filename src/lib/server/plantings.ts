@@ -17,6 +17,7 @@ import {
 import { deriveRow, storedHarvestDays, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
 import type { TaskKind } from '$lib/plantings/tasks';
 import { whereTask } from './planting-tasks';
+import { engineFarm } from '$lib/engine-inputs';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
@@ -173,12 +174,7 @@ export async function gridContext(farmId: number): Promise<GridContext> {
 			lengthFt: b.lengthFt
 		})),
 		farm: {
-			lastSpringFrost: farm.lastSpringFrost,
-			firstFallFrost: farm.firstFallFrost,
-			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-			frostProbabilityPct: farm.frostProbabilityPct,
-			latitude: farm.latitude,
-			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t])),
+			...engineFarm(farm, temps),
 			turnaroundDays: farm.turnaroundDays,
 			bedFootIncrement: farm.bedFootIncrement
 		}

@@ -3,7 +3,7 @@
 // Values are plain: dates as 'YYYY-MM-DD' (the writer turns them into real Excel dates),
 // money in dollars, rates as fractions.
 import type { SeedNeed } from '$lib/planning';
-import { plantingSeed } from '$lib/varieties';
+import { plantingSeed } from '$lib/engine-inputs';
 import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';

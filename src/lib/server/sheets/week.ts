@@ -2,7 +2,7 @@
 // harvest, with the figures the crew needs (cells, trays, seed grams, plants, expected harvest and
 // who it is for), grouped by block and bed in walking order. Figures come from the engine.
 import type { SeedNeed } from '$lib/planning';
-import { plantingSeed } from '$lib/varieties';
+import { plantingSeed } from '$lib/engine-inputs';
 import { plannedByWeek, plannedOf } from '../planned-supply';
 import { db } from '../db';
 import * as farms from '../farms';
