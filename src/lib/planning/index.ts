@@ -84,6 +84,14 @@ export {
 	type SeasonVariety,
 	type VarietyShare
 } from './season';
-export { emergenceDays, type EmergenceTable } from './emergence';
+export {
+	emergenceDays,
+	emergenceTableOf,
+	soilForEmergence,
+	EMERGENCE_LIMIT_DAYS,
+	EMERGENCE_TABLES,
+	type EmergenceTable
+} from './emergence';
+export { defaultEarliestFieldDate, soilMinimumOf } from './sowing-window';
 export * from './actuals';
 export * from './season-shift';

@@ -1,9 +1,11 @@
-import { type DayNumber, civilFromDays, daysFromCivil, weekdayOf, yearOfDay } from './day-number';
+import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber, weekdayOf, yearOfDay } from './day-number';
+import { varietyLabel } from './variety';
 import { requireNonNegativeInteger } from './errors';
 import { isoWeekOfDay, weekDateOfDay } from './iso-week';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
-import { sowingWindowWarning, tooColdToSow } from './sowing-window';
+import { EMERGENCE_LIMIT_DAYS } from './emergence';
+import { soilMinimumOf, sowingWindowWarning, tooColdToSow } from './sowing-window';
 
 export interface SeasonFacts {
 	/**
@@ -50,6 +52,25 @@ export function tenderFieldStart(lastSpringFrost: DayNumber, after: number): (ye
 	};
 }
 
+/**
+ * The last day a frost-tender crop with this field date can be picked: the first fall frost after
+ * it (common practice, no published source: a frost kills tomatoes, peppers, beans, squash and
+ * basil, so their harvest ends with the first fall frost). Infinity for a hardy crop.
+ */
+export function tenderHarvestEnd(frostTender: boolean | undefined, fieldDay: DayNumber, season: SeasonFacts): number {
+	return frostTender ? frostDatesFor(fieldDay, season).firstFall : Infinity;
+}
+
+/**
+ * The last day the plan counts on picking a crop with this field date: for a frost-tender crop the
+ * Sunday before the week of the first fall frost (the frost's own week could give only a day or
+ * two, and the frost may come any day of it), or the frost day when it is a Sunday; else Infinity.
+ */
+export function plannedPickEnd(frostTender: boolean | undefined, fieldDay: DayNumber, season: SeasonFacts): number {
+	const end = tenderHarvestEnd(frostTender, fieldDay, season);
+	return end === Infinity || weekdayOf(end) === 7 ? end : end - weekdayOf(end);
+}
+
 /** The frost dates a planting with this field date is checked against: its year's spring, the first autumn after it. */
 export function frostDatesFor(
 	fieldDay: DayNumber,
@@ -80,10 +101,14 @@ export function successionWarnings(
 	const outside = sowingWindowWarning(variety, fieldDay);
 	if (outside) out.push(outside);
 	const cold = tooColdToSow(variety, fieldDay, season.temps);
-	if (cold !== null)
+	const soil = cold === null ? null : soilMinimumOf(variety);
+	if (cold !== null && soil !== null)
 		out.push({
 			code: 'too_cold_to_sow',
-			message: `${variety.method === 'direct' ? 'Sown' : 'Set out'} on ${weekDateOfDay(fieldDay)}, when the weekly mean (${cold} °F) is below this crop's base temperature of ${variety.baseTempF} °F: too cold for it to come up or take; sow later.`
+			message:
+				soil.source === 'emergence'
+					? `Sown on ${weekDateOfDay(fieldDay)}, when the weekly mean (${cold} °F) is under the ${soil.tempF} °F at which its seed comes up within ${EMERGENCE_LIMIT_DAYS} days (emergence table): too cold; sow later.`
+					: `${variety.method === 'direct' ? 'Sown' : 'Set out'} on ${weekDateOfDay(fieldDay)}, when the weekly mean (${cold} °F) is below this crop's base temperature of ${variety.baseTempF} °F: too cold for it to come up or take; sow later.`
 		});
 	if (variety.frostTender) {
 		const { lastSpring, firstFall } = frostDatesFor(fieldDay, season);
@@ -99,10 +124,18 @@ export function successionWarnings(
 						: `Frost-tender crop goes into the field on ${weekDateOfDay(fieldDay)}, before the last spring frost (${dated(lastSpring)}${odds}).`
 			});
 		}
+		// A harvest past the frost (dates entered so), or one whose window the frost cut short: the
+		// engine ends a tender crop's harvest at the first fall frost (planting-derive, sizing).
+		const windowEnd = firstHarvest + (variety.harvestWindowDays ?? 1) - 1;
 		if (lastHarvest > firstFall) {
 			out.push({
 				code: 'frost_after_first_fall',
 				message: `Frost-tender crop is still harvesting on ${weekDateOfDay(lastHarvest)}, after the first fall frost (${dated(firstFall)}${odds}).`
+			});
+		} else if (lastHarvest === firstFall && windowEnd > firstFall && firstHarvest <= firstFall) {
+			out.push({
+				code: 'frost_after_first_fall',
+				message: `Frost-tender crop's harvest ends at the first fall frost (${dated(firstFall)}${odds}): its window would run to ${weekDateOfDay(windowEnd)}, ${windowEnd - firstFall} days more.`
 			});
 		}
 	}
@@ -137,4 +170,34 @@ export function successionWarnings(
 	}
 	// An exact-size copy: a list grown by push keeps room for 16 more, and a season plan keeps thousands.
 	return out.length === 0 ? NO_WARNINGS : out.slice();
+}
+
+/** The `unreachable_week` warning's text: why no succession of `v` can be ready in `weeks`. */
+export function unreachableMessage(
+	v: Variety,
+	earliestField: DayNumber | undefined,
+	today: DayNumber | undefined,
+	hasTemps: boolean,
+	weeks: string[]
+): string {
+	const window = v.sowFrom !== undefined && v.sowTo !== undefined;
+	const before = [
+		earliestField !== undefined ? `the earliest field date ${fromDayNumber(earliestField)}` : '',
+		today !== undefined ? `today (${fromDayNumber(today)})` : ''
+	]
+		.filter(Boolean)
+		.join(' or ');
+	const soil = hasTemps && !window ? soilMinimumOf(v) : null;
+	return (
+		`No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early ` +
+		`(before ${before ? `${before}, ` : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)` +
+		(window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : '') +
+		(soil === null
+			? ''
+			: soil.source === 'base'
+				? `, or into weeks colder than its base temperature (${soil.tempF} °F)`
+				: `, or into weeks under the ${soil.tempF} °F its seed needs to come up within ${EMERGENCE_LIMIT_DAYS} days`) +
+		'.' +
+		(v.frostTender ? ' A frost-tender crop is not planned to pick in or after the week of the first fall frost.' : '')
+	);
 }

@@ -14,7 +14,7 @@ import { fromDayNumber, toDayNumber } from './day-number';
 import { maturityFrom, type EffectiveDtm } from './effective-dtm';
 import { cumulativeWeights } from './harvest-curve';
 import { formatWeekDate } from './iso-week';
-import { successionWarnings } from './plan-warnings';
+import { successionWarnings, tenderHarvestEnd } from './plan-warnings';
 import { explainSeed } from './explain';
 import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
 import type { ExplainStep, PlanningWarning, SowingMethod, Variety } from './types';
@@ -126,24 +126,26 @@ export function derivePlanting(
 		p.harvestDays != null && Number.isInteger(p.harvestDays) && p.harvestDays >= 1 && p.harvestDays < H
 			? p.harvestDays
 			: H;
-	const last = first + kept - 1;
+	const season = {
+		lastSpringFrost: ctx.frost.last,
+		firstFallFrost: ctx.frost.first,
+		tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
+		frostProbabilityPct: farm.frostProbabilityPct,
+		temps: ctx.temps
+	};
+	// A frost-tender crop's harvest ends at the first fall frost (one ready only after it is left
+	// as it is, with the frost warning: it yields nothing the grower can pick).
+	const frostEnd = tenderHarvestEnd(v.frostTender, field, season);
+	const last = frostEnd >= first ? Math.min(first + kept - 1, frostEnd) : first + kept - 1;
+	const picked = last - first + 1;
 	const tray = p.method === 'transplant' ? field - (v.daysInTray ?? 0) : null;
 	// The share of the window's yield picked by the last harvest (all of it unless the harvest stops early).
-	const share = kept === H ? 1 : cumulativeWeights(v.harvestCurve, H)[kept];
+	const share = picked === H ? 1 : cumulativeWeights(v.harvestCurve, H)[picked];
 	const expectedYield = Math.round(p.lengthFt * v.yieldPerBedFoot * share * 100) / 100;
 	const weeklyYield = Math.round((expectedYield / (v.harvestWindowDays / 7)) * 100) / 100;
 	const seedInput = seedInputOf(p, v);
 	const seed = seedNeed(seedInput);
-	const warnings = [
-		...dtm.warnings,
-		...successionWarnings(v, field, first, last, {
-			lastSpringFrost: ctx.frost.last,
-			firstFallFrost: ctx.frost.first,
-			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-			frostProbabilityPct: farm.frostProbabilityPct,
-			temps: ctx.temps
-		})
-	];
+	const warnings = [...dtm.warnings, ...successionWarnings(v, field, first, last, season)];
 	const fieldLabel = p.method === 'direct' ? 'sowing date' : 'transplant date';
 	const out: DerivedPlanting = {
 		traySowDate: tray === null ? null : fromDayNumber(tray),
@@ -190,9 +192,11 @@ export function derivePlanting(
 			label: 'last harvest',
 			value: formatWeekDate(fromDayNumber(last)),
 			formula:
-				kept === H
-					? `first harvest + ${H} − 1 days`
-					: `first harvest + ${kept} − 1 days (the harvest stops before its ${H}-day window ends)`
+				picked < kept
+					? `the first fall frost, ${picked} days into the harvest (a frost-tender crop is picked until then)`
+					: kept === H
+						? `first harvest + ${H} − 1 days`
+						: `first harvest + ${kept} − 1 days (the harvest stops before its ${H}-day window ends)`
 		}
 	];
 	if (tray !== null)

@@ -2,11 +2,11 @@
 // planSeason. See successions.ts for the entry points and storage-sizing.ts for storage crops.
 import { PlanningInputError, requireNonNegativeItem } from './errors';
 import { cumulativeWeights, shareOfDays } from './harvest-curve';
-import { type DayNumber, fromDayNumber, toDayNumber, yearOfDay } from './day-number';
+import { type DayNumber, toDayNumber, yearOfDay } from './day-number';
 import { type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
-import { type SeasonFacts, successionWarnings, tenderDaysOf, tenderFieldStart } from './plan-warnings';
+import * as pw from './plan-warnings';
 import { type ResolvedOptions, resolveOptions } from './resolve-options';
 import type { PlanInput, SuccessionRun } from './succession-types';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
@@ -31,9 +31,12 @@ interface Candidate {
 	fieldDay: DayNumber;
 	/** First harvest derived forwards from fieldDay: the candidate's Monday or a day or two after. */
 	first: DayNumber;
+	/** The window's last day: first + window − 1, or the first fall frost for a tender crop if sooner. */
+	lastDay: DayNumber;
 	/**
 	 * Per-foot supply in the candidate's weeks when its harvest starts after its Monday (the window's
-	 * last days, past the candidate's weeks, are left out: counting short is the safe side); else undefined.
+	 * last days, past the candidate's weeks, are left out: counting short is the safe side) or the
+	 * first fall frost ends it early (a tender crop: nothing after the frost); else undefined.
 	 */
 	coef: Float64Array | undefined;
 	trayDay: DayNumber | undefined;
@@ -90,15 +93,15 @@ export function planRuns<T>(
 	};
 	const warnings: PlanningWarning[] = [];
 	const o = resolveOptions(v, farm, input.options ?? {}, warnings, temps);
-	const tenderAfter = tenderDaysOf(farm.tenderDaysAfterFrost);
-	const facts: SeasonFacts = {
+	const tenderAfter = pw.tenderDaysOf(farm.tenderDaysAfterFrost);
+	const facts: pw.SeasonFacts = {
 		...season,
 		temps: o.dtm.temps,
 		tenderDaysAfterFrost: tenderAfter,
 		frostProbabilityPct: farm.frostProbabilityPct
 	};
 	const { mondays, qty } = normaliseTargets(input.targets);
-	const lastFrostOfYear = tenderFieldStart(season.lastSpringFrost, tenderAfter);
+	const lastFrostOfYear = pw.tenderFieldStart(season.lastSpringFrost, tenderAfter);
 	const window = sowingWindowOf(v);
 	const H = v.harvestWindowDays;
 	const P = cumulativeWeights(v.harvestCurve, H);
@@ -161,6 +164,8 @@ export function planRuns<T>(
 		// A tender crop goes out only after the last spring frost of its own year; a degree-day crop
 		// whose heat cannot add up since the last cold spell cannot be ready that week at all.
 		const frostFree = v.frostTender ? lastFrostOfYear(yearOfDay(fieldDay)) : -Infinity;
+		// ... and is picked until the week of the first fall frost after it, no longer.
+		const lastDay = Math.min(first + H - 1, pw.plannedPickEnd(v.frostTender, fieldDay, facts));
 		const ok = !(
 			(window !== null && !inMonthDayWindow(fieldDay, window.from, window.to)) ||
 			tooColdToSow(v, fieldDay, o.dtm.temps) !== null ||
@@ -169,16 +174,18 @@ export function planRuns<T>(
 			fieldDay < frostFree ||
 			dtm.source === 'gdd_cold' ||
 			first < start ||
-			first > start + 6
+			first > start + 6 ||
+			first > lastDay
 		);
 		cand = {
 			ok,
 			fieldDay,
 			first,
-			coef: first > start ? shiftedCoefficients(first - start) : undefined,
+			lastDay,
+			coef: first > start || lastDay < first + H - 1 ? shiftedCoefficients(first - start, lastDay - first) : undefined,
 			trayDay,
 			// Held until the window ends, or the last target week if sooner (the harvest stops there).
-			occupancy: Math.min(first + H, lastSunday + 1) - fieldDay,
+			occupancy: Math.min(lastDay + 1, lastSunday + 1) - fieldDay,
 			dtmWarnings: dtm.warnings.length === 0 ? NONE : [...dtm.warnings],
 			dtm: detail ? dtm : undefined,
 			raw: 0,
@@ -193,9 +200,10 @@ export function planRuns<T>(
 	// (It depends only on w − c: worked out once per variety.)
 	const byOffset = new Float64Array(span);
 	for (let k = 0; k < span; k++) byOffset[k] = Y * shareOfDays(P, 7 * k, 7 * k + 6);
-	function shiftedCoefficients(late: number): Float64Array {
+	/** Per-foot supply by week of a harvest starting `late` days after its Monday and picked to day `lastRel` of it. */
+	function shiftedCoefficients(late: number, lastRel: number): Float64Array {
 		const out = new Float64Array(span);
-		for (let k = 0; k < span; k++) out[k] = Y * shareOfDays(P, 7 * k - late, 7 * k + 6 - late);
+		for (let k = 0; k < span; k++) out[k] = Y * shareOfDays(P, 7 * k - late, Math.min(7 * k + 6 - late, lastRel));
 		return out;
 	}
 	const coefOf = (c: number): Float64Array => (c >= cMin && c < nWeeks ? cands[c - cMin]?.coef : undefined) ?? byOffset;
@@ -328,7 +336,7 @@ export function planRuns<T>(
 		const cand = cands[c - cMin];
 		if (!cand || cand.feet <= 0) continue;
 		const start = cand.first;
-		const lastHarvest = Math.min(start + H - 1, lastSunday);
+		const lastHarvest = Math.min(cand.lastDay, lastSunday);
 		run.yieldShare = lastHarvest === start + H - 1 ? 1 : P[lastHarvest - start + 1];
 		while (firstWeek < mondays.length && mondays[firstWeek] < base + 7 * c) firstWeek++;
 		let endWeek = firstWeek;
@@ -343,7 +351,7 @@ export function planRuns<T>(
 		run.firstWeek = firstWeek;
 		run.endWeek = endWeek;
 		run.warnings = detail
-			? withDtmWarnings(cand.dtmWarnings, successionWarnings(v, cand.fieldDay, start, lastHarvest, facts))
+			? withDtmWarnings(cand.dtmWarnings, pw.successionWarnings(v, cand.fieldDay, start, lastHarvest, facts))
 			: cand.dtmWarnings;
 		if (cand.dtm) run.dtm = cand.dtm;
 		run.peakMonday = base + 7 * cand.sizedOn;
@@ -369,7 +377,7 @@ export function planRuns<T>(
 		const weeks = unreachable.map((m) => isoWeekOfDay(m));
 		warnings.push({
 			code: 'unreachable_week',
-			message: `No succession of ${varietyLabel(v)} can be ready in ${weeks.join(', ')}: it would have to be sown too early (before ${o.earliestField !== undefined ? `the earliest field date ${fromDayNumber(o.earliestField)}` : ''}${o.earliestField !== undefined && o.today !== undefined ? ' or ' : ''}${o.today !== undefined ? `today (${fromDayNumber(o.today)})` : ''}${o.earliestField !== undefined || o.today !== undefined ? ', ' : ''}the last spring frost for a tender crop, or before the last cold spell for a degree-day crop)${window ? `, or outside the crop's field dates (${v.sowFrom} to ${v.sowTo})` : ''}${o.dtm.temps && !window && v.baseTempF !== undefined ? `, or into weeks colder than its base temperature (${v.baseTempF} °F)` : ''}.`,
+			message: pw.unreachableMessage(v, o.earliestField, o.today, !!o.dtm.temps, weeks),
 			weeks
 		});
 	}

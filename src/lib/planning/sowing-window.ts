@@ -4,7 +4,8 @@
  * outside it gets a warning in the grid, and the planner never proposes one.
  */
 import { PlanningInputError } from './errors';
-import { type DayNumber, civilFromDays, fromDayNumber } from './day-number';
+import { type DayNumber, civilFromDays, daysFromCivil, fromDayNumber } from './day-number';
+import { emergenceTableOf, soilForEmergence } from './emergence';
 import type { TempLookup } from './weekly-temps';
 import type { PlanningWarning, Variety } from './types';
 
@@ -35,17 +36,52 @@ export function sowingWindowOf(v: Variety): { from: number; to: number } | null 
 }
 
 /**
- * Whether the field date's week is too cold for the crop: its weekly mean below the crop's base
- * temperature. Only for a crop without a grower's window (the window, when given, decides: garlic
- * goes in as the ground cools). The weekly mean air temperature stands for the soil's (common
- * practice, from memory: shallow soil follows the air within a few degrees); under the base a seed
- * barely comes up — Knott's Handbook (after Harrington & Minges 1954): parsnip 172 days to emerge at
- * 32 °F, 57 at 41 °F; carrot 51 at 41 °F.
+ * The coldest weekly mean a crop without a grower's window may be sown or set out into, and where
+ * it comes from. A direct-sown crop with a published emergence table (emergence.ts: carrot, beet,
+ * spinach, parsnip) waits for soil that brings its seed up within EMERGENCE_LIMIT_DAYS; any other
+ * crop for its base temperature: under it a seed barely comes up — Knott's Handbook (after
+ * Harrington & Minges 1954): parsnip 172 days to emerge at 32 °F, 57 at 41 °F; carrot 51 at 41 °F.
+ * The weekly mean air temperature stands for the soil's (common practice, from memory: shallow soil
+ * follows the air within a few degrees). Null: no rule (a window decides, or nothing is known).
  */
+export function soilMinimumOf(v: Variety): { tempF: number; source: 'emergence' | 'base' } | null {
+	if (v.sowFrom !== undefined && v.sowTo !== undefined) return null;
+	let out = soilMinimum.get(v);
+	if (out !== undefined) return out;
+	const table = v.method === 'direct' ? emergenceTableOf(v.crop) : undefined;
+	const fromTable = table ? soilForEmergence(table) : null;
+	out =
+		fromTable !== null
+			? { tempF: Math.round(fromTable * 10) / 10, source: 'emergence' }
+			: v.baseTempF === undefined
+				? null
+				: { tempF: v.baseTempF, source: 'base' };
+	soilMinimum.set(v, out);
+	return out;
+}
+const soilMinimum = new WeakMap<Variety, { tempF: number; source: 'emergence' | 'base' } | null>();
+
+/** Whether the field date's week is too cold for the crop (see soilMinimumOf): its weekly mean, or null. */
 export function tooColdToSow(v: Variety, fieldDay: DayNumber, temps: TempLookup | undefined): number | null {
-	if (!temps || v.baseTempF === undefined || (v.sowFrom !== undefined && v.sowTo !== undefined)) return null;
+	if (!temps) return null;
+	const min = soilMinimumOf(v);
+	if (min === null) return null;
 	const mean = temps(fieldDay);
-	return mean !== undefined && mean < v.baseTempF ? mean : null;
+	return mean !== undefined && mean < min.tempF ? mean : null;
+}
+
+/**
+ * A crop's default earliest field date in `year` where the grower gave none: the first day whose
+ * week is warm enough by soilMinimumOf (null when no day of the year is, or there is no rule or
+ * no temperatures).
+ */
+export function defaultEarliestFieldDate(v: Variety, temps: TempLookup | undefined, year: number): string | null {
+	if (!temps || soilMinimumOf(v) === null) return null;
+	const first = daysFromCivil(year, 1, 1);
+	const last = daysFromCivil(year, 12, 31);
+	for (let d = first; d <= last; d++)
+		if (temps(d) !== undefined && tooColdToSow(v, d, temps) === null) return fromDayNumber(d);
+	return null;
 }
 
 /** The warning for a field date outside the crop's window, if it is. */

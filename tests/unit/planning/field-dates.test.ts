@@ -8,9 +8,13 @@ import {
 	emergenceDays,
 	planSuccessions,
 	weeksBetween,
+	defaultEarliestFieldDate,
+	soilForEmergence,
+	EMERGENCE_TABLES,
 	type EmergenceTable,
 	type Variety
 } from '../../../src/lib/planning/index';
+import { makeTempLookup } from '../../../src/lib/planning/weekly-temps';
 import { inMonthDayWindow, monthDayValue } from '../../../src/lib/planning/sowing-window';
 import { toDayNumber } from '../../../src/lib/planning/day-number';
 import { demoEngineFarm, DEMO_CROPS, DEMO_VARIETIES, toEngineVariety } from '../../../db/seeds/demo-farm';
@@ -51,7 +55,8 @@ describe('no sowing into soil too cold for the crop', () => {
 		const d = derivePlanting(row(parsnip, '2027-01-07'), parsnip, demoFarm, { explain: false });
 		const w = d.warnings.find((x) => x.code === 'too_cold_to_sow');
 		expect(w?.message).toContain('23.6 °F');
-		expect(w?.message).toContain('40 °F');
+		// Its emergence table brings it up within 28 days from 41 + (57 − 28) ÷ (57 − 27) × 9 = 49.7 °F.
+		expect(w?.message).toContain('49.7 °F');
 	});
 
 	it('the planner never sows parsnip into a winter week for a May harvest: it moves the sowing', () => {
@@ -76,7 +81,7 @@ describe('no sowing into soil too cold for the crop', () => {
 		expect(plan.successions).toEqual([]);
 		const w = plan.warnings.find((x) => x.code === 'unreachable_week');
 		expect(w?.weeks).toEqual(['2027-W20']);
-		expect(w?.message).toContain('base temperature (40 °F)');
+		expect(w?.message).toContain('49.7 °F its seed needs to come up within 28 days');
 	});
 
 	it('the same parsnip for an October harvest is sown in spring once the weeks reach 40 °F', () => {
@@ -155,3 +160,57 @@ function isoWeekNumber(date: string): number {
 	const jan1 = Date.UTC(th.getUTCFullYear(), 0, 1);
 	return 1 + Math.floor((th.getTime() - jan1) / 864e5 / 7);
 }
+
+describe('a default earliest field date from soil temperature, where the grower gave none', () => {
+	// Source: Knott's Handbook for Vegetable Growers after Harrington & Minges (1954), also Oregon
+	// State Extension (REFERENCES.md): carrot 41 °F → 51 days to emerge, 50 °F → 17 days.
+	// common practice (no published source): sowing waits for soil that brings the seed up within
+	// about four weeks (28 days).
+	const carrot = variety({ crop: 'Carrot', daysToMaturity: 70, harvestWindowDays: 21, baseTempF: 40 });
+	const temps = makeTempLookup(demoFarm.weeklyMeanTempF!);
+
+	it('the engine carries the published table, and 28 days falls at 41 + (51 − 28) ÷ (51 − 17) × 9 = 47.1 °F', () => {
+		expect(EMERGENCE_TABLES.carrot).toEqual([
+			[41, 51],
+			[50, 17],
+			[59, 10],
+			[68, 7],
+			[77, 6],
+			[86, 6]
+		]);
+		expect(soilForEmergence(EMERGENCE_TABLES.carrot, 28)).toBeCloseTo(41 + (23 / 34) * 9, 9);
+	});
+
+	it('a direct-sown carrot with no field dates: earliest Mon 3 May 2027, the first week at 47.1 °F or more', () => {
+		// The demo's weekly normal: W17 = 47 − 25·cos(2π·13/52) = 47.0 °F (too cold);
+		// W18 = 47 − 25·cos(2π·14/52) = 50.0 °F; W18 of 2027 starts Mon 3 May.
+		expect(demoMean(17)).toBeCloseTo(47.0, 1);
+		expect(demoMean(18)).toBeCloseTo(50.0, 1);
+		expect(defaultEarliestFieldDate(carrot, temps, 2027)).toBe('2027-05-03');
+		// The grid warns before it, not from it.
+		const early = derivePlanting(row(carrot, '2027-04-26'), carrot, demoFarm, { explain: false });
+		expect(early.warnings.find((x) => x.code === 'too_cold_to_sow')?.message).toContain('47.1 °F');
+		const ok = derivePlanting(row(carrot, '2027-05-03'), carrot, demoFarm, { explain: false });
+		expect(ok.warnings.map((x) => x.code)).not.toContain('too_cold_to_sow');
+	});
+
+	it('the planner sows no carrot before it: an early-July target is out of reach, a late-July one is sown from 3 May', () => {
+		const plan = planSuccessions({
+			variety: carrot,
+			targets: targetsFor(['2027-W27', '2027-W30'], 20),
+			farm: demoFarm
+		});
+		for (const s of plan.successions) expect(s.fieldDate >= '2027-05-03').toBe(true);
+		expect(plan.warnings.find((w) => w.code === 'unreachable_week')?.weeks).toContain('2027-W27');
+		expect(plan.successions.length).toBeGreaterThan(0);
+	});
+
+	it('a grower’s field dates, or a transplant, are not held to the seed’s soil', () => {
+		expect(defaultEarliestFieldDate({ ...carrot, sowFrom: '03-01', sowTo: '08-01' }, temps, 2027)).toBeNull();
+		// A transplant falls back to its base temperature (40 °F): the first week at 40 °F or more.
+		const set = defaultEarliestFieldDate({ ...carrot, method: 'transplant', daysInTray: 28 }, temps, 2027);
+		expect(set).not.toBeNull();
+		expect(set! < '2027-05-03').toBe(true);
+		expect(demoMean(isoWeekNumber(set!))).toBeGreaterThanOrEqual(40);
+	});
+});

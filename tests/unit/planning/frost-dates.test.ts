@@ -2,7 +2,7 @@
 // checked against them in its own year, and tender crops go out a set number of days after the
 // last spring frost.
 import { describe, expect, it } from 'vitest';
-import { derivePlanting, planSuccessions, weeksBetween } from '../../../src/lib/planning/index';
+import { derivePlanting, forecast, planSuccessions, weeksBetween } from '../../../src/lib/planning/index';
 import { frostHeatChecks } from '../../../src/lib/planning/season-shift';
 import { farm42, targetsFor, variety } from './fixtures';
 
@@ -36,10 +36,10 @@ describe('frost dates are normals applied to each season’s own year', () => {
 		expect(w?.message).toContain('50 % normal');
 	});
 
-	it('a 2028 bean still picking on 10 Oct 2028 is after that year’s first fall frost', () => {
-		// 2028-08-01 + 55 = 25 Sep; + 20 = 15 Oct > 5 Oct 2028
+	it('a 2028 bean whose window runs to 15 Oct 2028 meets that year’s first fall frost', () => {
+		// 2028-08-01 + 55 = 25 Sep; + 20 = 15 Oct > 5 Oct 2028: the frost ends its harvest (below)
 		const d = derivePlanting(row('2028-08-01'), bean, farm, { explain: false });
-		expect(d.lastHarvest).toBe('2028-10-15');
+		expect(d.lastHarvest).toBe('2028-10-05');
 		expect(d.warnings.find((x) => x.code === 'frost_after_first_fall')?.message).toContain('5 Oct');
 	});
 
@@ -111,5 +111,69 @@ describe('heat checks cover germination and growth', () => {
 	it('the same spinach sown 30 Aug, after the heat, is not', () => {
 		const d = derivePlanting(row('2027-08-30'), spinach, farm, { explain: false });
 		expect(d.warnings.map((w) => w.code)).not.toContain('heat_in_growth');
+	});
+});
+
+describe('a frost-tender crop’s harvest ends at the first fall frost', () => {
+	// common practice (no published source): a frost kills frost-tender crops (beans, tomatoes,
+	// squash, basil), so their picking ends with the first fall frost.
+	const farm = { ...farm42, lastSpringFrost: '2027-05-10', firstFallFrost: '2027-10-05', frostProbabilityPct: 50 };
+
+	it('worked example: a bean picked from Mon 25 Sep 2028 stops on Thu 5 Oct, with 11 of its 21 days’ yield', () => {
+		const d = derivePlanting(row('2028-08-01'), bean, farm, { explain: false });
+		// 1 Aug + 55 days = 25 Sep 2028 (Monday of 2028-W39); its window would run to 25 Sep + 20 = 15 Oct.
+		expect(d.firstHarvest).toBe('2028-09-25');
+		expect(d.lastHarvest).toBe('2028-10-05');
+		// Even picking: 10 ft × 1 per bed-foot × 11 of 21 days = 5.238… → 5.24
+		expect(d.expectedYield).toBe(5.24);
+		const w = d.warnings.find((x) => x.code === 'frost_after_first_fall');
+		expect(w?.message).toContain('ends at the first fall frost');
+		expect(w?.message).toContain('10 days more');
+		// The forecast over those dates: W39 gets 7 of 21 days (3.333…), W40 Mon 2 – Thu 5 Oct, 4 days
+		// (1.905…), and nothing after the frost.
+		const rows = forecast(
+			[
+				{
+					crop: 'bean',
+					firstHarvest: d.firstHarvest,
+					lastHarvest: d.lastHarvest,
+					bedFeet: 10,
+					yieldPerBedFoot: 1,
+					windowDays: bean.harvestWindowDays
+				}
+			],
+			[{ crop: 'bean', week: '2028-W41', quantity: 5 }]
+		);
+		const supply = Object.fromEntries(rows.map((r) => [r.week, r.supply]));
+		expect(supply['2028-W39']).toBeCloseTo((10 * 7) / 21, 9);
+		expect(supply['2028-W40']).toBeCloseTo((10 * 4) / 21, 9);
+		expect(supply['2028-W41'] ?? 0).toBe(0);
+	});
+
+	it('derived again from its stored dates (11 days of harvest), it keeps the same dates, yield and warning', () => {
+		const again = derivePlanting({ ...row('2028-08-01'), harvestDays: 11 }, bean, farm, { explain: false });
+		expect(again.lastHarvest).toBe('2028-10-05');
+		expect(again.expectedYield).toBe(5.24);
+		expect(again.warnings.map((x) => x.code)).toContain('frost_after_first_fall');
+	});
+
+	it('a hardy crop on the same dates picks its whole window', () => {
+		const d = derivePlanting(row('2028-08-01'), { ...bean, frostTender: false }, farm, { explain: false });
+		expect(d.lastHarvest).toBe('2028-10-15');
+		expect(d.expectedYield).toBe(10);
+	});
+
+	it('the planner counts on no tender harvest from the frost’s week on', () => {
+		// farm42's first fall frost is Mon 5 Oct 2026, the first day of 2026-W41: the plan's harvests
+		// end Sun 4 Oct, W39 and W40 are met, and W41–W42 are reported out of reach.
+		const plan = planSuccessions({
+			variety: bean,
+			targets: weeksBetween('2026-W39', '2026-W42').map((week) => ({ week, quantity: 10 })),
+			farm: farm42
+		});
+		expect(plan.successions.length).toBeGreaterThan(0);
+		for (const s of plan.successions) expect(s.lastHarvest <= '2026-10-04').toBe(true);
+		expect(plan.shortfall.map((s) => s.week)).toEqual(['2026-W41', '2026-W42']);
+		expect(plan.warnings.find((w) => w.code === 'unreachable_week')?.weeks).toEqual(['2026-W41', '2026-W42']);
 	});
 });

@@ -9,6 +9,7 @@ import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
+import { plantingCells } from './planting-columns';
 import { seedOrder, seedOrderCells } from '../seed-order';
 import { type PlannedPlanting, plannedByWeek, plannedSupply } from '../planned-supply';
 
@@ -33,33 +34,7 @@ export function excelDate(iso: string): Date {
 const round2 = (n: number): number => Math.round(n * 100) / 100;
 
 function plantingRows(d: SeasonData): Row[] {
-	return d.plantings.map((p) => [
-		p.crop,
-		p.variety,
-		p.block,
-		p.bed,
-		p.startFt,
-		p.lengthFt,
-		p.rows,
-		p.inRowSpacingIn,
-		p.seedsPerSpot,
-		p.method,
-		p.traySowDate,
-		p.fieldDate,
-		isoWeekOfDay(toDayNumber(p.fieldDate)),
-		p.firstHarvest,
-		p.lastHarvest,
-		p.expectedYield,
-		p.harvestUnit,
-		p.seedsNeeded,
-		p.status,
-		p.actualTraySowDate,
-		p.actualFieldDate,
-		p.actualFirstHarvest,
-		p.actualLastHarvest,
-		p.notes,
-		p.id
-	]);
+	return d.plantings.map(plantingCells);
 }
 
 /** The Seed order sheet: the season's seed order (src/lib/server/seed-order.ts), money in dollars. */
