@@ -2,7 +2,7 @@
 // as exceljs reads it (number, string, Date) or as CSV text; each schema takes both, so a
 // workbook saved by any spreadsheet program and a hand-made CSV pass the same checks.
 import { z } from 'zod';
-import { isoDate, moneyCents, numberField, plainText } from './common';
+import { isoDate, monthDaySchema, moneyCents, numberField, plainText } from './common';
 import { sowingMethods } from './planting';
 import { fieldSpec, fileFieldNames, type FieldKind, type FileField, type PlantingValues } from '$lib/plantings/fields';
 
@@ -80,13 +80,31 @@ const cents = (label: string) => z.preprocess((v) => (blank(v) ? '0' : v), money
 
 export const harvestUnits = ['lb', 'bunch', 'head', 'each'] as const;
 
+/** MM-DD of a date: a spreadsheet that took "10-01" for a date keeps only its month and day. */
+function monthDayValue(v: unknown): unknown {
+	const d = dateValue(v);
+	if (typeof d === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(d)) return d.slice(5);
+	return d;
+}
+/**
+ * A crop's field date: MM-DD, blank for none. A file without the column leaves it undefined, so
+ * an older workbook keeps the crop's field dates as they are.
+ */
+const fieldDate = (label: string) =>
+	z.preprocess(
+		(v) => (v === undefined ? undefined : blank(v) ? null : monthDayValue(v)),
+		monthDaySchema(label).nullable().optional()
+	);
+
 export const cropRowSchema = z.object({
 	crop: text('Crop', 80),
 	family: text('Family', 40),
 	harvestUnit: choice('Harvest unit', harvestUnits),
 	frostTolerance: choice('Frost tolerance', ['tender', 'hardy'] as const),
 	heatLimitF: optional('Heat limit', -40, 130),
-	baseTempF: withDefault('Base temperature', 0, 80, 40)
+	baseTempF: withDefault('Base temperature', 0, 80, 40),
+	sowFrom: fieldDate('Earliest field date'),
+	sowTo: fieldDate('Latest field date')
 });
 
 export const varietyRowSchema = z.object({

@@ -226,7 +226,11 @@ export const cropsSheet: SheetSpec = {
 			'int',
 			'degreeDays',
 			0
-		)
+		),
+		// The crop's field dates (month-day, both or neither): the earliest and latest day of the year it
+		// may be sown or set out. Text, so no spreadsheet takes "10-01" for a date of one year.
+		col('sowFrom', 'Earliest field date (MM-DD)', 16, 'text'),
+		col('sowTo', 'Latest field date (MM-DD)', 16, 'text')
 	]
 };
 

@@ -153,8 +153,9 @@ function cropRows(d: SeasonData): Row[] {
 	for (const c of d.crops) {
 		const crop: Row = [c.name, c.family, c.harvestUnit, c.frostTolerance, c.heatLimitF, c.baseTempF];
 		const vs = byCrop.get(c.id) ?? [];
+		const fieldDates: Row = [c.sowFrom, c.sowTo];
 		// A crop without varieties still gets a row, so the import keeps it.
-		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null)]);
+		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null), ...fieldDates]);
 		for (const v of vs) {
 			rows.push([
 				...crop,
@@ -173,7 +174,8 @@ function cropRows(d: SeasonData): Row[] {
 				v.seedsPerPacket,
 				v.cellsPerTray,
 				v.margin,
-				v.gddToMaturity
+				v.gddToMaturity,
+				...fieldDates
 			]);
 		}
 	}

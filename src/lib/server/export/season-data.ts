@@ -24,6 +24,9 @@ export interface CropRow {
 	/** Storage crops: weeks a harvest keeps (null: sold fresh) and the share lost each week. */
 	storageWeeks: number | null;
 	storageLossPerWeek: number;
+	/** Field dates, month-day (MM-DD), both or neither. */
+	sowFrom: string | null;
+	sowTo: string | null;
 }
 
 export interface ExportBed {
@@ -66,7 +69,9 @@ async function listCrops(farmId: number): Promise<CropRow[]> {
 		heatLimitF: numOrNull(r.heat_limit_f),
 		baseTempF: num(r.base_temp_f),
 		storageWeeks: numOrNull(r.storage_weeks),
-		storageLossPerWeek: num(r.storage_loss_per_week ?? 0)
+		storageLossPerWeek: num(r.storage_loss_per_week ?? 0),
+		sowFrom: r.sow_from ?? null,
+		sowTo: r.sow_to ?? null
 	}));
 }
 

@@ -112,6 +112,8 @@ function mergedVarieties(farm: VarietyView[], plan: ImportPlan): Map<string, Var
 			frostTolerance: c?.frostTolerance ?? before?.frostTolerance ?? 'hardy',
 			heatLimitF: c ? c.heatLimitF : (before?.heatLimitF ?? null),
 			baseTempF: c?.baseTempF ?? before?.baseTempF ?? 40,
+			sowFrom: c && c.sowFrom !== undefined ? c.sowFrom : (before?.sowFrom ?? null),
+			sowTo: c && c.sowTo !== undefined ? c.sowTo : (before?.sowTo ?? null),
 			name: v.variety,
 			method: v.method,
 			daysToMaturity: v.daysToMaturity,

@@ -89,7 +89,9 @@ export async function writeLibrary(
 			harvest_unit: c.harvestUnit,
 			frost_tolerance: c.frostTolerance,
 			heat_limit_f: c.heatLimitF,
-			base_temp_f: c.baseTempF
+			base_temp_f: c.baseTempF,
+			// A file without the field-date columns leaves the crop's as they are.
+			...(c.sowFrom === undefined ? {} : { sow_from: c.sowFrom, sow_to: c.sowTo ?? null })
 		};
 		await upsert(trx, 'crops', farmId, crops, lower(c.crop), row);
 	}
