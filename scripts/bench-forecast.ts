@@ -7,7 +7,8 @@
  *   (request to parsed body), in the shape the forecast page asks for (shape=series). With
  *   BENCH_FORECAST_VERBOSE set, the rows shape is timed as well, for comparison.
  * - forecast.chart_ms: headless Chromium, from the response in hand to the chart in the DOM
- *   (the page's data-render-ms), refetched through the `furrowcast:plan-changed` event.
+ *   (the page's data-render-ms), reloaded through the page's load as on
+ *   the window regaining focus (`invalidate('app:plan')`).
  * - forecast.floor_ms: the same weekly sums in a plain loop over the same plantings, in memory.
  * - forecast.server_ratio: server_ms ÷ floor_ms.
  * Each is the median of several runs after a warm-up. Needs what scripts/bench.sh sets up.
@@ -231,7 +232,7 @@ async function timeChart(b: BenchFarm, runs: number): Promise<number> {
 		await page.goto(`/seasons/${b.seasonId}/forecast?from=${FROM}&to=${TO}`);
 		const times: number[] = [];
 		for (let i = 0; i < runs + 1; i++) {
-			if (i > 0) await page.evaluate(() => window.dispatchEvent(new Event('furrowcast:plan-changed')));
+			if (i > 0) await page.evaluate(() => window.dispatchEvent(new Event('focus')));
 			// Wait for this run's response and its render figure.
 			await page.waitForFunction(
 				(n) => {

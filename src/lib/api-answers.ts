@@ -1,6 +1,9 @@
 // The JSON the plantings and forecast API answer, shared by the routes that send it and the browser
 // code that reads it, so a change to one is a type error in the other. Types only.
 import type { PlantingView } from './types';
+import type { PlantingField } from './schemas/planting';
+import type { Role } from './roles';
+import type { GridBed, GridFarm, GridVariety } from './plantings/derive';
 import type { ForecastCrop, ForecastSeries, SeasonForecastRow } from './server/forecast';
 
 /** Any 4xx: a sentence for the user, and per field what is wrong (`plantings.3.fieldDate`). */
@@ -9,6 +12,18 @@ export interface ApiErrorAnswer {
 	errors?: Record<string, string>;
 	/** The fields a role may not change (403). */
 	fields?: string[];
+}
+
+/** GET /api/seasons/{id}/plantings: the season's plantings and what the grid needs to recalculate them. */
+export interface PlantingsListAnswer {
+	season: { id: number; name: string };
+	plantings: PlantingView[];
+	varieties: GridVariety[];
+	beds: GridBed[];
+	farm: GridFarm;
+	role: Role;
+	/** The fields this role may change. */
+	editable: PlantingField[];
 }
 
 /** POST /api/seasons/{id}/plantings, 201: the new rows in the order sent. */

@@ -69,11 +69,13 @@ describe('forecast chart', () => {
 		expect(await barValue(page, f.crops.spinach, '2027-W24')).toBe(0);
 		await page.getByLabel('Quantity').check();
 
-		// Lengthen the carrot planting to 15 ft (as the grid would), then tell the page the plan changed:
-		// 15 ft × 2 lb = 30 lb in W24.
+		// Lengthen the carrot planting to 15 ft (as the grid would in another tab), then come back to this
+		// tab: the page's load runs again (its server part too, for the freshness note): 15 ft × 2 lb = 30 lb in W24.
 		const before = await fetches(page);
 		await testDb()('plantings').where({ id: f.plantings.carrot }).update({ length_ft: 15 });
-		await page.evaluate(() => window.dispatchEvent(new Event('furrowcast:plan-changed')));
+		const serverLoad = page.waitForRequest((r) => new URL(r.url()).pathname.endsWith('/forecast/__data.json'));
+		await page.evaluate(() => document.dispatchEvent(new Event('visibilitychange')));
+		await serverLoad;
 		await page.waitForFunction(
 			(n) => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) > n,
 			before
@@ -120,6 +122,22 @@ describe('forecast chart', () => {
 			.getByTestId('forecast-layer')
 			.evaluateAll((els) => els.map((e) => e.getAttribute('data-crop-name')));
 		expect(names).toEqual(['Chard (test)', 'Spinach (test)']);
+
+		// The choices live in the address: a reload (or the link shared) shows the same family, weeks and view.
+		await page.getByRole('radio', { name: 'Quantity' }).check();
+		await page.getByRole('button', { name: 'Table' }).click();
+		await page.waitForURL((u) => u.searchParams.get('view') === 'table' && u.searchParams.get('mode') === 'quantity');
+		await page.reload();
+		await page.waitForFunction(
+			() => Number(document.querySelector('[data-testid="forecast-page"]')?.getAttribute('data-fetches')) >= 1
+		);
+		await expect(page.getByLabel('Crop family').inputValue()).resolves.toBe('Amaranthaceae');
+		await expect(page.getByLabel('From week').inputValue()).resolves.toBe('2027-W24');
+		await expect(page.getByLabel('To week').inputValue()).resolves.toBe('2027-W25');
+		await expect(page.getByRole('radio', { name: 'Quantity' }).isChecked()).resolves.toBe(true);
+		await expect(page.getByRole('button', { name: 'Table' }).getAttribute('aria-pressed')).resolves.toBe('true');
+		await expect(page.getByTestId('forecast-table').innerText()).resolves.toContain('Spinach (test)');
+		await expect(page.getByTestId('forecast-table').innerText()).resolves.not.toContain('Carrot (test)');
 		await page.close();
 		await browser.context.clearCookies();
 	});

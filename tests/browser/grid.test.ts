@@ -119,6 +119,50 @@ describe('the owner drives the grid from the keyboard', () => {
 	});
 });
 
+describe('the view in the address, and the data through the load', () => {
+	it('keeps the grouping and week filter over a reload', async () => {
+		const page = await browser.context.newPage();
+		await openGrid(page, demo.owner);
+		await page.getByLabel('Group by').selectOption('bed');
+		await page.getByLabel('From week').fill('2031-W10');
+		await page.waitForURL((u) => u.searchParams.get('group') === 'bed' && u.searchParams.get('from') === '2031-W10');
+		await page.reload();
+		await page.locator('[data-row="0"]').waitFor();
+		await expect(page.getByLabel('Group by').inputValue()).resolves.toBe('bed');
+		await expect(page.getByLabel('From week').inputValue()).resolves.toBe('2031-W10');
+		await page.close();
+		await browser.context.clearCookies();
+	});
+
+	it('a save loads the season again: a change made elsewhere shows, and a cell being typed in stays', async () => {
+		const page = await browser.context.newPage();
+		await openGrid(page, demo.owner);
+		const loads = async (): Promise<number> =>
+			Number(await page.getByTestId('plantings-page').getAttribute('data-loads'));
+		const before = await loads();
+		// Someone else's save, straight into the database (a new version, as the API would write it).
+		await testDb()('plantings')
+			.where({ id: ids[2] })
+			.update({ notes: 'from the office', version: testDb().raw('version + 1') });
+		await cell(page, 0, 'notes').click();
+		await page.keyboard.type('mine');
+		await page.keyboard.press('Enter');
+		// Typing in another cell while the save goes out and the season loads again.
+		await cell(page, 1, 'notes').click();
+		await page.keyboard.type('half typed');
+		await expect.poll(loads, { timeout: 10_000 }).toBeGreaterThan(before);
+		await expect(cell(page, 2, 'notes').innerText()).resolves.toBe('from the office');
+		await expect(page.getByTestId('cell-editor').inputValue()).resolves.toBe('half typed');
+		await page.keyboard.press('Enter');
+		await saved(page);
+		await expect(cell(page, 0, 'notes').innerText()).resolves.toBe('mine');
+		const notes = await testDb()('plantings').whereIn('id', ids.slice(0, 3)).orderBy('id').pluck('notes');
+		expect(notes).toEqual(['mine', 'half typed', 'from the office']);
+		await page.close();
+		await browser.context.clearCookies();
+	});
+});
+
 describe('two people edit the same planting', () => {
 	it('the stale edit gets the conflict message naming who won, and nothing is lost', async () => {
 		const other = await launch();

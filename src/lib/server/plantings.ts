@@ -4,10 +4,13 @@ import type { Knex } from 'knex';
 import type { Role } from '$lib/roles';
 import { editableFields, type PlantingCreate, type PlantingField, type PlantingPatch } from '$lib/schemas/planting';
 import {
-	fieldSpec,
+	figureColumns,
+	figuresOf,
 	fromColumns,
+	fromStored,
 	initialValue,
 	plantingFieldNames,
+	storedColumnNames,
 	toColumns,
 	type PlantingValues
 } from '$lib/plantings/fields';
@@ -32,7 +35,7 @@ function base(farmId: number) {
 		.leftJoin('users as u', 'u.id', 'p.updated_by')
 		.where('p.farm_id', farmId)
 		.select(
-			...plantingFieldNames.map((f) => `p.${fieldSpec(f).column}`),
+			...storedColumnNames.map((c) => `p.${c}`),
 			'p.id',
 			'p.season_id',
 			'v.name as variety',
@@ -43,11 +46,6 @@ function base(farmId: number) {
 			'k.name as block',
 			'k.position as block_position',
 			'b.position as bed_position',
-			'p.tray_sow_date',
-			'p.first_harvest',
-			'p.last_harvest',
-			'p.expected_yield',
-			'p.seeds_needed',
 			'p.version',
 			'u.name as updated_by_name',
 			'p.updated_at'
@@ -66,11 +64,6 @@ type JoinedRow = Record<string, unknown> & {
 	block: string | null;
 	block_position: number | null;
 	bed_position: number | null;
-	tray_sow_date: string | null;
-	first_harvest: string;
-	last_harvest: string;
-	expected_yield: string | number;
-	seeds_needed: number;
 	version: number;
 	updated_by_name: string | null;
 	updated_at: Date | string | null;
@@ -78,7 +71,7 @@ type JoinedRow = Record<string, unknown> & {
 
 function toView(r: JoinedRow): PlantingView {
 	return {
-		...fromColumns(r),
+		...fromStored(r),
 		id: r.id,
 		seasonId: r.season_id,
 		variety: r.variety,
@@ -89,11 +82,6 @@ function toView(r: JoinedRow): PlantingView {
 		block: r.block,
 		blockPosition: r.block_position,
 		bedPosition: r.bed_position,
-		traySowDate: r.tray_sow_date,
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		expectedYield: Number(r.expected_yield),
-		seedsNeeded: r.seeds_needed,
 		version: r.version,
 		updatedBy: r.updated_by_name ?? null,
 		updatedAt: r.updated_at ? new Date(r.updated_at).toISOString() : null
@@ -221,15 +209,7 @@ function buildRow(
 	if (!variety || Object.keys(errors).length) return { errors };
 	const d = deriveRow({ ...values, harvestDays }, variety, ctx.farm);
 	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
-	const row = toColumns(values);
-	Object.assign(row, {
-		tray_sow_date: d.value.traySowDate,
-		first_harvest: d.value.firstHarvest,
-		last_harvest: d.value.lastHarvest,
-		expected_yield: d.value.expectedYield,
-		seeds_needed: d.value.seed.seeds
-	});
-	return { row, errors };
+	return { row: { ...toColumns(values), ...figureColumns(figuresOf(d.value)) }, errors };
 }
 
 function withDefaults(input: PlantingCreate, v: GridVariety | undefined): PlantingValues {

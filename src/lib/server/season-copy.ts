@@ -16,7 +16,7 @@ import {
 	shiftPlantingDates,
 	type PlanningWarning
 } from '$lib/planning';
-import { nextSeasonColumns } from '$lib/plantings/fields';
+import { figureColumns, nextSeasonColumns, toColumns } from '$lib/plantings/fields';
 import { db } from './db';
 import * as farms from './farms';
 import { familiesByBed } from './rotation';
@@ -181,21 +181,20 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 			const reason = unplacedBy.get(String(p.id));
 			return {
 				...nextSeasonColumns(p),
+				// The fields the copy moves itself ('moved' in the field table), and the shifted figures.
+				...toColumns({
+					bedId: at ? Number(at.bedId) : null,
+					startFt: at ? at.startFt : 0,
+					fieldDate: next.fieldDate,
+					notes: reason
+						? `Not placed: ${reason}`
+						: p.notes && !String(p.notes).startsWith('Not placed:')
+							? p.notes
+							: null
+				}),
+				...figureColumns({ ...next, expectedYield: Number(p.expected_yield), seedsNeeded: Number(p.seeds_needed) }),
 				farm_id: farmId,
 				season_id: seasonId,
-				bed_id: at ? Number(at.bedId) : null,
-				start_ft: at ? at.startFt : 0,
-				tray_sow_date: next.traySowDate,
-				field_date: next.fieldDate,
-				first_harvest: next.firstHarvest,
-				last_harvest: next.lastHarvest,
-				expected_yield: p.expected_yield,
-				seeds_needed: p.seeds_needed,
-				notes: reason
-					? `Not placed: ${reason}`
-					: p.notes && !String(p.notes).startsWith('Not placed:')
-						? p.notes
-						: null,
 				updated_by: userId
 			};
 		});

@@ -4,7 +4,8 @@
 import { plantingConflicts } from '$lib/planning/planting-derive';
 import type { GridFarm } from '$lib/plantings/derive';
 import type { Lookups } from './columns';
-import { withDerived, type GridRow, type RowValues } from './rows';
+import type { PlantingView } from '$lib/types';
+import { rowFromView, withDerived, type GridRow, type RowValues } from './rows';
 
 let newKey = 0;
 
@@ -138,5 +139,43 @@ export class GridRows {
 			)
 		);
 		return gone;
+	}
+
+	/** The server's answer for a row: id, version, authoritative values (unless edited meanwhile). */
+	accept(key: string, p: PlantingView, keepValues: boolean): void {
+		const cur = this.get(key);
+		if (!cur) return;
+		const values = keepValues ? cur.values : rowFromView(p, this.lookups.varietyById, this.farm).values;
+		this.replace(
+			[{ ...cur, id: p.id, version: p.version, values, updatedBy: p.updatedBy ?? null }],
+			[cur.values.bedId]
+		);
+	}
+
+	/**
+	 * The server's plantings laid over these rows, matched by id: a newer version replaces the row's
+	 * values (its key stays, so the focus and an open editor stay on it); rows the server has and this
+	 * list has not come in at the end; saved rows the server no longer has go. New rows (no id) stay.
+	 */
+	merge(plantings: PlantingView[]): void {
+		const byId = new Map<number, GridRow>();
+		for (const r of this.list) if (r.id !== null) byId.set(r.id, r);
+		const seen = new Set<number>();
+		const changed: GridRow[] = [];
+		const oldBeds: (number | null)[] = [];
+		const added: GridRow[] = [];
+		for (const p of plantings) {
+			seen.add(p.id);
+			const cur = byId.get(p.id);
+			if (!cur) added.push(rowFromView(p, this.lookups.varietyById, this.farm));
+			else if (p.version > cur.version) {
+				changed.push({ ...rowFromView(p, this.lookups.varietyById, this.farm), key: cur.key });
+				oldBeds.push(cur.values.bedId);
+			}
+		}
+		const gone = this.list.filter((r) => r.id !== null && !seen.has(r.id)).map((r) => r.key);
+		if (changed.length) this.replace(changed, oldBeds);
+		if (gone.length) this.drop(gone);
+		if (added.length) this.insert(added);
 	}
 }

@@ -66,7 +66,7 @@ export class GridState {
 	private readonly history = new EditHistory();
 	private readonly viewBuilder: ViewBuilder;
 
-	constructor(init: GridInit, api: GridApi, opts: { debounceMs?: number } = {}) {
+	constructor(init: GridInit, api: GridApi, opts: { debounceMs?: number; onSaved?: () => void } = {}) {
 		this.lookups = {
 			varieties: init.varieties,
 			varietyById: new Map(init.varieties.map((v) => [v.id, v])),
@@ -82,7 +82,7 @@ export class GridState {
 		this.viewBuilder = new ViewBuilder(this.lookups);
 		const rows = init.plantings.map((p) => rowFromView(p, this.lookups.varietyById, init.farm));
 		this.store.set(this.store.withConflicts(rows, null));
-		this.save = new SaveQueue(this, api, init.seasonId, opts.debounceMs ?? 500);
+		this.save = new SaveQueue(this, api, init.seasonId, opts.debounceMs ?? 500, opts.onSaved);
 	}
 
 	// ---- rows (grid-rows.svelte.ts)
@@ -381,13 +381,17 @@ export class GridState {
 
 	/** The server's answer for a row: id, version, authoritative values (unless edited meanwhile). */
 	acceptServer(key: string, p: PlantingView, keepValues: boolean): void {
-		const cur = this.row(key);
-		if (!cur) return;
-		const values = keepValues ? cur.values : rowFromView(p, this.lookups.varietyById, this.farm).values;
-		this.replaceRows(
-			[{ ...cur, id: p.id, version: p.version, values, updatedBy: p.updatedBy ?? null }],
-			[cur.values.bedId]
-		);
+		this.store.accept(key, p, keepValues);
+	}
+
+	/**
+	 * The season as the server has it now, laid over the rows (GridRows.merge). Not while an edit waits
+	 * or a save round began since the reload was asked (`roundsAsked`): that round asks for its own.
+	 */
+	refresh(plantings: PlantingView[], roundsAsked = this.save.rounds): boolean {
+		if (this.save.unsaved || this.save.rounds !== roundsAsked) return false;
+		this.store.merge(plantings);
+		return true;
 	}
 }
 

@@ -180,3 +180,47 @@ function safeWeekStart(w: string): string | null {
 		return null;
 	}
 }
+
+// The view's settings in the page's address (`?crop=Carrot&group=bed&sort=-fieldDate`), so a reload or a
+// shared link shows the same rows. Unknown or empty parameters fall back to no filter.
+const filterParams: Record<Exclude<keyof Filters, 'warningsOnly'>, string> = {
+	crop: 'crop',
+	bedId: 'bed',
+	block: 'block',
+	status: 'status',
+	fromWeek: 'from',
+	toWeek: 'to'
+};
+const groupings: GroupBy[] = ['none', 'bed', 'crop'];
+
+export function viewFromParams(params: URLSearchParams): ViewSettings {
+	const filters = noFilters();
+	for (const [key, name] of Object.entries(filterParams))
+		filters[key as keyof typeof filterParams] = params.get(name) ?? '';
+	filters.warningsOnly = params.get('warnings') === '1';
+	const group = params.get('group') as GroupBy | null;
+	const sortCol = params.get('sort');
+	const col = sortCol?.replace(/^-/, '');
+	return {
+		filters,
+		groupBy: group && groupings.includes(group) ? group : 'none',
+		sort: col && allColumns.some((c) => c.id === col) ? { col, desc: sortCol!.startsWith('-') } : null
+	};
+}
+
+/** `params` with the view's settings written in (others, like `planting`, kept); defaults left out. */
+export function viewToParams(view: ViewSettings, params: URLSearchParams): URLSearchParams {
+	const out = new URLSearchParams(params);
+	for (const [key, name] of Object.entries(filterParams)) {
+		const value = view.filters[key as keyof typeof filterParams];
+		if (value) out.set(name, value);
+		else out.delete(name);
+	}
+	if (view.filters.warningsOnly) out.set('warnings', '1');
+	else out.delete('warnings');
+	if (view.groupBy !== 'none') out.set('group', view.groupBy);
+	else out.delete('group');
+	if (view.sort) out.set('sort', `${view.sort.desc ? '-' : ''}${view.sort.col}`);
+	else out.delete('sort');
+	return out;
+}

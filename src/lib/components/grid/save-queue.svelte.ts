@@ -2,7 +2,6 @@
 // lost silently: a failed save stays queued for retry; a conflict keeps the user's values to re-apply.
 import type { PlantingField } from '$lib/schemas/planting';
 import type { PlantingView } from '$lib/types';
-import { announcePlanChanged } from '$lib/plan-changed';
 import type {
 	ApiErrorAnswer,
 	PlantingConflictAnswer,
@@ -76,6 +75,8 @@ export class SaveQueue {
 	conflicts = $state.raw<Conflict[]>([]);
 	/** How many rows wait to be saved (dirty, new or removed). */
 	pending = $state(0);
+	/** Rounds begun so far: a reload asked before the latest round began may predate its writes. */
+	rounds = 0;
 
 	private dirty = new Map<string, Set<PlantingField>>();
 	private fresh = new Set<string>();
@@ -90,7 +91,9 @@ export class SaveQueue {
 		private grid: SavedRows,
 		private api: GridApi,
 		private seasonId: number,
-		private debounceMs: number
+		private debounceMs: number,
+		/** Told after a round wrote something (the page reloads the plan's data through its load). */
+		private onWrote: () => void = () => {}
 	) {}
 
 	get unsaved(): boolean {
@@ -175,6 +178,7 @@ export class SaveQueue {
 		this.dirty.clear();
 		this.fresh.clear();
 		this.removed.clear();
+		this.rounds++;
 		this.status = 'saving';
 		const failures: string[] = [];
 		let wrote = 0;
@@ -242,7 +246,7 @@ export class SaveQueue {
 		await Promise.all(tasks);
 		this.count();
 		// Even a round that partly failed changed the saved plan: whatever was written is news.
-		if (wrote > 0) announcePlanChanged();
+		if (wrote > 0) this.onWrote();
 		if (failures.length) {
 			this.status = 'failed';
 			this.error = failures[0];

@@ -9,6 +9,7 @@ import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
+import { plantingCells } from './planting-columns';
 import { seedOrder, seedOrderCells } from '../seed-order';
 import { type PlannedPlanting, plannedByWeek, plannedSupply } from '../planned-supply';
 
@@ -33,33 +34,7 @@ export function excelDate(iso: string): Date {
 const round2 = (n: number): number => Math.round(n * 100) / 100;
 
 function plantingRows(d: SeasonData): Row[] {
-	return d.plantings.map((p) => [
-		p.crop,
-		p.variety,
-		p.block,
-		p.bed,
-		p.startFt,
-		p.lengthFt,
-		p.rows,
-		p.inRowSpacingIn,
-		p.seedsPerSpot,
-		p.method,
-		p.traySowDate,
-		p.fieldDate,
-		isoWeekOfDay(toDayNumber(p.fieldDate)),
-		p.firstHarvest,
-		p.lastHarvest,
-		p.expectedYield,
-		p.harvestUnit,
-		p.seedsNeeded,
-		p.status,
-		p.actualTraySowDate,
-		p.actualFieldDate,
-		p.actualFirstHarvest,
-		p.actualLastHarvest,
-		p.notes,
-		p.id
-	]);
+	return d.plantings.map(plantingCells);
 }
 
 /** The Seed order sheet: the season's seed order (src/lib/server/seed-order.ts), money in dollars. */
@@ -200,8 +175,9 @@ function cropRows(d: SeasonData): Row[] {
 	for (const c of d.crops) {
 		const crop: Row = [c.name, c.family, c.harvestUnit, c.frostTolerance, c.heatLimitF, c.baseTempF];
 		const vs = byCrop.get(c.id) ?? [];
+		const fieldDates: Row = [c.sowFrom, c.sowTo];
 		// A crop without varieties still gets a row, so the import keeps it.
-		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null)]);
+		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null), ...fieldDates]);
 		for (const v of vs) {
 			rows.push([
 				...crop,
@@ -220,7 +196,8 @@ function cropRows(d: SeasonData): Row[] {
 				v.seedsPerPacket,
 				v.cellsPerTray,
 				v.margin,
-				v.gddToMaturity
+				v.gddToMaturity,
+				...fieldDates
 			]);
 		}
 	}
