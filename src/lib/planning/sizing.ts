@@ -213,6 +213,8 @@ export function planRuns<T>(
 		return sized.given;
 	}
 
+	// No succession shorter than one plant per row (one in-row spacing), in whole increments.
+	const minFeet = roundUpTo(v.inRowSpacingIn / 12, o.increment);
 	// The covering program, solved exactly; the weekly pass below tops up what float dust left short.
 	const ok = (c: number): boolean => candidate(c).ok;
 	const occupancy = (c: number): number => candidate(c).occupancy;
@@ -220,7 +222,7 @@ export function planRuns<T>(
 	for (const [c, x] of lp ?? []) {
 		const cand = candidate(c);
 		cand.raw = x;
-		cand.feet = roundUpTo(x, o.increment);
+		cand.feet = Math.max(roundUpTo(x, o.increment), minFeet);
 		cand.sizedOn = peakWeekOf(c, span, nWeeks, target, perFt);
 		cand.sizedPerFt = perFt(c, cand.sizedOn);
 		for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) planned[u] += cand.feet * perFt(c, u);
@@ -260,7 +262,7 @@ export function planRuns<T>(
 			continue;
 		}
 		const cand = candidate(best);
-		const feet = roundUpTo(cand.feet + bestX, o.increment);
+		const feet = Math.max(roundUpTo(cand.feet + bestX, o.increment), minFeet);
 		const added = feet - cand.feet;
 		if (cand.sizedOn < 0) {
 			cand.sizedOn = w;
@@ -284,7 +286,8 @@ export function planRuns<T>(
 				if (!(target[u] > 0) || !(cf > 0) || !(need[u] > 0)) continue;
 				cut = Math.min(cut, (planned[u] - need[u]) / cf);
 			}
-			const feet = roundUpTo(Math.max(0, cand.feet - cut), o.increment);
+			const left = roundUpTo(Math.max(0, cand.feet - cut), o.increment);
+			const feet = left > 0 ? Math.max(left, minFeet) : 0;
 			if (feet >= cand.feet) continue;
 			for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) planned[u] -= (cand.feet - feet) * perFt(c, u);
 			cand.feet = feet;
