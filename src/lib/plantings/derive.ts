@@ -3,7 +3,7 @@
 import type { Variety } from '$lib/planning';
 import type { VarietyView } from '$lib/types';
 import { toEngineVariety } from '$lib/engine-inputs';
-import { derivePlanting, type DeriveFarm, type DerivedPlanting } from '$lib/planning/planting-derive';
+import { derivePlanting, type DeriveFarm, type DeriveInput, type DerivedPlanting } from '$lib/planning/planting-derive';
 
 /** A variety as the grid receives it: the crop library's view, plain JSON. */
 export type GridVariety = VarietyView;
@@ -24,16 +24,8 @@ export interface GridFarm extends DeriveFarm {
 /** The engine's form of a library variety, shared with the server's planner. */
 export const engineVariety: (v: GridVariety) => Variety = toEngineVariety;
 
-export interface DeriveRow {
-	method: 'direct' | 'transplant';
-	fieldDate: string;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	/** Days of harvest the stored planting keeps (see storedHarvestDays); absent for a new row. */
-	harvestDays?: number | null;
-}
+/** A row's facts the derivation reads: the engine's own input (harvestDays from storedHarvestDays). */
+export type DeriveRow = DeriveInput;
 
 /**
  * Days of harvest a stored planting keeps: last − first harvest + 1, so a planting whose plan

@@ -3,7 +3,7 @@
 // works around those of other seasons that are in the ground while it runs.
 import { addDays, type BedPlanting } from '$lib/planning';
 import type { Knex } from 'knex';
-import { db } from './db';
+import { plantingsWithCrop } from './planting-query';
 
 /** Narrows a query on `plantings as p` to placed plantings in the ground at some time in [from, to] (turnaround counted). */
 export function holdingBedIn(
@@ -30,11 +30,7 @@ export async function bedHolders(
 	turnaroundDays: number,
 	exceptSeasonId?: number
 ): Promise<BedPlanting[]> {
-	const q = db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
-		.where('p.farm_id', farmId)
-		.whereNot('p.status', 'failed');
+	const q = plantingsWithCrop().where('p.farm_id', farmId).whereNot('p.status', 'failed');
 	holdingBedIn(q, from, to, turnaroundDays);
 	if (exceptSeasonId !== undefined) q.whereNot('p.season_id', exceptSeasonId);
 	const rows = await q.select(

@@ -10,6 +10,7 @@ import { hashToken, newToken } from './tokens';
 import { todayIn } from '$lib/today';
 import { plural } from '$lib/plural';
 import { formatFeet, formatInches, formatNumber, formatQuantity, toDisplayFeet, type UnitSystem } from '$lib/format';
+import { plantingsWithCrop } from './planting-query';
 
 export interface FeedStatus {
 	createdAt: string;
@@ -184,9 +185,7 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 		x: [{ key: 'X-WR-TIMEZONE', value: feed.timeZone }]
 	});
 	const kinds = byRole[feed.role];
-	const plantings = await db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	const plantings = await plantingsWithCrop()
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.leftJoin('blocks as k', 'k.id', 'b.block_id')
 		.where('p.farm_id', feed.farmId)

@@ -11,6 +11,7 @@ import type { FieldErrors } from '$lib/schemas/common';
 import { db } from './db';
 import { lockSeason } from './seasons';
 import { baseList, farmToday, toView, type HarvestView } from './harvests';
+import { plantingsWithCrop } from './planting-query';
 
 interface PlantingFacts {
 	id: number;
@@ -29,9 +30,7 @@ async function plantingFacts(
 	seasonId: number,
 	ids: number[]
 ): Promise<Map<number, PlantingFacts>> {
-	const rows = await trx('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	const rows = await plantingsWithCrop(trx)
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.whereIn('p.id', ids)
 		.forUpdate()

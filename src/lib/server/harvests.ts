@@ -3,6 +3,7 @@
 import { isoWeek, weekStart, addDays } from '$lib/planning';
 import { todayIn } from '$lib/today';
 import { db } from './db';
+import { plantingsWithCrop } from './planting-query';
 
 export interface HarvestView {
 	id: number;
@@ -56,9 +57,7 @@ export async function farmToday(farmId: number): Promise<string> {
 export async function plantingOptions(farmId: number, seasonId: number, today: string): Promise<PlantingOption[]> {
 	const monday = weekStart(isoWeek(today));
 	const sunday = addDays(monday, 6);
-	const rows = await db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	const rows = await plantingsWithCrop()
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.leftJoin('blocks as k', 'k.id', 'b.block_id')
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })

@@ -16,6 +16,7 @@ import { targetInput } from './demand';
 import { demandHash, type Season } from './seasons';
 import { bedHolders } from './bed-holders';
 import { lockForApply, recordApply, snapshotPlanned } from './plan-history';
+import { plantingsWithCrop } from './planting-query';
 
 export interface PlanPreview {
 	plan: SeasonPlan;
@@ -45,9 +46,7 @@ function seasonPlantings(
 	farmId: number,
 	seasonId: number
 ): Promise<ExistingPlanting[]> {
-	return executor('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	return plantingsWithCrop(executor)
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.select(
 			'p.id',
@@ -87,9 +86,7 @@ async function gatherInputs(farmId: number, season: Season) {
 			.where('p.last_harvest', '>=', season.startsOn)
 			.select('p.id', 'p.variety_id', 'p.length_ft', 'p.field_date', 'p.first_harvest', 'p.last_harvest'),
 		// What each bed held in the years before the season, for rotation.
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
+		plantingsWithCrop()
 			.where({ 'p.farm_id': farmId })
 			.whereNot('p.season_id', seasonId)
 			.whereNotNull('p.bed_id')

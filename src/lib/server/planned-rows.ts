@@ -6,6 +6,7 @@ import type { CropStore } from '$lib/planning/storage';
 import { db } from './db';
 import type { PlannedPlanting } from './planned-supply';
 import { curveOf } from './variety-views';
+import { plantingsWithCrop } from './planting-query';
 
 /** What the planned supply reads of a variety and its crop. */
 export const varietySupplyColumns = [
@@ -67,11 +68,7 @@ export function plannedFromRow(r: PlannedRow): PlannedPlanting & { key: string }
 
 /** The farm's plantings joined to their variety and crop, failed ones left out (they supply nothing). */
 export function livePlantings(farmId: number, conn: Knex = db()): Knex.QueryBuilder {
-	return conn('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
-		.where({ 'p.farm_id': farmId })
-		.whereNot('p.status', 'failed');
+	return plantingsWithCrop(conn).where({ 'p.farm_id': farmId }).whereNot('p.status', 'failed');
 }
 
 /** Logged harvests of a season's plantings in the crop's own unit (another unit cannot be added in). */

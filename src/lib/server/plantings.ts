@@ -26,13 +26,12 @@ import { lockSeason, shareSeasonLockOfPlanting } from './seasons';
 import type { PlantingView } from '$lib/types';
 import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
 import { todayIn } from '$lib/today';
+import { plantingsWithCrop } from './planting-query';
 
 export type { PlantingView };
 
 function base(farmId: number) {
-	return db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	return plantingsWithCrop()
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.leftJoin('blocks as k', 'k.id', 'b.block_id')
 		.leftJoin('users as u', 'u.id', 'p.updated_by')

@@ -24,6 +24,7 @@ import { familiesByBed } from './rotation';
 import * as beds from './beds';
 import { bedHolders } from './bed-holders';
 import { lockSeason, type Season } from './seasons';
+import { plantingsWithCrop } from './planting-query';
 
 export interface CopyPlantingNote {
 	plantingId: number;
@@ -98,9 +99,7 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 		farms.get(farmId),
 		farms.weeklyTemps(farmId),
 		beds.list(farmId),
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
+		plantingsWithCrop()
 			.where({ 'p.farm_id': farmId, 'p.season_id': source.id })
 			.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
 			.select('p.*', 'c.name as crop', 'c.family', 'c.frost_tolerance', 'c.heat_limit_f', 'v.name as variety')

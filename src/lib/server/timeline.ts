@@ -11,11 +11,11 @@ import type {
 	TimelineFlag,
 	TimelinePlanting
 } from '$lib/timeline-types';
-import { db } from './db';
 import { holdingBedIn } from './bed-holders';
 import * as bedData from './beds';
 import * as farms from './farms';
 import type { Season } from './seasons';
+import { plantingsWithCrop } from './planting-query';
 
 export type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting };
 
@@ -81,9 +81,7 @@ async function plantingsTouching(
 	to: string,
 	turnaroundDays: number
 ): Promise<TimelinePlanting[]> {
-	const rows = await db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	const rows = await plantingsWithCrop()
 		.where('p.farm_id', farmId)
 		.andWhere((q) => {
 			if (seasonId !== null) q.where('p.season_id', seasonId);

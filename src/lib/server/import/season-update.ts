@@ -16,6 +16,7 @@ import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type Wa
 import type { ImportPlan } from './validate';
 import { plantingColumnsOf, writeBeds, writeLibrary } from './write';
 import { fileFieldNames, fromStored, pick, plantingFigureNames } from '$lib/plantings/fields';
+import { plantingsWithCrop } from '../planting-query';
 
 export interface PreviewSummary {
 	token: string;
@@ -73,9 +74,7 @@ export async function seasonPlantings(
 	seasonId: number,
 	lock = false
 ): Promise<ExistingPlanting[]> {
-	const q = conn('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
+	const q = plantingsWithCrop(conn)
 		.leftJoin('beds as b', 'b.id', 'p.bed_id')
 		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
 		.orderBy('p.id')
