@@ -1,6 +1,8 @@
 // A proposed planting as a row of the plantings table. Shared by the server's plan apply and the
-// demo seed (which runs outside SvelteKit), so both write a plan the same way.
+// demo seed (which runs outside SvelteKit), so both write a plan the same way. Built from the field
+// table: a field the proposal does not give takes its initial value, as a new grid row does.
 import type { ProposedPlanting } from '$lib/planning';
+import { figuresOf, initialValue, plantingFieldNames, toStored, type StoredPlanting } from '$lib/plantings/fields';
 
 export interface PlantingRowIds {
 	farmId: number;
@@ -11,26 +13,19 @@ export interface PlantingRowIds {
 }
 
 export function plantingRow(p: ProposedPlanting, ids: PlantingRowIds): Record<string, unknown> {
+	const given = p as unknown as Record<string, unknown>;
+	const values: Record<string, unknown> = {};
+	for (const f of plantingFieldNames) values[f] = f in given ? given[f] : initialValue(f, undefined);
+	Object.assign(values, {
+		varietyId: ids.varietyId,
+		bedId: ids.bedId,
+		// A planting the engine could not place keeps its reason where the grower will see it.
+		notes: p.unplacedReason === null ? null : `Not placed: ${p.unplacedReason}`
+	});
 	return {
+		...toStored({ ...(values as unknown as StoredPlanting), ...figuresOf(p) }),
 		farm_id: ids.farmId,
 		season_id: ids.seasonId,
-		variety_id: ids.varietyId,
-		bed_id: ids.bedId,
-		start_ft: p.startFt,
-		length_ft: p.lengthFt,
-		rows: p.rows,
-		in_row_spacing_in: p.inRowSpacingIn,
-		seeds_per_spot: p.seedsPerSpot,
-		method: p.method,
-		tray_sow_date: p.traySowDate,
-		field_date: p.fieldDate,
-		first_harvest: p.firstHarvest,
-		last_harvest: p.lastHarvest,
-		expected_yield: p.expectedYield,
-		seeds_needed: p.seed.seeds,
-		status: 'planned',
-		// A planting the engine could not place keeps its reason where the grower will see it.
-		notes: p.unplacedReason === null ? null : `Not placed: ${p.unplacedReason}`,
 		updated_by: ids.updatedBy ?? null
 	};
 }

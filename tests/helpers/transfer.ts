@@ -338,7 +338,7 @@ export async function libraryOf(farmId: number): Promise<{
 	const crops = await db('crops')
 		.where({ farm_id: farmId })
 		.orderBy('name')
-		.select('name', 'family', 'harvest_unit', 'frost_tolerance', 'heat_limit_f', 'base_temp_f');
+		.select('name', 'family', 'harvest_unit', 'frost_tolerance', 'heat_limit_f', 'base_temp_f', 'sow_from', 'sow_to');
 	const numeric = (r: Record<string, unknown>): Record<string, unknown> =>
 		Object.fromEntries(
 			Object.entries(r).map(([k, v]) => [k, typeof v === 'string' && /^-?\d+(\.\d+)?$/.test(v) ? Number(v) : v])

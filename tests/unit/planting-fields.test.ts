@@ -22,6 +22,8 @@ import { columns } from '$lib/components/grid/columns';
 import { valuesOf } from '$lib/components/grid/rows';
 import { defaultValues } from '$lib/components/grid/grid-state.svelte';
 import type { PlantingView } from '$lib/types';
+import { plantingColumns } from '$lib/server/export/planting-columns';
+import { plantingRowSchema } from '$lib/schemas/import';
 
 // A stored row as MariaDB answers it (DECIMAL columns as strings), written by hand.
 const stored: Record<string, unknown> = {
@@ -103,5 +105,19 @@ describe('the planting field table', () => {
 			else expect(column in next).toBe(false);
 		}
 		expect(next).toMatchObject({ status: 'planned', actual_tray_sow_date: null, length_ft: 40, method: 'transplant' });
+	});
+
+	it('gives every field with a file column a Plantings sheet column, and the import a cell of it', () => {
+		const keys = plantingColumns.map((c) => c.key);
+		for (const f of plantingFieldNames) {
+			const file = fieldSpec(f).file;
+			if (!file) continue;
+			expect(plantingColumns.find((c) => c.key === f)?.header).toBe(file.header);
+			expect(Object.keys(plantingRowSchema.shape)).toContain(f);
+		}
+		// Only the references are written as names: the variety as crop and variety, the bed by its name.
+		expect(plantingFieldNames.filter((f) => !fieldSpec(f).file)).toEqual(['varietyId', 'bedId']);
+		expect(keys.slice(0, 4)).toEqual(['crop', 'variety', 'block', 'bed']);
+		expect(keys.at(-1)).toBe('id');
 	});
 });

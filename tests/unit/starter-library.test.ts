@@ -33,6 +33,19 @@ describe('starter library', () => {
 		}
 	});
 
+	it('gives field dates only as a pair of month-days, and garlic its autumn planting', () => {
+		for (const c of starterCrops) {
+			expect(c.sowFrom === undefined, c.name).toBe(c.sowTo === undefined);
+			if (c.sowFrom) expect(`${c.sowFrom} ${c.sowTo}`).toMatch(/^(0\d|1[0-2])-[0-3]\d (0\d|1[0-2])-[0-3]\d$/);
+		}
+		// Common practice (no published source): garlic is planted in autumn for a harvest the next summer.
+		const garlic = starterCrops.find((c) => c.key === 'garlic')!;
+		expect([garlic.sowFrom, garlic.sowTo]).toEqual(['10-01', '11-30']);
+		expect(garlic.source).toMatch(/field dates .*common practice/);
+		// Frost dates and soil temperature set the others' seasons: no fixed days for them.
+		expect(starterCrops.filter((c) => c.sowFrom).map((c) => c.key)).toEqual(['garlic']);
+	});
+
 	it('names a source for every variety, or marks its figures common practice', () => {
 		for (const c of starterCrops) {
 			for (const v of c.varieties) {

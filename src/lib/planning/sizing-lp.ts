@@ -41,8 +41,10 @@ export function sizingLp(input: PlanInput): {
 			const terms: string[] = [];
 			for (let c = w; c >= Math.max(p.cMin, w - p.span + 1); c--) {
 				if (p.step > 1 && ((c % p.step) + p.step) % p.step !== 0) continue;
+				// The candidate first: working it out sets its per-foot supply (a late or frost-cut harvest).
+				if (!p.candidate(c).ok) continue;
 				const cf = p.perFt(c, w);
-				if (!(cf > 0) || !p.candidate(c).ok) continue;
+				if (!(cf > 0)) continue;
 				terms.push(`${cf * scale} x${c - p.cMin}`);
 				used.add(c);
 			}

@@ -3,12 +3,13 @@
 import { PlanningInputError, requireNonNegativeItem } from './errors';
 import { cumulativeWeights, shareOfDays } from './harvest-curve';
 import { type DayNumber, toDayNumber, yearOfDay } from './day-number';
-import { type EffectiveDtm, blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
+import { blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
+import { coverByLp, peakWeekOf } from './cover-lp';
 import * as pw from './plan-warnings';
 import { type ResolvedOptions, resolveOptions } from './resolve-options';
-import type { PlanInput, SuccessionRun } from './succession-types';
+import type { Candidate, PlanInput, SuccessionRun } from './succession-types';
 import type { PlanningWarning, Variety, WeeklyTarget } from './types';
 import { normaliseTargets } from './target-weeks';
 import { inMonthDayWindow, sowingWindowOf, tooColdToSow } from './sowing-window';
@@ -25,46 +26,6 @@ export interface Planned<T> {
 
 export type MakeRun<T> = (run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
 
-/** What planRuns knows of one candidate start (a Monday): its dates, or that it cannot be reached. */
-interface Candidate {
-	ok: boolean;
-	fieldDay: DayNumber;
-	/** First harvest derived forwards from fieldDay: the candidate's Monday or a day or two after. */
-	first: DayNumber;
-	/** The window's last day: first + window − 1, or the first fall frost for a tender crop if sooner. */
-	lastDay: DayNumber;
-	/**
-	 * Per-foot supply in the candidate's weeks when its harvest starts after its Monday (the window's
-	 * last days, past the candidate's weeks, are left out: counting short is the safe side) or the
-	 * first fall frost ends it early (a tender crop: nothing after the frost); else undefined.
-	 */
-	coef: Float64Array | undefined;
-	trayDay: DayNumber | undefined;
-	/** Days the succession holds its bed: field date to last harvest. */
-	occupancy: number;
-	dtmWarnings: PlanningWarning[];
-	dtm: EffectiveDtm | undefined;
-	/** Bed-feet chosen here so far (0: no succession starts here), unrounded and rounded. */
-	raw: number;
-	feet: number;
-	/** The week whose need first called for this succession, its target and per-foot supply. */
-	sizedOn: number;
-	sizedPerFt: number;
-}
-
-/**
- * Net-need sizing (DESIGN steps 1–4). Weeks are taken in order; a week whose target × (1 + margin)
- * is not yet met by what already harvests then (supply from outside the plan, and the successions
- * planned so far) gets more bed-feet from the one candidate start, among those whose harvest
- * reaches it, that covers the rest of the weeks' need at the least bed-foot-days per unit of need
- * met; ties go to the later start. With a flat curve that is the latest start (the start that
- * reaches furthest into later weeks), the classic optimal rule for covering weekly needs with
- * windows of one length; with a ramp curve it is a start whose peak falls on the week. The
- * bed-feet are rounded up to the increment at once, so the extra they bring counts toward the
- * next weeks (the repair that keeps rounding from adding up). A week no reachable start can
- * supply (field date before `earliestFieldDate`, first action before `today`) is reported as
- * shortfall with an `unreachable_week` warning.
- */
 /** The covering problem planRuns solves, for sizingLp: handed out once the plan is made. */
 export interface SizingProblem {
 	nWeeks: number;
@@ -77,6 +38,15 @@ export interface SizingProblem {
 	perFt: (c: number, w: number) => number;
 }
 
+/**
+ * Net-need sizing (DESIGN steps 1–4): each week needs its target × (1 + margin) less what harvests
+ * then from outside the plan. The covering program over the reachable starts (fewest bed-foot-days
+ * meeting every need; ties to later starts) is solved exactly (cover-lp.ts), each start's bed-feet
+ * rounded up to the increment; a pass over the weeks tops up any week still short from the start
+ * covering the rest of the need at the least bed-foot-days per unit, and the repair trims what
+ * rounding left over. A week no reachable start can supply is reported as shortfall with an
+ * `unreachable_week` warning.
+ */
 export function planRuns<T>(
 	input: PlanInput,
 	temps: TempLookup | undefined,
@@ -243,6 +213,21 @@ export function planRuns<T>(
 		return sized.given;
 	}
 
+	// No succession shorter than one plant per row (one in-row spacing), in whole increments.
+	const minFeet = roundUpTo(v.inRowSpacingIn / 12, o.increment);
+	// The covering program, solved exactly; the weekly pass below tops up what float dust left short.
+	const ok = (c: number): boolean => candidate(c).ok;
+	const occupancy = (c: number): number => candidate(c).occupancy;
+	const lp = fromStore ? null : coverByLp({ nWeeks, cMin, span, step, target, need, ok, occupancy, perFt });
+	for (const [c, x] of lp ?? []) {
+		const cand = candidate(c);
+		cand.raw = x;
+		cand.feet = Math.max(roundUpTo(x, o.increment), minFeet);
+		cand.sizedOn = peakWeekOf(c, span, nWeeks, target, perFt);
+		cand.sizedPerFt = perFt(c, cand.sizedOn);
+		for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) planned[u] += cand.feet * perFt(c, u);
+	}
+
 	for (let w = 0; w < (fromStore ? 0 : nWeeks); w++) {
 		if (!(target[w] > 0)) continue;
 		const net = need[w] - planned[w];
@@ -277,7 +262,7 @@ export function planRuns<T>(
 			continue;
 		}
 		const cand = candidate(best);
-		const feet = roundUpTo(cand.feet + bestX, o.increment);
+		const feet = Math.max(roundUpTo(cand.feet + bestX, o.increment), minFeet);
 		const added = feet - cand.feet;
 		if (cand.sizedOn < 0) {
 			cand.sizedOn = w;
@@ -301,7 +286,8 @@ export function planRuns<T>(
 				if (!(target[u] > 0) || !(cf > 0) || !(need[u] > 0)) continue;
 				cut = Math.min(cut, (planned[u] - need[u]) / cf);
 			}
-			const feet = roundUpTo(Math.max(0, cand.feet - cut), o.increment);
+			const left = roundUpTo(Math.max(0, cand.feet - cut), o.increment);
+			const feet = left > 0 ? Math.max(left, minFeet) : 0;
 			if (feet >= cand.feet) continue;
 			for (let u = Math.max(0, c); u < nWeeks && u <= c + span - 1; u++) planned[u] -= (cand.feet - feet) * perFt(c, u);
 			cand.feet = feet;

@@ -143,3 +143,30 @@ export interface SuccessionRun {
 	peakPerFt: number;
 	peakDays: number;
 }
+
+/** What planRuns knows of one candidate start (a Monday): its dates, or that it cannot be reached. */
+export interface Candidate {
+	ok: boolean;
+	fieldDay: DayNumber;
+	/** First harvest derived forwards from fieldDay: the candidate's Monday or a day or two after. */
+	first: DayNumber;
+	/** The window's last day: first + window − 1, or the first fall frost for a tender crop if sooner. */
+	lastDay: DayNumber;
+	/**
+	 * Per-foot supply in the candidate's weeks when its harvest starts after its Monday (the window's
+	 * last days, past the candidate's weeks, are left out: counting short is the safe side) or the
+	 * first fall frost ends it early (a tender crop: nothing after the frost); else undefined.
+	 */
+	coef: Float64Array | undefined;
+	trayDay: DayNumber | undefined;
+	/** Days the succession holds its bed: field date to last harvest. */
+	occupancy: number;
+	dtmWarnings: PlanningWarning[];
+	dtm: EffectiveDtm | undefined;
+	/** Bed-feet chosen here so far (0: no succession starts here), unrounded and rounded. */
+	raw: number;
+	feet: number;
+	/** The week whose need first called for this succession, its target and per-foot supply. */
+	sizedOn: number;
+	sizedPerFt: number;
+}

@@ -2,8 +2,9 @@
 // as exceljs reads it (number, string, Date) or as CSV text; each schema takes both, so a
 // workbook saved by any spreadsheet program and a hand-made CSV pass the same checks.
 import { z } from 'zod';
-import { isoDate, moneyCents, numberField, plainText } from './common';
-import { plantingStatuses, sowingMethods } from './planting';
+import { isoDate, monthDaySchema, moneyCents, numberField, plainText } from './common';
+import { sowingMethods } from './planting';
+import { fieldSpec, fileFieldNames, type FieldKind, type FileField, type PlantingValues } from '$lib/plantings/fields';
 
 /** Upload limit: a season of several thousand plantings is well under 1 MB as .xlsx. */
 export const IMPORT_MAX_BYTES = 5 * 1024 * 1024;
@@ -79,13 +80,31 @@ const cents = (label: string) => z.preprocess((v) => (blank(v) ? '0' : v), money
 
 export const harvestUnits = ['lb', 'bunch', 'head', 'each'] as const;
 
+/** MM-DD of a date: a spreadsheet that took "10-01" for a date keeps only its month and day. */
+function monthDayValue(v: unknown): unknown {
+	const d = dateValue(v);
+	if (typeof d === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(d)) return d.slice(5);
+	return d;
+}
+/**
+ * A crop's field date: MM-DD, blank for none. A file without the column leaves it undefined, so
+ * an older workbook keeps the crop's field dates as they are.
+ */
+const fieldDate = (label: string) =>
+	z.preprocess(
+		(v) => (v === undefined ? undefined : blank(v) ? null : monthDayValue(v)),
+		monthDaySchema(label).nullable().optional()
+	);
+
 export const cropRowSchema = z.object({
 	crop: text('Crop', 80),
 	family: text('Family', 40),
 	harvestUnit: choice('Harvest unit', harvestUnits),
 	frostTolerance: choice('Frost tolerance', ['tender', 'hardy'] as const),
 	heatLimitF: optional('Heat limit', -40, 130),
-	baseTempF: withDefault('Base temperature', 0, 80, 40)
+	baseTempF: withDefault('Base temperature', 0, 80, 40),
+	sowFrom: fieldDate('Earliest field date'),
+	sowTo: fieldDate('Latest field date')
 });
 
 export const varietyRowSchema = z.object({
@@ -119,35 +138,40 @@ export const bedRowSchema = z.object({
 	widthIn: withDefault('Width', 1, 1_000, 30, { int: true })
 });
 
+/** A field's cell as the file gives it (exceljs' value, or CSV text), in the form its schema reads. */
+function fieldCell(kind: FieldKind, v: unknown): unknown {
+	if (kind === 'date') return dateValue(v);
+	// Case and spacing do not matter in a choice cell, as in `choice` above.
+	if (kind === 'enum') return typeof v === 'string' ? v.trim().toLowerCase() : v;
+	if (kind === 'text') return typeof v === 'number' ? String(v) : v;
+	return v;
+}
+
+/**
+ * Each field's cell on the Plantings sheet, from the field table: the field's own schema (or its
+ * file's), a blank cell taking the file's blank value or the field's initial value (none: required).
+ */
+const fieldCells = Object.fromEntries(
+	fileFieldNames.map((f) => {
+		const spec = fieldSpec(f);
+		const blankAs =
+			spec.file?.blank !== undefined ? spec.file.blank : typeof spec.initial === 'function' ? undefined : spec.initial;
+		return [f, z.preprocess((v) => (blank(v) ? blankAs : fieldCell(spec.kind, v)), spec.file?.schema ?? spec.schema)];
+	})
+) as unknown as { [K in FileField]: z.ZodType<PlantingValues[K]> };
+
 export const plantingRowSchema = z.object({
 	crop: text('Crop', 80),
 	variety: text('Variety', 80),
 	bed: optionalText('Bed', 60),
-	startFt: withDefault('Start', 0, 10_000, 0),
-	lengthFt: required('Length', 0.5, 10_000),
-	rows: required('Rows', 1, 50, { int: true }),
-	inRowSpacingIn: required('In-row spacing', 0.1, 240),
-	seedsPerSpot: withDefault('Seeds per spot', 1, 50, 1, { int: true }),
-	method: choice('Method', sowingMethods),
+	...fieldCells,
+	// The engine's figures: worked out again from the row's fields on import (as a grid edit is), so a
+	// new row may leave them blank.
 	traySowDate: optionalDate('Tray sowing'),
-	fieldDate: date('Field date'),
-	// Worked out again from the row's figures on import (as a grid edit is): a new row may leave them blank.
 	firstHarvest: optionalDate('First harvest'),
 	lastHarvest: optionalDate('Last harvest'),
 	expectedYield: withDefault('Expected yield', 0, 1_000_000_000, 0),
 	seedsNeeded: withDefault('Seeds needed', 0, 2 ** 31 - 1, 0, { int: true }),
-	status: z.preprocess(
-		(v) => (blank(v) ? 'planned' : typeof v === 'string' ? v.trim().toLowerCase() : v),
-		z.enum(plantingStatuses, { error: `Status must be one of ${plantingStatuses.join(', ')}.` })
-	),
-	actualTraySowDate: optionalDate('Actual tray sowing'),
-	actualFieldDate: optionalDate('Actual field date'),
-	actualFirstHarvest: optionalDate('Actual first harvest'),
-	actualLastHarvest: optionalDate('Actual last harvest'),
-	notes: z.preprocess(
-		(v) => (blank(v) ? null : String(v).trim()),
-		z.string().max(2000, 'Notes must be at most 2000 characters.').nullable()
-	),
 	id: optional('Planting id', 1, 2 ** 31 - 1, { int: true })
 });
 

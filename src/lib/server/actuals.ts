@@ -3,7 +3,7 @@
 import { actualsAgainstPlan, isoWeek, MIN_PLANTINGS_FOR_FIGURES, type ActualsResult } from '$lib/planning';
 import { db } from './db';
 import { farmToday } from './harvests';
-import { curveOf } from './crops';
+import { livePlantings, loggedHarvests, plannedColumns, varietySupply, type PlannedRow } from './planned-rows';
 
 export interface ResultNames {
 	crops: Record<string, { name: string; family: string; unit: string }>;
@@ -36,40 +36,35 @@ export interface SeasonActuals {
 export async function seasonActuals(farmId: number, seasonId: number): Promise<SeasonActuals> {
 	const today = await farmToday(farmId);
 	const [plantings, harvests, varieties, changes] = await Promise.all([
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
+		// A failed planting gave nothing by definition; the forecast page leaves it out too.
+		livePlantings(farmId)
 			.leftJoin('beds as b', 'b.id', 'p.bed_id')
-			.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-			// A failed planting gave nothing by definition; the forecast page leaves it out too.
-			.whereNot('p.status', 'failed')
-			.select(
-				'p.id',
+			.where({ 'p.season_id': seasonId })
+			.select<
+				(PlannedRow & {
+					variety_id: number;
+					field_date: string;
+					actual_field_date: string | null;
+					actual_first_harvest: string | null;
+					status: string;
+					bed: string | null;
+				})[]
+			>(
+				...plannedColumns,
 				'p.variety_id',
-				'v.crop_id',
-				'p.length_ft',
-				'v.yield_per_bed_foot',
-				'v.harvest_window_days',
-				'v.harvest_curve',
-				'c.harvest_curve as crop_harvest_curve',
-				'c.harvest_cut_interval_days',
 				'p.field_date',
-				'p.first_harvest',
-				'p.last_harvest',
 				'p.actual_field_date',
 				'p.actual_first_harvest',
 				'p.status',
 				'b.name as bed'
 			),
-		db()('harvest_records as h')
-			.join('plantings as p', 'p.id', 'h.planting_id')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
-			.where({ 'h.farm_id': farmId, 'p.season_id': seasonId })
+		loggedHarvests(farmId, seasonId)
 			.whereNot('p.status', 'failed')
-			// A harvest in another unit cannot be added to the crop's figures (the log refuses them now).
-			.andWhereRaw('h.unit = c.harvest_unit')
-			.select('h.planting_id', 'h.harvested_on', 'h.quantity'),
+			.select<{ planting_id: number; harvested_on: string; quantity: string | number }[]>(
+				'h.planting_id',
+				'h.harvested_on',
+				'h.quantity'
+			),
 		db()('varieties as v')
 			.join('crops as c', 'c.id', 'v.crop_id')
 			.where('v.farm_id', farmId)
@@ -87,23 +82,26 @@ export async function seasonActuals(farmId: number, seasonId: number): Promise<S
 	]);
 	const result = actualsAgainstPlan({
 		currentWeek: isoWeek(today),
-		plantings: plantings.map((p) => ({
-			key: String(p.id),
-			crop: String(p.crop_id),
-			variety: String(p.variety_id),
-			bedFeet: Number(p.length_ft),
+		plantings: plantings.map((p) => {
 			// The one planned supply (planned-supply.ts): the variety's current yield, window and curve,
 			// as on the Forecast page, the crew sheets and the workbook.
-			curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days),
-			windowDays: Number(p.harvest_window_days),
-			yieldPerBedFoot: Number(p.yield_per_bed_foot),
-			fieldDate: p.field_date,
-			firstHarvest: p.first_harvest,
-			lastHarvest: p.last_harvest,
-			actualFieldDate: p.actual_field_date,
-			actualFirstHarvest: p.actual_first_harvest,
-			finished: p.status === 'finished'
-		})),
+			const { yieldPerBedFoot, harvestWindowDays, curve } = varietySupply(p);
+			return {
+				key: String(p.id),
+				crop: String(p.crop_id),
+				variety: String(p.variety_id),
+				bedFeet: Number(p.length_ft),
+				curve,
+				windowDays: harvestWindowDays,
+				yieldPerBedFoot,
+				fieldDate: p.field_date,
+				firstHarvest: p.first_harvest,
+				lastHarvest: p.last_harvest,
+				actualFieldDate: p.actual_field_date,
+				actualFirstHarvest: p.actual_first_harvest,
+				finished: p.status === 'finished'
+			};
+		}),
 		harvests: harvests.map((h) => ({
 			plantingKey: String(h.planting_id),
 			date: h.harvested_on,

@@ -5,88 +5,10 @@ import type { CropInput, VarietyInput } from '$lib/schemas/crop';
 import type { StarterCrop } from './starter-library';
 
 import type { VarietyView } from '$lib/types';
-import type { HarvestCurve } from '$lib/planning';
+import { listVarieties, shapeOf } from './variety-views';
 
 export type { VarietyView };
-
-export async function listVarieties(farmId: number, conn: Knex = db()): Promise<VarietyView[]> {
-	const rows = await conn('varieties as v')
-		.join('crops as c', 'c.id', 'v.crop_id')
-		.where('v.farm_id', farmId)
-		.orderBy([{ column: 'c.name' }, { column: 'v.name' }])
-		.select(
-			'v.*',
-			'c.name as crop',
-			'c.family',
-			'c.harvest_unit',
-			'c.frost_tolerance',
-			'c.heat_limit_f',
-			'c.base_temp_f',
-			'c.harvest_curve as crop_harvest_curve',
-			'c.harvest_cut_interval_days',
-			'c.sow_from',
-			'c.sow_to',
-			'c.storage_weeks',
-			'c.storage_loss_per_week',
-			'c.archived_at as crop_archived_at'
-		);
-	return rows.map((r) => ({
-		id: r.id,
-		cropId: r.crop_id,
-		crop: r.crop,
-		family: r.family,
-		harvestUnit: r.harvest_unit,
-		frostTolerance: r.frost_tolerance,
-		heatLimitF: r.heat_limit_f === null ? null : Number(r.heat_limit_f),
-		baseTempF: Number(r.base_temp_f),
-		name: r.name,
-		method: r.method,
-		daysToMaturity: r.days_to_maturity,
-		daysInTray: r.days_in_tray,
-		harvestWindowDays: r.harvest_window_days,
-		yieldPerBedFoot: Number(r.yield_per_bed_foot),
-		rows: r.rows_per_bed,
-		inRowSpacingIn: Number(r.in_row_spacing_in),
-		seedsPerSpot: r.seeds_per_spot,
-		germinationRate: Number(r.germination_rate),
-		seedsPerGram: Number(r.seeds_per_gram),
-		seedPriceCentsPerGram: r.seed_price_cents_per_gram,
-		seedsPerPacket: r.seeds_per_packet,
-		cellsPerTray: r.cells_per_tray,
-		margin: Number(r.margin),
-		gddToMaturity: r.gdd_to_maturity,
-		// A variety of an archived crop is archived with it.
-		archived: r.archived_at !== null || r.crop_archived_at !== null,
-		source: r.source ?? null,
-		ownHarvestCurve: r.harvest_curve ?? null,
-		harvestCurve: shapeOf(r.harvest_curve ?? r.crop_harvest_curve),
-		cutIntervalDays: r.harvest_cut_interval_days === null ? null : Number(r.harvest_cut_interval_days),
-		sowFrom: r.sow_from ?? null,
-		sowTo: r.sow_to ?? null,
-		storageWeeks: r.storage_weeks === null ? null : Number(r.storage_weeks),
-		storageLossPerWeek: r.storage_loss_per_week === null ? null : Number(r.storage_loss_per_week)
-	}));
-}
-
-const CURVES = ['flat', 'ramp', 'single', 'cuts'] as const;
-
-function shapeOf(x: unknown): (typeof CURVES)[number] {
-	return CURVES.find((c) => c === x) ?? 'flat';
-}
-
-/**
- * A stored curve (the variety's, else the crop's) as the engine takes it; undefined for flat.
- * One rule for every screen and file: a planting's expected harvest follows its variety's
- * current yield, window and curve, spread from its first to its last harvest date.
- */
-export function curveOf(shape: unknown, cutIntervalDays?: unknown): HarvestCurve | undefined {
-	const s = shapeOf(shape);
-	if (s === 'flat') return undefined;
-	const out: HarvestCurve = { shape: s };
-	if (s === 'cuts' && cutIntervalDays !== null && cutIntervalDays !== undefined && Number(cutIntervalDays) > 0)
-		out.intervalDays = Number(cutIntervalDays);
-	return out;
-}
+export { curveOf, listVarieties } from './variety-views';
 
 // ---- Editing the library (owner). Every write is scoped by farm; another farm's ids are "not found".
 
@@ -203,6 +125,18 @@ const STARTER_CROP_EXTRAS: Pick<CropInput, 'harvestCurve' | 'cutIntervalDays' | 
 	...{ sowFrom: null, sowTo: null }
 };
 
+/** A write whose clash with a name already in the library becomes the 409 that names the field. */
+async function uniqueName<T>(write: () => Promise<T>, message: string): Promise<T> {
+	try {
+		return await write();
+	} catch (e) {
+		if (isDuplicate(e)) throw new LibraryInputError('name', message, 409);
+		throw e;
+	}
+}
+const cropTaken = (c: CropInput): string => `The library already has a crop named "${c.name}".`;
+const varietyTaken = (v: VarietyInput): string => `This crop already has a variety named "${v.name}".`;
+
 function cropColumns(input: CropInput) {
 	return {
 		name: input.name,
@@ -227,14 +161,10 @@ export async function createCrop(
 	input: CropInput,
 	trx: Knex | Knex.Transaction = db()
 ): Promise<number> {
-	try {
-		const [id] = await trx('crops').insert({ farm_id: farmId, ...cropColumns(input) });
-		return id;
-	} catch (e) {
-		if (isDuplicate(e))
-			throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
-		throw e;
-	}
+	return uniqueName(
+		async () => (await trx('crops').insert({ farm_id: farmId, ...cropColumns(input) }))[0],
+		cropTaken(input)
+	);
 }
 
 /**
@@ -262,24 +192,33 @@ export async function updateCrop(farmId: number, cropId: number, input: CropInpu
 				);
 			}
 		}
-		try {
-			await trx('crops').where({ farm_id: farmId, id: cropId }).update(cropColumns(input));
-		} catch (e) {
-			if (isDuplicate(e))
-				throw new LibraryInputError('name', `The library already has a crop named "${input.name}".`, 409);
-			throw e;
-		}
+		await uniqueName(
+			() => trx('crops').where({ farm_id: farmId, id: cropId }).update(cropColumns(input)),
+			cropTaken(input)
+		);
 		return true;
 	});
 }
 
-export async function setCropArchived(farmId: number, cropId: number, archived: boolean): Promise<boolean> {
+/** Archives a crop or variety (or brings it back); false when the farm has no such row. */
+async function setArchived(
+	table: 'crops' | 'varieties',
+	farmId: number,
+	id: number,
+	archived: boolean
+): Promise<boolean> {
 	return (
-		(await db()('crops')
-			.where({ farm_id: farmId, id: cropId })
+		(await db()(table)
+			.where({ farm_id: farmId, id })
 			.update({ archived_at: archived ? db().fn.now() : null })) > 0
 	);
 }
+
+export const setCropArchived = (farmId: number, cropId: number, archived: boolean): Promise<boolean> =>
+	setArchived('crops', farmId, cropId, archived);
+
+export const setVarietyArchived = (farmId: number, varietyId: number, archived: boolean): Promise<boolean> =>
+	setArchived('varieties', farmId, varietyId, archived);
 
 function varietyColumns(input: VarietyInput) {
 	return {
@@ -312,32 +251,17 @@ export async function createVariety(
 ): Promise<number> {
 	if (!(await trx('crops').where({ farm_id: farmId, id: cropId }).first('id')))
 		throw new LibraryInputError('_form', "That crop is not in this farm's library.", 404);
-	try {
-		const [id] = await trx('varieties').insert({ farm_id: farmId, crop_id: cropId, ...varietyColumns(input) });
-		return id;
-	} catch (e) {
-		if (isDuplicate(e))
-			throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
-		throw e;
-	}
+	return uniqueName(
+		async () => (await trx('varieties').insert({ farm_id: farmId, crop_id: cropId, ...varietyColumns(input) }))[0],
+		varietyTaken(input)
+	);
 }
 
 /** Changes a variety's figures. Plantings already made keep the figures they were planned with. */
 export async function updateVariety(farmId: number, varietyId: number, input: VarietyInput): Promise<boolean> {
-	try {
-		return (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update(varietyColumns(input))) > 0;
-	} catch (e) {
-		if (isDuplicate(e))
-			throw new LibraryInputError('name', `This crop already has a variety named "${input.name}".`, 409);
-		throw e;
-	}
-}
-
-export async function setVarietyArchived(farmId: number, varietyId: number, archived: boolean): Promise<boolean> {
-	return (
-		(await db()('varieties')
-			.where({ farm_id: farmId, id: varietyId })
-			.update({ archived_at: archived ? db().fn.now() : null })) > 0
+	return uniqueName(
+		async () => (await db()('varieties').where({ farm_id: farmId, id: varietyId }).update(varietyColumns(input))) > 0,
+		varietyTaken(input)
 	);
 }
 

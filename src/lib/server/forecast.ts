@@ -17,8 +17,15 @@ import {
 import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { throughStoresSplit } from '$lib/planning/storage';
 import { todayIn } from '$lib/today';
-import { curveOf } from './crops';
 import { plannedHarvest } from './planned-supply';
+import {
+	cropStores,
+	livePlantings,
+	loggedHarvests,
+	plannedColumns,
+	plannedFromRow,
+	type PlannedRow
+} from './planned-rows';
 import { db } from './db';
 import { targetInput } from './demand';
 import type { Season } from './seasons';
@@ -90,61 +97,22 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 		listCrops(farmId),
 		// Every planting harvesting in the season's dates, whatever season it belongs to (last
 		// autumn's garlic, dug this summer, feeds this season's boxes).
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
-			.where({ 'p.farm_id': farmId })
+		livePlantings(farmId)
 			.where('p.first_harvest', '<=', season.endsOn)
 			.where('p.last_harvest', '>=', season.startsOn)
-			.whereNot('p.status', 'failed')
-			.select(
-				'p.id',
-				'v.crop_id',
-				'p.first_harvest',
-				'p.last_harvest',
-				'p.length_ft',
-				'v.yield_per_bed_foot',
-				'v.harvest_window_days',
-				'v.harvest_curve',
-				'c.harvest_curve as crop_harvest_curve',
-				'c.harvest_cut_interval_days'
-			),
-		db()('harvest_records as h')
-			.join('plantings as p', 'p.id', 'h.planting_id')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
-			.where({ 'h.farm_id': farmId, 'p.season_id': season.id })
-			// A harvest logged in another unit cannot be added to the crop's figures.
-			.andWhereRaw('h.unit = c.harvest_unit')
-			.select('h.planting_id', 'v.crop_id', 'h.harvested_on', 'h.quantity'),
+			.select<PlannedRow[]>(...plannedColumns),
+		loggedHarvests(farmId, season.id).select<
+			{ planting_id: number; crop_id: number; harvested_on: string; quantity: string | number }[]
+		>('h.planting_id', 'v.crop_id', 'h.harvested_on', 'h.quantity'),
 		targetInput(farmId, season.id),
 		activeSwaps(farmId, season.id),
-		// Storage crops: how long a harvest keeps and what share it loses a week in store.
-		db()('crops')
-			.where({ farm_id: farmId })
-			.where('storage_weeks', '>', 0)
-			.select<{ id: number; storage_weeks: number; storage_loss_per_week: string | number | null }[]>(
-				'id',
-				'storage_weeks',
-				'storage_loss_per_week'
-			)
+		cropStores(farmId)
 	]);
 	const currentWeek = isoWeek(todayIn(farm?.time_zone ?? 'UTC'));
 	const t1 = performance.now();
 	// The one planned supply (planned-supply.ts): bed-feet × the variety's current yield, spread by
 	// its curve, so a change of a planting's length or a variety's yield shows at once.
-	const forecastPlantings: ForecastPlanting[] = plantings.map((p) =>
-		plannedHarvest({
-			key: `p${p.id}`,
-			crop: String(p.crop_id),
-			firstHarvest: p.first_harvest,
-			lastHarvest: p.last_harvest,
-			lengthFt: Number(p.length_ft),
-			yieldPerBedFoot: Number(p.yield_per_bed_foot),
-			harvestWindowDays: Number(p.harvest_window_days),
-			curve: curveOf(p.harvest_curve ?? p.crop_harvest_curve, p.harvest_cut_interval_days)
-		})
-	);
+	const forecastPlantings: ForecastPlanting[] = plantings.map((p) => plannedHarvest(plannedFromRow(p)));
 	const { supply, actual } = supplyWithActuals(
 		forecastPlantings,
 		harvests.map((h) => ({
@@ -159,12 +127,7 @@ export async function seasonForecast(farmId: number, season: Season): Promise<Se
 	// The supply is summed per crop-week already: join it with the targets directly rather than
 	// through a second forecast() over one pseudo-planting per crop-week (same rows, bit for bit).
 	const targets = deriveTargets(demand);
-	const kept = stores.map((c) => ({
-		crop: String(c.id),
-		keepWeeks: Number(c.storage_weeks),
-		lossPerWeek: Number(c.storage_loss_per_week ?? 0)
-	}));
-	const stored = throughStoresSplit(supply, targets, kept);
+	const stored = throughStoresSplit(supply, targets, stores);
 	const fromStore = new Map(stored.fromStore.map((q) => [cropWeekKey(q.crop, q.week), q.quantity]));
 	const rows = forecastFromWeeklySupply(stored.supply, targets) as SeasonForecastRow[];
 	for (const r of rows) {

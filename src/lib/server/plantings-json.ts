@@ -1,47 +1,33 @@
 // A season's plantings as one JSON array, written by MariaDB itself: one JSON_OBJECT per row, in
-// the exact shape of PlantingView (plantings.ts toView). The planting grid asks for every row of a
-// season at once; for 5,000 rows, building 5,000 row objects in Node, converting them and
+// the exact shape of PlantingView (plantings.ts toView; its fields from the field table). The
+// planting grid asks for every row of a season at once; for 5,000 rows, building 5,000 row objects in Node, converting them and
 // stringifying 3 MB took several times longer than the database's own JSON functions, and held
 // the server's one thread while it did. tests/integration/plantings-json.test.ts checks that this
 // parses to the same value as JSON.stringify(listForSeason(…)), field by field.
 // The GET route keeps its answer until a table read here changes: a table added to this query must
 // be stamped too (db/migrations/20261203_11d_change_stamps.ts, plantings-cache.ts).
+import { plantingFieldTable, plantingFigureTable } from '$lib/plantings/fields';
 import { db } from './db';
 
-/** PlantingView's keys, in toView's order, and the SQL that gives each. */
+/** A stored field's or figure's SQL: decimals as doubles, so 20.0 reads 20 as Number() gives it. */
+const stored = (spec: { column: string; decimal?: boolean }): string =>
+	spec.decimal ? `CAST(p.\`${spec.column}\` AS DOUBLE)` : `p.\`${spec.column}\``;
+
+/** PlantingView's keys and the SQL that gives each; the fields and figures from their tables. */
 const fields: [string, string][] = [
 	['id', 'p.id'],
 	['seasonId', 'p.season_id'],
-	['varietyId', 'p.variety_id'],
 	['variety', 'v.name'],
 	['crop', 'c.name'],
 	['family', 'c.family'],
 	['harvestUnit', 'c.harvest_unit'],
-	['bedId', 'p.bed_id'],
 	['bed', 'b.name'],
 	['block', 'k.name'],
 	['blockPosition', 'k.position'],
 	['bedPosition', 'b.position'],
-	// Decimals as doubles, so 20.0 reads 20 as Number() gives it.
-	['startFt', 'CAST(p.start_ft AS DOUBLE)'],
-	['lengthFt', 'CAST(p.length_ft AS DOUBLE)'],
-	['rows', 'p.`rows`'],
-	['inRowSpacingIn', 'CAST(p.in_row_spacing_in AS DOUBLE)'],
-	['seedsPerSpot', 'p.seeds_per_spot'],
-	['method', 'p.method'],
-	['traySowDate', 'p.tray_sow_date'],
-	['fieldDate', 'p.field_date'],
-	['firstHarvest', 'p.first_harvest'],
-	['lastHarvest', 'p.last_harvest'],
-	['expectedYield', 'CAST(p.expected_yield AS DOUBLE)'],
-	['seedsNeeded', 'p.seeds_needed'],
-	['status', 'p.status'],
-	['notes', 'p.notes'],
+	...Object.entries(plantingFieldTable).map(([k, spec]): [string, string] => [k, stored(spec)]),
+	...Object.entries(plantingFigureTable).map(([k, spec]): [string, string] => [k, stored(spec)]),
 	['version', 'p.version'],
-	['actualTraySowDate', 'p.actual_tray_sow_date'],
-	['actualFieldDate', 'p.actual_field_date'],
-	['actualFirstHarvest', 'p.actual_first_harvest'],
-	['actualLastHarvest', 'p.actual_last_harvest'],
 	['updatedBy', 'u.name'],
 	// ISO 8601 in UTC whatever the session's time zone: seconds since the epoch added to 1970-01-01.
 	[

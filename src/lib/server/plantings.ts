@@ -4,14 +4,20 @@ import type { Knex } from 'knex';
 import type { Role } from '$lib/roles';
 import { editableFields, type PlantingCreate, type PlantingField, type PlantingPatch } from '$lib/schemas/planting';
 import {
-	fieldSpec,
+	figureColumns,
+	figuresOf,
 	fromColumns,
+	fromStored,
 	initialValue,
 	plantingFieldNames,
+	storedColumnNames,
 	toColumns,
 	type PlantingValues
 } from '$lib/plantings/fields';
 import { deriveRow, storedHarvestDays, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
+import type { TaskKind } from '$lib/plantings/tasks';
+import { whereTask } from './planting-tasks';
+import { engineFarm } from '$lib/engine-inputs';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
@@ -32,7 +38,7 @@ function base(farmId: number) {
 		.leftJoin('users as u', 'u.id', 'p.updated_by')
 		.where('p.farm_id', farmId)
 		.select(
-			...plantingFieldNames.map((f) => `p.${fieldSpec(f).column}`),
+			...storedColumnNames.map((c) => `p.${c}`),
 			'p.id',
 			'p.season_id',
 			'v.name as variety',
@@ -43,11 +49,6 @@ function base(farmId: number) {
 			'k.name as block',
 			'k.position as block_position',
 			'b.position as bed_position',
-			'p.tray_sow_date',
-			'p.first_harvest',
-			'p.last_harvest',
-			'p.expected_yield',
-			'p.seeds_needed',
 			'p.version',
 			'u.name as updated_by_name',
 			'p.updated_at'
@@ -66,11 +67,6 @@ type JoinedRow = Record<string, unknown> & {
 	block: string | null;
 	block_position: number | null;
 	bed_position: number | null;
-	tray_sow_date: string | null;
-	first_harvest: string;
-	last_harvest: string;
-	expected_yield: string | number;
-	seeds_needed: number;
 	version: number;
 	updated_by_name: string | null;
 	updated_at: Date | string | null;
@@ -78,7 +74,7 @@ type JoinedRow = Record<string, unknown> & {
 
 function toView(r: JoinedRow): PlantingView {
 	return {
-		...fromColumns(r),
+		...fromStored(r),
 		id: r.id,
 		seasonId: r.season_id,
 		variety: r.variety,
@@ -89,11 +85,6 @@ function toView(r: JoinedRow): PlantingView {
 		block: r.block,
 		blockPosition: r.block_position,
 		bedPosition: r.bed_position,
-		traySowDate: r.tray_sow_date,
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		expectedYield: Number(r.expected_yield),
-		seedsNeeded: r.seeds_needed,
 		version: r.version,
 		updatedBy: r.updated_by_name ?? null,
 		updatedAt: r.updated_at ? new Date(r.updated_at).toISOString() : null
@@ -134,23 +125,23 @@ export interface WeekTasks {
 	harvest: PlantingView[];
 }
 
-/** What the crew does in the week monday..sunday, in walking order (block, bed, start foot). */
+/**
+ * What the crew does in the week monday..sunday (the task rule of plantings/tasks.ts), in walking
+ * order (block, bed, start foot); tray work by crop, as the tray bench holds it.
+ */
 export async function tasksForWeek(farmId: number, monday: string, sunday: string): Promise<WeekTasks> {
 	const walking = [{ column: 'k.position' }, { column: 'b.position' }, { column: 'p.start_ft' }];
-	const [tray, field, harvest] = await Promise.all([
-		base(farmId).whereBetween('p.tray_sow_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy('c.name'),
-		base(farmId).whereBetween('p.field_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy(walking),
-		base(farmId)
-			.where('p.first_harvest', '<=', sunday)
-			.andWhere('p.last_harvest', '>=', monday)
-			.whereNotIn('p.status', ['failed', 'finished'])
-			.orderBy(walking)
+	const task = (kind: TaskKind) => whereTask(base(farmId), kind, monday, sunday);
+	const [tray, direct, transplant, harvest] = await Promise.all([
+		task('tray_sow').orderBy('c.name'),
+		task('direct_sow').orderBy(walking),
+		task('transplant').orderBy(walking),
+		task('harvest').orderBy(walking)
 	]);
-	const fieldViews = field.map(toView);
 	return {
 		traySowing: tray.map(toView),
-		directSowing: fieldViews.filter((p) => p.method === 'direct'),
-		transplanting: fieldViews.filter((p) => p.method === 'transplant'),
+		directSowing: direct.map(toView),
+		transplanting: transplant.map(toView),
 		harvest: harvest.map(toView)
 	};
 }
@@ -183,12 +174,7 @@ export async function gridContext(farmId: number): Promise<GridContext> {
 			lengthFt: b.lengthFt
 		})),
 		farm: {
-			lastSpringFrost: farm.lastSpringFrost,
-			firstFallFrost: farm.firstFallFrost,
-			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-			frostProbabilityPct: farm.frostProbabilityPct,
-			latitude: farm.latitude,
-			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t])),
+			...engineFarm(farm, temps),
 			turnaroundDays: farm.turnaroundDays,
 			bedFootIncrement: farm.bedFootIncrement
 		}
@@ -221,15 +207,7 @@ function buildRow(
 	if (!variety || Object.keys(errors).length) return { errors };
 	const d = deriveRow({ ...values, harvestDays }, variety, ctx.farm);
 	if (!d.ok) return { errors: { [`${prefix}${d.field === 'bedFeet' ? 'lengthFt' : d.field}`]: d.message } };
-	const row = toColumns(values);
-	Object.assign(row, {
-		tray_sow_date: d.value.traySowDate,
-		first_harvest: d.value.firstHarvest,
-		last_harvest: d.value.lastHarvest,
-		expected_yield: d.value.expectedYield,
-		seeds_needed: d.value.seed.seeds
-	});
-	return { row, errors };
+	return { row: { ...toColumns(values), ...figureColumns(figuresOf(d.value)) }, errors };
 }
 
 function withDefaults(input: PlantingCreate, v: GridVariety | undefined): PlantingValues {

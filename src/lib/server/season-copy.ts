@@ -16,7 +16,8 @@ import {
 	shiftPlantingDates,
 	type PlanningWarning
 } from '$lib/planning';
-import { nextSeasonColumns } from '$lib/plantings/fields';
+import { figureColumns, nextSeasonColumns, toColumns } from '$lib/plantings/fields';
+import { engineFarm } from '$lib/engine-inputs';
 import { db } from './db';
 import * as farms from './farms';
 import { familiesByBed } from './rotation';
@@ -104,13 +105,7 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 			.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
 			.select('p.*', 'c.name as crop', 'c.family', 'c.frost_tolerance', 'c.heat_limit_f', 'v.name as variety')
 	]);
-	const checkFarm = {
-		lastSpringFrost: farm.lastSpringFrost,
-		firstFallFrost: farm.firstFallFrost,
-		tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-		frostProbabilityPct: farm.frostProbabilityPct,
-		weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
-	};
+	const checkFarm = engineFarm(farm, temps);
 	const bedName = new Map(bedList.map((b) => [b.id, `${b.blockName} · ${b.name}`]));
 
 	const moved = plantings.map((p) => {
@@ -181,21 +176,20 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 			const reason = unplacedBy.get(String(p.id));
 			return {
 				...nextSeasonColumns(p),
+				// The fields the copy moves itself ('moved' in the field table), and the shifted figures.
+				...toColumns({
+					bedId: at ? Number(at.bedId) : null,
+					startFt: at ? at.startFt : 0,
+					fieldDate: next.fieldDate,
+					notes: reason
+						? `Not placed: ${reason}`
+						: p.notes && !String(p.notes).startsWith('Not placed:')
+							? p.notes
+							: null
+				}),
+				...figureColumns({ ...next, expectedYield: Number(p.expected_yield), seedsNeeded: Number(p.seeds_needed) }),
 				farm_id: farmId,
 				season_id: seasonId,
-				bed_id: at ? Number(at.bedId) : null,
-				start_ft: at ? at.startFt : 0,
-				tray_sow_date: next.traySowDate,
-				field_date: next.fieldDate,
-				first_harvest: next.firstHarvest,
-				last_harvest: next.lastHarvest,
-				expected_yield: p.expected_yield,
-				seeds_needed: p.seeds_needed,
-				notes: reason
-					? `Not placed: ${reason}`
-					: p.notes && !String(p.notes).startsWith('Not placed:')
-						? p.notes
-						: null,
 				updated_by: userId
 			};
 		});

@@ -38,6 +38,9 @@ export interface StarterCrop extends Omit<
 > {
 	/** Common practice (no published source): beans and cucurbits ramp, heads are one cut; default flat. */
 	harvestCurve?: CropInput['harvestCurve'];
+	/** Field dates (MM-DD), only where frost dates and soil temperature do not already set them. */
+	sowFrom?: string | null;
+	sowTo?: string | null;
 	key: string;
 	source: string;
 	varieties: StarterVariety[];
@@ -395,9 +398,27 @@ const listed: StarterCrop[] = [
 	...memoryCrops()
 ];
 
-export const starterCrops: readonly StarterCrop[] = listed.map((c) =>
-	CURVES[c.key] ? { ...c, harvestCurve: CURVES[c.key] } : c
-);
+// Field dates (month-day, the earliest and latest day to sow or set out), only where the frost dates
+// and soil temperatures the planner already follows do not set the season: garlic goes in in
+// autumn for a harvest the next summer, a few weeks before the ground freezes (northern temperate
+// farms; common practice, no published source). Every other crop is left without them: fixed
+// calendar days would be wrong for another climate, while frost and soil temperature move with it.
+const FIELD_DATES: Record<string, { sowFrom: string; sowTo: string; source: string }> = {
+	garlic: {
+		sowFrom: '10-01',
+		sowTo: '11-30',
+		source: 'field dates 10-01 to 11-30 (autumn, before the ground freezes): common practice (no published source)'
+	}
+};
+
+export const starterCrops: readonly StarterCrop[] = listed.map((c) => {
+	const dates = FIELD_DATES[c.key];
+	return {
+		...c,
+		...(CURVES[c.key] ? { harvestCurve: CURVES[c.key] } : {}),
+		...(dates ? { sowFrom: dates.sowFrom, sowTo: dates.sowTo, source: `${c.source}; ${dates.source}` } : {})
+	};
+});
 
 /** Crops not in the reference tables we hold: every figure common practice, from memory. */
 function memoryCrops(): StarterCrop[] {

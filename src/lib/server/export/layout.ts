@@ -5,6 +5,7 @@
 // imperial farm's file says, `units.metric` a metric farm's; the import reads either.
 import type { UnitSystem } from '$lib/format';
 import type { Measure } from '$lib/format/file-units';
+import { plantingColumns } from './planting-columns';
 
 export type CellKind = 'text' | 'int' | 'number' | 'date' | 'money' | 'percent';
 
@@ -120,39 +121,8 @@ export const seasonFields = {
 	exportedOn: 'Exported on'
 } as const;
 
-export const plantingsSheet: SheetSpec = {
-	name: 'Plantings',
-	columns: [
-		col('crop', 'Crop', 16, 'text'),
-		col('variety', 'Variety', 22, 'text'),
-		col('block', 'Block', 10, 'text', true),
-		col('bed', 'Bed', 8, 'text'),
-		measured('startFt', 'Start (ft)', 'Start (m)', 10, 'number', 'length', 1),
-		measured('lengthFt', 'Length (ft)', 'Length (m)', 11, 'number', 'length', 1),
-		col('rows', 'Rows', 7, 'int'),
-		measured('inRowSpacingIn', 'In-row spacing (in)', 'In-row spacing (cm)', 18, 'number', 'spacing', 2),
-		col('seedsPerSpot', 'Seeds per spot', 14, 'int'),
-		col('method', 'Method', 11, 'text'),
-		col('traySowDate', 'Tray sowing (date)', 17, 'date'),
-		col('fieldDate', 'Field date', 12, 'date'),
-		col('fieldWeek', 'Field week (ISO)', 15, 'text', true),
-		col('firstHarvest', 'First harvest (date)', 18, 'date'),
-		col('lastHarvest', 'Last harvest (date)', 18, 'date'),
-		measured('expectedYield', 'Expected yield', 'Expected yield', 14, 'number', 'harvest', 2, {
-			per: 'harvestUnit'
-		}),
-		measured('harvestUnit', 'Yield unit', 'Yield unit', 10, 'text', 'harvestUnit', 0, { derived: true }),
-		col('seedsNeeded', 'Seeds needed (seeds)', 19, 'int'),
-		col('status', 'Status', 12, 'text'),
-		col('actualTraySowDate', 'Actual tray sowing (date)', 22, 'date'),
-		col('actualFieldDate', 'Actual field date', 16, 'date'),
-		col('actualFirstHarvest', 'Actual first harvest (date)', 24, 'date'),
-		col('actualLastHarvest', 'Actual last harvest (date)', 24, 'date'),
-		col('notes', 'Notes', 40, 'text'),
-		// The planting's key: an import into the same season matches rows by it (blank = a new planting).
-		col('id', 'Planting id', 12, 'int')
-	]
-};
+/** Built from the planting field table, column by column (planting-columns.ts). */
+export const plantingsSheet: SheetSpec = { name: 'Plantings', columns: plantingColumns };
 
 export const seedOrderSheet: SheetSpec = {
 	name: 'Seed order',
@@ -256,7 +226,11 @@ export const cropsSheet: SheetSpec = {
 			'int',
 			'degreeDays',
 			0
-		)
+		),
+		// The crop's field dates (month-day, both or neither): the earliest and latest day of the year it
+		// may be sown or set out. Text, so no spreadsheet takes "10-01" for a date of one year.
+		col('sowFrom', 'Earliest field date (MM-DD)', 16, 'text'),
+		col('sowTo', 'Latest field date (MM-DD)', 16, 'text')
 	]
 };
 

@@ -8,38 +8,10 @@ import * as beds from '../beds';
 import { listVarieties, type VarietyView } from '../crops';
 import { targetInput } from '../demand';
 import type { Season } from '../seasons';
-import { listHarvestingFromOtherSeasons, type PlantingView } from '../plantings';
+import { listForSeason, listHarvestingFromOtherSeasons, type PlantingView } from '../plantings';
 
-export interface ExportPlanting {
-	id: number;
-	varietyId: number;
-	cropId: number;
-	crop: string;
-	variety: string;
-	harvestUnit: string;
-	bed: string | null;
-	block: string | null;
-	blockPosition: number | null;
-	bedPosition: number | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: 'direct' | 'transplant';
-	traySowDate: string | null;
-	fieldDate: string;
-	firstHarvest: string;
-	lastHarvest: string;
-	expectedYield: number;
-	seedsNeeded: number;
-	status: string;
-	actualTraySowDate: string | null;
-	actualFieldDate: string | null;
-	actualFirstHarvest: string | null;
-	actualLastHarvest: string | null;
-	notes: string | null;
-}
+/** A planting as the workbook shows it: the plantings repository's view (plantings.ts). */
+export type ExportPlanting = PlantingView;
 
 export interface CropRow {
 	id: number;
@@ -52,6 +24,9 @@ export interface CropRow {
 	/** Storage crops: weeks a harvest keeps (null: sold fresh) and the share lost each week. */
 	storageWeeks: number | null;
 	storageLossPerWeek: number;
+	/** Field dates, month-day (MM-DD), both or neither. */
+	sowFrom: string | null;
+	sowTo: string | null;
 }
 
 export interface ExportBed {
@@ -83,57 +58,6 @@ export interface SeasonData {
 const num = (v: unknown): number => Number(v);
 const numOrNull = (v: unknown): number | null => (v === null || v === undefined ? null : Number(v));
 
-async function listPlantings(farmId: number, seasonId: number): Promise<ExportPlanting[]> {
-	const rows = await db()('plantings as p')
-		.join('varieties as v', 'v.id', 'p.variety_id')
-		.join('crops as c', 'c.id', 'v.crop_id')
-		.leftJoin('beds as b', 'b.id', 'p.bed_id')
-		.leftJoin('blocks as k', 'k.id', 'b.block_id')
-		.where({ 'p.farm_id': farmId, 'p.season_id': seasonId })
-		.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
-		.select(
-			'p.*',
-			'v.name as variety',
-			'v.crop_id',
-			'c.name as crop',
-			'c.harvest_unit',
-			'b.name as bed',
-			'k.name as block',
-			'k.position as block_position',
-			'b.position as bed_position'
-		);
-	return rows.map((r) => ({
-		id: r.id,
-		varietyId: r.variety_id,
-		cropId: r.crop_id,
-		crop: r.crop,
-		variety: r.variety,
-		harvestUnit: r.harvest_unit,
-		bed: r.bed ?? null,
-		block: r.block ?? null,
-		blockPosition: numOrNull(r.block_position),
-		bedPosition: numOrNull(r.bed_position),
-		startFt: num(r.start_ft),
-		lengthFt: num(r.length_ft),
-		rows: r.rows,
-		inRowSpacingIn: num(r.in_row_spacing_in),
-		seedsPerSpot: r.seeds_per_spot,
-		method: r.method,
-		traySowDate: r.tray_sow_date,
-		fieldDate: r.field_date,
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		expectedYield: num(r.expected_yield),
-		seedsNeeded: r.seeds_needed,
-		status: r.status,
-		actualTraySowDate: r.actual_tray_sow_date,
-		actualFieldDate: r.actual_field_date,
-		actualFirstHarvest: r.actual_first_harvest,
-		actualLastHarvest: r.actual_last_harvest,
-		notes: r.notes
-	}));
-}
-
 async function listCrops(farmId: number): Promise<CropRow[]> {
 	const rows = await db()('crops').where({ farm_id: farmId }).orderBy('name').select('*');
 	return rows.map((r) => ({
@@ -145,14 +69,16 @@ async function listCrops(farmId: number): Promise<CropRow[]> {
 		heatLimitF: numOrNull(r.heat_limit_f),
 		baseTempF: num(r.base_temp_f),
 		storageWeeks: numOrNull(r.storage_weeks),
-		storageLossPerWeek: num(r.storage_loss_per_week ?? 0)
+		storageLossPerWeek: num(r.storage_loss_per_week ?? 0),
+		sowFrom: r.sow_from ?? null,
+		sowTo: r.sow_to ?? null
 	}));
 }
 
 export async function loadSeasonData(farmId: number, season: Season): Promise<SeasonData> {
 	const [farm, plantings, otherHarvests, crops, varieties, bedList, blocks, demand] = await Promise.all([
 		farms.get(farmId),
-		listPlantings(farmId, season.id),
+		listForSeason(farmId, season.id),
 		listHarvestingFromOtherSeasons(farmId, season),
 		listCrops(farmId),
 		listVarieties(farmId),

@@ -10,39 +10,26 @@ import type { VarietyView } from '$lib/types';
 import { headerIn, plantingsSheet } from '../export/layout';
 import { formatNumber, formatQuantity, type UnitSystem } from '$lib/format';
 import { toFileValue } from '$lib/format/file-units';
+import {
+	fieldSpec,
+	figuresOf,
+	fileFieldNames,
+	pick,
+	plantingFigureNames,
+	plantingFigureTable,
+	type FileField,
+	type PlantingFigures,
+	type PlantingValues
+} from '$lib/plantings/fields';
+import { columnLabel } from '../export/planting-columns';
 import type { ValidRow } from './validate';
 
-/** A planting of the season as the diff compares it. */
-export interface ExistingPlanting {
-	id: number;
-	version: number;
-	varietyKey: string;
-	crop: string;
-	variety: string;
-	bed: string | null;
-	startFt: number;
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	method: 'direct' | 'transplant';
-	traySowDate: string | null;
-	fieldDate: string;
-	firstHarvest: string;
-	lastHarvest: string;
-	expectedYield: number;
-	seedsNeeded: number;
-	status: string;
-	actualTraySowDate: string | null;
-	actualFieldDate: string | null;
-	actualFirstHarvest: string | null;
-	actualLastHarvest: string | null;
-	notes: string | null;
-	harvests: number;
-}
+/** A planting as the file wants it: the names it refers to, its fields and its figures. */
+export type WantedPlanting = Pick<PlantingValues, FileField> &
+	PlantingFigures & { varietyKey: string; crop: string; variety: string; bed: string | null };
 
-/** A planting as the file wants it, derived figures worked out again. */
-export type WantedPlanting = Omit<ExistingPlanting, 'id' | 'version' | 'harvests'>;
+/** A planting of the season as the diff compares it. */
+export type ExistingPlanting = WantedPlanting & { id: number; version: number; harvests: number };
 
 export interface FieldChange {
 	field: string;
@@ -67,30 +54,12 @@ export const varietyKey = (crop: string, variety: string): string =>
 	`${crop.trim().toLowerCase()}\u0000${variety.trim().toLowerCase()}`;
 
 /** Fields compared, in the Plantings sheet's order, with the labels the preview shows. */
-const inputs = [
+const inputs: readonly (readonly [string, string])[] = [
 	['variety', 'Crop · variety'],
 	['bed', 'Bed'],
-	['startFt', 'Start (ft)'],
-	['lengthFt', 'Length (ft)'],
-	['rows', 'Rows'],
-	['inRowSpacingIn', 'In-row spacing (in)'],
-	['seedsPerSpot', 'Seeds per spot'],
-	['method', 'Method'],
-	['fieldDate', 'Field date'],
-	['status', 'Status'],
-	['actualTraySowDate', 'Actual tray sowing'],
-	['actualFieldDate', 'Actual field date'],
-	['actualFirstHarvest', 'Actual first harvest'],
-	['actualLastHarvest', 'Actual last harvest'],
-	['notes', 'Notes']
-] as const;
-const derivedFields = [
-	['traySowDate', 'Tray sowing'],
-	['firstHarvest', 'First harvest'],
-	['lastHarvest', 'Last harvest'],
-	['expectedYield', 'Expected yield'],
-	['seedsNeeded', 'Seeds needed']
-] as const;
+	...fileFieldNames.map((f) => [f, columnLabel(fieldSpec(f).file!.header)] as const)
+];
+const derivedFields = plantingFigureNames.map((f) => [f, columnLabel(plantingFigureTable[f].file.header)] as const);
 
 /** A field's value as the preview shows it, measured figures in the farm's units (15.24 for 50 ft, "56.7 kg"). */
 function shown(p: WantedPlanting, field: string, system: UnitSystem, unit: string | undefined): string {
@@ -121,25 +90,13 @@ function fromRow(d: PlantingRow): WantedPlanting {
 		crop: d.crop,
 		variety: d.variety,
 		bed: d.bed,
-		startFt: d.startFt,
-		lengthFt: d.lengthFt,
-		rows: d.rows,
-		inRowSpacingIn: d.inRowSpacingIn,
-		seedsPerSpot: d.seedsPerSpot,
-		method: d.method,
+		...pick(d, fileFieldNames),
 		traySowDate: d.traySowDate,
-		fieldDate: d.fieldDate,
 		// Blank in a new row: worked out by derive() before anything is compared or written.
 		firstHarvest: d.firstHarvest ?? d.fieldDate,
 		lastHarvest: d.lastHarvest ?? d.firstHarvest ?? d.fieldDate,
 		expectedYield: d.expectedYield,
-		seedsNeeded: d.seedsNeeded,
-		status: d.status,
-		actualTraySowDate: d.actualTraySowDate,
-		actualFieldDate: d.actualFieldDate,
-		actualFirstHarvest: d.actualFirstHarvest,
-		actualLastHarvest: d.actualLastHarvest,
-		notes: d.notes
+		seedsNeeded: d.seedsNeeded
 	};
 }
 
@@ -194,14 +151,7 @@ export function diffSeason(
 			at(row, field, d.message);
 			return null;
 		}
-		return {
-			...w,
-			traySowDate: d.value.traySowDate,
-			firstHarvest: d.value.firstHarvest,
-			lastHarvest: d.value.lastHarvest,
-			expectedYield: d.value.expectedYield,
-			seedsNeeded: d.value.seed.seeds
-		};
+		return { ...w, ...figuresOf(d.value) };
 	};
 	for (const { row, data } of rows) {
 		const text = rowText(data);

@@ -14,7 +14,8 @@ import { lockSeason, type Season } from '../seasons';
 import { plantingsSheet } from '../export/layout';
 import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type WantedPlanting } from './season-diff';
 import type { ImportPlan } from './validate';
-import { writeBeds, writeLibrary } from './write';
+import { plantingColumnsOf, writeBeds, writeLibrary } from './write';
+import { fileFieldNames, fromStored, pick, plantingFigureNames } from '$lib/plantings/fields';
 
 export interface PreviewSummary {
 	token: string;
@@ -57,8 +58,14 @@ function keep(p: StoredPreview): string {
 	return token;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- a joined row, read field by field below
-type JoinedRow = Record<string, any>;
+/** A planting row joined with its names and its harvest count. */
+type JoinedRow = Record<string, unknown> & {
+	id: number;
+	version: number;
+	crop: string;
+	variety: string;
+	bed: string | null;
+};
 
 export async function seasonPlantings(
 	conn: Knex,
@@ -77,30 +84,13 @@ export async function seasonPlantings(
 	if (lock) q.forUpdate();
 	const rows: JoinedRow[] = await q;
 	return rows.map((r) => ({
+		...pick(fromStored(r), [...fileFieldNames, ...plantingFigureNames]),
 		id: Number(r.id),
 		version: Number(r.version),
 		varietyKey: varietyKey(String(r.crop), String(r.variety)),
 		crop: String(r.crop),
 		variety: String(r.variety),
 		bed: r.bed === null ? null : String(r.bed),
-		startFt: Number(r.start_ft),
-		lengthFt: Number(r.length_ft),
-		rows: Number(r.rows),
-		inRowSpacingIn: Number(r.in_row_spacing_in),
-		seedsPerSpot: Number(r.seeds_per_spot),
-		method: r.method,
-		traySowDate: r.tray_sow_date,
-		fieldDate: r.field_date,
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		expectedYield: Number(r.expected_yield),
-		seedsNeeded: Number(r.seeds_needed),
-		status: r.status,
-		actualTraySowDate: r.actual_tray_sow_date,
-		actualFieldDate: r.actual_field_date,
-		actualFirstHarvest: r.actual_first_harvest,
-		actualLastHarvest: r.actual_last_harvest,
-		notes: r.notes,
 		harvests: Number(r.harvests)
 	}));
 }
@@ -122,6 +112,8 @@ function mergedVarieties(farm: VarietyView[], plan: ImportPlan): Map<string, Var
 			frostTolerance: c?.frostTolerance ?? before?.frostTolerance ?? 'hardy',
 			heatLimitF: c ? c.heatLimitF : (before?.heatLimitF ?? null),
 			baseTempF: c?.baseTempF ?? before?.baseTempF ?? 40,
+			sowFrom: c && c.sowFrom !== undefined ? c.sowFrom : (before?.sowFrom ?? null),
+			sowTo: c && c.sowTo !== undefined ? c.sowTo : (before?.sowTo ?? null),
 			name: v.variety,
 			method: v.method,
 			daysToMaturity: v.daysToMaturity,
@@ -224,14 +216,7 @@ export async function deriveNewPlantings(
 		const w = byRow.get(row)!;
 		return {
 			row,
-			data: {
-				...data,
-				traySowDate: w.traySowDate,
-				firstHarvest: w.firstHarvest,
-				lastHarvest: w.lastHarvest,
-				expectedYield: w.expectedYield,
-				seedsNeeded: w.seedsNeeded
-			}
+			data: { ...data, ...pick(w, plantingFigureNames) }
 		};
 	});
 	return { ok: true, plan: { ...plan, plantings } };
@@ -274,26 +259,7 @@ export async function applySeasonUpdate(farmId: number, userId: string, token: s
 		const beds = (await writeBeds(trx, farmId, p.plan)).beds;
 		const varieties = new Map((await listVarieties(farmId, trx)).map((v) => [varietyKey(v.crop, v.name), v.id]));
 		const columns = (w: WantedPlanting) => ({
-			variety_id: varieties.get(w.varietyKey)!,
-			bed_id: w.bed === null ? null : (beds.get(lower(w.bed)) ?? null),
-			start_ft: w.startFt,
-			length_ft: w.lengthFt,
-			rows: w.rows,
-			in_row_spacing_in: w.inRowSpacingIn,
-			seeds_per_spot: w.seedsPerSpot,
-			method: w.method,
-			tray_sow_date: w.traySowDate,
-			field_date: w.fieldDate,
-			first_harvest: w.firstHarvest,
-			last_harvest: w.lastHarvest,
-			expected_yield: w.expectedYield,
-			seeds_needed: w.seedsNeeded,
-			status: w.status,
-			actual_tray_sow_date: w.actualTraySowDate,
-			actual_field_date: w.actualFieldDate,
-			actual_first_harvest: w.actualFirstHarvest,
-			actual_last_harvest: w.actualLastHarvest,
-			notes: w.notes,
+			...plantingColumnsOf(w, varieties.get(w.varietyKey)!, w.bed === null ? null : (beds.get(lower(w.bed)) ?? null)),
 			updated_by: userId
 		});
 		const version = new Map(now.map((x) => [x.id, x.version]));

@@ -126,7 +126,15 @@ function checkCrops(sheet: RawSheet, plan: ImportPlan, issues: ImportIssue[]): v
 	const is = new Issues(sheet);
 	const crops = new Map<string, ValidRow<CropRow>>();
 	const varieties = new Set<string>();
-	const cropFields = ['family', 'harvestUnit', 'frostTolerance', 'heatLimitF', 'baseTempF'] as const;
+	const cropFields = [
+		'family',
+		'harvestUnit',
+		'frostTolerance',
+		'heatLimitF',
+		'baseTempF',
+		'sowFrom',
+		'sowTo'
+	] as const;
 	for (const r of sheet.rows) {
 		plan.named.varieties.add(key(String(r.cells.crop ?? ''), String(r.cells.variety ?? '')));
 		const crop = parseRow(cropRowSchema, r, is);
@@ -137,6 +145,9 @@ function checkCrops(sheet: RawSheet, plan: ImportPlan, issues: ImportIssue[]): v
 		);
 		const variety = hasVariety ? parseRow(varietyRowSchema, r, is) : null;
 		if (!crop) continue;
+		// Field dates come as a pair (the crop form's rule): both or neither.
+		if (((crop.sowFrom ?? null) === null) !== ((crop.sowTo ?? null) === null))
+			is.at(r.row, crop.sowTo ? 'sowFrom' : 'sowTo', 'Give both field dates (earliest and latest) or neither.');
 		// A crop's own figures repeat on each of its variety rows: they must agree.
 		const first = crops.get(key(crop.crop));
 		if (!first) {

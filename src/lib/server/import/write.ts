@@ -8,6 +8,18 @@ import { db } from '../db';
 import { lockSeason } from '../seasons';
 import { seasonDateProblem } from '$lib/schemas/common';
 import type { ImportPlan } from './validate';
+import {
+	figureColumns,
+	fileFieldNames,
+	pick,
+	plantingFigureNames,
+	toColumns,
+	type FileField,
+	type PlantingFigures,
+	type PlantingValues
+} from '$lib/plantings/fields';
+import { plantingsSheet } from '../export/layout';
+import { columnLabel } from '../export/planting-columns';
 
 export interface ImportSummary {
 	seasonId: number | null;
@@ -39,6 +51,31 @@ async function idsByName(trx: Knex.Transaction, table: string, farmId: number): 
 	return new Map(rows.map((r) => [lower(r.name), r.id]));
 }
 
+/** A checked row of the Plantings sheet (fields and figures) as the plantings table's columns. */
+export function plantingColumnsOf(
+	p: Pick<PlantingValues, FileField> & { [K in keyof PlantingFigures]: PlantingFigures[K] | null },
+	varietyId: number,
+	bedId: number | null
+): Record<string, unknown> {
+	const values = { ...pick(p, fileFieldNames), varietyId, bedId } as PlantingValues;
+	// The figures are worked out before anything is written (season-update.ts deriveNewPlantings).
+	return { ...toColumns(values), ...figureColumns(pick(p, plantingFigureNames) as PlantingFigures) };
+}
+
+/** Updates the farm's row that `ids` holds under `key`, or inserts it and keeps its new id there. */
+async function upsert(
+	trx: Knex.Transaction,
+	table: 'crops' | 'varieties' | 'beds',
+	farmId: number,
+	ids: Map<string, number>,
+	key: string,
+	row: Record<string, unknown>
+): Promise<void> {
+	const id = ids.get(key);
+	if (id) await trx(table).where({ id, farm_id: farmId }).update(row);
+	else ids.set(key, (await trx(table).insert({ farm_id: farmId, ...row }))[0]);
+}
+
 export async function writeLibrary(
 	trx: Knex.Transaction,
 	farmId: number,
@@ -52,11 +89,11 @@ export async function writeLibrary(
 			harvest_unit: c.harvestUnit,
 			frost_tolerance: c.frostTolerance,
 			heat_limit_f: c.heatLimitF,
-			base_temp_f: c.baseTempF
+			base_temp_f: c.baseTempF,
+			// A file without the field-date columns leaves the crop's as they are.
+			...(c.sowFrom === undefined ? {} : { sow_from: c.sowFrom, sow_to: c.sowTo ?? null })
 		};
-		const id = crops.get(lower(c.crop));
-		if (id) await trx('crops').where({ id, farm_id: farmId }).update(row);
-		else crops.set(lower(c.crop), (await trx('crops').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'crops', farmId, crops, lower(c.crop), row);
 	}
 	const existing: { id: number; name: string; crop_id: number }[] = await trx('varieties')
 		.where({ farm_id: farmId })
@@ -84,10 +121,7 @@ export async function writeLibrary(
 			margin: v.margin,
 			gdd_to_maturity: v.gddToMaturity
 		};
-		const k = `${cropId}\u0000${lower(v.variety)}`;
-		const id = varieties.get(k);
-		if (id) await trx('varieties').where({ id, farm_id: farmId }).update(row);
-		else varieties.set(k, (await trx('varieties').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'varieties', farmId, varieties, `${cropId}\u0000${lower(v.variety)}`, row);
 	}
 	return { crops, varieties };
 }
@@ -119,9 +153,7 @@ export async function writeBeds(
 			width_in: b.widthIn,
 			position: b.position
 		};
-		const id = beds.get(lower(b.bed));
-		if (id) await trx('beds').where({ id, farm_id: farmId }).update(row);
-		else beds.set(lower(b.bed), (await trx('beds').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'beds', farmId, beds, lower(b.bed), row);
 	}
 	return { beds, blocks: newBlocks };
 }
@@ -203,19 +235,14 @@ export async function writeImport(
 		// Every planting date within the receiving season's year ± 1, as in the grid and the API.
 		const year = Number((await trx('seasons').where({ id: season.id }).first('year')).year);
 		const dateIssues: ImportIssue[] = [];
+		// Every date column the sheet reads (fields and figures alike), by its header.
+		const dateColumns = plantingsSheet.columns.filter((c) => c.kind === 'date' && !c.derived);
 		for (const { row, data: p } of plan.plantings) {
-			const dates: [string, string | null][] = [
-				['Tray sowing', p.traySowDate],
-				['Field date', p.fieldDate],
-				['First harvest', p.firstHarvest],
-				['Last harvest', p.lastHarvest],
-				['Actual tray sowing', p.actualTraySowDate],
-				['Actual field date', p.actualFieldDate],
-				['Actual first harvest', p.actualFirstHarvest],
-				['Actual last harvest', p.actualLastHarvest]
-			];
-			for (const [header, v] of dates) {
-				const problem = v ? seasonDateProblem(header, v, year) : null;
+			const cells = p as unknown as Record<string, unknown>;
+			for (const c of dateColumns) {
+				const v = cells[c.key];
+				const header = columnLabel(c.header);
+				const problem = typeof v === 'string' ? seasonDateProblem(header, v, year) : null;
 				if (problem) dateIssues.push({ sheet: 'Plantings', row, column: null, header, message: problem });
 			}
 		}
@@ -226,28 +253,9 @@ export async function writeImport(
 			const cropId = library.crops.get(lower(p.crop));
 			const varietyId = cropId === undefined ? undefined : library.varieties.get(`${cropId}\u0000${lower(p.variety)}`);
 			return {
+				...plantingColumnsOf(p, varietyId!, p.bed === null ? null : bedsOut.beds.get(lower(p.bed))!),
 				farm_id: farmId,
 				season_id: season.id,
-				variety_id: varietyId!,
-				bed_id: p.bed === null ? null : bedsOut.beds.get(lower(p.bed))!,
-				start_ft: p.startFt,
-				length_ft: p.lengthFt,
-				rows: p.rows,
-				in_row_spacing_in: p.inRowSpacingIn,
-				seeds_per_spot: p.seedsPerSpot,
-				method: p.method,
-				tray_sow_date: p.traySowDate,
-				field_date: p.fieldDate,
-				first_harvest: p.firstHarvest,
-				last_harvest: p.lastHarvest,
-				expected_yield: p.expectedYield,
-				seeds_needed: p.seedsNeeded,
-				status: p.status,
-				actual_tray_sow_date: p.actualTraySowDate,
-				actual_field_date: p.actualFieldDate,
-				actual_first_harvest: p.actualFirstHarvest,
-				actual_last_harvest: p.actualLastHarvest,
-				notes: p.notes,
 				updated_by: userId
 			};
 		});
