@@ -24,15 +24,6 @@ import { planSuccessionRuns, withDtmWarnings } from './successions';
 import type { CropWeekQuantity, PlanningWarning } from './types';
 import { makeTempLookup } from './weekly-temps';
 
-export type {
-	KeptPlanting,
-	ProposedPlanting,
-	SeasonPlan,
-	SeasonPlanInput,
-	SeasonVariety,
-	VarietyShare
-} from './season-types';
-
 function weekNumber(week: string): number {
 	return Number(week.slice(6));
 }
