@@ -16,6 +16,7 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import { plantingRow } from '../../src/lib/planting-row';
+import { engineFarm } from '../../src/lib/engine-inputs';
 import { storeSupply } from '../../src/lib/planning/storage';
 import { previousFamiliesByBed, seasonPlanOptions } from '../../src/lib/plan-options';
 import {
@@ -1427,16 +1428,17 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 }
 
 export function demoEngineFarm(): Farm {
-	const weeklyMeanTempF: Record<string, number> = {};
-	for (const t of DEMO_WEEKLY_TEMPS) weeklyMeanTempF[`W${String(t.week_number).padStart(2, '0')}`] = t.mean_temp_f;
-	return {
-		lastSpringFrost: DEMO_FARM.last_spring_frost,
-		firstFallFrost: DEMO_FARM.first_fall_frost,
-		latitude: DEMO_FARM.latitude,
-		weeklyMeanTempF,
-		tenderDaysAfterFrost: DEMO_FARM.tender_days_after_frost,
-		frostProbabilityPct: DEMO_FARM.frost_probability_pct
-	};
+	// The same farm → engine farm as the server's (src/lib/engine-inputs.ts).
+	return engineFarm(
+		{
+			lastSpringFrost: DEMO_FARM.last_spring_frost,
+			firstFallFrost: DEMO_FARM.first_fall_frost,
+			latitude: DEMO_FARM.latitude,
+			tenderDaysAfterFrost: DEMO_FARM.tender_days_after_frost,
+			frostProbabilityPct: DEMO_FARM.frost_probability_pct
+		},
+		Object.fromEntries(DEMO_WEEKLY_TEMPS.map((t) => [t.week_number, t.mean_temp_f]))
+	);
 }
 
 export function defaultPlanDemoInput(): PlanDemoInput {

@@ -2,7 +2,7 @@
 // recalculation) and by the server (authoritative figures on save) alike. Pure: no I/O.
 import type { Variety } from '$lib/planning';
 import type { VarietyView } from '$lib/types';
-import { toEngineVariety } from '$lib/varieties';
+import { toEngineVariety } from '$lib/engine-inputs';
 import { derivePlanting, type DeriveFarm, type DerivedPlanting } from '$lib/planning/planting-derive';
 
 /** A variety as the grid receives it: the crop library's view, plain JSON. */

@@ -74,6 +74,22 @@ export interface PlantingFieldSpec<S extends z.ZodType = z.ZodType> {
 
 const id = numberField;
 
+/**
+ * A date the crew records of what happened (the actual dates): blank until then, edited with the
+ * 'record' permission, cleared for next season, a 130 px grid column.
+ */
+const recordedDate = (column: string, label: string, grid: { id: string; label: string }, file: FileColumn) =>
+	({
+		column,
+		schema: optionalDate(label),
+		kind: 'date',
+		edit: 'record',
+		nextSeason: 'clear',
+		initial: null,
+		grid: { ...grid, width: 130 },
+		file
+	}) as const;
+
 /** Every stored, editable field by its API name, in the grid's and the API's order. */
 export const plantingFieldTable = {
 	varietyId: {
@@ -178,46 +194,30 @@ export const plantingFieldTable = {
 		initial: 'planned',
 		file: { header: 'Status', width: 12 }
 	},
-	actualTraySowDate: {
-		column: 'actual_tray_sow_date',
-		schema: optionalDate('Actual tray sowing'),
-		kind: 'date',
-		edit: 'record',
-		nextSeason: 'clear',
-		initial: null,
-		grid: { id: 'actualTraySow', label: 'Sown in tray', width: 130 },
-		file: { header: 'Actual tray sowing (date)', width: 22 }
-	},
-	actualFieldDate: {
-		column: 'actual_field_date',
-		schema: optionalDate('Actual field date'),
-		kind: 'date',
-		edit: 'record',
-		nextSeason: 'clear',
-		initial: null,
-		grid: { id: 'actualField', label: 'In field', width: 130 },
-		file: { header: 'Actual field date', width: 16 }
-	},
-	actualFirstHarvest: {
-		column: 'actual_first_harvest',
-		schema: optionalDate('Actual first harvest'),
-		kind: 'date',
-		edit: 'record',
-		nextSeason: 'clear',
-		initial: null,
-		grid: { id: 'actualFirst', label: 'Harvest began', width: 130 },
-		file: { header: 'Actual first harvest (date)', width: 24 }
-	},
-	actualLastHarvest: {
-		column: 'actual_last_harvest',
-		schema: optionalDate('Actual last harvest'),
-		kind: 'date',
-		edit: 'record',
-		nextSeason: 'clear',
-		initial: null,
-		grid: { id: 'actualLast', label: 'Harvest ended', width: 130 },
-		file: { header: 'Actual last harvest (date)', width: 24 }
-	},
+	actualTraySowDate: recordedDate(
+		'actual_tray_sow_date',
+		'Actual tray sowing',
+		{ id: 'actualTraySow', label: 'Sown in tray' },
+		{ header: 'Actual tray sowing (date)', width: 22 }
+	),
+	actualFieldDate: recordedDate(
+		'actual_field_date',
+		'Actual field date',
+		{ id: 'actualField', label: 'In field' },
+		{ header: 'Actual field date', width: 16 }
+	),
+	actualFirstHarvest: recordedDate(
+		'actual_first_harvest',
+		'Actual first harvest',
+		{ id: 'actualFirst', label: 'Harvest began' },
+		{ header: 'Actual first harvest (date)', width: 24 }
+	),
+	actualLastHarvest: recordedDate(
+		'actual_last_harvest',
+		'Actual last harvest',
+		{ id: 'actualLast', label: 'Harvest ended' },
+		{ header: 'Actual last harvest (date)', width: 24 }
+	),
 	notes: {
 		column: 'notes',
 		schema: notes,

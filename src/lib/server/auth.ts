@@ -9,21 +9,12 @@ import { Mysql2Adapter } from '@lucia-auth/adapter-mysql';
 import mysql from 'mysql2/promise';
 import type { Cookies } from '@sveltejs/kit';
 import { env } from '$env/dynamic/private';
-
-function setting(name: string): string {
-	const value = env[name];
-	if (!value) throw new Error(`${name} is not set: start the app with npm start (see README, Configuration)`);
-	return value;
-}
+import { dbAccount } from './db';
 
 let pool: mysql.Pool | undefined;
 function sessionPool(): mysql.Pool {
 	pool ??= mysql.createPool({
-		host: setting('FC_DB_HOST'),
-		port: Number(setting('FC_DB_PORT')),
-		user: setting('FC_DB_USER'),
-		password: setting('FC_DB_PASSWORD'),
-		database: setting('FC_DB_NAME'),
+		...dbAccount(),
 		// Lucia reads expires_at as a UTC DATETIME.
 		timezone: 'Z',
 		connectionLimit: 5

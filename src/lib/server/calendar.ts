@@ -1,6 +1,7 @@
 // Personal calendar feeds (RFC 5545, built with ical-generator): the tasks a user is responsible
 // for by role, at a secret URL a calendar app polls without a session. Only the token's SHA-256
 // is stored (as for invites); a new feed URL revokes the old one, and revoking answers 404.
+import { plantingTasks, type TaskKind } from '$lib/plantings/tasks';
 import ical, { ICalCalendarMethod } from 'ical-generator';
 import { formatWeekDate, weekStart, weeksBetween } from '$lib/planning';
 import type { Role } from '$lib/roles';
@@ -157,7 +158,7 @@ function nextDay(d: string): Date {
 	return new Date(day(d).getTime() + 86_400_000);
 }
 
-type Kind = 'tray_sow' | 'direct_sow' | 'transplant' | 'harvest';
+type Kind = TaskKind;
 const byRole: Record<Role, readonly Kind[]> = {
 	owner: ['tray_sow', 'direct_sow', 'transplant', 'harvest'],
 	crew_lead: ['tray_sow', 'direct_sow', 'transplant', 'harvest'],
@@ -219,14 +220,20 @@ export async function feedCalendar(feed: Feed, url: string): Promise<string> {
 		const end = start + Number(p.length_ft);
 		const stretch = `${formatNumber(toDisplayFeet(start, system), 2)}–${formatFeet(end, system, 2)}`;
 		const where = p.bed ? `${p.block} · bed ${p.bed}, ${stretch}` : 'not placed in a bed yet';
-		const tasks: [Kind, string | null][] = [
-			['tray_sow', p.method === 'transplant' ? p.tray_sow_date : null],
-			['direct_sow', p.method === 'direct' ? p.field_date : null],
-			['transplant', p.method === 'transplant' ? p.field_date : null],
-			['harvest', p.first_harvest]
-		];
-		for (const [kind, date] of tasks) {
-			if (!date || !kinds.includes(kind)) continue;
+		// The one task rule (plantings/tasks.ts); a finished planting keeps its harvest in the calendar.
+		const tasks = plantingTasks(
+			{
+				method: p.method,
+				status: p.status,
+				traySowDate: p.tray_sow_date,
+				fieldDate: p.field_date,
+				firstHarvest: p.first_harvest,
+				lastHarvest: p.last_harvest
+			},
+			{ record: true }
+		);
+		for (const { kind, from: date } of tasks) {
+			if (!kinds.includes(kind)) continue;
 			const details =
 				kind === 'harvest'
 					? `Harvest window ${formatWeekDate(p.first_harvest)} to ${formatWeekDate(p.last_harvest)}; about ${formatQuantity(Number(p.expected_yield), p.harvest_unit, system)} in all.`

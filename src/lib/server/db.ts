@@ -9,15 +9,22 @@ function setting(name: string): string {
 	return value;
 }
 
+/** Where the app's row-only account connects: the Knex pool here and the session store (auth.ts). */
+export function dbAccount(): { host: string; port: number; user: string; password: string; database: string } {
+	return {
+		host: setting('FC_DB_HOST'),
+		port: Number(setting('FC_DB_PORT')),
+		user: setting('FC_DB_USER'),
+		password: setting('FC_DB_PASSWORD'),
+		database: setting('FC_DB_NAME')
+	};
+}
+
 function connect(): Knex {
 	return knex({
 		client: 'mysql2',
 		connection: {
-			host: setting('FC_DB_HOST'),
-			port: Number(setting('FC_DB_PORT')),
-			user: setting('FC_DB_USER'),
-			password: setting('FC_DB_PASSWORD'),
-			database: setting('FC_DB_NAME'),
+			...dbAccount(),
 			timezone: 'Z',
 			// Calendar dates stay 'YYYY-MM-DD' strings end to end: no time-zone drift.
 			// mysql2 takes a list of column types here; knex's typing only knows the boolean form.

@@ -119,13 +119,8 @@ export async function recordApply(
 		.offset(10)
 		.limit(1000)
 		.select('id');
-	if (old.length)
-		await trx('plan_applies')
-			.whereIn(
-				'id',
-				old.map((r) => r.id)
-			)
-			.delete();
+	const oldIds = old.map((r) => r.id);
+	if (oldIds.length) await trx('plan_applies').whereIn('id', oldIds).delete();
 }
 
 export interface LastApply {
@@ -208,13 +203,8 @@ export async function undoLastApply(
 				'Harvests are logged against plantings this apply made; undoing would delete them.',
 				'moved_on'
 			);
-		if (present.length)
-			await trx('plantings')
-				.whereIn(
-					'id',
-					present.map((p) => p.id)
-				)
-				.delete();
+		const presentIds = present.map((p) => p.id);
+		if (presentIds.length) await trx('plantings').whereIn('id', presentIds).delete();
 		for (let i = 0; i < replaced.length; i += 500) await trx('plantings').insert(replaced.slice(i, i + 500));
 		await trx('plan_applies').where({ id: last.id }).update({ undone_at: trx.fn.now(), undone_by: userId });
 		await trx('seasons')

@@ -1,7 +1,7 @@
 // What the plan screen shows of a preview besides the engine's answer: which plantings stay,
 // go, come and find no bed; totals before and after; and, per crop, supply against demand.
 import { deriveTargets, forecast, isoWeek, type ForecastPlanting, type ProposedPlanting } from '$lib/planning';
-import { plantingSeed } from '$lib/varieties';
+import { plantingSeed } from '$lib/engine-inputs';
 import type { VarietyView } from '$lib/types';
 import { db } from './db';
 import { listVarieties } from './crops';

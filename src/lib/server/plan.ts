@@ -2,7 +2,7 @@
 // Preview never writes; apply replaces the season's still-planned plantings in one transaction
 // and keeps every planting that is already sown, growing, harvested or failed.
 import { deriveTargetsWithNotes, planSeason, type KeptPlanting, type SeasonPlan } from '$lib/planning';
-import { toEngineVariety } from '$lib/varieties';
+import { engineFarm, toEngineVariety } from '$lib/engine-inputs';
 import { plantingRow } from '$lib/planting-row';
 import type { PlanRequest } from '$lib/schemas/plan';
 import { todayIn } from '$lib/today';
@@ -160,14 +160,7 @@ function planFrom(
 		});
 	}
 	const plan = planSeason({
-		farm: {
-			lastSpringFrost: farm.lastSpringFrost,
-			firstFallFrost: farm.firstFallFrost,
-			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-			frostProbabilityPct: farm.frostProbabilityPct,
-			latitude: farm.latitude,
-			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
-		},
+		farm: engineFarm(farm, temps),
 		// Archived varieties keep their plantings (kept ones still use their curves above) but are offered to no new plan.
 		varieties: varieties.filter((v) => !v.archived).map((v) => engineVarieties.get(String(v.id))!),
 		beds: bedList.map((b) => ({ id: String(b.id), lengthFt: b.lengthFt, blockId: String(b.blockId) })),

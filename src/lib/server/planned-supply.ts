@@ -21,6 +21,8 @@ import { forecastFromWeeklySupply } from '$lib/planning/forecast';
 import { type CropStore, throughStores } from '$lib/planning/storage';
 import { type CropCover, cropCover } from '$lib/planning/cover';
 import type { TargetInput } from '$lib/planning';
+import type { VarietyView } from '$lib/types';
+import { toEngineVariety } from '$lib/engine-inputs';
 
 export interface PlannedPlanting {
 	key?: string;
@@ -32,6 +34,26 @@ export interface PlannedPlanting {
 	yieldPerBedFoot: number;
 	harvestWindowDays: number;
 	curve?: HarvestCurve;
+}
+
+/**
+ * A planting under the rule: its own dates and bed-feet, its variety's current yield, window and
+ * curve (null without its variety, or with no harvest days).
+ */
+export function plannedOf(
+	p: { firstHarvest: string; lastHarvest: string; lengthFt: number },
+	v: VarietyView | undefined
+): PlannedPlanting | null {
+	if (!v || p.lastHarvest < p.firstHarvest) return null;
+	return {
+		crop: String(v.cropId),
+		firstHarvest: p.firstHarvest,
+		lastHarvest: p.lastHarvest,
+		lengthFt: p.lengthFt,
+		yieldPerBedFoot: v.yieldPerBedFoot,
+		harvestWindowDays: v.harvestWindowDays,
+		curve: toEngineVariety(v).harvestCurve
+	};
 }
 
 /** The planting as the engine's forecast takes it, under the rule above. */

@@ -15,6 +15,9 @@ import {
 	type PlantingValues
 } from '$lib/plantings/fields';
 import { deriveRow, storedHarvestDays, type GridBed, type GridFarm, type GridVariety } from '$lib/plantings/derive';
+import type { TaskKind } from '$lib/plantings/tasks';
+import { whereTask } from './planting-tasks';
+import { engineFarm } from '$lib/engine-inputs';
 import * as farmsData from './farms';
 import * as bedsData from './beds';
 import { listVarieties } from './crops';
@@ -122,23 +125,23 @@ export interface WeekTasks {
 	harvest: PlantingView[];
 }
 
-/** What the crew does in the week monday..sunday, in walking order (block, bed, start foot). */
+/**
+ * What the crew does in the week monday..sunday (the task rule of plantings/tasks.ts), in walking
+ * order (block, bed, start foot); tray work by crop, as the tray bench holds it.
+ */
 export async function tasksForWeek(farmId: number, monday: string, sunday: string): Promise<WeekTasks> {
 	const walking = [{ column: 'k.position' }, { column: 'b.position' }, { column: 'p.start_ft' }];
-	const [tray, field, harvest] = await Promise.all([
-		base(farmId).whereBetween('p.tray_sow_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy('c.name'),
-		base(farmId).whereBetween('p.field_date', [monday, sunday]).whereNotIn('p.status', ['failed']).orderBy(walking),
-		base(farmId)
-			.where('p.first_harvest', '<=', sunday)
-			.andWhere('p.last_harvest', '>=', monday)
-			.whereNotIn('p.status', ['failed', 'finished'])
-			.orderBy(walking)
+	const task = (kind: TaskKind) => whereTask(base(farmId), kind, monday, sunday);
+	const [tray, direct, transplant, harvest] = await Promise.all([
+		task('tray_sow').orderBy('c.name'),
+		task('direct_sow').orderBy(walking),
+		task('transplant').orderBy(walking),
+		task('harvest').orderBy(walking)
 	]);
-	const fieldViews = field.map(toView);
 	return {
 		traySowing: tray.map(toView),
-		directSowing: fieldViews.filter((p) => p.method === 'direct'),
-		transplanting: fieldViews.filter((p) => p.method === 'transplant'),
+		directSowing: direct.map(toView),
+		transplanting: transplant.map(toView),
 		harvest: harvest.map(toView)
 	};
 }
@@ -171,12 +174,7 @@ export async function gridContext(farmId: number): Promise<GridContext> {
 			lengthFt: b.lengthFt
 		})),
 		farm: {
-			lastSpringFrost: farm.lastSpringFrost,
-			firstFallFrost: farm.firstFallFrost,
-			tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-			frostProbabilityPct: farm.frostProbabilityPct,
-			latitude: farm.latitude,
-			weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t])),
+			...engineFarm(farm, temps),
 			turnaroundDays: farm.turnaroundDays,
 			bedFootIncrement: farm.bedFootIncrement
 		}

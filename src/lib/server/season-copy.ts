@@ -17,6 +17,7 @@ import {
 	type PlanningWarning
 } from '$lib/planning';
 import { figureColumns, nextSeasonColumns, toColumns } from '$lib/plantings/fields';
+import { engineFarm } from '$lib/engine-inputs';
 import { db } from './db';
 import * as farms from './farms';
 import { familiesByBed } from './rotation';
@@ -104,13 +105,7 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 			.orderBy([{ column: 'p.field_date' }, { column: 'p.id' }])
 			.select('p.*', 'c.name as crop', 'c.family', 'c.frost_tolerance', 'c.heat_limit_f', 'v.name as variety')
 	]);
-	const checkFarm = {
-		lastSpringFrost: farm.lastSpringFrost,
-		firstFallFrost: farm.firstFallFrost,
-		tenderDaysAfterFrost: farm.tenderDaysAfterFrost,
-		frostProbabilityPct: farm.frostProbabilityPct,
-		weeklyMeanTempF: Object.fromEntries(Object.entries(temps).map(([w, t]) => [`W${String(w).padStart(2, '0')}`, t]))
-	};
+	const checkFarm = engineFarm(farm, temps);
 	const bedName = new Map(bedList.map((b) => [b.id, `${b.blockName} · ${b.name}`]));
 
 	const moved = plantings.map((p) => {

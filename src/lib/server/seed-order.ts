@@ -4,7 +4,7 @@
 // CSV and the workbook's Seed order sheet all read these lines.
 import type { SeedNeed } from '$lib/planning';
 import Papa from 'papaparse';
-import { plantingSeed } from '$lib/varieties';
+import { plantingSeed } from '$lib/engine-inputs';
 import type { VarietyView } from './crops';
 import { loadSeasonData } from './export/season-data';
 import type { Season } from './seasons';

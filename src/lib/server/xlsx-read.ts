@@ -36,24 +36,26 @@ export class XlsxRefused extends Error {
 	}
 }
 
+/** A zip's end-of-central-directory record: where its directory starts and how many entries it lists. */
+function endOfDirectory(bytes: Uint8Array): { view: DataView; directory: number; entries: number } | null {
+	const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+	// The record is 22 bytes and may be followed by a comment of up to 65,535 bytes.
+	const stop = Math.max(0, bytes.length - 22 - 65_535);
+	for (let i = bytes.length - 22; i >= stop; i--)
+		if (view.getUint32(i, true) === 0x06054b50)
+			return { view, directory: view.getUint32(i + 16, true), entries: view.getUint16(i + 10, true) };
+	return null;
+}
+
 /**
  * Σ of the unpacked sizes in a zip's central directory and its entry count, or null when the
  * directory cannot be found (then the file is not a zip we read).
  */
 export function zipUnpackedSize(bytes: Uint8Array): { bytes: number; entries: number } | null {
-	const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-	// The end-of-central-directory record sits in the last 22 + 65,535 bytes.
-	const stop = Math.max(0, bytes.length - 22 - 65_535);
-	let eocd = -1;
-	for (let i = bytes.length - 22; i >= stop; i--) {
-		if (view.getUint32(i, true) === 0x06054b50) {
-			eocd = i;
-			break;
-		}
-	}
-	if (eocd < 0) return null;
-	const entries = view.getUint16(eocd + 10, true);
-	let at = view.getUint32(eocd + 16, true);
+	const record = endOfDirectory(bytes);
+	if (!record) return null;
+	const { view, entries } = record;
+	let at = record.directory;
 	let total = 0;
 	for (let n = 0; n < entries; n++) {
 		if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50) return null;
@@ -67,13 +69,11 @@ export function zipUnpackedSize(bytes: Uint8Array): { bytes: number; entries: nu
 
 /** One small entry of a zip, unpacked (stored or deflated), or null when absent or too large. */
 function zipEntry(bytes: Uint8Array, wanted: string, maxBytes = 4 * 1024 * 1024): string | null {
-	const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-	const stop = Math.max(0, bytes.length - 22 - 65_535);
-	let eocd = -1;
-	for (let i = bytes.length - 22; i >= stop && eocd < 0; i--) if (view.getUint32(i, true) === 0x06054b50) eocd = i;
-	if (eocd < 0) return null;
-	let at = view.getUint32(eocd + 16, true);
-	for (let n = view.getUint16(eocd + 10, true); n > 0; n--) {
+	const record = endOfDirectory(bytes);
+	if (!record) return null;
+	const { view } = record;
+	let at = record.directory;
+	for (let n = record.entries; n > 0; n--) {
 		if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50) return null;
 		const nameLength = view.getUint16(at + 28, true);
 		const name = new TextDecoder().decode(bytes.subarray(at + 46, at + 46 + nameLength)).replace(/^\//, '');
@@ -137,15 +137,12 @@ function sheetNames(bytes: Uint8Array): Map<string, string> {
  * local header to the next one, so data descriptors travel with their entry.
  */
 function inReadingOrder(bytes: Uint8Array): Buffer[] | null {
-	const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-	const stop = Math.max(0, bytes.length - 22 - 65_535);
-	let eocd = -1;
-	for (let i = bytes.length - 22; i >= stop && eocd < 0; i--) if (view.getUint32(i, true) === 0x06054b50) eocd = i;
-	if (eocd < 0) return null;
-	const directory = view.getUint32(eocd + 16, true);
+	const record = endOfDirectory(bytes);
+	if (!record) return null;
+	const { view, directory } = record;
 	const entries: { name: string; offset: number }[] = [];
 	let at = directory;
-	for (let n = view.getUint16(eocd + 10, true); n > 0; n--) {
+	for (let n = record.entries; n > 0; n--) {
 		if (at + 46 > bytes.length || view.getUint32(at, true) !== 0x02014b50) return null;
 		const nameLength = view.getUint16(at + 28, true);
 		entries.push({

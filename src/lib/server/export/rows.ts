@@ -3,15 +3,16 @@
 // Values are plain: dates as 'YYYY-MM-DD' (the writer turns them into real Excel dates),
 // money in dollars, rates as fractions.
 import type { SeedNeed } from '$lib/planning';
-import { plantingSeed, toEngineVariety } from '$lib/varieties';
+import { plantingSeed } from '$lib/engine-inputs';
 import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number';
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
 import { seasonFields } from './layout';
+import { plantingTasks } from '$lib/plantings/tasks';
 import { plantingCells } from './planting-columns';
 import { seedOrder, seedOrderCells } from '../seed-order';
-import { type PlannedPlanting, plannedByWeek, plannedSupply } from '../planned-supply';
+import { type PlannedPlanting, plannedByWeek, plannedOf, plannedSupply } from '../planned-supply';
 
 export type Cell = string | number | Date | null;
 export type Row = Cell[];
@@ -60,9 +61,8 @@ const walkKey = (block: number | null, bed: number | null, startFt: number): num
 	(Math.min(block ?? 99_999, 99_999) * 100_000 + Math.min(bed ?? 99_999, 99_999)) * 100_000 + Math.round(startFt * 10);
 
 /**
- * Per ISO week, the same four kinds of work as the crew's week view (plantings.ts
- * tasksForWeek): tray sowing and field work of plantings not failed; harvest of plantings
- * not failed or finished. Worked out in memory from the season's plantings rather than with
+ * Per ISO week, the same four kinds of work as the crew's week view, by the one task rule
+ * (plantings/tasks.ts). Worked out in memory from the season's plantings rather than with
  * one query per week, so a large season streams at the writer's pace.
  */
 function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
@@ -70,7 +70,6 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 	// Other seasons' plantings harvesting in this season (last autumn's garlic) add their harvests only.
 	const others = new Set(d.otherHarvests.map((p) => p.id));
 	for (const p of [...d.plantings, ...d.otherHarvests]) {
-		if (p.status === 'failed') continue;
 		const s = seeds.get(p.id);
 		const walk = walkKey(p.blockPosition, p.bedPosition, p.startFt);
 		const push = (day: number, task: TaskName, rest: Row, byCrop = false): void => {
@@ -94,50 +93,29 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 				]
 			});
 		};
-		if (p.traySowDate && !others.has(p.id))
-			push(
-				toDayNumber(p.traySowDate),
-				'Tray sowing',
-				[s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null],
-				true
-			);
-		const field = toDayNumber(p.fieldDate);
-		// Another season's planting: its sowing belongs to its own season's workbook.
-		const sown = !others.has(p.id);
-		if (sown && p.method === 'direct')
-			push(field, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
-		else if (sown) push(field, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
-		if (p.status === 'finished') continue;
-		// The planned supply (planned-supply.ts), as on the Forecast sheet: a task on the first
-		// harvest day in each week.
-		const planned = plannedOf(p, varieties);
-		if (!planned) continue;
-		const a = toDayNumber(p.firstHarvest);
-		for (const w of plannedByWeek(planned)) {
-			const monday = toDayNumber(weekStart(w.week));
-			push(Math.max(a, monday), 'Harvest', [round2(w.quantity), p.harvestUnit, null, null]);
+		// Another season's planting: only its harvest here, its sowing belongs to its own season's workbook.
+		for (const t of plantingTasks(p)) {
+			const day = toDayNumber(t.from);
+			if (t.kind === 'harvest') {
+				// The planned supply (planned-supply.ts), as on the Forecast sheet: a task on the first
+				// harvest day in each week.
+				const planned = plannedOf(p, varieties.get(p.varietyId));
+				for (const w of planned ? plannedByWeek(planned) : [])
+					push(Math.max(day, toDayNumber(weekStart(w.week))), 'Harvest', [
+						round2(w.quantity),
+						p.harvestUnit,
+						null,
+						null
+					]);
+			} else if (others.has(p.id)) continue;
+			else if (t.kind === 'tray_sow')
+				push(day, 'Tray sowing', [s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null], true);
+			else if (t.kind === 'direct_sow') push(day, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
+			else push(day, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
 		}
 	}
 	out.sort((x, y) => x.order - y.order || x.walk - y.walk || (x.name < y.name ? -1 : x.name > y.name ? 1 : 0));
 	return out.map((t) => t.row);
-}
-
-/** A planting under the planned-supply rule: its variety's current yield, window and curve. */
-function plannedOf(
-	p: Pick<SeasonData['plantings'][number], 'varietyId' | 'firstHarvest' | 'lastHarvest' | 'lengthFt'>,
-	varieties: Map<number, VarietyView>
-): PlannedPlanting | null {
-	const v = varieties.get(p.varietyId);
-	if (!v || p.lastHarvest < p.firstHarvest) return null;
-	return {
-		crop: String(v.cropId),
-		firstHarvest: p.firstHarvest,
-		lastHarvest: p.lastHarvest,
-		lengthFt: p.lengthFt,
-		yieldPerBedFoot: v.yieldPerBedFoot,
-		harvestWindowDays: v.harvestWindowDays,
-		curve: toEngineVariety(v).harvestCurve
-	};
 }
 
 /**
@@ -148,7 +126,7 @@ function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[]
 	const plantings: PlannedPlanting[] = [];
 	for (const p of [...d.plantings, ...d.otherHarvests]) {
 		if (p.status === 'failed') continue;
-		const planned = plannedOf(p, varieties);
+		const planned = plannedOf(p, varieties.get(p.varietyId));
 		if (planned) plantings.push(planned);
 	}
 	const crops = new Map(d.crops.map((c) => [String(c.id), c]));

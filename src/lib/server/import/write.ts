@@ -62,6 +62,20 @@ export function plantingColumnsOf(
 	return { ...toColumns(values), ...figureColumns(pick(p, plantingFigureNames) as PlantingFigures) };
 }
 
+/** Updates the farm's row that `ids` holds under `key`, or inserts it and keeps its new id there. */
+async function upsert(
+	trx: Knex.Transaction,
+	table: 'crops' | 'varieties' | 'beds',
+	farmId: number,
+	ids: Map<string, number>,
+	key: string,
+	row: Record<string, unknown>
+): Promise<void> {
+	const id = ids.get(key);
+	if (id) await trx(table).where({ id, farm_id: farmId }).update(row);
+	else ids.set(key, (await trx(table).insert({ farm_id: farmId, ...row }))[0]);
+}
+
 export async function writeLibrary(
 	trx: Knex.Transaction,
 	farmId: number,
@@ -79,9 +93,7 @@ export async function writeLibrary(
 			// A file without the field-date columns leaves the crop's as they are.
 			...(c.sowFrom === undefined ? {} : { sow_from: c.sowFrom, sow_to: c.sowTo ?? null })
 		};
-		const id = crops.get(lower(c.crop));
-		if (id) await trx('crops').where({ id, farm_id: farmId }).update(row);
-		else crops.set(lower(c.crop), (await trx('crops').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'crops', farmId, crops, lower(c.crop), row);
 	}
 	const existing: { id: number; name: string; crop_id: number }[] = await trx('varieties')
 		.where({ farm_id: farmId })
@@ -109,10 +121,7 @@ export async function writeLibrary(
 			margin: v.margin,
 			gdd_to_maturity: v.gddToMaturity
 		};
-		const k = `${cropId}\u0000${lower(v.variety)}`;
-		const id = varieties.get(k);
-		if (id) await trx('varieties').where({ id, farm_id: farmId }).update(row);
-		else varieties.set(k, (await trx('varieties').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'varieties', farmId, varieties, `${cropId}\u0000${lower(v.variety)}`, row);
 	}
 	return { crops, varieties };
 }
@@ -144,9 +153,7 @@ export async function writeBeds(
 			width_in: b.widthIn,
 			position: b.position
 		};
-		const id = beds.get(lower(b.bed));
-		if (id) await trx('beds').where({ id, farm_id: farmId }).update(row);
-		else beds.set(lower(b.bed), (await trx('beds').insert({ farm_id: farmId, ...row }))[0]);
+		await upsert(trx, 'beds', farmId, beds, lower(b.bed), row);
 	}
 	return { beds, blocks: newBlocks };
 }

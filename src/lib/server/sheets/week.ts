@@ -2,8 +2,8 @@
 // harvest, with the figures the crew needs (cells, trays, seed grams, plants, expected harvest and
 // who it is for), grouped by block and bed in walking order. Figures come from the engine.
 import type { SeedNeed } from '$lib/planning';
-import { plantingSeed, toEngineVariety } from '$lib/varieties';
-import { plannedByWeek } from '../planned-supply';
+import { plantingSeed } from '$lib/engine-inputs';
+import { plannedByWeek, plannedOf } from '../planned-supply';
 import { db } from '../db';
 import * as farms from '../farms';
 import { listVarieties, type VarietyView } from '../crops';
@@ -155,17 +155,7 @@ function seedFor(p: PlantingView, v: VarietyView | undefined): SheetRow['seed'] 
  * variety's current yield spread by its harvest curve, as on the Forecast page and the workbook.
  */
 function weekHarvest(p: PlantingView, v: VarietyView | undefined, week: string): number {
-	const planned = v
-		? {
-				crop: 'p',
-				firstHarvest: p.firstHarvest,
-				lastHarvest: p.lastHarvest,
-				lengthFt: p.lengthFt,
-				yieldPerBedFoot: v.yieldPerBedFoot,
-				harvestWindowDays: v.harvestWindowDays,
-				curve: toEngineVariety(v).harvestCurve
-			}
-		: null;
+	const planned = plannedOf(p, v);
 	const q = planned ? (plannedByWeek(planned).find((r) => r.week === week)?.quantity ?? 0) : 0;
 	return round(q, 1);
 }
