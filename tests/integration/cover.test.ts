@@ -95,9 +95,12 @@ describe("the plan preview's cover", () => {
 		const res = await f.client.json(`/api/seasons/${f.season2027}/plan/preview`, 'POST', {});
 		expect(res.status).toBe(200);
 		const body = (await res.json()) as {
-			cover: PreviewCover;
+			cover: Omit<PreviewCover, 'balance'>;
 			plantings: { cropId: string; firstHarvest: string }[];
-			changes: { added: { key?: string; cropId: number }[] };
+			changes: {
+				added: { key?: string; cropId: number }[];
+				balance: { cropId: number; weeks: string[]; demand: number[]; before: number[]; after: number[] }[];
+			};
 		};
 		const carrot = body.cover.crops.find((c) => c.crop === String(f.crops.carrot));
 		expect(carrot).toBeDefined();
@@ -125,6 +128,14 @@ describe("the plan preview's cover", () => {
 		}
 		// The plan covers W24's 25 lb + 10 % margin with the 8 lb already there: no shortfall that week.
 		const i24 = carrot!.weeks.indexOf('2027-W24');
-		expect(carrot!.plantings.reduce((s, p) => s + p.share[i24], 0)).toBeGreaterThanOrEqual(25);
+		const after24 = carrot!.plantings.reduce((s, p) => s + p.share[i24], 0);
+		expect(after24).toBeGreaterThanOrEqual(25 * 1.1 - 1e-9);
+		// The preview's chart says the same: now, planting A's 20 lb + the 2026 planting's 8 lb = 28 lb
+		// (the failed 100-ft planting gives nothing); after, the cover's sum.
+		const chart = body.changes.balance.find((b) => b.cropId === f.crops.carrot)!;
+		const c24 = chart.weeks.indexOf('2027-W24');
+		expect(chart.demand[c24]).toBeCloseTo(25, 9);
+		expect(chart.before[c24]).toBeCloseTo(28, 9);
+		expect(chart.after[c24]).toBeCloseTo(after24, 9);
 	});
 });

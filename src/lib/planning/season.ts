@@ -24,6 +24,8 @@ import { planSuccessionRuns, withDtmWarnings } from './successions';
 import type { CropWeekQuantity, PlanningWarning } from './types';
 import { makeTempLookup } from './weekly-temps';
 
+export type * from './season-types';
+
 function weekNumber(week: string): number {
 	return Number(week.slice(6));
 }

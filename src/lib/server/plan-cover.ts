@@ -2,13 +2,15 @@
 // preview proposes, the season's kept ones (sown, growing, harvested) and other seasons' plantings
 // harvesting in the season's dates, each with its share of every week (planned-supply.ts), against
 // the weekly targets the plan sizes for. The screen shows one succession's weeks from it
-// (planning/cover.ts successionCover), so every share is worked out once, here.
-import { deriveTargets, type ProposedPlanting } from '$lib/planning';
+// (planning/cover.ts successionCover), so every share is worked out once, here. The preview's
+// per-crop chart (supply now and after the apply, against demand) comes from the same planned supply.
+import { deriveTargets, isoWeek, type ProposedPlanting } from '$lib/planning';
 import type { CropCover } from '$lib/planning/cover';
 import { curveOf } from './crops';
 import { db } from './db';
 import { targetInput } from './demand';
-import { plannedCover, type PlannedPlanting } from './planned-supply';
+import { plannedCover, plannedSupply, type PlannedPlanting } from './planned-supply';
+import type { CropBalance } from './plan-screen';
 import type { Season } from './seasons';
 
 /** A planting already in the ground (or another season's) named in a cover, by key `p{id}`. */
@@ -27,6 +29,8 @@ export interface PreviewCover {
 	/** Crops sold from store: their shares are what the store gives. */
 	stored: string[];
 	labels: Record<string, PreviewCoverLabel>;
+	/** Per crop with demand: the season's weeks with supply or demand, now and after the apply. */
+	balance: CropBalance[];
 }
 
 interface Row {
@@ -57,8 +61,8 @@ export async function previewCover(
 	proposed: ProposedPlanting[]
 ): Promise<PreviewCover> {
 	const [rows, input, crops] = await Promise.all([
-		// What stays after the apply: the season's plantings that are not only planned, and every
-		// other season's planting harvesting in this season's dates; failed ones supply nothing.
+		// Every planting harvesting in the season's dates, whatever its season; failed ones supply
+		// nothing. After the apply, the season's planned ones give way to the proposal.
 		db()('plantings as p')
 			.join('varieties as v', 'v.id', 'p.variety_id')
 			.join('crops as c', 'c.id', 'v.crop_id')
@@ -67,7 +71,6 @@ export async function previewCover(
 			.whereNot('p.status', 'failed')
 			.where('p.first_harvest', '<=', season.endsOn)
 			.where('p.last_harvest', '>=', season.startsOn)
-			.where((q) => q.whereNot('p.season_id', season.id).orWhereNot('p.status', 'planned'))
 			.select<Row[]>(
 				'p.id',
 				'p.season_id',
@@ -117,7 +120,9 @@ export async function previewCover(
 			'c.harvest_cut_interval_days'
 		);
 	const varietyById = new Map(varieties.map((v) => [String(v.id), v]));
-	const plantings: (PlannedPlanting & { key: string })[] = rows.map((r) => ({
+	const replaced = (r: Row): boolean => r.season_id === season.id && r.status === 'planned';
+	const stays = rows.filter((r) => !replaced(r));
+	const planned = (r: Row): PlannedPlanting & { key: string } => ({
 		key: `p${r.id}`,
 		crop: String(r.crop_id),
 		firstHarvest: r.first_harvest,
@@ -126,7 +131,8 @@ export async function previewCover(
 		yieldPerBedFoot: Number(r.yield_per_bed_foot),
 		harvestWindowDays: Number(r.harvest_window_days),
 		curve: curveOf(r.harvest_curve ?? r.crop_harvest_curve, r.harvest_cut_interval_days)
-	}));
+	});
+	const plantings = stays.map(planned);
 	proposed.forEach((p, i) => {
 		const v = varietyById.get(String(p.varietyId));
 		if (!v) return;
@@ -148,11 +154,12 @@ export async function previewCover(
 			keepWeeks: Number(c.storage_weeks),
 			lossPerWeek: Number(c.storage_loss_per_week ?? 0)
 		}));
+	const targets = deriveTargets(input);
 	return {
-		crops: plannedCover(plantings, deriveTargets(input), stores),
+		crops: plannedCover(plantings, targets, stores),
 		stored: stores.map((s) => s.crop),
 		labels: Object.fromEntries(
-			rows.map((r) => [
+			stays.map((r) => [
 				`p${r.id}`,
 				{
 					varietyId: r.variety_id,
@@ -162,6 +169,44 @@ export async function previewCover(
 					otherSeason: r.season_id === season.id ? null : r.season_name
 				}
 			])
+		),
+		balance: balanceOf(
+			season,
+			plannedSupply(rows.map(planned), targets, stores),
+			plannedSupply(plantings, targets, stores)
 		)
 	};
+}
+
+/** Supply now and after the apply against demand, per crop with demand, over the season's weeks. */
+function balanceOf(
+	season: Season,
+	before: ReturnType<typeof plannedSupply>,
+	after: ReturnType<typeof plannedSupply>
+): CropBalance[] {
+	const first = isoWeek(season.startsOn);
+	const last = isoWeek(season.endsOn);
+	const byCrop = new Map<number, Map<string, { demand: number; before: number; after: number }>>();
+	const cell = (crop: string, week: string) => {
+		const c = Number(crop);
+		const m = byCrop.get(c) ?? byCrop.set(c, new Map()).get(c)!;
+		return m.get(week) ?? m.set(week, { demand: 0, before: 0, after: 0 }).get(week)!;
+	};
+	for (const r of before)
+		if (r.week >= first && r.week <= last) Object.assign(cell(r.crop, r.week), { demand: r.demand, before: r.supply });
+	for (const r of after)
+		if (r.week >= first && r.week <= last) Object.assign(cell(r.crop, r.week), { demand: r.demand, after: r.supply });
+	return [...byCrop.entries()]
+		.filter(([, weeks]) => [...weeks.values()].some((w) => w.demand > 0))
+		.map(([cropId, weeks]) => {
+			const list = [...weeks.keys()].sort();
+			return {
+				cropId,
+				weeks: list,
+				demand: list.map((w) => weeks.get(w)!.demand),
+				before: list.map((w) => weeks.get(w)!.before),
+				after: list.map((w) => weeks.get(w)!.after)
+			};
+		})
+		.sort((a, b) => a.cropId - b.cropId);
 }

@@ -1,11 +1,10 @@
 // What the plan screen shows of a preview besides the engine's answer: which plantings stay,
 // go, come and find no bed; totals before and after; and, per crop, supply against demand.
-import { deriveTargets, forecast, isoWeek, type ForecastPlanting, type ProposedPlanting } from '$lib/planning';
+import type { ProposedPlanting } from '$lib/planning';
 import { plantingSeed } from '$lib/engine-inputs';
 import type { VarietyView } from '$lib/types';
 import { db } from './db';
 import { listVarieties } from './crops';
-import { targetInput } from './demand';
 import type { PlanPreview } from './plan';
 import { proposedKey } from './plan-cover';
 import type { Season } from './seasons';
@@ -123,8 +122,13 @@ function addTo(
 	}
 }
 
-export async function describePreview(farmId: number, season: Season, result: PlanPreview): Promise<PreviewDetails> {
-	const [rows, varieties, input, crops] = await Promise.all([
+/** The preview's lists and totals; its per-crop balance comes with its cover (plan-cover.ts). */
+export async function describePreview(
+	farmId: number,
+	season: Season,
+	result: PlanPreview
+): Promise<Omit<PreviewDetails, 'balance'>> {
+	const [rows, varieties, crops] = await Promise.all([
 		db()('plantings as p')
 			.join('varieties as v', 'v.id', 'p.variety_id')
 			.where({ 'p.farm_id': farmId, 'p.season_id': season.id })
@@ -147,7 +151,6 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 				'v.yield_per_bed_foot'
 			) as Promise<Row[]>,
 		listVarieties(farmId),
-		targetInput(farmId, season.id),
 		db()('crops').where({ farm_id: farmId }).select('id', 'harvest_unit') as Promise<
 			{ id: number; harvest_unit: string }[]
 		>
@@ -246,69 +249,6 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 	}
 	for (const t of [before, after]) t.grams = Math.round(t.grams * 100) / 100;
 
-	// Supply against demand per crop with demand or supply, over the weeks where either is.
-	const targets = deriveTargets(input);
-	const asForecast = (crop: number, first: string, last: string, feet: number, perFoot: number): ForecastPlanting => ({
-		crop: String(crop),
-		firstHarvest: first,
-		lastHarvest: last,
-		bedFeet: feet,
-		yieldPerBedFoot: perFoot
-	});
-	const live = rows.filter((r) => r.status !== 'failed');
-	const beforeRows = forecast(
-		live.map((r) =>
-			asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))
-		),
-		targets
-	);
-	const afterRows = forecast(
-		[
-			...live
-				.filter((r) => r.status !== 'planned')
-				.map((r) =>
-					asForecast(r.crop_id, r.first_harvest, r.last_harvest, Number(r.length_ft), Number(r.yield_per_bed_foot))
-				),
-			...result.plan.plantings.map((p) =>
-				asForecast(
-					Number(p.cropId),
-					p.firstHarvest,
-					p.lastHarvest,
-					p.lengthFt,
-					varietyById.get(Number(p.varietyId))?.yieldPerBedFoot ?? 0
-				)
-			)
-		],
-		targets
-	);
-	const seasonFirst = isoWeek(season.startsOn);
-	const seasonLast = isoWeek(season.endsOn);
-	const byCrop = new Map<number, Map<string, { demand: number; before: number; after: number }>>();
-	const cell = (crop: string, week: string) => {
-		const c = Number(crop);
-		const m = byCrop.get(c) ?? byCrop.set(c, new Map()).get(c)!;
-		return m.get(week) ?? m.set(week, { demand: 0, before: 0, after: 0 }).get(week)!;
-	};
-	for (const r of beforeRows)
-		if (r.week >= seasonFirst && r.week <= seasonLast)
-			Object.assign(cell(r.crop, r.week), { demand: r.demand, before: r.supply });
-	for (const r of afterRows)
-		if (r.week >= seasonFirst && r.week <= seasonLast)
-			Object.assign(cell(r.crop, r.week), { demand: r.demand, after: r.supply });
-	const balance: CropBalance[] = [...byCrop.entries()]
-		.filter(([, weeks]) => [...weeks.values()].some((w) => w.demand > 0))
-		.map(([cropId, weeks]) => {
-			const list = [...weeks.keys()].sort();
-			return {
-				cropId,
-				weeks: list,
-				demand: list.map((w) => weeks.get(w)!.demand),
-				before: list.map((w) => weeks.get(w)!.before),
-				after: list.map((w) => weeks.get(w)!.after)
-			};
-		})
-		.sort((a, b) => a.cropId - b.cropId);
-
 	return {
 		kept: rows.filter((r) => r.status !== 'planned').map(existing),
 		unchanged,
@@ -316,7 +256,6 @@ export async function describePreview(farmId: number, season: Season, result: Pl
 		added,
 		withoutBed: result.plan.plantings.filter((p) => p.bedId === null).map(proposed),
 		totals: { before, after },
-		balance,
 		units: Object.fromEntries(crops.map((c) => [String(c.id), c.harvest_unit]))
 	};
 }

@@ -74,7 +74,7 @@ export interface PreviewAnswer {
 	warnings: { code: string; message: string; cropId?: string; key?: string; weeks?: string[] }[];
 	names: { crops: Record<string, string>; varieties: Record<string, string>; beds: Record<string, string> };
 	changes: PreviewDetails;
-	cover: PreviewCover;
+	cover: Omit<PreviewCover, 'balance'>;
 	/** The proposed plantings, in the order the cover's `n{index}` keys count them. */
 	plantings: { varietyId: string; bedId: string | null; startFt: number; fieldDate: string }[];
 }

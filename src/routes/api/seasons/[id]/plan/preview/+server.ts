@@ -24,10 +24,11 @@ export const POST: RequestHandler = async (event) => {
 	// Taken before the run: if anything moves meanwhile, the apply from this preview is refused.
 	const fingerprint = await planFingerprint(farm.id, season.id);
 	const result = await preview(farm.id, season, body.data);
-	const [changes, cover] = await Promise.all([
+	const [details, cover] = await Promise.all([
 		describePreview(farm.id, season, result),
 		previewCover(farm.id, season, result.plan.plantings)
 	]);
+	const { balance, ...shares } = cover;
 	return json({
 		season,
 		kept: result.kept,
@@ -35,7 +36,7 @@ export const POST: RequestHandler = async (event) => {
 		...result.plan,
 		names: result.names,
 		fingerprint,
-		changes,
-		cover
+		changes: { ...details, balance },
+		cover: shares
 	});
 };
