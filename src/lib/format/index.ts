@@ -79,9 +79,9 @@ export function fromDisplayQuantity(value: number, unit: HarvestUnit, system: Un
 	return unit === 'lb' && system === 'metric' ? value / KG_PER_LB : value;
 }
 
-/** A stored quantity as a form field shows it in the farm's unit: "0.25" lb, or "0.113" kg. */
-export function typedQuantity(stored: number, unit: HarvestUnit, system: UnitSystem): string {
-	return String(Number(toDisplayQuantity(stored, unit, system).toFixed(3)));
+/** A stored quantity as a form field shows it in the farm's unit: "0.25" lb, or "0.113" kg (`digits` at most). */
+export function typedQuantity(stored: number, unit: HarvestUnit, system: UnitSystem, digits = 3): string {
+	return String(Number(toDisplayQuantity(stored, unit, system).toFixed(digits)));
 }
 
 /** A typed quantity as the database keeps it: canonical unit, to the hundredth. */
@@ -96,18 +96,23 @@ export function formatQuantity(value: number, unit: HarvestUnit, system: UnitSys
 	return `${text} ${unitLabel(unit, system, Number(text.replace(/,/g, '')))}`;
 }
 
+/** A stored figure as shown: times `factor` (metric units per stored unit) on a metric farm, as it is on an imperial one. */
+function toMetric(factor: number): (stored: number, system: UnitSystem) => number {
+	return (stored, system) => (system === 'metric' ? stored * factor : stored);
+}
+/** A shown figure back as stored: the other way of toMetric. */
+function fromMetric(factor: number): (value: number, system: UnitSystem) => number {
+	return (value, system) => (system === 'metric' ? value / factor : value);
+}
+
 // ---- Lengths -----------------------------------------------------------------------------------
 
 /** Bed lengths and ranges: feet, or metres on a metric farm. */
 export function lengthUnit(system: UnitSystem): string {
 	return system === 'metric' ? 'm' : 'ft';
 }
-export function toDisplayFeet(ft: number, system: UnitSystem): number {
-	return system === 'metric' ? ft * M_PER_FT : ft;
-}
-export function fromDisplayFeet(value: number, system: UnitSystem): number {
-	return system === 'metric' ? value / M_PER_FT : value;
-}
+export const toDisplayFeet = toMetric(M_PER_FT);
+export const fromDisplayFeet = fromMetric(M_PER_FT);
 /** "1,200 ft" or "365.76 m". */
 export function formatFeet(ft: number, system: UnitSystem, digits?: number): string {
 	const v = toDisplayFeet(ft, system);
@@ -135,12 +140,8 @@ export function bedLengthWord(system: UnitSystem): string {
 export function spacingUnit(system: UnitSystem): string {
 	return system === 'metric' ? 'cm' : 'in';
 }
-export function toDisplayInches(inches: number, system: UnitSystem): number {
-	return system === 'metric' ? inches * CM_PER_IN : inches;
-}
-export function fromDisplayInches(value: number, system: UnitSystem): number {
-	return system === 'metric' ? value / CM_PER_IN : value;
-}
+export const toDisplayInches = toMetric(CM_PER_IN);
+export const fromDisplayInches = fromMetric(CM_PER_IN);
 export function formatInches(inches: number, system: UnitSystem): string {
 	const v = toDisplayInches(inches, system);
 	return `${formatNumber(v, system === 'metric' ? 1 : 2)} ${spacingUnit(system)}`;

@@ -18,7 +18,7 @@
  */
 import type { HarvestCurve } from './harvest-curve';
 import { daysBetween, isoWeek, weekStart } from './iso-week';
-import { forecast } from './forecast';
+import { type ForecastPlanting, forecast } from './forecast';
 import { PlanningInputError } from './errors';
 
 export interface ActualsPlanting {
@@ -109,6 +109,19 @@ function add(m: Map<string, number>, k: string, q: number): void {
 	m.set(k, (m.get(k) ?? 0) + q);
 }
 
+/** A planting as the forecast takes it: its planned harvest dates and the variety's yield and curve. */
+function asForecast(p: ActualsPlanting): ForecastPlanting {
+	return {
+		crop: p.crop,
+		firstHarvest: p.firstHarvest,
+		lastHarvest: p.lastHarvest,
+		bedFeet: p.bedFeet,
+		yieldPerBedFoot: p.yieldPerBedFoot,
+		curve: p.curve,
+		windowDays: p.windowDays
+	};
+}
+
 export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	const currentMonday = weekStart(input.currentWeek);
 	const byKey = new Map(input.plantings.map((p) => [p.key, p]));
@@ -126,20 +139,7 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	});
 
 	const plantings: PlantingActual[] = input.plantings.map((p) => {
-		const rows = forecast(
-			[
-				{
-					crop: p.crop,
-					firstHarvest: p.firstHarvest,
-					lastHarvest: p.lastHarvest,
-					bedFeet: p.bedFeet,
-					yieldPerBedFoot: p.yieldPerBedFoot,
-					curve: p.curve,
-					windowDays: p.windowDays
-				}
-			],
-			[]
-		);
+		const rows = forecast([asForecast(p)], []);
 		const soFar = rows.filter((r) => weekStart(r.week) < currentMonday).reduce((n, r) => n + r.supply, 0);
 		const logged = loggedByPlanting.get(p.key) ?? 0;
 		const first = p.actualFirstHarvest ?? firstLogged.get(p.key) ?? null;
@@ -159,18 +159,7 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 		};
 	});
 
-	const supply = forecast(
-		input.plantings.map((p) => ({
-			crop: p.crop,
-			firstHarvest: p.firstHarvest,
-			lastHarvest: p.lastHarvest,
-			bedFeet: p.bedFeet,
-			yieldPerBedFoot: p.yieldPerBedFoot,
-			curve: p.curve,
-			windowDays: p.windowDays
-		})),
-		[]
-	);
+	const supply = forecast(input.plantings.map(asForecast), []);
 	const cells = new Map<string, { crop: string; week: string; forecast: number; logged: number }>();
 	for (const r of supply)
 		cells.set(`${r.crop}|${r.week}`, { crop: r.crop, week: r.week, forecast: r.supply, logged: 0 });

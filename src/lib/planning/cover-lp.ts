@@ -107,14 +107,23 @@ export function solveCover(
 	return x;
 }
 
-/** One variety's covering program, as sizing.ts sees it (indices are week offsets from the first target week). */
-export interface CoverProblem {
+/**
+ * The weeks of one variety's sizing: week numbers are offsets from the first target week (a start
+ * may be before it), `span` the weeks a harvest window reaches, `step` the weeks between starts.
+ */
+export interface SizingWeeks {
 	nWeeks: number;
+	/** Earliest candidate start (offset). */
 	cMin: number;
 	span: number;
 	step: number;
+	/** Target per week offset 0…nWeeks − 1, and what each week needs. */
 	target: Float64Array;
 	need: Float64Array;
+}
+
+/** One variety's covering program, as sizing.ts sees it. */
+export interface CoverProblem extends SizingWeeks {
 	ok: (c: number) => boolean;
 	occupancy: (c: number) => number;
 	perFt: (c: number, w: number) => number;

@@ -75,15 +75,8 @@ export {
 } from './targets';
 export { explainBedFeet, explainDates, explainPlanting, explainSeed } from './explain';
 export * from './units';
-export {
-	planSeason,
-	type KeptPlanting,
-	type ProposedPlanting,
-	type SeasonPlan,
-	type SeasonPlanInput,
-	type SeasonVariety,
-	type VarietyShare
-} from './season';
+export { planSeason } from './season';
+export type * from './season-types';
 export {
 	emergenceDays,
 	emergenceTableOf,

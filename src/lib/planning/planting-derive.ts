@@ -18,17 +18,11 @@ import { successionWarnings, tenderHarvestEnd } from './plan-warnings';
 import { explainSeed } from './explain';
 import { seedNeed, type SeedNeed, type SeedNeedInput } from './seed';
 import type { ExplainStep, PlanningWarning, SowingMethod, Variety } from './types';
-import { makeTempLookup, type WeeklyMeanTempF } from './weekly-temps';
+import { makeTempLookup } from './weekly-temps';
+import type { Farm } from './succession-types';
 
-export interface DeriveFarm {
-	lastSpringFrost: string;
-	firstFallFrost: string;
-	latitude: number;
-	weeklyMeanTempF?: WeeklyMeanTempF;
-	/** Days after the last spring frost that frost-tender crops go out. Default 0. */
-	tenderDaysAfterFrost?: number;
-	/** The probability the frost dates stand for, percent. */
-	frostProbabilityPct?: number;
+/** The farm as a planting's dates need it: the planner's farm, and the short-day threshold (hours, default 10). */
+export interface DeriveFarm extends Farm {
 	shortDayThresholdHours?: number;
 }
 

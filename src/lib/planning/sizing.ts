@@ -6,7 +6,7 @@ import { type DayNumber, toDayNumber, yearOfDay } from './day-number';
 import { blankDtm, effectiveDaysInto, effectiveDaysToMaturity, maturityFrom } from './effective-dtm';
 import { isoWeekOfDay, weekStartDayItem } from './iso-week';
 import { roundUpTo } from './numbers';
-import { coverByLp, peakWeekOf } from './cover-lp';
+import { type SizingWeeks, coverByLp, peakWeekOf } from './cover-lp';
 import * as pw from './plan-warnings';
 import { type ResolvedOptions, resolveOptions } from './resolve-options';
 import type { Candidate, PlanInput, SuccessionRun } from './succession-types';
@@ -27,13 +27,7 @@ export interface Planned<T> {
 export type MakeRun<T> = (run: Readonly<SuccessionRun>, v: Variety, o: ResolvedOptions, mondays: DayNumber[]) => T;
 
 /** The covering problem planRuns solves, for sizingLp: handed out once the plan is made. */
-export interface SizingProblem {
-	nWeeks: number;
-	cMin: number;
-	span: number;
-	step: number;
-	target: Float64Array;
-	need: Float64Array;
+export interface SizingProblem extends SizingWeeks {
 	candidate: (c: number) => Candidate;
 	perFt: (c: number, w: number) => number;
 }

@@ -11,15 +11,10 @@
  * Week numbers here are offsets from the first target week (negative: before it).
  */
 
-export interface StoreSizing {
-	nWeeks: number;
-	/** Earliest candidate start (offset). */
-	cMin: number;
-	span: number;
-	step: number;
-	/** Target per week offset 0…nWeeks − 1, and target × (1 + margin). */
-	target: Float64Array;
-	need: Float64Array;
+import type { SizingWeeks } from './cover-lp';
+
+/** `need` is target × (1 + margin) here. */
+export interface StoreSizing extends SizingWeeks {
 	increment: number;
 	keepWeeks: number;
 	lossPerWeek: number;

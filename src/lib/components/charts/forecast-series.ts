@@ -27,6 +27,13 @@ export interface Layer {
 	points: LayerPoint[];
 }
 
+/** What a forecast chart takes: the series, the week picked (bound both ways) and its label. */
+export interface SeriesChartProps {
+	series: Series;
+	hovered: string | null;
+	label: string;
+}
+
 export interface Series {
 	mode: ChartMode;
 	weeks: string[];

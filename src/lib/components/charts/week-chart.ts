@@ -20,3 +20,16 @@ export function weekChart(): WeekChart {
 export function labelEvery(weeks: number, width: number, px = 44): number {
 	return Math.max(1, Math.ceil(weeks / Math.max(1, Math.floor(width / px))));
 }
+
+/** A week's bar between two values on the value axis, as a <rect>'s x, y, width and height. */
+export function weekBar(
+	x: ScaleBand<string>,
+	y: ScaleLinear<number, number>,
+	week: string,
+	from: number,
+	to: number
+): { x: number; y: number; width: number; height: number } {
+	const a = y(from);
+	const b = y(to);
+	return { x: x(week) ?? 0, width: x.bandwidth(), y: Math.min(a, b), height: Math.abs(a - b) };
+}
