@@ -6,7 +6,16 @@
 // per-crop chart (supply now and after the apply, against demand) comes from the same planned supply.
 import { deriveTargets, isoWeek, type ProposedPlanting } from '$lib/planning';
 import type { CropCover } from '$lib/planning/cover';
-import { curveOf } from './crops';
+import {
+	cropStores,
+	livePlantings,
+	plannedColumns,
+	plannedFromRow,
+	varietySupply,
+	varietySupplyColumns,
+	type PlannedRow,
+	type VarietySupplyRow
+} from './planned-rows';
 import { db } from './db';
 import { targetInput } from './demand';
 import { plannedCover, plannedSupply, type PlannedPlanting } from './planned-supply';
@@ -33,24 +42,14 @@ export interface PreviewCover {
 	balance: CropBalance[];
 }
 
-interface Row {
-	id: number;
+interface Row extends PlannedRow {
 	season_id: number;
 	season_name: string;
 	status: string;
 	variety_id: number;
-	crop_id: number;
 	bed_id: number | null;
 	start_ft: number | string;
-	length_ft: number | string;
 	field_date: string;
-	first_harvest: string;
-	last_harvest: string;
-	yield_per_bed_foot: number | string;
-	harvest_window_days: number;
-	harvest_curve: string | null;
-	crop_harvest_curve: string | null;
-	harvest_cut_interval_days: number | null;
 }
 
 export const proposedKey = (index: number): string => `n${index}`;
@@ -60,78 +59,34 @@ export async function previewCover(
 	season: Season,
 	proposed: ProposedPlanting[]
 ): Promise<PreviewCover> {
-	const [rows, input, crops] = await Promise.all([
+	const [rows, input, stores] = await Promise.all([
 		// Every planting harvesting in the season's dates, whatever its season; failed ones supply
 		// nothing. After the apply, the season's planned ones give way to the proposal.
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
+		livePlantings(farmId)
 			.join('seasons as s', 's.id', 'p.season_id')
-			.where({ 'p.farm_id': farmId })
-			.whereNot('p.status', 'failed')
 			.where('p.first_harvest', '<=', season.endsOn)
 			.where('p.last_harvest', '>=', season.startsOn)
 			.select<Row[]>(
-				'p.id',
+				...plannedColumns,
 				'p.season_id',
 				's.name as season_name',
 				'p.status',
 				'p.variety_id',
-				'v.crop_id',
 				'p.bed_id',
 				'p.start_ft',
-				'p.length_ft',
-				'p.field_date',
-				'p.first_harvest',
-				'p.last_harvest',
-				'v.yield_per_bed_foot',
-				'v.harvest_window_days',
-				'v.harvest_curve',
-				'c.harvest_curve as crop_harvest_curve',
-				'c.harvest_cut_interval_days'
+				'p.field_date'
 			),
 		targetInput(farmId, season.id),
-		db()('crops as c')
-			.where({ farm_id: farmId })
-			.select<{ id: number; storage_weeks: number | null; storage_loss_per_week: unknown }[]>(
-				'id',
-				'storage_weeks',
-				'storage_loss_per_week'
-			)
+		cropStores(farmId)
 	]);
 	const varieties = await db()('varieties as v')
 		.join('crops as c', 'c.id', 'v.crop_id')
 		.where({ 'v.farm_id': farmId })
-		.select<
-			{
-				id: number;
-				yield_per_bed_foot: unknown;
-				harvest_window_days: number;
-				harvest_curve: string | null;
-				crop_harvest_curve: string | null;
-				harvest_cut_interval_days: number | null;
-			}[]
-		>(
-			'v.id',
-			'v.yield_per_bed_foot',
-			'v.harvest_window_days',
-			'v.harvest_curve',
-			'c.harvest_curve as crop_harvest_curve',
-			'c.harvest_cut_interval_days'
-		);
+		.select<(VarietySupplyRow & { id: number })[]>('v.id', ...varietySupplyColumns);
 	const varietyById = new Map(varieties.map((v) => [String(v.id), v]));
 	const replaced = (r: Row): boolean => r.season_id === season.id && r.status === 'planned';
 	const stays = rows.filter((r) => !replaced(r));
-	const planned = (r: Row): PlannedPlanting & { key: string } => ({
-		key: `p${r.id}`,
-		crop: String(r.crop_id),
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		lengthFt: Number(r.length_ft),
-		yieldPerBedFoot: Number(r.yield_per_bed_foot),
-		harvestWindowDays: Number(r.harvest_window_days),
-		curve: curveOf(r.harvest_curve ?? r.crop_harvest_curve, r.harvest_cut_interval_days)
-	});
+	const planned = (r: Row): PlannedPlanting & { key: string } => plannedFromRow(r);
 	const plantings = stays.map(planned);
 	proposed.forEach((p, i) => {
 		const v = varietyById.get(String(p.varietyId));
@@ -142,18 +97,9 @@ export async function previewCover(
 			firstHarvest: p.firstHarvest,
 			lastHarvest: p.lastHarvest,
 			lengthFt: p.lengthFt,
-			yieldPerBedFoot: Number(v.yield_per_bed_foot),
-			harvestWindowDays: Number(v.harvest_window_days),
-			curve: curveOf(v.harvest_curve ?? v.crop_harvest_curve, v.harvest_cut_interval_days)
+			...varietySupply(v)
 		});
 	});
-	const stores = crops
-		.filter((c) => Number(c.storage_weeks ?? 0) > 0)
-		.map((c) => ({
-			crop: String(c.id),
-			keepWeeks: Number(c.storage_weeks),
-			lossPerWeek: Number(c.storage_loss_per_week ?? 0)
-		}));
 	const targets = deriveTargets(input);
 	return {
 		crops: plannedCover(plantings, targets, stores),
