@@ -6,11 +6,11 @@
 // (logged harvests do not stand in for past weeks here).
 import { applySwaps, deriveTargets } from '$lib/planning';
 import { successionCover, type CoverWeek } from '$lib/planning/cover';
-import { curveOf } from './crops';
 import { db } from './db';
 import { targetInput } from './demand';
 import { activeSwaps } from './forecast';
 import { plannedCover } from './planned-supply';
+import { livePlantings, plannedColumns, plannedFromRow, type PlannedRow } from './planned-rows';
 import * as seasons from './seasons';
 
 /** A planting named in a cover: enough to find it (variety, bed, field date, its season). */
@@ -34,23 +34,14 @@ export interface PlantingCoverAnswer {
 	plantings: CoverPlantingLabel[];
 }
 
-interface Row {
-	id: number;
+interface Row extends PlannedRow {
 	season_id: number;
 	season_name: string;
 	variety: string;
 	bed: string | null;
 	block: string | null;
 	start_ft: number | string;
-	length_ft: number | string;
 	field_date: string;
-	first_harvest: string;
-	last_harvest: string;
-	yield_per_bed_foot: number | string;
-	harvest_window_days: number;
-	harvest_curve: string | null;
-	crop_harvest_curve: string | null;
-	harvest_cut_interval_days: number | null;
 }
 
 /** The cover of a planting of this farm; null when the farm has no such planting. */
@@ -92,34 +83,23 @@ export async function plantingCover(farmId: number, plantingId: number): Promise
 	const season = await seasons.get(farmId, harvestSeason?.id ?? own.season_id);
 	if (!season) return null;
 	const [rows, input, swaps] = await Promise.all([
-		db()('plantings as p')
-			.join('varieties as v', 'v.id', 'p.variety_id')
-			.join('crops as c', 'c.id', 'v.crop_id')
+		livePlantings(farmId)
 			.join('seasons as s', 's.id', 'p.season_id')
 			.leftJoin('beds as b', 'b.id', 'p.bed_id')
 			.leftJoin('blocks as k', 'k.id', 'b.block_id')
-			.where({ 'p.farm_id': farmId, 'v.crop_id': own.crop_id })
+			.where({ 'v.crop_id': own.crop_id })
 			.where('p.first_harvest', '<=', season.endsOn)
 			.where('p.last_harvest', '>=', season.startsOn)
-			.whereNot('p.status', 'failed')
 			.orderBy(['p.field_date', 'p.id'])
 			.select<Row[]>(
-				'p.id',
+				...plannedColumns,
 				'p.season_id',
 				's.name as season_name',
 				'v.name as variety',
 				'b.name as bed',
 				'k.name as block',
 				'p.start_ft',
-				'p.length_ft',
-				'p.field_date',
-				'p.first_harvest',
-				'p.last_harvest',
-				'v.yield_per_bed_foot',
-				'v.harvest_window_days',
-				'v.harvest_curve',
-				'c.harvest_curve as crop_harvest_curve',
-				'c.harvest_cut_interval_days'
+				'p.field_date'
 			),
 		targetInput(farmId, season.id),
 		activeSwaps(farmId, season.id)
@@ -129,16 +109,8 @@ export async function plantingCover(farmId: number, plantingId: number): Promise
 	const keepWeeks = Number(own.storage_weeks ?? 0);
 	const stores = keepWeeks > 0 ? [{ crop, keepWeeks, lossPerWeek: Number(own.loss ?? 0) }] : [];
 	const covers = plannedCover(
-		rows.map((r) => ({
-			key: String(r.id),
-			crop,
-			firstHarvest: r.first_harvest,
-			lastHarvest: r.last_harvest,
-			lengthFt: Number(r.length_ft),
-			yieldPerBedFoot: Number(r.yield_per_bed_foot),
-			harvestWindowDays: Number(r.harvest_window_days),
-			curve: curveOf(r.harvest_curve ?? r.crop_harvest_curve, r.harvest_cut_interval_days)
-		})),
+		// Keyed by the bare id: the answer names the other plantings by id.
+		rows.map((r) => ({ ...plannedFromRow(r), key: String(r.id) })),
 		targets,
 		stores
 	);
