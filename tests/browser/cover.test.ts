@@ -8,31 +8,16 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launch, signIn, type BrowserSession, type Page } from '../helpers/browser';
 import { closeTestDb, testDb } from '../helpers/db';
 import { demo } from '../helpers/env';
-import { makeForecastFarm, type ForecastFarm } from '../integration/forecast-fixture';
+import { addCarryOverCarrot, makeForecastFarm, type ForecastFarm } from '../integration/forecast-fixture';
 
 let f: ForecastFarm;
 beforeAll(async () => {
 	f = await makeForecastFarm('cover-screen');
-	const v = await testDb()('varieties').where({ farm_id: f.farmId, crop_id: f.crops.carrot }).first('id');
 	const [block] = await testDb()('blocks').insert({ farm_id: f.farmId, name: 'Cover block (invented)', position: 0 });
 	const [bed] = await testDb()('beds').insert({ farm_id: f.farmId, block_id: block, name: 'C1', length_ft: 100 });
 	await testDb()('beds').insert({ farm_id: f.farmId, block_id: block, name: 'C2', length_ft: 100, position: 1 });
 	// 7 ft × 2 lb/ft over Thu 17 – Wed 23 Jun 2027: 2 lb a day, 8 lb in W24 (Thu–Sun), 6 lb in W25.
-	await testDb()('plantings').insert({
-		farm_id: f.farmId,
-		season_id: f.season2026,
-		variety_id: v.id,
-		bed_id: bed,
-		start_ft: 50,
-		length_ft: 7,
-		rows: 2,
-		in_row_spacing_in: 4,
-		method: 'direct',
-		field_date: '2026-10-01',
-		first_harvest: '2027-06-17',
-		last_harvest: '2027-06-23',
-		status: 'sown'
-	});
+	await addCarryOverCarrot(f, { bedId: bed, startFt: 50 });
 });
 afterAll(closeTestDb);
 

@@ -352,3 +352,15 @@ export async function loadWorkbook(bytes: Uint8Array): Promise<ExcelJS.Workbook>
 	await wb.xlsx.load(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
 	return wb;
 }
+
+/** A worksheet's rows as records keyed by its header row (empty cells as null). */
+export function sheetRecords(book: ExcelJS.Workbook, name: string): Record<string, unknown>[] {
+	const ws = book.getWorksheet(name)!;
+	const head = (ws.getRow(1).values as unknown[]).slice(1) as string[];
+	const out: Record<string, unknown>[] = [];
+	for (let n = 2; n <= ws.rowCount; n++) {
+		const vals = ws.getRow(n).values as unknown[];
+		out.push(Object.fromEntries(head.map((h, i) => [h, vals[i + 1] ?? null])));
+	}
+	return out;
+}

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, testDb } from '../helpers/db';
 import { demo } from '../helpers/env';
-import { makeForecastFarm, type ForecastFarm } from './forecast-fixture';
+import { addCarryOverCarrot, makeForecastFarm, type ForecastFarm } from './forecast-fixture';
 import type { PlantingCoverAnswer } from '$lib/server/cover';
 import type { PreviewCover } from '$lib/server/plan-cover';
 import { successionCover } from '$lib/planning/cover';
@@ -16,23 +16,8 @@ let f: ForecastFarm;
 let carryOver: number;
 beforeAll(async () => {
 	f = await makeForecastFarm('cover');
-	const v = await testDb()('varieties').where({ farm_id: f.farmId, crop_id: f.crops.carrot }).first('id');
-	// A 2026 planting dug Thu 17 – Wed 23 Jun 2027: 7 ft × 2 lb/ft = 14 lb over 7 days, 2 lb a day:
-	// Thu–Sun (4 days) = 8 lb in 2027-W24, Mon–Wed (3 days) = 6 lb in W25.
-	[carryOver] = await testDb()('plantings').insert({
-		farm_id: f.farmId,
-		season_id: f.season2026,
-		variety_id: v.id,
-		start_ft: 0,
-		length_ft: 7,
-		rows: 2,
-		in_row_spacing_in: 4,
-		method: 'direct',
-		field_date: '2026-10-01',
-		first_harvest: '2027-06-17',
-		last_harvest: '2027-06-23',
-		status: 'sown'
-	});
+	// 8 lb in 2027-W24 and 6 lb in W25 (worked out beside addCarryOverCarrot).
+	carryOver = await addCarryOverCarrot(f, { bedId: null, startFt: 0 });
 });
 
 describe('GET /api/plantings/{id}/cover', () => {

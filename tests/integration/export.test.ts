@@ -7,7 +7,7 @@ import * as XLSX from 'xlsx';
 import { Client, signedIn } from '../helpers/http';
 import { closeTestDb, count, testDb } from '../helpers/db';
 import { demo } from '../helpers/env';
-import { download, loadWorkbook, signUpFarm, writeHandPlan, type NewFarm } from '../helpers/transfer';
+import { download, loadWorkbook, sheetRecords, signUpFarm, writeHandPlan, type NewFarm } from '../helpers/transfer';
 
 // Source: NIST Handbook 44, Appendix C: 1 ounce (avoirdupois) = 28.349 523 125 g exactly.
 const G_PER_OZ = 28.349523125;
@@ -297,16 +297,7 @@ describe('one planned supply', () => {
 		const { res, bytes: demoBytes } = await download(await signedIn(demo.owner, demo.password), demoSeasonId);
 		expect(res.status).toBe(200);
 		const book = await loadWorkbook(demoBytes);
-		const read = (name: string): Record<string, unknown>[] => {
-			const ws = book.getWorksheet(name)!;
-			const head = (ws.getRow(1).values as unknown[]).slice(1) as string[];
-			const out: Record<string, unknown>[] = [];
-			for (let n = 2; n <= ws.rowCount; n++) {
-				const vals = ws.getRow(n).values as unknown[];
-				out.push(Object.fromEntries(head.map((h, i) => [h, vals[i + 1] ?? null])));
-			}
-			return out;
-		};
+		const read = (name: string) => sheetRecords(book, name);
 		const stored = new Set(
 			(await testDb()('crops').whereNotNull('storage_weeks').where('storage_weeks', '>', 0).select('name')).map(
 				(c) => c.name
@@ -390,16 +381,7 @@ describe("other seasons' plantings harvesting in this season", () => {
 			const got = await download(farm.client, seasonId);
 			expect(got.res.status).toBe(200);
 			const book = await loadWorkbook(got.bytes);
-			const read = (name: string): Record<string, unknown>[] => {
-				const ws = book.getWorksheet(name)!;
-				const head = (ws.getRow(1).values as unknown[]).slice(1) as string[];
-				const out: Record<string, unknown>[] = [];
-				for (let n = 2; n <= ws.rowCount; n++) {
-					const vals = ws.getRow(n).values as unknown[];
-					out.push(Object.fromEntries(head.map((h, i) => [h, vals[i + 1] ?? null])));
-				}
-				return out;
-			};
+			const read = (name: string) => sheetRecords(book, name);
 			const forecast = read('Forecast').filter((r) => r.Crop === 'Garlic');
 			expect(forecast).toEqual([
 				expect.objectContaining({ 'Week (ISO)': '2027-W27', 'Planned harvest': 60, Demand: 0, Surplus: 60 })

@@ -170,3 +170,32 @@ export async function makeForecastFarm(tag: string): Promise<ForecastFarm> {
 		plantings
 	};
 }
+
+/**
+ * A carrot planting of the 2026 season dug Thu 17 – Wed 23 Jun 2027: 7 ft × 2 lb/ft = 14 lb over
+ * 7 days, 2 lb a day: Thu–Sun (4 days) = 8 lb in 2027-W24, Mon–Wed (3 days) = 6 lb in W25.
+ * Returns its id.
+ */
+export async function addCarryOverCarrot(
+	f: ForecastFarm,
+	place: { bedId: number | null; startFt: number }
+): Promise<number> {
+	const db = testDb();
+	const v = await db('varieties').where({ farm_id: f.farmId, crop_id: f.crops.carrot }).first('id');
+	const [id] = await db('plantings').insert({
+		farm_id: f.farmId,
+		season_id: f.season2026,
+		variety_id: v.id,
+		bed_id: place.bedId,
+		start_ft: place.startFt,
+		length_ft: 7,
+		rows: 2,
+		in_row_spacing_in: 4,
+		method: 'direct',
+		field_date: '2026-10-01',
+		first_harvest: '2027-06-17',
+		last_harvest: '2027-06-23',
+		status: 'sown'
+	});
+	return id;
+}
