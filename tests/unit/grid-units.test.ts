@@ -68,5 +68,7 @@ describe('the grid on a metric farm', () => {
 		const imperial = explainInFarmUnits(d.value.explain, carrot, row.values, 'imperial');
 		// Seed in ounces on an imperial farm: 776.03 seeds/g × 28.349523125 = 22,000.080 seeds/oz.
 		expect(imperial.find((s) => s.label === 'seed weight')!.formula).toContain('22,000.08 per oz');
+		// The yields name the crop's harvest unit in either system: 30 ft × 1.5 lb/ft = 45 lb.
+		expect(imperial.find((s) => s.label === 'expected yield')).toMatchObject({ value: 45, unit: 'lb' });
 	});
 });

@@ -38,6 +38,7 @@ export function explainInFarmUnits(
 	};
 	const crop = (x: number): number => Number(toDisplayQuantity(x, v.harvestUnit, units).toFixed(2));
 	const metric = units === 'metric';
+	const yieldUnit = unitLabel(v.harvestUnit, units, 1);
 	return steps.map((s): ExplainStep => {
 		const value = typeof s.value === 'number' ? s.value : undefined;
 		switch (s.label) {
@@ -60,20 +61,23 @@ export function explainInFarmUnits(
 				const price = toDisplayPricePerSeedWeight(v.seedPriceCentsPerGram, units);
 				return { ...s, formula: `${weight(g)} ${w} × ${n(price)} ¢/${w}` };
 			}
+			// The yields carry the crop's harvest unit in either system (the engine's steps leave it out).
 			case 'expected yield':
-				if (!metric || value === undefined) return s;
+				if (value === undefined) return s;
+				if (!metric) return { ...s, unit: yieldUnit };
 				return {
 					...s,
 					value: crop(value),
-					unit: unitLabel(v.harvestUnit, units, 1),
+					unit: yieldUnit,
 					formula: `${formatFeet(row.lengthFt, units)} × ${n(toDisplayPerFoot(v.yieldPerBedFoot, v.harvestUnit, units))} per bed-metre over the window`
 				};
 			case 'weekly yield':
-				if (!metric || value === undefined) return s;
+				if (value === undefined) return s;
+				if (!metric) return { ...s, unit: yieldUnit };
 				return {
 					...s,
 					value: crop(value),
-					unit: unitLabel(v.harvestUnit, units, 1),
+					unit: yieldUnit,
 					formula: `${crop(num('expected yield') ?? 0)} ÷ (${v.harvestWindowDays} days ÷ 7)`
 				};
 			default:
