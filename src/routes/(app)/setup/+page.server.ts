@@ -3,8 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import { locationSchema } from '$lib/schemas/farm';
-import { fieldErrors } from '$lib/schemas/common';
-import { textValues } from '$lib/library-form';
+import { readForm } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'farm.settings');
@@ -23,12 +22,10 @@ export const load = (async (event) => {
 export const actions = {
 	default: async (event) => {
 		const { farm } = requireCan(event, 'farm.settings');
-		const values = textValues(await event.request.formData());
-		const parsed = locationSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		const current = await farms.get(farm.id);
-		const { id: _id, ...rest } = current;
-		await farms.update(farm.id, { ...rest, ...parsed.data });
+		const form = await readForm(event.request, locationSchema);
+		if (form.refused) return fail(400, form.refused);
+		const { id: _id, ...current } = await farms.get(farm.id);
+		await farms.update(farm.id, { ...current, ...form.data });
 		redirect(303, '/setup/beds');
 	}
 } satisfies Actions;

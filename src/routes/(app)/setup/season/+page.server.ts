@@ -4,8 +4,7 @@ import { requireCan } from '$lib/server/guards';
 import * as seasons from '$lib/server/seasons';
 import * as farms from '$lib/server/farms';
 import { seasonCreateSchema } from '$lib/schemas/season';
-import { fieldErrors } from '$lib/schemas/common';
-import { textValues } from '$lib/library-form';
+import { answerInputErrors, readForm } from '$lib/server/form';
 import { todayIn } from '$lib/today';
 
 export const load = (async (event) => {
@@ -20,16 +19,11 @@ export const load = (async (event) => {
 export const actions = {
 	default: async (event) => {
 		const { farm } = requireCan(event, 'seasons.manage');
-		const values = textValues(await event.request.formData());
-		const parsed = seasonCreateSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		let id: number;
-		try {
-			id = await seasons.create(farm.id, parsed.data);
-		} catch (e) {
-			if (e instanceof seasons.SeasonInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		redirect(303, `/seasons/${id}/demand`);
+		const form = await readForm(event.request, seasonCreateSchema);
+		if (form.refused) return fail(400, form.refused);
+		return answerInputErrors(seasons.SeasonInputError, form.values, async () => {
+			const id = await seasons.create(farm.id, form.data);
+			redirect(303, `/seasons/${id}/demand`);
+		});
 	}
 } satisfies Actions;
