@@ -1,9 +1,11 @@
 // A posted form read against its schema, and the answer a refused one gets: the first message for each bad
 // field, with what was typed so the form shows it again (never a secret such as a password).
-import { fail, type ActionFailure } from '@sveltejs/kit';
+import { fail, type ActionFailure, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
 import { textValues } from '$lib/library-form';
+import type { Action } from '$lib/permissions';
+import { requireCan, type Viewer } from './guards';
 
 export type FormValues = Record<string, string>;
 
@@ -55,4 +57,22 @@ export async function answerInputErrors<T>(
 		if (e instanceof kind) return fail(e.status ?? 400, { errors: { [e.field]: e.message }, values });
 		throw e;
 	}
+}
+
+/**
+ * A form action that one permission allows and that reads one form: the viewer must be allowed `action`,
+ * a refused form answers 400, and `run` gets the viewer and the checked form. The schema may depend on
+ * the fields and the viewer (a crop's on its harvest unit and the farm's units).
+ */
+export function formAction<S extends z.ZodType, R>(
+	action: Action,
+	schema: S | ((fields: FormValues, viewer: Viewer) => S | Promise<S>),
+	run: (viewer: Viewer & { event: RequestEvent }, form: { data: z.output<S>; values: FormValues }) => Promise<R>
+) {
+	return async (event: RequestEvent) => {
+		const viewer = requireCan(event, action);
+		const form = await readForm(event.request, typeof schema === 'function' ? (f) => schema(f, viewer) : schema);
+		if (form.refused) return fail(400, form.refused);
+		return run({ ...viewer, event }, form);
+	};
 }

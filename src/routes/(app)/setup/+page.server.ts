@@ -1,9 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import { locationSchema } from '$lib/schemas/farm';
-import { readForm } from '$lib/server/form';
+import { formAction } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'farm.settings');
@@ -20,12 +20,9 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'farm.settings');
-		const form = await readForm(event.request, locationSchema);
-		if (form.refused) return fail(400, form.refused);
+	default: formAction('farm.settings', locationSchema, async ({ farm }, { data }) => {
 		const { id: _id, ...current } = await farms.get(farm.id);
-		await farms.update(farm.id, { ...current, ...form.data });
+		await farms.update(farm.id, { ...current, ...data });
 		redirect(303, '/setup/beds');
-	}
+	})
 } satisfies Actions;

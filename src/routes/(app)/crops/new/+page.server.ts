@@ -1,4 +1,4 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { createCrop, LibraryInputError } from '$lib/server/crops';
@@ -6,7 +6,7 @@ import type { CropInput } from '$lib/schemas/crop';
 import { cropSchemaFor } from '$lib/schemas/crop-units';
 import { libraryUnits } from '$lib/server/unit-context';
 import { newCropValues } from '$lib/library-form';
-import { answerInputErrors, readForm } from '$lib/server/form';
+import { answerInputErrors, formAction } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'library.edit');
@@ -14,13 +14,13 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'library.edit');
-		const form = await readForm(event.request, async (f) => cropSchemaFor(await libraryUnits(farm.id, f.harvestUnit)));
-		if (form.refused) return fail(400, form.refused);
-		return answerInputErrors(LibraryInputError, form.values, async () => {
-			const id = await createCrop(farm.id, form.data as CropInput);
-			redirect(303, `/crops/${id}/varieties/new?created=1`);
-		});
-	}
+	default: formAction(
+		'library.edit',
+		async (f, { farm }) => cropSchemaFor(await libraryUnits(farm.id, f.harvestUnit)),
+		async ({ farm }, { data, values }) =>
+			answerInputErrors(LibraryInputError, values, async () => {
+				const id = await createCrop(farm.id, data as CropInput);
+				redirect(303, `/crops/${id}/varieties/new?created=1`);
+			})
+	)
 } satisfies Actions;

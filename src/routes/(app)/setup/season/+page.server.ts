@@ -1,10 +1,10 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as seasons from '$lib/server/seasons';
 import * as farms from '$lib/server/farms';
 import { seasonCreateSchema } from '$lib/schemas/season';
-import { answerInputErrors, readForm } from '$lib/server/form';
+import { answerInputErrors, formAction } from '$lib/server/form';
 import { todayIn } from '$lib/today';
 
 export const load = (async (event) => {
@@ -17,13 +17,10 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'seasons.manage');
-		const form = await readForm(event.request, seasonCreateSchema);
-		if (form.refused) return fail(400, form.refused);
-		return answerInputErrors(seasons.SeasonInputError, form.values, async () => {
-			const id = await seasons.create(farm.id, form.data);
+	default: formAction('seasons.manage', seasonCreateSchema, async ({ farm }, { data, values }) =>
+		answerInputErrors(seasons.SeasonInputError, values, async () => {
+			const id = await seasons.create(farm.id, data);
 			redirect(303, `/seasons/${id}/demand`);
-		});
-	}
+		})
+	)
 } satisfies Actions;
