@@ -104,25 +104,30 @@ export function withEdits(demand: PageDemand, grid: Grid, edits: Record<string, 
 	if (!entries.length) return demand;
 	const hit = (cropId: number, week: string): boolean => entries.some((e) => e.cropId === cropId && e.week === week);
 	const set = entries.filter((e) => e.q !== null && e.q > 0);
+	/** The rows of this grid its edits touch replaced by the edited cells that hold a quantity. */
+	function laid<T extends { cropId: number; week: string }>(
+		rows: T[],
+		ofGrid: (r: T) => boolean,
+		row: (e: { cropId: number; week: string; quantity: number }) => T
+	): T[] {
+		const kept = rows.filter((r) => !ofGrid(r) || !hit(r.cropId, r.week));
+		return [...kept, ...set.map((e) => row({ cropId: e.cropId, week: e.week, quantity: e.q as number }))];
+	}
 	if (grid.startsWith('share:')) {
 		const id = Number(grid.slice(6));
-		const kept = demand.boxItems.filter((b) => b.shareSizeId !== id || !hit(b.cropId, b.week));
-		return {
-			...demand,
-			boxItems: [
-				...kept,
-				...set.map((e) => ({ shareSizeId: id, week: e.week, cropId: e.cropId, quantity: e.q as number }))
-			]
-		};
+		const boxItems = laid(
+			demand.boxItems,
+			(b) => b.shareSizeId === id,
+			(e) => ({ shareSizeId: id, ...e })
+		);
+		return { ...demand, boxItems };
 	}
-	const kept = demand.channelDemand.filter((c) => c.channel !== grid || !hit(c.cropId, c.week));
-	return {
-		...demand,
-		channelDemand: [
-			...kept,
-			...set.map((e) => ({ channel: grid, week: e.week, cropId: e.cropId, quantity: e.q as number }))
-		]
-	};
+	const channelDemand = laid(
+		demand.channelDemand,
+		(c) => c.channel === grid,
+		(e) => ({ channel: grid, ...e })
+	);
+	return { ...demand, channelDemand };
 }
 
 /** How one target was reached, in words the page can show: share names and channel names. */

@@ -1,5 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
-import type { Actions, PageServerLoad } from './$types';
+import type { z } from 'zod';
+import type { Action, Actions, PageServerLoad } from './$types';
 import { requireCan, requireUser } from '$lib/server/guards';
 import { can } from '$lib/permissions';
 import { seasonFromParams } from '$lib/server/api';
@@ -22,25 +23,30 @@ function text(form: FormData): Record<string, string> {
 	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
 }
 
+/**
+ * Taking a variety's figures into the library and undoing that read the same way: one number from the
+ * form (a refused one named at its field), one step in actuals, then back to the figures with its change.
+ */
+function figuresAction<K extends string>(
+	schema: z.ZodType<Record<K, number>>,
+	field: K,
+	step: (farmId: number, seasonId: number, id: number, userId: string) => Promise<actuals.FigureResult>,
+	shown: 'figures' | 'undone'
+) {
+	return async (event: Parameters<Action>[0]) => {
+		const { farm, user } = requireCan(event, 'varieties.adopt');
+		const season = await seasonFromParams(farm.id, event.params.id);
+		const parsed = schema.safeParse(text(await event.request.formData()));
+		if (!parsed.success) return fail(400, { figures: { errors: fieldErrors(parsed.error) } });
+		const out = await step(farm.id, season.id, parsed.data[field], user.id);
+		if (!out.ok) return fail(out.status, { figures: { errors: { [field]: out.message } as Record<string, string> } });
+		redirect(303, `/seasons/${season.id}/results?${shown}=${out.change.id}#figures`);
+	};
+}
+
 export const actions = {
-	useFigures: async (event) => {
-		const { farm, user } = requireCan(event, 'varieties.adopt');
-		const season = await seasonFromParams(farm.id, event.params.id);
-		const parsed = varietyFiguresSchema.safeParse(text(await event.request.formData()));
-		if (!parsed.success) return fail(400, { figures: { errors: fieldErrors(parsed.error) } });
-		const out = await actuals.useFigures(farm.id, season.id, parsed.data.varietyId, user.id);
-		if (!out.ok) return fail(out.status, { figures: { errors: { varietyId: out.message } } });
-		redirect(303, `/seasons/${season.id}/results?figures=${out.change.id}#figures`);
-	},
-	undoFigures: async (event) => {
-		const { farm, user } = requireCan(event, 'varieties.adopt');
-		const season = await seasonFromParams(farm.id, event.params.id);
-		const parsed = figureChangeSchema.safeParse(text(await event.request.formData()));
-		if (!parsed.success) return fail(400, { figures: { errors: fieldErrors(parsed.error) } });
-		const out = await actuals.undoFigures(farm.id, season.id, parsed.data.changeId, user.id);
-		if (!out.ok) return fail(out.status, { figures: { errors: { changeId: out.message } } });
-		redirect(303, `/seasons/${season.id}/results?undone=${out.change.id}#figures`);
-	},
+	useFigures: figuresAction(varietyFiguresSchema, 'varietyId', actuals.useFigures, 'figures'),
+	undoFigures: figuresAction(figureChangeSchema, 'changeId', actuals.undoFigures, 'undone'),
 	// The copy report exists only at the moment of copying, so this action answers with it
 	// instead of redirecting; a repeated post finds the new season there and is refused (409).
 	copySeason: async (event) => {
