@@ -5,7 +5,7 @@
 // SvelteKit (the demo seed runs outside it).
 import type { Farm } from '$lib/planning';
 
-export { plantingSeed, toEngineVariety, type SeededPlanting } from '$lib/varieties';
+export { growingFigures, plantingSeed, toEngineVariety, type SeededPlanting } from '$lib/varieties';
 
 /** The farm's own figures the engine reads (frost normals, latitude, the tender crops' wait). */
 export interface FarmFacts {

@@ -1,13 +1,21 @@
 // The top bar's links. Each shows to the roles that may take its action (permissions.ts);
-// the server's guards are what enforce it.
+// the server's guards are what enforce it. The season's tabs (season-tabs.ts) are links alike.
 import type { Role } from './roles';
 import { can, type Action } from './permissions';
 
-export interface NavItem {
-	href: string;
+/** A link or tab, shown to the roles that may take its action. */
+export interface RoleLink {
 	label: string;
-	/** Shown to the roles that may take this action. */
 	action: Action;
+}
+
+/** The links a role is shown. */
+export function shownTo<T extends RoleLink>(role: Role, links: readonly T[]): T[] {
+	return links.filter((l) => can(role, l.action));
+}
+
+export interface NavItem extends RoleLink {
+	href: string;
 }
 
 export const navItems: readonly NavItem[] = [
@@ -22,5 +30,5 @@ export const navItems: readonly NavItem[] = [
 ];
 
 export function navFor(role: Role, devMail: boolean): NavItem[] {
-	return navItems.filter((item) => can(role, item.action) && (devMail || item.href !== '/dev/mail'));
+	return shownTo(role, navItems).filter((item) => devMail || item.href !== '/dev/mail');
 }

@@ -1,31 +1,32 @@
 // The parts of a season, as tabs under its name. Which roles see a tab mirrors what the server
 // allows on that page; the server's guards are what enforce it.
 import type { Role } from './roles';
-import { can, type Action } from './permissions';
+import type { Action } from './permissions';
+import { shownTo, type RoleLink } from './navigation';
 
-export interface SeasonTab {
+export interface SeasonTab extends RoleLink {
 	/** Path below /seasons/{id}; '' is the season's overview. */
 	path: string;
-	label: string;
-	/** Shown to the roles that may take this action. */
-	action: Action;
 }
 
+/** A tab shown to the roles that may take `action`: by default whoever may read the plan. */
+const tab = (path: string, label: string, action: Action = 'plan.read'): SeasonTab => ({ path, label, action });
+
 export const seasonTabs: readonly SeasonTab[] = [
-	{ path: '', label: 'Overview', action: 'plan.read' },
-	{ path: 'plantings', label: 'Planting grid', action: 'plan.read' },
-	{ path: 'beds', label: 'Bed timeline', action: 'plan.read' },
-	{ path: 'demand', label: 'Demand', action: 'plan.read' },
-	{ path: 'plan', label: 'Plan', action: 'plan.read' },
-	{ path: 'seeds', label: 'Seed order', action: 'plan.read' },
-	{ path: 'forecast', label: 'Forecast', action: 'plan.read' },
-	{ path: 'boxes', label: 'Share boxes', action: 'plan.read' },
-	{ path: 'week', label: 'Crew sheets', action: 'plan.read' },
-	{ path: 'transfer', label: 'Export & import', action: 'plan.read' },
-	{ path: 'harvests', label: 'Harvest log', action: 'plan.read' },
-	{ path: 'results', label: 'Actual vs plan', action: 'plan.read' }
+	tab('', 'Overview'),
+	tab('plantings', 'Planting grid'),
+	tab('beds', 'Bed timeline'),
+	tab('demand', 'Demand'),
+	tab('plan', 'Plan'),
+	tab('seeds', 'Seed order'),
+	tab('forecast', 'Forecast'),
+	tab('boxes', 'Share boxes'),
+	tab('week', 'Crew sheets'),
+	tab('transfer', 'Export & import'),
+	tab('harvests', 'Harvest log'),
+	tab('results', 'Actual vs plan')
 ];
 
 export function seasonTabsFor(role: Role): SeasonTab[] {
-	return seasonTabs.filter((t) => can(role, t.action));
+	return shownTo(role, seasonTabs);
 }

@@ -1,4 +1,5 @@
 // Shapes shared by the server and the browser (no server code here).
+import type { GrowingFigures } from '$lib/planning';
 import type { PlantingValues } from '$lib/plantings/fields';
 
 /** A planting with its variety, crop and bed joined in, as pages and the API show it. */
@@ -42,7 +43,7 @@ export interface Bed {
 }
 
 /** A variety with its crop's figures joined in, as the crop library, grid and planner read it. */
-export interface VarietyView {
+export interface VarietyView extends GrowingFigures {
 	id: number;
 	cropId: number;
 	crop: string;
@@ -52,16 +53,7 @@ export interface VarietyView {
 	heatLimitF: number | null;
 	baseTempF: number;
 	name: string;
-	method: 'direct' | 'transplant';
-	daysToMaturity: number;
 	daysInTray: number;
-	harvestWindowDays: number;
-	yieldPerBedFoot: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-	germinationRate: number;
-	seedsPerGram: number;
 	seedPriceCentsPerGram: number;
 	seedsPerPacket: number | null;
 	cellsPerTray: number;

@@ -1,7 +1,31 @@
 // The crop library's variety, as the planning engine takes it. Shared by the server's planner
 // and the browser's grid, so both plan from the same figures.
-import { seedNeed, type SeasonVariety, type SeedNeed } from '$lib/planning';
+import {
+	seedInputOf,
+	seedNeed,
+	type GrowingFigures,
+	type SeasonVariety,
+	type SeededPlanting,
+	type SeedNeed
+} from '$lib/planning';
+
+export type { SeededPlanting };
 import type { VarietyView } from '$lib/types';
+
+/** Just the growing figures of a variety (a library row, an imported one), as the engine reads them. */
+export function growingFigures(v: GrowingFigures): GrowingFigures {
+	return {
+		method: v.method,
+		daysToMaturity: v.daysToMaturity,
+		harvestWindowDays: v.harvestWindowDays,
+		yieldPerBedFoot: v.yieldPerBedFoot,
+		rows: v.rows,
+		inRowSpacingIn: v.inRowSpacingIn,
+		seedsPerSpot: v.seedsPerSpot,
+		germinationRate: v.germinationRate,
+		seedsPerGram: v.seedsPerGram
+	};
+}
 
 const cache = new WeakMap<VarietyView, SeasonVariety>();
 
@@ -14,16 +38,8 @@ export function toEngineVariety(v: VarietyView): SeasonVariety {
 			name: v.name,
 			crop: v.crop,
 			family: v.family,
-			method: v.method,
-			daysToMaturity: v.daysToMaturity,
+			...growingFigures(v),
 			daysInTray: v.daysInTray,
-			harvestWindowDays: v.harvestWindowDays,
-			yieldPerBedFoot: v.yieldPerBedFoot,
-			rows: v.rows,
-			inRowSpacingIn: v.inRowSpacingIn,
-			seedsPerSpot: v.seedsPerSpot,
-			germinationRate: v.germinationRate,
-			seedsPerGram: v.seedsPerGram,
 			cellsPerTray: v.cellsPerTray,
 			// Frost tolerance and heat limit are the crop's; the engine reads them per variety.
 			frostTender: v.frostTolerance === 'tender',
@@ -53,28 +69,7 @@ export function toEngineVariety(v: VarietyView): SeasonVariety {
 	return out;
 }
 
-/** The fields of a planting that size its seed: its own bed-feet, rows and spacing. */
-export interface SeededPlanting {
-	method: 'direct' | 'transplant';
-	lengthFt: number;
-	rows: number;
-	inRowSpacingIn: number;
-	seedsPerSpot: number;
-}
-
 /** Seed for one planting from the engine, with the variety's germination, seed size and prices. */
 export function plantingSeed(p: SeededPlanting, v: VarietyView): SeedNeed {
-	return seedNeed({
-		method: p.method,
-		bedFeet: p.lengthFt,
-		rows: p.rows,
-		inRowSpacingIn: p.inRowSpacingIn,
-		seedsPerSpot: p.seedsPerSpot,
-		germinationRate: v.germinationRate,
-		seedsPerGram: v.seedsPerGram,
-		margin: v.margin,
-		cellsPerTray: v.cellsPerTray,
-		seedPriceCentsPerGram: v.seedPriceCentsPerGram,
-		seedsPerPacket: v.seedsPerPacket ?? undefined
-	});
+	return seedNeed(seedInputOf(p, toEngineVariety(v)));
 }

@@ -54,6 +54,40 @@ export function harvestUnitSystem(unit: unknown): UnitSystem | null {
 	return u === 'kg' ? 'metric' : u === 'lb' ? 'imperial' : null;
 }
 
+/** A harvest weight read from a file, in the stored unit: the row's unit cell says the weight ("kg" is kilograms). */
+const storedWeight = (value: number, unit?: string | null): number => {
+	const system = unit ? harvestUnitSystem(unit) : null;
+	return system ? fromDisplayQuantity(value, 'lb', system) : value;
+};
+
+type Convert = (value: number, system: UnitSystem, unit?: string | null) => number;
+
+/**
+ * Each measure's conversion from the stored unit to a `system` farm's file (`to`) and back (`from`).
+ * `unit` is the row's harvest unit for harvest measures: canonical going out, as the file writes it coming back.
+ */
+const conversions: Record<Exclude<Measure, 'harvestUnit'>, { to: Convert; from: Convert }> = {
+	length: { to: toDisplayFeet, from: fromDisplayFeet },
+	spacing: { to: toDisplayInches, from: fromDisplayInches },
+	temp: { to: toDisplayTemp, from: fromDisplayTemp },
+	degreeDays: {
+		to: (v, system) => toDisplayTemp(v, system) - toDisplayTemp(0, system),
+		from: (v, system) => fromDisplayTemp(v + toDisplayTemp(0, system), system)
+	},
+	seedWeight: { to: toDisplaySeedWeight, from: fromDisplaySeedWeight },
+	seedsPerWeight: { to: toDisplaySeedsPerWeight, from: fromDisplaySeedsPerWeight },
+	// Seeds per weight and price per weight scale alike (both are "per gram" stored).
+	pricePerSeedWeight: { to: toDisplaySeedsPerWeight, from: fromDisplaySeedsPerWeight },
+	harvest: {
+		to: (v, system, unit) => (unit ? toDisplayQuantity(v, unit, system) : v),
+		from: (v, _system, unit) => storedWeight(v, unit)
+	},
+	harvestPerLength: {
+		to: (v, system, unit) => (unit ? toDisplayQuantity(v, unit, system) / toDisplayFeet(1, system) : v),
+		from: (v, system, unit) => storedWeight(v, unit) / fromDisplayFeet(1, system)
+	}
+};
+
 /**
  * A stored value as a file of a `system` farm writes it. `unit` is the row's harvest unit
  * (canonical) for harvest measures. Null and non-numbers pass through.
@@ -67,27 +101,7 @@ export function toFileValue<T>(
 	// Only a weight has another name; counts keep the database's word ("bunch"), which the import reads.
 	if (measure === 'harvestUnit') return value === 'lb' ? unitLabel('lb', system) : value;
 	if (typeof value !== 'number' || !Number.isFinite(value)) return value;
-	switch (measure) {
-		case 'length':
-			return toDisplayFeet(value, system);
-		case 'spacing':
-			return toDisplayInches(value, system);
-		case 'temp':
-			return toDisplayTemp(value, system);
-		case 'degreeDays':
-			return toDisplayTemp(value, system) - toDisplayTemp(0, system);
-		case 'seedWeight':
-			return toDisplaySeedWeight(value, system);
-		case 'seedsPerWeight':
-			return toDisplaySeedsPerWeight(value, system);
-		case 'pricePerSeedWeight':
-			// Seeds per weight and price per weight scale alike (both are "per gram" stored).
-			return toDisplaySeedsPerWeight(value, system);
-		case 'harvest':
-			return unit ? toDisplayQuantity(value, unit, system) : value;
-		case 'harvestPerLength':
-			return unit ? toDisplayQuantity(value, unit, system) / toDisplayFeet(1, system) : value;
-	}
+	return conversions[measure].to(value, system, unit);
 }
 
 /**
@@ -102,39 +116,7 @@ export function fromFileValue(
 	digits: number,
 	unit?: string | null
 ): number {
-	let v: number;
-	switch (measure) {
-		case 'length':
-			v = fromDisplayFeet(value, system);
-			break;
-		case 'spacing':
-			v = fromDisplayInches(value, system);
-			break;
-		case 'temp':
-			v = fromDisplayTemp(value, system);
-			break;
-		case 'degreeDays':
-			v = fromDisplayTemp(value + toDisplayTemp(0, system), system);
-			break;
-		case 'seedWeight':
-			v = fromDisplaySeedWeight(value, system);
-			break;
-		case 'seedsPerWeight':
-		case 'pricePerSeedWeight':
-			v = fromDisplaySeedsPerWeight(value, system);
-			break;
-		case 'harvest':
-			// The unit cell says the weight: "kg" is kilograms whatever the header's system.
-			v = unit && harvestUnitSystem(unit) ? fromDisplayQuantity(value, 'lb', harvestUnitSystem(unit)!) : value;
-			break;
-		case 'harvestPerLength': {
-			const perLength = fromDisplayFeet(1, system);
-			const weight =
-				unit && harvestUnitSystem(unit) ? fromDisplayQuantity(value, 'lb', harvestUnitSystem(unit)!) : value;
-			v = weight / perLength;
-			break;
-		}
-	}
+	const v = conversions[measure].from(value, system, unit);
 	// In the stored unit already: left exactly as written, for the row's own checks (whole cents...).
 	if (v === value) return value;
 	const f = 10 ** digits;

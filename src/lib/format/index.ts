@@ -268,34 +268,24 @@ export const currencies = ['USD', 'CAD', 'EUR', 'GBP', 'AUD', 'NZD', 'CHF', 'SEK
 
 // ---- Time --------------------------------------------------------------------------------------
 
+const dateTimeParts: Intl.DateTimeFormatOptions = {
+	weekday: 'short',
+	day: 'numeric',
+	month: 'short',
+	year: 'numeric',
+	hour: '2-digit',
+	minute: '2-digit',
+	hour12: false
+};
+
 /** A moment (ISO timestamp or Date) in the farm's time zone: "Thu 3 Dec 2026, 09:14". */
 export function formatDateTime(at: string | Date, timeZone: string): string {
 	const d = typeof at === 'string' ? new Date(at) : at;
 	if (Number.isNaN(d.getTime())) return '–';
 	try {
-		return new Intl.DateTimeFormat('en-GB', {
-			timeZone,
-			weekday: 'short',
-			day: 'numeric',
-			month: 'short',
-			year: 'numeric',
-			hour: '2-digit',
-			minute: '2-digit',
-			hour12: false
-		}).format(d);
+		return new Intl.DateTimeFormat('en-GB', { ...dateTimeParts, timeZone }).format(d);
 	} catch {
-		return (
-			new Intl.DateTimeFormat('en-GB', {
-				timeZone: 'UTC',
-				weekday: 'short',
-				day: 'numeric',
-				month: 'short',
-				year: 'numeric',
-				hour: '2-digit',
-				minute: '2-digit',
-				hour12: false
-			}).format(d) + ' UTC'
-		);
+		return new Intl.DateTimeFormat('en-GB', { ...dateTimeParts, timeZone: 'UTC' }).format(d) + ' UTC';
 	}
 }
 

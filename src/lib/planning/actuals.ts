@@ -21,7 +21,8 @@ import { daysBetween, isoWeek, weekStart } from './iso-week';
 import { type ForecastPlanting, forecast } from './forecast';
 import { PlanningInputError } from './errors';
 
-export interface ActualsPlanting {
+/** A planting with its planned harvest dates and yield, as the forecast also takes it. */
+export interface ActualsPlanting extends ForecastPlanting {
 	key: string;
 	crop: string;
 	variety: string;
@@ -109,19 +110,6 @@ function add(m: Map<string, number>, k: string, q: number): void {
 	m.set(k, (m.get(k) ?? 0) + q);
 }
 
-/** A planting as the forecast takes it: its planned harvest dates and the variety's yield and curve. */
-function asForecast(p: ActualsPlanting): ForecastPlanting {
-	return {
-		crop: p.crop,
-		firstHarvest: p.firstHarvest,
-		lastHarvest: p.lastHarvest,
-		bedFeet: p.bedFeet,
-		yieldPerBedFoot: p.yieldPerBedFoot,
-		curve: p.curve,
-		windowDays: p.windowDays
-	};
-}
-
 export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	const currentMonday = weekStart(input.currentWeek);
 	const byKey = new Map(input.plantings.map((p) => [p.key, p]));
@@ -139,7 +127,7 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 	});
 
 	const plantings: PlantingActual[] = input.plantings.map((p) => {
-		const rows = forecast([asForecast(p)], []);
+		const rows = forecast([p], []);
 		const soFar = rows.filter((r) => weekStart(r.week) < currentMonday).reduce((n, r) => n + r.supply, 0);
 		const logged = loggedByPlanting.get(p.key) ?? 0;
 		const first = p.actualFirstHarvest ?? firstLogged.get(p.key) ?? null;
@@ -159,7 +147,7 @@ export function actualsAgainstPlan(input: ActualsInput): ActualsResult {
 		};
 	});
 
-	const supply = forecast(input.plantings.map(asForecast), []);
+	const supply = forecast(input.plantings, []);
 	const cells = new Map<string, { crop: string; week: string; forecast: number; logged: number }>();
 	for (const r of supply)
 		cells.set(`${r.crop}|${r.week}`, { crop: r.crop, week: r.week, forecast: r.supply, logged: 0 });

@@ -6,6 +6,7 @@ export { PlanningInputError } from './errors';
 export type {
 	CropWeekQuantity,
 	ExplainStep,
+	GrowingFigures,
 	PlanningWarning,
 	SowingMethod,
 	Variety,
@@ -32,7 +33,14 @@ export { seedNeed, spotsPerRow, type SeedNeed, type SeedNeedInput } from './seed
 export { validateVariety } from './variety';
 export type { WeeklyMeanTempF } from './weekly-temps';
 export { type DtmSource, type EffectiveDtm, maturityFrom, shortDayRate } from './effective-dtm';
-export { derivePlanting, type DeriveFarm, type DeriveInput, type DerivedPlanting } from './planting-derive';
+export {
+	derivePlanting,
+	seedInputOf,
+	type DeriveFarm,
+	type DeriveInput,
+	type DerivedPlanting,
+	type SeededPlanting
+} from './planting-derive';
 export {
 	planSuccessions,
 	type Farm,

@@ -82,7 +82,11 @@ function contextOf(farm: DeriveFarm): Context {
 	return c;
 }
 
-export function seedInputOf(p: DeriveInput, v: Variety): SeedNeedInput {
+/** The fields of a planting that size its seed: its own bed-feet, rows and spacing. */
+export type SeededPlanting = Pick<DeriveInput, 'method' | 'lengthFt' | 'rows' | 'inRowSpacingIn' | 'seedsPerSpot'>;
+
+/** Seed-need inputs of a planting: its own bed-feet, rows and spacing, the variety's germination, seed size and prices. */
+export function seedInputOf(p: SeededPlanting, v: Variety): SeedNeedInput {
 	return {
 		method: p.method,
 		bedFeet: p.lengthFt,

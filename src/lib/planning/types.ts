@@ -9,18 +9,11 @@ import type { HarvestCurve } from './harvest-curve';
 
 export type SowingMethod = 'direct' | 'transplant';
 
-export interface Variety {
-	id?: string;
-	name?: string;
-	crop?: string;
-	cropId?: string;
-	/** Botanical family, for rotation (e.g. "Apiaceae"). */
-	family?: string;
+/** A variety's figures for growing and sowing it, as the crop library keeps them and the engine reads them. */
+export interface GrowingFigures {
 	method: SowingMethod;
 	/** Days from the field date (sowing for direct, transplanting for transplants) to first harvest. */
 	daysToMaturity: number;
-	/** Days from tray sowing to transplanting; required for transplants. */
-	daysInTray?: number;
 	harvestWindowDays: number;
 	/** Harvest units per bed-foot over the whole harvest window. */
 	yieldPerBedFoot: number;
@@ -30,6 +23,17 @@ export interface Variety {
 	/** Germination as a fraction in (0, 1]. */
 	germinationRate: number;
 	seedsPerGram: number;
+}
+
+export interface Variety extends GrowingFigures {
+	id?: string;
+	name?: string;
+	crop?: string;
+	cropId?: string;
+	/** Botanical family, for rotation (e.g. "Apiaceae"). */
+	family?: string;
+	/** Days from tray sowing to transplanting; required for transplants. */
+	daysInTray?: number;
 	/** Required for transplants. */
 	cellsPerTray?: number;
 	frostTender: boolean;

@@ -5,6 +5,7 @@ import type { VarietyView } from '$lib/types';
 import { plantingFigureTable, plantingFieldTable, type PlantingFieldSpec } from './table';
 
 export * from './table';
+export { pick } from '$lib/pick';
 
 type Table = typeof plantingFieldTable;
 export type PlantingField = keyof Table;
@@ -119,10 +120,3 @@ export function figuresOf(d: {
 /** The fields the workbook's Plantings sheet holds a column of (all but the variety and bed references). */
 export type FileField = { [K in PlantingField]: Table[K] extends { file: unknown } ? K : never }[PlantingField];
 export const fileFieldNames = plantingFieldNames.filter((f) => fieldSpec(f).file) as FileField[];
-
-/** The values of `names` out of a larger record. */
-export function pick<T extends object, K extends keyof T>(from: T, names: readonly K[]): Pick<T, K> {
-	const out = {} as Pick<T, K>;
-	for (const k of names) out[k] = from[k];
-	return out;
-}

@@ -76,9 +76,10 @@ const id = numberField;
 
 /**
  * A date the crew records of what happened (the actual dates): blank until then, edited with the
- * 'record' permission, cleared for next season, a 130 px grid column.
+ * 'record' permission, cleared for next season, a 130 px grid column, and a file column headed with
+ * its label and, unless the label says so already, "(date)".
  */
-const recordedDate = (column: string, label: string, grid: { id: string; label: string }, file: FileColumn) =>
+const actualDate = (column: string, label: string, [id, gridLabel]: [string, string], fileWidth: number) =>
 	({
 		column,
 		schema: optionalDate(label),
@@ -86,9 +87,24 @@ const recordedDate = (column: string, label: string, grid: { id: string; label: 
 		edit: 'record',
 		nextSeason: 'clear',
 		initial: null,
-		grid: { ...grid, width: 130 },
-		file
+		grid: { id, label: gridLabel, width: 130 },
+		file: { header: / date$/.test(label) ? label : `${label} (date)`, width: fileWidth }
 	}) as const;
+
+/**
+ * A figure a new planting takes from its variety (`fallback` without one): edited in the plan and
+ * kept by next season's copy.
+ */
+const fromVariety = <const T extends Omit<PlantingFieldSpec, 'edit' | 'nextSeason' | 'initial'>>(
+	figure: 'rows' | 'inRowSpacingIn' | 'seedsPerSpot' | 'method',
+	fallback: string | number,
+	spec: T
+) => ({
+	...spec,
+	edit: 'plan' as const,
+	nextSeason: 'keep' as const,
+	initial: (v: VarietyView | undefined) => v?.[figure] ?? fallback
+});
 
 /** Every stored, editable field by its API name, in the grid's and the API's order. */
 export const plantingFieldTable = {
@@ -133,23 +149,17 @@ export const plantingFieldTable = {
 			schema: numberField('Length', 0.5, 10_000)
 		}
 	},
-	rows: {
+	rows: fromVariety('rows', 1, {
 		column: 'rows',
 		schema: numberField('Rows', 1, 50, { int: true }),
 		kind: 'int',
-		edit: 'plan',
-		nextSeason: 'keep',
-		initial: (v) => v?.rows ?? 1,
 		grid: { id: 'rows', label: 'Rows', width: 64, unit: 'rows' },
 		file: { header: 'Rows', width: 7 }
-	},
-	inRowSpacingIn: {
+	}),
+	inRowSpacingIn: fromVariety('inRowSpacingIn', 6, {
 		column: 'in_row_spacing_in',
 		schema: numberField('In-row spacing', 0.1, 240),
 		kind: 'number',
-		edit: 'plan',
-		nextSeason: 'keep',
-		initial: (v) => v?.inRowSpacingIn ?? 6,
 		decimal: true,
 		grid: { id: 'spacing', label: 'Spacing', width: 72, unit: 'in' },
 		file: {
@@ -157,26 +167,20 @@ export const plantingFieldTable = {
 			width: 18,
 			units: { measure: 'spacing', metric: 'In-row spacing (cm)', digits: 2 }
 		}
-	},
-	seedsPerSpot: {
+	}),
+	seedsPerSpot: fromVariety('seedsPerSpot', 1, {
 		column: 'seeds_per_spot',
 		schema: numberField('Seeds per spot', 1, 50, { int: true }),
 		kind: 'int',
-		edit: 'plan',
-		nextSeason: 'keep',
-		initial: (v) => v?.seedsPerSpot ?? 1,
 		grid: { id: 'seedsPerSpot', label: 'Seeds/spot', width: 80, unit: 'seeds' },
 		file: { header: 'Seeds per spot', width: 14, blank: 1 }
-	},
-	method: {
+	}),
+	method: fromVariety('method', 'direct', {
 		column: 'method',
 		schema: z.enum(sowingMethods, { error: 'Method must be direct or transplant.' }),
 		kind: 'enum',
-		edit: 'plan',
-		nextSeason: 'keep',
-		initial: (v) => v?.method ?? 'direct',
 		file: { header: 'Method', width: 11 }
-	},
+	}),
 	fieldDate: {
 		column: 'field_date',
 		schema: z.preprocess((v) => (typeof v === 'string' ? v.trim() : v), isoDate('Field date')),
@@ -194,30 +198,10 @@ export const plantingFieldTable = {
 		initial: 'planned',
 		file: { header: 'Status', width: 12 }
 	},
-	actualTraySowDate: recordedDate(
-		'actual_tray_sow_date',
-		'Actual tray sowing',
-		{ id: 'actualTraySow', label: 'Sown in tray' },
-		{ header: 'Actual tray sowing (date)', width: 22 }
-	),
-	actualFieldDate: recordedDate(
-		'actual_field_date',
-		'Actual field date',
-		{ id: 'actualField', label: 'In field' },
-		{ header: 'Actual field date', width: 16 }
-	),
-	actualFirstHarvest: recordedDate(
-		'actual_first_harvest',
-		'Actual first harvest',
-		{ id: 'actualFirst', label: 'Harvest began' },
-		{ header: 'Actual first harvest (date)', width: 24 }
-	),
-	actualLastHarvest: recordedDate(
-		'actual_last_harvest',
-		'Actual last harvest',
-		{ id: 'actualLast', label: 'Harvest ended' },
-		{ header: 'Actual last harvest (date)', width: 24 }
-	),
+	actualTraySowDate: actualDate('actual_tray_sow_date', 'Actual tray sowing', ['actualTraySow', 'Sown in tray'], 22),
+	actualFieldDate: actualDate('actual_field_date', 'Actual field date', ['actualField', 'In field'], 16),
+	actualFirstHarvest: actualDate('actual_first_harvest', 'Actual first harvest', ['actualFirst', 'Harvest began'], 24),
+	actualLastHarvest: actualDate('actual_last_harvest', 'Actual last harvest', ['actualLast', 'Harvest ended'], 24),
 	notes: {
 		column: 'notes',
 		schema: notes,

@@ -27,6 +27,7 @@ import type { PlantingView } from '$lib/types';
 import { seasonDateProblem, type FieldErrors as DateErrors } from '$lib/schemas/common';
 import { todayIn } from '$lib/today';
 import { plantingsWithCrop } from './planting-query';
+import { pick } from '$lib/pick';
 
 export type { PlantingView };
 
@@ -165,13 +166,7 @@ export async function gridContext(farmId: number): Promise<GridContext> {
 	]);
 	return {
 		varieties,
-		beds: beds.map((b) => ({
-			id: b.id,
-			name: b.name,
-			blockId: b.blockId,
-			blockName: b.blockName,
-			lengthFt: b.lengthFt
-		})),
+		beds: beds.map((b) => pick(b, ['id', 'name', 'blockId', 'blockName', 'lengthFt'])),
 		farm: {
 			...engineFarm(farm, temps),
 			turnaroundDays: farm.turnaroundDays,

@@ -64,6 +64,11 @@ const singular: Record<string, string> = { rows: 'row', seeds: 'seed', cells: 'c
 const counted = (x: number, unit: string): string => `${n(x)} ${x === 1 ? (singular[unit] ?? unit) : unit}`;
 const wd = (d: string | null | undefined): string => (d ? formatWeekDate(d) : '');
 export const bedLabel = (b: GridBed): string => `${b.blockName} · ${b.name}`;
+/** The row's bed as "Block · bed"; undefined when not placed or the bed is gone. */
+function bedName(r: GridRow, l: Lookups): string | undefined {
+	const b = r.values.bedId === null ? undefined : l.bedById.get(r.values.bedId);
+	return b && bedLabel(b);
+}
 
 function unitOf(row: GridRow, l: Lookups): string {
 	return l.varietyById.get(row.values.varietyId)?.harvestUnit ?? '';
@@ -91,39 +96,47 @@ const harvestFigure = (x: number, r: GridRow, l: Lookups): string => {
 	return counted(hundredths(toDisplayQuantity(x, unitOf(r, l), u)), unitLabel(unitOf(r, l), u, 1));
 };
 
+/** A column naming the row's variety or its crop; choosing in it sets the row's variety. */
+function varietyColumn(
+	id: string,
+	label: string,
+	width: number,
+	name: (v: GridVariety) => string,
+	options: GridColumn['options']
+): GridColumn {
+	const get = (r: GridRow, l: Lookups): string | undefined => {
+		const v = l.varietyById.get(r.values.varietyId);
+		return v ? name(v) : undefined;
+	};
+	return {
+		id,
+		label,
+		field: 'varietyId',
+		kind: 'select',
+		width,
+		show: (r, l) => get(r, l) ?? '?',
+		sortValue: (r, l) => get(r, l) ?? '',
+		text: (r, l) => get(r, l) ?? '',
+		options
+	};
+}
+
+// Choosing a crop picks its first variety; the variety column then narrows to that crop.
+const cropChoices: GridColumn['options'] = (_r, l) => {
+	const seen = new Map<string, number>();
+	for (const v of l.varieties) if (!seen.has(v.crop)) seen.set(v.crop, v.id);
+	return [...seen].map(([label, id]) => ({ label, value: String(id) }));
+};
+const varietyChoices: GridColumn['options'] = (r, l) => {
+	const crop = l.varietyById.get(r.values.varietyId)?.crop;
+	return l.varieties.filter((v) => v.crop === crop).map((v) => ({ label: v.name, value: String(v.id) }));
+};
+
 /** Fields the grid draws with a column of its own (names to ids, lists); the rest come from the field table. */
 const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
 	varietyId: [
-		{
-			id: 'crop',
-			label: 'Crop',
-			field: 'varietyId',
-			kind: 'select',
-			width: 120,
-			show: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '?',
-			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
-			text: (r, l) => l.varietyById.get(r.values.varietyId)?.crop ?? '',
-			// Choosing a crop picks its first variety; the variety column then narrows to that crop.
-			options: (_r, l) => {
-				const seen = new Map<string, number>();
-				for (const v of l.varieties) if (!seen.has(v.crop)) seen.set(v.crop, v.id);
-				return [...seen].map(([label, id]) => ({ label, value: String(id) }));
-			}
-		},
-		{
-			id: 'variety',
-			label: 'Variety',
-			field: 'varietyId',
-			kind: 'select',
-			width: 140,
-			show: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '?',
-			sortValue: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
-			text: (r, l) => l.varietyById.get(r.values.varietyId)?.name ?? '',
-			options: (r, l) => {
-				const crop = l.varietyById.get(r.values.varietyId)?.crop;
-				return l.varieties.filter((v) => v.crop === crop).map((v) => ({ label: v.name, value: String(v.id) }));
-			}
-		}
+		varietyColumn('crop', 'Crop', 120, (v) => v.crop, cropChoices),
+		varietyColumn('variety', 'Variety', 140, (v) => v.name, varietyChoices)
 	],
 	bedId: [
 		{
@@ -132,16 +145,9 @@ const ownColumns: Partial<Record<PlantingField, GridColumn[]>> = {
 			field: 'bedId',
 			kind: 'select',
 			width: 130,
-			show: (r, l) =>
-				r.values.bedId === null
-					? 'not placed'
-					: l.bedById.get(r.values.bedId)
-						? bedLabel(l.bedById.get(r.values.bedId)!)
-						: '?',
-			sortValue: (r, l) =>
-				r.values.bedId === null ? '~' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '',
-			text: (r, l) =>
-				r.values.bedId === null ? '' : l.bedById.get(r.values.bedId) ? bedLabel(l.bedById.get(r.values.bedId)!) : '',
+			show: (r, l) => (r.values.bedId === null ? 'not placed' : (bedName(r, l) ?? '?')),
+			sortValue: (r, l) => (r.values.bedId === null ? '~' : (bedName(r, l) ?? '')),
+			text: (r, l) => bedName(r, l) ?? '',
 			options: (_r, l) => [
 				{ label: 'not placed', value: '' },
 				...l.beds.map((b) => ({ label: bedLabel(b), value: String(b.id) }))

@@ -63,14 +63,6 @@ export function explainInFarmUnits(
 			}
 			// The yields carry the crop's harvest unit in either system (the engine's steps leave it out).
 			case 'expected yield':
-				if (value === undefined) return s;
-				if (!metric) return { ...s, unit: yieldUnit };
-				return {
-					...s,
-					value: crop(value),
-					unit: yieldUnit,
-					formula: `${formatFeet(row.lengthFt, units)} × ${n(toDisplayPerFoot(v.yieldPerBedFoot, v.harvestUnit, units))} per bed-metre over the window`
-				};
 			case 'weekly yield':
 				if (value === undefined) return s;
 				if (!metric) return { ...s, unit: yieldUnit };
@@ -78,7 +70,10 @@ export function explainInFarmUnits(
 					...s,
 					value: crop(value),
 					unit: yieldUnit,
-					formula: `${crop(num('expected yield') ?? 0)} ÷ (${v.harvestWindowDays} days ÷ 7)`
+					formula:
+						s.label === 'expected yield'
+							? `${formatFeet(row.lengthFt, units)} × ${n(toDisplayPerFoot(v.yieldPerBedFoot, v.harvestUnit, units))} per bed-metre over the window`
+							: `${crop(num('expected yield') ?? 0)} ÷ (${v.harvestWindowDays} days ÷ 7)`
 				};
 			default:
 				return s;

@@ -82,22 +82,22 @@ function readCsv(text: string): { rows: RawRow[]; errors: UploadError[] } {
 	return { rows: out.data.map((cells, i) => ({ row: i + 1, cells: cells.map(cell) })), errors };
 }
 
+type Refused = { errors: UploadError[]; status: 400 | 413 };
+
+/** The whole file refused, with the one reason (row 0: not a row of it). */
+const fileRefused = (status: 400 | 413, message: string, row = 0): Refused => ({
+	status,
+	errors: [{ row, column: 'file', message }]
+});
+
 /** Reads the file into rows of text; the header row is checked against the layout. */
-async function readRows(
-	file: File
-): Promise<{ rows: RawRow[]; header: Map<string, number> } | { errors: UploadError[]; status: 400 | 413 }> {
-	if (file.size === 0) return { status: 400, errors: [{ row: 0, column: 'file', message: 'The file is empty.' }] };
+async function readRows(file: File): Promise<{ rows: RawRow[]; header: Map<string, number> } | Refused> {
+	if (file.size === 0) return fileRefused(400, 'The file is empty.');
 	if (file.size > MAX_UPLOAD_BYTES)
-		return {
-			status: 413,
-			errors: [
-				{
-					row: 0,
-					column: 'file',
-					message: `The file is ${Math.ceil(file.size / 1024)} KB; at most ${MAX_UPLOAD_BYTES / 1024} KB may be uploaded.`
-				}
-			]
-		};
+		return fileRefused(
+			413,
+			`The file is ${Math.ceil(file.size / 1024)} KB; at most ${MAX_UPLOAD_BYTES / 1024} KB may be uploaded.`
+		);
 	const bytes = await file.arrayBuffer();
 	const head = new Uint8Array(bytes.slice(0, 4));
 	// An .xlsx is a zip archive: it starts with "PK\x03\x04", whatever its name says.
@@ -110,19 +110,10 @@ async function readRows(
 		} catch (err) {
 			if (!(err instanceof XlsxRefused)) throw err;
 			// A zip that is not a workbook (no sheet at all) says so, not "no rows".
-			return { status: err.status, errors: [{ row: err.row ?? 0, column: 'file', message: err.message }] };
+			return fileRefused(err.status, err.message, err.row ?? 0);
 		}
 	} else if (name.endsWith('.xlsx') || name.endsWith('.xls')) {
-		return {
-			status: 400,
-			errors: [
-				{
-					row: 0,
-					column: 'file',
-					message: 'The file is not an .xlsx workbook (old .xls files are not read: save as .xlsx or CSV).'
-				}
-			]
-		};
+		return fileRefused(400, 'The file is not an .xlsx workbook (old .xls files are not read: save as .xlsx or CSV).');
 	} else {
 		const csv = readCsv(new TextDecoder('utf-8').decode(bytes));
 		if (csv.errors.length) return { status: 400, errors: csv.errors };
@@ -130,18 +121,9 @@ async function readRows(
 	}
 	rows = rows.filter((r) => r.cells.some((c) => c !== ''));
 	const [first, ...data] = rows;
-	if (!first) return { status: 400, errors: [{ row: 1, column: 'file', message: 'The file has no rows.' }] };
+	if (!first) return fileRefused(400, 'The file has no rows.', 1);
 	if (data.length > MAX_UPLOAD_ROWS)
-		return {
-			status: 413,
-			errors: [
-				{
-					row: 0,
-					column: 'file',
-					message: `The file has ${data.length} rows; at most ${MAX_UPLOAD_ROWS} may be uploaded at once.`
-				}
-			]
-		};
+		return fileRefused(413, `The file has ${data.length} rows; at most ${MAX_UPLOAD_ROWS} may be uploaded at once.`);
 	const header = new Map<string, number>();
 	const errors: UploadError[] = [];
 	first.cells.forEach((c, i) => {

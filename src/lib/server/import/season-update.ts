@@ -6,6 +6,7 @@ import { randomBytes } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { ImportIssue } from '$lib/schemas/import';
 import type { VarietyView } from '$lib/types';
+import { growingFigures } from '$lib/engine-inputs';
 import { db } from '../db';
 import { listVarieties } from '../crops';
 import { gridContext } from '../plantings';
@@ -114,16 +115,8 @@ function mergedVarieties(farm: VarietyView[], plan: ImportPlan): Map<string, Var
 			sowFrom: c && c.sowFrom !== undefined ? c.sowFrom : (before?.sowFrom ?? null),
 			sowTo: c && c.sowTo !== undefined ? c.sowTo : (before?.sowTo ?? null),
 			name: v.variety,
-			method: v.method,
-			daysToMaturity: v.daysToMaturity,
+			...growingFigures(v),
 			daysInTray: v.daysInTray,
-			harvestWindowDays: v.harvestWindowDays,
-			yieldPerBedFoot: v.yieldPerBedFoot,
-			rows: v.rows,
-			inRowSpacingIn: v.inRowSpacingIn,
-			seedsPerSpot: v.seedsPerSpot,
-			germinationRate: v.germinationRate,
-			seedsPerGram: v.seedsPerGram,
 			seedPriceCentsPerGram: v.seedPrice,
 			seedsPerPacket: v.seedsPerPacket,
 			cellsPerTray: v.cellsPerTray,
