@@ -1,6 +1,7 @@
 // The planting grid in headless Chromium: keyboard edits recalculate derived cells, a pasted
 // 3×4 block, fill down, undo/redo, a stale edit from a second browser meets the conflict
-// message without losing data, and a crew lead cannot edit crop or bed-feet.
+// message without losing data, a crew lead cannot edit crop or bed-feet, and a user's column
+// preferences load with the grid without being fetched again after each save.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launch, pasteIntoGrid, signIn, type BrowserSession, type Page } from '../helpers/browser';
 import { demo } from '../helpers/env';
@@ -10,11 +11,15 @@ import { signedIn } from '../helpers/http';
 let browser: BrowserSession;
 let seasonId: number;
 let ids: number[] = [];
+let crewId: string;
+let crewPrefsBefore: { prefs: string } | undefined;
 
 beforeAll(async () => {
 	browser = await launch({ viewport: { width: 1600, height: 900 } });
 	const u = await testDb()('users').where({ email: demo.owner }).first('id');
 	const farmId = (await testDb()('farm_members').where({ user_id: u.id }).first('farm_id')).farm_id;
+	crewId = (await testDb()('users').where({ email: demo.crew }).first('id')).id;
+	crewPrefsBefore = await testDb()('user_grid_prefs').where({ user_id: crewId, grid: 'plantings' }).first('prefs');
 	// A season of its own, so these edits never touch the demo season other tests read.
 	[seasonId] = await testDb()('seasons').insert({
 		farm_id: farmId,
@@ -43,6 +48,9 @@ beforeAll(async () => {
 afterAll(async () => {
 	await testDb()('plantings').where({ season_id: seasonId }).delete();
 	await testDb()('seasons').where({ id: seasonId }).delete();
+	const crewPrefs = testDb()('user_grid_prefs').where({ user_id: crewId, grid: 'plantings' });
+	if (crewPrefsBefore) await crewPrefs.update({ prefs: crewPrefsBefore.prefs });
+	else await crewPrefs.delete();
 	await closeTestDb();
 	await browser.close();
 });
@@ -209,6 +217,39 @@ describe('roles', () => {
 		await expect(cell(page, 0, 'status').innerText()).resolves.toBe('sown');
 		await saved(page);
 		expect((await testDb()('plantings').where({ id: ids[0] }).first('status')).status).toBe('sown');
+		await page.close();
+		await browser.context.clearCookies();
+	});
+});
+
+describe('column preferences', () => {
+	it('hide a column and size another on load; a save reloads the plantings without reading them again', async () => {
+		const crew = await signedIn(demo.crew, demo.password);
+		const put = await crew.json('/api/me/prefs/grid', 'PUT', { widths: { notes: 320 }, hidden: ['trays'] });
+		expect(put.status).toBe(204);
+		const page = await browser.context.newPage();
+		await openGrid(page, demo.crew);
+		const width = (col: string): Promise<number> => cell(page, 1, col).evaluate((e) => e.getBoundingClientRect().width);
+		// The hidden column is not drawn; the sized one is as wide as the preference says.
+		await expect(cell(page, 1, 'trays').count()).resolves.toBe(0);
+		await expect(cell(page, 1, 'seeds').count()).resolves.toBe(1);
+		await expect(width('notes')).resolves.toBe(320);
+
+		const asked: string[] = [];
+		page.on('request', (r) => asked.push(new URL(r.url()).pathname));
+		const loads = async (): Promise<number> =>
+			Number(await page.getByTestId('plantings-page').getAttribute('data-loads'));
+		const before = await loads();
+		await cell(page, 1, 'notes').click();
+		await page.keyboard.type('prefs stay');
+		await page.keyboard.press('Enter');
+		await saved(page);
+		await expect.poll(loads, { timeout: 10_000 }).toBeGreaterThan(before);
+		expect(asked).toContain(`/api/seasons/${seasonId}/plantings`);
+		expect(asked.filter((p) => p === '/api/me/prefs/grid' || p.endsWith('__data.json'))).toEqual([]);
+		// The preferences still hold over the reload.
+		await expect(cell(page, 1, 'trays').count()).resolves.toBe(0);
+		await expect(width('notes')).resolves.toBe(320);
 		await page.close();
 		await browser.context.clearCookies();
 	});
