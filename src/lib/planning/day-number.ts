@@ -30,16 +30,9 @@ export function civilFromDays(z: DayNumber): { year: number; month: number; day:
 	return { year: yoe + era * 400 + (month <= 2 ? 1 : 0), month, day };
 }
 
-/** The year of a day number: civilFromDays(z).year, without making the object (planning asks per succession). */
+/** The year of a day number. */
 export function yearOfDay(z: DayNumber): number {
-	const zz = z + 719468;
-	const era = Math.floor(zz / 146097);
-	const doe = zz - era * 146097;
-	const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
-	const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
-	const mp = Math.floor((5 * doy + 2) / 153);
-	// January and February (mp 10 and 11) belong to the next civil year.
-	return yoe + era * 400 + (mp >= 10 ? 1 : 0);
+	return civilFromDays(z).year;
 }
 
 function pad(n: number, width: number): string {

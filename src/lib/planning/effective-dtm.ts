@@ -159,6 +159,77 @@ function gddWarning(kind: 'missing' | 'limit' | 'cold', v: Variety, acc: number,
 	};
 }
 
+type ClockEnd = 'met' | 'cold' | 'calendar';
+
+/**
+ * The degree-day clock from `start` a day at a time in the walk's direction: backwards (-1, the
+ * days before a first harvest) or forwards (1, the days from a field date). Within an ISO week every
+ * day adds the same max(0, mean − base), so the walk goes a week at a time and the day that meets
+ * the requirement is found by division, not by stepping. 'met' fills in the days and the degree
+ * days; 'cold' is a frost-tender crop stopped by a cold spell first (source gdd_cold); 'calendar'
+ * is a week without temperatures or the walk's limit reached (warned either way).
+ */
+function degreeDayClock(
+	out: EffectiveDtm,
+	variety: Variety,
+	start: DayNumber,
+	dir: 1 | -1,
+	ctx: DtmContext,
+	warnings: PlanningWarning[]
+): ClockEnd {
+	const required = variety.gddToMaturity!;
+	const baseF = variety.baseTempF!;
+	let acc = 0;
+	let walked = 0;
+	let cold = 0;
+	let day = start;
+	for (;;) {
+		if (walked >= ctx.gddWalkLimitDays) {
+			warnings.push(gddWarning('limit', variety, acc, ctx));
+			return 'calendar';
+		}
+		// The rest of the day's week in the walk's direction: back to its Monday, or on to its Sunday.
+		const weekDays = dir < 0 ? weekdayOf(day) : 8 - weekdayOf(day);
+		const chunk = Math.min(weekDays, ctx.gddWalkLimitDays - walked);
+		const mean = ctx.temps!(day);
+		if (mean === undefined) {
+			warnings.push(gddWarning('missing', variety, acc, ctx, day));
+			return 'calendar';
+		}
+		const perDay = meanDegreeDays(mean, baseF);
+		if (perDay > 0 && acc + perDay * chunk >= required - EPS) {
+			// The fewest days of this chunk that meet the requirement.
+			const k = Math.max(1, Math.ceil((required - acc) / perDay - EPS));
+			acc += perDay * k;
+			out.days = walked + k;
+			out.source = 'gdd';
+			out.gdd = { required, accumulated: acc, baseF, days: out.days };
+			return 'met';
+		}
+		acc += perDay * chunk;
+		walked += chunk;
+		day += dir * weekDays;
+		cold = perDay > 0 ? 0 : cold + chunk;
+		if (variety.frostTender && cold >= COLD_SPELL_DAYS) {
+			out.source = 'gdd_cold';
+			warnings.push(gddWarning('cold', variety, acc, ctx));
+			return 'cold';
+		}
+	}
+}
+
+/** The calendar clock from `start` in the walk's direction: the days whose day-length-weighted growth reaches the figure. */
+function calendarDays(variety: Variety, start: DayNumber, dir: 1 | -1, ctx: DtmContext): number {
+	const need = variety.daysToMaturity;
+	let acc = 0;
+	let days = 0;
+	while (acc < need - EPS) {
+		acc += rateOn(start + dir * days, ctx);
+		days++;
+	}
+	return days;
+}
+
 /**
  * effectiveDaysToMaturity written into `out` (a record from blankDtm, possibly filled
  * before): season planning reuses one record per variety instead of making one per
@@ -172,58 +243,11 @@ export function effectiveDaysInto(
 ): EffectiveDtm {
 	const warnings = reset(out, variety, ctx);
 	out.dayLengthHours = dayLengthAt(ctx.latitude, dayOfYearOfDay(firstHarvest));
-	if (usesGdd(variety, ctx)) {
-		const required = variety.gddToMaturity!;
-		const baseF = variety.baseTempF!;
-		let acc = 0;
-		let walked = 0;
-		let cold = 0;
-		// Walk back a week at a time: within a week every day adds the same max(0, mean − base),
-		// so the day that meets the requirement is found by division, not by stepping.
-		let day = firstHarvest - 1;
-		for (;;) {
-			if (walked >= ctx.gddWalkLimitDays) {
-				warnings.push(gddWarning('limit', variety, acc, ctx));
-				break;
-			}
-			const monday = day - weekdayOf(day) + 1;
-			const chunk = Math.min(day - monday + 1, ctx.gddWalkLimitDays - walked);
-			const mean = ctx.temps!(day);
-			if (mean === undefined) {
-				warnings.push(gddWarning('missing', variety, acc, ctx, day));
-				break;
-			}
-			const perDay = meanDegreeDays(mean, baseF);
-			if (perDay > 0 && acc + perDay * chunk >= required - EPS) {
-				// The fewest days from the end of this chunk that meet the requirement.
-				const k = Math.max(1, Math.ceil((required - acc) / perDay - EPS));
-				const days = walked + k;
-				acc += perDay * k;
-				out.days = days;
-				out.source = 'gdd';
-				out.gdd = { required, accumulated: acc, baseF, days };
-				return out;
-			}
-			acc += perDay * chunk;
-			walked += chunk;
-			day = monday - 1;
-			cold = perDay > 0 ? 0 : cold + chunk;
-			if (variety.frostTender && cold >= COLD_SPELL_DAYS) {
-				out.source = 'gdd_cold';
-				warnings.push(gddWarning('cold', variety, acc, ctx));
-				return out;
-			}
-		}
-	}
+	// Walking back from the day before the first harvest; a crop stopped by the cold keeps its figure.
+	if (usesGdd(variety, ctx) && degreeDayClock(out, variety, firstHarvest - 1, -1, ctx, warnings) !== 'calendar')
+		return out;
 	// Calendar clock, backwards: the latest field day whose day-length-weighted days reach the figure.
-	const need = variety.daysToMaturity;
-	let acc = 0;
-	let days = 0;
-	while (acc < need - EPS) {
-		days++;
-		acc += rateOn(firstHarvest - days, ctx);
-	}
-	setCalendar(out, days, variety);
+	setCalendar(out, calendarDays(variety, firstHarvest - 1, -1, ctx), variety);
 	return out;
 }
 
@@ -244,59 +268,11 @@ function setCalendar(out: EffectiveDtm, days: number, variety: Variety): void {
 export function maturityFrom(variety: Variety, fieldDay: DayNumber, ctx: DtmContext): EffectiveDtm {
 	const out = blankDtm();
 	const warnings = reset(out, variety, ctx);
-	let done = false;
-	if (usesGdd(variety, ctx)) {
-		const required = variety.gddToMaturity!;
-		const baseF = variety.baseTempF!;
-		let acc = 0;
-		let walked = 0;
-		let cold = 0;
-		let day = fieldDay;
-		for (;;) {
-			if (walked >= ctx.gddWalkLimitDays) {
-				warnings.push(gddWarning('limit', variety, acc, ctx));
-				break;
-			}
-			const sunday = day + (7 - weekdayOf(day));
-			const chunk = Math.min(sunday - day + 1, ctx.gddWalkLimitDays - walked);
-			const mean = ctx.temps!(day);
-			if (mean === undefined) {
-				warnings.push(gddWarning('missing', variety, acc, ctx, day));
-				break;
-			}
-			const perDay = meanDegreeDays(mean, baseF);
-			if (perDay > 0 && acc + perDay * chunk >= required - EPS) {
-				const k = Math.max(1, Math.ceil((required - acc) / perDay - EPS));
-				acc += perDay * k;
-				out.days = walked + k;
-				out.source = 'gdd';
-				out.gdd = { required, accumulated: acc, baseF, days: out.days };
-				done = true;
-				break;
-			}
-			acc += perDay * chunk;
-			walked += chunk;
-			day = sunday + 1;
-			cold = perDay > 0 ? 0 : cold + chunk;
-			if (variety.frostTender && cold >= COLD_SPELL_DAYS) {
-				warnings.push(gddWarning('cold', variety, acc, ctx));
-				out.source = 'gdd_cold';
-				break;
-			}
-		}
-	}
-	if (!done) {
-		const need = variety.daysToMaturity;
-		let acc = 0;
-		let days = 0;
-		while (acc < need - EPS) {
-			acc += rateOn(fieldDay + days, ctx);
-			days++;
-		}
-		const source = out.source;
-		setCalendar(out, days, variety);
+	const clock = usesGdd(variety, ctx) ? degreeDayClock(out, variety, fieldDay, 1, ctx, warnings) : 'calendar';
+	if (clock !== 'met') {
+		setCalendar(out, calendarDays(variety, fieldDay, 1, ctx), variety);
 		// A tender crop caught by winter keeps saying so, whatever the calendar figure is.
-		if (source === 'gdd_cold') out.source = 'gdd_cold';
+		if (clock === 'cold') out.source = 'gdd_cold';
 	}
 	out.dayLengthHours = dayLengthAt(ctx.latitude, dayOfYearOfDay(fieldDay + out.days));
 	return out;

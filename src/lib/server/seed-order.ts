@@ -9,7 +9,7 @@ import type { VarietyView } from './crops';
 import { loadSeasonData } from './export/season-data';
 import type { Season } from './seasons';
 import type { UnitSystem } from '$lib/format';
-import { headerIn, seedOrderSheet } from './export/layout';
+import { cellsOf, headerIn, seedOrderSheet, type RowOf } from './export/layout';
 import { rowsIn } from './export/units';
 
 export interface SeedOrderLine {
@@ -122,23 +122,9 @@ export async function seasonSeedOrder(
 	return { lines, totals: seedOrderTotals(lines) };
 }
 
-/** One line's cells in the Seed order sheet's column order (layout.ts), money in whole units. */
-export function seedOrderCells(l: SeedOrderLine): (string | number | null)[] {
-	return [
-		l.crop,
-		l.variety,
-		l.method,
-		l.plantings,
-		l.bedFeet,
-		l.seeds,
-		l.grams,
-		l.seedsPerPacket,
-		l.packets,
-		l.priceCentsPerGram / 100,
-		l.costCents / 100,
-		l.cells,
-		l.trays
-	];
+/** One line as the Seed order sheet's row (layout.ts), keyed by column: money in whole units. */
+export function seedOrderRow(l: SeedOrderLine): RowOf<typeof seedOrderSheet> {
+	return { ...l, pricePerGram: l.priceCentsPerGram / 100, cost: l.costCents / 100 };
 }
 
 /**
@@ -151,7 +137,11 @@ export function seedOrderCsv(lines: SeedOrderLine[], currency: string, system: U
 		c.key === 'seeds' ? 'Seeds' : headerIn(c, system, 'USD').replace('($', `(${currency}`)
 	);
 	const keys = seedOrderSheet.columns.map((c) => c.key);
-	const rows = rowsIn(seedOrderSheet, lines.map(seedOrderCells), system);
+	const rows = rowsIn(
+		seedOrderSheet,
+		lines.map((l) => cellsOf(seedOrderSheet, seedOrderRow(l))),
+		system
+	);
 	// Money with two decimals, as the currency writes it; an empty cell where a figure does not apply.
 	const data = rows.map((r) =>
 		r.map((v, i) => {

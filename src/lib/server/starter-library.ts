@@ -25,6 +25,10 @@ const NEVMG = "New England Vegetable Management Guide, Table 15 (after Knott's H
 const GDD_BASE = 'base temp: Oklahoma State Univ. GDD notes (40 °F cool-season, 50 °F warm-season)';
 const PRACTICE = 'rows, spacing, window, germination: common practice (no published source)';
 const MEMORY = 'figures common practice (no published source), from memory: check before relying on them';
+const AGRILIFE = 'Texas A&M AgriLife, Cilantro in the Garden';
+const LIMIT = 'limit: common practice, no published source';
+const HEAT_LIMIT = `${GDD_BASE}; heat limit: common practice (no published source)`;
+const FROM_MEMORY = `${GDD_BASE}; the rest ${MEMORY}`;
 
 export interface StarterVariety extends Omit<
 	VarietyInput,
@@ -46,12 +50,68 @@ export interface StarterCrop extends Omit<
 	varieties: StarterVariety[];
 }
 
-type V = Omit<StarterVariety, 'cellsPerTray' | 'margin' | 'seedsPerSpot' | 'daysInTray'> &
-	Partial<Pick<StarterVariety, 'cellsPerTray' | 'margin' | 'seedsPerSpot' | 'daysInTray'>>;
-const v = (x: V): StarterVariety => ({ daysInTray: 0, seedsPerSpot: 1, cellsPerTray: 128, margin: 0.1, ...x });
+/** A variety's figures in one row, in this order (the varieties below are written as such rows). */
+type Figures = [
+	method: StarterVariety['method'],
+	daysToMaturity: number,
+	/** 0 for a direct-sown variety. */
+	daysInTray: number,
+	harvestWindowDays: number,
+	/** Harvest units per bed-foot over the whole window. */
+	yieldPerBedFoot: number,
+	rows: number,
+	inRowSpacingIn: number,
+	/** A fraction. */
+	germinationRate: number,
+	seedsPerGram: number
+];
+type Extras = Partial<Pick<StarterVariety, 'seedsPerSpot' | 'cellsPerTray' | 'margin' | 'source'>>;
+
+/**
+ * A variety from its row of figures. Unless `extras` says otherwise: one seed per spot, trays of
+ * 128 cells, a 10 % margin, and figures common practice from memory (MEMORY) for its source.
+ */
+const variety = (name: string, figures: Figures, { source = MEMORY, ...extras }: Extras = {}): StarterVariety => {
+	const [method, daysToMaturity, daysInTray, harvestWindowDays, yieldPerBedFoot, rows, inRowSpacingIn, ...seed] =
+		figures;
+	const [germinationRate, seedsPerGram] = seed;
+	return {
+		name,
+		method,
+		daysToMaturity,
+		daysInTray,
+		harvestWindowDays,
+		yieldPerBedFoot,
+		rows,
+		inRowSpacingIn,
+		seedsPerSpot: 1,
+		germinationRate,
+		seedsPerGram,
+		cellsPerTray: 128,
+		margin: 0.1,
+		...extras,
+		source
+	};
+};
 
 const cool = { frostTolerance: 'hardy', baseTempF: 40 } as const;
 const warm = { frostTolerance: 'tender', baseTempF: 50 } as const;
+
+/**
+ * A crop: its key, name, botanical family and harvest unit; cool- or warm-season (frost tolerance and
+ * base temperature); the mean weekly °F above which it bolts or spoils (null: none); where those
+ * figures come from; and its varieties.
+ */
+const crop = (
+	key: string,
+	name: string,
+	family: string,
+	harvestUnit: CropInput['harvestUnit'],
+	kind: typeof cool | typeof warm,
+	heatLimitF: number | null,
+	source: string,
+	varieties: StarterVariety[]
+): StarterCrop => ({ key, name, family, harvestUnit, ...kind, heatLimitF, source, varieties });
 
 // Harvest curves, common practice (no published source): bush beans pick over 2–3 weeks, peaking in
 // the second; cucumbers and summer squash rise over their first weeks; head crops are one cut.
@@ -68,333 +128,87 @@ const CURVES: Record<string, CropInput['harvestCurve']> = {
 	kohlrabi: 'single'
 };
 
+// Each crop: crop(key, name, family, harvest unit, cool or warm, heat limit °F, source, varieties); each
+// variety: variety(name, [method, days to maturity, days in tray, harvest window days, yield per bed-foot,
+// rows, in-row spacing in, germination, seeds per gram], what differs from the defaults and its source).
 const listed: StarterCrop[] = [
-	{
-		key: 'carrot',
-		name: 'Carrot',
-		family: 'Apiaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Carrot, standard',
-				method: 'direct',
-				daysToMaturity: 70,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: perAcre(26_000),
-				rows: 4,
-				inRowSpacingIn: 1,
-				germinationRate: 0.65,
-				seedsPerGram: perGram(22_000),
-				source: `22,000 seeds/oz (18,000–25,000), 65–75 days: ${HANDBOOKS}; yield 26,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
-			}),
-			v({
-				name: 'Carrot, storage',
-				method: 'direct',
-				daysToMaturity: 75,
-				harvestWindowDays: 28,
-				yieldPerBedFoot: perAcre(26_000),
-				rows: 4,
-				inRowSpacingIn: 1,
-				germinationRate: 0.65,
-				seedsPerGram: perGram(22_000),
-				source: `22,000 seeds/oz, 75 days (top of 65–75): ${HANDBOOKS}; yield 26,000 lb/acre: ${NEVMG}; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'beet',
-		name: 'Beet',
-		family: 'Amaranthaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Beet, direct-sown',
-				method: 'direct',
-				daysToMaturity: 60,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: perAcre(24_000),
-				rows: 4,
-				inRowSpacingIn: 3,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(1_800),
-				source: `1,800 seeds/oz (1,500–2,200), 52–70 days: ${HANDBOOKS}; yield 24,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
-			}),
-			v({
-				name: 'Beet, multi-sown transplant',
-				method: 'transplant',
-				daysToMaturity: 50,
-				daysInTray: 28,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: perAcre(24_000),
-				rows: 4,
-				inRowSpacingIn: 6,
-				seedsPerSpot: 3,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(1_800),
-				cellsPerTray: 128,
-				source: `1,800 seeds/oz: ${HANDBOOKS}; yield 24,000 lb/acre: ${NEVMG}; 3 seeds per cell, 50 days from transplant: common practice (no published source)`
-			})
-		]
-	},
-	{
-		key: 'radish',
-		name: 'Radish',
-		family: 'Brassicaceae',
-		harvestUnit: 'bunch',
-		...cool,
-		heatLimitF: 75,
-		source: `${GDD_BASE}; heat limit: common practice (no published source)`,
-		varieties: [
-			v({
-				name: 'Radish, round red',
-				method: 'direct',
-				daysToMaturity: 25,
-				harvestWindowDays: 7,
-				yieldPerBedFoot: perRow(100, 4),
-				rows: 4,
-				inRowSpacingIn: 1,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(2_500),
-				source: `2,500 seeds/oz, 22–28 days, 100 bunches per 100 ft of row: ${HANDBOOKS}; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'lettuce',
-		name: 'Lettuce, head',
-		family: 'Asteraceae',
-		harvestUnit: 'head',
-		...cool,
-		heatLimitF: 80,
-		source: `${GDD_BASE}; heat limit: common practice (no published source)`,
-		varieties: [
-			v({
-				name: 'Lettuce, head, standard',
-				method: 'transplant',
-				daysToMaturity: 45,
-				daysInTray: 28,
-				harvestWindowDays: 7,
-				yieldPerBedFoot: 2.7,
-				rows: 3,
-				inRowSpacingIn: 12,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(25_000),
-				cellsPerTray: 128,
-				source: `25,000 seeds/oz, 45–70 days from seeding: ${HANDBOOKS}; 45 days from transplant and 2.7 heads per bed-ft (3 rows at 12 in, 9 in 10 cut): common practice (no published source)`
-			})
-		]
-	},
-	{
-		key: 'spinach',
-		name: 'Spinach',
-		family: 'Amaranthaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: 75,
-		source: `${GDD_BASE}; bolts in hot weeks (limit: common practice, no published source)`,
-		varieties: [
-			v({
-				name: 'Spinach, standard',
-				method: 'direct',
-				daysToMaturity: 45,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: perRow(45, 4),
-				rows: 4,
-				inRowSpacingIn: 2,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(2_800),
-				source: `2,800 seeds/oz, 45 days, 40–50 lb per 100 ft of row: ${HANDBOOKS}; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'arugula',
-		name: 'Arugula',
-		family: 'Brassicaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: 80,
-		source: `${GDD_BASE}; heat limit: common practice (no published source)`,
-		varieties: [
-			v({
-				name: 'Arugula, standard',
-				method: 'direct',
-				daysToMaturity: 30,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: perRow(30, 4),
-				rows: 4,
-				inRowSpacingIn: 1,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(14_000),
-				source: `14,000 seeds/oz (13,000–15,400), 24–35 days, 25–35 lb per 100 ft: seed-supplier growing tables; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'cilantro',
-		name: 'Cilantro',
-		family: 'Apiaceae',
-		harvestUnit: 'bunch',
-		...cool,
-		heatLimitF: 85,
-		source: `bolts above 85 °F: Texas A&M AgriLife, Cilantro in the Garden; ${GDD_BASE}`,
-		varieties: [
-			v({
-				name: 'Cilantro, standard',
-				method: 'direct',
-				daysToMaturity: 50,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 2,
-				rows: 4,
-				inRowSpacingIn: 2,
-				germinationRate: 0.75,
-				seedsPerGram: perGram(2_000),
-				source: `about 2,000 seeds/oz: Texas A&M AgriLife, Cilantro in the Garden; days, yield and spacing: ${MEMORY}`
-			})
-		]
-	},
-	{
-		key: 'parsnip',
-		name: 'Parsnip',
-		family: 'Apiaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Parsnip, standard',
-				method: 'direct',
-				daysToMaturity: 110,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: perRow(100, 3),
-				rows: 3,
-				inRowSpacingIn: 3,
-				germinationRate: 0.6,
-				seedsPerGram: perGram(9_600),
-				source: `9,600 seeds/oz (sources give 7,200–12,000), 100+ days, 100 lb per 100 ft of row: ${HANDBOOKS}; seed-supplier tables; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'onion',
-		name: 'Onion',
-		family: 'Amaryllidaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Onion, storage, multi-sown',
-				method: 'transplant',
-				daysToMaturity: 100,
-				daysInTray: 56,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: perRow(100, 4),
-				rows: 4,
-				inRowSpacingIn: 12,
-				seedsPerSpot: 4,
-				germinationRate: 0.75,
-				seedsPerGram: perGram(8_000),
-				cellsPerTray: 128,
-				source: `8,000 seeds/oz, 90–110 days, 100 lb per 100 ft of row: ${HANDBOOKS}; 4 seeds per cell at 12 in, 56 days in tray: common practice (no published source)`
-			})
-		]
-	},
-	{
-		key: 'kale',
-		name: 'Kale',
-		family: 'Brassicaceae',
-		harvestUnit: 'lb',
-		...cool,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Kale, curly',
-				method: 'transplant',
-				daysToMaturity: 55,
-				daysInTray: 28,
-				harvestWindowDays: 56,
-				yieldPerBedFoot: perAcre(12_000),
-				rows: 2,
-				inRowSpacingIn: 12,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(8_000),
-				cellsPerTray: 72,
-				source: `8,000 seeds/oz (7,500–8,700), 50–60 days: Univ. of Illinois Extension; Kansas State MF-315; yield 12,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
-			})
-		]
-	},
-	{
-		key: 'tomato',
-		name: 'Tomato',
-		family: 'Solanaceae',
-		harvestUnit: 'lb',
-		...warm,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Tomato, slicer',
-				method: 'transplant',
-				daysToMaturity: 75,
-				daysInTray: 49,
-				harvestWindowDays: 56,
-				yieldPerBedFoot: perRow(100, 1),
-				rows: 1,
-				inRowSpacingIn: 24,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(11_000),
-				cellsPerTray: 50,
-				source: `11,000 seeds/oz, 50 plants and 100 lb per 100 ft of row: ${HANDBOOKS}; 75 days from transplant, 49 days in tray: ${MEMORY}`
-			}),
-			v({
-				name: 'Tomato, cherry',
-				method: 'transplant',
-				daysToMaturity: 65,
-				daysInTray: 49,
-				harvestWindowDays: 70,
-				yieldPerBedFoot: perRow(100, 1),
-				rows: 1,
-				inRowSpacingIn: 24,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(11_000),
-				cellsPerTray: 50,
-				source: `11,000 seeds/oz, 100 lb per 100 ft of row: ${HANDBOOKS}; 65 days, 70-day window: ${MEMORY}`
-			})
-		]
-	},
-	{
-		key: 'bean',
-		name: 'Bean, bush snap',
-		family: 'Fabaceae',
-		harvestUnit: 'lb',
-		...warm,
-		heatLimitF: null,
-		source: GDD_BASE,
-		varieties: [
-			v({
-				name: 'Bean, bush, standard',
-				method: 'direct',
-				daysToMaturity: 55,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: perAcre(8_000),
-				rows: 2,
-				inRowSpacingIn: 3,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(100),
-				source: `100 seeds/oz, 51–58 days: ${HANDBOOKS}; yield 8,000 lb/acre (good): ${NEVMG}; picks over about 3 weeks: common practice (no published source)`
-			})
-		]
-	},
+	crop('carrot', 'Carrot', 'Apiaceae', 'lb', cool, null, GDD_BASE, [
+		variety('Carrot, standard', ['direct', 70, 0, 14, perAcre(26_000), 4, 1, 0.65, perGram(22_000)], {
+			source: `22,000 seeds/oz (18,000–25,000), 65–75 days: ${HANDBOOKS}; yield 26,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
+		}),
+		variety('Carrot, storage', ['direct', 75, 0, 28, perAcre(26_000), 4, 1, 0.65, perGram(22_000)], {
+			source: `22,000 seeds/oz, 75 days (top of 65–75): ${HANDBOOKS}; yield 26,000 lb/acre: ${NEVMG}; ${PRACTICE}`
+		})
+	]),
+	crop('beet', 'Beet', 'Amaranthaceae', 'lb', cool, null, GDD_BASE, [
+		variety('Beet, direct-sown', ['direct', 60, 0, 21, perAcre(24_000), 4, 3, 0.8, perGram(1_800)], {
+			source: `1,800 seeds/oz (1,500–2,200), 52–70 days: ${HANDBOOKS}; yield 24,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
+		}),
+		variety('Beet, multi-sown transplant', ['transplant', 50, 28, 21, perAcre(24_000), 4, 6, 0.8, perGram(1_800)], {
+			seedsPerSpot: 3,
+			cellsPerTray: 128,
+			source: `1,800 seeds/oz: ${HANDBOOKS}; yield 24,000 lb/acre: ${NEVMG}; 3 seeds per cell, 50 days from transplant: common practice (no published source)`
+		})
+	]),
+	crop('radish', 'Radish', 'Brassicaceae', 'bunch', cool, 75, HEAT_LIMIT, [
+		variety('Radish, round red', ['direct', 25, 0, 7, perRow(100, 4), 4, 1, 0.85, perGram(2_500)], {
+			source: `2,500 seeds/oz, 22–28 days, 100 bunches per 100 ft of row: ${HANDBOOKS}; ${PRACTICE}`
+		})
+	]),
+	crop('lettuce', 'Lettuce, head', 'Asteraceae', 'head', cool, 80, HEAT_LIMIT, [
+		variety('Lettuce, head, standard', ['transplant', 45, 28, 7, 2.7, 3, 12, 0.85, perGram(25_000)], {
+			cellsPerTray: 128,
+			source: `25,000 seeds/oz, 45–70 days from seeding: ${HANDBOOKS}; 45 days from transplant and 2.7 heads per bed-ft (3 rows at 12 in, 9 in 10 cut): common practice (no published source)`
+		})
+	]),
+	crop('spinach', 'Spinach', 'Amaranthaceae', 'lb', cool, 75, `${GDD_BASE}; bolts in hot weeks (${LIMIT})`, [
+		variety('Spinach, standard', ['direct', 45, 0, 14, perRow(45, 4), 4, 2, 0.8, perGram(2_800)], {
+			source: `2,800 seeds/oz, 45 days, 40–50 lb per 100 ft of row: ${HANDBOOKS}; ${PRACTICE}`
+		})
+	]),
+	crop('arugula', 'Arugula', 'Brassicaceae', 'lb', cool, 80, HEAT_LIMIT, [
+		variety('Arugula, standard', ['direct', 30, 0, 14, perRow(30, 4), 4, 1, 0.85, perGram(14_000)], {
+			source: `14,000 seeds/oz (13,000–15,400), 24–35 days, 25–35 lb per 100 ft: seed-supplier growing tables; ${PRACTICE}`
+		})
+	]),
+	crop('cilantro', 'Cilantro', 'Apiaceae', 'bunch', cool, 85, `bolts above 85 °F: ${AGRILIFE}; ${GDD_BASE}`, [
+		variety('Cilantro, standard', ['direct', 50, 0, 14, 2, 4, 2, 0.75, perGram(2_000)], {
+			source: `about 2,000 seeds/oz: ${AGRILIFE}; days, yield and spacing: ${MEMORY}`
+		})
+	]),
+	crop('parsnip', 'Parsnip', 'Apiaceae', 'lb', cool, null, GDD_BASE, [
+		variety('Parsnip, standard', ['direct', 110, 0, 42, perRow(100, 3), 3, 3, 0.6, perGram(9_600)], {
+			source: `9,600 seeds/oz (sources give 7,200–12,000), 100+ days, 100 lb per 100 ft of row: ${HANDBOOKS}; seed-supplier tables; ${PRACTICE}`
+		})
+	]),
+	crop('onion', 'Onion', 'Amaryllidaceae', 'lb', cool, null, GDD_BASE, [
+		variety('Onion, storage, multi-sown', ['transplant', 100, 56, 14, perRow(100, 4), 4, 12, 0.75, perGram(8_000)], {
+			seedsPerSpot: 4,
+			cellsPerTray: 128,
+			source: `8,000 seeds/oz, 90–110 days, 100 lb per 100 ft of row: ${HANDBOOKS}; 4 seeds per cell at 12 in, 56 days in tray: common practice (no published source)`
+		})
+	]),
+	crop('kale', 'Kale', 'Brassicaceae', 'lb', cool, null, GDD_BASE, [
+		variety('Kale, curly', ['transplant', 55, 28, 56, perAcre(12_000), 2, 12, 0.85, perGram(8_000)], {
+			cellsPerTray: 72,
+			source: `8,000 seeds/oz (7,500–8,700), 50–60 days: Univ. of Illinois Extension; Kansas State MF-315; yield 12,000 lb/acre (good): ${NEVMG}; ${PRACTICE}`
+		})
+	]),
+	crop('tomato', 'Tomato', 'Solanaceae', 'lb', warm, null, GDD_BASE, [
+		variety('Tomato, slicer', ['transplant', 75, 49, 56, perRow(100, 1), 1, 24, 0.85, perGram(11_000)], {
+			cellsPerTray: 50,
+			source: `11,000 seeds/oz, 50 plants and 100 lb per 100 ft of row: ${HANDBOOKS}; 75 days from transplant, 49 days in tray: ${MEMORY}`
+		}),
+		variety('Tomato, cherry', ['transplant', 65, 49, 70, perRow(100, 1), 1, 24, 0.85, perGram(11_000)], {
+			cellsPerTray: 50,
+			source: `11,000 seeds/oz, 100 lb per 100 ft of row: ${HANDBOOKS}; 65 days, 70-day window: ${MEMORY}`
+		})
+	]),
+	crop('bean', 'Bean, bush snap', 'Fabaceae', 'lb', warm, null, GDD_BASE, [
+		variety('Bean, bush, standard', ['direct', 55, 0, 21, perAcre(8_000), 2, 3, 0.85, perGram(100)], {
+			source: `100 seeds/oz, 51–58 days: ${HANDBOOKS}; yield 8,000 lb/acre (good): ${NEVMG}; picks over about 3 weeks: common practice (no published source)`
+		})
+	]),
 	...memoryCrops()
 ];
 
@@ -422,365 +236,80 @@ export const starterCrops: readonly StarterCrop[] = listed.map((c) => {
 
 /** Crops not in the reference tables we hold: every figure common practice, from memory. */
 function memoryCrops(): StarterCrop[] {
-	const m = (
-		key: string,
-		name: string,
-		family: string,
-		harvestUnit: CropInput['harvestUnit'],
-		kind: typeof cool | typeof warm,
-		heatLimitF: number | null,
-		varieties: Omit<V, 'source'>[]
-	): StarterCrop => ({
-		key,
-		name,
-		family,
-		harvestUnit,
-		...kind,
-		heatLimitF,
-		source: `${GDD_BASE}; the rest ${MEMORY}`,
-		varieties: varieties.map((x) => v({ ...x, source: MEMORY }))
-	});
 	return [
-		m('pepper', 'Pepper, sweet', 'Solanaceae', 'lb', warm, null, [
-			{
-				name: 'Pepper, bell',
-				method: 'transplant',
-				daysToMaturity: 70,
-				daysInTray: 56,
-				harvestWindowDays: 56,
-				yieldPerBedFoot: 1.5,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(4_500),
-				cellsPerTray: 72
-			}
+		crop('pepper', 'Pepper, sweet', 'Solanaceae', 'lb', warm, null, FROM_MEMORY, [
+			variety('Pepper, bell', ['transplant', 70, 56, 56, 1.5, 2, 18, 0.8, perGram(4_500)], { cellsPerTray: 72 })
 		]),
-		m('eggplant', 'Eggplant', 'Solanaceae', 'lb', warm, null, [
-			{
-				name: 'Eggplant, standard',
-				method: 'transplant',
-				daysToMaturity: 70,
-				daysInTray: 56,
-				harvestWindowDays: 56,
-				yieldPerBedFoot: 2,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(6_500),
-				cellsPerTray: 72
-			}
+		crop('eggplant', 'Eggplant', 'Solanaceae', 'lb', warm, null, FROM_MEMORY, [
+			variety('Eggplant, standard', ['transplant', 70, 56, 56, 2, 2, 18, 0.8, perGram(6_500)], { cellsPerTray: 72 })
 		]),
-		m('cucumber', 'Cucumber', 'Cucurbitaceae', 'lb', warm, null, [
-			{
-				name: 'Cucumber, slicing',
-				method: 'transplant',
-				daysToMaturity: 50,
-				daysInTray: 21,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: 3,
-				rows: 1,
-				inRowSpacingIn: 12,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(1_000),
+		crop('cucumber', 'Cucumber', 'Cucurbitaceae', 'lb', warm, null, FROM_MEMORY, [
+			variety('Cucumber, slicing', ['transplant', 50, 21, 42, 3, 1, 12, 0.85, perGram(1_000)], { cellsPerTray: 50 }),
+			variety('Cucumber, direct-sown', ['direct', 58, 0, 42, 3, 1, 12, 0.85, perGram(1_000)], { seedsPerSpot: 2 })
+		]),
+		crop('zucchini', 'Summer squash', 'Cucurbitaceae', 'lb', warm, null, FROM_MEMORY, [
+			variety('Summer squash, zucchini', ['direct', 50, 0, 42, 3, 1, 24, 0.85, perGram(200)], { seedsPerSpot: 2 }),
+			variety('Summer squash, transplant', ['transplant', 42, 21, 42, 3, 1, 24, 0.85, perGram(200)], {
 				cellsPerTray: 50
-			},
-			{
-				name: 'Cucumber, direct-sown',
-				method: 'direct',
-				daysToMaturity: 58,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: 3,
-				rows: 1,
-				inRowSpacingIn: 12,
-				seedsPerSpot: 2,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(1_000)
-			}
+			})
 		]),
-		m('zucchini', 'Summer squash', 'Cucurbitaceae', 'lb', warm, null, [
-			{
-				name: 'Summer squash, zucchini',
-				method: 'direct',
-				daysToMaturity: 50,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: 3,
-				rows: 1,
-				inRowSpacingIn: 24,
-				seedsPerSpot: 2,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(200)
-			},
-			{
-				name: 'Summer squash, transplant',
-				method: 'transplant',
-				daysToMaturity: 42,
-				daysInTray: 21,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: 3,
-				rows: 1,
-				inRowSpacingIn: 24,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(200),
+		crop('winter-squash', 'Winter squash', 'Cucurbitaceae', 'lb', warm, null, FROM_MEMORY, [
+			variety('Winter squash, butternut type', ['direct', 100, 0, 14, 2, 1, 24, 0.85, perGram(180)], {
+				seedsPerSpot: 2
+			})
+		]),
+		crop('melon', 'Melon', 'Cucurbitaceae', 'each', warm, null, FROM_MEMORY, [
+			variety('Melon, cantaloupe type', ['transplant', 80, 21, 21, 1, 1, 24, 0.85, perGram(1_000)], {
 				cellsPerTray: 50
-			}
+			})
 		]),
-		m('winter-squash', 'Winter squash', 'Cucurbitaceae', 'lb', warm, null, [
-			{
-				name: 'Winter squash, butternut type',
-				method: 'direct',
-				daysToMaturity: 100,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 2,
-				rows: 1,
-				inRowSpacingIn: 24,
-				seedsPerSpot: 2,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(180)
-			}
+		crop('cabbage', 'Cabbage', 'Brassicaceae', 'head', cool, null, FROM_MEMORY, [
+			variety('Cabbage, early', ['transplant', 60, 35, 14, 1.2, 2, 18, 0.85, perGram(7_500)], { cellsPerTray: 72 }),
+			variety('Cabbage, storage', ['transplant', 95, 35, 21, 1.2, 2, 18, 0.85, perGram(7_500)], { cellsPerTray: 72 })
 		]),
-		m('melon', 'Melon', 'Cucurbitaceae', 'each', warm, null, [
-			{
-				name: 'Melon, cantaloupe type',
-				method: 'transplant',
-				daysToMaturity: 80,
-				daysInTray: 21,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 1,
-				rows: 1,
-				inRowSpacingIn: 24,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(1_000),
-				cellsPerTray: 50
-			}
+		crop('broccoli', 'Broccoli', 'Brassicaceae', 'head', cool, 80, FROM_MEMORY, [
+			variety('Broccoli, standard', ['transplant', 60, 35, 14, 1.2, 2, 18, 0.85, perGram(8_000)], { cellsPerTray: 72 })
 		]),
-		m('cabbage', 'Cabbage', 'Brassicaceae', 'head', cool, null, [
-			{
-				name: 'Cabbage, early',
-				method: 'transplant',
-				daysToMaturity: 60,
-				daysInTray: 35,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 1.2,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(7_500),
-				cellsPerTray: 72
-			},
-			{
-				name: 'Cabbage, storage',
-				method: 'transplant',
-				daysToMaturity: 95,
-				daysInTray: 35,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 1.2,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(7_500),
-				cellsPerTray: 72
-			}
+		crop('cauliflower', 'Cauliflower', 'Brassicaceae', 'head', cool, 80, FROM_MEMORY, [
+			variety('Cauliflower, white', ['transplant', 65, 35, 10, 1.1, 2, 18, 0.8, perGram(8_000)], { cellsPerTray: 72 })
 		]),
-		m('broccoli', 'Broccoli', 'Brassicaceae', 'head', cool, 80, [
-			{
-				name: 'Broccoli, standard',
-				method: 'transplant',
-				daysToMaturity: 60,
-				daysInTray: 35,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 1.2,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(8_000),
-				cellsPerTray: 72
-			}
+		crop('bok-choy', 'Bok choy', 'Brassicaceae', 'head', cool, 80, FROM_MEMORY, [
+			variety('Bok choy, standard', ['transplant', 35, 21, 10, 4, 3, 8, 0.85, perGram(7_000)], { cellsPerTray: 128 })
 		]),
-		m('cauliflower', 'Cauliflower', 'Brassicaceae', 'head', cool, 80, [
-			{
-				name: 'Cauliflower, white',
-				method: 'transplant',
-				daysToMaturity: 65,
-				daysInTray: 35,
-				harvestWindowDays: 10,
-				yieldPerBedFoot: 1.1,
-				rows: 2,
-				inRowSpacingIn: 18,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(8_000),
-				cellsPerTray: 72
-			}
+		crop('turnip', 'Turnip, salad', 'Brassicaceae', 'bunch', cool, 80, FROM_MEMORY, [
+			variety('Turnip, salad, white', ['direct', 40, 0, 14, 1.5, 4, 2, 0.85, perGram(12_000)])
 		]),
-		m('bok-choy', 'Bok choy', 'Brassicaceae', 'head', cool, 80, [
-			{
-				name: 'Bok choy, standard',
-				method: 'transplant',
-				daysToMaturity: 35,
-				daysInTray: 21,
-				harvestWindowDays: 10,
-				yieldPerBedFoot: 4,
-				rows: 3,
-				inRowSpacingIn: 8,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(7_000),
-				cellsPerTray: 128
-			}
+		crop('kohlrabi', 'Kohlrabi', 'Brassicaceae', 'each', cool, null, FROM_MEMORY, [
+			variety('Kohlrabi, standard', ['transplant', 45, 28, 14, 3, 3, 8, 0.85, perGram(8_000)], { cellsPerTray: 128 })
 		]),
-		m('turnip', 'Turnip, salad', 'Brassicaceae', 'bunch', cool, 80, [
-			{
-				name: 'Turnip, salad, white',
-				method: 'direct',
-				daysToMaturity: 40,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 1.5,
-				rows: 4,
-				inRowSpacingIn: 2,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(12_000)
-			}
+		crop('chard', 'Swiss chard', 'Amaranthaceae', 'bunch', cool, null, FROM_MEMORY, [
+			variety('Chard, mixed colours', ['transplant', 50, 28, 70, 3, 3, 10, 0.8, perGram(1_500)], { cellsPerTray: 128 })
 		]),
-		m('kohlrabi', 'Kohlrabi', 'Brassicaceae', 'each', cool, null, [
-			{
-				name: 'Kohlrabi, standard',
-				method: 'transplant',
-				daysToMaturity: 45,
-				daysInTray: 28,
-				harvestWindowDays: 14,
-				yieldPerBedFoot: 3,
-				rows: 3,
-				inRowSpacingIn: 8,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(8_000),
-				cellsPerTray: 128
-			}
+		crop('scallion', 'Scallion', 'Amaryllidaceae', 'bunch', cool, null, FROM_MEMORY, [
+			variety('Scallion, standard', ['direct', 60, 0, 21, 2, 5, 1, 0.75, perGram(8_000)])
 		]),
-		m('chard', 'Swiss chard', 'Amaranthaceae', 'bunch', cool, null, [
-			{
-				name: 'Chard, mixed colours',
-				method: 'transplant',
-				daysToMaturity: 50,
-				daysInTray: 28,
-				harvestWindowDays: 70,
-				yieldPerBedFoot: 3,
-				rows: 3,
-				inRowSpacingIn: 10,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(1_500),
-				cellsPerTray: 128
-			}
+		crop('leek', 'Leek', 'Amaryllidaceae', 'each', cool, null, FROM_MEMORY, [
+			variety('Leek, fall', ['transplant', 100, 70, 42, 5, 3, 6, 0.8, perGram(10_000)], { cellsPerTray: 128 })
 		]),
-		m('scallion', 'Scallion', 'Amaryllidaceae', 'bunch', cool, null, [
-			{
-				name: 'Scallion, standard',
-				method: 'direct',
-				daysToMaturity: 60,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 2,
-				rows: 5,
-				inRowSpacingIn: 1,
-				germinationRate: 0.75,
-				seedsPerGram: perGram(8_000)
-			}
-		]),
-		m('leek', 'Leek', 'Amaryllidaceae', 'each', cool, null, [
-			{
-				name: 'Leek, fall',
-				method: 'transplant',
-				daysToMaturity: 100,
-				daysInTray: 70,
-				harvestWindowDays: 42,
-				yieldPerBedFoot: 5,
-				rows: 3,
-				inRowSpacingIn: 6,
-				germinationRate: 0.8,
-				seedsPerGram: perGram(10_000),
-				cellsPerTray: 128
-			}
-		]),
-		m('garlic', 'Garlic', 'Amaryllidaceae', 'head', cool, null, [
+		crop('garlic', 'Garlic', 'Amaryllidaceae', 'head', cool, null, FROM_MEMORY, [
 			// Cloves are the "seeds": about 5 g a clove, so 0.2 per gram (from memory).
-			{
-				name: 'Garlic, hardneck',
-				method: 'direct',
-				daysToMaturity: 240,
-				harvestWindowDays: 7,
-				yieldPerBedFoot: 7,
-				rows: 4,
-				inRowSpacingIn: 6,
-				germinationRate: 0.9,
-				seedsPerGram: 0.2,
-				margin: 0.05
-			}
+			variety('Garlic, hardneck', ['direct', 240, 0, 7, 7, 4, 6, 0.9, 0.2], { margin: 0.05 })
 		]),
-		m('potato', 'Potato', 'Solanaceae', 'lb', cool, null, [
+		crop('potato', 'Potato', 'Solanaceae', 'lb', cool, null, FROM_MEMORY, [
 			// Seed pieces of about 2 oz (57 g): 0.02 per gram (from memory).
-			{
-				name: 'Potato, all-purpose',
-				method: 'direct',
-				daysToMaturity: 90,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 2,
-				rows: 2,
-				inRowSpacingIn: 12,
-				germinationRate: 0.9,
-				seedsPerGram: 0.02,
-				margin: 0.05
-			}
+			variety('Potato, all-purpose', ['direct', 90, 0, 21, 2, 2, 12, 0.9, 0.02], { margin: 0.05 })
 		]),
-		m('pea', 'Pea, snap', 'Fabaceae', 'lb', cool, 80, [
-			{
-				name: 'Pea, sugar snap',
-				method: 'direct',
-				daysToMaturity: 62,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 0.6,
-				rows: 2,
-				inRowSpacingIn: 2,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(125)
-			}
+		crop('pea', 'Pea, snap', 'Fabaceae', 'lb', cool, 80, FROM_MEMORY, [
+			variety('Pea, sugar snap', ['direct', 62, 0, 21, 0.6, 2, 2, 0.85, perGram(125)])
 		]),
-		m('corn', 'Sweet corn', 'Poaceae', 'each', warm, null, [
-			{
-				name: 'Sweet corn, bicolour',
-				method: 'direct',
-				daysToMaturity: 80,
-				harvestWindowDays: 10,
-				yieldPerBedFoot: 2.5,
-				rows: 2,
-				inRowSpacingIn: 9,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(150)
-			}
+		crop('corn', 'Sweet corn', 'Poaceae', 'each', warm, null, FROM_MEMORY, [
+			variety('Sweet corn, bicolour', ['direct', 80, 0, 10, 2.5, 2, 9, 0.85, perGram(150)])
 		]),
-		m('basil', 'Basil', 'Lamiaceae', 'bunch', warm, null, [
-			{
-				name: 'Basil, sweet',
-				method: 'transplant',
-				daysToMaturity: 30,
-				daysInTray: 35,
-				harvestWindowDays: 56,
-				yieldPerBedFoot: 3,
-				rows: 3,
-				inRowSpacingIn: 10,
-				germinationRate: 0.85,
-				seedsPerGram: perGram(17_000),
-				cellsPerTray: 128
-			}
+		crop('basil', 'Basil', 'Lamiaceae', 'bunch', warm, null, FROM_MEMORY, [
+			variety('Basil, sweet', ['transplant', 30, 35, 56, 3, 3, 10, 0.85, perGram(17_000)], { cellsPerTray: 128 })
 		]),
-		m('dill', 'Dill', 'Apiaceae', 'bunch', cool, 85, [
-			{
-				name: 'Dill, standard',
-				method: 'direct',
-				daysToMaturity: 50,
-				harvestWindowDays: 21,
-				yieldPerBedFoot: 2,
-				rows: 3,
-				inRowSpacingIn: 3,
-				germinationRate: 0.7,
-				seedsPerGram: perGram(6_000)
-			}
+		crop('dill', 'Dill', 'Apiaceae', 'bunch', cool, 85, FROM_MEMORY, [
+			variety('Dill, standard', ['direct', 50, 0, 21, 2, 3, 3, 0.7, perGram(6_000)])
 		])
 	];
 }

@@ -6,11 +6,12 @@
 import type { UnitSystem } from '$lib/format';
 import type { Measure } from '$lib/format/file-units';
 import { plantingColumns } from './planting-columns';
+import type { Cell, Row } from './rows';
 
 export type CellKind = 'text' | 'int' | 'number' | 'date' | 'money' | 'percent';
 
-export interface ColumnSpec {
-	key: string;
+export interface ColumnSpec<K extends string = string> {
+	key: K;
 	header: string;
 	/** Width in characters. Never exactly 9: exceljs takes 9 for its default and leaves the width out. */
 	width: number;
@@ -31,23 +32,32 @@ export interface ColumnUnits {
 	per?: string;
 }
 
-export interface SheetSpec {
+export interface SheetSpec<K extends string = string> {
 	name: string;
-	columns: readonly ColumnSpec[];
+	columns: readonly ColumnSpec<K>[];
 }
 
-const col = (
-	key: string,
+/** A row of a sheet keyed by its columns' keys (rows.ts builds them); a column left out is an empty cell. */
+export type RowOf<S extends SheetSpec> = Partial<Record<S['columns'][number]['key'], Cell>>;
+
+/** A keyed row as its sheet's cells in column order, what the writer takes; a column left out is empty. */
+export function cellsOf<S extends SheetSpec>(spec: S, row: RowOf<S>): Row {
+	const cells = row as Record<string, Cell | undefined>;
+	return spec.columns.map((c) => cells[c.key] ?? null);
+}
+
+const col = <K extends string>(
+	key: K,
 	header: string,
 	width: number,
 	kind: CellKind,
 	derived = false,
 	units?: ColumnUnits
-): ColumnSpec => ({ key, header, width, kind, derived, ...(units ? { units } : {}) });
+): ColumnSpec<K> => ({ key, header, width, kind, derived, ...(units ? { units } : {}) });
 
 /** A measured column: `header` on an imperial farm, `metric` on a metric one. */
-const measured = (
-	key: string,
+const measured = <K extends string>(
+	key: K,
 	header: string,
 	metric: string,
 	width: number,
@@ -55,7 +65,48 @@ const measured = (
 	measure: Measure,
 	digits: number,
 	opts: { derived?: boolean; per?: string } = {}
-): ColumnSpec => col(key, header, width, kind, opts.derived ?? false, { measure, metric, digits, per: opts.per });
+): ColumnSpec<K> => col(key, header, width, kind, opts.derived ?? false, { measure, metric, digits, per: opts.per });
+
+/** The unit a header names for a measure, on an imperial farm and on a metric one. */
+const headerUnits: Partial<Record<Measure, [imperial: string, metric: string]>> = {
+	length: ['ft', 'm'],
+	spacing: ['in', 'cm'],
+	temp: ['°F', '°C'],
+	degreeDays: ['°F·d', '°C·d'],
+	seedWeight: ['oz', 'g'],
+	pricePerSeedWeight: ['$/oz', '$/g']
+};
+
+/** A measured column headed "label (unit)", the unit in the farm's system. */
+const inUnits = <K extends string>(
+	key: K,
+	label: string,
+	width: number,
+	kind: CellKind,
+	measure: keyof typeof headerUnits,
+	digits: number
+): ColumnSpec<K> => {
+	const [imperial, metric] = headerUnits[measure]!;
+	return measured(key, `${label} (${imperial})`, `${label} (${metric})`, width, kind, measure, digits);
+};
+
+/** A harvest quantity in the row's unit (the `unit` column): a weight converts, a count does not. */
+const harvest = <K extends string>(key: K, header: string, width: number): ColumnSpec<K> =>
+	measured(key, header, header, width, 'number', 'harvest', 2, { per: 'unit' });
+
+const sheet = <K extends string>(name: string, columns: readonly ColumnSpec<K>[]): SheetSpec<K> => ({ name, columns });
+
+// Columns several sheets hold, made once so that their header, width and kind agree.
+const crop = col('crop', 'Crop', 16, 'text');
+const variety = col('variety', 'Variety', 22, 'text');
+const method = col('method', 'Method', 11, 'text');
+const week = col('week', 'Week (ISO)', 11, 'text');
+const monday = col('monday', 'Week starts (date)', 17, 'date');
+const unit = measured('unit', 'Unit', 'Unit', 8, 'text', 'harvestUnit', 0);
+const seedWeight = inUnits('grams', 'Seed', 10, 'number', 'seedWeight', 2);
+const seedsPerPacket = col('seedsPerPacket', 'Seeds per packet', 16, 'int');
+const trays = col('trays', 'Trays', 8, 'int');
+const length = inUnits('lengthFt', 'Length', 11, 'number', 'length', 1);
 
 /**
  * The header a file of a `system` farm writes for this column; money is named by the farm's
@@ -106,10 +157,7 @@ export const numberFormats: Record<CellKind, string | undefined> = {
 	percent: '0.0%'
 };
 
-export const seasonSheet: SheetSpec = {
-	name: 'Season',
-	columns: [col('field', 'Field', 22, 'text'), col('value', 'Value', 36, 'text')]
-};
+export const seasonSheet = sheet('Season', [col('field', 'Field', 22, 'text'), col('value', 'Value', 36, 'text')]);
 
 /** Rows of the Season sheet, by their label in the Field column. */
 export const seasonFields = {
@@ -124,127 +172,96 @@ export const seasonFields = {
 /** Built from the planting field table, column by column (planting-columns.ts). */
 export const plantingsSheet: SheetSpec = { name: 'Plantings', columns: plantingColumns };
 
-export const seedOrderSheet: SheetSpec = {
-	name: 'Seed order',
-	columns: [
-		col('crop', 'Crop', 16, 'text'),
-		col('variety', 'Variety', 22, 'text'),
-		col('method', 'Method', 11, 'text'),
-		col('plantings', 'Plantings', 10, 'int'),
-		measured('bedFeet', 'Bed-feet (ft)', 'Bed-metres (m)', 13, 'number', 'length', 2),
-		col('seeds', 'Seeds (seeds)', 14, 'int'),
-		measured('grams', 'Seed (oz)', 'Seed (g)', 10, 'number', 'seedWeight', 2),
-		col('seedsPerPacket', 'Seeds per packet', 16, 'int'),
-		col('packets', 'Packets', 10, 'int'),
-		measured('pricePerGram', 'Price ($/oz)', 'Price ($/g)', 12, 'money', 'pricePerSeedWeight', 2),
-		col('cost', 'Cost ($)', 12, 'money'),
-		col('cells', 'Cells', 10, 'int'),
-		col('trays', 'Trays', 8, 'int')
-	]
-};
+export const seedOrderSheet = sheet('Seed order', [
+	crop,
+	variety,
+	method,
+	col('plantings', 'Plantings', 10, 'int'),
+	measured('bedFeet', 'Bed-feet (ft)', 'Bed-metres (m)', 13, 'number', 'length', 2),
+	col('seeds', 'Seeds (seeds)', 14, 'int'),
+	seedWeight,
+	seedsPerPacket,
+	col('packets', 'Packets', 10, 'int'),
+	inUnits('pricePerGram', 'Price', 12, 'money', 'pricePerSeedWeight', 2),
+	col('cost', 'Cost ($)', 12, 'money'),
+	col('cells', 'Cells', 10, 'int'),
+	trays
+]);
 
-export const tasksSheet: SheetSpec = {
-	name: 'Weekly tasks',
-	columns: [
-		col('week', 'Week (ISO)', 11, 'text'),
-		col('monday', 'Week starts (date)', 17, 'date'),
-		col('task', 'Task', 14, 'text'),
-		col('crop', 'Crop', 16, 'text'),
-		col('variety', 'Variety', 22, 'text'),
-		col('block', 'Block', 10, 'text'),
-		col('bed', 'Bed', 8, 'text'),
-		measured('startFt', 'Start (ft)', 'Start (m)', 10, 'number', 'length', 1),
-		measured('lengthFt', 'Length (ft)', 'Length (m)', 11, 'number', 'length', 1),
-		col('date', 'Planned date', 13, 'date'),
-		measured('quantity', 'Quantity', 'Quantity', 11, 'number', 'harvest', 2, { per: 'unit' }),
-		measured('unit', 'Unit', 'Unit', 8, 'text', 'harvestUnit', 0),
-		col('trays', 'Trays', 8, 'int'),
-		measured('grams', 'Seed (oz)', 'Seed (g)', 10, 'number', 'seedWeight', 2)
-	]
-};
+export const tasksSheet = sheet('Weekly tasks', [
+	week,
+	monday,
+	col('task', 'Task', 14, 'text'),
+	crop,
+	variety,
+	col('block', 'Block', 10, 'text'),
+	col('bed', 'Bed', 8, 'text'),
+	inUnits('startFt', 'Start', 10, 'number', 'length', 1),
+	length,
+	col('date', 'Planned date', 13, 'date'),
+	harvest('quantity', 'Quantity', 11),
+	unit,
+	trays,
+	seedWeight
+]);
 
-export const forecastSheet: SheetSpec = {
-	name: 'Forecast',
-	columns: [
-		col('crop', 'Crop', 16, 'text'),
-		measured('unit', 'Unit', 'Unit', 8, 'text', 'harvestUnit', 0),
-		col('week', 'Week (ISO)', 11, 'text'),
-		col('monday', 'Week starts (date)', 17, 'date'),
-		measured('supply', 'Planned harvest', 'Planned harvest', 15, 'number', 'harvest', 2, { per: 'unit' }),
-		measured('demand', 'Demand', 'Demand', 10, 'number', 'harvest', 2, { per: 'unit' }),
-		measured('shortfall', 'Shortfall', 'Shortfall', 10, 'number', 'harvest', 2, { per: 'unit' }),
-		measured('surplus', 'Surplus', 'Surplus', 10, 'number', 'harvest', 2, { per: 'unit' })
-	]
-};
+export const forecastSheet = sheet('Forecast', [
+	crop,
+	unit,
+	week,
+	monday,
+	harvest('supply', 'Planned harvest', 15),
+	harvest('demand', 'Demand', 10),
+	harvest('shortfall', 'Shortfall', 10),
+	harvest('surplus', 'Surplus', 10)
+]);
 
-export const cropsSheet: SheetSpec = {
-	name: 'Crops & varieties',
-	columns: [
-		col('crop', 'Crop', 16, 'text'),
-		col('family', 'Family', 16, 'text'),
-		measured('harvestUnit', 'Harvest unit', 'Harvest unit', 12, 'text', 'harvestUnit', 0),
-		col('frostTolerance', 'Frost tolerance', 15, 'text'),
-		measured('heatLimitF', 'Heat limit (°F)', 'Heat limit (°C)', 14, 'number', 'temp', 1),
-		measured('baseTempF', 'Base temperature (°F)', 'Base temperature (°C)', 20, 'number', 'temp', 1),
-		col('variety', 'Variety', 22, 'text'),
-		col('method', 'Method', 11, 'text'),
-		col('daysToMaturity', 'Days to maturity (d)', 19, 'int'),
-		col('daysInTray', 'Days in tray (d)', 15, 'int'),
-		col('harvestWindowDays', 'Harvest window (d)', 17, 'int'),
-		measured(
-			'yieldPerBedFoot',
-			'Yield per bed-foot (harvest units)',
-			'Yield per bed-metre (harvest units)',
-			30,
-			'number',
-			'harvestPerLength',
-			3,
-			{ per: 'harvestUnit' }
-		),
-		col('rows', 'Rows per bed', 12, 'int'),
-		measured('inRowSpacingIn', 'In-row spacing (in)', 'In-row spacing (cm)', 18, 'number', 'spacing', 2),
-		col('seedsPerSpot', 'Seeds per spot', 14, 'int'),
-		col('germinationRate', 'Germination (%)', 15, 'percent'),
-		measured(
-			'seedsPerGram',
-			'Seeds per ounce (seeds/oz)',
-			'Seeds per gram (seeds/g)',
-			22,
-			'number',
-			'seedsPerWeight',
-			2
-		),
-		measured('seedPrice', 'Seed price ($/oz)', 'Seed price ($/g)', 15, 'money', 'pricePerSeedWeight', 2),
-		col('seedsPerPacket', 'Seeds per packet', 16, 'int'),
-		col('cellsPerTray', 'Cells per tray', 14, 'int'),
-		col('margin', 'Extra margin (%)', 15, 'percent'),
-		measured(
-			'gddToMaturity',
-			'Degree days to maturity (°F·d)',
-			'Degree days to maturity (°C·d)',
-			28,
-			'int',
-			'degreeDays',
-			0
-		),
-		// The crop's field dates (month-day, both or neither): the earliest and latest day of the year it
-		// may be sown or set out. Text, so no spreadsheet takes "10-01" for a date of one year.
-		col('sowFrom', 'Earliest field date (MM-DD)', 16, 'text'),
-		col('sowTo', 'Latest field date (MM-DD)', 16, 'text')
-	]
-};
+export const cropsSheet = sheet('Crops & varieties', [
+	crop,
+	col('family', 'Family', 16, 'text'),
+	measured('harvestUnit', 'Harvest unit', 'Harvest unit', 12, 'text', 'harvestUnit', 0),
+	col('frostTolerance', 'Frost tolerance', 15, 'text'),
+	inUnits('heatLimitF', 'Heat limit', 14, 'number', 'temp', 1),
+	inUnits('baseTempF', 'Base temperature', 20, 'number', 'temp', 1),
+	variety,
+	method,
+	col('daysToMaturity', 'Days to maturity (d)', 19, 'int'),
+	col('daysInTray', 'Days in tray (d)', 15, 'int'),
+	col('harvestWindowDays', 'Harvest window (d)', 17, 'int'),
+	measured(
+		'yieldPerBedFoot',
+		'Yield per bed-foot (harvest units)',
+		'Yield per bed-metre (harvest units)',
+		30,
+		'number',
+		'harvestPerLength',
+		3,
+		{ per: 'harvestUnit' }
+	),
+	col('rows', 'Rows per bed', 12, 'int'),
+	inUnits('inRowSpacingIn', 'In-row spacing', 18, 'number', 'spacing', 2),
+	col('seedsPerSpot', 'Seeds per spot', 14, 'int'),
+	col('germinationRate', 'Germination (%)', 15, 'percent'),
+	measured('seedsPerGram', 'Seeds per ounce (seeds/oz)', 'Seeds per gram (seeds/g)', 22, 'number', 'seedsPerWeight', 2),
+	inUnits('seedPrice', 'Seed price', 15, 'money', 'pricePerSeedWeight', 2),
+	seedsPerPacket,
+	col('cellsPerTray', 'Cells per tray', 14, 'int'),
+	col('margin', 'Extra margin (%)', 15, 'percent'),
+	inUnits('gddToMaturity', 'Degree days to maturity', 28, 'int', 'degreeDays', 0),
+	// The crop's field dates (month-day, both or neither): the earliest and latest day of the year it
+	// may be sown or set out. Text, so no spreadsheet takes "10-01" for a date of one year.
+	col('sowFrom', 'Earliest field date (MM-DD)', 16, 'text'),
+	col('sowTo', 'Latest field date (MM-DD)', 16, 'text')
+]);
 
-export const bedsSheet: SheetSpec = {
-	name: 'Beds',
-	columns: [
-		col('block', 'Block', 12, 'text'),
-		col('blockPosition', 'Block order', 12, 'int'),
-		col('bed', 'Bed', 10, 'text'),
-		col('position', 'Walking order', 14, 'int'),
-		measured('lengthFt', 'Length (ft)', 'Length (m)', 11, 'number', 'length', 1),
-		measured('widthIn', 'Width (in)', 'Width (cm)', 11, 'int', 'spacing', 0)
-	]
-};
+export const bedsSheet = sheet('Beds', [
+	col('block', 'Block', 12, 'text'),
+	col('blockPosition', 'Block order', 12, 'int'),
+	col('bed', 'Bed', 10, 'text'),
+	col('position', 'Walking order', 14, 'int'),
+	length,
+	inUnits('widthIn', 'Width', 11, 'int', 'spacing', 0)
+]);
 
 /** Sheets in the order the workbook holds them. */
 export const workbookSheets: readonly SheetSpec[] = [

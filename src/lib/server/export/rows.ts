@@ -8,10 +8,21 @@ import { fromDayNumber, toDayNumber, weekdayOf } from '$lib/planning/day-number'
 import { isoWeekOfDay, weekStart } from '$lib/planning/iso-week';
 import type { VarietyView } from '../crops';
 import type { SeasonData } from './season-data';
-import { seasonFields } from './layout';
+import {
+	bedsSheet,
+	cellsOf,
+	cropsSheet,
+	forecastSheet,
+	seasonFields,
+	seasonSheet,
+	seedOrderSheet,
+	tasksSheet,
+	type RowOf
+} from './layout';
+import { pick } from '$lib/pick';
 import { plantingTasks } from '$lib/plantings/tasks';
 import { plantingCells } from './planting-columns';
-import { seedOrder, seedOrderCells } from '../seed-order';
+import { seedOrder, seedOrderRow } from '../seed-order';
 import { type PlannedPlanting, plannedByWeek, plannedOf, plannedSupply } from '../planned-supply';
 
 export type Cell = string | number | Date | null;
@@ -40,7 +51,7 @@ function plantingRows(d: SeasonData): Row[] {
 
 /** The Seed order sheet: the season's seed order (src/lib/server/seed-order.ts), money in dollars. */
 function seedOrderRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<number, VarietyView>): Row[] {
-	return seedOrder(d.plantings, seeds, varieties).map(seedOrderCells);
+	return seedOrder(d.plantings, seeds, varieties).map((l) => cellsOf(seedOrderSheet, seedOrderRow(l)));
 }
 
 const taskOrder = { 'Tray sowing': 0, 'Direct sowing': 1, Transplanting: 2, Harvest: 3 } as const;
@@ -53,8 +64,9 @@ interface TaskRow {
 	walk: number;
 	/** Tray work sorts by crop and variety, as the tray bench does. */
 	name: string;
-	row: Row;
+	row: TaskCells;
 }
+type TaskCells = RowOf<typeof tasksSheet>;
 
 // Positions and feet are far below these bounds, so the packed key stays an exact integer.
 const walkKey = (block: number | null, bed: number | null, startFt: number): number =>
@@ -72,25 +84,21 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 	for (const p of [...d.plantings, ...d.otherHarvests]) {
 		const s = seeds.get(p.id);
 		const walk = walkKey(p.blockPosition, p.bedPosition, p.startFt);
-		const push = (day: number, task: TaskName, rest: Row, byCrop = false): void => {
+		const where = pick(p, ['crop', 'variety', 'block', 'bed', 'startFt', 'lengthFt']);
+		const push = (day: number, task: TaskName, rest: TaskCells, byCrop = false): void => {
 			const monday = day - weekdayOf(day) + 1;
 			out.push({
 				order: monday * 4 + taskOrder[task],
 				walk: byCrop ? 0 : walk,
 				name: byCrop ? `${p.crop}\u0000${p.variety}` : '',
-				row: [
-					isoWeekOfDay(day),
-					fromDayNumber(monday),
+				row: {
+					week: isoWeekOfDay(day),
+					monday: fromDayNumber(monday),
 					task,
-					p.crop,
-					p.variety,
-					p.block,
-					p.bed,
-					p.startFt,
-					p.lengthFt,
-					fromDayNumber(day),
+					...where,
+					date: fromDayNumber(day),
 					...rest
-				]
+				}
 			});
 		};
 		// Another season's planting: only its harvest here, its sowing belongs to its own season's workbook.
@@ -101,21 +109,20 @@ function taskRows(d: SeasonData, seeds: Map<number, SeedNeed>, varieties: Map<nu
 				// harvest day in each week.
 				const planned = plannedOf(p, varieties.get(p.varietyId));
 				for (const w of planned ? plannedByWeek(planned) : [])
-					push(Math.max(day, toDayNumber(weekStart(w.week))), 'Harvest', [
-						round2(w.quantity),
-						p.harvestUnit,
-						null,
-						null
-					]);
+					push(Math.max(day, toDayNumber(weekStart(w.week))), 'Harvest', {
+						quantity: round2(w.quantity),
+						unit: p.harvestUnit
+					});
 			} else if (others.has(p.id)) continue;
 			else if (t.kind === 'tray_sow')
-				push(day, 'Tray sowing', [s?.cells ?? null, 'cells', s?.trays ?? null, s?.grams ?? null], true);
-			else if (t.kind === 'direct_sow') push(day, 'Direct sowing', [s?.seeds ?? null, 'seeds', null, s?.grams ?? null]);
-			else push(day, 'Transplanting', [s?.plants ?? s?.spots ?? null, 'plants', null, null]);
+				push(day, 'Tray sowing', { quantity: s?.cells, unit: 'cells', trays: s?.trays, grams: s?.grams }, true);
+			else if (t.kind === 'direct_sow')
+				push(day, 'Direct sowing', { quantity: s?.seeds, unit: 'seeds', grams: s?.grams });
+			else push(day, 'Transplanting', { quantity: s?.plants ?? s?.spots, unit: 'plants' });
 		}
 	}
 	out.sort((x, y) => x.order - y.order || x.walk - y.walk || (x.name < y.name ? -1 : x.name > y.name ? 1 : 0));
-	return out.map((t) => t.row);
+	return out.map((t) => cellsOf(tasksSheet, t.row));
 }
 
 /**
@@ -134,52 +141,50 @@ function forecastRows(d: SeasonData, varieties: Map<number, VarietyView>): Row[]
 	const stores = d.crops
 		.filter((c) => (c.storageWeeks ?? 0) > 0)
 		.map((c) => ({ crop: String(c.id), keepWeeks: c.storageWeeks!, lossPerWeek: c.storageLossPerWeek }));
-	return plannedSupply(plantings, d.demand, stores).map((r) => [
-		crops.get(r.crop)?.name ?? r.crop,
-		crops.get(r.crop)?.harvestUnit ?? null,
-		r.week,
-		weekStart(r.week),
-		round2(r.supply),
-		round2(r.demand),
-		round2(r.shortfall),
-		round2(r.surplus)
-	]);
+	return plannedSupply(plantings, d.demand, stores).map((r) =>
+		cellsOf(forecastSheet, {
+			crop: crops.get(r.crop)?.name ?? r.crop,
+			unit: crops.get(r.crop)?.harvestUnit,
+			week: r.week,
+			monday: weekStart(r.week),
+			supply: round2(r.supply),
+			demand: round2(r.demand),
+			shortfall: round2(r.shortfall),
+			surplus: round2(r.surplus)
+		})
+	);
 }
 
+/** A crop's row for each of its varieties; a crop without varieties still gets a row, so the import keeps it. */
 function cropRows(d: SeasonData): Row[] {
 	const byCrop = new Map<number, VarietyView[]>();
 	for (const v of d.varieties) byCrop.set(v.cropId, [...(byCrop.get(v.cropId) ?? []), v]);
-	const rows: Row[] = [];
-	for (const c of d.crops) {
-		const crop: Row = [c.name, c.family, c.harvestUnit, c.frostTolerance, c.heatLimitF, c.baseTempF];
+	return d.crops.flatMap((c) => {
+		const crop: RowOf<typeof cropsSheet> = {
+			...pick(c, ['family', 'harvestUnit', 'frostTolerance', 'heatLimitF', 'baseTempF', 'sowFrom', 'sowTo']),
+			crop: c.name
+		};
 		const vs = byCrop.get(c.id) ?? [];
-		const fieldDates: Row = [c.sowFrom, c.sowTo];
-		// A crop without varieties still gets a row, so the import keeps it.
-		if (!vs.length) rows.push([...crop, ...Array<Cell>(16).fill(null), ...fieldDates]);
-		for (const v of vs) {
-			rows.push([
-				...crop,
-				v.name,
-				v.method,
-				v.daysToMaturity,
-				v.daysInTray,
-				v.harvestWindowDays,
-				v.yieldPerBedFoot,
-				v.rows,
-				v.inRowSpacingIn,
-				v.seedsPerSpot,
-				v.germinationRate,
-				v.seedsPerGram,
-				v.seedPriceCentsPerGram / 100,
-				v.seedsPerPacket,
-				v.cellsPerTray,
-				v.margin,
-				v.gddToMaturity,
-				...fieldDates
-			]);
-		}
-	}
-	return rows;
+		if (!vs.length) return [cellsOf(cropsSheet, crop)];
+		return vs.map((v) =>
+			cellsOf(cropsSheet, { ...v, ...crop, variety: v.name, seedPrice: v.seedPriceCentsPerGram / 100 })
+		);
+	});
+}
+
+/** The Season sheet: one row a field, its label in the Field column. */
+function seasonRows(d: SeasonData, today: string): Row[] {
+	const values: Record<keyof typeof seasonFields, Cell> = {
+		name: d.season.name,
+		year: d.season.year,
+		startsOn: excelDate(d.season.startsOn),
+		endsOn: excelDate(d.season.endsOn),
+		farm: d.farmName,
+		exportedOn: excelDate(today)
+	};
+	return (Object.keys(seasonFields) as (keyof typeof seasonFields)[]).map((k) =>
+		cellsOf(seasonSheet, { field: seasonFields[k], value: values[k] })
+	);
 }
 
 export function buildSheetRows(d: SeasonData, today: string): SheetRows {
@@ -190,20 +195,13 @@ export function buildSheetRows(d: SeasonData, today: string): SheetRows {
 		if (v) seeds.set(p.id, plantingSeed(p, v));
 	}
 	return {
-		season: [
-			[seasonFields.name, d.season.name],
-			[seasonFields.year, d.season.year],
-			[seasonFields.startsOn, excelDate(d.season.startsOn)],
-			[seasonFields.endsOn, excelDate(d.season.endsOn)],
-			[seasonFields.farm, d.farmName],
-			[seasonFields.exportedOn, excelDate(today)]
-		],
+		season: seasonRows(d, today),
 		plantings: plantingRows(d),
 		seedOrder: seedOrderRows(d, seeds, varieties),
 		tasks: taskRows(d, seeds, varieties),
 		forecast: forecastRows(d, varieties),
 		crops: cropRows(d),
-		beds: d.beds.map((b) => [b.block, b.blockPosition, b.name, b.position, b.lengthFt, b.widthIn])
+		beds: d.beds.map((b) => cellsOf(bedsSheet, { ...b, bed: b.name }))
 	};
 }
 
