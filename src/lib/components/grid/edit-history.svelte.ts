@@ -27,21 +27,23 @@ export class EditHistory {
 
 	/** The step to undo, moved over to the redo list; undefined when there is none. */
 	takeUndo(): EditStep | undefined {
-		const e = this.undoStack.at(-1);
-		if (!e) return undefined;
-		this.undoStack = this.undoStack.slice(0, -1);
-		this.redoStack = [...this.redoStack, e];
-		return e;
+		const moved = moveLast(this.undoStack, this.redoStack);
+		if (moved) [this.undoStack, this.redoStack] = [moved.from, moved.to];
+		return moved?.step;
 	}
 
 	/** The step to redo, moved back to the undo list. */
 	takeRedo(): EditStep | undefined {
-		const e = this.redoStack.at(-1);
-		if (!e) return undefined;
-		this.redoStack = this.redoStack.slice(0, -1);
-		this.undoStack = [...this.undoStack, e];
-		return e;
+		const moved = moveLast(this.redoStack, this.undoStack);
+		if (moved) [this.redoStack, this.undoStack] = [moved.from, moved.to];
+		return moved?.step;
 	}
+}
+
+/** The last step of one list moved onto the end of the other, as new lists; null when `from` is empty. */
+function moveLast(from: EditStep[], to: EditStep[]): { step: EditStep; from: EditStep[]; to: EditStep[] } | null {
+	const step = from.at(-1);
+	return step ? { step, from: from.slice(0, -1), to: [...to, step] } : null;
 }
 
 /** What the message line says after undo or redo. */

@@ -5,7 +5,7 @@ import { can } from '$lib/permissions';
 import * as seasons from '$lib/server/seasons';
 import { copySeason } from '$lib/server/season-copy';
 import { seasonCopySchema, seasonCreateSchema, seasonRenameSchema } from '$lib/schemas/season';
-import { fieldErrors } from '$lib/schemas/common';
+import { readForm } from '$lib/server/form';
 import { textValues } from '$lib/library-form';
 import * as farms from '$lib/server/farms';
 import { todayIn } from '$lib/today';
@@ -36,12 +36,11 @@ async function setArchived(event: RequestEvent, archived: boolean) {
 export const actions = {
 	create: async (event) => {
 		const { farm } = requireCan(event, 'seasons.manage');
-		const values = textValues(await event.request.formData());
-		const parsed = seasonCreateSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { create: { errors: fieldErrors(parsed.error), values } });
+		const { data, values, refused } = await readForm(event.request, seasonCreateSchema);
+		if (refused) return fail(400, { create: refused });
 		let id: number;
 		try {
-			id = await seasons.create(farm.id, parsed.data);
+			id = await seasons.create(farm.id, data);
 		} catch (e) {
 			if (e instanceof seasons.SeasonInputError)
 				return fail(e.status, { create: { errors: { [e.field]: e.message }, values } });
@@ -51,10 +50,9 @@ export const actions = {
 	},
 	copy: async (event) => {
 		const { farm, user } = requireCan(event, 'seasons.manage');
-		const values = textValues(await event.request.formData());
-		const parsed = seasonCopySchema.safeParse(values);
-		if (!parsed.success) return fail(400, { copy: { errors: fieldErrors(parsed.error), values } });
-		const source = await seasons.get(farm.id, parsed.data.from);
+		const { data, values, refused } = await readForm(event.request, seasonCopySchema);
+		if (refused) return fail(400, { copy: refused });
+		const source = await seasons.get(farm.id, data.from);
 		if (!source) return fail(400, { copy: { errors: { from: "Choose one of this farm's seasons." }, values } });
 		const out = await copySeason(farm.id, source, user.id);
 		if (!out.ok) return fail(out.status, { copy: { errors: { from: out.message }, values } });
@@ -62,12 +60,11 @@ export const actions = {
 	},
 	rename: async (event) => {
 		const { farm } = requireCan(event, 'seasons.manage');
-		const values = textValues(await event.request.formData());
+		const { data, values, refused } = await readForm(event.request, seasonRenameSchema);
 		const id = seasonId(values.id);
 		if (!(await seasons.get(farm.id, id))) error(404, 'No such season on this farm.');
-		const parsed = seasonRenameSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { rename: { id, errors: fieldErrors(parsed.error), values } });
-		if (!(await seasons.rename(farm.id, id, parsed.data.name))) error(404, 'No such season on this farm.');
+		if (refused) return fail(400, { rename: { id, ...refused } });
+		if (!(await seasons.rename(farm.id, id, data.name))) error(404, 'No such season on this farm.');
 		return { rename: { id, saved: true } };
 	},
 	archive: (event) => setArchived(event, true),

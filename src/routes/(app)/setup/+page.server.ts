@@ -1,10 +1,9 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as farms from '$lib/server/farms';
 import { locationSchema } from '$lib/schemas/farm';
-import { fieldErrors } from '$lib/schemas/common';
-import { textValues } from '$lib/library-form';
+import { formAction } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'farm.settings');
@@ -21,14 +20,9 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'farm.settings');
-		const values = textValues(await event.request.formData());
-		const parsed = locationSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		const current = await farms.get(farm.id);
-		const { id: _id, ...rest } = current;
-		await farms.update(farm.id, { ...rest, ...parsed.data });
+	default: formAction('farm.settings', locationSchema, async ({ farm }, { data }) => {
+		const { id: _id, ...current } = await farms.get(farm.id);
+		await farms.update(farm.id, { ...current, ...data });
 		redirect(303, '/setup/beds');
-	}
+	})
 } satisfies Actions;

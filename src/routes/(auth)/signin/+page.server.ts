@@ -1,7 +1,8 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { signInSchema } from '$lib/schemas/auth';
-import { fieldErrors, type FieldErrors } from '$lib/schemas/common';
+import type { FieldErrors } from '$lib/schemas/common';
+import { readForm } from '$lib/server/form';
 import { findByEmail } from '$lib/server/users';
 import { verifyDummy, verifyPassword } from '$lib/server/password';
 import { startSession } from '$lib/server/auth';
@@ -27,12 +28,10 @@ export const load = (async ({ locals, url }) => {
 
 export const actions = {
 	default: async (event) => {
-		const form = Object.fromEntries(await event.request.formData());
-		const values = { email: String(form.email ?? '') };
-		const parsed = signInSchema.safeParse(form);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
+		const { data, values, refused } = await readForm(event.request, signInSchema, { secret: ['password'] });
+		if (refused) return fail(400, refused);
 
-		const { email, password } = parsed.data;
+		const { email, password } = data;
 		const address = clientAddress(event);
 		const wait = await signInWait(email, address);
 		if (wait) return tooManyTries(event, wait.ms, '_form', signInWaitMessage(wait), values);

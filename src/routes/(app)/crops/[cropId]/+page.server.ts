@@ -6,8 +6,8 @@ import { getCrop, LibraryInputError, setCropArchived, updateCrop } from '$lib/se
 import type { CropInput } from '$lib/schemas/crop';
 import { cropSchemaFor } from '$lib/schemas/crop-units';
 import { libraryUnits } from '$lib/server/unit-context';
-import { fieldErrors } from '$lib/schemas/common';
-import { cropFormValues, textValues } from '$lib/library-form';
+import { cropFormValues } from '$lib/library-form';
+import { answerInputErrors, readForm } from '$lib/server/form';
 
 function cropId(event: RequestEvent): number {
 	const id = Number(event.params.cropId);
@@ -29,17 +29,12 @@ export const actions = {
 		const id = cropId(event);
 		// Another farm's crop is "not found" before anything about the form is said.
 		if (!(await getCrop(farm.id, id))) error(404, "No such crop in this farm's library.");
-		const values = textValues(await event.request.formData());
-		const parsed = cropSchemaFor(await libraryUnits(farm.id, values.harvestUnit)).safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		try {
-			if (!(await updateCrop(farm.id, id, parsed.data as CropInput)))
-				error(404, "No such crop in this farm's library.");
-		} catch (e) {
-			if (e instanceof LibraryInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		return { saved: true };
+		const form = await readForm(event.request, async (f) => cropSchemaFor(await libraryUnits(farm.id, f.harvestUnit)));
+		if (form.refused) return fail(400, form.refused);
+		return answerInputErrors(LibraryInputError, form.values, async () => {
+			if (!(await updateCrop(farm.id, id, form.data as CropInput))) error(404, "No such crop in this farm's library.");
+			return { saved: true };
+		});
 	},
 	archive: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');

@@ -1,12 +1,12 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import { createCrop, LibraryInputError } from '$lib/server/crops';
 import type { CropInput } from '$lib/schemas/crop';
 import { cropSchemaFor } from '$lib/schemas/crop-units';
 import { libraryUnits } from '$lib/server/unit-context';
-import { fieldErrors } from '$lib/schemas/common';
-import { newCropValues, textValues } from '$lib/library-form';
+import { newCropValues } from '$lib/library-form';
+import { answerInputErrors, formAction } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireCan(event, 'library.edit');
@@ -14,18 +14,13 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'library.edit');
-		const values = textValues(await event.request.formData());
-		const parsed = cropSchemaFor(await libraryUnits(farm.id, values.harvestUnit)).safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		let id: number;
-		try {
-			id = await createCrop(farm.id, parsed.data as CropInput);
-		} catch (e) {
-			if (e instanceof LibraryInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		redirect(303, `/crops/${id}/varieties/new?created=1`);
-	}
+	default: formAction(
+		'library.edit',
+		async (f, { farm }) => cropSchemaFor(await libraryUnits(farm.id, f.harvestUnit)),
+		async ({ farm }, { data, values }) =>
+			answerInputErrors(LibraryInputError, values, async () => {
+				const id = await createCrop(farm.id, data as CropInput);
+				redirect(303, `/crops/${id}/varieties/new?created=1`);
+			})
+	)
 } satisfies Actions;

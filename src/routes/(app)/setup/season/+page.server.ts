@@ -1,11 +1,10 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireCan } from '$lib/server/guards';
 import * as seasons from '$lib/server/seasons';
 import * as farms from '$lib/server/farms';
 import { seasonCreateSchema } from '$lib/schemas/season';
-import { fieldErrors } from '$lib/schemas/common';
-import { textValues } from '$lib/library-form';
+import { answerInputErrors, formAction } from '$lib/server/form';
 import { todayIn } from '$lib/today';
 
 export const load = (async (event) => {
@@ -18,18 +17,10 @@ export const load = (async (event) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async (event) => {
-		const { farm } = requireCan(event, 'seasons.manage');
-		const values = textValues(await event.request.formData());
-		const parsed = seasonCreateSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		let id: number;
-		try {
-			id = await seasons.create(farm.id, parsed.data);
-		} catch (e) {
-			if (e instanceof seasons.SeasonInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		redirect(303, `/seasons/${id}/demand`);
-	}
+	default: formAction('seasons.manage', seasonCreateSchema, async ({ farm }, { data, values }) =>
+		answerInputErrors(seasons.SeasonInputError, values, async () => {
+			const id = await seasons.create(farm.id, data);
+			redirect(303, `/seasons/${id}/demand`);
+		})
+	)
 } satisfies Actions;

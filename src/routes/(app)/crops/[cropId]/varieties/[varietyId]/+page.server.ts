@@ -7,8 +7,8 @@ import { observedForVariety } from '$lib/server/actuals';
 import type { VarietyInput } from '$lib/schemas/crop';
 import { varietySchemaFor } from '$lib/schemas/crop-units';
 import { libraryUnits } from '$lib/server/unit-context';
-import { fieldErrors } from '$lib/schemas/common';
-import { textValues, varietyFormValues } from '$lib/library-form';
+import { varietyFormValues } from '$lib/library-form';
+import { answerInputErrors, readForm } from '$lib/server/form';
 import { plural } from '$lib/plural';
 
 const missing = "No such variety in this farm's library.";
@@ -40,16 +40,12 @@ export const actions = {
 	save: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');
 		const { crop, variety } = await lookup(event, farm.id);
-		const values = textValues(await event.request.formData());
-		const parsed = varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)).safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		try {
-			await updateVariety(farm.id, variety.id, parsed.data as VarietyInput);
-		} catch (e) {
-			if (e instanceof LibraryInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		return { saved: true };
+		const form = await readForm(event.request, varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)));
+		if (form.refused) return fail(400, form.refused);
+		return answerInputErrors(LibraryInputError, form.values, async () => {
+			await updateVariety(farm.id, variety.id, form.data as VarietyInput);
+			return { saved: true };
+		});
 	},
 	archive: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');

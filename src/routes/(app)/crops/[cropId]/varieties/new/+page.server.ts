@@ -5,8 +5,8 @@ import { createVariety, getCrop, LibraryInputError } from '$lib/server/crops';
 import type { VarietyInput } from '$lib/schemas/crop';
 import { varietySchemaFor } from '$lib/schemas/crop-units';
 import { libraryUnits } from '$lib/server/unit-context';
-import { fieldErrors } from '$lib/schemas/common';
-import { newVarietyValues, textValues } from '$lib/library-form';
+import { newVarietyValues } from '$lib/library-form';
+import { answerInputErrors, readForm } from '$lib/server/form';
 
 async function cropOf(farmId: number, raw: string) {
 	const id = Number(raw);
@@ -29,16 +29,11 @@ export const actions = {
 	default: async (event) => {
 		const { farm } = requireCan(event, 'library.edit');
 		const crop = await cropOf(farm.id, event.params.cropId);
-		const values = textValues(await event.request.formData());
-		const parsed = varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)).safeParse(values);
-		if (!parsed.success) return fail(400, { errors: fieldErrors(parsed.error), values });
-		let id: number;
-		try {
-			id = await createVariety(farm.id, crop.id, parsed.data as VarietyInput);
-		} catch (e) {
-			if (e instanceof LibraryInputError) return fail(e.status, { errors: { [e.field]: e.message }, values });
-			throw e;
-		}
-		redirect(303, `/crops/${crop.id}/varieties/${id}`);
+		const form = await readForm(event.request, varietySchemaFor(await libraryUnits(farm.id, crop.harvestUnit)));
+		if (form.refused) return fail(400, form.refused);
+		return answerInputErrors(LibraryInputError, form.values, async () => {
+			const id = await createVariety(farm.id, crop.id, form.data as VarietyInput);
+			redirect(303, `/crops/${crop.id}/varieties/${id}`);
+		});
 	}
 } satisfies Actions;
