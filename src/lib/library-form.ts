@@ -2,27 +2,9 @@
 // form as plain text values to hand back when it fails.
 import { cropFields, formValue, varietyFields } from '$lib/schemas/crop';
 import { measuredFields, type UnitContext } from '$lib/schemas/crop-units';
-import type { VarietyView } from '$lib/types';
+import type { CropView, VarietyView } from '$lib/types';
 
-export function cropFormValues(
-	c: {
-		name: string;
-		family: string;
-		harvestUnit: string;
-		frostTolerance: string;
-		heatLimitF: number | null;
-		baseTempF: number;
-		harvestCurve: string;
-		cutIntervalDays: number | null;
-		storageWeeks: number | null;
-		storageLossPct: number | null;
-		sowFrom?: string | null;
-		sowTo?: string | null;
-		price: number | null;
-		source: string | null;
-	},
-	ctx: UnitContext
-): Record<string, string> {
+export function cropFormValues(c: CropView, ctx: UnitContext): Record<string, string> {
 	return Object.fromEntries(
 		Object.entries(measuredFields(cropFields, ctx)).map(([k, spec]) => [k, formValue(spec, c[k as keyof typeof c])])
 	);

@@ -1,5 +1,6 @@
 // Shapes shared by the server and the browser (no server code here).
 import type { GrowingFigures } from '$lib/planning';
+import type { CropInput } from '$lib/schemas/crop';
 import type { PlantingValues } from '$lib/plantings/fields';
 
 /** A planting with its variety, crop and bed joined in, as pages and the API show it. */
@@ -40,6 +41,30 @@ export interface Bed {
 	lengthFt: number;
 	widthIn: number;
 	position: number;
+}
+
+/** A crop of the farm's library with its varieties, as the library pages and forms read it. */
+export interface CropView {
+	id: number;
+	name: string;
+	family: string;
+	harvestUnit: CropInput['harvestUnit'];
+	frostTolerance: CropInput['frostTolerance'];
+	heatLimitF: number | null;
+	baseTempF: number;
+	harvestCurve: CropInput['harvestCurve'];
+	cutIntervalDays: number | null;
+	storageWeeks: number | null;
+	/** Earliest and latest field date in the year, MM-DD, or null. */
+	sowFrom: string | null;
+	sowTo: string | null;
+	/** Fraction lost each week in store, or null. */
+	storageLossPct: number | null;
+	/** Dollars per harvest unit, or null when unknown. */
+	price: number | null;
+	source: string | null;
+	archived: boolean;
+	varieties: VarietyView[];
 }
 
 /** A variety with its crop's figures joined in, as the crop library, grid and planner read it. */

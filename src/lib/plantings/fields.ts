@@ -49,6 +49,13 @@ export const storedColumnNames: readonly string[] = [
 	...plantingFigureNames.map((f) => plantingFigureTable[f].column)
 ];
 
+/** The plantings table's column of a field or a figure. */
+export function storedColumn(f: PlantingField | PlantingFigure): string {
+	return f in plantingFigureTable
+		? plantingFigureTable[f as PlantingFigure].column
+		: fieldSpec(f as PlantingField).column;
+}
+
 /** Stored values as the table's columns. */
 export function toColumns(values: Partial<PlantingValues>): Record<string, unknown> {
 	const out: Record<string, unknown> = {};

@@ -8,6 +8,14 @@ import { sowingMethods } from './planting';
 export type { ChoiceSpec, FieldSpec, Measure, NumberSpec, TextSpec } from './field-spec';
 export { schemaOf, withSowRule, withTrayRule } from './field-spec';
 
+/** The harvest curves: what each does, and (on the crop's form) which crops it fits. */
+const harvestCurves = [
+	['flat', 'even over the window', ''],
+	['ramp', 'rises, peaks, tails off', 'fruiting crops'],
+	['single', 'one cut', 'heads'],
+	['cuts', 'several cuts', 'cut-and-come-again']
+] as const;
+
 export const cropFields = {
 	name: { kind: 'text', label: 'Crop name', help: 'As the crew says it, e.g. "Carrot".', max: 80 },
 	family: {
@@ -54,12 +62,7 @@ export const cropFields = {
 		kind: 'choice',
 		label: 'Harvest curve',
 		help: "How a planting's yield spreads over its harvest window; a variety may differ.",
-		options: [
-			{ value: 'flat', label: 'even over the window' },
-			{ value: 'ramp', label: 'rises, peaks, tails off (fruiting crops)' },
-			{ value: 'single', label: 'one cut (heads)' },
-			{ value: 'cuts', label: 'several cuts (cut-and-come-again)' }
-		]
+		options: harvestCurves.map(([value, label, fits]) => ({ value, label: fits ? `${label} (${fits})` : label }))
 	},
 	cutIntervalDays: {
 		kind: 'number',
@@ -266,13 +269,7 @@ export const varietyFields = {
 		kind: 'choice',
 		label: 'Harvest curve',
 		help: "Leave as the crop's, or give this variety its own.",
-		options: [
-			{ value: '', label: 'as the crop' },
-			{ value: 'flat', label: 'even over the window' },
-			{ value: 'ramp', label: 'rises, peaks, tails off' },
-			{ value: 'single', label: 'one cut' },
-			{ value: 'cuts', label: 'several cuts' }
-		]
+		options: [{ value: '', label: 'as the crop' }, ...harvestCurves.map(([value, label]) => ({ value, label }))]
 	},
 	gddToMaturity: {
 		kind: 'number',

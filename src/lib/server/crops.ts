@@ -4,36 +4,13 @@ import { db } from './db';
 import type { CropInput, VarietyInput } from '$lib/schemas/crop';
 import type { StarterCrop } from './starter-library';
 
-import type { VarietyView } from '$lib/types';
+import type { CropView, VarietyView } from '$lib/types';
 import { listVarieties, shapeOf } from './variety-views';
 
-export type { VarietyView };
+export type { CropView, VarietyView };
 export { curveOf, listVarieties } from './variety-views';
 
 // ---- Editing the library (owner). Every write is scoped by farm; another farm's ids are "not found".
-
-export interface CropView {
-	id: number;
-	name: string;
-	family: string;
-	harvestUnit: CropInput['harvestUnit'];
-	frostTolerance: CropInput['frostTolerance'];
-	heatLimitF: number | null;
-	baseTempF: number;
-	harvestCurve: CropInput['harvestCurve'];
-	cutIntervalDays: number | null;
-	storageWeeks: number | null;
-	/** Earliest and latest field date in the year, MM-DD, or null. */
-	sowFrom: string | null;
-	sowTo: string | null;
-	/** Fraction lost each week in store, or null. */
-	storageLossPct: number | null;
-	/** Dollars per harvest unit, or null when unknown. */
-	price: number | null;
-	source: string | null;
-	archived: boolean;
-	varieties: VarietyView[];
-}
 
 type CropRow = {
 	id: number;

@@ -16,62 +16,40 @@ import * as bedData from './beds';
 import * as farms from './farms';
 import type { Season } from './seasons';
 import { plantingsWithCrop } from './planting-query';
+import { fromStored, storedColumn, type StoredPlanting } from '$lib/plantings/fields';
+import { pick } from '$lib/pick';
 
 export type { FreeBed, FreeSpaceAnswer, TimelineBed, TimelineData, TimelineFlag, TimelinePlanting };
 
+/** The planting's fields and figures the timeline draws, read through the planting field table. */
+const drawn = [
+	'bedId',
+	'startFt',
+	'lengthFt',
+	'method',
+	'fieldDate',
+	'status',
+	'traySowDate',
+	'firstHarvest',
+	'lastHarvest'
+] as const satisfies readonly (keyof StoredPlanting)[];
+
+/** What the joins give: each named as TimelinePlanting names it. */
+const joined = ['id', 'seasonId', 'crop', 'variety', 'family'] as const;
+
 const columns = [
 	'p.id',
-	'p.season_id',
-	'v.name as variety',
+	'p.season_id as seasonId',
 	'c.name as crop',
+	'v.name as variety',
 	'c.family',
-	'p.bed_id',
-	'p.start_ft',
-	'p.length_ft',
-	'p.method',
-	'p.tray_sow_date',
-	'p.field_date',
-	'p.first_harvest',
-	'p.last_harvest',
-	'p.status'
+	...drawn.map((f) => `p.${storedColumn(f)}`)
 ];
 
 /** A row as `columns` reads it. */
-interface TimelineRow {
-	id: number;
-	season_id: number;
-	variety: string;
-	crop: string;
-	family: string;
-	bed_id: number | null;
-	start_ft: string | number;
-	length_ft: string | number;
-	method: TimelinePlanting['method'];
-	tray_sow_date: string | null;
-	field_date: string;
-	first_harvest: string;
-	last_harvest: string;
-	status: TimelinePlanting['status'];
-}
+type TimelineRow = Record<string, unknown> & Pick<TimelinePlanting, (typeof joined)[number]>;
 
-function toPlanting(r: TimelineRow): TimelinePlanting {
-	return {
-		id: r.id,
-		seasonId: r.season_id,
-		crop: r.crop,
-		variety: r.variety,
-		family: r.family,
-		bedId: r.bed_id,
-		startFt: Number(r.start_ft),
-		lengthFt: Number(r.length_ft),
-		method: r.method,
-		traySowDate: r.tray_sow_date,
-		fieldDate: r.field_date,
-		firstHarvest: r.first_harvest,
-		lastHarvest: r.last_harvest,
-		status: r.status
-	};
-}
+const toPlanting = (r: TimelineRow): TimelinePlanting => ({ ...pick(r, joined), ...pick(fromStored(r), drawn) });
 
 /** The season's plantings, plus other seasons' placed plantings that hold a bed in [from, to]. */
 async function plantingsTouching(

@@ -5,7 +5,7 @@ import type { UnitSystem } from '$lib/format';
 import { db } from '../db';
 import * as farms from '../farms';
 import * as beds from '../beds';
-import { listVarieties, type VarietyView } from '../crops';
+import { listVarieties, type CropView, type VarietyView } from '../crops';
 import { targetInput } from '../demand';
 import type { Season } from '../seasons';
 import { listForSeason, listHarvestingFromOtherSeasons, type PlantingView } from '../plantings';
@@ -13,21 +13,20 @@ import { listForSeason, listHarvestingFromOtherSeasons, type PlantingView } from
 /** A planting as the workbook shows it: the plantings repository's view (plantings.ts). */
 export type ExportPlanting = PlantingView;
 
-export interface CropRow {
-	id: number;
-	name: string;
-	family: string;
-	harvestUnit: string;
-	frostTolerance: string;
-	heatLimitF: number | null;
-	baseTempF: number;
-	/** Storage crops: weeks a harvest keeps (null: sold fresh) and the share lost each week. */
-	storageWeeks: number | null;
-	storageLossPerWeek: number;
-	/** Field dates, month-day (MM-DD), both or neither. */
-	sowFrom: string | null;
-	sowTo: string | null;
-}
+/** A crop as the workbook shows it; a store's weekly loss reads 0 where the library has none. */
+export type CropRow = Pick<
+	CropView,
+	| 'id'
+	| 'name'
+	| 'family'
+	| 'harvestUnit'
+	| 'frostTolerance'
+	| 'heatLimitF'
+	| 'baseTempF'
+	| 'storageWeeks'
+	| 'sowFrom'
+	| 'sowTo'
+> & { storageLossPerWeek: number };
 
 export interface ExportBed {
 	block: string;

@@ -3,18 +3,8 @@
 // / Notes columns to fill in by hand.
 import ExcelJS from 'exceljs';
 import type { SheetRow, SheetSection, WeekSheet } from './week';
-import {
-	formatQuantity,
-	lengthUnit,
-	seedWeightUnit,
-	spacingUnit,
-	toDisplayFeet,
-	toDisplayInches,
-	toDisplayQuantity,
-	toDisplaySeedWeight,
-	unitLabel,
-	type UnitSystem
-} from '$lib/format';
+import { formatQuantity, lengthUnit, seedWeightUnit, spacingUnit, type UnitSystem } from '$lib/format';
+import { toFileValue, type Measure } from '$lib/format/file-units';
 
 interface Column {
 	header: string;
@@ -34,16 +24,18 @@ function excelDate(d: string | undefined): Date | null {
 /** The sheets' columns in the farm's units: lengths in ft or m, spacing in in or cm, seed in oz or g. */
 function sheetColumns(system: UnitSystem): Record<SheetSection['kind'], Column[]> {
 	const ft = lengthUnit(system);
+	// Figures as every file writes them in the farm's units (file-units.ts).
+	const inFile = (measure: Measure, value: number, unit?: string | null) => toFileValue(measure, value, system, unit);
 	const metric = system === 'metric';
 	const where: Column[] = [
 		{ header: 'Block · bed', width: 18, value: (_r, g) => g },
 		{
 			header: `From (${ft})`,
 			width: 10,
-			value: (r) => toDisplayFeet(r.startFt, system),
+			value: (r) => inFile('length', r.startFt),
 			format: metric ? '0.0#' : '0.#'
 		},
-		{ header: `To (${ft})`, width: 10, value: (r) => toDisplayFeet(r.endFt, system), format: metric ? '0.0#' : '0.#' }
+		{ header: `To (${ft})`, width: 10, value: (r) => inFile('length', r.endFt), format: metric ? '0.0#' : '0.#' }
 	];
 	const crop: Column[] = [
 		{ header: 'Crop', width: 16, value: (r) => r.crop },
@@ -69,13 +61,13 @@ function sheetColumns(system: UnitSystem): Record<SheetSection['kind'], Column[]
 	const seed: Column = {
 		header: `Seed (${seedWeightUnit(system)})`,
 		width: 10,
-		value: (r) => (r.seed ? toDisplaySeedWeight(r.seed.grams, system) : null),
+		value: (r) => (r.seed ? inFile('seedWeight', r.seed.grams) : null),
 		format: metric ? '#,##0.00' : '#,##0.000'
 	};
 	const spacing: Column = {
 		header: `In-row spacing (${spacingUnit(system)})`,
 		width: 17,
-		value: (r) => toDisplayInches(r.inRowSpacingIn, system),
+		value: (r) => inFile('spacing', r.inRowSpacingIn),
 		format: '0.##'
 	};
 	return {
@@ -116,11 +108,11 @@ function sheetColumns(system: UnitSystem): Record<SheetSection['kind'], Column[]
 			{
 				header: 'Expected this week',
 				width: 17,
-				value: (r) => (r.weekQuantity === undefined ? null : toDisplayQuantity(r.weekQuantity, r.unit ?? '', system)),
+				value: (r) => (r.weekQuantity === undefined ? null : inFile('harvest', r.weekQuantity, r.unit)),
 				format: '#,##0.0'
 			},
 			// Counts keep their word ("bunch"); a weight is named in the farm's unit.
-			{ header: 'Unit', width: 8, value: (r) => (r.unit === 'lb' ? unitLabel('lb', system) : (r.unit ?? null)) },
+			{ header: 'Unit', width: 8, value: (r) => toFileValue('harvestUnit', r.unit ?? null, system) },
 			{
 				header: 'For (share size or channel)',
 				width: 40,
