@@ -136,6 +136,12 @@ describe('forecast chart', () => {
 		await expect(page.getByLabel('To week').inputValue()).resolves.toBe('2027-W25');
 		await expect(page.getByRole('radio', { name: 'Quantity' }).isChecked()).resolves.toBe(true);
 		await expect(page.getByRole('button', { name: 'Table' }).getAttribute('aria-pressed')).resolves.toBe('true');
+		// The chosen view shows it is pressed, not only to a screen reader: its fill differs from the other's.
+		const fill = (name: string): Promise<string> =>
+			page.getByRole('button', { name, exact: true }).evaluate((e) => getComputedStyle(e).backgroundColor);
+		const [table, chart] = [await fill('Table'), await fill('Chart')];
+		expect(chart).toBe('rgb(255, 255, 255)');
+		expect(table).not.toBe(chart);
 		await expect(page.getByTestId('forecast-table').innerText()).resolves.toContain('Spinach (test)');
 		await expect(page.getByTestId('forecast-table').innerText()).resolves.not.toContain('Carrot (test)');
 		await page.close();
