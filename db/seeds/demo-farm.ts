@@ -16,7 +16,8 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { hashPassword } from '../../src/lib/server/password';
 import { plantingRow } from '../../src/lib/planting-row';
-import { engineFarm } from '../../src/lib/engine-inputs';
+import { engineFarm, plantingSeed, toEngineVariety as engineVariety } from '../../src/lib/engine-inputs';
+import type { VarietyView } from '../../src/lib/types';
 import { storeSupply } from '../../src/lib/planning/storage';
 import { previousFamiliesByBed, seasonPlanOptions } from '../../src/lib/plan-options';
 import {
@@ -24,13 +25,11 @@ import {
 	type KeptPlanting,
 	type SeasonPlan,
 	type SeasonVariety,
-	type Variety,
 	type VarietyShare as EngineVarietyShare,
 	derivePlanting,
 	deriveTargets,
 	forecast,
-	planSeason,
-	seedNeed
+	planSeason
 } from '../../src/lib/planning/index';
 
 export type HarvestUnit = 'lb' | 'bunch' | 'head' | 'each';
@@ -1388,14 +1387,21 @@ export interface PlanDemoInput {
 	existing: readonly DemoFallPlanting[];
 }
 
-export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
-	const out: Variety = {
-		id: v.name,
-		name: v.name,
+/** A demo variety with its crop as the library shows it (ids aside), for the engine inputs the server builds. */
+function demoVarietyView(v: DemoVariety, crop: DemoCrop): VarietyView {
+	return {
+		id: 0,
+		cropId: 0,
 		crop: crop.name,
 		family: crop.family,
+		harvestUnit: crop.harvest_unit,
+		frostTolerance: crop.frost_tolerance,
+		heatLimitF: crop.heat_limit_f,
+		baseTempF: crop.base_temp_f,
+		name: v.name,
 		method: v.method,
 		daysToMaturity: v.days_to_maturity,
+		daysInTray: v.days_in_tray,
 		harvestWindowDays: v.harvest_window_days,
 		yieldPerBedFoot: v.yield_per_bed_foot,
 		rows: v.rows_per_bed,
@@ -1403,28 +1409,23 @@ export function toEngineVariety(v: DemoVariety, crop: DemoCrop): Variety {
 		seedsPerSpot: v.seeds_per_spot,
 		germinationRate: v.germination_rate,
 		seedsPerGram: v.seeds_per_gram,
-		frostTender: crop.frost_tolerance === 'tender',
-		baseTempF: crop.base_temp_f,
 		seedPriceCentsPerGram: v.seed_price_cents_per_gram,
-		margin: v.margin
+		seedsPerPacket: v.seeds_per_packet,
+		cellsPerTray: v.cells_per_tray,
+		margin: v.margin,
+		gddToMaturity: v.gdd_to_maturity,
+		harvestCurve: crop.harvest_curve,
+		cutIntervalDays: crop.harvest_cut_interval_days,
+		sowFrom: crop.sow_from ?? null,
+		sowTo: crop.sow_to ?? null,
+		storageWeeks: crop.storage_weeks ?? null,
+		storageLossPerWeek: crop.storage_loss_per_week ?? null
 	};
-	if (v.method === 'transplant') {
-		out.daysInTray = v.days_in_tray;
-		out.cellsPerTray = v.cells_per_tray;
-	}
-	if (crop.heat_limit_f !== null) out.heatLimitF = crop.heat_limit_f;
-	if (crop.harvest_curve !== 'flat') {
-		out.harvestCurve = { shape: crop.harvest_curve };
-		if (crop.harvest_cut_interval_days !== null) out.harvestCurve.intervalDays = crop.harvest_cut_interval_days;
-	}
-	if (v.gdd_to_maturity !== null) out.gddToMaturity = v.gdd_to_maturity;
-	if (crop.sow_from && crop.sow_to) {
-		out.sowFrom = crop.sow_from;
-		out.sowTo = crop.sow_to;
-	}
-	if (v.seeds_per_packet !== null) out.seedsPerPacket = v.seeds_per_packet;
-	if (crop.storage_weeks) out.storage = { keepWeeks: crop.storage_weeks, lossPerWeek: crop.storage_loss_per_week ?? 0 };
-	return out;
+}
+
+/** A demo variety as the engine takes it: the server's mapping (src/lib/engine-inputs.ts), named by the demo's names. */
+export function toEngineVariety(v: DemoVariety, crop: DemoCrop): SeasonVariety {
+	return { ...engineVariety(demoVarietyView(v, crop)), id: v.name, cropId: crop.name };
 }
 
 export function demoEngineFarm(): Farm {
@@ -1494,11 +1495,7 @@ export function planDemoSeason(input: PlanDemoInput = defaultPlanDemoInput()): S
 		boxItems: input.boxItems.map((b) => ({ shareSizeId: b.share, week: b.week, crop: b.crop, quantity: b.quantity })),
 		channelDemand: input.channelDemand.map((c) => ({ crop: c.crop, week: c.week, quantity: c.quantity }))
 	});
-	const varieties: SeasonVariety[] = input.varieties.map((v) => ({
-		...toEngineVariety(v, cropOf(v)),
-		id: v.name,
-		cropId: v.crop
-	}));
+	const varieties: SeasonVariety[] = input.varieties.map((v) => toEngineVariety(v, cropOf(v)));
 	// The plantings already in the ground both supply their weeks and hold their bed-feet.
 	const kept: KeptPlanting[] = input.existing.map((p, i) => {
 		const v = varietyByName.get(p.variety);
@@ -1784,6 +1781,7 @@ export async function seedDemoFarm(knex: Knex, variant: DemoVariant = {}): Promi
 		// Variety names are unique per crop, and in the demo across the farm too.
 		const varietyIds = await idsByName(trx, 'varieties', farmId);
 		const varietyByName = new Map(DEMO_VARIETIES.map((v) => [v.name, v]));
+		const demoCropByName = new Map(DEMO_CROPS.map((c) => [c.name, c]));
 		const unitOf = new Map(DEMO_CROPS.map((c) => [c.name, c.harvest_unit]));
 
 		await trx('seasons').insert(DEMO_SEASONS.map((s) => ({ farm_id: farmId, ...s })));
@@ -1820,17 +1818,17 @@ export async function seedDemoFarm(knex: Knex, variant: DemoVariant = {}): Promi
 		for (const p of DEMO_FALL_PLANTINGS_2026) {
 			const v = need(varietyByName, p.variety, 'variety');
 			const { harvests, variety, bed, ...dates } = p;
-			const seed = seedNeed({
-				method: v.method,
-				bedFeet: p.length_ft,
-				rows: v.rows_per_bed,
-				inRowSpacingIn: v.in_row_spacing_in,
-				seedsPerSpot: v.seeds_per_spot,
-				germinationRate: v.germination_rate,
-				seedsPerGram: v.seeds_per_gram,
-				margin: v.margin,
-				cellsPerTray: v.cells_per_tray
-			});
+			// The seed the server works out for a planting (src/lib/engine-inputs.ts).
+			const seed = plantingSeed(
+				{
+					method: v.method,
+					lengthFt: p.length_ft,
+					rows: v.rows_per_bed,
+					inRowSpacingIn: v.in_row_spacing_in,
+					seedsPerSpot: v.seeds_per_spot
+				},
+				demoVarietyView(v, need(demoCropByName, v.crop, 'crop'))
+			);
 			const [plantingId] = await trx('plantings').insert({
 				farm_id: farmId,
 				season_id: season2026,
