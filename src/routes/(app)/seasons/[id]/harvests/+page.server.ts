@@ -8,6 +8,8 @@ import * as harvestLog from '$lib/server/harvest-log';
 import { listMembers } from '$lib/server/members';
 import { harvestPatchSchema, harvestSchema } from '$lib/schemas/harvest';
 import { fieldErrors } from '$lib/schemas/common';
+import { readForm } from '$lib/server/form';
+import { textValues } from '$lib/library-form';
 import { sheetRows, remapRowErrors } from './sheet';
 import { displayPrefs } from '$lib/server/farms';
 import { storedQuantity } from '$lib/format';
@@ -20,10 +22,6 @@ async function inFarmUnits<T extends { quantity?: number; unit?: string }>(farmI
 			? r
 			: { ...r, quantity: storedQuantity(r.quantity, r.unit, unitSystem) }
 	);
-}
-
-function text(form: FormData): Record<string, string> {
-	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
 }
 
 export const load = (async (event) => {
@@ -51,17 +49,16 @@ export const actions = {
 	log: async (event) => {
 		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
-		const values = text(await event.request.formData());
-		const parsed = harvestSchema.safeParse(values);
-		if (!parsed.success) return fail(400, { log: { errors: fieldErrors(parsed.error), values } });
-		const out = await harvestLog.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, [parsed.data]));
-		if (!out.ok) return fail(out.status, { log: { errors: out.errors, values } });
+		const form = await readForm(event.request, harvestSchema);
+		if (form.refused) return fail(400, { log: form.refused });
+		const out = await harvestLog.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, [form.data]));
+		if (!out.ok) return fail(out.status, { log: { errors: out.errors, values: form.values } });
 		redirect(303, `/seasons/${season.id}/harvests?logged=${out.value[0].id}`);
 	},
 	sheet: async (event) => {
 		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
-		const values = text(await event.request.formData());
+		const values = textValues(await event.request.formData());
 		const { records, rowOf, errors } = sheetRows(values);
 		if (Object.keys(errors).length) return fail(400, { sheet: { errors, values } });
 		const out = await harvestLog.create(farm.id, season.id, user.id, await inFarmUnits(farm.id, records), true);
@@ -71,7 +68,7 @@ export const actions = {
 	edit: async (event) => {
 		const { farm, user } = requireCan(event, 'harvests.log');
 		const season = await seasonFromParams(farm.id, event.params.id);
-		const { id, ...values } = text(await event.request.formData());
+		const { id, ...values } = textValues(await event.request.formData());
 		const key = `edit-${id}`;
 		const parsed = harvestPatchSchema.safeParse(values);
 		if (!parsed.success) return fail(400, { edit: { key, errors: fieldErrors(parsed.error), values } });

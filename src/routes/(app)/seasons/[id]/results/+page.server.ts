@@ -7,7 +7,7 @@ import { seasonFromParams } from '$lib/server/api';
 import * as actuals from '$lib/server/actuals';
 import { copySeason } from '$lib/server/season-copy';
 import { figureChangeSchema, varietyFiguresSchema } from '$lib/schemas/harvest';
-import { fieldErrors } from '$lib/schemas/common';
+import { readForm } from '$lib/server/form';
 
 export const load = (async (event) => {
 	const { farm } = requireUser(event);
@@ -18,10 +18,6 @@ export const load = (async (event) => {
 		canCopy: can(farm.role, 'season.copy')
 	};
 }) satisfies PageServerLoad;
-
-function text(form: FormData): Record<string, string> {
-	return Object.fromEntries([...form.entries()].map(([k, v]) => [k, String(v)]));
-}
 
 /**
  * Taking a variety's figures into the library and undoing that read the same way: one number from the
@@ -36,9 +32,9 @@ function figuresAction<K extends string>(
 	return async (event: Parameters<Action>[0]) => {
 		const { farm, user } = requireCan(event, 'varieties.adopt');
 		const season = await seasonFromParams(farm.id, event.params.id);
-		const parsed = schema.safeParse(text(await event.request.formData()));
-		if (!parsed.success) return fail(400, { figures: { errors: fieldErrors(parsed.error) } });
-		const out = await step(farm.id, season.id, parsed.data[field], user.id);
+		const form = await readForm(event.request, schema);
+		if (form.refused) return fail(400, { figures: { errors: form.refused.errors } });
+		const out = await step(farm.id, season.id, form.data[field], user.id);
 		if (!out.ok) return fail(out.status, { figures: { errors: { [field]: out.message } as Record<string, string> } });
 		redirect(303, `/seasons/${season.id}/results?${shown}=${out.change.id}#figures`);
 	};
