@@ -5,6 +5,7 @@ import { createHash } from 'node:crypto';
 import type { Knex } from 'knex';
 import { db } from './db';
 import { demandHash, lockSeason } from './seasons';
+import { insertPlantings } from './planting-query';
 
 export class PlanConflictError extends Error {
 	constructor(
@@ -205,7 +206,7 @@ export async function undoLastApply(
 			);
 		const presentIds = present.map((p) => p.id);
 		if (presentIds.length) await trx('plantings').whereIn('id', presentIds).delete();
-		for (let i = 0; i < replaced.length; i += 500) await trx('plantings').insert(replaced.slice(i, i + 500));
+		await insertPlantings(trx, replaced);
 		await trx('plan_applies').where({ id: last.id }).update({ undone_at: trx.fn.now(), undone_by: userId });
 		await trx('seasons')
 			.where({ farm_id: farmId, id: seasonId })

@@ -16,7 +16,7 @@ import { targetInput } from './demand';
 import { demandHash, type Season } from './seasons';
 import { bedHolders } from './bed-holders';
 import { lockForApply, recordApply, snapshotPlanned } from './plan-history';
-import { plantingsWithCrop } from './planting-query';
+import { insertPlantings, plantingsWithCrop } from './planting-query';
 
 export interface PlanPreview {
 	plan: SeasonPlan;
@@ -237,7 +237,7 @@ export async function apply(
 				updatedBy: userId
 			})
 		);
-		for (let i = 0; i < inserts.length; i += 500) await trx('plantings').insert(inserts.slice(i, i + 500));
+		await insertPlantings(trx, inserts);
 		await recordApply(trx, { farmId, seasonId, userId, options: request, replaced, demandDigest });
 		return {
 			kept: rows.length - plannedIds.length,

@@ -24,7 +24,7 @@ import { familiesByBed } from './rotation';
 import * as beds from './beds';
 import { bedHolders } from './bed-holders';
 import { lockSeason, type Season } from './seasons';
-import { plantingsWithCrop } from './planting-query';
+import { insertPlantings, plantingsWithCrop } from './planting-query';
 
 export interface CopyPlantingNote {
 	plantingId: number;
@@ -193,7 +193,7 @@ async function copyOnce(farmId: number, source: Season, userId: string): Promise
 			};
 		});
 		// Plan apply and import batch the same way; no ids are needed back from this insert.
-		for (let i = 0; i < rows.length; i += 500) await trx('plantings').insert(rows.slice(i, i + 500));
+		await insertPlantings(trx, rows);
 
 		const shares = await trx('share_sizes').where({ farm_id: farmId, season_id: source.id });
 		let boxItems = 0;

@@ -17,7 +17,7 @@ import { diffSeason, varietyKey, type ExistingPlanting, type SeasonDiff, type Wa
 import type { ImportPlan } from './validate';
 import { plantingColumnsOf, writeBeds, writeLibrary } from './write';
 import { fileFieldNames, fromStored, pick, plantingFigureNames } from '$lib/plantings/fields';
-import { plantingsWithCrop } from '../planting-query';
+import { insertPlantings, plantingsWithCrop } from '../planting-query';
 
 export interface PreviewSummary {
 	token: string;
@@ -261,7 +261,7 @@ export async function applySeasonUpdate(farmId: number, userId: string, token: s
 				.update({ ...columns(c.planting), version: (version.get(c.id) ?? 0) + 1, updated_at: trx.fn.now() });
 		}
 		const added = p.diff.added.map((a) => ({ ...columns(a.planting), farm_id: farmId, season_id: p.season.id }));
-		for (let i = 0; i < added.length; i += 500) await trx('plantings').insert(added.slice(i, i + 500));
+		await insertPlantings(trx, added);
 		const gone = p.diff.removed.map((r) => r.id);
 		for (let i = 0; i < gone.length; i += 500)
 			await trx('plantings')

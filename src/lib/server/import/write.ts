@@ -6,6 +6,7 @@ import type { Knex } from 'knex';
 import type { ImportIssue } from '$lib/schemas/import';
 import { db } from '../db';
 import { lockSeason } from '../seasons';
+import { insertPlantings } from '../planting-query';
 import { seasonDateProblem } from '$lib/schemas/common';
 import type { ImportPlan } from './validate';
 import {
@@ -259,7 +260,7 @@ export async function writeImport(
 				updated_by: userId
 			};
 		});
-		for (let i = 0; i < rows.length; i += 500) await trx('plantings').insert(rows.slice(i, i + 500));
+		await insertPlantings(trx, rows);
 		summary.plantings = rows.length;
 		return summary;
 	});
