@@ -66,9 +66,12 @@ export function plannedFromRow(r: PlannedRow): PlannedPlanting & { key: string }
 	};
 }
 
-/** The farm's plantings joined to their variety and crop, failed ones left out (they supply nothing). */
+/**
+ * The farm's plantings joined to their variety and crop, failed ones left out (they supply nothing),
+ * in the order they were made, so every page lists them the same way on every load.
+ */
 export function livePlantings(farmId: number, conn: Knex = db()): Knex.QueryBuilder {
-	return plantingsWithCrop(conn).where({ 'p.farm_id': farmId }).whereNot('p.status', 'failed');
+	return plantingsWithCrop(conn).where({ 'p.farm_id': farmId }).whereNot('p.status', 'failed').orderBy('p.id');
 }
 
 /** Logged harvests of a season's plantings in the crop's own unit (another unit cannot be added in). */
