@@ -180,6 +180,12 @@ describe('share boxes', () => {
 		// Half box back at 80 %; season average (90 + 80) ÷ 2 = 85 %.
 		await expect(page.getByTestId('average-fill').innerText()).resolves.toBe('85 %');
 		await expect(page.locator('[data-testid="swap"][data-undone="true"]').count()).resolves.toBe(1);
+		// On a phone the swaps table scrolls inside its own frame; the page itself does not scroll sideways.
+		await page.setViewportSize({ width: 390, height: 844 });
+		await expect(page.getByRole('region', { name: 'Swaps made (scrolls sideways)' }).isVisible()).resolves.toBe(true);
+		await expect(
+			page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
+		).resolves.toBeLessThanOrEqual(0);
 		await page.close();
 		await browser.context.clearCookies();
 	});
